@@ -1,0 +1,5 @@
+// @keyloom/shared: the zod schemas and types both the client and the API use,
+// and the model engine (plain TypeScript, no Node-only API).
+export * from './schemas/roles';
+export * from './schemas/auth.schema';
+export * from './schemas/users.schema';
