@@ -3,3 +3,4 @@
 export * from './schemas/roles';
 export * from './schemas/auth.schema';
 export * from './schemas/users.schema';
+export * from './schemas/email';

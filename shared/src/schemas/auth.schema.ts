@@ -1,9 +1,10 @@
 import { z } from 'zod';
+import { emailField } from './email';
 import { roleSchema } from './roles';
 
 // Sign-in body, validated by the sign-in form and by POST /api/auth/login.
 export const loginSchema = z.object({
-  email: z.email({ error: 'Enter a valid e-mail address.' }).max(254).trim().toLowerCase(),
+  email: emailField,
   password: z
     .string({ error: 'Enter your password.' })
     .min(1, { error: 'Enter your password.' })

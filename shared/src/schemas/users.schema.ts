@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { emailField } from './email';
 import { roleSchema } from './roles';
 
 // Minimum length for staff passwords: long passphrases over composition rules
@@ -30,7 +31,7 @@ export type User = z.infer<typeof userSchema>;
 
 // POST /api/users (admin only).
 export const createUserSchema = z.object({
-  email: z.email({ error: 'Enter a valid e-mail address.' }).max(254).trim().toLowerCase(),
+  email: emailField,
   name: nameField,
   role: roleSchema,
   password: passwordField,

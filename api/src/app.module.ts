@@ -1,0 +1,60 @@
+import { Module } from '@nestjs/common';
+import { APP_FILTER, APP_GUARD, Reflector } from '@nestjs/core';
+import { ThrottlerGuard, ThrottlerModule } from '@nestjs/throttler';
+import { AuditModule } from './audit/audit.module';
+import { AuthModule } from './auth/auth.module';
+import { isSignInRoute, SIGN_IN_THROTTLER } from './auth/decorators/sign-in-rate-limit.decorator';
+import { CsrfGuard } from './auth/guards/csrf.guard';
+import { RolesGuard } from './auth/guards/roles.guard';
+import { SessionGuard } from './auth/guards/session.guard';
+import { SIGN_IN_THROTTLED_MESSAGE } from './auth/session-user';
+import { ApiExceptionFilter } from './common/filters/api-exception.filter';
+import { AppConfig } from './config/app-config';
+import { AppConfigModule } from './config/app-config.module';
+import { DatabaseModule } from './database/database.module';
+import { HealthModule } from './health/health.module';
+import { UsersModule } from './users/users.module';
+
+const MINUTE_MS = 60_000;
+// Ceiling for all API calls per client address; far above what one person's browser does
+// (common practice, no source). Sign-in has its own, much lower limit.
+const API_REQUESTS_PER_MINUTE = 1_000;
+
+@Module({
+  imports: [
+    AppConfigModule,
+    DatabaseModule,
+    ThrottlerModule.forRootAsync({
+      inject: [AppConfig],
+      useFactory: (config: AppConfig) => ({
+        throttlers: [
+          { name: 'default', ttl: MINUTE_MS, limit: API_REQUESTS_PER_MINUTE },
+          {
+            name: SIGN_IN_THROTTLER,
+            ttl: MINUTE_MS,
+            limit: config.loginRateLimit,
+            skipIf: (context) => !isSignInRoute(context),
+          },
+        ],
+        errorMessage: (context) =>
+          isSignInRoute(context)
+            ? SIGN_IN_THROTTLED_MESSAGE
+            : 'Too many requests. Wait a minute and try again.',
+      }),
+    }),
+    AuditModule,
+    UsersModule,
+    AuthModule,
+    HealthModule,
+  ],
+  providers: [
+    Reflector,
+    // Global guards run in this order: rate limit, session, role, CSRF token.
+    { provide: APP_GUARD, useClass: ThrottlerGuard },
+    { provide: APP_GUARD, useClass: SessionGuard },
+    { provide: APP_GUARD, useClass: RolesGuard },
+    { provide: APP_GUARD, useClass: CsrfGuard },
+    { provide: APP_FILTER, useClass: ApiExceptionFilter },
+  ],
+})
+export class AppModule {}

@@ -1,0 +1,46 @@
+import { Injectable } from '@nestjs/common';
+import { InjectRepository } from '@nestjs/typeorm';
+import type { EntityManager, Repository } from 'typeorm';
+import { AuditEvent, type AuditDetails } from './audit-event.entity';
+
+/** Actions recorded so far; later issues add theirs ('client.create', 'profile.approve', …). */
+export type AuditAction =
+  'auth.sign-in' | 'auth.sign-in-failed' | 'auth.sign-out' | 'user.create' | 'user.update';
+
+/** Who did it: a signed-in user, or only a typed e-mail (failed sign-in); ip of the request. */
+export type AuditActor = { id: string | null; email: string | null; ip?: string | null };
+
+/** What it was done to; clientId ties the event to one client record (later issues). */
+export type AuditSubject = { type: string; id: string; clientId?: string | null };
+
+@Injectable()
+export class AuditService {
+  constructor(@InjectRepository(AuditEvent) private readonly events: Repository<AuditEvent>) {}
+
+  /**
+   * Appends one event. Pass `manager` to write inside the caller's transaction, so the event
+   * exists exactly when the change does. `details` must not contain secrets or password hashes.
+   */
+  async record(
+    actor: AuditActor | null,
+    action: AuditAction,
+    subject: AuditSubject | null,
+    details: AuditDetails = {},
+    manager?: EntityManager,
+  ): Promise<void> {
+    const repo = manager ? manager.getRepository(AuditEvent) : this.events;
+    // save(create()) rather than insert(): insert's deep-partial type does not accept free-form jsonb.
+    await repo.save(
+      repo.create({
+        actorId: actor?.id ?? null,
+        actorEmail: actor?.email ?? null,
+        ip: actor?.ip ?? null,
+        action,
+        subjectType: subject?.type ?? null,
+        subjectId: subject?.id ?? null,
+        clientId: subject?.clientId ?? null,
+        details,
+      }),
+    );
+  }
+}

@@ -1,0 +1,79 @@
+import {
+  type ArgumentsHost,
+  Catch,
+  type ExceptionFilter,
+  HttpException,
+  HttpStatus,
+  Logger,
+} from '@nestjs/common';
+import type { ApiError } from '@keyloom/shared';
+import type { Response } from 'express';
+import { STATUS_CODES } from 'node:http';
+import { isDatabaseUnavailable } from '../../database/database-errors';
+
+export const DATABASE_DOWN_MESSAGE =
+  'The database is not reachable right now; nothing was changed. Try again in a moment.';
+export const INVALID_JSON_MESSAGE = 'The request body is not valid JSON.';
+const INTERNAL_MESSAGE =
+  'Something went wrong on the server. Try again; if it keeps happening, tell an administrator.';
+
+type HttpErrorLike = {
+  status?: unknown;
+  statusCode?: unknown;
+  type?: unknown;
+  expose?: unknown;
+  message?: unknown;
+};
+
+/** Turns any thrown value into the apiErrorSchema body and its status. Pure, so it is unit-tested. */
+export function toApiError(exception: unknown): ApiError {
+  if (exception instanceof HttpException) {
+    const status = exception.getStatus();
+    const body = exception.getResponse();
+    if (typeof body === 'string') return build(status, body);
+    const { message, issues } = body as { message?: unknown; issues?: ApiError['issues'] };
+    const text = Array.isArray(message)
+      ? message.join(' ')
+      : typeof message === 'string'
+        ? message
+        : exception.message;
+    return build(status, text, issues);
+  }
+  if (isDatabaseUnavailable(exception)) return build(HttpStatus.SERVICE_UNAVAILABLE, DATABASE_DOWN_MESSAGE);
+
+  // Errors raised by Express middleware (body-parser, http-errors) carry a status and a type.
+  const e = (typeof exception === 'object' && exception !== null ? exception : {}) as HttpErrorLike;
+  if (e.type === 'entity.parse.failed') return build(400, INVALID_JSON_MESSAGE);
+  if (e.type === 'entity.too.large') return build(413, 'The request body is too large.');
+  const status =
+    typeof e.status === 'number' ? e.status : typeof e.statusCode === 'number' ? e.statusCode : 500;
+  if (status >= 400 && status < 500 && e.expose === true && typeof e.message === 'string') {
+    return build(status, e.message);
+  }
+  return build(500, INTERNAL_MESSAGE);
+}
+
+function build(statusCode: number, message: string, issues?: ApiError['issues']): ApiError {
+  const error = STATUS_CODES[statusCode] ?? 'Error';
+  return issues ? { statusCode, message, error, issues } : { statusCode, message, error };
+}
+
+/** Global filter: every error leaves the API as JSON `{statusCode, message, error, issues?}`. */
+@Catch()
+export class ApiExceptionFilter implements ExceptionFilter {
+  private readonly logger = new Logger('ApiError');
+
+  catch(exception: unknown, host: ArgumentsHost): void {
+    const res = host.switchToHttp().getResponse<Response>();
+    const body = toApiError(exception);
+    if (body.statusCode >= 500) {
+      if (body.statusCode === 503) this.logger.warn(`Database unreachable: ${String(exception)}`);
+      else
+        this.logger.error(
+          exception instanceof Error ? (exception.stack ?? exception.message) : String(exception),
+        );
+    }
+    if (res.headersSent) return;
+    res.status(body.statusCode).json(body);
+  }
+}

@@ -1,0 +1,72 @@
+import { Injectable } from '@nestjs/common';
+import { ConfigService } from '@nestjs/config';
+import { isAbsolute, resolve } from 'node:path';
+import type { Env } from './env.schema';
+
+// api/src/config and api/dist/config are both three levels below the repository root.
+const REPO_ROOT = resolve(__dirname, '..', '..', '..');
+
+/** Typed, read-only view of the validated environment. The only way code reads settings. */
+@Injectable()
+export class AppConfig {
+  constructor(private readonly config: ConfigService<Env, true>) {}
+
+  private get<K extends keyof Env>(key: K): Env[K] {
+    return this.config.get(key, { infer: true });
+  }
+
+  get nodeEnv(): Env['NODE_ENV'] {
+    return this.get('NODE_ENV');
+  }
+  get isProduction(): boolean {
+    return this.nodeEnv === 'production';
+  }
+  get isTest(): boolean {
+    return this.nodeEnv === 'test';
+  }
+  get host(): string {
+    return this.get('HOST');
+  }
+  get port(): number {
+    return this.get('PORT');
+  }
+  get databaseUrl(): string {
+    return this.get('DATABASE_URL');
+  }
+  get sessionSecret(): string {
+    return this.get('SESSION_SECRET');
+  }
+  get sessionMaxAgeMs(): number {
+    return this.get('SESSION_MAX_AGE_HOURS') * 3_600_000;
+  }
+  get bcryptCost(): number {
+    return this.get('BCRYPT_COST');
+  }
+  /** Sign-in attempts allowed per minute per client address (1–10000). */
+  get loginRateLimit(): number {
+    return this.get('LOGIN_RATE_LIMIT');
+  }
+  get smtp(): { host: string; port: number; secure: boolean; user?: string; pass?: string } {
+    return {
+      host: this.get('SMTP_HOST'),
+      port: this.get('SMTP_PORT'),
+      secure: this.get('SMTP_SECURE'),
+      user: this.get('SMTP_USER'),
+      pass: this.get('SMTP_PASS'),
+    };
+  }
+  get mailFrom(): string {
+    return this.get('MAIL_FROM');
+  }
+  get appUrl(): string {
+    return this.get('APP_URL');
+  }
+  /** Absolute folder of the built client; relative values are resolved from the repository root. */
+  get clientDist(): string {
+    const dir = this.get('CLIENT_DIST');
+    return isAbsolute(dir) ? dir : resolve(REPO_ROOT, dir);
+  }
+  get demoPassword(): string {
+    return this.get('DEMO_PASSWORD');
+  }
+}

@@ -1,0 +1,5 @@
+import { demoStaffStep } from './seeds/demo-staff.seed';
+import type { SeedStep } from './seeds/seed-step';
+
+// Run in this order; later issues append their steps (demo clients, samples, …).
+export const seedSteps: SeedStep[] = [demoStaffStep];

@@ -1,0 +1,85 @@
+import type { ComponentPropsWithoutRef, ReactNode } from 'react';
+import { useId } from 'react';
+import { cn } from '@/lib/cn';
+
+// Below the md breakpoint each row becomes a card: cells stack and show their column name.
+// Explicit roles keep the table semantics that `display: block` would otherwise drop.
+
+type TableProps = { caption: ReactNode; children: ReactNode; className?: string };
+
+/** A data table with a caption, inside a labelled region that can scroll on its own. */
+export const Table = ({ caption, children, className }: TableProps) => {
+  const captionId = useId();
+  return (
+    <div role="region" aria-labelledby={captionId} className={cn('w-full', className)}>
+      <table role="table" className="w-full border-collapse text-left max-md:block">
+        <caption id={captionId} className="mb-3 text-left text-lg font-bold max-md:block">
+          {caption}
+        </caption>
+        {children}
+      </table>
+    </div>
+  );
+};
+
+export const TableHead = ({ children }: { children: ReactNode }) => (
+  <thead role="rowgroup" className="max-md:sr-only">
+    <tr role="row" className="border-b-2 border-ink">
+      {children}
+    </tr>
+  </thead>
+);
+
+export const TableBody = ({ children }: { children: ReactNode }) => (
+  <tbody role="rowgroup" className="max-md:flex max-md:flex-col max-md:gap-4">
+    {children}
+  </tbody>
+);
+
+export const ColumnHeader = ({ children, className }: { children: ReactNode; className?: string }) => (
+  <th role="columnheader" scope="col" className={cn('px-3 py-3 align-bottom font-bold', className)}>
+    {children}
+  </th>
+);
+
+export const TableRow = ({ children, className }: { children: ReactNode; className?: string }) => (
+  <tr
+    role="row"
+    className={cn(
+      'border-b border-thread align-top',
+      'max-md:flex max-md:flex-col max-md:gap-1 max-md:rounded-xl max-md:border-2 max-md:border-thread max-md:bg-surface max-md:p-4',
+      className,
+    )}
+  >
+    {children}
+  </tr>
+);
+
+type CellProps = Omit<ComponentPropsWithoutRef<'td'>, 'children'> & {
+  /** The column name, shown above the value when rows are cards. */
+  label: string;
+  children: ReactNode;
+};
+
+const cellClasses = 'px-3 py-3 max-md:flex max-md:flex-col max-md:px-0 max-md:py-1';
+
+const CardLabel = ({ label }: { label: string }) => (
+  <span aria-hidden="true" className="text-sm font-bold text-ink-soft uppercase md:hidden">
+    {label}
+  </span>
+);
+
+export const TableCell = ({ label, children, className, ...props }: CellProps) => (
+  <td role="cell" className={cn(cellClasses, className)} {...props}>
+    <CardLabel label={label} />
+    {children}
+  </td>
+);
+
+/** The cell that names the row (e.g. the person), announced as the row's header. */
+export const RowHeader = ({ label, children, className }: CellProps) => (
+  <th role="rowheader" scope="row" className={cn(cellClasses, 'font-bold', className)}>
+    <CardLabel label={label} />
+    {children}
+  </th>
+);

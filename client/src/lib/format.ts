@@ -1,0 +1,7 @@
+const dateTime = new Intl.DateTimeFormat('en-GB', { dateStyle: 'medium', timeStyle: 'short' });
+
+/** "3 Feb 2026, 14:05" from an ISO timestamp; the text itself when it is not a date. */
+export const formatDateTime = (iso: string): string => {
+  const date = new Date(iso);
+  return Number.isNaN(date.getTime()) ? iso : dateTime.format(date);
+};
