@@ -137,6 +137,31 @@ describe('users (HTTP, admin only)', () => {
       expect(res.body.message).toBe('E-mail or password is not right.');
     });
 
+    it('sets a new password: open sessions end, the old password stops working, the new one works', async () => {
+      const user = await newUser(t.dataSource, { role: 'carer' });
+      const session = await signIn(t.http, user);
+      const newPassword = 'a fresh passphrase for the carer';
+
+      await admin.agent
+        .patch(`/api/users/${user.id}`)
+        .set('X-CSRF-Token', admin.csrf)
+        .send({ password: newPassword })
+        .expect(200);
+
+      await session.agent.get('/api/auth/me').expect(401);
+      const again = request.agent(t.http);
+      const token = await csrfToken(again);
+      await again
+        .post('/api/auth/login')
+        .set('X-CSRF-Token', token)
+        .send({ email: user.email, password: FACTORY_PASSWORD })
+        .expect(401);
+      await signIn(t.http, { ...user, password: newPassword });
+      const events = await t.dataSource.getRepository(AuditEvent).findBy({ subjectId: user.id, action: 'user.update' });
+      expect(JSON.stringify(events)).not.toContain(newPassword);
+      expect(events.some((event) => JSON.stringify(event.details).includes('password'))).toBe(true);
+    });
+
     it('refuses (409) to deactivate or demote yourself', async () => {
       const off = await admin.agent
         .patch(`/api/users/${admin.id}`)

@@ -176,6 +176,24 @@ describe(UsersService.name, () => {
       ]);
     });
 
+    it('sets a new password as a bcrypt hash, ends the sessions, and audits only that it happened', async () => {
+      repo.findOne.mockResolvedValue(aUser({ id: OTHER_ID, role: 'carer' }));
+      repo.findOneByOrFail.mockResolvedValue(aUser({ id: OTHER_ID, role: 'carer' }));
+      const password = 'a brand new passphrase';
+
+      await sut.update(admin, OTHER_ID, { password });
+
+      const patch = repo.update.mock.calls[0][1] as { passwordHash: string };
+      await expect(bcrypt.compare(password, patch.passwordHash)).resolves.toBe(true);
+      expect(manager.query).toHaveBeenCalledWith(expect.stringContaining('DELETE FROM "session"'), [
+        OTHER_ID,
+      ]);
+      const audited = JSON.stringify(audit.record.mock.calls);
+      expect(audited).toContain('"password"');
+      expect(audited).not.toContain(password);
+      expect(audited).not.toContain(patch.passwordHash);
+    });
+
     it('changes nothing and records nothing when the values are already set', async () => {
       repo.findOne.mockResolvedValue(aUser({ id: OTHER_ID, role: 'carer' }));
       await sut.update(admin, OTHER_ID, { role: 'carer', active: true });

@@ -78,6 +78,10 @@ export class UsersService {
         const next = input[key];
         if (next !== undefined && next !== target[key]) changes[key] = { from: target[key], to: next };
       }
+      const newPasswordHash =
+        input.password === undefined ? undefined : await bcrypt.hash(input.password, this.config.bcryptCost);
+      // The audit log says that a password was set, never what it was or its hash.
+      if (newPasswordHash !== undefined) changes.password = { from: 'previous', to: 'new' };
       if (Object.keys(changes).length === 0) return toUserDto(target);
 
       const staysActiveAdmin = (input.role ?? target.role) === 'admin' && (input.active ?? target.active);
@@ -99,13 +103,15 @@ export class UsersService {
         }
       }
 
-      const patch: Partial<Pick<User, 'name' | 'role' | 'active'>> = {};
+      const patch: Partial<Pick<User, 'name' | 'role' | 'active' | 'passwordHash'>> = {};
       if (changes.name) patch.name = input.name;
       if (changes.role) patch.role = input.role;
       if (changes.active) patch.active = input.active;
+      if (newPasswordHash !== undefined) patch.passwordHash = newPasswordHash;
       await repo.update({ id }, patch);
-      if (changes.active && input.active === false) {
-        // The serializer would refuse them anyway; removing the rows also frees the store.
+      if ((changes.active && input.active === false) || (newPasswordHash !== undefined && actor.id !== id)) {
+        // Deactivation or a new password ends the account's sessions everywhere. The serializer
+        // would refuse a deactivated user anyway; removing the rows also frees the store.
         await manager.query(`DELETE FROM "session" WHERE "sess"->'passport'->>'user' = $1`, [id]);
       }
       await this.audit.record(actor, 'user.update', { type: 'user', id }, { changes }, manager);

@@ -16,6 +16,15 @@ export class Distribution {
   probs: Float64Array;
   size = 0;
   rest = 0;
+  /**
+   * Added for blending: the probability of each single code point the model
+   * does not name, below `split` (unnamedBelow) and at or above it
+   * (unnamedAbove). A PPM model sets split to its order -1 alphabet size;
+   * rest equals the sum of these over all unnamed code points.
+   */
+  unnamedBelow = 0;
+  unnamedAbove = 0;
+  split = 0x110000;
 
   constructor(capacity = 256) {
     this.symbols = new Int32Array(capacity);
@@ -26,6 +35,14 @@ export class Distribution {
   clear(): void {
     this.size = 0;
     this.rest = 0;
+    this.unnamedBelow = 0;
+    this.unnamedAbove = 0;
+    this.split = 0x110000;
+  }
+
+  /** Probability of a code point this distribution does not name. */
+  unnamed(symbol: number): number {
+    return symbol < this.split ? this.unnamedBelow : this.unnamedAbove;
   }
 
   /** Appends a symbol, growing the buffers when full. */

@@ -38,13 +38,19 @@ export const createUserSchema = z.object({
 });
 export type CreateUserInput = z.infer<typeof createUserSchema>;
 
-// PATCH /api/users/:id (admin only): any subset of these.
+// PATCH /api/users/:id (admin only): any subset of these. A new password is
+// set by the admin when a colleague has forgotten theirs; it ends their sessions.
 export const updateUserSchema = z
   .object({
     name: nameField,
     role: roleSchema,
     active: z.boolean(),
+    password: passwordField,
   })
   .partial()
   .refine((value) => Object.keys(value).length > 0, { error: 'Nothing to change.' });
 export type UpdateUserInput = z.infer<typeof updateUserSchema>;
+
+// The admin's "Set a new password" form.
+export const setPasswordSchema = z.object({ password: passwordField });
+export type SetPasswordInput = z.infer<typeof setPasswordSchema>;

@@ -11,6 +11,7 @@ import { useMe } from '@/features/auth/api/get-me';
 import { useUsers } from '@/features/staff/api/get-users';
 import { AccountStatusDialog } from '@/features/staff/components/account-status-dialog';
 import { CreateStaffDialog } from '@/features/staff/components/create-staff-dialog';
+import { SetPasswordDialog } from '@/features/staff/components/set-password-dialog';
 import { StaffTable } from '@/features/staff/components/staff-table';
 
 export const StaffRoute = () => {
@@ -18,6 +19,7 @@ export const StaffRoute = () => {
   const users = useUsers();
   const [creating, setCreating] = useState(false);
   const [statusTarget, setStatusTarget] = useState<User | null>(null);
+  const [passwordTarget, setPasswordTarget] = useState<User | null>(null);
   const [announcement, setAnnouncement] = useState<Announcement>(null);
 
   const announce = (tone: 'success' | 'error', text: string) => setAnnouncement({ tone, text });
@@ -56,6 +58,7 @@ export const StaffRoute = () => {
           onRoleSaved={(user) => announce('success', `${user.name} is now ${roleLabels[user.role]}.`)}
           onActionFailed={(message) => announce('error', message)}
           onToggleActive={setStatusTarget}
+          onSetPassword={setPasswordTarget}
         />
       )}
 
@@ -65,6 +68,14 @@ export const StaffRoute = () => {
         onCreated={(user) => {
           setCreating(false);
           announce('success', `Added ${user.name} as ${roleLabels[user.role]}.`);
+        }}
+      />
+      <SetPasswordDialog
+        user={passwordTarget}
+        onClose={() => setPasswordTarget(null)}
+        onDone={(user) => {
+          setPasswordTarget(null);
+          announce('success', `New password set for ${user.name}. They are signed out until they use it.`);
         }}
       />
       <AccountStatusDialog

@@ -21,6 +21,7 @@ type StaffTableProps = {
   onRoleSaved: (user: User) => void;
   onActionFailed: (message: string) => void;
   onToggleActive: (user: User) => void;
+  onSetPassword: (user: User) => void;
 };
 
 const StatusBadge = ({ active }: { active: boolean }) => (
@@ -55,6 +56,7 @@ const StaffRow = ({
   onRoleSaved,
   onActionFailed,
   onToggleActive,
+  onSetPassword,
 }: Omit<StaffTableProps, 'users' | 'currentUserId'> & { user: User; isSelf: boolean }) => {
   const reasonId = useId();
   return (
@@ -102,6 +104,13 @@ const StaffRow = ({
           className="self-start"
         >
           {user.active ? 'Deactivate' : 'Reactivate'}
+        </Button>
+        <Button
+          onClick={() => onSetPassword(user)}
+          aria-label={`Set a new password for ${user.name}`}
+          className="mt-2 self-start"
+        >
+          Set password
         </Button>
         {isSelf && (
           <p id={reasonId} className="mt-2 max-w-56 text-sm text-ink-soft">

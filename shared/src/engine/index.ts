@@ -1,0 +1,21 @@
+// Public API of the Keyloom model engine (re-exported by src/index.ts).
+export { Distribution } from './model-types';
+export type { NextSymbolModel } from './model-types';
+export { prepareText, codePointsOf, stringFromCodePoints } from './text-preparation';
+export type { PrepareOptions } from './text-preparation';
+export { defaultPpmSettings, resolvePpmSettings, CODE_POINT_LIMIT } from './ppm-settings';
+export type { PpmSettings, EscapeMethod, ResolvedPpmSettings } from './ppm-settings';
+export { PpmModel, CONTEXT_TOTAL_LIMIT } from './ppm-model';
+export { BlendedModel, tuneBlendWeight, blendBits } from './blended-model';
+export { codeLengthBits, encodeText, decodeText } from './text-coding';
+export type { CodeLengthOptions } from './text-coding';
+export { serializeModel, deserializeModel } from './model-serialization';
+export { compressBytes, decompressBytes } from './container';
+export type { ContainerSettings } from './container';
+export { FormatError } from './byte-io';
+export { crc32 } from './crc32';
+export { RangeEncoder, RangeDecoder, CoderError } from './range-coder';
+export { CumulativeTable, UniformTable, CheckedFrequencyTable, MAX_TABLE_TOTAL } from './frequency-table';
+export type { FrequencyTable } from './frequency-table';
+export { decodeUtf8, encodeUtf8 } from './utf8-codec';
+export { seededRandom } from './seeded-random';
