@@ -1,8 +1,6 @@
-import { type ComponentPropsWithoutRef, type ReactNode, useId } from 'react';
+import type { ComponentPropsWithoutRef, ReactNode } from 'react';
 import type { FieldError as FormFieldError, UseFormRegisterReturn } from 'react-hook-form';
-import { cn } from '@/lib/cn';
-import { describedBy, fieldClasses } from './field-classes';
-import { FieldError, FieldHint } from './field-message';
+import { FieldFrame } from './field-frame';
 
 type TextFieldProps = Omit<ComponentPropsWithoutRef<'input'>, 'id' | keyof UseFormRegisterReturn> & {
   label: string;
@@ -22,26 +20,13 @@ export const TextField = ({
   after,
   className,
   ...inputProps
-}: TextFieldProps) => {
-  const id = useId();
-  const hintId = hint ? `${id}-hint` : undefined;
-  const errorId = error?.message ? `${id}-error` : undefined;
-  return (
-    <div className={cn('flex flex-col gap-1', className)}>
-      <label htmlFor={id} className="font-bold">
-        {label}
-      </label>
-      {hint && <FieldHint id={`${id}-hint`}>{hint}</FieldHint>}
-      {errorId && <FieldError id={errorId}>{error?.message}</FieldError>}
-      <input
-        id={id}
-        className={fieldClasses(Boolean(errorId))}
-        aria-invalid={errorId ? true : undefined}
-        aria-describedby={describedBy([hintId, errorId])}
-        {...inputProps}
-        {...registration}
-      />
-      {after}
-    </div>
-  );
-};
+}: TextFieldProps) => (
+  <FieldFrame label={label} error={error} hint={hint} className={className}>
+    {(control) => (
+      <>
+        <input {...control} {...inputProps} {...registration} />
+        {after}
+      </>
+    )}
+  </FieldFrame>
+);

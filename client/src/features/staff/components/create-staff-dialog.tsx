@@ -1,7 +1,7 @@
 import { createUserSchema, PASSWORD_MIN_LENGTH, roleLabels, roles, type User } from '@keyloom/shared';
-import { Button } from '@/components/ui/button';
 import { Modal } from '@/components/ui/dialog';
 import { Form, FormServerError } from '@/components/ui/form';
+import { FormActions } from '@/components/ui/form-actions';
 import { SelectField } from '@/components/ui/select-field';
 import { TextField } from '@/components/ui/text-field';
 import { useCreateUser } from '../api/create-user';
@@ -68,12 +68,12 @@ export const CreateStaffDialog = ({ open, onClose, onCreated }: CreateStaffDialo
                 registration={register('password')}
                 error={formState.errors.password}
               />
-              <div className="flex flex-wrap gap-3 pt-2">
-                <Button type="submit" variant="primary" disabled={formState.isSubmitting}>
-                  {formState.isSubmitting ? 'Creating…' : 'Create account'}
-                </Button>
-                <Button onClick={onClose}>Cancel</Button>
-              </div>
+              <FormActions
+                submitLabel="Create account"
+                busyLabel="Creating…"
+                submitting={formState.isSubmitting}
+                onCancel={onClose}
+              />
             </div>
           </>
         )}

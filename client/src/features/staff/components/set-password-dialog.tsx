@@ -1,7 +1,7 @@
 import { PASSWORD_MIN_LENGTH, setPasswordSchema, type User } from '@keyloom/shared';
-import { Button } from '@/components/ui/button';
 import { Modal } from '@/components/ui/dialog';
 import { Form, FormServerError } from '@/components/ui/form';
+import { FormActions } from '@/components/ui/form-actions';
 import { TextField } from '@/components/ui/text-field';
 import { useUpdateUser } from '../api/update-user';
 
@@ -46,12 +46,12 @@ export const SetPasswordDialog = ({ user, onClose, onDone }: SetPasswordDialogPr
                 registration={register('password')}
                 error={formState.errors.password}
               />
-              <div className="flex flex-wrap gap-3 pt-2">
-                <Button type="submit" variant="primary" disabled={formState.isSubmitting}>
-                  {formState.isSubmitting ? 'Saving…' : 'Set password'}
-                </Button>
-                <Button onClick={onClose}>Cancel</Button>
-              </div>
+              <FormActions
+                submitLabel="Set password"
+                busyLabel="Saving…"
+                submitting={formState.isSubmitting}
+                onCancel={onClose}
+              />
             </div>
           </>
         )}
