@@ -4,3 +4,8 @@ export * from './schemas/roles';
 export * from './schemas/auth.schema';
 export * from './schemas/users.schema';
 export * from './schemas/email';
+export * from './schemas/common';
+export * from './schemas/clients.schema';
+export * from './schemas/consents.schema';
+export * from './schemas/samples.schema';
+export * from './schemas/audit.schema';

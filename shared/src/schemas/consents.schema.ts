@@ -1,0 +1,122 @@
+import { z } from 'zod';
+import { isoDateField, optionalText } from './common';
+import { emailField } from './email';
+
+// What a consent covers: training a model on the client's writing, and sending
+// progress summaries to the family contacts who agreed to receive them.
+export const consentScopes = ['training', 'summaries'] as const;
+export const consentScopeSchema = z.enum(consentScopes);
+export type ConsentScope = z.infer<typeof consentScopeSchema>;
+
+export const consentScopeLabels: Record<ConsentScope, string> = {
+  training: 'Training a personal model on the client’s writing',
+  summaries: 'Sending progress summaries to named family contacts',
+};
+
+export const consentGivers = ['client', 'representative'] as const;
+
+// POST /api/clients/:id/consents. `givenBy` is "client" or "representative";
+// a representative needs a name and their relationship to the client.
+export const createConsentSchema = z
+  .object({
+    givenBy: z.enum(consentGivers, { error: 'Say who gave consent.' }),
+    representativeName: optionalText(120, 'Keep the name under 120 characters.'),
+    representativeRelationship: optionalText(80, 'Keep the relationship under 80 characters.'),
+    scopes: z
+      .array(consentScopeSchema)
+      .min(1, { error: 'Choose at least one thing the consent covers.' })
+      .transform((scopes) => [...new Set(scopes)]),
+    givenOn: isoDateField,
+    expiresOn: isoDateField.nullable().optional(),
+    notes: optionalText(2000, 'Keep the notes under 2000 characters.'),
+  })
+  .superRefine((value, ctx) => {
+    if (value.givenBy === 'representative') {
+      if (!value.representativeName) {
+        ctx.addIssue({ code: 'custom', path: ['representativeName'], message: 'Enter the representative’s name.' });
+      }
+      if (!value.representativeRelationship) {
+        ctx.addIssue({
+          code: 'custom',
+          path: ['representativeRelationship'],
+          message: 'Enter how the representative is related to the client.',
+        });
+      }
+    }
+    if (value.expiresOn && value.expiresOn <= value.givenOn) {
+      ctx.addIssue({ code: 'custom', path: ['expiresOn'], message: 'The expiry must be after the date consent was given.' });
+    }
+  });
+export type CreateConsentInput = z.infer<typeof createConsentSchema>;
+
+// POST /api/clients/:id/consents/:consentId/withdraw — cannot be undone.
+export const withdrawConsentSchema = z.object({
+  reason: z
+    .string({ error: 'Say why consent was withdrawn (for the record).' })
+    .trim()
+    .min(1, { error: 'Say why consent was withdrawn (for the record).' })
+    .max(2000),
+});
+export type WithdrawConsentInput = z.infer<typeof withdrawConsentSchema>;
+
+export const consentRecordStatuses = ['active', 'expired', 'withdrawn'] as const;
+
+// What a withdrawal removed, kept with the consent record as the trace that it happened.
+export const withdrawalReportSchema = z.object({
+  samplesDeleted: z.number().int(),
+  // Later issues add their own counts (profile versions, trials…) under their own keys.
+  derived: z.record(z.string(), z.number().int()),
+});
+export type WithdrawalReport = z.infer<typeof withdrawalReportSchema>;
+
+export const consentSchema = z.object({
+  id: z.uuid(),
+  clientId: z.uuid(),
+  givenBy: z.enum(consentGivers),
+  representativeName: z.string().nullable(),
+  representativeRelationship: z.string().nullable(),
+  scopes: z.array(consentScopeSchema),
+  givenOn: z.string(),
+  expiresOn: z.string().nullable(),
+  notes: z.string().nullable(),
+  status: z.enum(consentRecordStatuses),
+  recordedBy: z.string(),
+  createdAt: z.string(),
+  withdrawnAt: z.string().nullable(),
+  withdrawnBy: z.string().nullable(),
+  withdrawalReason: z.string().nullable(),
+  withdrawal: withdrawalReportSchema.nullable(),
+  // The scanned consent form, if one was uploaded (PDF, PNG or JPEG).
+  document: z.object({ fileName: z.string(), mimeType: z.string(), byteSize: z.number().int() }).nullable(),
+});
+export type Consent = z.infer<typeof consentSchema>;
+
+// Family contacts (no account): summaries go only to those who consented.
+export const createContactSchema = z.object({
+  name: z.string({ error: 'Enter a name.' }).trim().min(1, { error: 'Enter a name.' }).max(120),
+  relationship: z
+    .string({ error: 'Enter the relationship.' })
+    .trim()
+    .min(1, { error: 'Enter the relationship.' })
+    .max(80),
+  email: emailField,
+  consentToSummaries: z.boolean(),
+});
+export type CreateContactInput = z.infer<typeof createContactSchema>;
+export const updateContactSchema = createContactSchema
+  .partial()
+  .refine((value) => Object.keys(value).length > 0, { error: 'Nothing to change.' });
+export type UpdateContactInput = z.infer<typeof updateContactSchema>;
+
+export const contactSchema = z.object({
+  id: z.uuid(),
+  clientId: z.uuid(),
+  name: z.string(),
+  relationship: z.string(),
+  email: z.string(),
+  consentToSummaries: z.boolean(),
+  // Set when the contact used the stop link of a summary e-mail.
+  unsubscribedAt: z.string().nullable(),
+  createdAt: z.string(),
+});
+export type Contact = z.infer<typeof contactSchema>;
