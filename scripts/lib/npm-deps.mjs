@@ -43,10 +43,13 @@ export async function ensureNpmTree(dir, label) {
   const logFile = runPath(dir === repoRoot ? 'npm-ci.log' : `npm-ci-${dir.split('/').pop()}.log`);
   const args = ['ci', '--no-audit', '--no-fund'];
   note(`${label}: npm ci in ${shown(dir) || '.'} (a minute on a fresh machine)…`);
-  let result = await run('npm', args, { cwd: dir, logFile });
+  // Under `npm start`/`npm test` the parent npm exports its settings as npm_config_* variables,
+  // which would override the folder's own .npmrc (tools/mail relaxes engine-strict): drop them.
+  const env = Object.fromEntries(Object.entries(process.env).filter(([key]) => !/^npm_/i.test(key)));
+  let result = await run('npm', args, { cwd: dir, logFile, env });
   if (result.code !== 0) {
     note(`${label}: npm ci failed (exit ${result.code}), retrying once…`);
-    result = await run('npm', args, { cwd: dir, logFile });
+    result = await run('npm', args, { cwd: dir, logFile, env });
   }
   if (result.code !== 0) throw new StepError(`npm ci in ${shown(dir) || '.'} failed twice`, logFile);
   writeFileSync(join(dir, 'node_modules', stampName), `${hash}\n`);
