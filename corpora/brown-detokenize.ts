@@ -18,7 +18,10 @@ export function splitTaggedToken(token: string): { word: string; tag: string } {
 export function taggedSentences(raw: string): string[][] {
   const sentences: string[][] = [];
   for (const line of raw.split('\n')) {
-    const tokens = line.trim().split(/\s+/).filter((t) => t.length > 0);
+    const tokens = line
+      .trim()
+      .split(/\s+/)
+      .filter((t) => t.length > 0);
     if (tokens.length === 0) continue;
     sentences.push(tokens.map((t) => splitTaggedToken(t).word).filter((w) => w.length > 0));
   }

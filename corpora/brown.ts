@@ -36,7 +36,9 @@ export function brownPackageDir(): string {
 }
 
 function brownPackageVersion(): string {
-  const pkg = JSON.parse(readFileSync(join(brownPackageDir(), 'package.json'), 'utf8')) as { version: string };
+  const pkg = JSON.parse(readFileSync(join(brownPackageDir(), 'package.json'), 'utf8')) as {
+    version: string;
+  };
   return pkg.version;
 }
 
@@ -90,7 +92,11 @@ export function loadBrown(): BrownCorpus {
   if (!corpus) {
     corpus = buildBrown();
     mkdirSync(cacheDir, { recursive: true });
-    const cache: BrownCache = { format: FORMAT_VERSION, packageVersion: version, documents: corpus.documents };
+    const cache: BrownCache = {
+      format: FORMAT_VERSION,
+      packageVersion: version,
+      documents: corpus.documents,
+    };
     // Write then rename, so a concurrent reader never sees half a file.
     const tmp = `${cacheFile}.${process.pid}.tmp`;
     writeFileSync(tmp, JSON.stringify(cache));

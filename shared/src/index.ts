@@ -9,3 +9,7 @@ export * from './schemas/clients.schema';
 export * from './schemas/consents.schema';
 export * from './schemas/samples.schema';
 export * from './schemas/audit.schema';
+export * from './engine/index';
+export * from './engine/search/index';
+export * from './engine/evaluation/index';
+export * from './samples/index';

@@ -7,7 +7,7 @@ import { readFile, writeFile } from 'node:fs/promises';
 import { UsageError } from './cli-errors';
 import { compressBytes, decompressBytes } from '../engine/container';
 import { FormatError } from '../engine/byte-io';
-import { EscapeMethod } from '../engine/ppm-settings';
+import { type EscapeMethod } from '../engine/ppm-settings';
 
 type Parsed = { options: Map<string, string>; positional: string[] };
 

@@ -1,6 +1,6 @@
 // A personal model and a base model mixed into one distribution:
 // P(x) = (1 - λ) · P_personal(x) + λ · P_base(x), λ = weight of the base.
-import { Distribution, NextSymbolModel } from './model-types';
+import { Distribution, type NextSymbolModel } from './model-types';
 import { markArray, nextToken, slotArray } from './symbol-marks';
 
 export class BlendedModel implements NextSymbolModel {

@@ -21,7 +21,7 @@
 import { crc32 } from './crc32';
 import { ByteReader, ByteWriter, FormatError } from './byte-io';
 import { PpmModel } from './ppm-model';
-import { EscapeMethod, PpmSettings } from './ppm-settings';
+import { type EscapeMethod, type PpmSettings } from './ppm-settings';
 import { decodeText, encodeText } from './text-coding';
 import { decodeUtf8, encodeUtf8 } from './utf8-codec';
 

@@ -22,7 +22,7 @@ import { PpmModel, CONTEXT_TOTAL_LIMIT } from './ppm-model';
 import { ContextTrie, MAX_COUNT, NONE } from './context-trie';
 import { crc32 } from './crc32';
 import { ByteReader, ByteWriter, FormatError } from './byte-io';
-import { EscapeMethod } from './ppm-settings';
+import { type EscapeMethod } from './ppm-settings';
 
 const MAGIC = [0x8b, 0x4b, 0x4c, 0x4d];
 const VERSION = 1;

@@ -7,7 +7,7 @@ import { describe, expect, it } from 'vitest';
 import { PpmModel } from './ppm-model';
 import { Distribution } from './model-types';
 import { codeLengthBits } from './text-coding';
-import { EscapeMethod } from './ppm-settings';
+import { type EscapeMethod } from './ppm-settings';
 import { codePointsOf } from './text-preparation';
 import { seededRandom } from './seeded-random';
 

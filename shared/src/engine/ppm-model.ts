@@ -22,11 +22,16 @@
 // would exceed CONTEXT_TOTAL_LIMIT or one count reaches MAX_COUNT (1023, the
 // most a packed entry holds). Totals therefore stay far below the coder's
 // limit of 2^24, and the halving slightly favours recent text.
-import { Distribution, NextSymbolModel } from './model-types';
+import { type Distribution, type NextSymbolModel } from './model-types';
 import { ContextTrie } from './context-trie';
 import { CumulativeTable, UniformTable } from './frequency-table';
-import { RangeDecoder, RangeEncoder } from './range-coder';
-import { EscapeMethod, PpmSettings, ResolvedPpmSettings, resolvePpmSettings } from './ppm-settings';
+import { type RangeDecoder, type RangeEncoder } from './range-coder';
+import {
+  type EscapeMethod,
+  type PpmSettings,
+  type ResolvedPpmSettings,
+  resolvePpmSettings,
+} from './ppm-settings';
 import { markArray, nextToken } from './symbol-marks';
 
 // Local copies of constants: imported bindings compile to getter calls under

@@ -12,7 +12,7 @@
 // range = r * (high(i) - low(i)). With total <= 2^24 and range >= 2^40 the
 // truncation loses at most -log2(1 - 2^-16) ~ 2.2e-5 bits per step
 // (REFERENCES.md §3 gives the same argument for a 32-bit coder).
-import { FrequencyTable, MAX_TABLE_TOTAL } from './frequency-table';
+import { type FrequencyTable, MAX_TABLE_TOTAL } from './frequency-table';
 
 const WINDOW = 2 ** 48;
 const TOP_SHIFT = 2 ** 40; // weight of the top byte of the window

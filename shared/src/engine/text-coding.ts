@@ -6,7 +6,7 @@
 // These functions call model.learn after each symbol: an adaptive model
 // changes while it codes. Encode and decode must each start from the same
 // model state, so pass a clone() when the model is needed again.
-import { Distribution, NextSymbolModel } from './model-types';
+import { Distribution, type NextSymbolModel } from './model-types';
 import { PpmModel } from './ppm-model';
 import { CumulativeTable, UniformTable } from './frequency-table';
 import { RangeDecoder, RangeEncoder } from './range-coder';

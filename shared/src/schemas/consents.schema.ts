@@ -33,7 +33,11 @@ export const createConsentSchema = z
   .superRefine((value, ctx) => {
     if (value.givenBy === 'representative') {
       if (!value.representativeName) {
-        ctx.addIssue({ code: 'custom', path: ['representativeName'], message: 'Enter the representative’s name.' });
+        ctx.addIssue({
+          code: 'custom',
+          path: ['representativeName'],
+          message: 'Enter the representative’s name.',
+        });
       }
       if (!value.representativeRelationship) {
         ctx.addIssue({
@@ -44,7 +48,11 @@ export const createConsentSchema = z
       }
     }
     if (value.expiresOn && value.expiresOn <= value.givenOn) {
-      ctx.addIssue({ code: 'custom', path: ['expiresOn'], message: 'The expiry must be after the date consent was given.' });
+      ctx.addIssue({
+        code: 'custom',
+        path: ['expiresOn'],
+        message: 'The expiry must be after the date consent was given.',
+      });
     }
   });
 export type CreateConsentInput = z.infer<typeof createConsentSchema>;

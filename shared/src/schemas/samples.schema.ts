@@ -15,7 +15,11 @@ export const sourceKindLabels: Record<SourceKind, string> = {
 };
 
 // Limits (defaults; the API's env can change them): per file, per client, per upload.
-export const sampleLimits = { maxFileBytes: 20 * 1024 * 1024, maxClientBytes: 200 * 1024 * 1024, maxFiles: 50 };
+export const sampleLimits = {
+  maxFileBytes: 20 * 1024 * 1024,
+  maxClientBytes: 200 * 1024 * 1024,
+  maxFiles: 50,
+};
 
 const sampleMetaFields = {
   sourceKind: sourceKindSchema,
@@ -39,8 +43,14 @@ export type UploadSamplesFields = z.infer<typeof uploadSamplesFieldsSchema>;
 export const pasteSampleSchema = z
   .object({
     ...sampleMetaFields,
-    title: z.string({ error: 'Give the sample a title.' }).trim().min(1, { error: 'Give the sample a title.' }).max(120),
-    text: z.string({ error: 'Paste some text.' }).refine((text) => text.trim().length > 0, { error: 'Paste some text.' }),
+    title: z
+      .string({ error: 'Give the sample a title.' })
+      .trim()
+      .min(1, { error: 'Give the sample a title.' })
+      .max(120),
+    text: z
+      .string({ error: 'Paste some text.' })
+      .refine((text) => text.trim().length > 0, { error: 'Paste some text.' }),
   })
   .refine(periodInOrder, periodIssue);
 export type PasteSampleInput = z.infer<typeof pasteSampleSchema>;
@@ -105,7 +115,11 @@ export type FlagDecisionInput = z.infer<typeof flagDecisionSchema>;
 
 // POST /api/samples/:id/exclude.
 export const excludeSampleSchema = z.object({
-  reason: z.string({ error: 'Say why the sample is left out.' }).trim().min(1, { error: 'Say why the sample is left out.' }).max(500),
+  reason: z
+    .string({ error: 'Say why the sample is left out.' })
+    .trim()
+    .min(1, { error: 'Say why the sample is left out.' })
+    .max(500),
 });
 export type ExcludeSampleInput = z.infer<typeof excludeSampleSchema>;
 

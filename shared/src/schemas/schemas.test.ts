@@ -17,7 +17,12 @@ describe('loginSchema', () => {
 
 describe('createUserSchema', () => {
   it('refuses a short password and an unknown role', () => {
-    const result = createUserSchema.safeParse({ email: 'a@b.example', name: 'A', role: 'owner', password: 'short' });
+    const result = createUserSchema.safeParse({
+      email: 'a@b.example',
+      name: 'A',
+      role: 'owner',
+      password: 'short',
+    });
     expect(result.success).toBe(false);
     expect(result.error?.issues.map((issue) => issue.path[0]).sort()).toEqual(['password', 'role']);
   });

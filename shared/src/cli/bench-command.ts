@@ -1,0 +1,269 @@
+// `model bench [--json]` (also `npm run bench`): speed, size, memory and
+// quality figures of the engine on fixed slices of the Brown corpus. Figures
+// are printed, never asserted (targets are listed beside them). Seeded PRNG,
+// warm-up, repetitions, min and mean ± std, and a sink so no work is
+// optimised away.
+import { spawnSync } from 'node:child_process';
+import { cpus, loadavg } from 'node:os';
+import { join } from 'node:path';
+import { joinDocuments, loadBrown } from '../../../corpora/brown';
+import { loadBaseModel } from '../../../corpora/base-model';
+import { codeLengthBits, decodeText, encodeText, PpmModel, prepareText } from '../engine/index';
+import type { NextSymbolModel } from '../engine/index';
+import { simulateKeystrokes } from '../engine/evaluation/index';
+import { seededRandom } from '../engine/seeded-random';
+import { suggest } from '../engine/search/index';
+import { UsageError } from './cli-errors';
+import { parseArgs } from './args';
+
+const SETTINGS = { order: 5, escape: 'C' as const, exclusion: true, updateExclusion: true };
+const TRAIN_CHARS = 1_000_000;
+const TEST_CHARS = 100_000;
+const REPS = 3;
+const HELD_OUT = ['cp', 'cr'];
+
+/** Throughput statistics over repetitions: characters per second. */
+type Rate = { min: number; mean: number; std: number; reps: number };
+
+let sink = 0;
+
+function timeReps(reps: number, chars: number, run: () => number): Rate {
+  const rates: number[] = [];
+  for (let r = 0; r < reps; r++) {
+    const start = performance.now();
+    sink += run();
+    rates.push(chars / ((performance.now() - start) / 1000));
+  }
+  const mean = rates.reduce((a, b) => a + b, 0) / rates.length;
+  const std = Math.sqrt(rates.reduce((a, b) => a + (b - mean) ** 2, 0) / Math.max(1, rates.length - 1));
+  return { min: Math.round(Math.min(...rates)), mean: Math.round(mean), std: Math.round(std), reps };
+}
+
+let peakSampledRss = 0;
+function sampleRss(): void {
+  peakSampledRss = Math.max(peakSampledRss, process.memoryUsage().rss);
+}
+
+const mb = (bytes: number): number => Math.round((bytes / 2 ** 20) * 10) / 10;
+
+export async function runBench(args: string[]): Promise<void> {
+  const parsed = parseArgs(args, { flags: ['json'] });
+  if (parsed.positional.length > 0)
+    throw new UsageError(`unexpected argument ${JSON.stringify(parsed.positional[0])}`);
+  const json = parsed.flags.has('json');
+  const log = (msg: string): void => {
+    if (!json) process.stderr.write(`bench: ${msg}\n`);
+  };
+  const timer = setInterval(sampleRss, 50);
+  try {
+    const report = await measure(log);
+    if (json) process.stdout.write(`${JSON.stringify(report)}\n`);
+    else process.stdout.write(`${JSON.stringify(report, null, 2)}\n`);
+  } finally {
+    clearInterval(timer);
+  }
+}
+
+async function measure(log: (msg: string) => void): Promise<Record<string, unknown>> {
+  // Other work on this 2-core machine slows every wall-clock figure; report the load.
+  const loadAtStart = loadavg()[0];
+  const { documents } = loadBrown();
+  const trainDocs = documents.filter((d) => !HELD_OUT.includes(d.section));
+  const testDocs = documents.filter((d) => HELD_OUT.includes(d.section));
+  const trainAll = prepareText(joinDocuments(trainDocs));
+  const testAll = prepareText(joinDocuments(testDocs));
+  const train = trainAll.subarray(0, TRAIN_CHARS);
+  const test = testAll.subarray(0, TEST_CHARS);
+  const rnd = seededRandom(20261201);
+
+  // Warm-up: every code path once on small slices.
+  log('warming up');
+  {
+    const m = PpmModel.train(train.subarray(0, 100_000), SETTINGS);
+    const small = test.subarray(0, 5_000);
+    sink += codeLengthBits(m.clone(), small);
+    const bytes = encodeText(m.clone(), small);
+    sink += decodeText(m.clone(), bytes, small.length).length;
+    sink += simulateKeystrokes(m.clone().freeze(), small.subarray(0, 2_000)).keystrokes[1];
+  }
+  sampleRss();
+
+  log('training orders 3, 5, 8');
+  const training: Record<string, Rate> = {};
+  for (const order of [3, 5, 8]) {
+    training[`order${order}`] = timeReps(
+      REPS,
+      train.length,
+      () => PpmModel.train(train, { ...SETTINGS, order }).contextCount,
+    );
+    sampleRss();
+  }
+
+  const model = PpmModel.train(train, SETTINGS);
+  log('ideal code length, encode, decode');
+  const ideal = timeReps(REPS, test.length, () => codeLengthBits(model.clone(), test, { adaptive: true }));
+  let coded: Uint8Array = new Uint8Array(0);
+  const encode = timeReps(REPS, test.length, () => {
+    coded = encodeText(model.clone(), test);
+    return coded.length;
+  });
+  let decoded: Uint32Array = new Uint32Array(0);
+  const decode = timeReps(REPS, test.length, () => {
+    decoded = decodeText(model.clone(), coded, test.length);
+    return decoded.length;
+  });
+  const roundTrip = decoded.length === test.length && decoded.every((c, i) => c === test[i]);
+  sampleRss();
+
+  log('quality: train on 13 categories, test on cp + cr');
+  const qualityStart = performance.now();
+  const qualityModel = PpmModel.train(trainAll, SETTINGS);
+  const qualityBits = codeLengthBits(qualityModel.clone(), testAll, { adaptive: true });
+  const qualitySeconds = (performance.now() - qualityStart) / 1000;
+  sampleRss();
+
+  // Latency is measured twice at the same 1,000 seeded positions of the
+  // held-out text: with the Brown base model (which has seen that text, so
+  // its lists are unusually sure and quick) and with a model of the same size
+  // trained without it (the realistic case; reported as p50/p95).
+  log('suggestion latency (5 slots)');
+  const positions: number[] = [];
+  for (let i = 0; i < 1200; i++) positions.push(1 + Math.floor(rnd() * (testAll.length - 1)));
+  // Right after a space the search is widest (the whole next word is open).
+  const wordStarts: number[] = [];
+  while (wordStarts.length < 1200) {
+    const end = 1 + Math.floor(rnd() * (testAll.length - 1));
+    if (testAll[end - 1] === 0x20) wordStarts.push(end);
+  }
+  const latency = (
+    m: NextSymbolModel,
+    at: readonly number[] = positions,
+  ): { p50: number; p95: number; mean: number; calls: number } => {
+    const times: number[] = [];
+    at.forEach((end, i) => {
+      const start = performance.now();
+      sink += suggest(m, testAll, end, 5).length;
+      if (i >= 200) times.push(performance.now() - start); // first 200 are warm-up
+    });
+    times.sort((x, y) => x - y);
+    const pick = (q: number): number =>
+      Math.round(times[Math.min(times.length - 1, Math.floor(q * times.length))] * 1000) / 1000;
+    return {
+      p50: pick(0.5),
+      p95: pick(0.95),
+      mean: Math.round((times.reduce((x, y) => x + y, 0) / times.length) * 1000) / 1000,
+      calls: times.length,
+    };
+  };
+  const heldOutModel = qualityModel.clone().freeze();
+  const heldOutLatency = latency(heldOutModel);
+  const wordStartLatency = latency(heldOutModel, wordStarts);
+  const base = loadBaseModel();
+  const baseLatency = latency(base);
+  sampleRss();
+
+  log('keystroke simulation, 100,000 characters, 1..10 slots');
+  const ksStart = performance.now();
+  const ksCpu = process.cpuUsage();
+  const ks = simulateKeystrokes(model.clone(), test, { maxSlots: 10, adaptive: true });
+  const ksSeconds = (performance.now() - ksStart) / 1000;
+  const ksCpuSeconds = process.cpuUsage(ksCpu).user / 1e6;
+  sampleRss();
+
+  log('order-6 model of the whole corpus in a child process');
+  const child = order6Child();
+
+  const bpc = qualityBits / testAll.length;
+  return {
+    machine: {
+      node: process.version,
+      cpus: cpus().length,
+      cpu: cpus()[0]?.model ?? 'unknown',
+      loadAverage1m: {
+        atStart: Math.round(loadAtStart * 100) / 100,
+        atEnd: Math.round(loadavg()[0] * 100) / 100,
+      },
+    },
+    slice: {
+      trainChars: train.length,
+      testChars: test.length,
+      settings: SETTINGS,
+      heldOutSections: HELD_OUT,
+      reps: REPS,
+    },
+    trainingCharsPerSecond: training,
+    idealCodeLengthCharsPerSecond: ideal,
+    encodeCharsPerSecond: encode,
+    decodeCharsPerSecond: decode,
+    coded: {
+      bytes: coded.length,
+      bpc: Math.round(((coded.length * 8) / test.length) * 1e4) / 1e4,
+      roundTrip,
+    },
+    suggestionLatencyMs: {
+      ...heldOutLatency,
+      slots: 5,
+      model: 'order 5 trained on the 13 other categories (5.5 M chars), contexts from held-out cp + cr',
+      atWordStart: { ...wordStartLatency, model: 'same, only positions right after a space' },
+      baseModel: { ...baseLatency, model: 'Brown base model (has seen these contexts)' },
+    },
+    keystrokeSimulation: {
+      chars: test.length,
+      seconds: Math.round(ksSeconds * 100) / 100,
+      cpuSeconds: Math.round(ksCpuSeconds * 100) / 100,
+      charsPerSecond: Math.round(test.length / ksSeconds),
+      savings: Object.fromEntries(
+        ks.savings.slice(1).map((s, i) => [String(i + 1), Math.round(s * 1e4) / 1e4]),
+      ),
+    },
+    modelSize: {
+      contexts: model.contextCount,
+      bytes: model.byteSize,
+      bytesPerContext: Math.round((model.byteSize / model.contextCount) * 10) / 10,
+    },
+    memory: {
+      peakRssMb: mb(process.resourceUsage().maxRSS * 1024),
+      peakSampledRssMb: mb(peakSampledRss),
+      order6WholeBrown: child,
+    },
+    quality: {
+      bpc: Math.round(bpc * 1e4) / 1e4,
+      trainChars: trainAll.length,
+      testChars: testAll.length,
+      order: 5,
+      escape: 'C',
+      exclusion: true,
+      adaptive: true,
+      seconds: Math.round(qualitySeconds * 10) / 10,
+    },
+    targets: {
+      trainingOrder5AtLeast2MCharsPerSecond: training.order5.mean >= 2_000_000,
+      encodeAtLeast1MCharsPerSecond: encode.mean >= 1_000_000,
+      decodeAtLeast1MCharsPerSecond: decode.mean >= 1_000_000,
+      order6WholeBrownAtMost200Mb: typeof child.peakRssMb === 'number' && child.peakRssMb <= 200,
+      suggestionP95AtMost5Ms: heldOutLatency.p95 <= 5 && baseLatency.p95 <= 5 && wordStartLatency.p95 <= 5,
+      keystrokeSimulation100kAtMost30s: ksSeconds <= 30,
+      qualityAtMost2_10Bpc: bpc <= 2.1,
+    },
+    sink: sink % 7,
+  };
+}
+
+/** Builds an order-6 model of the whole Brown text in a fresh process; reports its peak RSS. */
+function order6Child(): { peakRssMb: number | string; seconds?: number; contexts?: number } {
+  const script = join(__dirname, 'bench-order6-child.ts');
+  const run = spawnSync(process.execPath, ['--import', 'tsx', script], {
+    encoding: 'utf8',
+    cwd: join(__dirname, '..', '..', '..'),
+  });
+  try {
+    const out = JSON.parse(run.stdout.trim().split('\n').pop() ?? '') as {
+      peakRssMb: number;
+      seconds: number;
+      contexts: number;
+    };
+    return out;
+  } catch {
+    return { peakRssMb: `child failed: ${(run.stderr || run.stdout).trim().split('\n')[0] ?? run.status}` };
+  }
+}

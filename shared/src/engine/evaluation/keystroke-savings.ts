@@ -1,0 +1,157 @@
+// Keystroke savings (KS) and keystrokes per character (KSPC) of a word
+// suggestion list, simulated with the "ideal user" of BRIEF.md and
+// REFERENCES §5. Conventions, fixed here for every figure Keyloom reports:
+//
+// 1. Keystrokes without suggestions: one key per character (code point),
+//    letters, spaces, punctuation and newlines alike (KSPC = 1.00).
+// 2. Before every letter of a word, including before its first letter, the
+//    list of the W most probable words (search/suggest) is shown.
+// 3. If the whole word is in the list, the user selects it at once: one key
+//    inserts the rest of the word AND the space after it. If the character
+//    after the word is not a space (punctuation, newline, end of text), the
+//    selection's space is taken back automatically when that character is
+//    typed ("smart punctuation"), so nothing extra is charged, but nothing
+//    is saved on it either.
+// 4. A word already typed in full still counts when it is in the list:
+//    selecting it costs the same as typing its space.
+// 5. Otherwise the user types the next letter (one key) and looks again.
+// 6. Words are as defined in search/word-chars.ts (letters, marks, digits,
+//    apostrophes and hyphens inside). Everything else is typed key by key.
+// 7. The user never misses a visible word and never errs.
+// 8. Adaptive runs: the model learns each character right after it is
+//    typed (or inserted by a selection), in text order, as on a device; the
+//    list at each letter comes from the model as it stands then.
+//
+// Because the prefix typed before each list is the true prefix whatever W is,
+// the rank of the target at each prefix does not depend on W: one pass gives
+// every W = 1..maxSlots. For a word, cost(W) = min(L + s, m_W + 1), where L is
+// its length, s = 1 if a space follows, and m_W the first prefix length at
+// which its rank is ≤ W.
+import type { NextSymbolModel } from '../model-types';
+import { completionRank, type SuggestOptions } from '../search/suggest';
+import { CharClass, charClass as classOfImported } from '../search/word-chars';
+import { DistributionMemo } from './distribution-memo';
+
+// Local copies avoid CommonJS getter calls in the per-character loop.
+const charClass = classOfImported;
+const WORD: number = CharClass.Word;
+const JOINER: number = CharClass.Joiner;
+
+export type KeystrokeResult = {
+  /** Code points in the text (= keystrokes without suggestions). */
+  chars: number;
+  /** Keystrokes with a list of W slots, index W (index 0 unused). */
+  keystrokes: number[];
+  /** KS(W) = 1 − keystrokes(W) / chars, index W. */
+  savings: number[];
+  /** KSPC(W) = keystrokes(W) / chars, index W (MacKenzie 2002). */
+  kspc: number[];
+  /** Upper bound: every word selected before its first letter. */
+  oracleSavings: number;
+  /** Words in the text. */
+  words: number;
+};
+
+/** Options of the simulation. */
+export type KeystrokeOptions = SuggestOptions & {
+  /** Largest list size simulated (1..100, default 10). */
+  maxSlots?: number;
+  /** Let the model learn the text as it is typed (default false; clone it first). */
+  adaptive?: boolean;
+};
+
+/** End (exclusive) of the word starting at `i`: word characters, joiners only between them. */
+export function wordEnd(text: ArrayLike<number>, i: number): number {
+  let j = i;
+  while (j < text.length) {
+    const c = charClass(text[j]);
+    if (c === WORD) j++;
+    else if (c === JOINER && j + 1 < text.length && charClass(text[j + 1]) === WORD) j++;
+    else break;
+  }
+  return j;
+}
+
+/**
+ * Simulates the ideal user typing `text` (code points) with lists of 1..maxSlots words.
+ * @param model the predictor; it learns the text only when `adaptive` is true
+ */
+export function simulateKeystrokes(
+  predictor: NextSymbolModel,
+  text: ArrayLike<number>,
+  options: KeystrokeOptions = {},
+): KeystrokeResult {
+  // A static model gives the same list for the same context every time, so a
+  // memo of its distributions saves work across words. An adaptive model
+  // changes after every character; there the memo costs more than it saves.
+  const model: NextSymbolModel = options.adaptive ? predictor : new DistributionMemo(predictor);
+  const maxSlots = options.maxSlots ?? 10;
+  if (!Number.isInteger(maxSlots) || maxSlots < 1 || maxSlots > 100)
+    throw new RangeError(`maxSlots must be 1..100, got ${maxSlots}`);
+  const adaptive = options.adaptive ?? false;
+  const n = text.length;
+  const keys = new Array<number>(maxSlots + 1).fill(0);
+  let oracleKeys = 0;
+  let words = 0;
+  // First prefix length at which the word's rank is ≤ W, per W (reused).
+  const firstAt = new Int32Array(maxSlots + 1);
+  const learn = (at: number): void => {
+    if (adaptive) model.learn(text, at);
+  };
+
+  let i = 0;
+  while (i < n) {
+    if (charClass(text[i]) !== WORD) {
+      for (let w = 1; w <= maxSlots; w++) keys[w]++;
+      oracleKeys++;
+      learn(i);
+      i++;
+      continue;
+    }
+    const j = wordEnd(text, i);
+    const len = j - i;
+    const spaceAfter = j < n && text[j] === 0x20 ? 1 : 0;
+    words++;
+    firstAt.fill(-1);
+    let bestRank = maxSlots + 1; // smallest rank seen so far
+    for (let m = 0; m <= len; m++) {
+      if (bestRank > 1) {
+        const target = sub(text, i + m, j);
+        const r = completionRank(model, text, i + m, target, maxSlots, options);
+        if (r > 0 && r < bestRank) {
+          // Every W in [r, bestRank) first sees the word at this prefix.
+          for (let w = r; w < bestRank; w++) firstAt[w] = m;
+          bestRank = r;
+        }
+      }
+      if (m < len) learn(i + m);
+    }
+    for (let w = 1; w <= maxSlots; w++) {
+      const typed = len + spaceAfter;
+      const cost = firstAt[w] >= 0 ? Math.min(typed, firstAt[w] + 1) : typed;
+      keys[w] += cost;
+    }
+    oracleKeys += 1;
+    if (spaceAfter) {
+      learn(j);
+      i = j + 1;
+    } else {
+      i = j;
+    }
+  }
+  const savings = keys.map((k, w) => (w === 0 || n === 0 ? 0 : 1 - k / n));
+  const kspc = keys.map((k, w) => (w === 0 || n === 0 ? 0 : k / n));
+  return {
+    chars: n,
+    keystrokes: keys,
+    savings,
+    kspc,
+    oracleSavings: n === 0 ? 0 : 1 - oracleKeys / n,
+    words,
+  };
+}
+
+function sub(text: ArrayLike<number>, from: number, to: number): ArrayLike<number> {
+  if (ArrayBuffer.isView(text)) return (text as unknown as Int32Array).subarray(from, to);
+  return Array.prototype.slice.call(text, from, to) as number[];
+}

@@ -1,0 +1,106 @@
+// Expected scan steps per character, position by position over a test text:
+//
+// - Row–column scanning of a fixed layout: at each position the expected
+//   steps under the model's distribution, Σ p_i (r_i + c_i) (REFERENCES §7),
+//   averaged over positions. Mass the model leaves unnamed (`rest`) is charged
+//   the off-layout cost.
+// - Binary selection ordered by the model: a Huffman code over the model's
+//   distribution at that position (Huffman 1952; Roark et al. 2013 use the
+//   same idea for scanning); we report the codeword length of the character
+//   the text actually has next, averaged over positions. The unnamed mass is
+//   one extra leaf; reaching a character through it costs that leaf's length
+//   plus FALLBACK_QUESTIONS further questions (a binary search over a second
+//   page of ~2^FALLBACK_QUESTIONS characters).
+import { Distribution, type NextSymbolModel } from '../model-types';
+import { entropyBits, huffmanLengths } from './huffman';
+import { defaultScanLayout, layoutCost, type KeyLayout } from './scan-layout';
+
+/** Questions charged after the "other" leaf of the Huffman tree. */
+export const FALLBACK_QUESTIONS = 8;
+
+export type ScanCostResult = {
+  chars: number;
+  /** Mean over positions of Σ p_i (r_i + c_i) for the layout. */
+  rowColumn: number;
+  /** Mean row–column steps of the characters actually typed (layout only). */
+  rowColumnTrueText: number;
+  /** Mean Huffman codeword length of the character actually typed. */
+  modelOrdered: number;
+  /** Mean over positions of the model-expected Huffman length Σ q_i l_i. */
+  modelOrderedExpected: number;
+  /** Mean over positions of the entropy of the model's distribution (bits). */
+  meanEntropy: number;
+  /** Mean −log2 P(actual character) in bits (ideal code length per character). */
+  bitsPerChar: number;
+};
+
+export type ScanCostOptions = { layout?: KeyLayout; adaptive?: boolean };
+
+/**
+ * Walks `text` (code points) once, asking the model for its distribution at
+ * every position; learns each character afterwards when `adaptive`.
+ */
+export function scanCosts(
+  model: NextSymbolModel,
+  text: ArrayLike<number>,
+  options: ScanCostOptions = {},
+): ScanCostResult {
+  const cost = layoutCost(options.layout ?? defaultScanLayout);
+  const adaptive = options.adaptive ?? false;
+  const dist = new Distribution(512);
+  let probs = new Float64Array(512);
+  let lengths = new Int32Array(512);
+  const offLayout = cost.offLayoutSteps;
+  let rowColumn = 0;
+  let rowColumnTrue = 0;
+  let modelOrdered = 0;
+  let modelOrderedExpected = 0;
+  let entropy = 0;
+  let bits = 0;
+  const n = text.length;
+  for (let i = 0; i < n; i++) {
+    dist.clear();
+    model.distribution(text, i, dist);
+    const size = dist.size;
+    if (probs.length < size + 1) {
+      probs = new Float64Array(2 * (size + 1));
+      lengths = new Int32Array(2 * (size + 1));
+    }
+    const actual = text[i];
+    let stepsExpected = 0;
+    let found = -1;
+    for (let k = 0; k < size; k++) {
+      const p = dist.probs[k];
+      probs[k] = p;
+      stepsExpected += p * cost.steps(dist.symbols[k]);
+      if (dist.symbols[k] === actual) found = k;
+    }
+    const hasRest = dist.rest > 0;
+    stepsExpected += dist.rest * offLayout;
+    let leaves = size;
+    if (hasRest) probs[leaves++] = dist.rest;
+    huffmanLengths(probs, leaves, lengths);
+    let expected = 0;
+    for (let k = 0; k < leaves; k++) expected += probs[k] * lengths[k];
+    if (hasRest) expected += dist.rest * FALLBACK_QUESTIONS;
+    const pActual = found >= 0 ? dist.probs[found] : model.probability(text, i, actual);
+    const actualLength = found >= 0 ? lengths[found] : (hasRest ? lengths[size] : 0) + FALLBACK_QUESTIONS;
+    rowColumn += stepsExpected;
+    rowColumnTrue += cost.steps(actual);
+    modelOrdered += actualLength;
+    modelOrderedExpected += expected;
+    entropy += entropyBits(probs, leaves);
+    bits -= Math.log2(pActual);
+    if (adaptive) model.learn(text, i);
+  }
+  const mean = (x: number): number => (n === 0 ? 0 : x / n);
+  return {
+    chars: n,
+    rowColumn: mean(rowColumn),
+    rowColumnTrueText: mean(rowColumnTrue),
+    modelOrdered: mean(modelOrdered),
+    modelOrderedExpected: mean(modelOrderedExpected),
+    meanEntropy: mean(entropy),
+    bitsPerChar: mean(bits),
+  };
+}
