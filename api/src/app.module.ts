@@ -3,6 +3,10 @@ import { APP_FILTER, APP_GUARD, Reflector } from '@nestjs/core';
 import { ThrottlerGuard, ThrottlerModule } from '@nestjs/throttler';
 import { AuditModule } from './audit/audit.module';
 import { AuthModule } from './auth/auth.module';
+import { ClientsModule } from './clients/clients.module';
+import { ConsentsModule } from './consents/consents.module';
+import { ContactsModule } from './contacts/contacts.module';
+import { SamplesModule } from './samples/samples.module';
 import { isSignInRoute, SIGN_IN_THROTTLER } from './auth/decorators/sign-in-rate-limit.decorator';
 import { CsrfGuard } from './auth/guards/csrf.guard';
 import { RolesGuard } from './auth/guards/roles.guard';
@@ -46,6 +50,10 @@ const API_REQUESTS_PER_MINUTE = 1_000;
     UsersModule,
     AuthModule,
     HealthModule,
+    ClientsModule,
+    ConsentsModule,
+    ContactsModule,
+    SamplesModule,
   ],
   providers: [
     Reflector,

@@ -5,7 +5,28 @@ import { AuditEvent, type AuditDetails } from './audit-event.entity';
 
 /** Actions recorded so far; later issues add theirs ('client.create', 'profile.approve', …). */
 export type AuditAction =
-  'auth.sign-in' | 'auth.sign-in-failed' | 'auth.sign-out' | 'user.create' | 'user.update';
+  | 'auth.sign-in'
+  | 'auth.sign-in-failed'
+  | 'auth.sign-out'
+  | 'user.create'
+  | 'user.update'
+  // Issue 4: caseload, consent, contacts, language samples (clientId set on each).
+  | 'client.create'
+  | 'client.update'
+  | 'assignment.create'
+  | 'assignment.delete'
+  | 'consent.create'
+  | 'consent.withdraw'
+  | 'consent.document-upload'
+  | 'contact.create'
+  | 'contact.update'
+  | 'sample.upload'
+  | 'sample.paste'
+  | 'sample.duplicate-refused'
+  | 'sample.flag-redact'
+  | 'sample.flag-keep'
+  | 'sample.exclude'
+  | 'sample.delete';
 
 /** Who did it: a signed-in user, or only a typed e-mail (failed sign-in); ip of the request. */
 export type AuditActor = { id: string | null; email: string | null; ip?: string | null };

@@ -58,6 +58,15 @@ export class AppConfig {
   get mailFrom(): string {
     return this.get('MAIL_FROM');
   }
+  /** Language-sample upload limits in bytes and files (SAMPLE_MAX_FILE_MB, SAMPLE_MAX_CLIENT_MB, SAMPLE_MAX_FILES). */
+  get sampleLimits(): { maxFileBytes: number; maxClientBytes: number; maxFiles: number } {
+    const mb = 1024 * 1024;
+    return {
+      maxFileBytes: this.get('SAMPLE_MAX_FILE_MB') * mb,
+      maxClientBytes: this.get('SAMPLE_MAX_CLIENT_MB') * mb,
+      maxFiles: this.get('SAMPLE_MAX_FILES'),
+    };
+  }
   get appUrl(): string {
     return this.get('APP_URL');
   }

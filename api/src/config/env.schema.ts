@@ -56,6 +56,10 @@ export const envSchema = z
     APP_URL: url('http://127.0.0.1:3000', /^https?$/, 'Expected an http:// or https:// URL.'),
     CLIENT_DIST: z.string().trim().min(1).default('client/dist'),
     DEMO_PASSWORD: z.string().min(12, { error: 'Use at least 12 characters.' }).default('keyloom-demo'),
+    // Language-sample upload limits (issue 4): MB per file, MB stored per client, files per upload.
+    SAMPLE_MAX_FILE_MB: wholeNumber(1, 1_000, 20),
+    SAMPLE_MAX_CLIENT_MB: wholeNumber(1, 100_000, 200),
+    SAMPLE_MAX_FILES: wholeNumber(1, 1_000, 50),
   })
   .transform((env) => ({ ...env, SESSION_SECRET: env.SESSION_SECRET ?? DEV_SESSION_SECRET }));
 

@@ -1,13 +1,35 @@
 import type { DataSourceOptions } from 'typeorm';
 import { AuditEvent } from '../audit/audit-event.entity';
+import { ClientAssignment } from '../clients/client-assignment.entity';
+import { Client } from '../clients/client.entity';
+import { Consent } from '../consents/consent.entity';
+import { FamilyContact } from '../contacts/family-contact.entity';
 import { CreateUsersAndSessions1764633600000 } from '../migrations/1764633600000-create-users-and-sessions';
 import { CreateAuditEvents1764633600001 } from '../migrations/1764633600001-create-audit-events';
+import { CreateClientsAndConsents1764720000000 } from '../migrations/1764720000000-create-clients-and-consents';
+import { CreateLanguageSamples1764720500000 } from '../migrations/1764720500000-create-language-samples';
+import { SampleFlag } from '../samples/sample-flag.entity';
+import { Sample } from '../samples/sample.entity';
 import { User } from '../users/user.entity';
 
 // Listed as classes (not globs) so the same list works under ts-jest, in dist and for the typeorm CLI.
 // Later issues append their entities and migrations here.
-export const entities = [User, AuditEvent];
-export const migrations = [CreateUsersAndSessions1764633600000, CreateAuditEvents1764633600001];
+export const entities = [
+  User,
+  AuditEvent,
+  Client,
+  ClientAssignment,
+  Consent,
+  FamilyContact,
+  Sample,
+  SampleFlag,
+];
+export const migrations = [
+  CreateUsersAndSessions1764633600000,
+  CreateAuditEvents1764633600001,
+  CreateClientsAndConsents1764720000000,
+  CreateLanguageSamples1764720500000,
+];
 
 /** TypeORM options for the app, the CLI, migrate.js, seed.js and the HTTP tests. Never synchronize. */
 export function dataSourceOptions(databaseUrl: string): DataSourceOptions {

@@ -1,7 +1,19 @@
 // Language samples: decoding uploads, normalising, statistics, personal-data flags, redaction.
-export { SampleTextError, decodeTextBytes, binaryFormatMessage, EMPTY_FILE_MESSAGE } from './sample-text-decoder';
+export {
+  SampleTextError,
+  decodeTextBytes,
+  binaryFormatMessage,
+  EMPTY_FILE_MESSAGE,
+} from './sample-text-decoder';
 export type { DecodedText, SampleEncoding } from './sample-text-decoder';
-export { normaliseSampleText, textStatistics, wordSpans, foldWord } from './text-statistics';
+export {
+  normaliseSampleText,
+  textStatistics,
+  wordSpans,
+  forEachWord,
+  foldWord,
+  blankRedactionTokens,
+} from './text-statistics';
 export type { TextStatistics, StatisticsOptions, WordCount, WordSpan } from './text-statistics';
 export { detectPersonalData, classifyNumberRun } from './personal-data-detector';
 export type { PersonalDataMatch } from './personal-data-detector';

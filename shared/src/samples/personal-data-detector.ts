@@ -7,7 +7,8 @@
 //   never touching letters, or ",digit" / ":digit" / ".digit" — so prices, times and decimals are
 //   not runs). A run is a phone when it has a + and 8–15 digits (E.164 allows at most 15), starts
 //   with 0 and has 10–11 digits (UK national numbers), or has the US shape 3-3-4 digits (10) or
-//   1-3-3-4 (11, leading 1), or (area) 3-4. Otherwise, with ≥ 9 digits, only spaces or dashes
+//   1-3-3-4 (11, leading 1), or (area) 3-4 — so a US-shaped 3-3-4 identity number reads as a
+//   phone (it is flagged either way). Otherwise, with ≥ 9 digits, only spaces or dashes
 //   between groups and not just a list of years, it is long_digits (card or identity numbers).
 // - street_address: a house number (1–5 digits, optional letter) then 1–4 capitalised words and a
 //   street-type word (Street, St, Road, Rd, Avenue, Lane, Close, Way, …).
@@ -16,7 +17,7 @@
 //   after "ZIP"/"zip code", or within 60 characters after a street address on the same line.
 // - date_of_birth: a date (12/03/1992, 1992-03-12, 12 March 1992, March 12, 1992, 12th of March;
 //   numeric dates need a year) with "born", "DOB", "birthday", "date of birth" or "birth date" in
-//   the 40 characters before it on the same line, or "birthday" in the 20 after it.
+//   the 40 characters before it on the same line, or "birthday" in the 30 after it.
 // Overlaps are settled by priority (email, url, date_of_birth, phone, long_digits, street_address,
 // postcode): a lower-priority match that overlaps an accepted one is dropped. Sorted by start.
 import type { PersonalDataKind } from '../schemas/samples.schema';
@@ -24,7 +25,9 @@ import type { PersonalDataKind } from '../schemas/samples.schema';
 /** One likely piece of personal data: code-unit offsets [start, end) and the matched text. */
 export type PersonalDataMatch = { kind: PersonalDataKind; start: number; end: number; text: string };
 
-const EMAIL = /[A-Za-z0-9._%+-]+@[A-Za-z0-9-]+(?:\.[A-Za-z0-9-]+)*\.[A-Za-z]{2,}/g;
+// The lookbehind lets a match start only where a run of local-part characters starts: without it
+// a long run without "@" is rescanned from every position (quadratic time).
+const EMAIL = /(?<![A-Za-z0-9._%+-])[A-Za-z0-9._%+-]+@[A-Za-z0-9-]+(?:\.[A-Za-z0-9-]+)*\.[A-Za-z]{2,}/g;
 const URL = /\b(?:https?:\/\/|www\.)[^\s<>"]+/gi;
 const NUMBER_RUN =
   /(?<![\p{L}\p{N}_@/.,:+-])(\+\d{1,3}[ .-]?(?:\(0\)[ .-]?)?|\(\d{2,5}\)[ .-]?)?\d+(?:[ .-]\d+)*(?![\p{L}\p{N}_@]|[.,:-]\d)/gu;
@@ -90,7 +93,12 @@ export function classifyNumberRun(run: string): 'phone' | 'long_digits' | null {
   const shape = groups.join('-');
   if (run.startsWith('(') && (shape === '3-3-4' || shape === '3-7')) return 'phone';
   if (!/[.]/.test(run) || shape === '3-3-4' || shape === '1-3-3-4') {
-    if (digits.startsWith('0') && !digits.startsWith('00') && (digits.length === 10 || digits.length === 11) && groups.length <= 4) {
+    if (
+      digits.startsWith('0') &&
+      !digits.startsWith('00') &&
+      (digits.length === 10 || digits.length === 11) &&
+      groups.length <= 4
+    ) {
       return 'phone';
     }
     if (digits.startsWith('00') && digits.length >= 10 && digits.length <= 17) return 'phone';
@@ -98,6 +106,8 @@ export function classifyNumberRun(run: string): 'phone' | 'long_digits' | null {
     if (shape === '1-3-3-4' && digits.startsWith('1')) return 'phone';
   }
   if (digits.length < 9 || /[.()+]/.test(run)) return null;
+  // 12345-6789 is a ZIP+4 code: left to the postcode rule, which wants an address around it.
+  if (shape === '5-4') return null;
   // "1998 2004 2019": a list of years, not one number.
   const parts = run.split(/[ -]+/);
   if (parts.length > 1 && parts.every((p) => /^(?:19|20)\d\d$/.test(p))) return null;
@@ -128,14 +138,19 @@ function candidates(text: string): PersonalDataMatch[] {
   for (const m of matchesOf(ZIP, text)) {
     const lineStart = lineStartBefore(text, m.index);
     const before = text.slice(Math.max(lineStart, m.index - 60), m.index);
-    const afterAddress = addresses.some((a) => a.end <= m.index && a.end >= Math.max(lineStart, m.index - 60));
+    const afterAddress = addresses.some(
+      (a) => a.end <= m.index && a.end >= Math.max(lineStart, m.index - 60),
+    );
     if (ZIP_LEAD.test(before) || afterAddress) add('postcode', m.index, m[0]);
   }
   for (const m of matchesOf(DATE, text)) {
     const lineStart = lineStartBefore(text, m.index);
     const before = text.slice(Math.max(lineStart, m.index - 40), m.index);
     const lineEnd = text.indexOf('\n', m.index);
-    const after = text.slice(m.index + m[0].length, Math.min(lineEnd < 0 ? text.length : lineEnd, m.index + m[0].length + 20));
+    const after = text.slice(
+      m.index + m[0].length,
+      Math.min(lineEnd < 0 ? text.length : lineEnd, m.index + m[0].length + 30),
+    );
     if (BIRTH_BEFORE.test(before) || BIRTH_AFTER.test(after)) add('date_of_birth', m.index, m[0]);
   }
   return found;

@@ -17,10 +17,15 @@ export type RedactionResult<F extends RedactableFlag> = {
  * after its end move by the change in length. Flags never overlap (the detector guarantees it).
  * @throws Error when the flag is missing or its span lies outside the text.
  */
-export function applyRedaction<F extends RedactableFlag>(text: string, flags: F[], flagId: string): RedactionResult<F> {
+export function applyRedaction<F extends RedactableFlag>(
+  text: string,
+  flags: F[],
+  flagId: string,
+): RedactionResult<F> {
   const flag = flags.find((f) => f.id === flagId);
   if (!flag) throw new Error(`No flag ${flagId} on this text.`);
-  if (flag.start < 0 || flag.end > text.length || flag.start >= flag.end) throw new Error('The flag lies outside the text.');
+  if (flag.start < 0 || flag.end > text.length || flag.start >= flag.end)
+    throw new Error('The flag lies outside the text.');
   const token = redactionToken(flag.kind);
   const shift = token.length - (flag.end - flag.start);
   const redacted = { ...flag, end: flag.start + token.length };

@@ -1,7 +1,7 @@
 // Decoder checks against bytes made by Node's own encoders (Buffer, TextEncoder: general-purpose
 // references for UTF-8 and UTF-16) and real file signatures (node:zlib for gzip).
 import { gzipSync } from 'node:zlib';
-import { describe, expect, it } from 'vitest';
+import { afterEach, describe, expect, it, vi } from 'vitest';
 import { decodeTextBytes, SampleTextError } from './sample-text-decoder';
 
 const sample = 'Pepper barked at the gulls. Café, naïve, 👋 — and “quotes”.\nSecond line.';
@@ -50,7 +50,9 @@ describe('decodeTextBytes', () => {
     expect(refusal(bytes(pdf))).toBe(
       'This is a PDF document, not plain text: export the text first (e.g. save as .txt).',
     );
-    const png = Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a, 0, 0, 0, 13, 0x49, 0x48, 0x44, 0x52]);
+    const png = Buffer.from([
+      0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a, 0, 0, 0, 13, 0x49, 0x48, 0x44, 0x52,
+    ]);
     expect(refusal(bytes(png))).toMatch(/PNG image/);
     expect(refusal(bytes(Buffer.from([0xff, 0xd8, 0xff, 0xe0, 0, 16, 0x4a, 0x46])))).toMatch(/JPEG image/);
     expect(refusal(bytes(Buffer.from('GIF89a\x01\x00\x01\x00', 'latin1')))).toMatch(/GIF image/);
@@ -71,7 +73,7 @@ describe('decodeTextBytes', () => {
   });
 
   it('names the first invalid byte of a bad UTF-8 file', () => {
-    // "Hi " then a lone Latin-1 "é" (0xE9) followed by ASCII: invalid continuation at byte 4.
+    // Latin-1 "é" (0xE9, byte 6) reads as a 3-byte lead; the space after it (byte 7) is the bad byte.
     const latin1 = Buffer.from('Hi café time', 'latin1');
     expect(latin1.indexOf(0xe9)).toBe(6);
     expect(refusal(bytes(latin1))).toBe(
@@ -97,5 +99,21 @@ describe('decodeTextBytes', () => {
     const decoded = decodeTextBytes(new TextEncoder().encode(big));
     expect(decoded.text.length).toBe(big.length);
     expect(decoded.text === Buffer.from(big, 'utf8').toString('utf8')).toBe(true);
+  });
+});
+
+describe('decodeTextBytes without a platform TextDecoder (its own loops)', () => {
+  afterEach(() => {
+    vi.unstubAllGlobals();
+  });
+
+  it('decodes UTF-8 and UTF-16 the same way Buffer does', () => {
+    vi.stubGlobal('TextDecoder', undefined);
+    const text = (sample + '\n').repeat(3000);
+    expect(decodeTextBytes(new Uint8Array(Buffer.from(text, 'utf8')))).toEqual({ text, encoding: 'utf-8' });
+    const le = Buffer.from('\ufeff' + text, 'utf16le');
+    expect(decodeTextBytes(new Uint8Array(le)).text).toBe(text);
+    expect(decodeTextBytes(new Uint8Array(swap16(le))).text).toBe(text);
+    expect(() => decodeTextBytes(new Uint8Array([0x61, 0xff, 0x62]))).toThrow(/\(byte 1\)/);
   });
 });

@@ -1,0 +1,48 @@
+import type { ConsentScope, ConsentStatus } from '@keyloom/shared';
+
+/** The parts of a consent record that decide whether it is in force. Dates are "YYYY-MM-DD". */
+export type ConsentTerms = {
+  scopes: readonly ConsentScope[];
+  givenOn: string;
+  expiresOn: string | null;
+  withdrawnAt: Date | string | null;
+};
+
+/** Today's calendar date on the server's clock, as "YYYY-MM-DD" (local time, like the clinic's forms). */
+export function todayIso(now: Date = new Date()): string {
+  const pad = (n: number) => String(n).padStart(2, '0');
+  return `${now.getFullYear()}-${pad(now.getMonth() + 1)}-${pad(now.getDate())}`;
+}
+
+/**
+ * Status of one record on `today`: withdrawn beats everything (it cannot be undone), then an expiry
+ * date before today; otherwise active. ISO dates compare correctly as strings.
+ */
+export function consentRecordStatus(terms: ConsentTerms, today: string): 'active' | 'expired' | 'withdrawn' {
+  if (terms.withdrawnAt !== null) return 'withdrawn';
+  if (terms.expiresOn !== null && terms.expiresOn < today) return 'expired';
+  return 'active';
+}
+
+/** True when the record covers `today`: not withdrawn, already given (givenOn ≤ today), not expired. */
+export function isInForce(terms: ConsentTerms, today: string): boolean {
+  return consentRecordStatus(terms, today) === 'active' && terms.givenOn <= today;
+}
+
+/** True when some record in force covers `scope` (e.g. "training": uploads and training are allowed). */
+export function coversScope(records: readonly ConsentTerms[], scope: ConsentScope, today: string): boolean {
+  return records.some((record) => isInForce(record, today) && record.scopes.includes(scope));
+}
+
+/**
+ * Where consent stands for a client: "active" when any record is in force; otherwise the status of
+ * the newest record ("withdrawn" or "expired"); "none" without records (or with only a record whose
+ * givenOn is still ahead). `newestFirst` must be ordered by creation, newest first.
+ */
+export function clientConsentStatus(newestFirst: readonly ConsentTerms[], today: string): ConsentStatus {
+  if (newestFirst.some((record) => isInForce(record, today))) return 'active';
+  const newest = newestFirst[0];
+  if (!newest) return 'none';
+  const status = consentRecordStatus(newest, today);
+  return status === 'active' ? 'none' : status;
+}

@@ -1,0 +1,152 @@
+import {
+  BadRequestException,
+  Body,
+  Controller,
+  Get,
+  HttpCode,
+  Ip,
+  Param,
+  ParseUUIDPipe,
+  Post,
+  Put,
+  StreamableFile,
+  UploadedFile,
+  UseInterceptors,
+} from '@nestjs/common';
+import { FileInterceptor } from '@nestjs/platform-express';
+import {
+  ApiBody,
+  ApiConsumes,
+  ApiCreatedResponse,
+  ApiOkResponse,
+  ApiOperation,
+  ApiProduces,
+  ApiTags,
+} from '@nestjs/swagger';
+import {
+  consentSchema,
+  type CreateConsentInput,
+  createConsentSchema,
+  type SessionUser,
+  type WithdrawConsentInput,
+  withdrawConsentSchema,
+} from '@keyloom/shared';
+import { memoryStorage } from 'multer';
+import { z } from 'zod';
+import { CurrentUser } from '../auth/decorators/current-user.decorator';
+import { Roles } from '../auth/decorators/roles.decorator';
+import { zodSchemaObject } from '../common/openapi/zod-schema-object';
+import { ZodValidationPipe } from '../common/pipes/zod-validation.pipe';
+import {
+  ConsentDocumentErrors,
+  DOCUMENT_FIELD_MESSAGE,
+  MAX_CONSENT_DOCUMENT_BYTES,
+} from './consent-document.interceptor';
+import { ConsentsService } from './consents.service';
+import type { ConsentDto } from './dto/consent.dto';
+
+@ApiTags('consents')
+@Controller('clients/:id/consents')
+export class ConsentsController {
+  constructor(private readonly consents: ConsentsService) {}
+
+  @Get()
+  @ApiOperation({ summary: 'Consent records of a client, newest first (owning clinician, supervisor)' })
+  @ApiOkResponse({ schema: zodSchemaObject(z.array(consentSchema)) })
+  findAll(
+    @CurrentUser() user: SessionUser,
+    @Ip() ip: string,
+    @Param('id', ParseUUIDPipe) id: string,
+  ): Promise<ConsentDto[]> {
+    return this.consents.findAll({ ...user, ip }, id);
+  }
+
+  @Post()
+  @Roles('clinician')
+  @ApiOperation({ summary: 'Record a consent (owning clinician); givenOn may not be after today' })
+  @ApiBody({ schema: zodSchemaObject(createConsentSchema) })
+  @ApiCreatedResponse({ schema: zodSchemaObject(consentSchema) })
+  create(
+    @CurrentUser() user: SessionUser,
+    @Ip() ip: string,
+    @Param('id', ParseUUIDPipe) id: string,
+    @Body(new ZodValidationPipe(createConsentSchema)) body: CreateConsentInput,
+  ): Promise<ConsentDto> {
+    return this.consents.create({ ...user, ip }, id, body);
+  }
+
+  @Post(':consentId/withdraw')
+  @Roles('clinician')
+  @HttpCode(200)
+  @ApiOperation({
+    summary: 'Withdraw a consent (owning clinician) — cannot be undone',
+    description:
+      'Deletes the client’s language samples and everything derived from them in one transaction, and ' +
+      'answers 200 with the consent and its withdrawal report. A second withdrawal: 409.',
+  })
+  @ApiBody({ schema: zodSchemaObject(withdrawConsentSchema) })
+  @ApiOkResponse({ schema: zodSchemaObject(consentSchema) })
+  withdraw(
+    @CurrentUser() user: SessionUser,
+    @Ip() ip: string,
+    @Param('id', ParseUUIDPipe) id: string,
+    @Param('consentId', ParseUUIDPipe) consentId: string,
+    @Body(new ZodValidationPipe(withdrawConsentSchema)) body: WithdrawConsentInput,
+  ): Promise<ConsentDto> {
+    return this.consents.withdraw({ ...user, ip }, id, consentId, body);
+  }
+
+  @Put(':consentId/document')
+  @Roles('clinician')
+  @UseInterceptors(
+    ConsentDocumentErrors,
+    FileInterceptor('file', {
+      storage: memoryStorage(),
+      limits: { fileSize: MAX_CONSENT_DOCUMENT_BYTES, files: 1, fields: 10 },
+    }),
+  )
+  @ApiOperation({
+    summary: 'Attach the scanned consent form (owning clinician)',
+    description:
+      'Multipart field "file": PDF, PNG or JPEG, recognised by its first bytes, at most 10 MB (413 above). ' +
+      'Replaces an earlier form; a withdrawn consent cannot be changed (409).',
+  })
+  @ApiConsumes('multipart/form-data')
+  @ApiBody({
+    schema: {
+      type: 'object',
+      required: ['file'],
+      properties: { file: { type: 'string', format: 'binary' } },
+    },
+  })
+  @ApiOkResponse({ schema: zodSchemaObject(consentSchema) })
+  attachDocument(
+    @CurrentUser() user: SessionUser,
+    @Ip() ip: string,
+    @Param('id', ParseUUIDPipe) id: string,
+    @Param('consentId', ParseUUIDPipe) consentId: string,
+    @UploadedFile() file: Express.Multer.File | undefined,
+  ): Promise<ConsentDto> {
+    if (!file) throw new BadRequestException(DOCUMENT_FIELD_MESSAGE);
+    return this.consents.attachDocument({ ...user, ip }, id, consentId, file);
+  }
+
+  @Get(':consentId/document')
+  @ApiOperation({ summary: 'Download the consent form (owning clinician, supervisor; carers 403)' })
+  @ApiProduces('application/pdf', 'image/png', 'image/jpeg')
+  @ApiOkResponse({ schema: { type: 'string', format: 'binary' } })
+  async document(
+    @CurrentUser() user: SessionUser,
+    @Ip() ip: string,
+    @Param('id', ParseUUIDPipe) id: string,
+    @Param('consentId', ParseUUIDPipe) consentId: string,
+  ): Promise<StreamableFile> {
+    const stored = await this.consents.document({ ...user, ip }, id, consentId);
+    const ascii = stored.fileName.replace(/[^\x20-\x7e]/g, '_');
+    return new StreamableFile(stored.bytes, {
+      type: stored.mimeType,
+      length: stored.bytes.length,
+      disposition: `attachment; filename="${ascii}"; filename*=UTF-8''${encodeURIComponent(stored.fileName)}`,
+    });
+  }
+}

@@ -1,0 +1,207 @@
+import { BadRequestException, ConflictException, Injectable, NotFoundException } from '@nestjs/common';
+import { InjectDataSource } from '@nestjs/typeorm';
+import type { CreateConsentInput, WithdrawConsentInput, WithdrawalReport } from '@keyloom/shared';
+import { createHash } from 'node:crypto';
+import { DataSource, type EntityManager } from 'typeorm';
+import { AuditService } from '../audit/audit.service';
+import type { Actor } from '../auth/session-user';
+import { ClientAccessService } from '../clients/client-access.service';
+import { todayIso } from './consent-status';
+import { Consent } from './consent.entity';
+import { cleanFileName, detectConsentDocumentType } from './document-type';
+import { type ConsentDto, toConsentDto } from './dto/consent.dto';
+import { WithdrawalHooks } from './withdrawal-hooks';
+
+export const CONSENT_NOT_FOUND_MESSAGE = 'There is no consent record with that id for this client.';
+export const ALREADY_WITHDRAWN_MESSAGE = 'This consent was already withdrawn.';
+export const WITHDRAWN_IS_FINAL_MESSAGE = 'This consent was withdrawn; its record can no longer be changed.';
+export const FUTURE_CONSENT_MESSAGE = 'The date consent was given cannot be in the future.';
+export const NOT_A_DOCUMENT_MESSAGE =
+  'The consent form must be a PDF, PNG or JPEG file. Scan or save it in one of these formats and try again.';
+export const NO_DOCUMENT_MESSAGE = 'No consent form was uploaded for this consent.';
+
+/** The uploaded file as multer hands it over (memory storage). */
+export type UploadedDocument = { originalname?: string; buffer: Buffer; size: number };
+/** A stored consent form for download. */
+export type StoredDocument = { fileName: string; mimeType: string; bytes: Buffer };
+
+@Injectable()
+export class ConsentsService {
+  constructor(
+    @InjectDataSource() private readonly dataSource: DataSource,
+    private readonly access: ClientAccessService,
+    private readonly hooks: WithdrawalHooks,
+    private readonly audit: AuditService,
+  ) {}
+
+  /** The client's consent records, newest first (owning clinician, supervisor). */
+  async findAll(actor: Actor, clientId: string): Promise<ConsentDto[]> {
+    await this.access.requireReadable(actor, clientId, 'consents');
+    const rows = await this.query(this.dataSource.manager)
+      .where('consent.clientId = :clientId', { clientId })
+      .orderBy('consent.createdAt', 'DESC')
+      .addOrderBy('consent.id', 'ASC')
+      .getMany();
+    const today = todayIso();
+    return rows.map((row) => toConsentDto(row, today));
+  }
+
+  /** Records a consent (owning clinician). givenOn may not lie after today (400). */
+  async create(actor: Actor, clientId: string, input: CreateConsentInput): Promise<ConsentDto> {
+    if (input.givenOn > todayIso()) {
+      throw new BadRequestException({
+        message: FUTURE_CONSENT_MESSAGE,
+        issues: [{ path: 'givenOn', message: FUTURE_CONSENT_MESSAGE }],
+      });
+    }
+    return this.dataSource.transaction(async (manager) => {
+      await this.access.requireOwned(actor, clientId, manager);
+      const representative = input.givenBy === 'representative';
+      const inserted = await manager.getRepository(Consent).insert({
+        clientId,
+        givenBy: input.givenBy,
+        representativeName: representative ? (input.representativeName ?? null) : null,
+        representativeRelationship: representative ? (input.representativeRelationship ?? null) : null,
+        scopes: input.scopes,
+        givenOn: input.givenOn,
+        expiresOn: input.expiresOn ?? null,
+        notes: input.notes ?? null,
+        recordedById: actor.id,
+      });
+      const id = String(inserted.identifiers[0]?.id);
+      await this.audit.record(
+        actor,
+        'consent.create',
+        { type: 'consent', id, clientId },
+        {
+          givenBy: input.givenBy,
+          scopes: input.scopes,
+          givenOn: input.givenOn,
+          expiresOn: input.expiresOn ?? null,
+        },
+        manager,
+      );
+      return this.findDto(manager, clientId, id);
+    });
+  }
+
+  /**
+   * Withdraws a consent (owning clinician), in ONE transaction: every registered WithdrawalHook deletes
+   * what it derived from the client's writing, the record gets withdrawn_* and the report of what was
+   * deleted, and the audit event is written. Cannot be undone; a second withdrawal is 409.
+   */
+  async withdraw(
+    actor: Actor,
+    clientId: string,
+    consentId: string,
+    input: WithdrawConsentInput,
+  ): Promise<ConsentDto> {
+    return this.dataSource.transaction(async (manager) => {
+      await this.access.requireOwned(actor, clientId, manager);
+      const consent = await this.lockConsent(manager, clientId, consentId);
+      if (consent.withdrawnAt !== null) throw new ConflictException(ALREADY_WITHDRAWN_MESSAGE);
+      const { samples = 0, ...derived } = await this.hooks.runAll(clientId, manager);
+      const report: WithdrawalReport = { samplesDeleted: samples, derived };
+      await manager.getRepository(Consent).update(
+        { id: consentId },
+        {
+          withdrawnAt: new Date(),
+          withdrawnById: actor.id,
+          withdrawalReason: input.reason,
+          withdrawal: report,
+        },
+      );
+      // The reason stays on the consent record (readable by clinician and supervisor), not in the log.
+      await this.audit.record(
+        actor,
+        'consent.withdraw',
+        { type: 'consent', id: consentId, clientId },
+        { ...report },
+        manager,
+      );
+      return this.findDto(manager, clientId, consentId);
+    });
+  }
+
+  /** Attaches (or replaces) the scanned form of a standing consent (owning clinician). */
+  async attachDocument(
+    actor: Actor,
+    clientId: string,
+    consentId: string,
+    file: UploadedDocument,
+  ): Promise<ConsentDto> {
+    const type = detectConsentDocumentType(file.buffer);
+    return this.dataSource.transaction(async (manager) => {
+      await this.access.requireOwned(actor, clientId, manager);
+      const consent = await this.lockConsent(manager, clientId, consentId);
+      if (consent.withdrawnAt !== null) throw new ConflictException(WITHDRAWN_IS_FINAL_MESSAGE);
+      if (!type) throw new BadRequestException(NOT_A_DOCUMENT_MESSAGE);
+      const fileName = cleanFileName(file.originalname, `consent-form.${type.extension}`);
+      await manager.getRepository(Consent).update(
+        { id: consentId },
+        {
+          documentName: fileName,
+          documentMime: type.mimeType,
+          documentSize: file.buffer.length,
+          documentBytes: file.buffer,
+          documentUploadedAt: new Date(),
+        },
+      );
+      await this.audit.record(
+        actor,
+        'consent.document-upload',
+        { type: 'consent', id: consentId, clientId },
+        {
+          fileName,
+          mimeType: type.mimeType,
+          byteSize: file.buffer.length,
+          sha256: createHash('sha256').update(file.buffer).digest('hex'),
+          replaced: consent.documentName !== null,
+        },
+        manager,
+      );
+      return this.findDto(manager, clientId, consentId);
+    });
+  }
+
+  /** The stored form for download (owning clinician, supervisor; carers 403). */
+  async document(actor: Actor, clientId: string, consentId: string): Promise<StoredDocument> {
+    await this.access.requireReadable(actor, clientId, 'consents');
+    const row = await this.dataSource
+      .getRepository(Consent)
+      .createQueryBuilder('consent')
+      .addSelect('consent.documentBytes')
+      .where('consent.id = :consentId AND consent.clientId = :clientId', { consentId, clientId })
+      .getOne();
+    if (!row) throw new NotFoundException(CONSENT_NOT_FOUND_MESSAGE);
+    if (!row.documentBytes || !row.documentName || !row.documentMime) {
+      throw new NotFoundException(NO_DOCUMENT_MESSAGE);
+    }
+    return { fileName: row.documentName, mimeType: row.documentMime, bytes: row.documentBytes };
+  }
+
+  private query(manager: EntityManager) {
+    return manager
+      .getRepository(Consent)
+      .createQueryBuilder('consent')
+      .leftJoinAndSelect('consent.recordedBy', 'recordedBy')
+      .leftJoinAndSelect('consent.withdrawnBy', 'withdrawnBy');
+  }
+
+  private async findDto(manager: EntityManager, clientId: string, id: string): Promise<ConsentDto> {
+    const row = await this.query(manager)
+      .where('consent.id = :id AND consent.clientId = :clientId', { id, clientId })
+      .getOne();
+    if (!row) throw new NotFoundException(CONSENT_NOT_FOUND_MESSAGE);
+    return toConsentDto(row, todayIso());
+  }
+
+  // Row lock: two withdrawals at once cannot both pass the "not yet withdrawn" check.
+  private async lockConsent(manager: EntityManager, clientId: string, consentId: string): Promise<Consent> {
+    const consent = await manager
+      .getRepository(Consent)
+      .findOne({ where: { id: consentId, clientId }, lock: { mode: 'pessimistic_write' } });
+    if (!consent) throw new NotFoundException(CONSENT_NOT_FOUND_MESSAGE);
+    return consent;
+  }
+}

@@ -1,0 +1,14 @@
+import { Module } from '@nestjs/common';
+import { TypeOrmModule } from '@nestjs/typeorm';
+import { AuditModule } from '../audit/audit.module';
+import { ClientsModule } from '../clients/clients.module';
+import { ContactsController } from './contacts.controller';
+import { ContactsService } from './contacts.service';
+import { FamilyContact } from './family-contact.entity';
+
+@Module({
+  imports: [TypeOrmModule.forFeature([FamilyContact]), ClientsModule, AuditModule],
+  controllers: [ContactsController],
+  providers: [ContactsService],
+})
+export class ContactsModule {}

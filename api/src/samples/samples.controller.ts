@@ -1,0 +1,164 @@
+import {
+  Body,
+  Controller,
+  Get,
+  HttpCode,
+  Ip,
+  Param,
+  ParseUUIDPipe,
+  Post,
+  Req,
+  UploadedFiles,
+  UseInterceptors,
+} from '@nestjs/common';
+import {
+  ApiBody,
+  ApiConsumes,
+  ApiCreatedResponse,
+  ApiOkResponse,
+  ApiOperation,
+  ApiTags,
+} from '@nestjs/swagger';
+import {
+  type ExcludeSampleInput,
+  excludeSampleSchema,
+  type FlagDecisionInput,
+  flagDecisionSchema,
+  pasteSampleSchema,
+  type SampleDetail,
+  sampleDetailSchema,
+  type SampleSummary,
+  sampleSummarySchema,
+  type SessionUser,
+  type UploadResult,
+  uploadResultSchema,
+  uploadSamplesFieldsSchema,
+} from '@keyloom/shared';
+import type { Request } from 'express';
+import { z } from 'zod';
+import { CurrentUser } from '../auth/decorators/current-user.decorator';
+import { zodSchemaObject } from '../common/openapi/zod-schema-object';
+import { parseOrThrow, ZodValidationPipe } from '../common/pipes/zod-validation.pipe';
+import { SampleFilesInterceptor } from './sample-files.interceptor';
+import { SamplesService } from './samples.service';
+
+// Empty form fields arrive as "": treated as not given.
+function withoutEmptyFields(body: unknown): Record<string, unknown> {
+  const fields = typeof body === 'object' && body !== null ? (body as Record<string, unknown>) : {};
+  return Object.fromEntries(Object.entries(fields).filter(([, value]) => value !== ''));
+}
+
+const ACCESS =
+  'Owning clinician only (supervisor, admin and carer: 403; another clinician’s or a made-up client: 404).';
+
+@ApiTags('samples')
+@Controller()
+export class SamplesController {
+  constructor(private readonly samples: SamplesService) {}
+
+  @Post('clients/:id/samples')
+  @UseInterceptors(SampleFilesInterceptor)
+  @ApiOperation({
+    summary: 'Upload language samples (multipart) or paste one (JSON)',
+    description:
+      `${ACCESS} Needs an active training consent (409). Multipart: field "files" (.txt, .md, .csv; UTF-8 or ` +
+      'UTF-16; ≤ SAMPLE_MAX_FILE_MB each → 413; ≤ SAMPLE_MAX_FILES → 400) and the fields of ' +
+      'uploadSamplesFieldsSchema (csvColumn names the CSV column that holds the text). JSON: pasteSampleSchema ' +
+      '(≤ 100 kB body). Every file is checked before anything is stored; all are stored in one transaction. ' +
+      'Files whose bytes this client already has are listed in "duplicates" and not stored. Over ' +
+      'SAMPLE_MAX_CLIENT_MB for the client: 413.',
+  })
+  @ApiConsumes('multipart/form-data', 'application/json')
+  @ApiBody({
+    schema: {
+      oneOf: [
+        {
+          type: 'object',
+          required: ['files', 'sourceKind'],
+          properties: {
+            files: { type: 'array', items: { type: 'string', format: 'binary' } },
+            ...((zodSchemaObject(uploadSamplesFieldsSchema) as { properties?: object }).properties ?? {}),
+          },
+        },
+        zodSchemaObject(pasteSampleSchema),
+      ],
+    },
+  })
+  @ApiCreatedResponse({ schema: zodSchemaObject(uploadResultSchema) })
+  upload(
+    @CurrentUser() user: SessionUser,
+    @Ip() ip: string,
+    @Param('id', ParseUUIDPipe) id: string,
+    @Req() req: Request,
+    @UploadedFiles() files: Express.Multer.File[] | undefined,
+    @Body() body: unknown,
+  ): Promise<UploadResult> {
+    if (req.is('multipart/form-data')) {
+      const fields = parseOrThrow(uploadSamplesFieldsSchema, withoutEmptyFields(body));
+      return this.samples.upload({ ...user, ip }, id, files ?? [], fields);
+    }
+    return this.samples.paste({ ...user, ip }, id, parseOrThrow(pasteSampleSchema, body));
+  }
+
+  @Get('clients/:id/samples')
+  @ApiOperation({ summary: 'The client’s language samples, newest first (owning clinician, supervisor)' })
+  @ApiOkResponse({ schema: zodSchemaObject(z.array(sampleSummarySchema)) })
+  list(
+    @CurrentUser() user: SessionUser,
+    @Ip() ip: string,
+    @Param('id', ParseUUIDPipe) id: string,
+  ): Promise<SampleSummary[]> {
+    return this.samples.list({ ...user, ip }, id);
+  }
+
+  @Get('samples/:id')
+  @ApiOperation({
+    summary: 'One sample: current text, statistics, flags (owning clinician, supervisor)',
+    description: 'Carer and admin: 403. Unknown id or another clinician’s sample: 404.',
+  })
+  @ApiOkResponse({ schema: zodSchemaObject(sampleDetailSchema) })
+  findOne(
+    @CurrentUser() user: SessionUser,
+    @Ip() ip: string,
+    @Param('id', ParseUUIDPipe) id: string,
+  ): Promise<SampleDetail> {
+    return this.samples.findOne({ ...user, ip }, id);
+  }
+
+  @Post('samples/:id/flags/:flagId')
+  @HttpCode(200)
+  @ApiOperation({
+    summary: 'Redact or keep one personal-data flag',
+    description:
+      `${ACCESS} redact: the span becomes a placeholder token, later flags move, statistics are recounted. ` +
+      'keep: needs a reason. A flag decided before: 409. The sample is ready once no flag is open.',
+  })
+  @ApiBody({ schema: zodSchemaObject(flagDecisionSchema) })
+  @ApiOkResponse({ schema: zodSchemaObject(sampleDetailSchema) })
+  decide(
+    @CurrentUser() user: SessionUser,
+    @Ip() ip: string,
+    @Param('id', ParseUUIDPipe) id: string,
+    @Param('flagId', ParseUUIDPipe) flagId: string,
+    @Body(new ZodValidationPipe(flagDecisionSchema)) body: FlagDecisionInput,
+  ): Promise<SampleDetail> {
+    return this.samples.decideFlag({ ...user, ip }, id, flagId, body);
+  }
+
+  @Post('samples/:id/exclude')
+  @HttpCode(200)
+  @ApiOperation({
+    summary: 'Leave a sample out for good, with a reason',
+    description: `${ACCESS} Twice: 409.`,
+  })
+  @ApiBody({ schema: zodSchemaObject(excludeSampleSchema) })
+  @ApiOkResponse({ schema: zodSchemaObject(sampleSummarySchema) })
+  exclude(
+    @CurrentUser() user: SessionUser,
+    @Ip() ip: string,
+    @Param('id', ParseUUIDPipe) id: string,
+    @Body(new ZodValidationPipe(excludeSampleSchema)) body: ExcludeSampleInput,
+  ): Promise<SampleSummary> {
+    return this.samples.exclude({ ...user, ip }, id, body);
+  }
+}

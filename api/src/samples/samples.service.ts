@@ -1,0 +1,369 @@
+import {
+  BadRequestException,
+  ConflictException,
+  Injectable,
+  NotFoundException,
+  type OnModuleInit,
+  PayloadTooLargeException,
+} from '@nestjs/common';
+import { InjectDataSource } from '@nestjs/typeorm';
+import {
+  applyRedaction,
+  type ExcludeSampleInput,
+  type FlagDecisionInput,
+  type PasteSampleInput,
+  type SampleDetail,
+  type SampleSummary,
+  type UploadResult,
+  type UploadSamplesFields,
+} from '@keyloom/shared';
+import type { DataSource, EntityManager } from 'typeorm';
+import { AuditService } from '../audit/audit.service';
+import type { Actor } from '../auth/session-user';
+import { ClientAccessService } from '../clients/client-access.service';
+import { AppConfig } from '../config/app-config';
+import { WithdrawalHooks } from '../consents/withdrawal-hooks';
+import { LexiconService } from './lexicon.service';
+import { SampleFlag } from './sample-flag.entity';
+import {
+  countKinds,
+  type IncomingFile,
+  insertSample,
+  type PreparedSample,
+  prepareFile,
+  preparePaste,
+  SampleInputError,
+  type SampleMeta,
+  sampleStatistics,
+  sizeLabel,
+} from './sample-ingest';
+import { Sample } from './sample.entity';
+import { toSampleDetail, toSampleSummary } from './sample.mapper';
+
+export const SAMPLE_NOT_FOUND_MESSAGE = 'There is no sample with that id.';
+export const FLAG_NOT_FOUND_MESSAGE = 'There is no flag with that id on this sample.';
+export const FLAG_ALREADY_DECIDED_MESSAGE = 'This flag was already decided.';
+export const NO_FILES_MESSAGE = 'Choose at least one .txt, .md or .csv file.';
+
+@Injectable()
+export class SamplesService implements OnModuleInit {
+  constructor(
+    @InjectDataSource() private readonly dataSource: DataSource,
+    private readonly access: ClientAccessService,
+    private readonly audit: AuditService,
+    private readonly lexicon: LexiconService,
+    private readonly config: AppConfig,
+    private readonly withdrawalHooks: WithdrawalHooks,
+  ) {}
+
+  onModuleInit(): void {
+    this.withdrawalHooks.register('samples', (clientId, manager) =>
+      deleteClientSamples(clientId, manager, this.audit),
+    );
+  }
+
+  private readonly isKnownWord = (word: string) => this.lexicon.has(word);
+
+  /** Multipart upload: every file checked first, then all stored in one transaction (or none). */
+  async upload(
+    actor: Actor,
+    clientId: string,
+    files: IncomingFile[],
+    fields: UploadSamplesFields,
+  ): Promise<UploadResult> {
+    await this.access.requireOwned(actor, clientId);
+    await this.access.requireTrainingConsent(clientId);
+    if (files.length === 0) throw new BadRequestException(NO_FILES_MESSAGE);
+    const prepared: PreparedSample[] = [];
+    const issues: { path: string; message: string }[] = [];
+    files.forEach((file, index) => {
+      try {
+        prepared.push(prepareFile(file, fields.csvColumn, this.isKnownWord));
+      } catch (error) {
+        if (!(error instanceof SampleInputError)) throw error;
+        issues.push({ path: `files.${index}`, message: `${file.originalname}: ${error.message}` });
+      }
+    });
+    if (issues.length > 0) {
+      const message =
+        issues.length === 1
+          ? `${issues[0].message} Nothing was stored.`
+          : `${issues.length} files could not be taken; nothing was stored. ${issues[0].message}`;
+      throw new BadRequestException({ message, issues });
+    }
+    return this.store(actor, clientId, fields, prepared, 'sample.upload');
+  }
+
+  /** Pasted text: one sample. */
+  async paste(actor: Actor, clientId: string, input: PasteSampleInput): Promise<UploadResult> {
+    await this.access.requireOwned(actor, clientId);
+    await this.access.requireTrainingConsent(clientId);
+    const prepared = preparePaste(input.title, input.text, this.isKnownWord);
+    return this.store(actor, clientId, input, [prepared], 'sample.paste');
+  }
+
+  private async store(
+    actor: Actor,
+    clientId: string,
+    meta: SampleMeta,
+    prepared: PreparedSample[],
+    action: 'sample.upload' | 'sample.paste',
+  ): Promise<UploadResult> {
+    return this.dataSource.transaction(async (manager) => {
+      // Consent re-checked inside the transaction, so a withdrawal cannot slip in between.
+      await this.access.requireTrainingConsent(clientId, manager);
+      const { maxClientBytes } = this.config.sampleLimits;
+      // One upload per client at a time: the size check and the duplicate check see every stored byte.
+      await manager.query('SELECT 1 FROM clients WHERE id = $1 FOR UPDATE', [clientId]);
+      const storedBytes = await this.storedBytes(manager, clientId);
+      const result: UploadResult = { samples: [], duplicates: [] };
+      const seen = new Map<string, string>();
+      const existing = await manager
+        .getRepository(Sample)
+        .find({ where: prepared.map((p) => ({ clientId, sha256: p.sha256 })), select: ['id', 'sha256'] });
+      for (const row of existing) seen.set(row.sha256, row.id);
+      const fresh = prepared.filter(
+        (p, i) => !seen.has(p.sha256) && prepared.findIndex((q) => q.sha256 === p.sha256) === i,
+      );
+      const newBytes = fresh.reduce((sum, p) => sum + p.byteSize, 0);
+      if (storedBytes + newBytes > maxClientBytes) {
+        throw new PayloadTooLargeException(
+          `This upload would take the client's samples over the ${sizeLabel(maxClientBytes)} limit ` +
+            `(${sizeLabel(storedBytes)} stored, ${sizeLabel(newBytes)} new). Nothing was stored; ` +
+            'upload fewer or smaller files.',
+        );
+      }
+      for (const p of prepared) {
+        const name = p.fileName ?? p.title;
+        const existingId = seen.get(p.sha256);
+        if (existingId) {
+          result.duplicates.push({
+            fileName: name,
+            existingSampleId: existingId,
+            message: `"${name}" was uploaded before (same bytes); it was not stored again.`,
+          });
+          await this.audit.record(
+            actor,
+            'sample.duplicate-refused',
+            { type: 'sample', id: existingId, clientId },
+            { fileName: p.fileName, sha256: p.sha256 },
+            manager,
+          );
+          continue;
+        }
+        const sample = await insertSample(manager, clientId, actor.id, meta, p);
+        seen.set(p.sha256, sample.id);
+        await this.audit.record(
+          actor,
+          action,
+          { type: 'sample', id: sample.id, clientId },
+          {
+            fileName: p.fileName,
+            sha256: p.sha256,
+            byteSize: p.byteSize,
+            encoding: p.encoding,
+            words: p.statistics.words,
+            flags: countKinds(p.matches),
+          },
+          manager,
+        );
+        result.samples.push(toSampleSummary(sample, p.matches.length, actor.name));
+      }
+      return result;
+    });
+  }
+
+  private async storedBytes(manager: EntityManager, clientId: string): Promise<number> {
+    const row = await manager
+      .getRepository(Sample)
+      .createQueryBuilder('s')
+      .select('COALESCE(SUM(s.byteSize), 0)', 'total')
+      .where('s.clientId = :clientId', { clientId })
+      .getRawOne<{ total: string }>();
+    return Number(row?.total ?? 0);
+  }
+
+  /** The client's samples, newest first. */
+  async list(actor: Actor, clientId: string): Promise<SampleSummary[]> {
+    await this.access.requireReadable(actor, clientId, 'samples');
+    const rows = await this.dataSource
+      .getRepository(Sample)
+      .createQueryBuilder('s')
+      .leftJoinAndSelect('s.uploadedBy', 'u')
+      .loadRelationCountAndMap('s.openFlagCount', 's.flags', 'f', (qb) => qb.where(`f.status = 'open'`))
+      .where('s.clientId = :clientId', { clientId })
+      .orderBy('s.createdAt', 'DESC')
+      .addOrderBy('s.title', 'ASC')
+      .getMany();
+    return rows.map((s) =>
+      toSampleSummary(s, (s as Sample & { openFlagCount?: number }).openFlagCount ?? 0, s.uploadedBy?.name),
+    );
+  }
+
+  /** One sample with text, statistics and flags. */
+  async findOne(actor: Actor, sampleId: string): Promise<SampleDetail> {
+    const sample = await this.readable(actor, sampleId, 'read');
+    return this.detail(this.dataSource.manager, sample.id);
+  }
+
+  /** Redact or keep one open flag. */
+  async decideFlag(
+    actor: Actor,
+    sampleId: string,
+    flagId: string,
+    input: FlagDecisionInput,
+  ): Promise<SampleDetail> {
+    await this.readable(actor, sampleId, 'write');
+    return this.dataSource.transaction(async (manager) => {
+      const { sample, flag, stillOpen } = await decideSampleFlag(
+        manager,
+        sampleId,
+        flagId,
+        input,
+        actor.id,
+        this.isKnownWord,
+      );
+      await this.audit.record(
+        actor,
+        input.action === 'redact' ? 'sample.flag-redact' : 'sample.flag-keep',
+        { type: 'sample', id: sample.id, clientId: sample.clientId },
+        { flagId, kind: flag.kind, openFlags: stillOpen },
+        manager,
+      );
+      return this.detail(manager, sample.id);
+    });
+  }
+
+  /** Leaves a sample out for good (kept for the record, never used for training). */
+  async exclude(actor: Actor, sampleId: string, input: ExcludeSampleInput): Promise<SampleSummary> {
+    await this.readable(actor, sampleId, 'write');
+    return this.dataSource.transaction(async (manager) => {
+      const repo = manager.getRepository(Sample);
+      const sample = await repo.findOne({ where: { id: sampleId }, lock: { mode: 'pessimistic_write' } });
+      if (!sample) throw new NotFoundException(SAMPLE_NOT_FOUND_MESSAGE);
+      if (sample.status === 'excluded') throw new ConflictException('This sample is already excluded.');
+      sample.status = 'excluded';
+      sample.excludedReason = input.reason;
+      await repo.save(sample);
+      await this.audit.record(
+        actor,
+        'sample.exclude',
+        { type: 'sample', id: sample.id, clientId: sample.clientId },
+        {},
+        manager,
+      );
+      const detail = await this.detail(manager, sample.id);
+      return toSampleSummary(sample, detail.openFlags, detail.uploadedBy);
+    });
+  }
+
+  // The sample when the actor may read it (or, for 'write', change it); out of sight → 404 as for a made-up id.
+  private async readable(actor: Actor, sampleId: string, mode: 'read' | 'write'): Promise<Sample> {
+    const sample = await this.dataSource
+      .getRepository(Sample)
+      .findOne({ where: { id: sampleId }, select: ['id', 'clientId'] });
+    if (!sample) throw new NotFoundException(SAMPLE_NOT_FOUND_MESSAGE);
+    try {
+      if (mode === 'read') await this.access.requireReadable(actor, sample.clientId, 'samples');
+      else await this.access.requireOwned(actor, sample.clientId);
+    } catch (error) {
+      if (error instanceof NotFoundException) throw new NotFoundException(SAMPLE_NOT_FOUND_MESSAGE);
+      throw error;
+    }
+    return sample;
+  }
+
+  private async detail(manager: EntityManager, sampleId: string): Promise<SampleDetail> {
+    const sample = await manager
+      .getRepository(Sample)
+      .findOneOrFail({ where: { id: sampleId }, relations: { uploadedBy: true } });
+    const flags = await manager
+      .getRepository(SampleFlag)
+      .find({ where: { sampleId }, relations: { decidedBy: true }, order: { start: 'ASC' } });
+    return toSampleDetail(sample, flags);
+  }
+}
+
+/** The 'samples' withdrawal hook: deletes the client's samples (their flags go by cascade); returns the count. */
+export async function deleteClientSamples(
+  clientId: string,
+  manager: EntityManager,
+  audit: AuditService,
+): Promise<number> {
+  const rows = await manager.getRepository(Sample).find({ where: { clientId }, select: ['id'] });
+  if (rows.length === 0) return 0;
+  await manager.getRepository(Sample).delete({ clientId });
+  // No actor here: the consent.withdraw event beside it names who withdrew.
+  await audit.record(
+    null,
+    'sample.delete',
+    { type: 'client', id: clientId, clientId },
+    { reason: 'consent withdrawn', count: rows.length, sampleIds: rows.map((r) => r.id) },
+    manager,
+  );
+  return rows.length;
+}
+
+/**
+ * Redacts or keeps one open flag (inside the caller's transaction; the sample row is locked).
+ * Redaction replaces the span with the placeholder token, moves later flags, clears the flag's text
+ * and recounts the statistics. 404 for an unknown sample or flag, 409 when already decided or excluded.
+ */
+export async function decideSampleFlag(
+  manager: EntityManager,
+  sampleId: string,
+  flagId: string,
+  input: FlagDecisionInput,
+  actorId: string | null,
+  isKnownWord: (word: string) => boolean,
+): Promise<{ sample: Sample; flag: SampleFlag; stillOpen: number }> {
+  const samples = manager.getRepository(Sample);
+  const sample = await samples.findOne({ where: { id: sampleId }, lock: { mode: 'pessimistic_write' } });
+  if (!sample) throw new NotFoundException(SAMPLE_NOT_FOUND_MESSAGE);
+  if (sample.status === 'excluded') {
+    throw new ConflictException('This sample was excluded; its flags can no longer be decided.');
+  }
+  const flagsRepo = manager.getRepository(SampleFlag);
+  const flags = await flagsRepo.find({ where: { sampleId }, order: { start: 'ASC' } });
+  const flag = flags.find((f) => f.id === flagId);
+  if (!flag) throw new NotFoundException(FLAG_NOT_FOUND_MESSAGE);
+  if (flag.status !== 'open') throw new ConflictException(FLAG_ALREADY_DECIDED_MESSAGE);
+  const decided = { reason: input.reason ?? null, decidedById: actorId, decidedAt: new Date() };
+  if (input.action === 'redact') {
+    const { text, redacted } = applyRedaction(sample.text, flags, flagId);
+    await flagsRepo.update(
+      { id: flagId },
+      { start: redacted.start, end: redacted.end, status: 'redacted', text: null, ...decided },
+    );
+    // Later flags move by the change in length: one statement, however many flags the sample has
+    // (the same shift applyRedaction applies to its copy).
+    const shift = redacted.end - flag.end;
+    if (shift !== 0) {
+      await flagsRepo
+        .createQueryBuilder()
+        .update()
+        .set({ start: () => `start_offset + ${shift}`, end: () => `end_offset + ${shift}` })
+        .where('sample_id = :sampleId AND start_offset >= :after AND id <> :flagId', {
+          sampleId,
+          after: flag.end,
+          flagId,
+        })
+        .execute();
+    }
+    const stats = sampleStatistics(text, isKnownWord);
+    Object.assign(sample, {
+      text,
+      characters: stats.characters,
+      words: stats.words,
+      distinctWords: stats.distinctWords,
+      topWords: stats.topWords,
+      unknownWords: stats.unknownWords,
+    });
+  } else {
+    await flagsRepo.update({ id: flagId }, { status: 'kept', ...decided });
+  }
+  const stillOpen = flags.filter((f) => f.status === 'open' && f.id !== flagId).length;
+  sample.status = stillOpen > 0 ? 'needs_review' : 'ready';
+  await samples.save(sample);
+  return { sample, flag, stillOpen };
+}
