@@ -12,4 +12,5 @@ export * from './schemas/audit.schema';
 export * from './engine/index';
 export * from './engine/search/index';
 export * from './engine/evaluation/index';
+export * from './engine/profile/index';
 export * from './samples/index';

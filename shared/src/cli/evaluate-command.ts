@@ -6,8 +6,8 @@
 // keystroke savings and KSPC for 1..10 slots, scan steps per character.
 // Each measurement starts from its own copy of the trained model, so an
 // adaptive run learns the test text once per measurement, as a device would.
-import { codeLengthBits, decodeText, encodeText, prepareText } from '../engine/index';
-import { scanCosts, simulateKeystrokes } from '../engine/evaluation/index';
+import { prepareText } from '../engine/index';
+import { evaluateHeldOut } from '../engine/evaluation/index';
 import { UsageError } from './cli-errors';
 import { onOff, optionValue, parseArgs, readTextFile } from './args';
 import { buildModel, modelChoice, modelOptionNames, readTrainingTexts } from './model-setup';
@@ -48,12 +48,8 @@ export async function runEvaluate(args: string[]): Promise<void> {
   const test = prepareText(readTextFile(testFile));
   const built = buildModel(choice, texts);
 
-  const bits = codeLengthBits(built.fresh(adaptive), test, { adaptive });
-  const coded = encodeText(built.fresh(adaptive), test);
-  const decoded = decodeText(built.fresh(adaptive), coded, test.length);
-  const roundTrip = decoded.length === test.length && decoded.every((c, i) => c === test[i]);
-  const ks = simulateKeystrokes(built.fresh(adaptive), test, { maxSlots: SLOTS, adaptive });
-  const scan = scanCosts(built.fresh(adaptive), test, { adaptive });
+  const measured = evaluateHeldOut((a) => built.fresh(a), test, { adaptive, maxSlots: SLOTS });
+  const { bits, codedBytes, roundTrip, keystrokes: ks, scan } = measured;
 
   const perSlot = (values: number[]): Record<string, number> => {
     const out: Record<string, number> = {};
@@ -66,8 +62,8 @@ export async function runEvaluate(args: string[]): Promise<void> {
     order: choice.order,
     escape: choice.escape,
     bpcIdeal: round(n === 0 ? 0 : bits / n),
-    bpcCoded: round(n === 0 ? 0 : (coded.length * 8) / n),
-    codedBytes: coded.length,
+    bpcCoded: round(n === 0 ? 0 : (codedBytes * 8) / n),
+    codedBytes,
     roundTrip,
     keystrokeSavings: perSlot(ks.savings),
     kspc: perSlot(ks.kspc),

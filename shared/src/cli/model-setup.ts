@@ -1,7 +1,8 @@
 // Building the model the evaluate and suggest commands run: a personal PPM
 // model trained on --train files, optionally blended with the Brown base model.
 import { loadBaseModel } from '../../../corpora/base-model';
-import { BlendedModel, PpmModel, prepareText, tuneBlendWeight } from '../engine/index';
+import { type PpmModel, prepareText } from '../engine/index';
+import { freshModel, trainPersonalModel, tuneBlendWeightOnTail } from '../engine/evaluation/index';
 import type { EscapeMethod, NextSymbolModel } from '../engine/index';
 import { UsageError } from './cli-errors';
 import { integerIn, numberIn, oneOf, onOff, optionValue, readTextFile, type ParsedArgs } from './args';
@@ -61,43 +62,19 @@ export function buildModel(choice: ModelChoice, texts: readonly Uint32Array[]): 
     exclusion: choice.exclusion,
     adaptive: true,
   };
-  const personal = new PpmModel(settings);
-  for (const t of texts) personal.learnText(t);
+  const personal = trainPersonalModel(settings, texts);
   let base: PpmModel | undefined;
   let weight = 0;
   if (choice.base === 'brown') {
     base = loadBaseModel();
-    weight = choice.baseWeight === 'auto' ? tuneWeight(settings, texts, base) : choice.baseWeight;
+    weight = choice.baseWeight === 'auto' ? tuneBlendWeightOnTail(settings, texts, base) : choice.baseWeight;
   }
   return {
     personal,
     base,
     baseWeight: weight,
     fresh(adaptive: boolean): NextSymbolModel {
-      const p = personal.clone();
-      p.adaptive = adaptive;
-      return base ? new BlendedModel(p, base, weight) : p;
+      return freshModel(personal, base, weight, adaptive);
     },
   };
-}
-
-function tuneWeight(
-  settings: ConstructorParameters<typeof PpmModel>[0],
-  texts: readonly Uint32Array[],
-  base: PpmModel,
-): number {
-  const total = texts.reduce((n, t) => n + t.length, 0);
-  if (total === 0) return 1;
-  // Split the concatenated training texts: first 90% train, last 10% held out.
-  const cut = Math.floor(total * 0.9);
-  const tuningModel = new PpmModel({ ...settings, adaptive: false });
-  const held: number[] = [];
-  let seen = 0;
-  for (const t of texts) {
-    const inTrain = Math.max(0, Math.min(t.length, cut - seen));
-    if (inTrain > 0) tuningModel.learnText(t.subarray(0, inTrain));
-    for (let i = inTrain; i < t.length; i++) held.push(t[i]);
-    seen += t.length;
-  }
-  return tuneBlendWeight(tuningModel, base, Uint32Array.from(held));
 }

@@ -1,6 +1,6 @@
 // Public API of evaluation (see README.md in this folder).
 export { simulateKeystrokes, wordEnd } from './keystroke-savings';
-export type { KeystrokeResult, KeystrokeOptions } from './keystroke-savings';
+export type { KeystrokeResult, KeystrokeOptions, WordVisit } from './keystroke-savings';
 export { scanCosts, FALLBACK_QUESTIONS } from './scan-cost';
 export type { ScanCostResult, ScanCostOptions } from './scan-cost';
 export { defaultScanLayout, layoutCost, uniformGrid } from './scan-layout';
@@ -23,3 +23,12 @@ export {
   LEARNING_CURVE_FRACTIONS,
 } from './cross-validation';
 export type { Metrics, MetricSummary } from './cross-validation';
+export {
+  evaluateHeldOut,
+  codeAndCheck,
+  freshModel,
+  trainPersonalModel,
+  tuneBlendWeightOnTail,
+  TUNING_SHARE,
+} from './held-out-evaluation';
+export type { HeldOutOptions, HeldOutResult } from './held-out-evaluation';

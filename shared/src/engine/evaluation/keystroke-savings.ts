@@ -52,8 +52,17 @@ export type KeystrokeResult = {
   words: number;
 };
 
+/**
+ * One word of the simulation, given to `onWord`: its span in the text and,
+ * for each list size W (index 1..maxSlots), the number of letters typed
+ * before the list first showed it (-1: never). The array is reused.
+ */
+export type WordVisit = { start: number; end: number; firstShownAt: Int32Array };
+
 /** Options of the simulation. */
 export type KeystrokeOptions = SuggestOptions & {
+  /** Called after each word (e.g. to find the words offered early, or to report progress). */
+  onWord?: (visit: WordVisit) => void;
   /** Largest list size simulated (1..100, default 10). */
   maxSlots?: number;
   /** Let the model learn the text as it is typed (default false; clone it first). */
@@ -132,6 +141,7 @@ export function simulateKeystrokes(
       keys[w] += cost;
     }
     oracleKeys += 1;
+    if (options.onWord) options.onWord({ start: i, end: j, firstShownAt: firstAt });
     if (spaceAfter) {
       learn(j);
       i = j + 1;

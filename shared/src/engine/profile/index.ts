@@ -1,0 +1,37 @@
+// Public API of the profile pipeline (see README.md in this folder).
+export {
+  trainAndEvaluateProfile,
+  ENGINE_VERSION,
+  MIN_PROFILE_CHARS,
+  MAX_SLOTS,
+  DEFAULT_KS_SAMPLE_CHARS,
+  EARLY_WORDS_LIMIT,
+} from './profile-pipeline';
+export type {
+  ProfileInput,
+  ProfileDocument,
+  ProfileReport,
+  ProfileResult,
+  ProfileFoldReport,
+  LearningCurveReport,
+  BaseOnlyReport,
+  Spread,
+  PerSlot,
+} from './profile-pipeline';
+export { defaultProfileSettings, checkProfileSettings } from './profile-settings';
+export type { ProfileSettings, AccessSettings, AccessMethodKind } from './profile-settings';
+export { ProfileInputError, CancelledError } from './profile-errors';
+export type { ProfileProgress, ProfileStage } from './profile-progress';
+export {
+  profileRates,
+  accessTiming,
+  DEFAULT_SCAN_INTERVAL_MS,
+  DEFAULT_DWELL_MS,
+  DEFAULT_KEY_TIME_MS,
+  DEFAULT_LIST_READ_MS,
+} from './profile-rates';
+export type { RateReport } from './profile-rates';
+export { planFolds, contiguousParts, keystrokeSample, joinTexts } from './profile-folds';
+export type { FoldPlan, ProfileFold, PreparedDocument } from './profile-folds';
+export { EARLY_LETTERS } from './early-words';
+export type { EarlyWord } from './early-words';

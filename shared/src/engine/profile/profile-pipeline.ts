@@ -1,0 +1,516 @@
+// Train and evaluate one profile version: k-fold cross-validation of the
+// personal model (blended with the base model) on the frozen samples, the
+// base model alone on the same held-out text, a learning curve, rates for the
+// access method, the words the profile offers early, and the final model
+// trained on every sample.
+//
+// Every figure comes from the engine's own functions (evaluation/
+// held-out-evaluation.ts is the same measurement `model evaluate` prints),
+// with adaptive evaluation: the model learns the held-out text as it reads
+// it, as on the client's device. Deterministic: no randomness anywhere, so
+// the same input gives the same report (timings aside).
+import type { NextSymbolModel } from '../model-types';
+import type { PpmSettings } from '../ppm-settings';
+import { serializeModel } from '../model-serialization';
+import { prepareText, stringFromCodePoints } from '../text-preparation';
+import { codeLengthBits } from '../text-coding';
+import { learningCurve, LEARNING_CURVE_FRACTIONS, summarize } from '../evaluation/cross-validation';
+import {
+  codeAndCheck,
+  freshModel,
+  trainPersonalModel,
+  tuneBlendWeightOnTail,
+} from '../evaluation/held-out-evaluation';
+import { simulateKeystrokes, type KeystrokeResult } from '../evaluation/keystroke-savings';
+import { scanCosts, type ScanCostResult } from '../evaluation/scan-cost';
+import { countEarlyWords, EarlyWordRecorder, topEarlyWords, type EarlyWord } from './early-words';
+import { ProfileInputError } from './profile-errors';
+import { keystrokeSample, planFolds, type PreparedDocument } from './profile-folds';
+import { ProgressTracker, type ProfileProgress, type ProfileStage } from './profile-progress';
+import { DEFAULT_LIST_READ_MS, profileRates, type RateReport } from './profile-rates';
+import { checkProfileSettings, type ProfileSettings } from './profile-settings';
+
+/** Version of the engine that made a report; stored with each profile version. */
+export const ENGINE_VERSION = 'keyloom-engine/1 (model layout 1, profile report 1)';
+/** Fewest characters (after preparation, all samples together) a profile is trained on. */
+export const MIN_PROFILE_CHARS = 500;
+/** Largest suggestion list measured. */
+export const MAX_SLOTS = 10;
+/**
+ * Characters of each fold's held-out text the keystroke simulation types by
+ * default (the leading part, cut at a space). The simulation costs about
+ * 100 times more per character than the bits-per-character measures (a
+ * suggestion search before every letter), so it is capped to keep a
+ * 200,000-character profile under a minute; the other measures use the whole
+ * held-out text.
+ */
+export const DEFAULT_KS_SAMPLE_CHARS = 10_000;
+/** Longest earlyWords list. */
+export const EARLY_WORDS_LIMIT = 30;
+
+export type ProfileDocument = { id: string; text: string };
+
+export type ProfileInput = {
+  /** The frozen, redacted samples. */
+  documents: readonly ProfileDocument[];
+  settings: ProfileSettings;
+  /** The frozen base model (never changed here), or null for the personal model alone. */
+  base: NextSymbolModel | null;
+  /** Cross-validation folds, 2..10 (default 5). */
+  folds?: number;
+  /** Cap per fold on the characters the keystroke simulation types (≥ 100, default 10,000); null: no cap. */
+  ksSampleChars?: number | null;
+  /** ms to read the suggestion list once, for the rates (default 500, an assumption). */
+  listReadMs?: number;
+};
+
+/** Spread of a metric over folds (sample standard deviation). */
+export type Spread = { min: number; max: number; std: number };
+/** A value per list size, keys "1".."10". */
+export type PerSlot = Record<string, number>;
+
+export type ProfileFoldReport = {
+  /** Ids of the samples held out in this fold (by-sample folds; empty for segments). */
+  heldOutIds: string[];
+  trainChars: number;
+  testChars: number;
+  /** Characters the keystroke simulation typed in this fold. */
+  ksChars: number;
+  bpcIdeal: number;
+  bpcCoded: number;
+  codedBytes: number;
+  roundTrip: boolean;
+  baseWeight: number;
+  keystrokeSavings: PerSlot;
+  scanStepsPerChar: { rowColumn: number; modelOrdered: number };
+};
+
+export type LearningCurveReport = {
+  /** Index into perFold of the fold the curve was measured on. */
+  fold: number;
+  /** Held-out characters (bpc) and characters typed (KS) at every point. */
+  heldOutChars: number;
+  ksChars: number;
+  slots: number;
+  points: {
+    fraction: number;
+    trainChars: number;
+    baseWeight: number;
+    bpcIdeal: number;
+    keystrokeSavings: number;
+  }[];
+};
+
+export type BaseOnlyReport = { bpcIdeal: number; keystrokeSavings: PerSlot; kspc: PerSlot };
+
+export type ProfileReport = {
+  engineVersion: string;
+  /** Characters of all samples after preparation. */
+  chars: number;
+  documents: number;
+  settings: ProfileSettings;
+  /** Same names as `model evaluate --json`. */
+  order: number;
+  escape: string;
+  adaptive: true;
+  folds: number;
+  foldUnit: 'document' | 'segment';
+  foldNote: string;
+  /** Characters held out over all folds (each character once). */
+  heldOutChars: number;
+  /** Mean over folds of each fold's bits per character. */
+  bpcIdeal: number;
+  bpcIdealSpread: Spread;
+  bpcCoded: number;
+  bpcCodedSpread: Spread;
+  /** Coded bytes of all held-out text, summed over folds. */
+  codedBytes: number;
+  /** Every fold's coded stream decoded back exactly. */
+  roundTrip: boolean;
+  /** λ used (mean over folds when tuned); 0 without a base model. Also the final model's blend weight. */
+  baseWeight: number;
+  baseWeightSpread: Spread;
+  /** Fractions for 1..10 slots, over all folds weighted by characters typed. */
+  keystrokeSavings: PerSlot;
+  kspc: PerSlot;
+  /** Upper bound: every word selected before its first letter. */
+  oracleSavings: number;
+  /** Cap per fold on the characters typed by the keystroke simulation (null: whole held-out text). */
+  ksSampleChars: number | null;
+  /** Characters the keystroke simulation typed over all folds. */
+  ksChars: number;
+  ksNote: string;
+  scanStepsPerChar: { rowColumn: number; modelOrdered: number };
+  rates: RateReport;
+  learningCurve: LearningCurveReport;
+  baseOnly: BaseOnlyReport | null;
+  /** Null without a base model. */
+  earlyWords: EarlyWord[] | null;
+  perFold: ProfileFoldReport[];
+  /** ms per stage, and the whole run. */
+  timings: Record<ProfileStage | 'total', number>;
+};
+
+export type ProfileResult = {
+  report: ProfileReport;
+  /** serializeModel of the personal PPM model trained on every sample. */
+  modelBytes: Uint8Array;
+  /** λ to blend it with the base model (0 without a base model). */
+  blendWeight: number;
+};
+
+/** Cost estimates per character, roughly µs on a 2-core machine (they only shape the progress bar). */
+const COST = {
+  prepare: 0.5,
+  train: 0.7,
+  tune: 1.5,
+  bits: 2.5,
+  coding: 27,
+  scan: 37,
+  ks: 260,
+  ksBase: 100,
+  save: 0.3,
+};
+
+function round(x: number): number {
+  return Math.round(x * 1e6) / 1e6;
+}
+
+function perSlot(values: readonly number[]): PerSlot {
+  const out: PerSlot = {};
+  for (let w = 1; w <= MAX_SLOTS; w++) out[String(w)] = round(values[w]);
+  return out;
+}
+
+/** Result of one fold, before rounding. */
+type FoldWork = {
+  train: Uint32Array[];
+  test: Uint32Array;
+  ksText: Uint32Array;
+  trainChars: number;
+  personal?: ReturnType<typeof trainPersonalModel>;
+  weight: number;
+  bits: number;
+  codedBytes: number;
+  roundTrip: boolean;
+  scan?: ScanCostResult;
+  ks?: KeystrokeResult;
+  baseBits: number;
+  baseKs?: KeystrokeResult;
+};
+
+/**
+ * Trains and evaluates a profile version.
+ * @param input samples, settings, base model, folds (2..10, default 5)
+ * @param onProgress called with the stage and the overall fraction (0..1, never decreasing, last call 1)
+ * @param shouldCancel checked between steps (and inside long ones); true → CancelledError
+ * @throws ProfileInputError for fewer than 500 characters or settings out of range
+ */
+export async function trainAndEvaluateProfile(
+  input: ProfileInput,
+  onProgress?: (p: ProfileProgress) => void,
+  shouldCancel?: () => boolean,
+): Promise<ProfileResult> {
+  const started = Date.now();
+  const settings = input.settings;
+  checkProfileSettings(settings);
+  const k = input.folds ?? 5;
+  const cap = input.ksSampleChars === undefined ? DEFAULT_KS_SAMPLE_CHARS : input.ksSampleChars;
+  if (cap !== null && !(Number.isInteger(cap) && cap >= 100))
+    throw new ProfileInputError(`ksSampleChars must be an integer ≥ 100 or null, got ${cap}`);
+  const listReadMs = input.listReadMs ?? DEFAULT_LIST_READ_MS;
+  const base = input.base;
+  const slots = settings.slots;
+  const ppm: Partial<PpmSettings> = {
+    order: settings.order,
+    escape: settings.escape,
+    exclusion: settings.exclusion,
+  };
+  const tuned = settings.baseWeight === 'auto' && base !== null;
+  const weightFor = (texts: readonly Uint32Array[]): number =>
+    base === null
+      ? 0
+      : settings.baseWeight === 'auto'
+        ? tuneBlendWeightOnTail(ppm, texts, base)
+        : settings.baseWeight;
+
+  // Preparing (cheap and needed to plan the rest, so done before the tracker).
+  const documents: PreparedDocument[] = input.documents.map((d) => ({
+    id: d.id,
+    text: prepareText(d.text, { caseFold: settings.caseFold }),
+  }));
+  const chars = documents.reduce((n, d) => n + d.text.length, 0);
+  if (chars < MIN_PROFILE_CHARS)
+    throw new ProfileInputError(
+      `A profile needs at least ${MIN_PROFILE_CHARS} characters of sample text; ` +
+        `the selected samples have ${chars}. Add more samples.`,
+    );
+  const plan = planFolds(documents, k);
+  const folds: FoldWork[] = plan.folds.map((f) => ({
+    train: f.train,
+    test: f.test,
+    ksText: keystrokeSample(f.test, cap),
+    trainChars: f.train.reduce((n, t) => n + t.length, 0),
+    weight: 0,
+    bits: 0,
+    codedBytes: 0,
+    roundTrip: false,
+    baseBits: 0,
+  }));
+
+  // The plan's cost, so the bar moves with time.
+  const curveFold = folds[0];
+  const curveFractions = LEARNING_CURVE_FRACTIONS.filter((f) => f < 1);
+  const slotShare = slots / MAX_SLOTS;
+  let total = chars * COST.prepare + chars * (COST.train + (tuned ? COST.tune : 0)) + chars * COST.save;
+  for (const f of folds) {
+    total += f.trainChars * (COST.train + (tuned ? COST.tune : 0));
+    total += f.test.length * (COST.bits + COST.coding + COST.scan + (base ? COST.bits : 0));
+    total += f.ksText.length * (COST.ks + (base ? COST.ksBase : 0));
+  }
+  const curveCost = (fraction: number): number =>
+    curveFold.trainChars * fraction * (COST.train + (tuned ? COST.tune : 0)) +
+    curveFold.test.length * COST.bits +
+    curveFold.ksText.length * COST.ks * slotShare;
+  for (const fraction of curveFractions) total += curveCost(fraction);
+  const progress = new ProgressTracker(total, onProgress, shouldCancel);
+  await progress.step('preparing', chars * COST.prepare, () => undefined);
+
+  // Training: one model per fold, and the final model on every sample.
+  for (const f of folds) {
+    await progress.step('training', f.trainChars * (COST.train + (tuned ? COST.tune : 0)), () => {
+      f.personal = trainPersonalModel(ppm, f.train);
+      f.weight = weightFor(f.train);
+    });
+  }
+  const allTexts = documents.map((d) => d.text);
+  const final = await progress.step('training', chars * (COST.train + (tuned ? COST.tune : 0)), () =>
+    trainPersonalModel(ppm, allTexts),
+  );
+  const meanWeight = folds.reduce((s, f) => s + f.weight, 0) / folds.length;
+  const blendWeight = base === null ? 0 : settings.baseWeight === 'auto' ? meanWeight : settings.baseWeight;
+
+  // Cross-validating: bits per character, ideal and coded, and scan cost.
+  const fresh = (f: FoldWork): NextSymbolModel => freshModel(need(f.personal), base, f.weight, true);
+  for (const f of folds) {
+    await progress.step('cross-validating', f.test.length * COST.bits, () => {
+      f.bits = codeLengthBits(fresh(f), f.test, { adaptive: true });
+    });
+    await progress.step('cross-validating', f.test.length * COST.coding, () => {
+      Object.assign(f, codeAndCheck(fresh(f), fresh(f), f.test));
+    });
+    await progress.step('cross-validating', f.test.length * COST.scan, () => {
+      f.scan = scanCosts(fresh(f), f.test, { adaptive: true });
+    });
+    if (base) {
+      // The base model as shipped: frozen, it does not learn the client's text.
+      await progress.step('cross-validating', f.test.length * COST.bits, () => {
+        f.baseBits = codeLengthBits(base, f.test, { adaptive: false });
+      });
+    }
+  }
+
+  // Simulating: keystrokes with the profile and with the base alone.
+  const earlyCounts = new Map<string, number>();
+  for (const f of folds) {
+    const profileWords = new EarlyWordRecorder(slots);
+    await progress.step('simulating', f.ksText.length * COST.ks, (inside) => {
+      f.ks = simulateKeystrokes(fresh(f), f.ksText, {
+        maxSlots: MAX_SLOTS,
+        adaptive: true,
+        onWord: (visit) => {
+          profileWords.record(visit);
+          inside(visit.end / f.ksText.length);
+        },
+      });
+    });
+    if (base) {
+      const baseWords = new EarlyWordRecorder(slots);
+      await progress.step('simulating', f.ksText.length * COST.ksBase, (inside) => {
+        f.baseKs = simulateKeystrokes(base, f.ksText, {
+          maxSlots: MAX_SLOTS,
+          adaptive: false,
+          onWord: (visit) => {
+            baseWords.record(visit);
+            inside(visit.end / f.ksText.length);
+          },
+        });
+      });
+      countEarlyWords(f.ksText, profileWords, baseWords, earlyCounts);
+    }
+  }
+
+  // Learning curve on the first fold; its 100% point is that fold's result.
+  const curveTexts = curveFold.train.map((t) => stringFromCodePoints(t));
+  const curvePoints: LearningCurveReport['points'] = [];
+  for (const fraction of LEARNING_CURVE_FRACTIONS) {
+    if (fraction === 1) {
+      curvePoints.push({
+        fraction,
+        trainChars: curveFold.trainChars,
+        baseWeight: round(curveFold.weight),
+        bpcIdeal: round(curveFold.bits / curveFold.test.length),
+        keystrokeSavings: round(need(curveFold.ks).savings[slots]),
+      });
+      continue;
+    }
+    const point = await progress.step('simulating', curveCost(fraction), (inside) => {
+      const [row] = learningCurve(
+        curveTexts,
+        (part) => {
+          const texts = part.map((t) => prepareText(t, { caseFold: settings.caseFold }));
+          const personal = trainPersonalModel(ppm, texts);
+          const weight = weightFor(texts);
+          const bits = codeLengthBits(freshModel(personal, base, weight, true), curveFold.test, {
+            adaptive: true,
+          });
+          const ks = simulateKeystrokes(freshModel(personal, base, weight, true), curveFold.ksText, {
+            maxSlots: slots,
+            adaptive: true,
+            onWord: (visit) => inside(visit.end / curveFold.ksText.length),
+          });
+          return { weight, bpc: bits / curveFold.test.length, ks: ks.savings[slots] };
+        },
+        [fraction],
+      );
+      return row;
+    });
+    curvePoints.push({
+      fraction,
+      trainChars: point.trainChars,
+      baseWeight: round(point.metrics.weight),
+      bpcIdeal: round(point.metrics.bpc),
+      keystrokeSavings: round(point.metrics.ks),
+    });
+  }
+
+  // Saving: the final personal model, serialised.
+  const modelBytes = await progress.step('saving', chars * COST.save, () => serializeModel(final));
+  progress.finish();
+
+  // Summaries: bpc as a mean over folds with its spread; keystrokes and scan
+  // steps over all characters (folds weighted by their characters).
+  const rows = folds.map((f) => ({
+    bpcIdeal: f.bits / f.test.length,
+    bpcCoded: (f.codedBytes * 8) / f.test.length,
+    baseWeight: f.weight,
+  }));
+  const summary = summarize(rows);
+  const spread = (key: string): Spread => ({
+    min: round(summary[key].min),
+    max: round(summary[key].max),
+    std: round(summary[key].std),
+  });
+  const ksChars = folds.reduce((n, f) => n + f.ksText.length, 0);
+  const heldOutChars = folds.reduce((n, f) => n + f.test.length, 0);
+  const keysPerSlot = (pick: (f: FoldWork) => KeystrokeResult): number[] => {
+    const keys = new Array<number>(MAX_SLOTS + 1).fill(0);
+    for (const f of folds) pick(f).keystrokes.forEach((x, w) => (keys[w] += x));
+    return keys;
+  };
+  const keys = keysPerSlot((f) => need(f.ks));
+  const savings = keys.map((x) => 1 - x / ksChars);
+  const kspc = keys.map((x) => x / ksChars);
+  const oracleKeys = folds.reduce((n, f) => n + (1 - need(f.ks).oracleSavings) * f.ksText.length, 0);
+  const weightedScan = (key: 'rowColumn' | 'modelOrdered'): number =>
+    folds.reduce((s, f) => s + need(f.scan)[key] * f.test.length, 0) / heldOutChars;
+  const scanStepsPerChar = {
+    rowColumn: round(weightedScan('rowColumn')),
+    modelOrdered: round(weightedScan('modelOrdered')),
+  };
+
+  let baseOnly: BaseOnlyReport | null = null;
+  if (base) {
+    const baseKeys = keysPerSlot((f) => need(f.baseKs));
+    baseOnly = {
+      bpcIdeal: round(folds.reduce((s, f) => s + f.baseBits / f.test.length, 0) / folds.length),
+      keystrokeSavings: perSlot(baseKeys.map((x) => 1 - x / ksChars)),
+      kspc: perSlot(baseKeys.map((x) => x / ksChars)),
+    };
+  }
+
+  const timings = { ...progress.timings, total: Date.now() - started };
+  const report: ProfileReport = {
+    engineVersion: ENGINE_VERSION,
+    chars,
+    documents: documents.length,
+    settings: structuredCopy(settings),
+    order: settings.order,
+    escape: settings.escape,
+    adaptive: true,
+    folds: k,
+    foldUnit: plan.unit,
+    foldNote: plan.note,
+    heldOutChars,
+    bpcIdeal: round(summary.bpcIdeal.mean),
+    bpcIdealSpread: spread('bpcIdeal'),
+    bpcCoded: round(summary.bpcCoded.mean),
+    bpcCodedSpread: spread('bpcCoded'),
+    codedBytes: folds.reduce((n, f) => n + f.codedBytes, 0),
+    roundTrip: folds.every((f) => f.roundTrip),
+    baseWeight: round(blendWeight),
+    baseWeightSpread: spread('baseWeight'),
+    keystrokeSavings: perSlot(savings),
+    kspc: perSlot(kspc),
+    oracleSavings: round(1 - oracleKeys / ksChars),
+    ksSampleChars: cap,
+    ksChars,
+    ksNote:
+      cap !== null && ksChars < heldOutChars
+        ? `Keystrokes were simulated on the first ${cap} characters (cut at a space) ` +
+          `of each fold's held-out text, ${ksChars} characters in all; bits per character and scan steps use all ` +
+          `${heldOutChars} held-out characters.`
+        : `Keystrokes were simulated on all ${ksChars} held-out characters.`,
+    scanStepsPerChar,
+    rates: roundedRates(
+      profileRates(settings.access, slots, round(kspc[slots]), scanStepsPerChar.rowColumn, listReadMs),
+    ),
+    learningCurve: {
+      fold: 0,
+      heldOutChars: curveFold.test.length,
+      ksChars: curveFold.ksText.length,
+      slots,
+      points: curvePoints,
+    },
+    baseOnly,
+    earlyWords: base ? topEarlyWords(earlyCounts, EARLY_WORDS_LIMIT) : null,
+    perFold: folds.map((f, i) => ({
+      heldOutIds: plan.folds[i].testIds,
+      trainChars: f.trainChars,
+      testChars: f.test.length,
+      ksChars: f.ksText.length,
+      bpcIdeal: round(rows[i].bpcIdeal),
+      bpcCoded: round(rows[i].bpcCoded),
+      codedBytes: f.codedBytes,
+      roundTrip: f.roundTrip,
+      baseWeight: round(f.weight),
+      keystrokeSavings: perSlot(need(f.ks).savings),
+      scanStepsPerChar: {
+        rowColumn: round(need(f.scan).rowColumn),
+        modelOrdered: round(need(f.scan).modelOrdered),
+      },
+    })),
+    timings,
+  };
+  return { report, modelBytes, blendWeight };
+}
+
+function roundedRates(r: RateReport): RateReport {
+  return {
+    ...r,
+    wpmWithout: round(r.wpmWithout),
+    wpmWith: round(r.wpmWith),
+    msPerCharWithout: round(r.msPerCharWithout),
+    msPerCharWith: round(r.msPerCharWith),
+  };
+}
+
+function need<T>(value: T | undefined): T {
+  if (value === undefined) throw new Error('profile pipeline: a step did not run');
+  return value;
+}
+
+/** A copy of the settings, so the report does not share objects with the input. */
+function structuredCopy(s: ProfileSettings): ProfileSettings {
+  return { ...s, access: { ...s.access } };
+}
