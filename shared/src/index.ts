@@ -14,3 +14,4 @@ export * from './engine/search/index';
 export * from './engine/evaluation/index';
 export * from './engine/profile/index';
 export * from './samples/index';
+export * from './schemas/profile-versions.schema';
