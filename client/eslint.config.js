@@ -8,7 +8,7 @@ import { defineConfig, globalIgnores } from 'eslint/config';
 import globals from 'globals';
 import tseslint from 'typescript-eslint';
 
-const features = ['auth', 'staff'];
+const features = ['auth', 'staff', 'clients', 'consent', 'samples', 'audit'];
 
 const leaveFeatureRelatively = {
   regex: '^\\.\\./\\.\\./',

@@ -1,4 +1,6 @@
 // Every browser suite, in the order they run. Later issues add their suite here.
+import { caseloadSuite } from './caseload.mjs';
 import { foundationSuite } from './foundation.mjs';
+import { profilesSuite } from './profiles.mjs';
 
-export const browserSuites = [foundationSuite];
+export const browserSuites = [foundationSuite, caseloadSuite, profilesSuite];

@@ -34,6 +34,51 @@ export const routes: RouteObject[] = [
                 path: 'admin/staff',
                 lazy: async () => ({ Component: (await import('./routes/admin/staff')).StaffRoute }),
               },
+              {
+                path: 'admin/assignments',
+                lazy: async () => ({
+                  Component: (await import('./routes/admin/assignments')).AssignmentsRoute,
+                }),
+              },
+            ],
+          },
+          {
+            element: <RequireRole roles={['clinician', 'supervisor', 'carer']} />,
+            children: [
+              {
+                path: 'clients/:clientId/:tab?',
+                lazy: async () => ({ Component: (await import('./routes/clients/client-page')).ClientRoute }),
+              },
+              {
+                path: 'clients/:clientId/profiles/compare',
+                lazy: async () => ({
+                  Component: (await import('./routes/clients/profile-compare-page')).ProfileCompareRoute,
+                }),
+              },
+              {
+                path: 'clients/:clientId/profiles/:versionId',
+                lazy: async () => ({
+                  Component: (await import('./routes/clients/profile-version-page')).ProfileVersionRoute,
+                }),
+              },
+            ],
+          },
+          {
+            element: <RequireRole roles={['clinician', 'supervisor']} />,
+            children: [
+              {
+                path: 'clients/:clientId/samples/:sampleId',
+                lazy: async () => ({ Component: (await import('./routes/clients/sample-page')).SampleRoute }),
+              },
+            ],
+          },
+          {
+            element: <RequireRole roles={['supervisor', 'admin']} />,
+            children: [
+              {
+                path: 'audit',
+                lazy: async () => ({ Component: (await import('./routes/audit')).AuditRoute }),
+              },
             ],
           },
           {
@@ -51,6 +96,10 @@ export const routes: RouteObject[] = [
               {
                 path: 'reviews',
                 lazy: async () => ({ Component: (await import('./routes/reviews')).ReviewsRoute }),
+              },
+              {
+                path: 'clients',
+                lazy: async () => ({ Component: (await import('./routes/caseload')).ClinicClientsRoute }),
               },
             ],
           },

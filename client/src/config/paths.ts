@@ -8,7 +8,34 @@ export const paths = {
   caseload: '/caseload',
   reviews: '/reviews',
   myClients: '/my-clients',
+  clients: '/clients',
+  audit: '/audit',
+  assignments: '/admin/assignments',
 } as const;
+
+// The client page's tabs, in order; each is part of the URL (/clients/:id/:tab).
+export const clientTabs = ['overview', 'consent', 'samples', 'profiles', 'trials', 'summaries'] as const;
+export type ClientTab = (typeof clientTabs)[number];
+
+/**
+ * A client's page, on one of its tabs.
+ * @param clientId the client's id
+ * @param tab the tab; the overview when omitted
+ */
+export const clientPath = (clientId: string, tab: ClientTab = 'overview'): string =>
+  `${paths.clients}/${encodeURIComponent(clientId)}/${tab}`;
+
+/** One language sample's review page. */
+export const samplePath = (clientId: string, sampleId: string): string =>
+  `${paths.clients}/${encodeURIComponent(clientId)}/samples/${encodeURIComponent(sampleId)}`;
+
+/** One profile version's page (status, progress, results, actions). */
+export const profileVersionPath = (clientId: string, versionId: string): string =>
+  `${paths.clients}/${encodeURIComponent(clientId)}/profiles/${encodeURIComponent(versionId)}`;
+
+/** Two or more versions of a client side by side. */
+export const profileComparePath = (clientId: string, versionIds: readonly string[]): string =>
+  `${paths.clients}/${encodeURIComponent(clientId)}/profiles/compare?ids=${versionIds.map(encodeURIComponent).join(',')}`;
 
 // Where each role lands after signing in (foundation contract, "Role home pages").
 export const roleHome: Record<Role, string> = {
@@ -18,14 +45,23 @@ export const roleHome: Record<Role, string> = {
   carer: paths.myClients,
 };
 
-export type NavItem = { label: string; to: string };
+/** A header link; `alsoFor` lists other path prefixes that count as this page (e.g. a client's pages). */
+export type NavItem = { label: string; to: string; alsoFor?: readonly string[] };
 
 // The header navigation per role; later features add their pages here.
 export const roleNavigation: Record<Role, readonly NavItem[]> = {
-  admin: [{ label: 'Staff', to: paths.staff }],
-  clinician: [{ label: 'Caseload', to: paths.caseload }],
-  supervisor: [{ label: 'Reviews', to: paths.reviews }],
-  carer: [{ label: 'My clients', to: paths.myClients }],
+  admin: [
+    { label: 'Staff', to: paths.staff },
+    { label: 'Assignments', to: paths.assignments },
+    { label: 'Audit log', to: paths.audit },
+  ],
+  clinician: [{ label: 'Caseload', to: paths.caseload, alsoFor: [`${paths.clients}/`] }],
+  supervisor: [
+    { label: 'Reviews', to: paths.reviews },
+    { label: 'Clients', to: paths.clients },
+    { label: 'Audit log', to: paths.audit },
+  ],
+  carer: [{ label: 'My clients', to: paths.myClients, alsoFor: [`${paths.clients}/`] }],
 };
 
 /**

@@ -30,6 +30,7 @@ type Method = 'GET' | 'POST' | 'PATCH' | 'PUT' | 'DELETE';
 
 type RequestOptions<T> = {
   method?: Method;
+  /** JSON-encoded, except FormData, which goes as multipart/form-data. */
   body?: unknown;
   /** Validates the JSON answer; omit for answers whose body is not used. */
   schema?: z.ZodType<T>;
@@ -88,7 +89,10 @@ async function send<T>(url: string, options: RequestOptions<T>, headers: Record<
     headers: { Accept: 'application/json', ...headers },
     signal: options.signal,
   };
-  if (options.body !== undefined) {
+  if (options.body instanceof FormData) {
+    // The browser sets the multipart boundary itself.
+    init.body = options.body;
+  } else if (options.body !== undefined) {
     init.body = JSON.stringify(options.body);
     init.headers = { ...init.headers, 'Content-Type': 'application/json' };
   }
@@ -132,3 +136,16 @@ export async function apiRequest<T>(path: string, options: RequestOptions<T> = {
     return withToken();
   }
 }
+
+/**
+ * "?a=1&b=x" from the values that are set (undefined, null and "" are left out); "" when none is.
+ * @param params query values in the order they should appear
+ */
+export const toQueryString = (params: Record<string, string | number | null | undefined>): string => {
+  const search = new URLSearchParams();
+  for (const [key, value] of Object.entries(params)) {
+    if (value !== undefined && value !== null && value !== '') search.set(key, String(value));
+  }
+  const text = search.toString();
+  return text ? `?${text}` : '';
+};

@@ -5,3 +5,7 @@ export const formatDateTime = (iso: string): string => {
   const date = new Date(iso);
   return Number.isNaN(date.getTime()) ? iso : dateTime.format(date);
 };
+
+/** Today as YYYY-MM-DD in the reader's own time zone. */
+export const todayIso = (now = new Date()): string =>
+  `${now.getFullYear()}-${String(now.getMonth() + 1).padStart(2, '0')}-${String(now.getDate()).padStart(2, '0')}`;

@@ -7,6 +7,8 @@ export type RecordedRequest = {
   headers: Headers;
   /** The parsed JSON body, when there was one. */
   body: unknown;
+  /** The multipart body, when the request sent FormData. */
+  formData?: FormData;
 };
 
 export type MockResponse = { status?: number; body?: unknown };
@@ -39,6 +41,7 @@ export const mockFetch = (routes: MockRoutes) => {
       path: `${url.pathname}${url.search}`,
       headers: new Headers(init.headers),
       body: text ? (JSON.parse(text) as unknown) : undefined,
+      formData: init.body instanceof FormData ? init.body : undefined,
     };
     requests.push(request);
 

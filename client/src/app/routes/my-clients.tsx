@@ -1,15 +1,26 @@
-import { EmptyState } from '@/components/ui/empty-state';
-import { PageHeader } from '@/components/ui/page-header';
+import { useClients } from '@/features/clients/api/get-clients';
+import { ProfileQueue } from '@/features/profiles/components/profile-queue';
+import { ClientListPage } from './caseload';
 
-export const MyClientsRoute = () => (
-  <>
-    <PageHeader
-      title="My clients"
-      description="You try out candidate prediction profiles with the clients assigned to you on the test keyboard, then sign a version off or say what is not working."
-    />
-    <EmptyState title="No clients are assigned to you yet.">
-      When a clinician adds you to a client&rsquo;s circle, that client and the versions ready to try will
-      appear here.
-    </EmptyState>
-  </>
-);
+export const MyClientsRoute = () => {
+  const clients = useClients();
+  return (
+    <>
+      <ClientListPage role="carer" />
+      {clients.isSuccess && clients.data.length > 0 && (
+        <section aria-labelledby="to-try-heading" className="mt-10 flex flex-col gap-4">
+          <h2 id="to-try-heading" className="text-2xl font-bold">
+            Versions to try and sign off
+          </h2>
+          <ProfileQueue
+            clients={clients.data}
+            status="trained"
+            caption="Profile versions waiting for your sign-off, oldest first"
+            emptyTitle="No version is waiting for your sign-off."
+            emptyText="When a clinician trains a new profile for one of your clients, it will appear here for you to try."
+          />
+        </section>
+      )}
+    </>
+  );
+};

@@ -15,7 +15,11 @@ const homes: Array<{ role: Role; path: string; heading: string; empty: string }>
 
 describe('role-based routing', () => {
   it.each(homes)('sends a signed-in $role from / to $path', async ({ role, path, heading, empty }) => {
-    mockFetch({ ...sessionRoutes(sessionUser(role)), 'GET /api/users': { body: [] } });
+    mockFetch({
+      ...sessionRoutes(sessionUser(role)),
+      'GET /api/users': { body: [] },
+      'GET /api/clients': { body: [] },
+    });
     const { router } = renderApp('/');
 
     expect(await screen.findByRole('heading', { level: 1, name: heading })).toBeInTheDocument();

@@ -83,3 +83,40 @@ export const RowHeader = ({ label, children, className }: CellProps) => (
     {children}
   </th>
 );
+
+export type SortDirection = 'ascending' | 'descending';
+
+type SortableColumnHeaderProps = {
+  children: ReactNode;
+  /** This column's direction when the table is sorted by it; null when sorted by another. */
+  direction: SortDirection | null;
+  onSort: () => void;
+  className?: string;
+};
+
+/** A column header whose button sorts the table; aria-sort tells screen readers the order. */
+export const SortableColumnHeader = ({
+  children,
+  direction,
+  onSort,
+  className,
+}: SortableColumnHeaderProps) => (
+  <th
+    role="columnheader"
+    scope="col"
+    aria-sort={direction ?? 'none'}
+    className={cn('px-1 py-2 align-bottom font-bold', className)}
+  >
+    <button
+      type="button"
+      onClick={onSort}
+      className="inline-flex min-h-11 items-center gap-2 rounded-lg px-2 text-left font-bold hover:bg-paper-deep"
+    >
+      {children}
+      <svg aria-hidden="true" viewBox="0 0 12 16" className="size-3 shrink-0 fill-current">
+        {direction !== 'descending' && <path d="M6 1 11 7H1Z" opacity={direction ? 1 : 0.35} />}
+        {direction !== 'ascending' && <path d="M6 15 1 9h10Z" opacity={direction ? 1 : 0.35} />}
+      </svg>
+    </button>
+  </th>
+);

@@ -252,8 +252,12 @@ describe('Staff page', () => {
       'PATCH /api/users/9c2d4e6f-1a3b-4c5d-8e7f-3b4c5d6e7f03': { body: supervisor },
     });
 
-    await user.click(rowOf('Priya Okonkwo').getByRole('button', { name: 'Set a new password for Priya Okonkwo' }));
-    const dialog = within(await screen.findByRole('dialog', { name: 'Set a new password for Priya Okonkwo' }));
+    await user.click(
+      rowOf('Priya Okonkwo').getByRole('button', { name: 'Set a new password for Priya Okonkwo' }),
+    );
+    const dialog = within(
+      await screen.findByRole('dialog', { name: 'Set a new password for Priya Okonkwo' }),
+    );
     await user.type(dialog.getByRole('textbox', { name: 'New password' }), 'too short');
     await user.click(dialog.getByRole('button', { name: 'Set password' }));
     expect(await dialog.findByText('Use at least 12 characters.')).toBeInTheDocument();
@@ -263,7 +267,9 @@ describe('Staff page', () => {
     await user.type(dialog.getByRole('textbox', { name: 'New password' }), 'a longer new passphrase');
     await user.click(dialog.getByRole('button', { name: 'Set password' }));
 
-    await waitFor(() => expect(screen.getByRole('status')).toHaveTextContent('New password set for Priya Okonkwo.'));
+    await waitFor(() =>
+      expect(screen.getByRole('status')).toHaveTextContent('New password set for Priya Okonkwo.'),
+    );
     const [patch] = api.requests.filter((request) => request.method === 'PATCH');
     expect(patch?.body).toEqual({ password: 'a longer new passphrase' });
   });

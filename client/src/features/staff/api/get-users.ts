@@ -15,4 +15,5 @@ export const usersQueryOptions = () =>
     queryFn: ({ signal }) => getUsers(signal),
   });
 
-export const useUsers = () => useQuery(usersQueryOptions());
+export const useUsers = (options: { enabled?: boolean } = {}) =>
+  useQuery({ ...usersQueryOptions(), enabled: options.enabled ?? true });

@@ -1,0 +1,247 @@
+import type { Role } from '@keyloom/shared';
+import { screen, waitFor, within } from '@testing-library/react';
+import { describe, expect, it } from 'vitest';
+import {
+  ASHBY_ID,
+  clientRecord,
+  consentRecord,
+  contactRecord,
+  sampleSummary,
+  sessionUser,
+} from '@/testing/data';
+import { CSRF_TOKEN, type MockRoutes, mockFetch, sessionRoutes } from '@/testing/mock-fetch';
+import { currentUrl, renderApp } from '@/testing/render-app';
+
+const base = `/api/clients/${ASHBY_ID}`;
+
+const openClient = async (role: Role, tab: string, routes: MockRoutes = {}) => {
+  const api = mockFetch({
+    ...sessionRoutes(sessionUser(role)),
+    [`GET ${base}`]: { body: role === 'carer' ? clientRecord({ notes: null }) : clientRecord() },
+    [`GET ${base}/carers-available`]: { body: [] },
+    [`GET ${base}/consents`]: { body: [consentRecord()] },
+    [`GET ${base}/contacts`]: { body: [contactRecord()] },
+    [`GET ${base}/samples`]: { body: [sampleSummary()] },
+    [`GET ${base}/profile-versions`]: { body: [] },
+    ...routes,
+  });
+  const app = renderApp(`/clients/${ASHBY_ID}/${tab}`);
+  await screen.findByRole('heading', { level: 1, name: 'R. Ashby' });
+  return { ...app, api };
+};
+
+const tabNames = () => screen.getAllByRole('tab').map((tab) => tab.textContent);
+
+describe('Client page', () => {
+  it('gives clinicians every tab, keeps the tab in the address, and moves between tabs', async () => {
+    const { user, router } = await openClient('clinician', 'overview');
+    expect(tabNames()).toEqual([
+      'Overview',
+      'Consent & family',
+      'Writing samples',
+      'Profile versions',
+      'Try-outs',
+      'Family updates',
+    ]);
+    expect(screen.getByRole('tab', { name: 'Overview' })).toHaveAttribute('aria-selected', 'true');
+    // The client's page belongs to the caseload in the header.
+    const nav = within(screen.getByRole('navigation', { name: 'Main' }));
+    expect(nav.getByRole('link', { name: 'Caseload' })).toHaveAttribute('aria-current', 'page');
+    expect(screen.getByRole('button', { name: 'Edit details' })).toBeInTheDocument();
+    expect(screen.getByText('Tires after about twenty minutes of typing.')).toBeInTheDocument();
+
+    await user.click(screen.getByRole('tab', { name: 'Consent & family' }));
+    await waitFor(() => expect(currentUrl(router)).toBe(`/clients/${ASHBY_ID}/consent`));
+    expect(await screen.findByRole('heading', { name: 'Consent given on 2026-09-14' })).toBeInTheDocument();
+
+    await user.click(screen.getByRole('tab', { name: 'Profile versions' }));
+    expect(await screen.findByRole('heading', { name: 'No profile versions yet.' })).toBeInTheDocument();
+  });
+
+  it('shows carers the overview, profile versions and try-outs only, without notes or edit controls, and never asks for consent or samples', async () => {
+    const { api } = await openClient('carer', 'overview');
+    expect(tabNames()).toEqual(['Overview', 'Profile versions', 'Try-outs']);
+    expect(screen.queryByRole('button', { name: 'Edit details' })).not.toBeInTheDocument();
+    expect(screen.queryByText('Notes')).not.toBeInTheDocument();
+    expect(screen.queryByRole('button', { name: 'Assign carer' })).not.toBeInTheDocument();
+    expect(api.requestsTo(`GET ${base}/consents`)).toHaveLength(0);
+    expect(api.requestsTo(`GET ${base}/samples`)).toHaveLength(0);
+  });
+
+  it('sends a carer who types the consent tab address back to the overview', async () => {
+    const { router } = await openClient('carer', 'consent');
+    await waitFor(() => expect(currentUrl(router)).toBe(`/clients/${ASHBY_ID}/overview`));
+  });
+
+  it('lets a supervisor read consent and samples with no buttons that would be refused', async () => {
+    const { user } = await openClient('supervisor', 'consent');
+    expect(await screen.findByRole('heading', { name: 'Consent given on 2026-09-14' })).toBeInTheDocument();
+    expect(screen.getByRole('rowheader', { name: /Hannah Ashby/ })).toBeInTheDocument();
+    for (const name of ['Record consent', 'Withdraw consent', 'Add family contact', 'Upload form']) {
+      expect(screen.queryByRole('button', { name })).not.toBeInTheDocument();
+    }
+    expect(screen.queryByRole('button', { name: /Edit Hannah/ })).not.toBeInTheDocument();
+
+    await user.click(screen.getByRole('tab', { name: 'Writing samples' }));
+    expect(await screen.findByRole('link', { name: 'Messages to the sailing club' })).toBeInTheDocument();
+    expect(screen.queryByLabelText(/Choose files/)).not.toBeInTheDocument();
+    expect(screen.queryByRole('button', { name: 'Upload files' })).not.toBeInTheDocument();
+
+    await user.click(screen.getByRole('tab', { name: 'Overview' }));
+    await screen.findByRole('heading', { name: 'Details' });
+    expect(screen.queryByRole('button', { name: 'Edit details' })).not.toBeInTheDocument();
+  });
+
+  it('asks for the representative’s name and relationship only when a representative gave consent', async () => {
+    const created = consentRecord({
+      id: '7a2b3c4d-5e6f-4a8b-9c0d-1e2f3a4b5c62',
+      givenBy: 'representative',
+      representativeName: 'Marguerite Ashby',
+      representativeRelationship: 'Mother',
+      scopes: ['training'],
+      givenOn: '2026-10-01',
+    });
+    const { user, api } = await openClient('clinician', 'consent', {
+      [`POST ${base}/consents`]: { status: 201, body: created },
+    });
+    await user.click(await screen.findByRole('button', { name: 'Record consent' }));
+    const form = within(await screen.findByRole('dialog', { name: 'Record consent for R. Ashby' }));
+    expect(form.queryByLabelText('Representative’s name')).not.toBeInTheDocument();
+
+    await user.click(form.getByLabelText('A representative on the client’s behalf'));
+    await user.clear(form.getByLabelText('Date consent was given'));
+    await user.type(form.getByLabelText('Date consent was given'), '2026-10-01');
+    await user.click(form.getByRole('button', { name: 'Record consent' }));
+    // Messages from shared/src/schemas/consents.schema.ts.
+    expect(await form.findByText('Enter the representative’s name.')).toBeInTheDocument();
+    expect(form.getByText('Enter how the representative is related to the client.')).toBeInTheDocument();
+    expect(api.requestsTo(`POST ${base}/consents`)).toHaveLength(0);
+
+    await user.type(form.getByLabelText('Representative’s name'), 'Marguerite Ashby');
+    await user.type(form.getByLabelText('Relationship to the client'), 'Mother');
+    await user.click(form.getByRole('button', { name: 'Record consent' }));
+    await waitFor(() => expect(screen.queryByRole('dialog')).not.toBeInTheDocument());
+
+    const [post] = api.requestsTo(`POST ${base}/consents`);
+    expect(post?.headers.get('X-CSRF-Token')).toBe(CSRF_TOKEN);
+    expect(post?.body).toEqual({
+      givenBy: 'representative',
+      representativeName: 'Marguerite Ashby',
+      representativeRelationship: 'Mother',
+      scopes: ['training'],
+      givenOn: '2026-10-01',
+      expiresOn: null,
+      notes: null,
+    });
+    expect(screen.getByRole('status')).toHaveTextContent('Consent given on 2026-10-01 is recorded.');
+  });
+
+  it('refuses a consent that covers nothing', async () => {
+    const { user, api } = await openClient('clinician', 'consent');
+    await user.click(await screen.findByRole('button', { name: 'Record consent' }));
+    const form = within(await screen.findByRole('dialog'));
+    await user.click(form.getByLabelText(/Training a personal model/));
+    await user.click(form.getByRole('button', { name: 'Record consent' }));
+    expect(await form.findByText('Choose at least one thing the consent covers.')).toBeInTheDocument();
+    expect(api.requestsTo(`POST ${base}/consents`)).toHaveLength(0);
+  });
+
+  it('states what a withdrawal deletes, requires a reason, then reports what was deleted', async () => {
+    const withdrawn = consentRecord({
+      status: 'withdrawn',
+      withdrawnAt: '2026-10-05T10:00:00.000Z',
+      withdrawalReason: 'He asked by e-mail.',
+      withdrawal: { samplesDeleted: 3, derived: {} },
+    });
+    const { user, api } = await openClient('clinician', 'consent', {
+      [`POST ${base}/consents/${withdrawn.id}/withdraw`]: { body: withdrawn },
+    });
+    await user.click(await screen.findByRole('button', { name: 'Withdraw the consent given on 2026-09-14' }));
+    const dialog = await screen.findByRole('dialog', { name: 'Withdraw consent for R. Ashby?' });
+    expect(dialog).toHaveAccessibleDescription(
+      /permanently delete all 3 language samples of R\. Ashby, and every model trained from them.*This cannot be undone\./,
+    );
+    const form = within(dialog);
+    await user.click(form.getByRole('button', { name: 'Withdraw and delete 3 language samples' }));
+    expect(await form.findByText('Say why consent was withdrawn (for the record).')).toBeInTheDocument();
+    expect(api.requestsTo(`POST ${base}/consents/${withdrawn.id}/withdraw`)).toHaveLength(0);
+
+    await user.type(form.getByLabelText('Reason for the withdrawal'), 'He asked by e-mail.');
+    await user.click(form.getByRole('button', { name: 'Withdraw and delete 3 language samples' }));
+    await waitFor(() =>
+      expect(screen.getByRole('status')).toHaveTextContent(
+        'Consent withdrawn. 3 language samples were deleted.',
+      ),
+    );
+    expect(api.requestsTo(`POST ${base}/consents/${withdrawn.id}/withdraw`)[0]?.body).toEqual({
+      reason: 'He asked by e-mail.',
+    });
+  });
+
+  it('lets the owner assign an available carer', async () => {
+    const { user, api } = await openClient('clinician', 'overview', {
+      [`GET ${base}/carers-available`]: {
+        body: [{ id: '4b5c6d7e-8f9a-4b1c-8d2e-3f4a5b6c7d05', name: 'Orla Pennick' }],
+      },
+      [`POST ${base}/assignments`]: { status: 201, body: {} },
+    });
+    const picker = screen.getByLabelText('Carer to assign to R. Ashby');
+    await waitFor(() =>
+      expect(within(picker).getByRole('option', { name: 'Orla Pennick' })).toBeInTheDocument(),
+    );
+    await user.selectOptions(picker, 'Orla Pennick');
+    await user.click(screen.getByRole('button', { name: 'Assign carer' }));
+    await waitFor(() =>
+      expect(screen.getByRole('status')).toHaveTextContent('Orla Pennick is now assigned to R. Ashby.'),
+    );
+    expect(api.requestsTo(`POST ${base}/assignments`)[0]?.body).toEqual({
+      userId: '4b5c6d7e-8f9a-4b1c-8d2e-3f4a5b6c7d05',
+    });
+  });
+
+  it('attaches a scanned consent form as multipart field "file" and refuses one over 10 MB first', async () => {
+    const consent = consentRecord();
+    const { user, api } = await openClient('clinician', 'consent', {
+      [`PUT ${base}/consents/${consent.id}/document`]: {
+        body: {
+          ...consent,
+          document: { fileName: 'consent-form.pdf', mimeType: 'application/pdf', byteSize: 2048 },
+        },
+      },
+    });
+    const input = await screen.findByLabelText('Attach the scanned form');
+    await user.upload(
+      input,
+      new File([new Uint8Array(10 * 1024 * 1024 + 1)], 'huge.pdf', { type: 'application/pdf' }),
+    );
+    await user.click(screen.getByRole('button', { name: 'Upload form' }));
+    expect(await screen.findByText(/larger than 10 MB/)).toBeInTheDocument();
+    expect(api.requestsTo(`PUT ${base}/consents/${consent.id}/document`)).toHaveLength(0);
+
+    await user.upload(input, new File(['%PDF-1.4 scanned'], 'consent-form.pdf', { type: 'application/pdf' }));
+    await user.click(screen.getByRole('button', { name: 'Upload form' }));
+    await waitFor(() =>
+      expect(screen.getByRole('status')).toHaveTextContent(
+        'Attached consent-form.pdf to the consent record.',
+      ),
+    );
+    const [put] = api.requestsTo(`PUT ${base}/consents/${consent.id}/document`);
+    expect((put?.formData?.get('file') as File).name).toBe('consent-form.pdf');
+  });
+
+  it('says so when the client is not in the caseload', async () => {
+    mockFetch({
+      ...sessionRoutes(sessionUser('clinician')),
+      [`GET ${base}`]: {
+        status: 404,
+        body: { statusCode: 404, message: 'There is no client with that id in your caseload.' },
+      },
+    });
+    renderApp(`/clients/${ASHBY_ID}/overview`);
+    await waitFor(() =>
+      expect(screen.getByRole('alert')).toHaveTextContent(
+        'There is no client with that id in your caseload.',
+      ),
+    );
+  });
+});

@@ -1,0 +1,270 @@
+import type { ProfileVersion, Role } from '@keyloom/shared';
+import { screen, waitFor, within } from '@testing-library/react';
+import { describe, expect, it } from 'vitest';
+import { profileVersion, VERSION_1_ID } from '@/features/profiles/testing/profile-data';
+import { ASHBY_ID, clientRecord, sessionUser } from '@/testing/data';
+import { type MockRoutes, mockFetch, sessionRoutes } from '@/testing/mock-fetch';
+import { renderApp } from '@/testing/render-app';
+
+const versionUrl = `/api/profile-versions/${VERSION_1_ID}`;
+
+const openVersion = async (
+  role: Role,
+  version: ProfileVersion | (() => ProfileVersion),
+  routes: MockRoutes = {},
+) => {
+  const api = mockFetch({
+    ...sessionRoutes(sessionUser(role)),
+    [`GET /api/clients/${ASHBY_ID}`]: { body: clientRecord() },
+    [`GET ${versionUrl}`]: () => ({ body: typeof version === 'function' ? version() : version }),
+    ...routes,
+  });
+  const app = renderApp(`/clients/${ASHBY_ID}/profiles/${VERSION_1_ID}`);
+  await screen.findByRole('heading', { level: 1, name: 'Version 1 of R. Ashby’s profile' });
+  return { ...app, api };
+};
+
+const cellValue = (cell: HTMLElement) => cell.lastChild?.textContent;
+
+describe('Profile version page', () => {
+  it('polls a version in training every second and moves the progress bar and the stage', async () => {
+    const answers = [
+      profileVersion({ status: 'training', progress: 0.2, stage: 'preparing', metrics: null }),
+      profileVersion({ status: 'training', progress: 0.6, stage: 'simulating', metrics: null }),
+      profileVersion(),
+    ];
+    let asked = 0;
+    const { api } = await openVersion('clinician', () => answers[Math.min(asked++, answers.length - 1)]!);
+
+    const bar = screen.getByRole('progressbar');
+    expect(bar).toHaveAttribute('aria-valuenow', '20');
+    expect(bar).toHaveAccessibleName('Preparing the text…');
+    expect(screen.getByRole('button', { name: 'Cancel training' })).toBeInTheDocument();
+
+    await waitFor(() => expect(screen.getByRole('progressbar')).toHaveAttribute('aria-valuenow', '60'), {
+      timeout: 3000,
+    });
+    expect(screen.getByRole('progressbar')).toHaveAttribute(
+      'aria-valuetext',
+      '60%: Simulating typing with suggestions',
+    );
+    // Trained: the bar goes, the results come, and polling stops.
+    expect(await screen.findByRole('heading', { name: 'Results' }, { timeout: 3000 })).toBeInTheDocument();
+    expect(screen.queryByRole('progressbar')).not.toBeInTheDocument();
+    const polls = api.requestsTo(`GET ${versionUrl}`).length;
+    await new Promise((resolve) => setTimeout(resolve, 1300));
+    expect(api.requestsTo(`GET ${versionUrl}`)).toHaveLength(polls);
+  }, 12_000);
+
+  it('cancels a running job', async () => {
+    const training = profileVersion({ status: 'training', progress: 0.3, stage: 'training', metrics: null });
+    const { user, api } = await openVersion('clinician', training, {
+      [`POST ${versionUrl}/cancel`]: {
+        body: { ...training, status: 'draft', error: 'Cancelled by Dr. Tomasz Reyes.' },
+      },
+    });
+    await user.click(screen.getByRole('button', { name: 'Cancel training' }));
+    await waitFor(() => expect(api.requestsTo(`POST ${versionUrl}/cancel`)).toHaveLength(1));
+    expect(await screen.findByText('Asked training of version 1 to stop.')).toBeInTheDocument();
+  });
+
+  it('shows why training failed and retries it', async () => {
+    const failed = profileVersion({
+      status: 'failed',
+      metrics: null,
+      error: 'These samples hold 312 characters; a profile needs at least 500.',
+    });
+    let current = failed;
+    const { user, api } = await openVersion('clinician', () => current, {
+      [`POST ${versionUrl}/train`]: () => {
+        current = { ...failed, status: 'training', progress: 0, stage: 'queued', error: null };
+        return { body: current };
+      },
+    });
+    expect(
+      screen.getByText('These samples hold 312 characters; a profile needs at least 500.'),
+    ).toBeInTheDocument();
+    await user.click(screen.getByRole('button', { name: 'Retry training' }));
+    await waitFor(() => expect(api.requestsTo(`POST ${versionUrl}/train`)).toHaveLength(1));
+    expect(await screen.findByText('Waiting for a free worker…')).toBeInTheDocument();
+  });
+
+  it('shows the results: bits with spread, KS and KSPC tables, scan steps, wpm with the caution, curve, early words', async () => {
+    await openVersion('clinician', profileVersion());
+    const bpc = within(screen.getByRole('table', { name: /Bits per character, mean over folds/ }));
+    expect(bpc.getByRole('row', { name: /Ideal/ }).textContent).toContain('2.412');
+    const coded = bpc.getByRole('row', { name: /Coded/ });
+    expect(within(coded).getAllByRole('cell').map(cellValue)).toEqual(['2.419', '2.318', '2.561', '0.091']);
+    expect(bpc.getByRole('row', { name: /General English model alone/ }).textContent).toContain('2.980');
+
+    // The KS chart's text alternative: ten rows, this version and the base model alone.
+    const ks = within(
+      screen.getByRole('table', { name: /^Keystroke savings for 1 to 10 suggestion slots: the figures/ }),
+    );
+    expect(ks.getAllByRole('row')).toHaveLength(11);
+    expect(
+      within(ks.getByRole('row', { name: /^5 / }))
+        .getAllByRole('cell')
+        .map(cellValue),
+    ).toEqual(['36.7%', '27.1%']);
+    expect(
+      within(ks.getByRole('row', { name: /^10 / }))
+        .getAllByRole('cell')
+        .map(cellValue),
+    ).toEqual(['41.3%', '31.0%']);
+    const kspc = within(screen.getByRole('table', { name: /^Keystrokes per character .*: the figures/ }));
+    expect(
+      within(kspc.getByRole('row', { name: /^1 / }))
+        .getAllByRole('cell')
+        .map(cellValue),
+    ).toEqual(['0.812', '0.871']);
+    expect(screen.getByText(/At 5 slots this version saves/)).toHaveTextContent(
+      'At 5 slots this version saves 36.7% of keystrokes; the general English model alone saves 27.1%.',
+    );
+
+    const scan = within(screen.getByRole('table', { name: 'Scan steps per character for a switch user' }));
+    expect(scan.getByRole('row', { name: /Row–column/ }).textContent).toContain('6.80');
+    expect(scan.getByRole('row', { name: /Ordered by the model/ }).textContent).toContain('3.90');
+
+    expect(screen.getByText('6.1 words per minute')).toBeInTheDocument();
+    expect(screen.getByText('7.4 words per minute')).toBeInTheDocument();
+    expect(
+      screen.getByText('Keystroke savings are not time savings: reading the list costs time.'),
+    ).toBeInTheDocument();
+
+    // 2.60 → 2.45 from half to all the text: still helping.
+    expect(
+      screen.getByText(
+        /^More text still helps: going from 50% to 100% of the text lowered bits per character by 0\.15/,
+      ),
+    ).toBeInTheDocument();
+    const early = within(screen.getByRole('list', { name: 'Words offered early' }));
+    expect(early.getAllByRole('listitem').map((item) => item.textContent)).toEqual([
+      'Pepper × 14',
+      'harbour × 9',
+    ]);
+    expect(screen.getByRole('list', { name: 'History' })).toHaveTextContent('Ready for trial');
+  });
+
+  it('offers the clinician an export link on a trained version, and no sign-off or approval', async () => {
+    await openVersion('clinician', profileVersion());
+    expect(screen.getByRole('link', { name: 'Export version 1' })).toHaveAttribute(
+      'href',
+      `${versionUrl}/export`,
+    );
+    expect(screen.queryByRole('button', { name: 'Sign off' })).not.toBeInTheDocument();
+    expect(screen.queryByRole('button', { name: 'Approve' })).not.toBeInTheDocument();
+  });
+
+  it('lets the assigned carer sign off a trained version only with a comment, and never offers export', async () => {
+    const trained = profileVersion();
+    const { user, api } = await openVersion('carer', trained, {
+      [`POST ${versionUrl}/sign-off`]: { body: { ...trained, status: 'signed_off' } },
+    });
+    expect(screen.queryByRole('link', { name: /Export/ })).not.toBeInTheDocument();
+    expect(screen.queryByRole('heading', { name: 'Check an exported file' })).not.toBeInTheDocument();
+    await user.click(screen.getByRole('button', { name: 'Sign off' }));
+    const dialog = within(await screen.findByRole('dialog', { name: 'Sign off version 1?' }));
+    await user.click(dialog.getByRole('button', { name: 'Sign off' }));
+    expect(await dialog.findByText('Add a comment about the trial.')).toBeInTheDocument();
+    expect(api.requestsTo(`POST ${versionUrl}/sign-off`)).toHaveLength(0);
+
+    await user.type(dialog.getByLabelText('How did the try-outs go?'), 'Used it for a week; he liked it.');
+    await user.click(dialog.getByRole('button', { name: 'Sign off' }));
+    await waitFor(() => expect(api.requestsTo(`POST ${versionUrl}/sign-off`)).toHaveLength(1));
+    expect(api.requestsTo(`POST ${versionUrl}/sign-off`)[0]?.body).toEqual({
+      comment: 'Used it for a week; he liked it.',
+    });
+    expect(
+      await screen.findByText('You signed off version 1. A supervisor will review it.'),
+    ).toBeInTheDocument();
+  });
+
+  it('offers a carer nothing on a version that is already signed off', async () => {
+    await openVersion('carer', profileVersion({ status: 'signed_off' }));
+    expect(screen.queryByRole('button', { name: 'Sign off' })).not.toBeInTheDocument();
+    expect(screen.queryByRole('group', { name: 'Actions on this version' })).not.toBeInTheDocument();
+  });
+
+  it('lets a supervisor approve a signed-off version, and shows the server’s refusal in the dialog', async () => {
+    const signed = profileVersion({ status: 'signed_off' });
+    let approvals = 0;
+    const { user, api } = await openVersion('supervisor', signed, {
+      [`POST ${versionUrl}/approve`]: () =>
+        approvals++ === 0
+          ? { status: 409, body: { statusCode: 409, message: 'This version is already approved.' } }
+          : { body: { ...signed, status: 'active' } },
+    });
+    await user.click(screen.getByRole('button', { name: 'Approve' }));
+    const dialog = within(await screen.findByRole('dialog', { name: 'Approve version 1?' }));
+    await user.click(dialog.getByRole('button', { name: 'Approve' }));
+    expect(await dialog.findByText('Add a comment for the record.')).toBeInTheDocument();
+    await user.type(dialog.getByLabelText('Comment for the record'), 'Trials and figures agree.');
+    await user.click(dialog.getByRole('button', { name: 'Approve' }));
+    expect(await dialog.findByText('This version is already approved.')).toBeInTheDocument();
+    await user.click(dialog.getByRole('button', { name: 'Approve' }));
+    expect(await screen.findByText('Version 1 is now the active profile.')).toBeInTheDocument();
+    expect(api.requestsTo(`POST ${versionUrl}/approve`)[1]?.body).toEqual({
+      comment: 'Trials and figures agree.',
+    });
+  });
+
+  it('lets a supervisor send a signed-off version back with a reason', async () => {
+    const signed = profileVersion({ status: 'signed_off' });
+    const { user, api } = await openVersion('supervisor', signed, {
+      [`POST ${versionUrl}/send-back`]: { body: { ...signed, status: 'sent_back' } },
+    });
+    await user.click(screen.getByRole('button', { name: 'Send back' }));
+    const dialog = within(await screen.findByRole('dialog', { name: 'Send version 1 back?' }));
+    await user.click(dialog.getByRole('button', { name: 'Send back' }));
+    expect(await dialog.findByText('Say what needs to change.')).toBeInTheDocument();
+    await user.type(dialog.getByLabelText('What needs to change'), 'Too few try-outs logged.');
+    await user.click(dialog.getByRole('button', { name: 'Send back' }));
+    await waitFor(() =>
+      expect(api.requestsTo(`POST ${versionUrl}/send-back`)[0]?.body).toEqual({
+        reason: 'Too few try-outs logged.',
+      }),
+    );
+    expect(await screen.findByText('Version 1 was sent back to the clinician.')).toBeInTheDocument();
+  });
+
+  it('offers a supervisor no approval before a carer has signed off, but the export', async () => {
+    await openVersion('supervisor', profileVersion());
+    expect(screen.queryByRole('button', { name: 'Approve' })).not.toBeInTheDocument();
+    expect(screen.getByRole('link', { name: 'Export version 1' })).toHaveAttribute(
+      'href',
+      `${versionUrl}/export`,
+    );
+  });
+
+  it('offers no export of a version without a model', async () => {
+    await openVersion(
+      'clinician',
+      profileVersion({ status: 'draft', metrics: null, error: 'Cancelled by Dr. Tomasz Reyes.' }),
+    );
+    expect(screen.queryByRole('link', { name: /Export/ })).not.toBeInTheDocument();
+    expect(screen.getByText('Cancelled by Dr. Tomasz Reyes.')).toBeInTheDocument();
+    expect(screen.getByRole('button', { name: 'Train' })).toBeInTheDocument();
+  });
+
+  it('checks an exported file and shows what it holds', async () => {
+    const { user, api } = await openVersion('clinician', profileVersion(), {
+      'POST /api/profile-exports/verify': {
+        body: {
+          valid: true,
+          checksum: 'b'.repeat(64),
+          header: { client: { pseudonym: 'R. Ashby' }, version: { number: 1, status: 'active' } },
+        },
+      },
+    });
+    await user.click(screen.getByRole('button', { name: 'Check file' }));
+    expect(await screen.findByText('Choose a file to check.')).toBeInTheDocument();
+    await user.upload(screen.getByLabelText('Exported profile file'), new File(['KLPF…'], 'ashby-v1.klp'));
+    await user.click(screen.getByRole('button', { name: 'Check file' }));
+    expect(await screen.findByText('The file is intact.')).toBeInTheDocument();
+    expect(screen.getByText('Client pseudonym').nextSibling).toHaveTextContent('R. Ashby');
+    expect(screen.getByText('Version number').nextSibling).toHaveTextContent('1');
+    const sent = api.requestsTo('POST /api/profile-exports/verify')[0]?.formData?.get('file');
+    expect(sent instanceof File ? sent.name : null).toBe('ashby-v1.klp');
+  });
+});

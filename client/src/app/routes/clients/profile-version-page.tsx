@@ -1,0 +1,163 @@
+import type { Role } from '@keyloom/shared';
+import { useState } from 'react';
+import { Link, useLocation, useParams } from 'react-router-dom';
+import { z } from 'zod';
+import { PageLoading } from '@/components/layout/page-loading';
+import { Alert } from '@/components/ui/alert';
+import { type Announcement, LiveRegion } from '@/components/ui/live-region';
+import { PageHeader } from '@/components/ui/page-header';
+import { clientPath } from '@/config/paths';
+import { useMe } from '@/features/auth/api/get-me';
+import { useClient } from '@/features/clients/api/get-client';
+import { useProfileVersion } from '@/features/profiles/api/get-profile-version';
+import { readReport } from '@/features/profiles/components/profile-report';
+import { ProfileStatusBadge } from '@/features/profiles/components/profile-status-badge';
+import { TrainingProgress } from '@/features/profiles/components/training-progress';
+import { VerifyExportPanel } from '@/features/profiles/components/verify-export-panel';
+import { VersionActions } from '@/features/profiles/components/version-actions';
+import { VersionHistory } from '@/features/profiles/components/version-history';
+import { VersionResults } from '@/features/profiles/components/version-results';
+import { formatDateTime } from '@/lib/format';
+
+// A message handed over by the page that navigated here (e.g. "Version 3 is training.").
+const handedOverSchema = z.object({
+  announcement: z.object({ tone: z.enum(['success', 'error']), text: z.string() }),
+});
+
+/** /clients/:clientId/profiles/:versionId — one version: status, progress, results and the next step. */
+export const ProfileVersionRoute = () => {
+  const { clientId = '', versionId = '' } = useParams();
+  const location = useLocation();
+  const me = useMe();
+  const client = useClient(clientId);
+  const version = useProfileVersion(versionId);
+  const [announcement, setAnnouncement] = useState<Announcement>(
+    () => handedOverSchema.safeParse(location.state).data?.announcement ?? null,
+  );
+  const announce = (tone: 'success' | 'error', text: string) => setAnnouncement({ tone, text });
+  const role: Role = me.data?.role ?? 'carer';
+  const back = (
+    <Link
+      to={clientPath(clientId, 'profiles')}
+      className="inline-flex min-h-11 items-center font-bold underline"
+    >
+      Back to the profile versions
+    </Link>
+  );
+
+  if (version.isPending) return <PageLoading />;
+  if (version.isError) {
+    return (
+      <>
+        <PageHeader title="Version not found" />
+        <div role="alert">
+          <Alert tone="error" title="This profile version could not be opened.">
+            <p>{version.error.message}</p>
+            {back}
+          </Alert>
+        </div>
+      </>
+    );
+  }
+
+  const data = version.data;
+  const report = readReport(data.metrics);
+  const pseudonym = client.data?.pseudonym ?? 'the client';
+  return (
+    <>
+      <PageHeader
+        title={`Version ${data.number} of ${pseudonym}’s profile`}
+        description={
+          <span className="flex flex-col gap-2">
+            <span className="flex flex-wrap items-center gap-3">
+              <ProfileStatusBadge status={data.status} />
+              <span>
+                Created {formatDateTime(data.createdAt)} by {data.createdBy}
+              </span>
+            </span>
+            {data.note && <span>{data.note}</span>}
+            {back}
+          </span>
+        }
+      />
+      <LiveRegion message={announcement} />
+      <div className="flex flex-col gap-10">
+        <VersionActions role={role} version={data} announce={announce} />
+
+        {data.status === 'training' && (
+          <section aria-labelledby="progress-heading" className="flex flex-col gap-3">
+            <h2 id="progress-heading" className="text-2xl font-bold">
+              Training
+            </h2>
+            <TrainingProgress version={data} />
+          </section>
+        )}
+        {data.status === 'failed' && (
+          <Alert tone="error" title="Training did not finish.">
+            <p>{data.error ?? 'No reason was recorded.'}</p>
+            {role === 'clinician' && (
+              <p>Retry training, or create a new version with other settings or samples.</p>
+            )}
+          </Alert>
+        )}
+        {data.status === 'draft' && (
+          <div className="flex max-w-3xl flex-col gap-2 text-lg">
+            <p>This version is configured but has not been trained yet.</p>
+            {/* e.g. "Cancelled by …" after a cancelled job. */}
+            {data.error && <p className="text-ink-soft">{data.error}</p>}
+          </div>
+        )}
+
+        {report && (
+          <section aria-labelledby="results-heading" className="flex flex-col gap-6">
+            <h2 id="results-heading" className="text-3xl font-bold">
+              Results
+            </h2>
+            <VersionResults report={report} />
+          </section>
+        )}
+        {!report && data.metrics && (
+          <Alert tone="error" title="The results of this version cannot be shown.">
+            <p>They are stored in a form this page does not recognise.</p>
+          </Alert>
+        )}
+
+        <section aria-labelledby="settings-heading" className="flex flex-col gap-3">
+          <h2 id="settings-heading" className="text-2xl font-bold">
+            Settings and samples
+          </h2>
+          <dl className="grid max-w-2xl grid-cols-[auto_1fr] gap-x-6 gap-y-1">
+            <dt className="font-bold">Context order</dt>
+            <dd>{data.settings.order}</dd>
+            <dt className="font-bold">Escape method</dt>
+            <dd>{data.settings.escape}</dd>
+            <dt className="font-bold">Exclusion</dt>
+            <dd>{data.settings.exclusion ? 'On' : 'Off'}</dd>
+            <dt className="font-bold">Weight of general English</dt>
+            <dd>{data.settings.baseWeight === 'auto' ? 'Automatic' : data.settings.baseWeight}</dd>
+            <dt className="font-bold">Suggestion slots</dt>
+            <dd>{data.settings.slots}</dd>
+            <dt className="font-bold">Capitals</dt>
+            <dd>{data.settings.caseFold ? 'Ignored' : 'Kept'}</dd>
+          </dl>
+          <ul aria-label="Samples in this version" className="list-disc pl-6">
+            {data.samples.map((sample) => (
+              <li key={sample.id}>
+                {sample.title} ({sample.characters.toLocaleString('en-GB')} characters)
+              </li>
+            ))}
+          </ul>
+        </section>
+
+        <section aria-labelledby="history-heading" className="flex flex-col gap-3">
+          <h2 id="history-heading" className="text-2xl font-bold">
+            History
+          </h2>
+          <VersionHistory history={data.history} />
+        </section>
+
+        {role !== 'carer' && <VerifyExportPanel />}
+      </div>
+    </>
+  );
+};

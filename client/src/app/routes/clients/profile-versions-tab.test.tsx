@@ -1,0 +1,217 @@
+import { screen, waitFor, within } from '@testing-library/react';
+import { describe, expect, it } from 'vitest';
+import {
+  profileVersion,
+  reportFixture,
+  VERSION_1_ID,
+  VERSION_2_ID,
+} from '@/features/profiles/testing/profile-data';
+import { ASHBY_ID, clientRecord, sampleSummary, sessionUser } from '@/testing/data';
+import { type MockRoutes, mockFetch } from '@/testing/mock-fetch';
+import { sessionRoutes } from '@/testing/mock-fetch';
+import { currentUrl, renderApp } from '@/testing/render-app';
+
+const base = `/api/clients/${ASHBY_ID}`;
+const DIARY_ID = '9c4d5e6f-7a8b-4c0d-9e2f-3a4b5c6d7e82';
+const LEFT_OUT_ID = '9c4d5e6f-7a8b-4c0d-9e2f-3a4b5c6d7e83';
+
+const samples = [
+  sampleSummary({ status: 'ready', characters: 14_000 }),
+  sampleSummary({ id: DIARY_ID, title: 'Diary, August', status: 'ready', characters: 10_180 }),
+  sampleSummary({ id: LEFT_OUT_ID, title: 'Old emails', status: 'excluded' }),
+];
+
+// A cell's value without the column name it shows when rows become cards on narrow screens.
+const cellValue = (cell: HTMLElement) => cell.lastChild?.textContent;
+
+const openTab = async (routes: MockRoutes = {}, role: 'clinician' | 'supervisor' | 'carer' = 'clinician') => {
+  const api = mockFetch({
+    ...sessionRoutes(sessionUser(role)),
+    [`GET ${base}`]: { body: clientRecord() },
+    [`GET ${base}/samples`]: { body: samples },
+    [`GET ${base}/profile-versions`]: { body: [] },
+    ...routes,
+  });
+  const app = renderApp(`/clients/${ASHBY_ID}/profiles`);
+  await screen.findByRole('heading', { level: 1, name: 'R. Ashby' });
+  return { ...app, api };
+};
+
+describe('Profile versions tab', () => {
+  it('lists versions with status and headline figures at their slots', async () => {
+    await openTab({
+      [`GET ${base}/profile-versions`]: {
+        body: [
+          profileVersion({ id: VERSION_2_ID, number: 2, status: 'training', progress: 0.4, metrics: null }),
+          profileVersion(),
+        ],
+      },
+    });
+    const table = within(await screen.findByRole('table', { name: 'Profile versions of R. Ashby' }));
+    const rows = table.getAllByRole('row').slice(1);
+    expect(rows[0]).toHaveTextContent('Version 2');
+    expect(rows[0]).toHaveTextContent('Training');
+    expect(rows[1]).toHaveTextContent('Ready for trial');
+    // bpcIdeal 2.412 and KS 0.367 at 5 slots in the fixture.
+    expect(rows[1]).toHaveTextContent('2.412');
+    expect(rows[1]).toHaveTextContent('36.7% at 5 slots');
+    expect(table.getByRole('link', { name: 'Version 1' })).toHaveAttribute(
+      'href',
+      `/clients/${ASHBY_ID}/profiles/${VERSION_1_ID}`,
+    );
+    // An untrained version cannot be compared.
+    expect(table.getByRole('checkbox', { name: 'Compare version 2' })).toBeDisabled();
+  });
+
+  it('opens the form with the defaults: every ready sample, order 5, method C, 5 slots, the client’s timing', async () => {
+    const { user } = await openTab();
+    await user.click(await screen.findByRole('button', { name: 'New version' }));
+    const form = within(screen.getByRole('form', { name: 'New profile version' }));
+    expect(form.getByRole('checkbox', { name: 'Messages to the sailing club' })).toBeChecked();
+    expect(form.getByRole('checkbox', { name: 'Diary, August' })).toBeChecked();
+    expect(form.queryByRole('checkbox', { name: 'Old emails' })).not.toBeInTheDocument();
+    expect(form.getByLabelText('Context order')).toHaveValue(5);
+    expect(form.getByLabelText('Escape method')).toHaveValue('C');
+    expect(form.getByLabelText('Escape method')).toHaveAccessibleDescription(/the usual default/);
+    expect(form.getByRole('checkbox', { name: 'Exclusion' })).toBeChecked();
+    expect(form.getByRole('checkbox', { name: 'Ignore capitals' })).not.toBeChecked();
+    expect(form.getByRole('radio', { name: /Automatic/ })).toBeChecked();
+    expect(form.getByLabelText('Suggestion slots')).toHaveValue(5);
+    // The demo client uses a head pointer: dwell is the timing, from the defaults (his record has none).
+    expect(form.getByLabelText('Access method for the speed estimate')).toHaveValue('head_pointer');
+    expect(form.getByLabelText('Dwell time (ms)')).toHaveValue(800);
+    expect(form.queryByLabelText('Scan interval (ms)')).not.toBeInTheDocument();
+  });
+
+  it('validates with the shared schema: order, slots, the weight and at least one sample', async () => {
+    const { user, api } = await openTab();
+    await user.click(await screen.findByRole('button', { name: 'New version' }));
+    const form = within(screen.getByRole('form', { name: 'New profile version' }));
+    await user.clear(form.getByLabelText('Context order'));
+    await user.type(form.getByLabelText('Context order'), '13');
+    await user.clear(form.getByLabelText('Suggestion slots'));
+    await user.type(form.getByLabelText('Suggestion slots'), '0');
+    await user.click(form.getByRole('radio', { name: 'A fixed value' }));
+    await user.clear(form.getByLabelText('Weight, 0 to 1'));
+    await user.type(form.getByLabelText('Weight, 0 to 1'), '1.5');
+    await user.click(form.getByRole('checkbox', { name: 'Messages to the sailing club' }));
+    await user.click(form.getByRole('checkbox', { name: 'Diary, August' }));
+    await user.click(form.getByRole('button', { name: 'Train this version' }));
+
+    expect(await form.findByText('Choose a context order from 1 to 12.')).toBeInTheDocument();
+    expect(form.getByText('Choose 1 to 10 suggestion slots.')).toBeInTheDocument();
+    expect(form.getByText('Enter a base-model weight from 0 to 1, or choose automatic.')).toBeInTheDocument();
+    expect(form.getByText('Choose at least one sample.')).toBeInTheDocument();
+    expect(form.getByLabelText('Context order')).toHaveAttribute('aria-invalid', 'true');
+    expect(api.requestsTo(`POST ${base}/profile-versions`)).toHaveLength(0);
+  });
+
+  it('creates the version with the chosen settings, starts training and opens its page', async () => {
+    const created = profileVersion({
+      id: VERSION_2_ID,
+      number: 2,
+      status: 'draft',
+      progress: 0,
+      metrics: null,
+    });
+    const training = { ...created, status: 'training' as const, stage: 'queued' };
+    const { user, api, router } = await openTab({
+      [`POST ${base}/profile-versions`]: { status: 201, body: created },
+      [`POST /api/profile-versions/${VERSION_2_ID}/train`]: { body: training },
+      [`GET /api/profile-versions/${VERSION_2_ID}`]: {
+        body: { ...training, progress: 0.1, stage: 'preparing' },
+      },
+    });
+    await user.click(await screen.findByRole('button', { name: 'New version' }));
+    const form = within(screen.getByRole('form', { name: 'New profile version' }));
+    await user.click(form.getByRole('checkbox', { name: 'Diary, August' }));
+    await user.clear(form.getByLabelText('Context order'));
+    await user.type(form.getByLabelText('Context order'), '6');
+    await user.selectOptions(form.getByLabelText('Escape method'), 'D');
+    await user.click(form.getByRole('radio', { name: 'A fixed value' }));
+    await user.clear(form.getByLabelText('Weight, 0 to 1'));
+    await user.type(form.getByLabelText('Weight, 0 to 1'), '0.25');
+    await user.click(form.getByRole('button', { name: 'Train this version' }));
+
+    await waitFor(() => expect(currentUrl(router)).toBe(`/clients/${ASHBY_ID}/profiles/${VERSION_2_ID}`));
+    expect(api.requestsTo(`POST ${base}/profile-versions`)[0]?.body).toEqual({
+      sampleIds: [samples[0]?.id],
+      settings: {
+        order: 6,
+        escape: 'D',
+        exclusion: true,
+        baseWeight: 0.25,
+        slots: 5,
+        caseFold: false,
+        access: { method: 'head_pointer', dwellMs: 800 },
+      },
+    });
+    expect(api.requestsTo(`POST /api/profile-versions/${VERSION_2_ID}/train`)).toHaveLength(1);
+    // The version's page says so in its live region, and shows the progress bar.
+    expect(await screen.findByText('Version 2 is training.')).toBeInTheDocument();
+    await waitFor(() => expect(screen.getByRole('progressbar')).toHaveAttribute('aria-valuenow', '10'));
+  });
+
+  it('sends a list of sample ids even when only one sample is ready', async () => {
+    const created = profileVersion({
+      id: VERSION_2_ID,
+      number: 2,
+      status: 'draft',
+      progress: 0,
+      metrics: null,
+    });
+    const { user, api } = await openTab({
+      [`GET ${base}/samples`]: { body: [sampleSummary({ status: 'ready' })] },
+      [`POST ${base}/profile-versions`]: { status: 201, body: created },
+      [`POST /api/profile-versions/${VERSION_2_ID}/train`]: { body: { ...created, status: 'training' } },
+      [`GET /api/profile-versions/${VERSION_2_ID}`]: { body: { ...created, status: 'training' } },
+    });
+    await user.click(await screen.findByRole('button', { name: 'New version' }));
+    await user.click(screen.getByRole('button', { name: 'Train this version' }));
+    await waitFor(() => expect(api.requestsTo(`POST ${base}/profile-versions`)).toHaveLength(1));
+    expect(api.requestsTo(`POST ${base}/profile-versions`)[0]?.body).toMatchObject({
+      sampleIds: [samples[0]?.id],
+    });
+  });
+
+  it('compares two ticked versions in a table with the base model alone and one chart series per version', async () => {
+    const second = profileVersion({
+      id: VERSION_2_ID,
+      number: 2,
+      metrics: reportFixture({ order: 6, bpcIdeal: 2.301 }),
+    });
+    const { user, router } = await openTab({
+      [`GET ${base}/profile-versions`]: { body: [second, profileVersion()] },
+      [`GET /api/profile-versions/${VERSION_1_ID}`]: { body: profileVersion() },
+      [`GET /api/profile-versions/${VERSION_2_ID}`]: { body: second },
+    });
+    const compare = await screen.findByRole('button', { name: 'Compare selected' });
+    expect(compare).toBeDisabled();
+    await user.click(screen.getByRole('checkbox', { name: 'Compare version 2' }));
+    await user.click(screen.getByRole('checkbox', { name: 'Compare version 1' }));
+    await user.click(screen.getByRole('button', { name: 'Compare 2 versions' }));
+    await waitFor(() =>
+      expect(currentUrl(router)).toBe(
+        `/clients/${ASHBY_ID}/profiles/compare?ids=${VERSION_2_ID},${VERSION_1_ID}`,
+      ),
+    );
+
+    const table = within(await screen.findByRole('table', { name: 'Versions compared' }));
+    const headers = table.getAllByRole('columnheader').map((cell) => cell.textContent);
+    expect(headers).toEqual(['Measure', 'Version 2', 'Version 1', 'General English alone']);
+    const bpc = table.getByRole('row', { name: /Bits per character \(ideal\)/ });
+    expect(within(bpc).getAllByRole('cell').map(cellValue)).toEqual(['2.301', '2.412', '2.980']);
+    const order = table.getByRole('row', { name: /Context order/ });
+    expect(within(order).getAllByRole('cell').map(cellValue)).toEqual(['6', '5', '—']);
+
+    // The chart's text alternative: one column per series, a row per list size.
+    const figures = within(screen.getByRole('table', { name: /by version: the figures/ }));
+    expect(figures.getAllByRole('columnheader').map((cell) => cell.textContent)).toEqual([
+      'Slots',
+      'Version 2',
+      'Version 1',
+      'General English alone',
+    ]);
+    expect(figures.getAllByRole('row')).toHaveLength(11);
+  });
+});

@@ -1,0 +1,140 @@
+import { redactionToken, type SampleDetail } from '@keyloom/shared';
+import { screen, waitFor, within } from '@testing-library/react';
+import { describe, expect, it } from 'vitest';
+import { ASHBY_ID, SAMPLE_ID, sampleDetail, sampleSummary, sessionUser } from '@/testing/data';
+import { type MockRoutes, mockFetch, sessionRoutes } from '@/testing/mock-fetch';
+import { renderApp } from '@/testing/render-app';
+
+const sample = sampleDetail();
+const [phone, email] = sample.flags;
+if (!phone || !email) throw new Error('The fixture has two flags.');
+
+const openSample = async (role: 'clinician' | 'supervisor' = 'clinician', routes: MockRoutes = {}) => {
+  const api = mockFetch({
+    ...sessionRoutes(sessionUser(role)),
+    [`GET /api/samples/${SAMPLE_ID}`]: { body: sample },
+    ...routes,
+  });
+  const app = renderApp(`/clients/${ASHBY_ID}/samples/${SAMPLE_ID}`);
+  await screen.findByRole('heading', { level: 1, name: 'Messages to the sailing club' });
+  return { ...app, api };
+};
+
+// What the API answers after redacting the phone number: the span is replaced by the token.
+const afterRedaction = (): SampleDetail => {
+  const token = redactionToken('phone');
+  const text = sample.text.slice(0, phone.start) + token + sample.text.slice(phone.end);
+  const shift = token.length - (phone.end - phone.start);
+  return {
+    ...sample,
+    text,
+    openFlags: 1,
+    flags: [
+      {
+        ...phone,
+        end: phone.start + token.length,
+        text: null,
+        status: 'redacted',
+        decidedBy: 'Dr. Tomasz Reyes',
+        decidedAt: '2026-09-16T09:00:00.000Z',
+      },
+      { ...email, start: email.start + shift, end: email.end + shift },
+    ],
+  };
+};
+
+describe('Sample page', () => {
+  it('shows the statistics and the client’s own words', async () => {
+    await openSample();
+    const figures = screen.getAllByRole('definition').map((item) => item.textContent);
+    expect(figures).toEqual(['96', '18', '17']);
+    const top = screen.getByRole('heading', { name: 'Most frequent words' })
+      .nextElementSibling as HTMLElement;
+    expect(
+      within(top)
+        .getAllByRole('listitem')
+        .map((item) => item.textContent),
+    ).toEqual(['the ×1', 'race ×1']);
+    expect(screen.getByRole('heading', { name: 'The client’s own words (1)' })).toBeInTheDocument();
+    expect(screen.getByText('Pepper')).toBeInTheDocument();
+  });
+
+  it('marks each flag in the text as a button that leads to its decision', async () => {
+    const { user } = await openSample();
+    const mark = screen.getByRole('button', { name: /^Phone number, to review: ?07700 900123$/ });
+    expect(mark.closest('mark')).not.toBeNull();
+    await user.click(mark);
+    expect(screen.getByRole('article', { name: 'Phone number: 07700 900123' })).toHaveFocus();
+  });
+
+  it('redacts a flag, shows the placeholder and announces it', async () => {
+    const { user, api } = await openSample('clinician', {
+      [`POST /api/samples/${SAMPLE_ID}/flags/${phone.id}`]: { body: afterRedaction() },
+    });
+    await user.click(screen.getByRole('button', { name: 'Redact phone number 07700 900123' }));
+    await waitFor(() =>
+      expect(screen.getByRole('status')).toHaveTextContent(
+        `Redacted the phone number; the text now reads ${redactionToken('phone')} there.`,
+      ),
+    );
+    expect(api.requestsTo(`POST /api/samples/${SAMPLE_ID}/flags/${phone.id}`)[0]?.body).toEqual({
+      action: 'redact',
+      reason: null,
+    });
+    expect(screen.queryByRole('button', { name: /Phone number, to review/ })).not.toBeInTheDocument();
+    expect(screen.getByText('1 flag still to review.')).toBeInTheDocument();
+  });
+
+  it('keeps a flag only with a reason', async () => {
+    const kept = {
+      ...sample,
+      flags: [phone, { ...email, status: 'kept' as const, reason: 'The club’s public address.' }],
+    };
+    const { user, api } = await openSample('clinician', {
+      [`POST /api/samples/${SAMPLE_ID}/flags/${email.id}`]: { body: kept },
+    });
+    await user.click(screen.getByRole('button', { name: 'Keep e-mail address rob@harbour.example' }));
+    const form = within(await screen.findByRole('dialog', { name: 'Keep this in the text?' }));
+    await user.click(form.getByRole('button', { name: 'Keep it' }));
+    // Message from flagDecisionSchema (shared/src/schemas/samples.schema.ts).
+    expect(await form.findByText('Say why this stays in the text.')).toBeInTheDocument();
+    expect(api.requestsTo(`POST /api/samples/${SAMPLE_ID}/flags/${email.id}`)).toHaveLength(0);
+
+    await user.type(form.getByLabelText('Reason for keeping it'), 'The club’s public address.');
+    await user.click(form.getByRole('button', { name: 'Keep it' }));
+    await waitFor(() =>
+      expect(screen.getByRole('status')).toHaveTextContent('Kept the e-mail address with your reason.'),
+    );
+    expect(api.requestsTo(`POST /api/samples/${SAMPLE_ID}/flags/${email.id}`)[0]?.body).toEqual({
+      action: 'keep',
+      reason: 'The club’s public address.',
+    });
+    expect(screen.getByText('Reason: The club’s public address.')).toBeInTheDocument();
+  });
+
+  it('leaves a sample out only with a reason', async () => {
+    const { user, api } = await openSample('clinician', {
+      [`POST /api/samples/${SAMPLE_ID}/exclude`]: {
+        body: sampleSummary({ status: 'excluded', excludedReason: 'Written by his sister.' }),
+      },
+    });
+    await user.click(screen.getByRole('button', { name: 'Leave out this sample' }));
+    const form = within(await screen.findByRole('dialog'));
+    await user.click(form.getByRole('button', { name: 'Leave out this sample' }));
+    expect(await form.findByText('Say why the sample is left out.')).toBeInTheDocument();
+    await user.type(form.getByLabelText('Reason for leaving it out'), 'Written by his sister.');
+    await user.click(form.getByRole('button', { name: 'Leave out this sample' }));
+    await waitFor(() => expect(screen.getByRole('status')).toHaveTextContent('is left out.'));
+    expect(api.requestsTo(`POST /api/samples/${SAMPLE_ID}/exclude`)[0]?.body).toEqual({
+      reason: 'Written by his sister.',
+    });
+  });
+
+  it('gives a supervisor the text and flags without decision buttons', async () => {
+    await openSample('supervisor');
+    expect(screen.getByRole('article', { name: 'Phone number: 07700 900123' })).toBeInTheDocument();
+    expect(screen.queryByRole('button', { name: /^Redact/ })).not.toBeInTheDocument();
+    expect(screen.queryByRole('button', { name: /^Keep/ })).not.toBeInTheDocument();
+    expect(screen.queryByRole('button', { name: 'Leave out this sample' })).not.toBeInTheDocument();
+  });
+});

@@ -1,0 +1,111 @@
+import { sourceKindLabels } from '@keyloom/shared';
+import { useState } from 'react';
+import { Link, useParams } from 'react-router-dom';
+import { PageLoading } from '@/components/layout/page-loading';
+import { Alert } from '@/components/ui/alert';
+import { Button } from '@/components/ui/button';
+import { type Announcement, LiveRegion } from '@/components/ui/live-region';
+import { PageHeader } from '@/components/ui/page-header';
+import { clientPath } from '@/config/paths';
+import { useMe } from '@/features/auth/api/get-me';
+import { useSample } from '@/features/samples/api/get-sample';
+import { ExcludeSampleDialog } from '@/features/samples/components/exclude-sample-dialog';
+import { FlagReview } from '@/features/samples/components/flag-review';
+import { SampleStatistics } from '@/features/samples/components/sample-statistics';
+import { SampleStatusBadge } from '@/features/samples/components/sample-status-badge';
+
+/** /clients/:clientId/samples/:sampleId — statistics, the text and its personal-data flags. */
+export const SampleRoute = () => {
+  const { clientId = '', sampleId = '' } = useParams();
+  const me = useMe();
+  const sample = useSample(sampleId);
+  const [excluding, setExcluding] = useState(false);
+  const [announcement, setAnnouncement] = useState<Announcement>(null);
+  const announce = (tone: 'success' | 'error', text: string) => setAnnouncement({ tone, text });
+  const canEdit = me.data?.role === 'clinician';
+  const back = (
+    <Link
+      to={clientPath(clientId, 'samples')}
+      className="inline-flex min-h-11 items-center font-bold underline"
+    >
+      Back to the writing samples
+    </Link>
+  );
+
+  if (sample.isPending) return <PageLoading />;
+  if (sample.isError) {
+    return (
+      <>
+        <PageHeader title="Sample not found" />
+        <div role="alert">
+          <Alert tone="error" title="This sample could not be opened.">
+            <p>{sample.error.message}</p>
+            {back}
+          </Alert>
+        </div>
+      </>
+    );
+  }
+
+  const data = sample.data;
+  return (
+    <>
+      <PageHeader
+        title={data.title}
+        description={
+          <span className="flex flex-col gap-2">
+            <span className="flex flex-wrap items-center gap-3">
+              <SampleStatusBadge status={data.status} />
+              <span>
+                {sourceKindLabels[data.sourceKind]}
+                {data.fileName ? ` · ${data.fileName}` : ''} · {data.encoding}
+              </span>
+            </span>
+            {back}
+          </span>
+        }
+        actions={
+          canEdit && data.status !== 'excluded' ? (
+            <Button variant="danger" onClick={() => setExcluding(true)}>
+              Leave out this sample
+            </Button>
+          ) : undefined
+        }
+      />
+      <LiveRegion message={announcement} />
+      {data.status === 'excluded' && (
+        <Alert tone="info" title="This sample is left out." className="mb-6">
+          <p>
+            It is never used to train or measure a model.
+            {data.excludedReason ? ` Reason: ${data.excludedReason}` : ''}
+          </p>
+        </Alert>
+      )}
+      <div className="flex flex-col gap-10">
+        <section aria-labelledby="stats-heading" className="flex flex-col gap-4">
+          <h2 id="stats-heading" className="text-2xl font-bold">
+            Size and vocabulary
+          </h2>
+          <SampleStatistics sample={data} />
+        </section>
+        <section aria-labelledby="review-heading" className="flex flex-col gap-4">
+          <h2 id="review-heading" className="text-2xl font-bold">
+            Personal data review
+          </h2>
+          <FlagReview sample={data} canEdit={canEdit} announce={announce} />
+        </section>
+      </div>
+      {canEdit && (
+        <ExcludeSampleDialog
+          open={excluding}
+          sample={data}
+          onClose={() => setExcluding(false)}
+          onExcluded={(excluded) => {
+            setExcluding(false);
+            announce('success', `“${excluded.title}” is left out.`);
+          }}
+        />
+      )}
+    </>
+  );
+};

@@ -1,0 +1,21 @@
+import { type Client, type UpdateClientInput, clientSchema } from '@keyloom/shared';
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { apiRequest } from '@/lib/api-client';
+
+export type UpdateClientVariables = { clientId: string; changes: UpdateClientInput };
+
+/** Changes a client's record (owning clinician only). */
+export const updateClient = ({ clientId, changes }: UpdateClientVariables): Promise<Client> =>
+  apiRequest(`/clients/${encodeURIComponent(clientId)}`, {
+    method: 'PATCH',
+    body: changes,
+    schema: clientSchema,
+  });
+
+export const useUpdateClient = () => {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: updateClient,
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: ['clients'] }),
+  });
+};

@@ -1,0 +1,141 @@
+import type { Consent, Contact } from '@keyloom/shared';
+import { useState } from 'react';
+import { PageLoading } from '@/components/layout/page-loading';
+import { Button } from '@/components/ui/button';
+import { EmptyState } from '@/components/ui/empty-state';
+import { LoadError } from '@/components/ui/load-error';
+import { useConsents } from '../api/get-consents';
+import { useContacts } from '../api/get-contacts';
+import { ConsentRecords } from './consent-records';
+import { ContactDialog } from './contact-dialog';
+import { ContactsTable } from './contacts-table';
+import { RecordConsentDialog } from './record-consent-dialog';
+import { WithdrawConsentDialog } from './withdraw-consent-dialog';
+
+type ConsentPanelProps = {
+  clientId: string;
+  pseudonym: string;
+  sampleCount: number;
+  /** Owning clinician; supervisors read only. */
+  canEdit: boolean;
+  announce: (tone: 'success' | 'error', text: string) => void;
+};
+
+/** The "Consent & family" tab: consent records, withdrawal, scanned forms and family contacts. */
+export const ConsentPanel = ({ clientId, pseudonym, sampleCount, canEdit, announce }: ConsentPanelProps) => {
+  const consents = useConsents(clientId);
+  const contacts = useContacts(clientId);
+  const [recording, setRecording] = useState(false);
+  const [withdrawing, setWithdrawing] = useState<Consent | null>(null);
+  const [editingContact, setEditingContact] = useState<Contact | 'new' | null>(null);
+
+  return (
+    <div className="flex flex-col gap-10">
+      <section aria-labelledby="consent-heading" className="flex flex-col gap-4">
+        <div className="flex flex-wrap items-center justify-between gap-3">
+          <h3 id="consent-heading" className="text-2xl font-bold">
+            Consent records
+          </h3>
+          {canEdit && (
+            <Button variant="primary" onClick={() => setRecording(true)}>
+              Record consent
+            </Button>
+          )}
+        </div>
+        <p className="max-w-3xl text-ink-soft">
+          Writing can be uploaded, and a model trained, only while a consent for model training is active. A
+          withdrawal deletes the client’s language samples and everything trained from them.
+        </p>
+        {consents.isPending && <PageLoading />}
+        {consents.isError && (
+          <LoadError
+            title="The consent records could not be loaded."
+            error={consents.error}
+            onRetry={() => void consents.refetch()}
+          />
+        )}
+        {consents.isSuccess && consents.data.length === 0 && (
+          <EmptyState title="No consent recorded yet.">
+            {canEdit
+              ? 'Record the consent from the signed form before uploading any writing.'
+              : 'The clinician has not recorded consent yet.'}
+          </EmptyState>
+        )}
+        {consents.isSuccess && consents.data.length > 0 && (
+          <ConsentRecords
+            clientId={clientId}
+            consents={consents.data}
+            canEdit={canEdit}
+            onWithdraw={setWithdrawing}
+            onChanged={(message) => announce('success', message)}
+          />
+        )}
+      </section>
+
+      <section aria-labelledby="contacts-heading" className="flex flex-col gap-4">
+        <div className="flex flex-wrap items-center justify-between gap-3">
+          <h3 id="contacts-heading" className="text-2xl font-bold">
+            Family contacts
+          </h3>
+          {canEdit && <Button onClick={() => setEditingContact('new')}>Add family contact</Button>}
+        </div>
+        {contacts.isPending && <PageLoading />}
+        {contacts.isError && (
+          <LoadError
+            title="The family contacts could not be loaded."
+            error={contacts.error}
+            onRetry={() => void contacts.refetch()}
+          />
+        )}
+        {contacts.isSuccess && contacts.data.length === 0 && (
+          <EmptyState title="No family contacts yet.">
+            People who may receive progress summaries are listed here once added.
+          </EmptyState>
+        )}
+        {contacts.isSuccess && contacts.data.length > 0 && (
+          <ContactsTable contacts={contacts.data} canEdit={canEdit} onEdit={setEditingContact} />
+        )}
+      </section>
+
+      {canEdit && (
+        <>
+          <RecordConsentDialog
+            open={recording}
+            clientId={clientId}
+            pseudonym={pseudonym}
+            onClose={() => setRecording(false)}
+            onRecorded={(consent) => {
+              setRecording(false);
+              announce('success', `Consent given on ${consent.givenOn} is recorded.`);
+            }}
+          />
+          <WithdrawConsentDialog
+            clientId={clientId}
+            pseudonym={pseudonym}
+            sampleCount={sampleCount}
+            consent={withdrawing}
+            onClose={() => setWithdrawing(null)}
+            onWithdrawn={(consent) => {
+              setWithdrawing(null);
+              const deleted = consent.withdrawal?.samplesDeleted ?? 0;
+              announce(
+                'success',
+                `Consent withdrawn. ${deleted} language sample${deleted === 1 ? ' was' : 's were'} deleted.`,
+              );
+            }}
+          />
+          <ContactDialog
+            open={editingContact !== null}
+            clientId={clientId}
+            contact={editingContact === 'new' || editingContact === null ? undefined : editingContact}
+            onClose={() => setEditingContact(null)}
+            onSaved={(contact) => {
+              setEditingContact(null);
+              announce('success', `Saved ${contact.name}.`);
+            }}
+          />
+        </>
+      )}
+    </div>
+  );
+};

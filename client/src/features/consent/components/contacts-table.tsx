@@ -1,0 +1,61 @@
+import type { Contact } from '@keyloom/shared';
+import { Badge } from '@/components/ui/badge';
+import { Button } from '@/components/ui/button';
+import {
+  ColumnHeader,
+  RowHeader,
+  Table,
+  TableBody,
+  TableCell,
+  TableHead,
+  TableRow,
+} from '@/components/ui/table';
+
+type ContactsTableProps = {
+  contacts: readonly Contact[];
+  canEdit: boolean;
+  onEdit: (contact: Contact) => void;
+};
+
+const summariesBadge = (contact: Contact) => {
+  if (contact.unsubscribedAt) return <Badge tone="warn">Stopped them</Badge>;
+  return contact.consentToSummaries ? <Badge tone="good">Yes</Badge> : <Badge tone="neutral">No</Badge>;
+};
+
+/** The client's family contacts and whether each receives summaries. */
+export const ContactsTable = ({ contacts, canEdit, onEdit }: ContactsTableProps) => (
+  <Table caption={`Family contacts (${contacts.length})`}>
+    <TableHead>
+      <ColumnHeader>Name</ColumnHeader>
+      <ColumnHeader>Relationship</ColumnHeader>
+      <ColumnHeader>E-mail</ColumnHeader>
+      <ColumnHeader>Receives summaries</ColumnHeader>
+      {canEdit && <ColumnHeader>Change</ColumnHeader>}
+    </TableHead>
+    <TableBody>
+      {[...contacts]
+        .sort((a, b) => a.name.localeCompare(b.name, 'en'))
+        .map((contact) => (
+          <TableRow key={contact.id}>
+            <RowHeader label="Name">{contact.name}</RowHeader>
+            <TableCell label="Relationship">{contact.relationship}</TableCell>
+            <TableCell label="E-mail" className="break-all">
+              {contact.email}
+            </TableCell>
+            <TableCell label="Receives summaries">{summariesBadge(contact)}</TableCell>
+            {canEdit && (
+              <TableCell label="Change">
+                <Button
+                  className="self-start"
+                  onClick={() => onEdit(contact)}
+                  aria-label={`Edit ${contact.name}`}
+                >
+                  Edit
+                </Button>
+              </TableCell>
+            )}
+          </TableRow>
+        ))}
+    </TableBody>
+  </Table>
+);

@@ -1,0 +1,21 @@
+import { type ProfileVersion, profileVersionSchema } from '@keyloom/shared';
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { apiRequest } from '@/lib/api-client';
+
+/** Asks the running training job to stop; nothing half-made is kept. */
+export const cancelProfileVersion = (versionId: string): Promise<ProfileVersion> =>
+  apiRequest(`/profile-versions/${encodeURIComponent(versionId)}/cancel`, {
+    method: 'POST',
+    schema: profileVersionSchema,
+  });
+
+export const useCancelProfileVersion = () => {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: cancelProfileVersion,
+    onSuccess: (version) => {
+      queryClient.setQueryData(['profile-versions', 'detail', version.id], version);
+      return queryClient.invalidateQueries({ queryKey: ['profile-versions'] });
+    },
+  });
+};

@@ -1,0 +1,117 @@
+import type { ProfileVersion } from '@keyloom/shared';
+import {
+  ColumnHeader,
+  RowHeader,
+  Table,
+  TableBody,
+  TableCell,
+  TableHead,
+  TableRow,
+} from '@/components/ui/table';
+import {
+  atSlots,
+  count,
+  fixed,
+  percent,
+  type ProfileReportView,
+  readReport,
+  type SlotSeries,
+} from './profile-report';
+import { SlotsChart } from './slots-chart';
+
+type Column = { name: string; report: ProfileReportView | null; base: boolean };
+
+type MetricRow = { label: string; value: (report: ProfileReportView, base: boolean) => string };
+
+// The base model alone has bits and keystroke figures only; the rest shows "—" in its column.
+const rows = (slots: number): MetricRow[] => [
+  { label: 'Characters of text', value: (r, base) => (base ? '—' : count(r.chars)) },
+  { label: 'Context order', value: (r, base) => (base ? '—' : String(r.order)) },
+  { label: 'Escape method', value: (r, base) => (base ? '—' : r.escape) },
+  { label: 'Weight of general English', value: (r, base) => (base ? '1.00' : fixed(r.baseWeight, 2)) },
+  {
+    label: 'Bits per character (ideal)',
+    value: (r, base) => (base ? fixed(r.baseOnly?.bpcIdeal ?? null, 3) : fixed(r.bpcIdeal, 3)),
+  },
+  { label: 'Bits per character (coded)', value: (r, base) => (base ? '—' : fixed(r.bpcCoded, 3)) },
+  {
+    label: `Keystroke savings at ${slots} slots`,
+    value: (r, base) =>
+      percent(atSlots(base ? (r.baseOnly?.keystrokeSavings ?? {}) : r.keystrokeSavings, slots)),
+  },
+  {
+    label: `Keystrokes per character at ${slots} slots`,
+    value: (r, base) => fixed(atSlots(base ? (r.baseOnly?.kspc ?? {}) : r.kspc, slots), 3),
+  },
+  {
+    label: 'Scan steps per character, model-ordered',
+    value: (r, base) => (base ? '—' : fixed(r.scanStepsPerChar.modelOrdered, 2)),
+  },
+  {
+    label: 'Words per minute without suggestions',
+    value: (r, base) => (base ? '—' : fixed(r.rates.wpmWithout, 1)),
+  },
+  {
+    label: 'Words per minute with suggestions',
+    value: (r, base) => (base ? '—' : fixed(r.rates.wpmWith, 1)),
+  },
+];
+
+/**
+ * Two or more versions side by side, with the general English model alone (measured on the first
+ * version's held-out text) as the last column, and keystroke savings by list size as one chart.
+ */
+export const CompareView = ({ versions }: { versions: readonly ProfileVersion[] }) => {
+  const columns: Column[] = versions.map((version) => ({
+    name: `Version ${version.number}`,
+    report: readReport(version.metrics),
+    base: false,
+  }));
+  const first = columns.find((column) => column.report?.baseOnly);
+  if (first) columns.push({ name: 'General English alone', report: first.report, base: true });
+  const slots = versions[0]?.settings.slots ?? 5;
+  const series: SlotSeries[] = columns.flatMap((column) => {
+    if (!column.report) return [];
+    const values = column.base ? column.report.baseOnly?.keystrokeSavings : column.report.keystrokeSavings;
+    return values ? [{ name: column.name, values }] : [];
+  });
+
+  return (
+    <div className="flex flex-col gap-10">
+      <Table caption="Versions compared">
+        <TableHead>
+          <ColumnHeader>Measure</ColumnHeader>
+          {columns.map((column) => (
+            <ColumnHeader key={column.name}>{column.name}</ColumnHeader>
+          ))}
+        </TableHead>
+        <TableBody>
+          {rows(slots).map((row) => (
+            <TableRow key={row.label}>
+              <RowHeader label="Measure">{row.label}</RowHeader>
+              {columns.map((column) => (
+                <TableCell key={column.name} label={column.name}>
+                  {column.report ? row.value(column.report, column.base) : 'Not trained'}
+                </TableCell>
+              ))}
+            </TableRow>
+          ))}
+        </TableBody>
+      </Table>
+      {first && (
+        <p className="max-w-3xl text-ink-soft">
+          The general English model alone was measured on {first.name.toLowerCase()}’s held-out text; each
+          version is measured on its own samples, so compare versions trained on the same samples where you
+          can.
+        </p>
+      )}
+      {series.length > 0 && (
+        <SlotsChart
+          title="Keystroke savings for 1 to 10 suggestion slots, by version"
+          series={series}
+          kind="savings"
+        />
+      )}
+    </div>
+  );
+};

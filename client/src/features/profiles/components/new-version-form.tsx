@@ -1,0 +1,292 @@
+import {
+  type AccessMethod,
+  accessMethodLabels,
+  createProfileVersionSchema,
+  defaultAccessTiming,
+  escapeMethods,
+  type ProfileVersion,
+} from '@keyloom/shared';
+import { useId, useState } from 'react';
+import type { FieldError as FormFieldError } from 'react-hook-form';
+import { Button } from '@/components/ui/button';
+import { CheckboxField } from '@/components/ui/checkbox-field';
+import { FieldError } from '@/components/ui/field-message';
+import { Form, FormServerError } from '@/components/ui/form';
+import { SelectField } from '@/components/ui/select-field';
+import { TextField } from '@/components/ui/text-field';
+import { useCreateProfileVersion } from '../api/create-profile-version';
+import { useTrainProfileVersion } from '../api/train-profile-version';
+import { escapeExplanations } from './profile-words';
+
+/** A sample that can go into a version (the ready ones; the page passes them). */
+export type TrainableSample = { id: string; title: string; characters: number };
+
+/** The client's access method and timings: the defaults of the version's estimates. */
+export type AccessDefaults = {
+  method: AccessMethod;
+  scanIntervalMs: number | null;
+  dwellMs: number | null;
+  keyTimeMs: number | null;
+};
+
+// Which timing each access method uses for the speed estimate (the others are not shown).
+const timingFields: Record<AccessMethod, readonly ('scanIntervalMs' | 'dwellMs' | 'keyTimeMs')[]> = {
+  direct: ['keyTimeMs'],
+  switch: ['scanIntervalMs'],
+  eye_gaze: ['dwellMs'],
+  head_pointer: ['dwellMs'],
+  other: ['scanIntervalMs', 'dwellMs', 'keyTimeMs'],
+};
+const timingLabels = {
+  scanIntervalMs: 'Scan interval (ms)',
+  dwellMs: 'Dwell time (ms)',
+  keyTimeMs: 'Time per key (ms)',
+} as const;
+
+// Empty number boxes become undefined (the schema's default, or "not set"), never 0.
+const optionalNumber = (value: unknown) => (value === '' || value === null ? undefined : value);
+// An empty weight box must not slip through as 0: NaN fails the schema with its message.
+const requiredNumber = (value: unknown) => (value === '' ? Number.NaN : value);
+
+// Fields whose input type is loose (coerced numbers) get merged error types; keep the message only.
+const messageOf = (error: { message?: string } | undefined): FormFieldError | undefined =>
+  error?.message ? { type: 'validate', message: error.message } : undefined;
+
+/** One sample's checkbox, its size under the title. */
+const SampleCheckbox = ({
+  sample,
+  checked,
+  onChange,
+}: {
+  sample: TrainableSample;
+  checked: boolean;
+  onChange: (checked: boolean) => void;
+}) => {
+  const id = useId();
+  return (
+    <div className="flex items-start gap-3">
+      <input
+        id={id}
+        type="checkbox"
+        aria-describedby={`${id}-size`}
+        className="mt-1 size-6 shrink-0 accent-ink"
+        checked={checked}
+        onChange={(event) => onChange(event.target.checked)}
+      />
+      <div>
+        <label htmlFor={id} className="font-bold">
+          {sample.title}
+        </label>
+        <p id={`${id}-size`} className="text-ink-soft">
+          {sample.characters.toLocaleString('en-GB')} characters
+        </p>
+      </div>
+    </div>
+  );
+};
+
+type NewVersionFormProps = {
+  clientId: string;
+  samples: readonly TrainableSample[];
+  access: AccessDefaults;
+  onCancel: () => void;
+  /** Called with the version once it is created and its training has been asked for. */
+  onStarted: (version: ProfileVersion, trainError: string | null) => void;
+};
+
+/** The settings of a new profile version, validated by the shared schema; submitting creates and trains it. */
+export const NewVersionForm = ({ clientId, samples, access, onCancel, onStarted }: NewVersionFormProps) => {
+  const create = useCreateProfileVersion();
+  const train = useTrainProfileVersion();
+  const [weightMode, setWeightMode] = useState<'auto' | 'fixed'>('auto');
+
+  return (
+    <Form
+      schema={createProfileVersionSchema}
+      aria-label="New profile version"
+      defaultValues={{
+        sampleIds: samples.map((sample) => sample.id),
+        note: '',
+        settings: {
+          order: 5,
+          escape: 'C',
+          exclusion: true,
+          baseWeight: 'auto',
+          slots: 5,
+          caseFold: false,
+          access: {
+            method: access.method,
+            scanIntervalMs: access.scanIntervalMs ?? defaultAccessTiming.scanIntervalMs,
+            dwellMs: access.dwellMs ?? defaultAccessTiming.dwellMs,
+            keyTimeMs: access.keyTimeMs ?? defaultAccessTiming.keyTimeMs,
+          },
+        },
+      }}
+      onSubmit={async (input) => {
+        // Only the timing the chosen access method uses is sent (the other boxes were hidden).
+        const chosen = input.settings.access;
+        const access = chosen && {
+          method: chosen.method,
+          ...Object.fromEntries(timingFields[chosen.method].map((field) => [field, chosen[field]])),
+        };
+        const version = await create.mutateAsync({
+          clientId,
+          input: { ...input, settings: { ...input.settings, access }, note: input.note || undefined },
+        });
+        try {
+          onStarted(await train.mutateAsync(version.id), null);
+        } catch (error) {
+          // The draft is saved; its page offers Train again and says what went wrong.
+          onStarted(version, error instanceof Error ? error.message : 'Training could not start.');
+        }
+      }}
+    >
+      {({ register, formState, setValue, watch }) => {
+        const errors = formState.errors;
+        const method = watch('settings.access.method') as AccessMethod;
+        return (
+          <div className="flex flex-col gap-8">
+            <FormServerError message={errors.root?.server?.message} />
+
+            <fieldset className="flex flex-col gap-3" aria-describedby="samples-hint">
+              <legend className="mb-1 text-xl font-bold">Writing samples to learn from</legend>
+              <p id="samples-hint" className="text-ink-soft">
+                Every ready sample is included; untick any to leave out of this version. The chosen set is
+                frozen with the version.
+              </p>
+              {errors.sampleIds?.message && (
+                <FieldError id="samples-error">{errors.sampleIds.message}</FieldError>
+              )}
+              {samples.map((sample) => {
+                // Kept as an array by hand: a lone registered checkbox would give a string, not a list.
+                const chosen = (watch('sampleIds') ?? []) as string[];
+                return (
+                  <SampleCheckbox
+                    key={sample.id}
+                    sample={sample}
+                    checked={chosen.includes(sample.id)}
+                    onChange={(checked) =>
+                      setValue(
+                        'sampleIds',
+                        checked ? [...chosen, sample.id] : chosen.filter((id) => id !== sample.id),
+                        { shouldValidate: formState.isSubmitted },
+                      )
+                    }
+                  />
+                );
+              })}
+            </fieldset>
+
+            <fieldset className="grid gap-5 md:grid-cols-2">
+              <legend className="mb-3 text-xl font-bold">Model</legend>
+              <TextField
+                label="Context order"
+                type="number"
+                inputMode="numeric"
+                hint="How many letters back the model looks, 1 to 12 (5 suits most writing)."
+                registration={register('settings.order', { setValueAs: optionalNumber })}
+                error={messageOf(errors.settings?.order)}
+              />
+              <SelectField
+                label="Escape method"
+                options={escapeMethods.map((letter) => ({ value: letter, label: `Method ${letter}` }))}
+                hint={
+                  escapeExplanations[(watch('settings.escape') ?? 'C') as keyof typeof escapeExplanations]
+                }
+                registration={register('settings.escape')}
+                error={errors.settings?.escape}
+              />
+              <CheckboxField
+                label="Exclusion"
+                hint="When falling back to a shorter context, skip letters the longer one already offered."
+                registration={register('settings.exclusion')}
+              />
+              <CheckboxField
+                label="Ignore capitals"
+                hint="Learn and suggest in lower case only; the client types capitals themselves."
+                registration={register('settings.caseFold')}
+              />
+              <fieldset className="flex flex-col gap-2 md:col-span-2">
+                <legend className="font-bold">Weight of the general English model</legend>
+                <p className="text-ink-soft">
+                  How much the suggestions lean on ordinary English rather than the client’s own writing.
+                </p>
+                <div className="flex flex-wrap gap-6">
+                  {(['auto', 'fixed'] as const).map((mode) => (
+                    <label key={mode} className="flex min-h-11 items-center gap-2">
+                      <input
+                        type="radio"
+                        name="base-weight-mode"
+                        className="size-5 accent-ink"
+                        checked={weightMode === mode}
+                        onChange={() => {
+                          setWeightMode(mode);
+                          setValue('settings.baseWeight', mode === 'auto' ? 'auto' : 0.5);
+                        }}
+                      />
+                      {mode === 'auto' ? 'Automatic (tuned on held-out text)' : 'A fixed value'}
+                    </label>
+                  ))}
+                </div>
+                {weightMode === 'fixed' && (
+                  <TextField
+                    label="Weight, 0 to 1"
+                    type="number"
+                    step="0.05"
+                    hint="0 uses the client’s writing alone; 1 uses general English alone."
+                    registration={register('settings.baseWeight', { setValueAs: requiredNumber })}
+                    error={messageOf(errors.settings?.baseWeight)}
+                    className="max-w-xs"
+                  />
+                )}
+              </fieldset>
+            </fieldset>
+
+            <fieldset className="grid gap-5 md:grid-cols-2">
+              <legend className="mb-3 text-xl font-bold">Suggestions and access</legend>
+              <TextField
+                label="Suggestion slots"
+                type="number"
+                inputMode="numeric"
+                hint="How many words the list offers at once, 1 to 10. Results are measured for 1 to 10 either way."
+                registration={register('settings.slots', { setValueAs: optionalNumber })}
+                error={messageOf(errors.settings?.slots)}
+              />
+              <SelectField
+                label="Access method for the speed estimate"
+                options={Object.entries(accessMethodLabels).map(([value, label]) => ({ value, label }))}
+                hint="From the client record; change it here only to compare."
+                registration={register('settings.access.method')}
+                error={errors.settings?.access?.method}
+              />
+              {timingFields[method].map((field) => (
+                <TextField
+                  key={field}
+                  label={timingLabels[field]}
+                  type="number"
+                  inputMode="numeric"
+                  registration={register(`settings.access.${field}`, { setValueAs: optionalNumber })}
+                  error={messageOf(errors.settings?.access?.[field])}
+                />
+              ))}
+            </fieldset>
+
+            <TextField
+              label="Note (optional)"
+              hint="What this version tries, e.g. “order 6 with the new diary”."
+              registration={register('note')}
+              error={errors.note}
+            />
+
+            <div className="flex flex-wrap gap-3">
+              <Button type="submit" variant="primary" disabled={formState.isSubmitting}>
+                {formState.isSubmitting ? 'Starting…' : 'Train this version'}
+              </Button>
+              <Button onClick={onCancel}>Cancel</Button>
+            </div>
+          </div>
+        );
+      }}
+    </Form>
+  );
+};

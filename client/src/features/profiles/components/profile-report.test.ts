@@ -1,0 +1,73 @@
+import { defaultProfileSettings, trainAndEvaluateProfile } from '@keyloom/shared';
+import { describe, expect, it } from 'vitest';
+import { reportFixture } from '../testing/profile-data';
+import { atSlots, learningCurveVerdict, percent, readReport } from './profile-report';
+
+// Invented writing in the demo client's voice (BRIEF.md demo scenario).
+const entries = [
+  'Pepper and I went down to the harbour this morning. The wind was up and the boats were rocking. ',
+  'Tell the sailing club I can crew on Saturday if Hannah drives me down to the harbour early. ',
+  'The jazz night was loud and good. Pepper slept under the table the whole time, as usual. ',
+  'Can you bring the blue rope and the spare jacket? The forecast says rain by the afternoon. ',
+  'Thank you for the card. I am getting faster with the new keyboard, a little every week. ',
+  'Hannah says the club wants a photo of the boat for the newsletter. I will send one on Sunday. ',
+  'Pepper chased a gull along the harbour wall and came back soaked and very pleased with himself. ',
+];
+
+describe('readReport', () => {
+  it('reads a report made by the engine itself (so the pages track its field names)', async () => {
+    // The real pipeline on invented text, without a base model (small and fast).
+    const { report } = await trainAndEvaluateProfile({
+      documents: entries.map((text, index) => ({ id: `s${index}`, text })),
+      settings: { ...defaultProfileSettings, access: { method: 'direct' } },
+      base: null,
+      folds: 2,
+      ksSampleChars: 200,
+    });
+    const view = readReport(JSON.parse(JSON.stringify(report)) as Record<string, unknown>);
+    expect(view).not.toBeNull();
+    expect(view?.bpcIdeal).toBe(report.bpcIdeal);
+    expect(Object.keys(view?.keystrokeSavings ?? {})).toHaveLength(10);
+    expect(view?.baseOnly).toBeNull();
+  });
+
+  it('returns null for no metrics and for a report missing its figures', () => {
+    expect(readReport(null)).toBeNull();
+    expect(readReport({ bpcIdeal: 2 })).toBeNull();
+    expect(readReport(reportFixture())).not.toBeNull();
+  });
+
+  it('formats per-slot fractions as percentages', () => {
+    expect(percent(atSlots({ '5': 0.367 }, 5))).toBe('36.7%');
+    expect(percent(atSlots({ '5': 0.367 }, 6))).toBe('—');
+  });
+});
+
+describe('learningCurveVerdict', () => {
+  it('says more text helps when the last doubling still lowers bits per character by 0.02 or more', () => {
+    expect(
+      learningCurveVerdict([
+        { fraction: 0.5, bpcIdeal: 2.6 },
+        { fraction: 1, bpcIdeal: 2.45 },
+      ]),
+    ).toMatch(
+      /^More text still helps: going from 50% to 100% of the text lowered bits per character by 0\.15/,
+    );
+  });
+
+  it('says it has stopped helping when the gain is smaller, and says so when bpc rose', () => {
+    expect(
+      learningCurveVerdict([
+        { fraction: 0.5, bpcIdeal: 2.46 },
+        { fraction: 1, bpcIdeal: 2.45 },
+      ]),
+    ).toMatch(/stopped helping much.*by only 0\.01/);
+    expect(
+      learningCurveVerdict([
+        { fraction: 0.5, bpcIdeal: 2.4 },
+        { fraction: 1, bpcIdeal: 2.45 },
+      ]),
+    ).toMatch(/raised bits per character by 0\.05/);
+    expect(learningCurveVerdict([{ fraction: 1, bpcIdeal: 2 }])).toMatch(/Not enough points/);
+  });
+});

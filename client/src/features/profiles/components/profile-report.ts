@@ -1,0 +1,119 @@
+import { z } from 'zod';
+
+// The parts of the engine's ProfileReport (shared/src/engine/profile/README.md) these pages
+// show. Read leniently: a report that lacks them shows "no results" rather than breaking the page.
+const perSlotSchema = z.record(z.string(), z.number());
+const spreadSchema = z.object({ min: z.number(), max: z.number(), std: z.number() });
+
+export const profileReportSchema = z.object({
+  chars: z.number(),
+  documents: z.number().optional(),
+  order: z.number(),
+  escape: z.string(),
+  folds: z.number(),
+  foldNote: z.string().optional(),
+  heldOutChars: z.number().optional(),
+  bpcIdeal: z.number(),
+  bpcIdealSpread: spreadSchema,
+  bpcCoded: z.number(),
+  bpcCodedSpread: spreadSchema,
+  roundTrip: z.boolean().optional(),
+  baseWeight: z.number(),
+  keystrokeSavings: perSlotSchema,
+  kspc: perSlotSchema,
+  oracleSavings: z.number().optional(),
+  ksChars: z.number().optional(),
+  ksNote: z.string().optional(),
+  scanStepsPerChar: z.object({ rowColumn: z.number(), modelOrdered: z.number() }),
+  rates: z.object({
+    wpmWithout: z.number(),
+    wpmWith: z.number(),
+    assumptions: z.object({
+      msPerSelection: z.number(),
+      listReadMs: z.number(),
+      slots: z.number(),
+      defaultTiming: z.boolean(),
+      note: z.string().optional(),
+    }),
+  }),
+  learningCurve: z
+    .object({
+      slots: z.number(),
+      points: z.array(
+        z.object({
+          fraction: z.number(),
+          trainChars: z.number(),
+          bpcIdeal: z.number(),
+          keystrokeSavings: z.number(),
+        }),
+      ),
+    })
+    .nullable()
+    .optional(),
+  baseOnly: z
+    .object({ bpcIdeal: z.number(), keystrokeSavings: perSlotSchema, kspc: perSlotSchema })
+    .nullable(),
+  earlyWords: z.array(z.object({ word: z.string(), count: z.number() })).nullable(),
+});
+export type ProfileReportView = z.infer<typeof profileReportSchema>;
+
+/** The report of a trained version, or null when there is none (or it is not one we can read). */
+export const readReport = (metrics: Record<string, unknown> | null): ProfileReportView | null => {
+  if (!metrics) return null;
+  const parsed = profileReportSchema.safeParse(metrics);
+  return parsed.success ? parsed.data : null;
+};
+
+/** Suggestion list sizes the engine measures. */
+export const SLOT_COUNTS = [1, 2, 3, 4, 5, 6, 7, 8, 9, 10] as const;
+
+/** A value for `slots` from a per-slot record, or null when it is missing. */
+export const atSlots = (values: Record<string, number>, slots: number): number | null =>
+  values[String(slots)] ?? null;
+
+/** "42.3%" from a fraction. */
+export const percent = (fraction: number | null, digits = 1): string =>
+  fraction === null ? '—' : `${(fraction * 100).toFixed(digits)}%`;
+
+/** A number with fixed decimals; "—" for none. */
+export const fixed = (value: number | null, digits = 2): string =>
+  value === null ? '—' : value.toFixed(digits);
+
+/** "12,345" for counts. */
+export const count = (value: number): string => value.toLocaleString('en-GB');
+
+/**
+ * The learning curve in one sentence: whether the last step (from half the text to all of it)
+ * still lowered bits per character by at least 0.02 (a judgement threshold: common practice, no source).
+ */
+export const learningCurveVerdict = (points: readonly { fraction: number; bpcIdeal: number }[]): string => {
+  const last = points.at(-1);
+  const before = points.at(-2);
+  if (!last || !before) return 'Not enough points to tell whether more text would help.';
+  const gain = before.bpcIdeal - last.bpcIdeal;
+  const span = `from ${Math.round(before.fraction * 100)}% to ${Math.round(last.fraction * 100)}% of the text`;
+  if (gain >= 0.02) {
+    return `More text still helps: going ${span} lowered bits per character by ${gain.toFixed(2)}. Collecting more writing is likely to improve the profile.`;
+  }
+  const change =
+    gain >= 0
+      ? `lowered bits per character by only ${gain.toFixed(2)}`
+      : `raised bits per character by ${(-gain).toFixed(2)}`;
+  return `More text has stopped helping much: going ${span} ${change}. More writing of the same kind will add little.`;
+};
+
+/** One line of a chart by list size: a version, or the base model alone. */
+export type SlotSeries = { name: string; values: Record<string, number> };
+
+const BASE_NAME = 'General English model alone';
+
+/** Keystroke-savings and KSPC series of a report: the version, and the base model alone when measured. */
+export const slotSeries = (report: ProfileReportView, name = 'This version') => {
+  const savings: SlotSeries[] = [{ name, values: report.keystrokeSavings }];
+  const kspc: SlotSeries[] = [{ name, values: report.kspc }];
+  if (report.baseOnly) {
+    savings.push({ name: BASE_NAME, values: report.baseOnly.keystrokeSavings });
+    kspc.push({ name: BASE_NAME, values: report.baseOnly.kspc });
+  }
+  return { savings, kspc };
+};

@@ -1,0 +1,204 @@
+import type { ProfileVersion, Role } from '@keyloom/shared';
+import { useState } from 'react';
+import { Link, useNavigate } from 'react-router-dom';
+import { PageLoading } from '@/components/layout/page-loading';
+import { Alert } from '@/components/ui/alert';
+import { Button } from '@/components/ui/button';
+import { EmptyState } from '@/components/ui/empty-state';
+import {
+  ColumnHeader,
+  RowHeader,
+  Table,
+  TableBody,
+  TableCell,
+  TableHead,
+  TableRow,
+} from '@/components/ui/table';
+import { profileComparePath, profileVersionPath } from '@/config/paths';
+import { formatDateTime } from '@/lib/format';
+import { useProfileVersions } from '../api/get-profile-versions';
+import { type AccessDefaults, NewVersionForm, type TrainableSample } from './new-version-form';
+import { ProfileStatusBadge } from './profile-status-badge';
+import { atSlots, fixed, percent, readReport } from './profile-report';
+
+type ProfilesPanelProps = {
+  clientId: string;
+  pseudonym: string;
+  role: Role;
+  trainingConsent: boolean;
+  /** Ready samples (clinicians only; others do not configure versions). */
+  samples: readonly TrainableSample[];
+  access: AccessDefaults;
+};
+
+const VersionRow = ({
+  clientId,
+  version,
+  selected,
+  onToggle,
+}: {
+  clientId: string;
+  version: ProfileVersion;
+  selected: boolean;
+  onToggle: () => void;
+}) => {
+  const report = readReport(version.metrics);
+  const slots = version.settings.slots;
+  return (
+    <TableRow>
+      <TableCell label="Compare">
+        <input
+          type="checkbox"
+          className="size-6 accent-ink"
+          checked={selected}
+          disabled={!report}
+          onChange={onToggle}
+          aria-label={`Compare version ${version.number}`}
+        />
+      </TableCell>
+      <RowHeader label="Version">
+        <Link to={profileVersionPath(clientId, version.id)} className="font-bold underline">
+          Version {version.number}
+        </Link>
+        {version.note && <span className="block font-normal text-ink-soft">{version.note}</span>}
+      </RowHeader>
+      <TableCell label="Status">
+        <ProfileStatusBadge status={version.status} />
+      </TableCell>
+      <TableCell label="Created">{formatDateTime(version.createdAt)}</TableCell>
+      <TableCell label="Bits per character">{report ? fixed(report.bpcIdeal, 3) : '—'}</TableCell>
+      <TableCell label="Keystroke savings">
+        {report ? `${percent(atSlots(report.keystrokeSavings, slots))} at ${slots} slots` : '—'}
+      </TableCell>
+    </TableRow>
+  );
+};
+
+/** The "Profile versions" tab: the versions with their headline figures, compare, and a new version. */
+export const ProfilesPanel = ({
+  clientId,
+  pseudonym,
+  role,
+  trainingConsent,
+  samples,
+  access,
+}: ProfilesPanelProps) => {
+  const versions = useProfileVersions(clientId);
+  const navigate = useNavigate();
+  const [creating, setCreating] = useState(false);
+  const [chosen, setChosen] = useState<string[]>([]);
+  const owner = role === 'clinician';
+  const toggle = (id: string) =>
+    setChosen((now) => (now.includes(id) ? now.filter((other) => other !== id) : [...now, id]));
+
+  return (
+    <div className="flex flex-col gap-8">
+      <Alert tone="info" title="Suggestions are offered, never inserted.">
+        <p>
+          A profile only changes which words {pseudonym} is offered; every word is still chosen by {pseudonym}
+          . The clinical decision to use a profile rests with the licensed clinician.
+        </p>
+      </Alert>
+
+      {owner && !creating && (
+        <div className="flex flex-col gap-2">
+          <Button
+            variant="primary"
+            className="self-start"
+            disabled={!trainingConsent || samples.length === 0}
+            aria-describedby={!trainingConsent || samples.length === 0 ? 'new-version-blocked' : undefined}
+            onClick={() => setCreating(true)}
+          >
+            New version
+          </Button>
+          {!trainingConsent && (
+            <p id="new-version-blocked">{pseudonym} has no active consent for model training.</p>
+          )}
+          {trainingConsent && samples.length === 0 && (
+            <p id="new-version-blocked">No sample is ready yet: review the writing samples first.</p>
+          )}
+        </div>
+      )}
+      {owner && creating && (
+        <section aria-labelledby="new-version-heading" className="flex flex-col gap-4">
+          <h3 id="new-version-heading" className="text-2xl font-bold">
+            New profile version
+          </h3>
+          <NewVersionForm
+            clientId={clientId}
+            samples={samples}
+            access={access}
+            onCancel={() => setCreating(false)}
+            onStarted={(version, trainError) => {
+              setCreating(false);
+              // The version's page shows this message (this tab's live region goes away).
+              const announcement = trainError
+                ? {
+                    tone: 'error',
+                    text: `Version ${version.number} was saved but not started: ${trainError}`,
+                  }
+                : { tone: 'success', text: `Version ${version.number} is training.` };
+              void navigate(profileVersionPath(clientId, version.id), { state: { announcement } });
+            }}
+          />
+        </section>
+      )}
+
+      {versions.isPending && <PageLoading />}
+      {versions.isError && (
+        <div role="alert">
+          <Alert tone="error" title="The profile versions could not be loaded.">
+            <p>{versions.error.message}</p>
+          </Alert>
+        </div>
+      )}
+      {versions.isSuccess && versions.data.length === 0 && (
+        <EmptyState title="No profile versions yet.">
+          {owner
+            ? 'Choose “New version” to train a personal prediction profile from the ready samples.'
+            : 'The clinician has not trained a profile for this client yet.'}
+        </EmptyState>
+      )}
+      {versions.isSuccess && versions.data.length > 0 && (
+        <section aria-labelledby="versions-heading" className="flex flex-col gap-4">
+          <div className="flex flex-wrap items-center justify-between gap-3">
+            <h3 id="versions-heading" className="text-2xl font-bold">
+              Versions
+            </h3>
+            <Button
+              disabled={chosen.length < 2}
+              aria-describedby="compare-hint"
+              onClick={() => void navigate(profileComparePath(clientId, chosen))}
+            >
+              Compare {chosen.length >= 2 ? `${chosen.length} versions` : 'selected'}
+            </Button>
+          </div>
+          <p id="compare-hint" className="text-ink-soft">
+            Tick two or more trained versions to compare them side by side.
+          </p>
+          <Table caption={`Profile versions of ${pseudonym}`}>
+            <TableHead>
+              <ColumnHeader>Compare</ColumnHeader>
+              <ColumnHeader>Version</ColumnHeader>
+              <ColumnHeader>Status</ColumnHeader>
+              <ColumnHeader>Created</ColumnHeader>
+              <ColumnHeader>Bits per character</ColumnHeader>
+              <ColumnHeader>Keystroke savings</ColumnHeader>
+            </TableHead>
+            <TableBody>
+              {versions.data.map((version) => (
+                <VersionRow
+                  key={version.id}
+                  clientId={clientId}
+                  version={version}
+                  selected={chosen.includes(version.id)}
+                  onToggle={() => toggle(version.id)}
+                />
+              ))}
+            </TableBody>
+          </Table>
+        </section>
+      )}
+    </div>
+  );
+};

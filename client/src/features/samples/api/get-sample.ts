@@ -1,0 +1,15 @@
+import { type SampleDetail, sampleDetailSchema } from '@keyloom/shared';
+import { queryOptions, useQuery } from '@tanstack/react-query';
+import { apiRequest } from '@/lib/api-client';
+
+/** One sample: statistics, current text and personal-data flags. */
+export const getSample = (sampleId: string, signal?: AbortSignal): Promise<SampleDetail> =>
+  apiRequest(`/samples/${encodeURIComponent(sampleId)}`, { schema: sampleDetailSchema, signal });
+
+export const sampleQueryOptions = (sampleId: string) =>
+  queryOptions({
+    queryKey: ['samples', 'detail', sampleId],
+    queryFn: ({ signal }) => getSample(sampleId, signal),
+  });
+
+export const useSample = (sampleId: string) => useQuery(sampleQueryOptions(sampleId));

@@ -1,0 +1,116 @@
+import { Link } from 'react-router-dom';
+import { useState } from 'react';
+import { PageLoading } from '@/components/layout/page-loading';
+import { Alert } from '@/components/ui/alert';
+import { Button } from '@/components/ui/button';
+import { EmptyState } from '@/components/ui/empty-state';
+import { LoadError } from '@/components/ui/load-error';
+import { clientPath } from '@/config/paths';
+import { useSamples } from '../api/get-samples';
+import { PasteSampleForm } from './paste-sample-form';
+import { SamplesTable } from './samples-table';
+import { UploadSamplesForm } from './upload-samples-form';
+
+type SamplesPanelProps = {
+  clientId: string;
+  pseudonym: string;
+  /** Whether an active consent for model training exists (uploads need it). */
+  trainingConsent: boolean;
+  /** Owning clinician; supervisors read only. */
+  canEdit: boolean;
+  announce: (tone: 'success' | 'error', text: string) => void;
+};
+
+/** The "Writing samples" tab: the caution, upload and paste (with consent), and the list. */
+export const SamplesPanel = ({
+  clientId,
+  pseudonym,
+  trainingConsent,
+  canEdit,
+  announce,
+}: SamplesPanelProps) => {
+  const samples = useSamples(clientId);
+  const [mode, setMode] = useState<'files' | 'paste'>('files');
+
+  return (
+    <div className="flex flex-col gap-8">
+      <Alert tone="info" title="These samples are personal health information.">
+        <p>
+          Upload only writing {pseudonym} has consented to share. It stays in the clinic’s database. Review
+          every flag for personal data before a sample is used, and follow local law and the clinic’s policy.
+        </p>
+      </Alert>
+
+      {canEdit && !trainingConsent && (
+        <section aria-labelledby="upload-blocked-heading" className="flex flex-col gap-3">
+          <h3 id="upload-blocked-heading" className="text-2xl font-bold">
+            Add writing
+          </h3>
+          <p id="upload-blocked-reason" className="max-w-3xl">
+            Uploading is switched off: {pseudonym} has no active consent for model training.{' '}
+            <Link to={clientPath(clientId, 'consent')} className="font-bold underline">
+              Record consent on the Consent &amp; family tab
+            </Link>{' '}
+            first.
+          </p>
+          <Button disabled aria-describedby="upload-blocked-reason" className="self-start">
+            Upload files
+          </Button>
+        </section>
+      )}
+
+      {canEdit && trainingConsent && (
+        <section aria-labelledby="upload-heading" className="flex flex-col gap-4">
+          <h3 id="upload-heading" className="text-2xl font-bold">
+            Add writing
+          </h3>
+          <div role="group" aria-label="How to add writing" className="flex flex-wrap gap-2">
+            {(['files', 'paste'] as const).map((choice) => (
+              <Button
+                key={choice}
+                variant={mode === choice ? 'primary' : 'secondary'}
+                aria-pressed={mode === choice}
+                onClick={() => setMode(choice)}
+              >
+                {choice === 'files' ? 'From files' : 'Paste text'}
+              </Button>
+            ))}
+          </div>
+          {mode === 'files' ? (
+            <UploadSamplesForm
+              clientId={clientId}
+              onFinished={(stored, problems) =>
+                announce(
+                  problems ? 'error' : 'success',
+                  `${stored} file${stored === 1 ? '' : 's'} stored${problems ? `, ${problems} not stored — see the list for why` : ''}.`,
+                )
+              }
+            />
+          ) : (
+            <PasteSampleForm clientId={clientId} onStored={(message, tone) => announce(tone, message)} />
+          )}
+        </section>
+      )}
+
+      <section aria-labelledby="samples-heading" className="flex flex-col gap-4">
+        <h3 id="samples-heading" className="text-2xl font-bold">
+          Samples of {pseudonym}
+        </h3>
+        {samples.isPending && <PageLoading />}
+        {samples.isError && (
+          <LoadError
+            title="The samples could not be loaded."
+            error={samples.error}
+            onRetry={() => void samples.refetch()}
+          />
+        )}
+        {samples.isSuccess && samples.data.length === 0 && (
+          <EmptyState title="No writing samples yet.">
+            Uploaded and pasted writing appears here with its size and the personal data found in it.
+          </EmptyState>
+        )}
+        {samples.isSuccess && samples.data.length > 0 && <SamplesTable samples={samples.data} />}
+      </section>
+    </div>
+  );
+};

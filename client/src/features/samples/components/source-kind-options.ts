@@ -1,0 +1,3 @@
+import { sourceKindLabels, sourceKinds } from '@keyloom/shared';
+
+export const sourceKindOptions = sourceKinds.map((kind) => ({ value: kind, label: sourceKindLabels[kind] }));

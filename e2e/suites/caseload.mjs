@@ -1,0 +1,209 @@
+// Caseload (issue 4): the clinician opens a client, records consent, uploads two demo samples,
+// redacts a flagged phone number and reads the statistics; the supervisor reads the audit log.
+// Axe scan (no serious or critical violations) of each page on the way; screenshots in e2e/out.
+import assert from 'node:assert/strict';
+import { readdirSync, readFileSync } from 'node:fs';
+import { dirname, join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { signIn, signOut } from './accounts.mjs';
+
+const demoDir = join(dirname(fileURLToPath(import.meta.url)), '..', '..', 'corpora', 'demo');
+
+// A phone number as the issue's detector looks for (loose: UK-style and +country forms).
+const phonePattern = /(\+\d{1,3}[\s-]?)?\(?0?\d{2,5}\)?[\s-]?\d{3}[\s-]?\d{3,4}\b/;
+
+/** Two demo samples from corpora/demo, preferring one that holds a phone number. */
+function pickDemoFiles() {
+  const files = readdirSync(demoDir)
+    .filter((name) => /\.(txt|md)$/i.test(name) && !/^readme/i.test(name))
+    .sort()
+    .map((name) => join(demoDir, name));
+  assert.ok(files.length >= 2, `corpora/demo holds at least two samples (found ${files.length})`);
+  const withPhone = files.find((file) => phonePattern.test(readFileSync(file, 'utf8')));
+  const first = withPhone ?? files[0];
+  const second = files.find((file) => file !== first);
+  return [first, second];
+}
+
+/** Fails when the page scrolls sideways (WCAG 1.4.10 reflow). */
+async function assertNoSidewaysScroll(page, label) {
+  const { scrollWidth, clientWidth } = await page.evaluate(() => ({
+    scrollWidth: document.documentElement.scrollWidth,
+    clientWidth: document.documentElement.clientWidth,
+  }));
+  assert.ok(
+    scrollWidth <= clientWidth + 1,
+    `${label}: page is ${scrollWidth}px wide in a ${clientWidth}px window`,
+  );
+}
+
+const pseudonym = `E. Tern ${Date.now() % 100000}`;
+
+export const caseloadSuite = {
+  name: 'caseload',
+  tests: [
+    [
+      'clinician creates a client, records consent, uploads two demo samples and redacts a phone number',
+      async (t) => {
+        await t.context.clearCookies();
+        const page = await t.newPage();
+        await signIn(page, t.appUrl, 'clinician@willowmere.example');
+        await page.waitForURL((url) => url.pathname === '/caseload');
+        await page.getByRole('table').waitFor();
+        assert.deepEqual(await t.seriousViolations(page, 'caseload'), []);
+        await t.screenshot(page, 'caseload');
+
+        // New client, by keyboard.
+        const open = page.getByRole('button', { name: 'New client' });
+        await open.focus();
+        await open.press('Enter');
+        const dialog = page.getByRole('dialog', { name: 'New client' });
+        await dialog.getByLabel('Pseudonym').fill(pseudonym);
+        await dialog.getByLabel('Access method').selectOption('head_pointer');
+        await dialog.getByLabel('Time per key (ms)').fill('1800');
+        await dialog.getByLabel('Communication goals').fill('Send messages to the rowing club without help.');
+        await t.screenshot(page, 'caseload-new-client');
+        assert.deepEqual(await t.seriousViolations(page, 'new client dialog'), []);
+        await dialog.getByRole('button', { name: 'Create client' }).press('Enter');
+        await page.waitForURL(/\/clients\/[0-9a-f-]{36}\/overview$/);
+        await page.getByRole('heading', { level: 1, name: pseudonym }).waitFor();
+        const clientUrl = page.url().replace(/\/overview$/, '');
+        assert.deepEqual(await t.seriousViolations(page, 'client overview'), []);
+        await t.screenshot(page, 'client-overview');
+
+        // Without consent, uploading is switched off and says why.
+        await page.getByRole('tab', { name: 'Writing samples' }).click();
+        await page.waitForURL(/\/samples$/);
+        assert.ok(await page.getByRole('button', { name: 'Upload files' }).isDisabled());
+
+        // Record consent.
+        await page.getByRole('tab', { name: 'Consent & family' }).click();
+        await page.waitForURL(/\/consent$/);
+        await page.getByRole('button', { name: 'Record consent' }).click();
+        const consent = page.getByRole('dialog', { name: /Record consent/ });
+        await consent.getByLabel(/Sending progress summaries/).check();
+        await t.screenshot(page, 'consent-dialog');
+        assert.deepEqual(await t.seriousViolations(page, 'consent dialog'), []);
+        await consent.getByRole('button', { name: 'Record consent' }).click();
+        await page
+          .getByRole('status')
+          .filter({ hasText: /is recorded/ })
+          .waitFor();
+        await page.getByRole('heading', { name: /Consent given on/ }).waitFor();
+        assert.deepEqual(await t.seriousViolations(page, 'consent tab'), []);
+        await t.screenshot(page, 'client-consent');
+
+        // Upload two demo samples through the file input.
+        await page.getByRole('tab', { name: 'Writing samples' }).click();
+        await page.waitForURL(/\/samples$/);
+        const files = pickDemoFiles();
+        await page.locator('input[type=file]').setInputFiles(files);
+        await page.getByLabel('Where the text came from').selectOption('messages');
+        await page.getByRole('button', { name: 'Upload files' }).click();
+        await page
+          .getByRole('status')
+          .filter({ hasText: /2 files stored\./ })
+          .waitFor({ timeout: 60_000 });
+        await page.getByRole('table', { name: /Language samples \(2\)/ }).waitFor();
+        assert.deepEqual(await t.seriousViolations(page, 'samples tab'), []);
+        await t.screenshot(page, 'client-samples');
+
+        // Find the sample with a flagged phone number and redact it.
+        const links = page.getByRole('table', { name: /Language samples/ }).getByRole('link');
+        const hrefs = await links.evaluateAll((anchors) => anchors.map((a) => a.getAttribute('href')));
+        let redacted = false;
+        for (const href of hrefs) {
+          await page.goto(`${t.appUrl}${href}`, { waitUntil: 'networkidle' });
+          await page.getByRole('heading', { name: 'Size and vocabulary' }).waitFor();
+          const words = Number(
+            (await page.locator('dt:text-is("Words") + dd').textContent())?.replace(/\D/g, ''),
+          );
+          assert.ok(words > 0, 'the sample has a word count');
+          const redact = page.getByRole('button', { name: /^Redact phone number/ }).first();
+          if ((await redact.count()) === 0) continue;
+          assert.deepEqual(await t.seriousViolations(page, 'sample page'), []);
+          await t.screenshot(page, 'sample-before-redaction');
+          await redact.focus();
+          await redact.press('Enter');
+          await page
+            .getByRole('status')
+            .filter({ hasText: /Redacted the phone number/ })
+            .waitFor();
+          await page.getByText('⟪phone⟫').first().waitFor();
+          await t.screenshot(page, 'sample-after-redaction');
+          await page.setViewportSize({ width: 640, height: 430 });
+          await assertNoSidewaysScroll(page, 'sample page at 200%');
+          await t.screenshot(page, 'sample-200pct');
+          await page.setViewportSize({ width: 1280, height: 860 });
+          redacted = true;
+          break;
+        }
+        assert.ok(redacted, 'one of the uploaded demo samples has a flagged phone number to redact');
+
+        // The same file again is reported as a duplicate, not stored twice.
+        await page.goto(`${clientUrl}/samples`, { waitUntil: 'networkidle' });
+        await page.locator('input[type=file]').setInputFiles(files[1]);
+        await page.getByRole('button', { name: 'Upload files' }).click();
+        await page
+          .getByRole('status')
+          .filter({ hasText: /0 files stored, 1 not stored/ })
+          .waitFor();
+        await page.getByRole('list', { name: 'Chosen files' }).getByText('Already uploaded').waitFor();
+        await page.setViewportSize({ width: 640, height: 430 });
+        await assertNoSidewaysScroll(page, 'samples tab at 200%');
+        await page.setViewportSize({ width: 1280, height: 860 });
+        await signOut(page, 'Clinician');
+      },
+    ],
+    [
+      'supervisor reads the audit log, filtered to redactions',
+      async (t) => {
+        // Start signed out even when the test before stopped half-way.
+        await t.context.clearCookies();
+        const page = await t.newPage();
+        await signIn(page, t.appUrl, 'supervisor@willowmere.example');
+        await page.waitForURL((url) => url.pathname === '/reviews');
+        await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Audit log' }).click();
+        await page.waitForURL(/\/audit/);
+        await page.getByRole('table', { name: /Events/ }).waitFor();
+        assert.deepEqual(await t.seriousViolations(page, 'audit'), []);
+        await t.screenshot(page, 'audit');
+        await page.getByLabel('Action').selectOption('sample.flag-redact');
+        await page.getByRole('button', { name: 'Show events' }).click();
+        await page.waitForURL(/action=sample\.flag-redact/);
+        await page.getByRole('cell', { name: pseudonym }).first().waitFor();
+        await page.setViewportSize({ width: 640, height: 430 });
+        await assertNoSidewaysScroll(page, 'audit at 200%');
+        await t.screenshot(page, 'audit-200pct');
+        await page.setViewportSize({ width: 1280, height: 860 });
+        await signOut(page, 'Supervisor');
+      },
+    ],
+    [
+      'carer sees the assigned client without consent or samples tabs; the API refuses samples',
+      async (t) => {
+        await t.context.clearCookies();
+        const page = await t.newPage();
+        await signIn(page, t.appUrl, 'carer@willowmere.example');
+        await page.waitForURL((url) => url.pathname === '/my-clients');
+        await page.getByRole('link', { name: 'R. Ashby' }).click();
+        await page.waitForURL(/\/clients\/[0-9a-f-]{36}\/overview$/);
+        await page.getByRole('tab', { name: 'Overview' }).waitFor();
+        const tabs = await page.getByRole('tab').allTextContents();
+        assert.ok(
+          !tabs.includes('Consent & family') && !tabs.includes('Writing samples'),
+          `carer tabs: ${tabs.join(', ')}`,
+        );
+        assert.deepEqual(await t.seriousViolations(page, 'carer client overview'), []);
+        await t.screenshot(page, 'client-overview-carer');
+        const clientId = page.url().match(/clients\/([0-9a-f-]{36})/)?.[1];
+        const status = await page.evaluate(
+          async (id) => (await fetch(`/api/clients/${id}/samples`)).status,
+          clientId,
+        );
+        assert.equal(status, 403);
+        await signOut(page, 'Carer');
+      },
+    ],
+  ],
+};

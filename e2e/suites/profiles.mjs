@@ -1,0 +1,145 @@
+// Profile versions (issue 5): the clinician configures and trains a version of the demo client,
+// watches the progress bar and reads the results and charts; the assigned carer signs it off; the
+// supervisor approves it and it becomes the active profile. Axe scan (no serious or critical
+// violations) of each page on the way; screenshots in e2e/out.
+import assert from 'node:assert/strict';
+import { signIn, signOut } from './accounts.mjs';
+
+// The seeded demo client (api/src/db/seeds/demo-client.seed.ts), with consent, ready samples
+// and the demo carer assigned.
+const DEMO_CLIENT = 'R. Ashby';
+
+// Shared between the steps below: the version trained in the first one.
+let versionPath = null;
+let versionNumber = null;
+
+/** Fails when the page scrolls sideways (WCAG 1.4.10 reflow). */
+async function assertNoSidewaysScroll(page, label) {
+  const { scrollWidth, clientWidth } = await page.evaluate(() => ({
+    scrollWidth: document.documentElement.scrollWidth,
+    clientWidth: document.documentElement.clientWidth,
+  }));
+  assert.ok(scrollWidth <= clientWidth + 1, `${label}: page is ${scrollWidth}px wide in a ${clientWidth}px window`);
+}
+
+export const profilesSuite = {
+  name: 'profiles',
+  tests: [
+    [
+      'clinician configures and trains a version of the demo client, sees progress, results and charts',
+      async (t) => {
+        await t.context.clearCookies();
+        const page = await t.newPage();
+        await signIn(page, t.appUrl, 'clinician@willowmere.example');
+        await page.waitForURL((url) => url.pathname === '/caseload');
+        await page.getByRole('link', { name: DEMO_CLIENT, exact: true }).first().click();
+        await page.getByRole('heading', { level: 1, name: DEMO_CLIENT }).waitFor();
+        await page.getByRole('tab', { name: 'Profile versions' }).click();
+        await page.waitForURL(/\/profiles$/);
+        await page.getByText('Suggestions are offered, never inserted.').waitFor();
+        assert.deepEqual(await t.seriousViolations(page, 'profiles tab'), []);
+
+        await page.getByRole('button', { name: 'New version' }).click();
+        const form = page.getByRole('form', { name: 'New profile version' });
+        await form.getByLabel('Context order').waitFor();
+        assert.equal(await form.getByLabel('Context order').inputValue(), '5');
+        assert.equal(await form.getByLabel('Suggestion slots').inputValue(), '5');
+        const samples = form.getByRole('group', { name: 'Writing samples to learn from' }).getByRole('checkbox');
+        assert.ok((await samples.count()) >= 1, 'at least one ready sample is offered');
+        for (const box of await samples.all()) assert.ok(await box.isChecked(), 'every ready sample is chosen');
+        assert.deepEqual(await t.seriousViolations(page, 'new version form'), []);
+        await t.screenshot(page, 'profile-new-version');
+        await form.getByRole('button', { name: 'Train this version' }).click();
+
+        await page.waitForURL(/\/profiles\/[0-9a-f-]{36}$/);
+        versionPath = new URL(page.url()).pathname;
+        const heading = await page.getByRole('heading', { level: 1, name: /^Version \d+ of / }).textContent();
+        versionNumber = Number(heading?.match(/Version (\d+)/)?.[1]);
+        // The progress bar (if the job is still running when the page opens) moves until the results come.
+        const bar = page.getByRole('progressbar');
+        if (await bar.count()) {
+          const value = Number(await bar.getAttribute('aria-valuenow'));
+          assert.ok(value >= 0 && value <= 100, `progress ${value} is a percentage`);
+          await t.screenshot(page, 'profile-training');
+          assert.deepEqual(await t.seriousViolations(page, 'training page'), []);
+        }
+        await page.getByRole('heading', { name: 'Results' }).waitFor({ timeout: 120_000 });
+        await page.getByText('Ready for trial').first().waitFor();
+
+        // The charts and their text alternatives.
+        await page.getByRole('table', { name: /^Keystroke savings for 1 to 10 suggestion slots: the figures/ }).waitFor();
+        assert.equal(await page.locator('.recharts-wrapper').count() >= 2, true, 'two charts are drawn');
+        const ksRows = page
+          .getByRole('table', { name: /^Keystroke savings for 1 to 10 suggestion slots: the figures/ })
+          .getByRole('row');
+        assert.equal(await ksRows.count(), 11, 'a header row and one row per list size');
+        await page.getByText('Keystroke savings are not time savings: reading the list costs time.').waitFor();
+        await page.getByRole('heading', { name: 'Learning curve: does more text still help?' }).waitFor();
+        assert.deepEqual(await t.seriousViolations(page, 'version results'), []);
+        await t.screenshot(page, 'profile-results');
+        await page.setViewportSize({ width: 640, height: 430 });
+        await assertNoSidewaysScroll(page, 'version results at 200%');
+        await page.setViewportSize({ width: 1280, height: 860 });
+        assert.ok(await page.getByRole('link', { name: /^Export version/ }).isVisible());
+        await signOut(page, 'Clinician');
+      },
+    ],
+    [
+      'the assigned carer signs the version off with a comment',
+      async (t) => {
+        assert.ok(versionPath, 'the clinician step trained a version');
+        await t.context.clearCookies();
+        const page = await t.newPage();
+        await signIn(page, t.appUrl, 'carer@willowmere.example');
+        await page.waitForURL((url) => url.pathname === '/my-clients');
+        await page
+          .getByRole('table', { name: 'Profile versions waiting for your sign-off, oldest first' })
+          .getByRole('link', { name: `Version ${versionNumber} of ${DEMO_CLIENT}` })
+          .waitFor();
+        assert.deepEqual(await t.seriousViolations(page, 'my clients'), []);
+        await page.goto(`${t.appUrl}${versionPath}`, { waitUntil: 'networkidle' });
+        await page.getByRole('heading', { name: 'Results' }).waitFor();
+        assert.equal(await page.getByRole('link', { name: /^Export version/ }).count(), 0, 'carers do not export');
+
+        await page.getByRole('button', { name: 'Sign off' }).click();
+        const dialog = page.getByRole('dialog', { name: /^Sign off version/ });
+        await dialog.getByRole('button', { name: 'Sign off' }).click();
+        await dialog.getByText('Add a comment about the trial.').waitFor();
+        await dialog.getByLabel('How did the try-outs go?').fill('Tried it for a week of evenings; he liked it.');
+        assert.deepEqual(await t.seriousViolations(page, 'sign-off dialog'), []);
+        await dialog.getByRole('button', { name: 'Sign off' }).click();
+        await page.getByRole('status').filter({ hasText: /You signed off version/ }).waitFor();
+        await page.getByText('Signed off by carer').first().waitFor();
+        await signOut(page, 'Carer');
+      },
+    ],
+    [
+      'the supervisor approves it from the reviews page and it becomes the active profile',
+      async (t) => {
+        assert.ok(versionPath, 'the clinician step trained a version');
+        await t.context.clearCookies();
+        const page = await t.newPage();
+        await signIn(page, t.appUrl, 'supervisor@willowmere.example');
+        await page.waitForURL((url) => url.pathname === '/reviews');
+        const link = page
+          .getByRole('table', { name: 'Profile versions waiting for your approval, oldest first' })
+          .getByRole('link', { name: `Version ${versionNumber} of ${DEMO_CLIENT}` });
+        await link.waitFor();
+        assert.deepEqual(await t.seriousViolations(page, 'reviews'), []);
+        await t.screenshot(page, 'profile-reviews');
+        await link.click();
+        await page.waitForURL((url) => url.pathname === versionPath);
+        await page.getByRole('button', { name: 'Approve' }).click();
+        const dialog = page.getByRole('dialog', { name: /^Approve version/ });
+        await dialog.getByLabel('Comment for the record').fill('Figures and the carer’s trial agree.');
+        assert.deepEqual(await t.seriousViolations(page, 'approve dialog'), []);
+        await dialog.getByRole('button', { name: 'Approve' }).click();
+        await page.getByRole('status').filter({ hasText: /is now the active profile/ }).waitFor();
+        await page.getByText('Active profile').first().waitFor();
+        await page.getByRole('list', { name: 'History' }).getByText('Active profile').waitFor();
+        await t.screenshot(page, 'profile-active');
+        await signOut(page, 'Supervisor');
+      },
+    ],
+  ],
+};
