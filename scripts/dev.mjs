@@ -1,11 +1,11 @@
 // npm run dev: the same set-up as npm start (packages, PostgreSQL, mail, migrate, seed), then the
-// API and the Vite dev server (http://127.0.0.1:5173, /api proxied to the API) in the foreground.
-// Ctrl-C stops both; PostgreSQL and the mail server keep running until `npm stop`.
+// API, the job worker and the Vite dev server (http://127.0.0.1:5173, /api proxied to the API) in the
+// foreground. Ctrl-C stops all three; PostgreSQL and the mail server keep running until `npm stop`.
 import { spawn } from 'node:child_process';
 import { existsSync } from 'node:fs';
 import { join } from 'node:path';
 import { createInterface } from 'node:readline';
-import { buildApi, migrateAndSeed, stopApp } from './lib/app.mjs';
+import { buildApi, migrateAndSeed, stopApp, stopWorker } from './lib/app.mjs';
 import { apiEnvironment, ensureLocalServices } from './lib/local-services.mjs';
 import { bold, dim, done, step, warn } from './lib/output.mjs';
 import { repoRoot } from './lib/paths.mjs';
@@ -44,6 +44,10 @@ try {
   await step('migrate and seed', () => migrateAndSeed(env));
   const previous = await stopApp('app');
   if (previous !== null) done(`stopped the app npm start had running (pid ${previous}); dev runs its own`);
+  const previousWorker = await stopWorker('worker');
+  if (previousWorker !== null) {
+    done(`stopped the job worker npm start had running (pid ${previousWorker}); dev runs its own`);
+  }
   for (const [port, name] of [
     [settings.port, 'PORT'],
     [vitePort, 'the Vite dev server'],
@@ -60,6 +64,10 @@ const api = foreground('api', process.execPath, [join(repoRoot, 'api', 'dist', '
   cwd: repoRoot,
   env,
 });
+const worker = foreground('worker', process.execPath, [join(repoRoot, 'api', 'dist', 'worker.js')], {
+  cwd: repoRoot,
+  env,
+});
 const web = foreground('web', process.execPath, [viteEntry(), '--port', String(vitePort), '--strictPort'], {
   cwd: join(repoRoot, 'client'),
   env: { ...process.env, API_PORT: String(settings.port) },
@@ -69,7 +77,8 @@ console.log(`
 ${bold(`Dev server: http://127.0.0.1:${vitePort}`)}  (API ${settings.appUrl}, mail inbox http://127.0.0.1:${settings.mailWebPort})
   Demo sign-ins, password ${settings.demoPassword}: ${demoAccounts.map(([email]) => email).join(', ')}
   The API runs from api/dist: after changing api/ code press Ctrl-C and run npm run dev again.
-  Ctrl-C stops both; npm stop also stops PostgreSQL and the mail server.
+  The job worker (profile training) runs beside the API, its lines marked [worker].
+  Ctrl-C stops all three; npm stop also stops PostgreSQL and the mail server.
 `);
 
 let stopping = false;
@@ -77,24 +86,27 @@ function stopAll(reason) {
   if (stopping) return;
   stopping = true;
   if (reason) warn(reason);
-  for (const child of [api, web]) if (child.exitCode === null) child.kill('SIGTERM');
+  for (const child of [api, worker, web]) if (child.exitCode === null) child.kill('SIGTERM');
+  // The worker may finish a running job first (up to 60 s, see api/src/worker.ts).
   setTimeout(() => {
-    for (const child of [api, web]) if (child.exitCode === null) child.kill('SIGKILL');
-  }, 10_000).unref();
+    for (const child of [api, worker, web]) if (child.exitCode === null) child.kill('SIGKILL');
+  }, 65_000).unref();
 }
 
 for (const signal of ['SIGINT', 'SIGTERM', 'SIGHUP']) process.on(signal, () => stopAll(''));
-let running = 2;
+let running = 3;
 let crashed = false;
-for (const [label, child] of Object.entries({ api, web })) {
+for (const [label, child] of Object.entries({ api, worker, web })) {
   child.on('exit', (code, signal) => {
     running -= 1;
     if (!stopping) {
       crashed = true;
-      stopAll(`${label} exited (${signal ?? `code ${code}`}); stopping the other one`);
+      stopAll(`${label} exited (${signal ?? `code ${code}`}); stopping the others`);
     }
     if (running === 0) {
-      done('stopped the API and the Vite dev server (PostgreSQL and mail keep running; npm stop stops them)');
+      done(
+        'stopped the API, the job worker and the Vite dev server (PostgreSQL and mail keep running; npm stop stops them)',
+      );
       process.exit(crashed ? 1 : 0);
     }
   });

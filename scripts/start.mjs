@@ -1,7 +1,7 @@
 // npm start: install what is missing, start PostgreSQL and the fake mail server, build, migrate,
 // seed and (re)start the app in the background. Safe to run again at any time.
 import { apiEnvironment, ensureLocalServices } from './lib/local-services.mjs';
-import { buildAll, buildCorpora, migrateAndSeed, startApp } from './lib/app.mjs';
+import { buildAll, buildCorpora, migrateAndSeed, startApp, startWorker } from './lib/app.mjs';
 import { bold, seconds, step } from './lib/output.mjs';
 import { livePid } from './lib/processes.mjs';
 import { appSettings, demoAccounts } from './lib/settings.mjs';
@@ -20,6 +20,10 @@ try {
     const pid = await startApp({ name: 'app', env, host: settings.host, port: settings.port });
     return `app started (pid ${pid}), health check answered`;
   });
+  await step('worker', async () => {
+    const pid = await startWorker({ name: 'worker', env });
+    return `job worker started (pid ${pid}), taking profile-training jobs`;
+  });
 } catch {
   const previous = livePid('app', ['api/dist/main.js']);
   console.log(
@@ -37,4 +41,4 @@ ${bold(`Keyloom is running at ${settings.appUrl}`)}   (ready in ${seconds(Date.n
   Mail inbox:  http://127.0.0.1:${settings.mailWebPort}   (JSON: /api/email)
   Demo sign-ins, password ${bold(settings.demoPassword)}:
 ${demoAccounts.map(([email, role, name]) => `    ${email.padEnd(width)}  ${role.padEnd(10)} ${name}`).join('\n')}
-  Logs in .run/ (app.log, maildev.log, postgres-app.log). Stop everything with: npm stop`);
+  Logs in .run/ (app.log, worker.log, maildev.log, postgres-app.log). Stop everything with: npm stop`);

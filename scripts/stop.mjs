@@ -1,6 +1,6 @@
 // npm stop: stop the app, the fake mail server and the app's PostgreSQL cluster that npm start
 // started. Idempotent: when nothing runs it says so and exits 0.
-import { stopApp } from './lib/app.mjs';
+import { stopApp, stopWorker } from './lib/app.mjs';
 import { appClusterKind, maildevName } from './lib/local-services.mjs';
 import { stopMaildev } from './lib/maildev.mjs';
 import { done, failed } from './lib/output.mjs';
@@ -25,6 +25,10 @@ async function attempt(label, fn) {
   }
 }
 
+await attempt('worker', async () => {
+  const pid = await stopWorker('worker');
+  return pid === null ? '' : `job worker stopped (pid ${pid})`;
+});
 await attempt('app', async () => {
   const pid = await stopApp('app');
   return pid === null ? '' : `app stopped (pid ${pid})`;

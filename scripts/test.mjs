@@ -5,7 +5,15 @@
 //   npm test -- --only shared,client a subset (set-up the subset does not need is skipped)
 import { existsSync, rmSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { buildCorpora, corporaScript, migrateAndSeed, startApp, stopApp } from './lib/app.mjs';
+import {
+  buildCorpora,
+  corporaScript,
+  migrateAndSeed,
+  startApp,
+  startWorker,
+  stopApp,
+  stopWorker,
+} from './lib/app.mjs';
 import { chromiumPath, ensureChromium } from './lib/chromium.mjs';
 import { ensureMaildevInstalled, startMaildev, stopMaildev } from './lib/maildev.mjs';
 import { ensureNpmTree } from './lib/npm-deps.mjs';
@@ -106,6 +114,7 @@ const state = {
   /** @type {{url: string} | null} */ app: null,
   mailStarted: false,
   appStarted: false,
+  workerStarted: false,
   /** @type {import('node:child_process').ChildProcess | null} */ child: null,
 };
 
@@ -123,6 +132,11 @@ function cleanUp() {
 async function stopStarted() {
   /** @type {{label: string, stop: () => Promise<unknown>, message: (outcome: unknown) => string}[]} */
   const tasks = [
+    {
+      label: 'test worker',
+      stop: async () => (state.workerStarted ? stopWorker('test-worker') : null),
+      message: (pid) => `test worker stopped (pid ${pid})`,
+    },
     {
       label: 'test app',
       stop: async () => (state.appStarted ? stopApp('test-app') : null),
@@ -241,6 +255,11 @@ const setupSteps = {
     await step('test app', async () => {
       const pid = await startApp({ name: 'test-app', env, host: '127.0.0.1', port });
       return `test app started (pid ${pid}) at ${url}`;
+    });
+    state.workerStarted = true;
+    await step('test worker', async () => {
+      const pid = await startWorker({ name: 'test-worker', env });
+      return `test worker started (pid ${pid})`;
     });
     state.app = { url };
   },

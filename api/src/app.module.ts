@@ -7,6 +7,7 @@ import { ClientsModule } from './clients/clients.module';
 import { ConsentsModule } from './consents/consents.module';
 import { ContactsModule } from './contacts/contacts.module';
 import { SamplesModule } from './samples/samples.module';
+import { ProfileVersionsModule } from './profile-versions/profile-versions.module';
 import { isSignInRoute, SIGN_IN_THROTTLER } from './auth/decorators/sign-in-rate-limit.decorator';
 import { CsrfGuard } from './auth/guards/csrf.guard';
 import { RolesGuard } from './auth/guards/roles.guard';
@@ -54,6 +55,7 @@ const API_REQUESTS_PER_MINUTE = 1_000;
     ConsentsModule,
     ContactsModule,
     SamplesModule,
+    ProfileVersionsModule,
   ],
   providers: [
     Reflector,

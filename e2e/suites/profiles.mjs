@@ -19,7 +19,10 @@ async function assertNoSidewaysScroll(page, label) {
     scrollWidth: document.documentElement.scrollWidth,
     clientWidth: document.documentElement.clientWidth,
   }));
-  assert.ok(scrollWidth <= clientWidth + 1, `${label}: page is ${scrollWidth}px wide in a ${clientWidth}px window`);
+  assert.ok(
+    scrollWidth <= clientWidth + 1,
+    `${label}: page is ${scrollWidth}px wide in a ${clientWidth}px window`,
+  );
 }
 
 export const profilesSuite = {
@@ -44,9 +47,12 @@ export const profilesSuite = {
         await form.getByLabel('Context order').waitFor();
         assert.equal(await form.getByLabel('Context order').inputValue(), '5');
         assert.equal(await form.getByLabel('Suggestion slots').inputValue(), '5');
-        const samples = form.getByRole('group', { name: 'Writing samples to learn from' }).getByRole('checkbox');
+        const samples = form
+          .getByRole('group', { name: 'Writing samples to learn from' })
+          .getByRole('checkbox');
         assert.ok((await samples.count()) >= 1, 'at least one ready sample is offered');
-        for (const box of await samples.all()) assert.ok(await box.isChecked(), 'every ready sample is chosen');
+        for (const box of await samples.all())
+          assert.ok(await box.isChecked(), 'every ready sample is chosen');
         assert.deepEqual(await t.seriousViolations(page, 'new version form'), []);
         await t.screenshot(page, 'profile-new-version');
         await form.getByRole('button', { name: 'Train this version' }).click();
@@ -67,13 +73,17 @@ export const profilesSuite = {
         await page.getByText('Ready for trial').first().waitFor();
 
         // The charts and their text alternatives.
-        await page.getByRole('table', { name: /^Keystroke savings for 1 to 10 suggestion slots: the figures/ }).waitFor();
-        assert.equal(await page.locator('.recharts-wrapper').count() >= 2, true, 'two charts are drawn');
+        await page
+          .getByRole('table', { name: /^Keystroke savings for 1 to 10 suggestion slots: the figures/ })
+          .waitFor();
+        assert.equal((await page.locator('.recharts-wrapper').count()) >= 2, true, 'two charts are drawn');
         const ksRows = page
           .getByRole('table', { name: /^Keystroke savings for 1 to 10 suggestion slots: the figures/ })
           .getByRole('row');
         assert.equal(await ksRows.count(), 11, 'a header row and one row per list size');
-        await page.getByText('Keystroke savings are not time savings: reading the list costs time.').waitFor();
+        await page
+          .getByText('Keystroke savings are not time savings: reading the list costs time.')
+          .waitFor();
         await page.getByRole('heading', { name: 'Learning curve: does more text still help?' }).waitFor();
         assert.deepEqual(await t.seriousViolations(page, 'version results'), []);
         await t.screenshot(page, 'profile-results');
@@ -99,16 +109,25 @@ export const profilesSuite = {
         assert.deepEqual(await t.seriousViolations(page, 'my clients'), []);
         await page.goto(`${t.appUrl}${versionPath}`, { waitUntil: 'networkidle' });
         await page.getByRole('heading', { name: 'Results' }).waitFor();
-        assert.equal(await page.getByRole('link', { name: /^Export version/ }).count(), 0, 'carers do not export');
+        assert.equal(
+          await page.getByRole('link', { name: /^Export version/ }).count(),
+          0,
+          'carers do not export',
+        );
 
         await page.getByRole('button', { name: 'Sign off' }).click();
         const dialog = page.getByRole('dialog', { name: /^Sign off version/ });
         await dialog.getByRole('button', { name: 'Sign off' }).click();
         await dialog.getByText('Add a comment about the trial.').waitFor();
-        await dialog.getByLabel('How did the try-outs go?').fill('Tried it for a week of evenings; he liked it.');
+        await dialog
+          .getByLabel('How did the try-outs go?')
+          .fill('Tried it for a week of evenings; he liked it.');
         assert.deepEqual(await t.seriousViolations(page, 'sign-off dialog'), []);
         await dialog.getByRole('button', { name: 'Sign off' }).click();
-        await page.getByRole('status').filter({ hasText: /You signed off version/ }).waitFor();
+        await page
+          .getByRole('status')
+          .filter({ hasText: /You signed off version/ })
+          .waitFor();
         await page.getByText('Signed off by carer').first().waitFor();
         await signOut(page, 'Carer');
       },
@@ -134,7 +153,10 @@ export const profilesSuite = {
         await dialog.getByLabel('Comment for the record').fill('Figures and the carer’s trial agree.');
         assert.deepEqual(await t.seriousViolations(page, 'approve dialog'), []);
         await dialog.getByRole('button', { name: 'Approve' }).click();
-        await page.getByRole('status').filter({ hasText: /is now the active profile/ }).waitFor();
+        await page
+          .getByRole('status')
+          .filter({ hasText: /is now the active profile/ })
+          .waitFor();
         await page.getByText('Active profile').first().waitFor();
         await page.getByRole('list', { name: 'History' }).getByText('Active profile').waitFor();
         await t.screenshot(page, 'profile-active');

@@ -1,14 +1,15 @@
 // The Keyloom app itself: build, base-model corpus, migrations and seed, and the API process
 // (which also serves the built client).
-import { existsSync, writeFileSync } from 'node:fs';
+import { existsSync, readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { shown, StepError } from './output.mjs';
 import { repoRoot, runPath } from './paths.mjs';
 import { portInUse, waitForHttp } from './ports.mjs';
-import { isAlive, runChecked, startDetached, stopNamed } from './processes.mjs';
+import { isAlive, runChecked, sleep, startDetached, stopNamed } from './processes.mjs';
 
 const apiDist = join(repoRoot, 'api', 'dist');
 const mainJs = join(apiDist, 'main.js');
+const workerJs = join(apiDist, 'worker.js');
 
 /** .run/<name>.log, emptied: these logs hold the latest run only. */
 function freshLog(name) {
@@ -97,4 +98,41 @@ export async function startApp({ name, env, host, port }) {
 /** Stop the app started under this name (graceful SIGTERM); returns the PID or null. */
 export function stopApp(name) {
   return stopNamed(name, ['api/dist/main.js'], 15_000);
+}
+
+/** The line the worker logs once it takes jobs (api/src/worker.ts). */
+const WORKER_READY = 'Waiting for profile-training jobs';
+
+/**
+ * Start the job worker `node api/dist/worker.js` detached (pid .run/<name>.pid, log .run/<name>.log)
+ * after stopping the one we started before, and wait until it logs that it takes jobs.
+ * @param {{name: string, env: NodeJS.ProcessEnv}} options
+ * @returns {Promise<number>} the PID
+ */
+export async function startWorker({ name, env }) {
+  await stopWorker(name);
+  if (!existsSync(workerJs)) throw new StepError(`${shown(workerJs)} is missing (did the api build run?)`);
+  const logFile = runPath(`${name}.log`);
+  const logStart = existsSync(logFile) ? readFileSync(logFile, 'utf8').length : 0;
+  const pid = startDetached(name, process.execPath, [workerJs], {
+    cwd: repoRoot,
+    env: { ...env, NO_COLOR: '1' },
+    logFile,
+  });
+  // Loading the base model takes about a second; allow for a busy machine.
+  const deadline = Date.now() + 60_000;
+  for (;;) {
+    if (readFileSync(logFile, 'utf8').slice(logStart).includes(WORKER_READY)) return pid;
+    if (!isAlive(pid)) throw new StepError('the worker exited during start-up', logFile);
+    if (Date.now() > deadline) {
+      await stopWorker(name);
+      throw new StepError('the worker did not report ready within 60 s', logFile);
+    }
+    await sleep(200);
+  }
+}
+
+/** Stop the worker started under this name: SIGTERM lets a running job finish (up to 60 s). */
+export function stopWorker(name) {
+  return stopNamed(name, ['api/dist/worker.js'], 65_000);
 }

@@ -26,7 +26,19 @@ export type AuditAction =
   | 'sample.flag-redact'
   | 'sample.flag-keep'
   | 'sample.exclude'
-  | 'sample.delete';
+  | 'sample.delete'
+  // Issue 5: profile versions (clientId set on each).
+  | 'profile.create'
+  | 'profile.train'
+  | 'profile.cancel'
+  | 'profile.trained'
+  | 'profile.failed'
+  | 'profile.sign-off'
+  | 'profile.approve'
+  | 'profile.send-back'
+  | 'profile.retire'
+  | 'profile.export'
+  | 'profile.delete';
 
 /** Who did it: a signed-in user, or only a typed e-mail (failed sign-in); ip of the request. */
 export type AuditActor = { id: string | null; email: string | null; ip?: string | null };

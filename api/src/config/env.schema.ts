@@ -60,6 +60,9 @@ export const envSchema = z
     SAMPLE_MAX_FILE_MB: wholeNumber(1, 1_000, 20),
     SAMPLE_MAX_CLIENT_MB: wholeNumber(1, 100_000, 200),
     SAMPLE_MAX_FILES: wholeNumber(1, 1_000, 50),
+    // Profile training (issue 5): jobs one worker process runs at once, and cross-validation folds.
+    WORKER_CONCURRENCY: wholeNumber(1, 8, 1),
+    PROFILE_FOLDS: wholeNumber(2, 10, 5),
   })
   .transform((env) => ({ ...env, SESSION_SECRET: env.SESSION_SECRET ?? DEV_SESSION_SECRET }));
 

@@ -8,6 +8,8 @@ import { CreateUsersAndSessions1764633600000 } from '../migrations/1764633600000
 import { CreateAuditEvents1764633600001 } from '../migrations/1764633600001-create-audit-events';
 import { CreateClientsAndConsents1764720000000 } from '../migrations/1764720000000-create-clients-and-consents';
 import { CreateLanguageSamples1764720500000 } from '../migrations/1764720500000-create-language-samples';
+import { CreateProfileVersions1764721000000 } from '../migrations/1764721000000-create-profile-versions';
+import { ProfileVersion } from '../profile-versions/profile-version.entity';
 import { SampleFlag } from '../samples/sample-flag.entity';
 import { Sample } from '../samples/sample.entity';
 import { User } from '../users/user.entity';
@@ -23,12 +25,14 @@ export const entities = [
   FamilyContact,
   Sample,
   SampleFlag,
+  ProfileVersion,
 ];
 export const migrations = [
   CreateUsersAndSessions1764633600000,
   CreateAuditEvents1764633600001,
   CreateClientsAndConsents1764720000000,
   CreateLanguageSamples1764720500000,
+  CreateProfileVersions1764721000000,
 ];
 
 /** TypeORM options for the app, the CLI, migrate.js, seed.js and the HTTP tests. Never synchronize. */

@@ -35,3 +35,14 @@ export { planFolds, contiguousParts, keystrokeSample, joinTexts } from './profil
 export type { FoldPlan, ProfileFold, PreparedDocument } from './profile-folds';
 export { EARLY_LETTERS } from './early-words';
 export type { EarlyWord } from './early-words';
+export {
+  writeProfileFile,
+  readProfileFile,
+  verifyProfileFile,
+  ProfileFileError,
+  PROFILE_FILE_MAGIC,
+  PROFILE_FILE_VERSION,
+  PROFILE_FILE_FORMAT,
+  PROFILE_FILE_EXTENSION,
+} from './profile-file';
+export type { ProfileFileHeader, ProfileFileContents } from './profile-file';

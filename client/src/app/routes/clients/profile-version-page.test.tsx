@@ -247,6 +247,28 @@ describe('Profile version page', () => {
     expect(screen.getByRole('button', { name: 'Train' })).toBeInTheDocument();
   });
 
+  it('shows the supervisor’s reason on a version sent back', async () => {
+    const base = profileVersion();
+    await openVersion(
+      'clinician',
+      profileVersion({
+        status: 'sent_back',
+        history: [
+          ...base.history,
+          {
+            status: 'sent_back',
+            at: '2026-09-26T10:00:00.000Z',
+            by: 'Priya Okonkwo',
+            comment: 'Too few try-outs.',
+          },
+        ],
+      }),
+    );
+    expect(
+      screen.getByText('A supervisor sent this version back.').closest('div')?.parentElement,
+    ).toHaveTextContent('Too few try-outs.');
+  });
+
   it('checks an exported file and shows what it holds', async () => {
     const { user, api } = await openVersion('clinician', profileVersion(), {
       'POST /api/profile-exports/verify': {

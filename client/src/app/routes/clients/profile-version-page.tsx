@@ -31,9 +31,8 @@ export const ProfileVersionRoute = () => {
   const me = useMe();
   const client = useClient(clientId);
   const version = useProfileVersion(versionId);
-  const [announcement, setAnnouncement] = useState<Announcement>(
-    () => handedOverSchema.safeParse(location.state).data?.announcement ?? null,
-  );
+  const [handedOver] = useState(() => handedOverSchema.safeParse(location.state).data?.announcement ?? null);
+  const [announcement, setAnnouncement] = useState<Announcement>(null);
   const announce = (tone: 'success' | 'error', text: string) => setAnnouncement({ tone, text });
   const role: Role = me.data?.role ?? 'carer';
   const back = (
@@ -80,7 +79,10 @@ export const ProfileVersionRoute = () => {
           </span>
         }
       />
-      <LiveRegion message={announcement} />
+      {/* A message from the page before ("Version 3 is training.") holds only until the version moves on. */}
+      <LiveRegion
+        message={announcement ?? (data.status === 'training' || data.status === 'draft' ? handedOver : null)}
+      />
       <div className="flex flex-col gap-10">
         <VersionActions role={role} version={data} announce={announce} />
 
@@ -97,6 +99,17 @@ export const ProfileVersionRoute = () => {
             <p>{data.error ?? 'No reason was recorded.'}</p>
             {role === 'clinician' && (
               <p>Retry training, or create a new version with other settings or samples.</p>
+            )}
+          </Alert>
+        )}
+        {data.status === 'sent_back' && (
+          <Alert tone="info" title="A supervisor sent this version back.">
+            <p>
+              {[...data.history].reverse().find((event) => event.status === 'sent_back')?.comment ??
+                'No reason was given.'}
+            </p>
+            {role === 'clinician' && (
+              <p>A version never changes once trained: configure a new version to act on it.</p>
             )}
           </Alert>
         )}

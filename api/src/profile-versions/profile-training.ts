@@ -1,0 +1,216 @@
+import {
+  CancelledError,
+  deserializeModel,
+  type PpmModel,
+  type ProfileProgress,
+  ProfileInputError,
+  type ProfileSettings,
+  trainAndEvaluateProfile,
+} from '@keyloom/shared';
+import { createHash } from 'node:crypto';
+import { existsSync, readFileSync } from 'node:fs';
+import { resolve } from 'node:path';
+import type { DataSource, EntityManager } from 'typeorm';
+import type { AuditService } from '../audit/audit.service';
+import type { FrozenSample, StoredVersionEvent } from './profile-version.entity';
+
+// corpora/.cache/base-model.bin (built by `npm run corpora`), three levels above both
+// api/src/profile-versions and api/dist/profile-versions — found the way LexiconService finds the lexicon.
+export const BASE_MODEL_FILE = resolve(__dirname, '..', '..', '..', 'corpora', '.cache', 'base-model.bin');
+
+/** What the worker holds between jobs: the frozen base model and how to evaluate. */
+export type TrainingRuntime = {
+  base: PpmModel | null;
+  /** SHA-256 (hex) of the base model file, stored with each version. */
+  baseModelSha256: string | null;
+  /** Cross-validation folds, 2..10 (PROFILE_FOLDS; tests use 2–3). */
+  folds: number;
+  /** Keystroke-simulation cap per fold (engine default when undefined). */
+  ksSampleChars?: number | null;
+  /** ms between progress writes (default 500). */
+  progressIntervalMs?: number;
+};
+
+/** Loads the Brown base model from the corpus cache (about 0.5 s); throws a clear message when missing. */
+export function loadTrainingRuntime(folds: number, file = BASE_MODEL_FILE): TrainingRuntime {
+  if (!existsSync(file)) {
+    throw new Error(`The base model ${file} is missing. Run \`npm run corpora\` to build it.`);
+  }
+  const bytes = readFileSync(file);
+  return {
+    base: deserializeModel(new Uint8Array(bytes)).freeze(),
+    baseModelSha256: createHash('sha256').update(bytes).digest('hex'),
+    folds,
+  };
+}
+
+/** How a training job ended. 'stale': the version no longer waits for this job (cancelled, deleted, re-queued). */
+export type TrainingOutcome = 'trained' | 'failed' | 'cancelled' | 'stale';
+
+/** The engine's input settings from the stored (zod-shaped) settings. */
+export function engineSettings(settings: ProfileSettings): ProfileSettings {
+  return {
+    order: settings.order,
+    escape: settings.escape,
+    exclusion: settings.exclusion,
+    baseWeight: settings.baseWeight,
+    slots: settings.slots,
+    caseFold: settings.caseFold,
+    access: settings.access,
+  };
+}
+
+/** Documents in the order they were frozen (the order decides the folds). */
+export function frozenDocuments(samples: FrozenSample[]): { id: string; text: string }[] {
+  return samples.map((s) => ({ id: s.id, text: s.text }));
+}
+
+// UPDATE … through TypeORM's raw query answers [rows, rowCount].
+async function updateCount(manager: EntityManager, sql: string, params: unknown[]): Promise<number> {
+  const raw: unknown = await manager.query(sql, params);
+  if (Array.isArray(raw) && raw.length === 2 && typeof raw[1] === 'number') return raw[1];
+  return Array.isArray(raw) ? raw.length : 0;
+}
+
+const STILL_MINE = `id = $1 AND job_id = $2 AND status = 'training'`;
+
+function event(status: StoredVersionEvent['status'], comment: string | null): string {
+  const e: StoredVersionEvent = { status, at: new Date().toISOString(), by: null, comment };
+  return JSON.stringify([e]);
+}
+
+/**
+ * The job handler (the worker calls it for each pg-boss job; the HTTP tests call it in-process).
+ * Claims the version only while it is `training` under this `jobId`, trains and evaluates the
+ * frozen samples, writes progress about every 500 ms, and saves report + model + `trained` in one
+ * transaction guarded by the same condition, so a cancelled or re-queued version is never
+ * overwritten and nothing is half-saved. Bad input (too little text, settings out of range) → `failed`
+ * with the engine's message. Any other fault → `failed` too; when even that cannot be written
+ * (database down) the error is rethrown so pg-boss retries the job.
+ */
+export async function runProfileTraining(
+  dataSource: DataSource,
+  audit: AuditService,
+  versionId: string,
+  jobId: string,
+  runtime: TrainingRuntime,
+): Promise<TrainingOutcome> {
+  const manager = dataSource.manager;
+  const claimed = await updateCount(
+    manager,
+    `UPDATE profile_versions SET stage = 'preparing', heartbeat_at = now(), updated_at = now() WHERE ${STILL_MINE}`,
+    [versionId, jobId],
+  );
+  if (claimed === 0) return 'stale';
+  const rows: { client_id: string; settings: ProfileSettings; samples: FrozenSample[] }[] =
+    await manager.query('SELECT client_id, settings, samples FROM profile_versions WHERE id = $1', [
+      versionId,
+    ]);
+  const row = rows[0];
+  if (!row) return 'stale';
+  const subject = { type: 'profile-version', id: versionId, clientId: row.client_id };
+
+  let latest: ProfileProgress = { stage: 'preparing', fraction: 0 };
+  let lost = false; // the row stopped waiting for this job (cancel, delete, re-queue)
+  let writing: Promise<void> | null = null;
+  const writeProgress = (): Promise<void> => {
+    if (writing) return writing;
+    const { stage, fraction } = latest;
+    writing = updateCount(
+      manager,
+      `UPDATE profile_versions SET progress = $3, stage = $4, heartbeat_at = now(), updated_at = now() WHERE ${STILL_MINE}`,
+      [versionId, jobId, Math.min(1, Math.max(0, fraction)), stage],
+    )
+      .then((count) => {
+        if (count === 0) lost = true;
+      })
+      // A failed progress write (e.g. a database restart) is not fatal; the final save decides.
+      .catch(() => undefined)
+      .finally(() => {
+        writing = null;
+      });
+    return writing;
+  };
+  const settled = (): Promise<void> => writing ?? Promise.resolve();
+  const timer = setInterval(() => {
+    // Every tick, changed or not: the write is also the heartbeat and the cancel check.
+    if (!lost) void writeProgress();
+  }, runtime.progressIntervalMs ?? 500);
+  timer.unref();
+
+  try {
+    const result = await trainAndEvaluateProfile(
+      {
+        documents: frozenDocuments(row.samples),
+        settings: engineSettings(row.settings),
+        base: runtime.base,
+        folds: runtime.folds,
+        ...(runtime.ksSampleChars === undefined ? {} : { ksSampleChars: runtime.ksSampleChars }),
+      },
+      (p) => {
+        latest = p;
+      },
+      () => lost,
+    );
+    clearInterval(timer);
+    await settled();
+    const saved = await dataSource.transaction(async (tx) => {
+      const count = await updateCount(
+        tx,
+        `UPDATE profile_versions SET status = 'trained', progress = 1, stage = NULL, error = NULL,
+           metrics = $3::jsonb, model = $4, model_size = $5, blend_weight = $6, base_model_sha256 = $7,
+           trained_at = now(), heartbeat_at = now(), updated_at = now(), history = history || $8::jsonb
+         WHERE ${STILL_MINE}`,
+        [
+          versionId,
+          jobId,
+          JSON.stringify(result.report),
+          Buffer.from(result.modelBytes),
+          result.modelBytes.length,
+          result.blendWeight,
+          runtime.base ? runtime.baseModelSha256 : null,
+          event('trained', null),
+        ],
+      );
+      if (count === 0) return false;
+      await audit.record(
+        null,
+        'profile.trained',
+        subject,
+        {
+          jobId,
+          chars: result.report.chars,
+          bpcIdeal: result.report.bpcIdeal,
+          modelBytes: result.modelBytes.length,
+          ms: result.report.timings.total,
+        },
+        tx,
+      );
+      return true;
+    });
+    return saved ? 'trained' : 'stale';
+  } catch (error) {
+    clearInterval(timer);
+    await settled();
+    if (error instanceof CancelledError) return 'cancelled';
+    const message =
+      error instanceof ProfileInputError
+        ? error.message
+        : `Training stopped by a fault: ${error instanceof Error ? error.message : String(error)}. Train again to retry.`;
+    try {
+      await dataSource.transaction(async (tx) => {
+        const count = await updateCount(
+          tx,
+          `UPDATE profile_versions SET status = 'failed', stage = NULL, error = $3, updated_at = now(),
+             history = history || $4::jsonb WHERE ${STILL_MINE}`,
+          [versionId, jobId, message, event('failed', message)],
+        );
+        if (count > 0) await audit.record(null, 'profile.failed', subject, { jobId, error: message }, tx);
+      });
+    } catch {
+      // The failure could not be recorded (database unreachable): let pg-boss retry the whole job.
+      throw error;
+    }
+    return 'failed';
+  }
+}

@@ -1,0 +1,52 @@
+import type { ProfileVersion as ProfileVersionShape } from '@keyloom/shared';
+import type { ProfileVersion } from './profile-version.entity';
+
+/**
+ * The API shape: profileVersionSchema of shared/src/schemas/profile-versions.schema.ts, plus who
+ * signed off and approved (name, time, comment), the send-back reason, λ and the base model's hash.
+ * The frozen sample texts are never sent.
+ */
+export type ProfileVersionDto = ProfileVersionShape & {
+  blendWeight: number | null;
+  baseModelSha256: string | null;
+  signedOffBy: string | null;
+  signedOffAt: string | null;
+  signOffComment: string | null;
+  approvedBy: string | null;
+  approvedAt: string | null;
+  approvalComment: string | null;
+  sentBackReason: string | null;
+};
+
+const REMOVED = '(removed account)';
+
+/** Entity (with createdBy, signedOffBy, approvedBy loaded) → API shape. */
+export function toProfileVersionDto(v: ProfileVersion): ProfileVersionDto {
+  return {
+    id: v.id,
+    clientId: v.clientId,
+    number: v.number,
+    note: v.note,
+    status: v.status,
+    progress: v.progress,
+    stage: v.stage,
+    error: v.error,
+    settings: v.settings,
+    samples: v.samples.map(({ id, title, sha256, characters }) => ({ id, title, sha256, characters })),
+    metrics: v.metrics,
+    modelBytes: v.modelSize,
+    createdBy: v.createdBy?.name ?? REMOVED,
+    createdAt: v.createdAt.toISOString(),
+    trainedAt: v.trainedAt?.toISOString() ?? null,
+    history: v.history,
+    blendWeight: v.blendWeight,
+    baseModelSha256: v.baseModelSha256,
+    signedOffBy: v.signedOffById ? (v.signedOffBy?.name ?? REMOVED) : null,
+    signedOffAt: v.signedOffAt?.toISOString() ?? null,
+    signOffComment: v.signOffComment,
+    approvedBy: v.approvedById ? (v.approvedBy?.name ?? REMOVED) : null,
+    approvedAt: v.approvedAt?.toISOString() ?? null,
+    approvalComment: v.approvalComment,
+    sentBackReason: v.sentBackReason,
+  };
+}

@@ -1,0 +1,239 @@
+import {
+  BadRequestException,
+  Body,
+  Controller,
+  Get,
+  HttpCode,
+  Ip,
+  Param,
+  ParseUUIDPipe,
+  Post,
+  StreamableFile,
+  UploadedFile,
+  UseInterceptors,
+} from '@nestjs/common';
+import { FileInterceptor } from '@nestjs/platform-express';
+import {
+  ApiBody,
+  ApiConsumes,
+  ApiCreatedResponse,
+  ApiOkResponse,
+  ApiOperation,
+  ApiProduces,
+  ApiTags,
+} from '@nestjs/swagger';
+import {
+  type ApproveInput,
+  approveSchema,
+  type CreateProfileVersionInput,
+  createProfileVersionSchema,
+  profileVersionSchema,
+  type SendBackInput,
+  sendBackSchema,
+  type SessionUser,
+  type SignOffInput,
+  signOffSchema,
+} from '@keyloom/shared';
+import { memoryStorage } from 'multer';
+import { z } from 'zod';
+import { CurrentUser } from '../auth/decorators/current-user.decorator';
+import { Roles } from '../auth/decorators/roles.decorator';
+import { zodSchemaObject } from '../common/openapi/zod-schema-object';
+import { ZodValidationPipe } from '../common/pipes/zod-validation.pipe';
+import type { ProfileVersionDto } from './profile-version.mapper';
+import { type ProfileFileReport, ProfileVersionsService } from './profile-versions.service';
+
+/** Largest .klprofile accepted for checking (a 200,000-character profile's model is a few MB). */
+export const MAX_PROFILE_FILE_BYTES = 64 * 1024 * 1024;
+export const PROFILE_FILE_FIELD_MESSAGE = 'Send one .klprofile file in the multipart field "file".';
+
+const TRANSITION =
+  'Wrong status: 409 with a message ("This version is already signed off." …). Unknown id, or a client ' +
+  'out of sight: 404.';
+
+@ApiTags('profile versions')
+@Controller()
+export class ProfileVersionsController {
+  constructor(private readonly versions: ProfileVersionsService) {}
+
+  @Get('clients/:id/profile-versions')
+  @ApiOperation({
+    summary: 'The client’s profile versions, newest first',
+    description: 'Owning clinician, supervisor, assigned carer. Admin: 403.',
+  })
+  @ApiOkResponse({ schema: zodSchemaObject(z.array(profileVersionSchema)) })
+  list(
+    @CurrentUser() user: SessionUser,
+    @Ip() ip: string,
+    @Param('id', ParseUUIDPipe) id: string,
+  ): Promise<ProfileVersionDto[]> {
+    return this.versions.list({ ...user, ip }, id);
+  }
+
+  @Post('clients/:id/profile-versions')
+  @Roles('clinician')
+  @ApiOperation({
+    summary: 'Configure a new version (draft): settings and samples are frozen',
+    description:
+      'Owning clinician; active training consent (409). access defaults to the client record; sampleIds ' +
+      'to every ready sample (a chosen sample that is excluded or still flagged: 400).',
+  })
+  @ApiBody({ schema: zodSchemaObject(createProfileVersionSchema) })
+  @ApiCreatedResponse({ schema: zodSchemaObject(profileVersionSchema) })
+  create(
+    @CurrentUser() user: SessionUser,
+    @Ip() ip: string,
+    @Param('id', ParseUUIDPipe) id: string,
+    @Body(new ZodValidationPipe(createProfileVersionSchema)) body: CreateProfileVersionInput,
+  ): Promise<ProfileVersionDto> {
+    return this.versions.create({ ...user, ip }, id, body);
+  }
+
+  @Get('profile-versions/:id')
+  @ApiOperation({ summary: 'One version: status, progress (0–1), stage, metrics, history' })
+  @ApiOkResponse({ schema: zodSchemaObject(profileVersionSchema) })
+  findOne(
+    @CurrentUser() user: SessionUser,
+    @Ip() ip: string,
+    @Param('id', ParseUUIDPipe) id: string,
+  ): Promise<ProfileVersionDto> {
+    return this.versions.findOne({ ...user, ip }, id);
+  }
+
+  @Post('profile-versions/:id/train')
+  @HttpCode(200)
+  @Roles('clinician')
+  @ApiOperation({
+    summary: 'Queue training and evaluation (draft or failed → training)',
+    description:
+      'Owning clinician; active training consent (409); under 500 characters or bad settings: 400 with the ' +
+      `engine's message. Also from training when its job is dead (worker killed). ${TRANSITION}`,
+  })
+  @ApiOkResponse({ schema: zodSchemaObject(profileVersionSchema) })
+  train(
+    @CurrentUser() user: SessionUser,
+    @Ip() ip: string,
+    @Param('id', ParseUUIDPipe) id: string,
+  ): Promise<ProfileVersionDto> {
+    return this.versions.train({ ...user, ip }, id);
+  }
+
+  @Post('profile-versions/:id/cancel')
+  @HttpCode(200)
+  @Roles('clinician')
+  @ApiOperation({
+    summary: 'Cancel training (training → draft)',
+    description: `Owning clinician. ${TRANSITION}`,
+  })
+  @ApiOkResponse({ schema: zodSchemaObject(profileVersionSchema) })
+  cancel(
+    @CurrentUser() user: SessionUser,
+    @Ip() ip: string,
+    @Param('id', ParseUUIDPipe) id: string,
+  ): Promise<ProfileVersionDto> {
+    return this.versions.cancel({ ...user, ip }, id);
+  }
+
+  @Post('profile-versions/:id/sign-off')
+  @HttpCode(200)
+  @Roles('carer')
+  @ApiOperation({
+    summary: 'Sign off after a trial (trained → signed_off)',
+    description: `Assigned carer. ${TRANSITION}`,
+  })
+  @ApiBody({ schema: zodSchemaObject(signOffSchema) })
+  @ApiOkResponse({ schema: zodSchemaObject(profileVersionSchema) })
+  signOff(
+    @CurrentUser() user: SessionUser,
+    @Ip() ip: string,
+    @Param('id', ParseUUIDPipe) id: string,
+    @Body(new ZodValidationPipe(signOffSchema)) body: SignOffInput,
+  ): Promise<ProfileVersionDto> {
+    return this.versions.signOff({ ...user, ip }, id, body);
+  }
+
+  @Post('profile-versions/:id/approve')
+  @HttpCode(200)
+  @Roles('supervisor')
+  @ApiOperation({
+    summary: 'Approve (signed_off → active; the previous active version → retired)',
+    description: `Supervisor who neither created nor signed off the version (else 403). ${TRANSITION}`,
+  })
+  @ApiBody({ schema: zodSchemaObject(approveSchema) })
+  @ApiOkResponse({ schema: zodSchemaObject(profileVersionSchema) })
+  approve(
+    @CurrentUser() user: SessionUser,
+    @Ip() ip: string,
+    @Param('id', ParseUUIDPipe) id: string,
+    @Body(new ZodValidationPipe(approveSchema)) body: ApproveInput,
+  ): Promise<ProfileVersionDto> {
+    return this.versions.approve({ ...user, ip }, id, body);
+  }
+
+  @Post('profile-versions/:id/send-back')
+  @HttpCode(200)
+  @Roles('supervisor')
+  @ApiOperation({
+    summary: 'Send back with a reason (signed_off → sent_back)',
+    description: `Supervisor. ${TRANSITION}`,
+  })
+  @ApiBody({ schema: zodSchemaObject(sendBackSchema) })
+  @ApiOkResponse({ schema: zodSchemaObject(profileVersionSchema) })
+  sendBack(
+    @CurrentUser() user: SessionUser,
+    @Ip() ip: string,
+    @Param('id', ParseUUIDPipe) id: string,
+    @Body(new ZodValidationPipe(sendBackSchema)) body: SendBackInput,
+  ): Promise<ProfileVersionDto> {
+    return this.versions.sendBack({ ...user, ip }, id, body);
+  }
+
+  @Get('profile-versions/:id/export')
+  @Roles('clinician', 'supervisor')
+  @ApiOperation({
+    summary: 'Download the version as a .klprofile file (trained or later)',
+    description: 'Owning clinician or supervisor; carers 403; no model yet: 409.',
+  })
+  @ApiProduces('application/octet-stream')
+  @ApiOkResponse({ schema: { type: 'string', format: 'binary' } })
+  async export(
+    @CurrentUser() user: SessionUser,
+    @Ip() ip: string,
+    @Param('id', ParseUUIDPipe) id: string,
+  ): Promise<StreamableFile> {
+    const file = await this.versions.export({ ...user, ip }, id);
+    return new StreamableFile(file.bytes, {
+      type: 'application/octet-stream',
+      length: file.bytes.length,
+      disposition: `attachment; filename="${file.fileName}"`,
+    });
+  }
+
+  @Post('profile-exports/verify')
+  @HttpCode(200)
+  @Roles('clinician', 'supervisor')
+  @UseInterceptors(
+    FileInterceptor('file', {
+      storage: memoryStorage(),
+      limits: { fileSize: MAX_PROFILE_FILE_BYTES, files: 1, fields: 10 },
+    }),
+  )
+  @ApiOperation({
+    summary: 'Check a .klprofile file and report its contents',
+    description:
+      'Multipart field "file". Checks the magic, layout version, lengths, CRC-32 and that the model loads; ' +
+      '400 with what is wrong (not a profile file, cut short, damaged).',
+  })
+  @ApiConsumes('multipart/form-data')
+  @ApiBody({
+    schema: {
+      type: 'object',
+      required: ['file'],
+      properties: { file: { type: 'string', format: 'binary' } },
+    },
+  })
+  verify(@UploadedFile() file: Express.Multer.File | undefined): ProfileFileReport {
+    if (!file) throw new BadRequestException(PROFILE_FILE_FIELD_MESSAGE);
+    return this.versions.verify(file.originalname ?? null, file.buffer);
+  }
+}

@@ -1,0 +1,622 @@
+import {
+  BadRequestException,
+  ConflictException,
+  ForbiddenException,
+  Injectable,
+  Logger,
+  NotFoundException,
+  type OnModuleInit,
+  ServiceUnavailableException,
+} from '@nestjs/common';
+import { InjectDataSource } from '@nestjs/typeorm';
+import {
+  type ApproveInput,
+  checkProfileSettings,
+  type CreateProfileVersionInput,
+  MIN_PROFILE_CHARS,
+  prepareText,
+  PROFILE_FILE_EXTENSION,
+  ProfileFileError,
+  type ProfileFileHeader,
+  ProfileInputError,
+  type ProfileVersionSettings,
+  type ProfileVersionStatus,
+  profileVersionSettingsSchema,
+  profileVersionStatusLabels,
+  type SendBackInput,
+  type SignOffInput,
+  verifyProfileFile,
+  writeProfileFile,
+} from '@keyloom/shared';
+import { randomUUID } from 'node:crypto';
+import { DataSource, type EntityManager, In } from 'typeorm';
+import { AuditService } from '../audit/audit.service';
+import type { Actor } from '../auth/session-user';
+import { WRONG_ROLE_MESSAGE } from '../auth/session-user';
+import { ClientAccessService } from '../clients/client-access.service';
+import type { Client } from '../clients/client.entity';
+import { WithdrawalHooks } from '../consents/withdrawal-hooks';
+import { LIVE_JOB_STATES, PROFILE_TRAINING_QUEUE } from '../jobs/job-queue';
+import { JobQueueService } from '../jobs/job-queue.service';
+import { Sample } from '../samples/sample.entity';
+import { engineSettings } from './profile-training';
+import { type FrozenSample, ProfileVersion, type StoredVersionEvent } from './profile-version.entity';
+import { type ProfileVersionDto, toProfileVersionDto } from './profile-version.mapper';
+
+export const VERSION_NOT_FOUND_MESSAGE = 'There is no profile version with that id.';
+export const NO_READY_SAMPLES_MESSAGE =
+  'This client has no samples ready for training. Upload samples and review their personal-data flags first.';
+export const ALREADY_TRAINING_MESSAGE = 'This version is already training.';
+export const ALREADY_TRAINED_MESSAGE =
+  'This version is already trained, and a trained version never changes. Create a new version to train with other settings.';
+export const NOT_TRAINING_MESSAGE = 'This version is not training; there is nothing to cancel.';
+export const ALREADY_SIGNED_OFF_MESSAGE = 'This version is already signed off.';
+export const ALREADY_ACTIVE_MESSAGE = 'This version is already approved and active.';
+export const ALREADY_SENT_BACK_MESSAGE = 'This version was already sent back.';
+export const OWN_WORK_MESSAGE = 'Nobody approves their own work: you created or signed off this version.';
+export const ONLY_CARER_SIGNS_OFF_MESSAGE = 'Only a carer assigned to this client signs off a version.';
+export const ONLY_SUPERVISOR_MESSAGE = 'Only a supervisor approves or sends back a version.';
+export const NO_MODEL_MESSAGE = 'This version has no trained model yet; train it first.';
+export const CARER_EXPORT_MESSAGE = 'Carers cannot export profiles. Ask the client’s clinician.';
+
+/** A version whose job shows no sign of life for this long may be queued again (worker killed). */
+export const STALE_HEARTBEAT_MS = 90_000;
+
+/** Statuses whose version holds a trained model (it can be exported). */
+const WITH_MODEL: readonly ProfileVersionStatus[] = [
+  'trained',
+  'signed_off',
+  'active',
+  'retired',
+  'sent_back',
+];
+
+/** The file a version exports to. */
+export type ExportedProfile = { fileName: string; bytes: Buffer };
+
+/** What POST /api/profile-exports/verify answers for a good file. */
+export type ProfileFileReport = {
+  valid: true;
+  fileName: string | null;
+  bytes: number;
+  checksum: string;
+  modelBytes: number;
+  modelOrder: number;
+  modelContexts: number;
+  header: ProfileFileHeader;
+};
+
+function label(status: ProfileVersionStatus): string {
+  return profileVersionStatusLabels[status].toLowerCase();
+}
+
+function historyEvent(status: ProfileVersionStatus, actor: Actor | null, comment: string | null): string {
+  const e: StoredVersionEvent = { status, at: new Date().toISOString(), by: actor?.name ?? null, comment };
+  return JSON.stringify([e]);
+}
+
+// UPDATE … through TypeORM's raw query answers [rows, rowCount].
+async function updateCount(manager: EntityManager, sql: string, params: unknown[]): Promise<number> {
+  const raw: unknown = await manager.query(sql, params);
+  if (Array.isArray(raw) && raw.length === 2 && typeof raw[1] === 'number') return raw[1];
+  return Array.isArray(raw) ? raw.length : 0;
+}
+
+/** The access timings of the client record, as the settings' `access`. */
+function accessFromClient(client: Client): ProfileVersionSettings['access'] {
+  return {
+    method: client.accessMethod,
+    ...(client.scanIntervalMs === null ? {} : { scanIntervalMs: client.scanIntervalMs }),
+    ...(client.dwellMs === null ? {} : { dwellMs: client.dwellMs }),
+    ...(client.keyTimeMs === null ? {} : { keyTimeMs: client.keyTimeMs }),
+  };
+}
+
+function slug(text: string): string {
+  return (
+    text
+      .normalize('NFKD')
+      .replace(/[^\w\s-]/g, '')
+      .trim()
+      .replace(/[\s_]+/g, '-')
+      .toLowerCase() || 'client'
+  );
+}
+
+@Injectable()
+export class ProfileVersionsService implements OnModuleInit {
+  private readonly logger = new Logger('ProfileVersions');
+
+  constructor(
+    @InjectDataSource() private readonly dataSource: DataSource,
+    private readonly access: ClientAccessService,
+    private readonly audit: AuditService,
+    private readonly jobs: JobQueueService,
+    private readonly withdrawalHooks: WithdrawalHooks,
+  ) {}
+
+  onModuleInit(): void {
+    this.withdrawalHooks.register('profileVersions', (clientId, manager) =>
+      deleteClientProfileVersions(clientId, manager, this.audit),
+    );
+  }
+
+  /** The client's versions, newest first (owning clinician, supervisor, assigned carer). */
+  async list(actor: Actor, clientId: string): Promise<ProfileVersionDto[]> {
+    await this.access.requireReadable(actor, clientId, 'clinical');
+    const rows = await this.dataSource.getRepository(ProfileVersion).find({
+      where: { clientId },
+      relations: { createdBy: true, signedOffBy: true, approvedBy: true },
+      order: { number: 'DESC' },
+    });
+    return rows.map(toProfileVersionDto);
+  }
+
+  /** One version. */
+  async findOne(actor: Actor, id: string): Promise<ProfileVersionDto> {
+    await this.readable(actor, id);
+    return this.dto(this.dataSource.manager, id);
+  }
+
+  /** Freezes settings and samples into a new draft (owning clinician, active training consent). */
+  async create(actor: Actor, clientId: string, input: CreateProfileVersionInput): Promise<ProfileVersionDto> {
+    return this.dataSource.transaction(async (manager) => {
+      const client = await this.access.requireOwned(actor, clientId, manager);
+      await this.access.requireTrainingConsent(clientId, manager);
+      const settings = profileVersionSettingsSchema.parse({
+        ...input.settings,
+        access: input.settings.access ?? accessFromClient(client),
+      });
+      const samples = await this.frozenSamples(manager, clientId, input.sampleIds);
+      // Numbers per client: one creation at a time per client.
+      await manager.query('SELECT 1 FROM clients WHERE id = $1 FOR UPDATE', [clientId]);
+      const rows: { next: number }[] = await manager.query(
+        'SELECT COALESCE(MAX(number), 0) + 1 AS next FROM profile_versions WHERE client_id = $1',
+        [clientId],
+      );
+      const repo = manager.getRepository(ProfileVersion);
+      const version = await repo.save(
+        repo.create({
+          clientId,
+          number: Number(rows[0]?.next ?? 1),
+          note: input.note ?? null,
+          status: 'draft',
+          settings,
+          samples,
+          progress: 0,
+          stage: null,
+          history: [
+            { status: 'draft', at: new Date().toISOString(), by: actor.name, comment: input.note ?? null },
+          ],
+          createdById: actor.id,
+        }),
+      );
+      await this.audit.record(
+        actor,
+        'profile.create',
+        { type: 'profile-version', id: version.id, clientId },
+        { number: version.number, settings, samples: samples.map(({ id, sha256 }) => ({ id, sha256 })) },
+        manager,
+      );
+      return this.dto(manager, version.id);
+    });
+  }
+
+  // The ready samples (or the chosen ones, which must be ready), oldest first, with their text now.
+  private async frozenSamples(
+    manager: EntityManager,
+    clientId: string,
+    sampleIds: string[] | undefined,
+  ): Promise<FrozenSample[]> {
+    const repo = manager.getRepository(Sample);
+    const order = { createdAt: 'ASC', title: 'ASC', id: 'ASC' } as const;
+    let rows: Sample[];
+    if (sampleIds) {
+      const unique = [...new Set(sampleIds)];
+      rows = await repo.find({ where: { clientId, id: In(unique) }, order });
+      const missing = unique.filter((id) => !rows.some((r) => r.id === id));
+      if (missing.length > 0) {
+        throw new BadRequestException({
+          message: `${missing.length === 1 ? 'One chosen sample is' : `${missing.length} chosen samples are`} not this client's.`,
+          issues: [{ path: 'sampleIds', message: `Unknown sample: ${missing.join(', ')}` }],
+        });
+      }
+      const notReady = rows.filter((r) => r.status !== 'ready');
+      if (notReady.length > 0) {
+        const why = (r: Sample) =>
+          r.status === 'excluded'
+            ? `“${r.title}” is excluded`
+            : `“${r.title}” still has personal-data flags to review`;
+        const message = `${notReady.map(why).join('; ')}. Only ready samples can be used.`;
+        throw new BadRequestException({ message, issues: [{ path: 'sampleIds', message }] });
+      }
+    } else {
+      rows = await repo.find({ where: { clientId, status: 'ready' }, order });
+      if (rows.length === 0) throw new BadRequestException(NO_READY_SAMPLES_MESSAGE);
+    }
+    return rows.map((r) => ({
+      id: r.id,
+      title: r.title,
+      sha256: r.sha256,
+      characters: r.characters,
+      text: r.text,
+    }));
+  }
+
+  /**
+   * Queues the training job (owning clinician). Allowed from draft and failed, and from training
+   * when its job is no longer alive (finished, cancelled, unknown, or no heartbeat for 90 s: the
+   * worker was killed), so every stuck version can be retried.
+   */
+  async train(actor: Actor, id: string): Promise<ProfileVersionDto> {
+    const { clientId } = await this.owned(actor, id);
+    await this.access.requireTrainingConsent(clientId);
+    const jobId = randomUUID();
+    let staleJob: string | null = null;
+    await this.dataSource.transaction(async (manager) => {
+      const version = await this.locked(manager, id);
+      if (version.status === 'training') {
+        if (await this.jobIsAlive(version)) throw new ConflictException(ALREADY_TRAINING_MESSAGE);
+        staleJob = version.jobId;
+      } else if (version.status !== 'draft' && version.status !== 'failed') {
+        throw new ConflictException(ALREADY_TRAINED_MESSAGE);
+      }
+      this.checkTrainable(version);
+      await updateCount(
+        manager,
+        `UPDATE profile_versions SET status = 'training', progress = 0, stage = 'queued', error = NULL,
+           job_id = $2, heartbeat_at = now(), updated_at = now(), history = history || $3::jsonb WHERE id = $1`,
+        [id, jobId, historyEvent('training', actor, null)],
+      );
+      await this.audit.record(
+        actor,
+        'profile.train',
+        { type: 'profile-version', id, clientId },
+        { jobId, retry: version.status !== 'draft', replacedJobId: staleJob },
+        manager,
+      );
+    });
+    if (staleJob) await this.jobs.cancel(PROFILE_TRAINING_QUEUE, staleJob).catch(() => undefined);
+    try {
+      await this.jobs.send(PROFILE_TRAINING_QUEUE, { versionId: id }, jobId);
+    } catch (error) {
+      const why = error instanceof Error ? error.message : String(error);
+      this.logger.error(`Could not queue the training job of ${id}: ${why}`);
+      const message = `The training job could not be queued (${why}). Train again to retry.`;
+      await this.dataSource.transaction(async (manager) => {
+        const count = await updateCount(
+          manager,
+          `UPDATE profile_versions SET status = 'failed', stage = NULL, error = $3, updated_at = now(),
+             history = history || $4::jsonb WHERE id = $1 AND job_id = $2 AND status = 'training'`,
+          [id, jobId, message, historyEvent('failed', null, message)],
+        );
+        if (count > 0) {
+          await this.audit.record(
+            null,
+            'profile.failed',
+            { type: 'profile-version', id, clientId },
+            { jobId, error: message },
+            manager,
+          );
+        }
+      });
+      throw new ServiceUnavailableException(message);
+    }
+    return this.dto(this.dataSource.manager, id);
+  }
+
+  // Too little text or bad settings: 400 with the engine's message, before anything is queued.
+  private checkTrainable(version: ProfileVersion): void {
+    const settings = engineSettings(version.settings);
+    try {
+      checkProfileSettings(settings);
+    } catch (error) {
+      if (error instanceof ProfileInputError) throw new BadRequestException(error.message);
+      throw error;
+    }
+    const chars = version.samples.reduce(
+      (n, s) => n + prepareText(s.text, { caseFold: settings.caseFold }).length,
+      0,
+    );
+    if (chars < MIN_PROFILE_CHARS) {
+      // The engine's own wording (trainAndEvaluateProfile), so the form and a failed job read the same.
+      throw new BadRequestException(
+        `A profile needs at least ${MIN_PROFILE_CHARS} characters of sample text; ` +
+          `the selected samples have ${chars}. Add more samples.`,
+      );
+    }
+  }
+
+  private async jobIsAlive(version: ProfileVersion): Promise<boolean> {
+    if (!version.jobId) return false;
+    const state = await this.jobs.state(PROFILE_TRAINING_QUEUE, version.jobId);
+    if (state === null || !LIVE_JOB_STATES.includes(state)) return false;
+    // Queued jobs wait their turn; a running one must keep its heartbeat.
+    if (state !== 'active') return true;
+    const beat = version.heartbeatAt?.getTime() ?? 0;
+    return Date.now() - beat < STALE_HEARTBEAT_MS;
+  }
+
+  /** Stops training (owning clinician): the version goes back to draft; the worker drops its work. */
+  async cancel(actor: Actor, id: string): Promise<ProfileVersionDto> {
+    const { clientId } = await this.owned(actor, id);
+    let jobId: string | null = null;
+    await this.dataSource.transaction(async (manager) => {
+      const version = await this.locked(manager, id);
+      if (version.status !== 'training') throw new ConflictException(NOT_TRAINING_MESSAGE);
+      jobId = version.jobId;
+      const message = `Cancelled by ${actor.name}.`;
+      await updateCount(
+        manager,
+        `UPDATE profile_versions SET status = 'draft', progress = 0, stage = NULL, error = $2, job_id = NULL,
+           updated_at = now(), history = history || $3::jsonb WHERE id = $1`,
+        [id, message, historyEvent('draft', actor, 'Training cancelled.')],
+      );
+      await this.audit.record(
+        actor,
+        'profile.cancel',
+        { type: 'profile-version', id, clientId },
+        { jobId },
+        manager,
+      );
+    });
+    if (jobId) await this.jobs.cancel(PROFILE_TRAINING_QUEUE, jobId).catch(() => undefined);
+    return this.dto(this.dataSource.manager, id);
+  }
+
+  /** trained → signed_off (an assigned carer, with a comment). */
+  async signOff(actor: Actor, id: string, input: SignOffInput): Promise<ProfileVersionDto> {
+    const { clientId } = await this.readable(actor, id);
+    if (actor.role !== 'carer') throw new ForbiddenException(ONLY_CARER_SIGNS_OFF_MESSAGE);
+    return this.dataSource.transaction(async (manager) => {
+      const version = await this.locked(manager, id);
+      if (version.status === 'signed_off') throw new ConflictException(ALREADY_SIGNED_OFF_MESSAGE);
+      if (version.status !== 'trained') {
+        throw new ConflictException(
+          `Only a version that is ready for trial can be signed off; this one is ${label(version.status)}.`,
+        );
+      }
+      await updateCount(
+        manager,
+        `UPDATE profile_versions SET status = 'signed_off', signed_off_by = $2, signed_off_at = now(),
+           sign_off_comment = $3, updated_at = now(), history = history || $4::jsonb WHERE id = $1`,
+        [id, actor.id, input.comment, historyEvent('signed_off', actor, input.comment)],
+      );
+      await this.audit.record(
+        actor,
+        'profile.sign-off',
+        { type: 'profile-version', id, clientId },
+        { comment: input.comment },
+        manager,
+      );
+      return this.dto(manager, id);
+    });
+  }
+
+  /**
+   * signed_off → active (a supervisor who neither created nor signed it off); the client's
+   * previous active version → retired. The client row is locked, so of two approvals at once
+   * exactly one wins and the other gets 409.
+   */
+  async approve(actor: Actor, id: string, input: ApproveInput): Promise<ProfileVersionDto> {
+    const { clientId } = await this.readable(actor, id);
+    if (actor.role !== 'supervisor') throw new ForbiddenException(ONLY_SUPERVISOR_MESSAGE);
+    return this.dataSource.transaction(async (manager) => {
+      await manager.query('SELECT 1 FROM clients WHERE id = $1 FOR UPDATE', [clientId]);
+      const version = await this.locked(manager, id);
+      if (version.status === 'active') throw new ConflictException(ALREADY_ACTIVE_MESSAGE);
+      if (version.status !== 'signed_off') {
+        throw new ConflictException(
+          `Only a version signed off by a carer can be approved; this one is ${label(version.status)}.`,
+        );
+      }
+      if (version.createdById === actor.id || version.signedOffById === actor.id) {
+        throw new ForbiddenException(OWN_WORK_MESSAGE);
+      }
+      const previous = await manager
+        .getRepository(ProfileVersion)
+        .findOne({ where: { clientId, status: 'active' }, select: ['id', 'number'] });
+      if (previous) {
+        await updateCount(
+          manager,
+          `UPDATE profile_versions SET status = 'retired', updated_at = now(), history = history || $2::jsonb WHERE id = $1`,
+          [previous.id, historyEvent('retired', actor, `Replaced by version ${version.number}.`)],
+        );
+        await this.audit.record(
+          actor,
+          'profile.retire',
+          { type: 'profile-version', id: previous.id, clientId },
+          { number: previous.number, replacedBy: id },
+          manager,
+        );
+      }
+      await updateCount(
+        manager,
+        `UPDATE profile_versions SET status = 'active', approved_by = $2, approved_at = now(),
+           approval_comment = $3, updated_at = now(), history = history || $4::jsonb WHERE id = $1`,
+        [id, actor.id, input.comment, historyEvent('active', actor, input.comment)],
+      );
+      await this.audit.record(
+        actor,
+        'profile.approve',
+        { type: 'profile-version', id, clientId },
+        { comment: input.comment, retired: previous?.id ?? null },
+        manager,
+      );
+      return this.dto(manager, id);
+    });
+  }
+
+  /** signed_off → sent_back (a supervisor, with a reason). */
+  async sendBack(actor: Actor, id: string, input: SendBackInput): Promise<ProfileVersionDto> {
+    const { clientId } = await this.readable(actor, id);
+    if (actor.role !== 'supervisor') throw new ForbiddenException(ONLY_SUPERVISOR_MESSAGE);
+    return this.dataSource.transaction(async (manager) => {
+      const version = await this.locked(manager, id);
+      if (version.status === 'sent_back') throw new ConflictException(ALREADY_SENT_BACK_MESSAGE);
+      if (version.status !== 'signed_off') {
+        throw new ConflictException(
+          `Only a version signed off by a carer can be sent back; this one is ${label(version.status)}.`,
+        );
+      }
+      await updateCount(
+        manager,
+        `UPDATE profile_versions SET status = 'sent_back', sent_back_reason = $2, updated_at = now(),
+           history = history || $3::jsonb WHERE id = $1`,
+        [id, input.reason, historyEvent('sent_back', actor, input.reason)],
+      );
+      await this.audit.record(
+        actor,
+        'profile.send-back',
+        { type: 'profile-version', id, clientId },
+        { reason: input.reason },
+        manager,
+      );
+      return this.dto(manager, id);
+    });
+  }
+
+  /** The .klprofile file of a trained version (owning clinician or supervisor; carers 403). */
+  async export(actor: Actor, id: string): Promise<ExportedProfile> {
+    const { clientId } = await this.readable(actor, id);
+    if (actor.role === 'carer') throw new ForbiddenException(CARER_EXPORT_MESSAGE);
+    if (actor.role !== 'clinician' && actor.role !== 'supervisor')
+      throw new ForbiddenException(WRONG_ROLE_MESSAGE);
+    const version = await this.dataSource
+      .getRepository(ProfileVersion)
+      .createQueryBuilder('v')
+      .addSelect('v.model')
+      .leftJoinAndSelect('v.client', 'client')
+      .leftJoinAndSelect('v.approvedBy', 'approver')
+      .where('v.id = :id', { id })
+      .getOneOrFail();
+    if (!WITH_MODEL.includes(version.status) || !version.model) throw new ConflictException(NO_MODEL_MESSAGE);
+    const metrics = version.metrics ?? {};
+    const pick = (keys: string[]) =>
+      Object.fromEntries(keys.filter((k) => k in metrics).map((k) => [k, metrics[k]]));
+    const pseudonym = version.client?.pseudonym ?? 'client';
+    const header: ProfileFileHeader = {
+      format: 'keyloom-profile',
+      client: { pseudonym },
+      version: { id: version.id, number: version.number, status: version.status, note: version.note },
+      settings: version.settings,
+      blendWeight: version.blendWeight ?? 0,
+      baseModelSha256: version.baseModelSha256,
+      engineVersion: typeof metrics.engineVersion === 'string' ? metrics.engineVersion : 'unknown',
+      metrics: pick([
+        'chars',
+        'folds',
+        'bpcIdeal',
+        'bpcCoded',
+        'keystrokeSavings',
+        'kspc',
+        'baseWeight',
+        'scanStepsPerChar',
+      ]),
+      samples: version.samples.map(({ title, sha256, characters }) => ({ title, sha256, characters })),
+      createdAt: version.createdAt.toISOString(),
+      trainedAt: version.trainedAt?.toISOString() ?? null,
+      approvedBy: version.approvedById ? (version.approvedBy?.name ?? '(removed account)') : null,
+      approvedAt: version.approvedAt?.toISOString() ?? null,
+      exportedAt: new Date().toISOString(),
+      exportedBy: actor.name,
+    };
+    const bytes = Buffer.from(writeProfileFile(header, new Uint8Array(version.model)));
+    await this.audit.record(
+      actor,
+      'profile.export',
+      { type: 'profile-version', id, clientId },
+      { number: version.number, status: version.status, bytes: bytes.length },
+    );
+    return { fileName: `keyloom-${slug(pseudonym)}-v${version.number}${PROFILE_FILE_EXTENSION}`, bytes };
+  }
+
+  /** Checks an uploaded .klprofile file; 400 with what is wrong. */
+  verify(fileName: string | null, bytes: Buffer): ProfileFileReport {
+    try {
+      const contents = verifyProfileFile(new Uint8Array(bytes.buffer, bytes.byteOffset, bytes.byteLength));
+      return {
+        valid: true,
+        fileName,
+        bytes: bytes.length,
+        checksum: contents.checksum,
+        modelBytes: contents.modelBytes,
+        modelOrder: contents.modelOrder,
+        modelContexts: contents.modelContexts,
+        header: contents.header,
+      };
+    } catch (error) {
+      if (error instanceof ProfileFileError) throw new BadRequestException(error.message);
+      throw error;
+    }
+  }
+
+  // The version's client when the actor may read it; out of sight → 404 as for a made-up id.
+  private async readable(actor: Actor, id: string): Promise<{ clientId: string }> {
+    const clientId = await this.clientOf(id);
+    try {
+      await this.access.requireReadable(actor, clientId, 'clinical');
+    } catch (error) {
+      if (error instanceof NotFoundException) throw new NotFoundException(VERSION_NOT_FOUND_MESSAGE);
+      throw error;
+    }
+    return { clientId };
+  }
+
+  // The version's client when the actor is its owning clinician.
+  private async owned(actor: Actor, id: string): Promise<{ clientId: string }> {
+    const clientId = await this.clientOf(id);
+    try {
+      await this.access.requireOwned(actor, clientId);
+    } catch (error) {
+      if (error instanceof NotFoundException) throw new NotFoundException(VERSION_NOT_FOUND_MESSAGE);
+      throw error;
+    }
+    return { clientId };
+  }
+
+  private async clientOf(id: string): Promise<string> {
+    const row = await this.dataSource
+      .getRepository(ProfileVersion)
+      .findOne({ where: { id }, select: ['id', 'clientId'] });
+    if (!row) throw new NotFoundException(VERSION_NOT_FOUND_MESSAGE);
+    return row.clientId;
+  }
+
+  private async locked(manager: EntityManager, id: string): Promise<ProfileVersion> {
+    const version = await manager
+      .getRepository(ProfileVersion)
+      .findOne({ where: { id }, lock: { mode: 'pessimistic_write' } });
+    if (!version) throw new NotFoundException(VERSION_NOT_FOUND_MESSAGE);
+    return version;
+  }
+
+  private async dto(manager: EntityManager, id: string): Promise<ProfileVersionDto> {
+    const version = await manager.getRepository(ProfileVersion).findOne({
+      where: { id },
+      relations: { createdBy: true, signedOffBy: true, approvedBy: true },
+    });
+    if (!version) throw new NotFoundException(VERSION_NOT_FOUND_MESSAGE);
+    return toProfileVersionDto(version);
+  }
+}
+
+/** The 'profileVersions' withdrawal hook: deletes every version (model and metrics) of the client. */
+export async function deleteClientProfileVersions(
+  clientId: string,
+  manager: EntityManager,
+  audit: AuditService,
+): Promise<number> {
+  const rows = await manager.getRepository(ProfileVersion).find({ where: { clientId }, select: ['id'] });
+  if (rows.length === 0) return 0;
+  await manager.getRepository(ProfileVersion).delete({ clientId });
+  // No actor: the consent.withdraw event beside it names who withdrew. A running job finds its row gone.
+  await audit.record(
+    null,
+    'profile.delete',
+    { type: 'client', id: clientId, clientId },
+    { reason: 'consent withdrawn', count: rows.length, versionIds: rows.map((r) => r.id) },
+    manager,
+  );
+  return rows.length;
+}

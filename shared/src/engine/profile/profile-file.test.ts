@@ -1,0 +1,84 @@
+import { crc32 as zlibCrc32 } from 'node:zlib';
+import { describe, expect, it } from 'vitest';
+import { PpmModel } from '../ppm-model';
+import { serializeModel } from '../model-serialization';
+import { prepareText } from '../text-preparation';
+import {
+  type ProfileFileHeader,
+  ProfileFileError,
+  readProfileFile,
+  verifyProfileFile,
+  writeProfileFile,
+} from './profile-file';
+
+// Invented for the demo scenario (not from any corpus).
+const text =
+  'Pepper and I went down to the harbour before the regatta. The wind was steady from the south west. ' +
+  'My sister brought coffee and we talked about the jazz standards for Thursday — café au lait, naïve.';
+
+function header(): ProfileFileHeader {
+  return {
+    format: 'keyloom-profile',
+    client: { pseudonym: 'R. Ashby' },
+    version: { id: '00000000-0000-4000-8000-000000000001', number: 2, status: 'active', note: 'Ünïcode ✓' },
+    settings: { order: 5, escape: 'C', exclusion: true, baseWeight: 'auto', slots: 5 },
+    blendWeight: 0.42,
+    baseModelSha256: 'ab'.repeat(32),
+    engineVersion: 'test',
+    metrics: { bpcIdeal: 2.1 },
+    samples: [{ title: 'Diary', sha256: 'cd'.repeat(32), characters: text.length }],
+    createdAt: '2026-12-01T10:00:00.000Z',
+    trainedAt: '2026-12-01T10:01:00.000Z',
+    approvedBy: 'Supervisor',
+    approvedAt: '2026-12-01T11:00:00.000Z',
+    exportedAt: '2026-12-01T12:00:00.000Z',
+    exportedBy: 'Clinician',
+  };
+}
+
+function model(): Uint8Array {
+  return serializeModel(PpmModel.train(prepareText(text), { order: 3 }));
+}
+
+describe('profile file (.klprofile)', () => {
+  it('round-trips header and model bytes', () => {
+    const bytes = writeProfileFile(header(), model());
+    const read = verifyProfileFile(bytes);
+    expect(read.header).toEqual(header());
+    expect([...read.model]).toEqual([...model()]);
+    expect(read.modelOrder).toBe(3);
+    expect(read.modelContexts).toBeGreaterThan(10);
+  });
+
+  it('ends with the CRC-32 of everything before it, as node:zlib computes it (general-purpose reference)', () => {
+    const bytes = writeProfileFile(header(), model());
+    const stored = new DataView(bytes.buffer).getUint32(bytes.length - 4, true);
+    expect(stored).toBe(zlibCrc32(Buffer.from(bytes.subarray(0, bytes.length - 4))));
+    expect(String.fromCharCode(...bytes.subarray(0, 4))).toBe('KLPF');
+  });
+
+  it('refuses a file with any single byte changed', () => {
+    const bytes = writeProfileFile(header(), model());
+    // Every 7th position, so header, lengths, model and checksum are all hit.
+    for (let i = 0; i < bytes.length; i += 7) {
+      const damaged = bytes.slice();
+      damaged[i] ^= 0x20;
+      expect(() => verifyProfileFile(damaged), `byte ${i}`).toThrow(ProfileFileError);
+    }
+  });
+
+  it('says what is wrong: not a profile, cut short, checksum', () => {
+    const bytes = writeProfileFile(header(), model());
+    expect(() => readProfileFile(new Uint8Array([0x50, 0x4b, 3, 4, 0, 0]))).toThrow(/not a Keyloom profile/);
+    expect(() => readProfileFile(bytes.subarray(0, bytes.length - 10))).toThrow(/cut short/);
+    const damaged = bytes.slice();
+    damaged[bytes.length - 30] ^= 1;
+    expect(() => readProfileFile(damaged)).toThrow(/checksum does not match/);
+  });
+
+  it('refuses a good checksum over a model that does not load', () => {
+    const junk = writeProfileFile(header(), new Uint8Array([1, 2, 3, 4, 5]));
+    expect(() => readProfileFile(junk)).not.toThrow();
+    expect(() => verifyProfileFile(junk)).toThrow(/model inside cannot be read/);
+  });
+});

@@ -1,0 +1,184 @@
+// The .klprofile file: one self-describing file per exported profile version, our own layout.
+// Plain TypeScript (no Node-only API) so the browser can read it as well as the API.
+//
+//   offset  size  field
+//   0       4     magic "KLPF"
+//   4       2     layout version, u16 little-endian (PROFILE_FILE_VERSION)
+//   6       4     header length H, u32 LE
+//   10      H     header: JSON, UTF-8 (ProfileFileHeader)
+//   10+H    4     model length M, u32 LE
+//   14+H    M     model: serializeModel bytes of the personal PPM model
+//   14+H+M  4     CRC-32 (zip/PNG polynomial) of every byte before it, u32 LE
+import { crc32 } from '../crc32';
+import { deserializeModel } from '../model-serialization';
+import { codePointsOf, stringFromCodePoints } from '../text-preparation';
+import { decodeUtf8, encodeUtf8 } from '../utf8-codec';
+
+export const PROFILE_FILE_MAGIC = 'KLPF';
+export const PROFILE_FILE_VERSION = 1;
+export const PROFILE_FILE_FORMAT = 'keyloom-profile';
+export const PROFILE_FILE_EXTENSION = '.klprofile';
+/** Largest header accepted on reading (a header is a few kB; this stops a damaged length from allocating). */
+const MAX_HEADER_BYTES = 16 * 1024 * 1024;
+const FIXED_BYTES = 4 + 2 + 4 + 4 + 4;
+
+/** What a profile file says about itself. Free-form JSON beyond these fields is kept as read. */
+export type ProfileFileHeader = {
+  format: typeof PROFILE_FILE_FORMAT;
+  client: { pseudonym: string };
+  version: { id: string; number: number; status: string; note: string | null };
+  settings: Record<string, unknown>;
+  /** λ: weight of the base model when blending (0..1). */
+  blendWeight: number;
+  /** SHA-256 (hex) of the base model file the profile was trained beside, or null. */
+  baseModelSha256: string | null;
+  engineVersion: string;
+  /** The headline figures of the engine's report (same names as `model evaluate --json`). */
+  metrics: Record<string, unknown>;
+  samples: { title: string; sha256: string; characters: number }[];
+  createdAt: string;
+  trainedAt: string | null;
+  approvedBy: string | null;
+  approvedAt: string | null;
+  exportedAt: string;
+  exportedBy: string;
+};
+
+/** A file that is not a readable profile file; the message says what is wrong, for a person. */
+export class ProfileFileError extends Error {
+  constructor(message: string) {
+    super(message);
+    this.name = 'ProfileFileError';
+  }
+}
+
+/** What verifyProfileFile found in a good file. */
+export type ProfileFileContents = {
+  header: ProfileFileHeader;
+  model: Uint8Array;
+  modelBytes: number;
+  /** The model's own settings, read back from the model bytes. */
+  modelOrder: number;
+  modelContexts: number;
+  checksum: string;
+};
+
+function utf8Bytes(text: string): Uint8Array {
+  return encodeUtf8(codePointsOf(text));
+}
+
+/** Writes a profile file from its header and the serialised personal model. */
+export function writeProfileFile(header: ProfileFileHeader, model: Uint8Array): Uint8Array {
+  const headerBytes = utf8Bytes(JSON.stringify(header));
+  const out = new Uint8Array(FIXED_BYTES + headerBytes.length + model.length);
+  const view = new DataView(out.buffer);
+  for (let i = 0; i < 4; i++) out[i] = PROFILE_FILE_MAGIC.charCodeAt(i);
+  view.setUint16(4, PROFILE_FILE_VERSION, true);
+  view.setUint32(6, headerBytes.length, true);
+  out.set(headerBytes, 10);
+  const modelAt = 10 + headerBytes.length;
+  view.setUint32(modelAt, model.length, true);
+  out.set(model, modelAt + 4);
+  const crcAt = modelAt + 4 + model.length;
+  view.setUint32(crcAt, crc32(out, 0, 0, crcAt), true);
+  return out;
+}
+
+const hex8 = (n: number) => n.toString(16).padStart(8, '0');
+
+/**
+ * Reads the layout and checks the checksum; throws ProfileFileError naming the first problem
+ * (not a profile file, newer layout, truncated, damaged, header unreadable).
+ */
+export function readProfileFile(bytes: Uint8Array): {
+  header: ProfileFileHeader;
+  model: Uint8Array;
+  checksum: string;
+} {
+  const magic = String.fromCharCode(...bytes.subarray(0, 4));
+  if (bytes.length < 4 || magic !== PROFILE_FILE_MAGIC) {
+    throw new ProfileFileError(
+      `This is not a Keyloom profile file: it does not start with "${PROFILE_FILE_MAGIC}".`,
+    );
+  }
+  if (bytes.length < FIXED_BYTES) {
+    throw new ProfileFileError(`The file is cut short: ${bytes.length} bytes, too few for a profile file.`);
+  }
+  const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);
+  const layout = view.getUint16(4, true);
+  if (layout !== PROFILE_FILE_VERSION) {
+    throw new ProfileFileError(
+      `The file uses layout version ${layout}; this Keyloom reads version ${PROFILE_FILE_VERSION}.`,
+    );
+  }
+  const headerLength = view.getUint32(6, true);
+  const expectedAtLeast = FIXED_BYTES + headerLength;
+  if (headerLength > MAX_HEADER_BYTES || bytes.length < expectedAtLeast) {
+    throw new ProfileFileError(
+      `The file is cut short or damaged: its header should be ${headerLength} bytes, ` +
+        `but the file has only ${bytes.length} bytes in all.`,
+    );
+  }
+  const modelAt = 10 + headerLength;
+  const modelLength = view.getUint32(modelAt, true);
+  const total = FIXED_BYTES + headerLength + modelLength;
+  if (bytes.length < total) {
+    throw new ProfileFileError(
+      `The file is cut short: it should be ${total} bytes long but has ${bytes.length}.`,
+    );
+  }
+  if (bytes.length > total) {
+    throw new ProfileFileError(
+      `The file has ${bytes.length - total} bytes more than its layout describes (damaged or joined to another file).`,
+    );
+  }
+  const crcAt = total - 4;
+  const stored = view.getUint32(crcAt, true);
+  const actual = crc32(bytes, 0, 0, crcAt);
+  if (stored !== actual) {
+    throw new ProfileFileError(
+      `The checksum does not match (stored ${hex8(stored)}, computed ${hex8(actual)}): ` +
+        'the file was damaged or changed after export.',
+    );
+  }
+  const codePoints = decodeUtf8(bytes.subarray(10, modelAt));
+  if (!codePoints) throw new ProfileFileError('The header is not valid UTF-8.');
+  let header: unknown;
+  try {
+    header = JSON.parse(stringFromCodePoints(codePoints));
+  } catch {
+    throw new ProfileFileError('The header is not valid JSON.');
+  }
+  if (
+    typeof header !== 'object' ||
+    header === null ||
+    (header as { format?: unknown }).format !== PROFILE_FILE_FORMAT
+  ) {
+    throw new ProfileFileError(`The header does not describe a ${PROFILE_FILE_FORMAT}.`);
+  }
+  return {
+    header: header as ProfileFileHeader,
+    model: bytes.slice(modelAt + 4, crcAt),
+    checksum: hex8(stored),
+  };
+}
+
+/** readProfileFile, then loads the model to be sure it deserialises (ProfileFileError when it does not). */
+export function verifyProfileFile(bytes: Uint8Array): ProfileFileContents {
+  const { header, model, checksum } = readProfileFile(bytes);
+  let loaded;
+  try {
+    loaded = deserializeModel(model);
+  } catch (error) {
+    const why = error instanceof Error ? error.message : String(error);
+    throw new ProfileFileError(`The checksum matches but the model inside cannot be read: ${why}`);
+  }
+  return {
+    header,
+    model,
+    modelBytes: model.length,
+    modelOrder: loaded.settings.order,
+    modelContexts: loaded.contextCount,
+    checksum,
+  };
+}
