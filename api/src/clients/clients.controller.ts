@@ -1,15 +1,4 @@
-import {
-  Body,
-  Controller,
-  Delete,
-  Get,
-  HttpCode,
-  Ip,
-  Param,
-  ParseUUIDPipe,
-  Patch,
-  Post,
-} from '@nestjs/common';
+import { Body, Controller, Delete, Get, HttpCode, Param, ParseUUIDPipe, Patch, Post } from '@nestjs/common';
 import {
   ApiBody,
   ApiCreatedResponse,
@@ -27,12 +16,12 @@ import {
   clientSchema,
   clientSummarySchema,
   personRefSchema,
-  type SessionUser,
   type UpdateClientInput,
   updateClientSchema,
 } from '@keyloom/shared';
 import { z } from 'zod';
-import { CurrentUser } from '../auth/decorators/current-user.decorator';
+import { CurrentActor } from '../auth/decorators/current-user.decorator';
+import type { Actor } from '../auth/session-user';
 import { Roles } from '../auth/decorators/roles.decorator';
 import { zodSchemaObject } from '../common/openapi/zod-schema-object';
 import { ZodValidationPipe } from '../common/pipes/zod-validation.pipe';
@@ -52,8 +41,8 @@ export class ClientsController {
       'these summaries only, to assign carers).',
   })
   @ApiOkResponse({ schema: zodSchemaObject(z.array(clientSummarySchema)) })
-  findAll(@CurrentUser() user: SessionUser, @Ip() ip: string): Promise<ClientSummary[]> {
-    return this.clients.findAll({ ...user, ip });
+  findAll(@CurrentActor() actor: Actor): Promise<ClientSummary[]> {
+    return this.clients.findAll(actor);
   }
 
   @Post()
@@ -62,11 +51,10 @@ export class ClientsController {
   @ApiBody({ schema: zodSchemaObject(createClientSchema) })
   @ApiCreatedResponse({ schema: zodSchemaObject(clientSchema) })
   create(
-    @CurrentUser() user: SessionUser,
-    @Ip() ip: string,
+    @CurrentActor() actor: Actor,
     @Body(new ZodValidationPipe(createClientSchema)) body: CreateClientInput,
   ): Promise<ClientDto> {
-    return this.clients.create({ ...user, ip }, body);
+    return this.clients.create(actor, body);
   }
 
   @Get(':id')
@@ -75,12 +63,8 @@ export class ClientsController {
     description: 'Another clinician’s client, an unassigned one or a made-up id: 404. Admin: 403.',
   })
   @ApiOkResponse({ schema: zodSchemaObject(clientSchema) })
-  findOne(
-    @CurrentUser() user: SessionUser,
-    @Ip() ip: string,
-    @Param('id', ParseUUIDPipe) id: string,
-  ): Promise<ClientDto> {
-    return this.clients.findOne({ ...user, ip }, id);
+  findOne(@CurrentActor() actor: Actor, @Param('id', ParseUUIDPipe) id: string): Promise<ClientDto> {
+    return this.clients.findOne(actor, id);
   }
 
   @Patch(':id')
@@ -89,23 +73,21 @@ export class ClientsController {
   @ApiBody({ schema: zodSchemaObject(updateClientSchema) })
   @ApiOkResponse({ schema: zodSchemaObject(clientSchema) })
   update(
-    @CurrentUser() user: SessionUser,
-    @Ip() ip: string,
+    @CurrentActor() actor: Actor,
     @Param('id', ParseUUIDPipe) id: string,
     @Body(new ZodValidationPipe(updateClientSchema)) body: UpdateClientInput,
   ): Promise<ClientDto> {
-    return this.clients.update({ ...user, ip }, id, body);
+    return this.clients.update(actor, id, body);
   }
 
   @Get(':id/assignments')
   @ApiOperation({ summary: 'Carers assigned to a client (anyone who sees the client)' })
   @ApiOkResponse({ schema: zodSchemaObject(z.array(assignmentSchema)) })
   listAssignments(
-    @CurrentUser() user: SessionUser,
-    @Ip() ip: string,
+    @CurrentActor() actor: Actor,
     @Param('id', ParseUUIDPipe) id: string,
   ): Promise<Assignment[]> {
-    return this.clients.listAssignments({ ...user, ip }, id);
+    return this.clients.listAssignments(actor, id);
   }
 
   @Post(':id/assignments')
@@ -117,12 +99,11 @@ export class ClientsController {
   @ApiBody({ schema: zodSchemaObject(createAssignmentSchema) })
   @ApiCreatedResponse({ schema: zodSchemaObject(assignmentSchema) })
   assign(
-    @CurrentUser() user: SessionUser,
-    @Ip() ip: string,
+    @CurrentActor() actor: Actor,
     @Param('id', ParseUUIDPipe) id: string,
     @Body(new ZodValidationPipe(createAssignmentSchema)) body: CreateAssignmentInput,
   ): Promise<Assignment> {
-    return this.clients.assign({ ...user, ip }, id, body);
+    return this.clients.assign(actor, id, body);
   }
 
   @Delete(':id/assignments/:userId')
@@ -131,12 +112,11 @@ export class ClientsController {
   @ApiOperation({ summary: 'Remove a carer’s assignment (owning clinician or admin)' })
   @ApiNoContentResponse({ description: 'Removed.' })
   unassign(
-    @CurrentUser() user: SessionUser,
-    @Ip() ip: string,
+    @CurrentActor() actor: Actor,
     @Param('id', ParseUUIDPipe) id: string,
     @Param('userId', ParseUUIDPipe) userId: string,
   ): Promise<void> {
-    return this.clients.unassign({ ...user, ip }, id, userId);
+    return this.clients.unassign(actor, id, userId);
   }
 
   @Get(':id/carers-available')
@@ -144,10 +124,9 @@ export class ClientsController {
   @ApiOperation({ summary: 'Active carers not yet assigned to the client (owning clinician or admin)' })
   @ApiOkResponse({ schema: zodSchemaObject(z.array(personRefSchema.extend({ email: z.string() }))) })
   carersAvailable(
-    @CurrentUser() user: SessionUser,
-    @Ip() ip: string,
+    @CurrentActor() actor: Actor,
     @Param('id', ParseUUIDPipe) id: string,
   ): Promise<CarerOption[]> {
-    return this.clients.carersAvailable({ ...user, ip }, id);
+    return this.clients.carersAvailable(actor, id);
   }
 }

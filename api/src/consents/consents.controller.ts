@@ -4,7 +4,6 @@ import {
   Controller,
   Get,
   HttpCode,
-  Ip,
   Param,
   ParseUUIDPipe,
   Post,
@@ -27,13 +26,13 @@ import {
   consentSchema,
   type CreateConsentInput,
   createConsentSchema,
-  type SessionUser,
   type WithdrawConsentInput,
   withdrawConsentSchema,
 } from '@keyloom/shared';
 import { memoryStorage } from 'multer';
 import { z } from 'zod';
-import { CurrentUser } from '../auth/decorators/current-user.decorator';
+import { CurrentActor } from '../auth/decorators/current-user.decorator';
+import type { Actor } from '../auth/session-user';
 import { Roles } from '../auth/decorators/roles.decorator';
 import { zodSchemaObject } from '../common/openapi/zod-schema-object';
 import { ZodValidationPipe } from '../common/pipes/zod-validation.pipe';
@@ -53,12 +52,8 @@ export class ConsentsController {
   @Get()
   @ApiOperation({ summary: 'Consent records of a client, newest first (owning clinician, supervisor)' })
   @ApiOkResponse({ schema: zodSchemaObject(z.array(consentSchema)) })
-  findAll(
-    @CurrentUser() user: SessionUser,
-    @Ip() ip: string,
-    @Param('id', ParseUUIDPipe) id: string,
-  ): Promise<ConsentDto[]> {
-    return this.consents.findAll({ ...user, ip }, id);
+  findAll(@CurrentActor() actor: Actor, @Param('id', ParseUUIDPipe) id: string): Promise<ConsentDto[]> {
+    return this.consents.findAll(actor, id);
   }
 
   @Post()
@@ -67,12 +62,11 @@ export class ConsentsController {
   @ApiBody({ schema: zodSchemaObject(createConsentSchema) })
   @ApiCreatedResponse({ schema: zodSchemaObject(consentSchema) })
   create(
-    @CurrentUser() user: SessionUser,
-    @Ip() ip: string,
+    @CurrentActor() actor: Actor,
     @Param('id', ParseUUIDPipe) id: string,
     @Body(new ZodValidationPipe(createConsentSchema)) body: CreateConsentInput,
   ): Promise<ConsentDto> {
-    return this.consents.create({ ...user, ip }, id, body);
+    return this.consents.create(actor, id, body);
   }
 
   @Post(':consentId/withdraw')
@@ -87,13 +81,12 @@ export class ConsentsController {
   @ApiBody({ schema: zodSchemaObject(withdrawConsentSchema) })
   @ApiOkResponse({ schema: zodSchemaObject(consentSchema) })
   withdraw(
-    @CurrentUser() user: SessionUser,
-    @Ip() ip: string,
+    @CurrentActor() actor: Actor,
     @Param('id', ParseUUIDPipe) id: string,
     @Param('consentId', ParseUUIDPipe) consentId: string,
     @Body(new ZodValidationPipe(withdrawConsentSchema)) body: WithdrawConsentInput,
   ): Promise<ConsentDto> {
-    return this.consents.withdraw({ ...user, ip }, id, consentId, body);
+    return this.consents.withdraw(actor, id, consentId, body);
   }
 
   @Put(':consentId/document')
@@ -121,14 +114,13 @@ export class ConsentsController {
   })
   @ApiOkResponse({ schema: zodSchemaObject(consentSchema) })
   attachDocument(
-    @CurrentUser() user: SessionUser,
-    @Ip() ip: string,
+    @CurrentActor() actor: Actor,
     @Param('id', ParseUUIDPipe) id: string,
     @Param('consentId', ParseUUIDPipe) consentId: string,
     @UploadedFile() file: Express.Multer.File | undefined,
   ): Promise<ConsentDto> {
     if (!file) throw new BadRequestException(DOCUMENT_FIELD_MESSAGE);
-    return this.consents.attachDocument({ ...user, ip }, id, consentId, file);
+    return this.consents.attachDocument(actor, id, consentId, file);
   }
 
   @Get(':consentId/document')
@@ -136,12 +128,11 @@ export class ConsentsController {
   @ApiProduces('application/pdf', 'image/png', 'image/jpeg')
   @ApiOkResponse({ schema: { type: 'string', format: 'binary' } })
   async document(
-    @CurrentUser() user: SessionUser,
-    @Ip() ip: string,
+    @CurrentActor() actor: Actor,
     @Param('id', ParseUUIDPipe) id: string,
     @Param('consentId', ParseUUIDPipe) consentId: string,
   ): Promise<StreamableFile> {
-    const stored = await this.consents.document({ ...user, ip }, id, consentId);
+    const stored = await this.consents.document(actor, id, consentId);
     const ascii = stored.fileName.replace(/[^\x20-\x7e]/g, '_');
     return new StreamableFile(stored.bytes, {
       type: stored.mimeType,

@@ -1,15 +1,15 @@
-import { Body, Controller, Get, Ip, Param, ParseUUIDPipe, Patch, Post } from '@nestjs/common';
+import { Body, Controller, Get, Param, ParseUUIDPipe, Patch, Post } from '@nestjs/common';
 import { ApiBody, ApiCreatedResponse, ApiOkResponse, ApiOperation, ApiTags } from '@nestjs/swagger';
 import {
   contactSchema,
   type CreateContactInput,
   createContactSchema,
-  type SessionUser,
   type UpdateContactInput,
   updateContactSchema,
 } from '@keyloom/shared';
 import { z } from 'zod';
-import { CurrentUser } from '../auth/decorators/current-user.decorator';
+import { CurrentActor } from '../auth/decorators/current-user.decorator';
+import type { Actor } from '../auth/session-user';
 import { Roles } from '../auth/decorators/roles.decorator';
 import { zodSchemaObject } from '../common/openapi/zod-schema-object';
 import { ZodValidationPipe } from '../common/pipes/zod-validation.pipe';
@@ -24,12 +24,8 @@ export class ContactsController {
   @Get()
   @ApiOperation({ summary: 'Family contacts of a client (owning clinician, supervisor)' })
   @ApiOkResponse({ schema: zodSchemaObject(z.array(contactSchema)) })
-  findAll(
-    @CurrentUser() user: SessionUser,
-    @Ip() ip: string,
-    @Param('id', ParseUUIDPipe) id: string,
-  ): Promise<ContactDto[]> {
-    return this.contacts.findAll({ ...user, ip }, id);
+  findAll(@CurrentActor() actor: Actor, @Param('id', ParseUUIDPipe) id: string): Promise<ContactDto[]> {
+    return this.contacts.findAll(actor, id);
   }
 
   @Post()
@@ -38,12 +34,11 @@ export class ContactsController {
   @ApiBody({ schema: zodSchemaObject(createContactSchema) })
   @ApiCreatedResponse({ schema: zodSchemaObject(contactSchema) })
   create(
-    @CurrentUser() user: SessionUser,
-    @Ip() ip: string,
+    @CurrentActor() actor: Actor,
     @Param('id', ParseUUIDPipe) id: string,
     @Body(new ZodValidationPipe(createContactSchema)) body: CreateContactInput,
   ): Promise<ContactDto> {
-    return this.contacts.create({ ...user, ip }, id, body);
+    return this.contacts.create(actor, id, body);
   }
 
   @Patch(':contactId')
@@ -52,12 +47,11 @@ export class ContactsController {
   @ApiBody({ schema: zodSchemaObject(updateContactSchema) })
   @ApiOkResponse({ schema: zodSchemaObject(contactSchema) })
   update(
-    @CurrentUser() user: SessionUser,
-    @Ip() ip: string,
+    @CurrentActor() actor: Actor,
     @Param('id', ParseUUIDPipe) id: string,
     @Param('contactId', ParseUUIDPipe) contactId: string,
     @Body(new ZodValidationPipe(updateContactSchema)) body: UpdateContactInput,
   ): Promise<ContactDto> {
-    return this.contacts.update({ ...user, ip }, id, contactId, body);
+    return this.contacts.update(actor, id, contactId, body);
   }
 }

@@ -4,7 +4,6 @@ import {
   Controller,
   Get,
   HttpCode,
-  Ip,
   Param,
   ParseUUIDPipe,
   Post,
@@ -30,13 +29,13 @@ import {
   profileVersionSchema,
   type SendBackInput,
   sendBackSchema,
-  type SessionUser,
   type SignOffInput,
   signOffSchema,
 } from '@keyloom/shared';
 import { memoryStorage } from 'multer';
 import { z } from 'zod';
-import { CurrentUser } from '../auth/decorators/current-user.decorator';
+import { CurrentActor } from '../auth/decorators/current-user.decorator';
+import type { Actor } from '../auth/session-user';
 import { Roles } from '../auth/decorators/roles.decorator';
 import { zodSchemaObject } from '../common/openapi/zod-schema-object';
 import { ZodValidationPipe } from '../common/pipes/zod-validation.pipe';
@@ -62,12 +61,8 @@ export class ProfileVersionsController {
     description: 'Owning clinician, supervisor, assigned carer. Admin: 403.',
   })
   @ApiOkResponse({ schema: zodSchemaObject(z.array(profileVersionSchema)) })
-  list(
-    @CurrentUser() user: SessionUser,
-    @Ip() ip: string,
-    @Param('id', ParseUUIDPipe) id: string,
-  ): Promise<ProfileVersionDto[]> {
-    return this.versions.list({ ...user, ip }, id);
+  list(@CurrentActor() actor: Actor, @Param('id', ParseUUIDPipe) id: string): Promise<ProfileVersionDto[]> {
+    return this.versions.list(actor, id);
   }
 
   @Post('clients/:id/profile-versions')
@@ -81,23 +76,18 @@ export class ProfileVersionsController {
   @ApiBody({ schema: zodSchemaObject(createProfileVersionSchema) })
   @ApiCreatedResponse({ schema: zodSchemaObject(profileVersionSchema) })
   create(
-    @CurrentUser() user: SessionUser,
-    @Ip() ip: string,
+    @CurrentActor() actor: Actor,
     @Param('id', ParseUUIDPipe) id: string,
     @Body(new ZodValidationPipe(createProfileVersionSchema)) body: CreateProfileVersionInput,
   ): Promise<ProfileVersionDto> {
-    return this.versions.create({ ...user, ip }, id, body);
+    return this.versions.create(actor, id, body);
   }
 
   @Get('profile-versions/:id')
   @ApiOperation({ summary: 'One version: status, progress (0–1), stage, metrics, history' })
   @ApiOkResponse({ schema: zodSchemaObject(profileVersionSchema) })
-  findOne(
-    @CurrentUser() user: SessionUser,
-    @Ip() ip: string,
-    @Param('id', ParseUUIDPipe) id: string,
-  ): Promise<ProfileVersionDto> {
-    return this.versions.findOne({ ...user, ip }, id);
+  findOne(@CurrentActor() actor: Actor, @Param('id', ParseUUIDPipe) id: string): Promise<ProfileVersionDto> {
+    return this.versions.findOne(actor, id);
   }
 
   @Post('profile-versions/:id/train')
@@ -110,12 +100,8 @@ export class ProfileVersionsController {
       `engine's message. Also from training when its job is dead (worker killed). ${TRANSITION}`,
   })
   @ApiOkResponse({ schema: zodSchemaObject(profileVersionSchema) })
-  train(
-    @CurrentUser() user: SessionUser,
-    @Ip() ip: string,
-    @Param('id', ParseUUIDPipe) id: string,
-  ): Promise<ProfileVersionDto> {
-    return this.versions.train({ ...user, ip }, id);
+  train(@CurrentActor() actor: Actor, @Param('id', ParseUUIDPipe) id: string): Promise<ProfileVersionDto> {
+    return this.versions.train(actor, id);
   }
 
   @Post('profile-versions/:id/cancel')
@@ -126,12 +112,8 @@ export class ProfileVersionsController {
     description: `Owning clinician. ${TRANSITION}`,
   })
   @ApiOkResponse({ schema: zodSchemaObject(profileVersionSchema) })
-  cancel(
-    @CurrentUser() user: SessionUser,
-    @Ip() ip: string,
-    @Param('id', ParseUUIDPipe) id: string,
-  ): Promise<ProfileVersionDto> {
-    return this.versions.cancel({ ...user, ip }, id);
+  cancel(@CurrentActor() actor: Actor, @Param('id', ParseUUIDPipe) id: string): Promise<ProfileVersionDto> {
+    return this.versions.cancel(actor, id);
   }
 
   @Post('profile-versions/:id/sign-off')
@@ -144,12 +126,11 @@ export class ProfileVersionsController {
   @ApiBody({ schema: zodSchemaObject(signOffSchema) })
   @ApiOkResponse({ schema: zodSchemaObject(profileVersionSchema) })
   signOff(
-    @CurrentUser() user: SessionUser,
-    @Ip() ip: string,
+    @CurrentActor() actor: Actor,
     @Param('id', ParseUUIDPipe) id: string,
     @Body(new ZodValidationPipe(signOffSchema)) body: SignOffInput,
   ): Promise<ProfileVersionDto> {
-    return this.versions.signOff({ ...user, ip }, id, body);
+    return this.versions.signOff(actor, id, body);
   }
 
   @Post('profile-versions/:id/approve')
@@ -162,12 +143,11 @@ export class ProfileVersionsController {
   @ApiBody({ schema: zodSchemaObject(approveSchema) })
   @ApiOkResponse({ schema: zodSchemaObject(profileVersionSchema) })
   approve(
-    @CurrentUser() user: SessionUser,
-    @Ip() ip: string,
+    @CurrentActor() actor: Actor,
     @Param('id', ParseUUIDPipe) id: string,
     @Body(new ZodValidationPipe(approveSchema)) body: ApproveInput,
   ): Promise<ProfileVersionDto> {
-    return this.versions.approve({ ...user, ip }, id, body);
+    return this.versions.approve(actor, id, body);
   }
 
   @Post('profile-versions/:id/send-back')
@@ -180,12 +160,11 @@ export class ProfileVersionsController {
   @ApiBody({ schema: zodSchemaObject(sendBackSchema) })
   @ApiOkResponse({ schema: zodSchemaObject(profileVersionSchema) })
   sendBack(
-    @CurrentUser() user: SessionUser,
-    @Ip() ip: string,
+    @CurrentActor() actor: Actor,
     @Param('id', ParseUUIDPipe) id: string,
     @Body(new ZodValidationPipe(sendBackSchema)) body: SendBackInput,
   ): Promise<ProfileVersionDto> {
-    return this.versions.sendBack({ ...user, ip }, id, body);
+    return this.versions.sendBack(actor, id, body);
   }
 
   @Get('profile-versions/:id/export')
@@ -197,11 +176,10 @@ export class ProfileVersionsController {
   @ApiProduces('application/octet-stream')
   @ApiOkResponse({ schema: { type: 'string', format: 'binary' } })
   async export(
-    @CurrentUser() user: SessionUser,
-    @Ip() ip: string,
+    @CurrentActor() actor: Actor,
     @Param('id', ParseUUIDPipe) id: string,
   ): Promise<StreamableFile> {
-    const file = await this.versions.export({ ...user, ip }, id);
+    const file = await this.versions.export(actor, id);
     return new StreamableFile(file.bytes, {
       type: 'application/octet-stream',
       length: file.bytes.length,

@@ -3,7 +3,6 @@ import {
   Controller,
   Get,
   HttpCode,
-  Ip,
   Param,
   ParseUUIDPipe,
   Post,
@@ -29,14 +28,14 @@ import {
   sampleDetailSchema,
   type SampleSummary,
   sampleSummarySchema,
-  type SessionUser,
   type UploadResult,
   uploadResultSchema,
   uploadSamplesFieldsSchema,
 } from '@keyloom/shared';
 import type { Request } from 'express';
 import { z } from 'zod';
-import { CurrentUser } from '../auth/decorators/current-user.decorator';
+import { CurrentActor } from '../auth/decorators/current-user.decorator';
+import type { Actor } from '../auth/session-user';
 import { zodSchemaObject } from '../common/openapi/zod-schema-object';
 import { parseOrThrow, ZodValidationPipe } from '../common/pipes/zod-validation.pipe';
 import { SampleFilesInterceptor } from './sample-files.interceptor';
@@ -86,8 +85,7 @@ export class SamplesController {
   })
   @ApiCreatedResponse({ schema: zodSchemaObject(uploadResultSchema) })
   upload(
-    @CurrentUser() user: SessionUser,
-    @Ip() ip: string,
+    @CurrentActor() actor: Actor,
     @Param('id', ParseUUIDPipe) id: string,
     @Req() req: Request,
     @UploadedFiles() files: Express.Multer.File[] | undefined,
@@ -95,20 +93,16 @@ export class SamplesController {
   ): Promise<UploadResult> {
     if (req.is('multipart/form-data')) {
       const fields = parseOrThrow(uploadSamplesFieldsSchema, withoutEmptyFields(body));
-      return this.samples.upload({ ...user, ip }, id, files ?? [], fields);
+      return this.samples.upload(actor, id, files ?? [], fields);
     }
-    return this.samples.paste({ ...user, ip }, id, parseOrThrow(pasteSampleSchema, body));
+    return this.samples.paste(actor, id, parseOrThrow(pasteSampleSchema, body));
   }
 
   @Get('clients/:id/samples')
   @ApiOperation({ summary: 'The client’s language samples, newest first (owning clinician, supervisor)' })
   @ApiOkResponse({ schema: zodSchemaObject(z.array(sampleSummarySchema)) })
-  list(
-    @CurrentUser() user: SessionUser,
-    @Ip() ip: string,
-    @Param('id', ParseUUIDPipe) id: string,
-  ): Promise<SampleSummary[]> {
-    return this.samples.list({ ...user, ip }, id);
+  list(@CurrentActor() actor: Actor, @Param('id', ParseUUIDPipe) id: string): Promise<SampleSummary[]> {
+    return this.samples.list(actor, id);
   }
 
   @Get('samples/:id')
@@ -117,12 +111,8 @@ export class SamplesController {
     description: 'Carer and admin: 403. Unknown id or another clinician’s sample: 404.',
   })
   @ApiOkResponse({ schema: zodSchemaObject(sampleDetailSchema) })
-  findOne(
-    @CurrentUser() user: SessionUser,
-    @Ip() ip: string,
-    @Param('id', ParseUUIDPipe) id: string,
-  ): Promise<SampleDetail> {
-    return this.samples.findOne({ ...user, ip }, id);
+  findOne(@CurrentActor() actor: Actor, @Param('id', ParseUUIDPipe) id: string): Promise<SampleDetail> {
+    return this.samples.findOne(actor, id);
   }
 
   @Post('samples/:id/flags/:flagId')
@@ -136,13 +126,12 @@ export class SamplesController {
   @ApiBody({ schema: zodSchemaObject(flagDecisionSchema) })
   @ApiOkResponse({ schema: zodSchemaObject(sampleDetailSchema) })
   decide(
-    @CurrentUser() user: SessionUser,
-    @Ip() ip: string,
+    @CurrentActor() actor: Actor,
     @Param('id', ParseUUIDPipe) id: string,
     @Param('flagId', ParseUUIDPipe) flagId: string,
     @Body(new ZodValidationPipe(flagDecisionSchema)) body: FlagDecisionInput,
   ): Promise<SampleDetail> {
-    return this.samples.decideFlag({ ...user, ip }, id, flagId, body);
+    return this.samples.decideFlag(actor, id, flagId, body);
   }
 
   @Post('samples/:id/exclude')
@@ -154,11 +143,10 @@ export class SamplesController {
   @ApiBody({ schema: zodSchemaObject(excludeSampleSchema) })
   @ApiOkResponse({ schema: zodSchemaObject(sampleSummarySchema) })
   exclude(
-    @CurrentUser() user: SessionUser,
-    @Ip() ip: string,
+    @CurrentActor() actor: Actor,
     @Param('id', ParseUUIDPipe) id: string,
     @Body(new ZodValidationPipe(excludeSampleSchema)) body: ExcludeSampleInput,
   ): Promise<SampleSummary> {
-    return this.samples.exclude({ ...user, ip }, id, body);
+    return this.samples.exclude(actor, id, body);
   }
 }

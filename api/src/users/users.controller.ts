@@ -1,13 +1,13 @@
-import { Body, Controller, Get, Ip, Param, ParseUUIDPipe, Patch, Post } from '@nestjs/common';
+import { Body, Controller, Get, Param, ParseUUIDPipe, Patch, Post } from '@nestjs/common';
 import { ApiBody, ApiOperation, ApiTags } from '@nestjs/swagger';
 import {
   type CreateUserInput,
   createUserSchema,
-  type SessionUser,
   type UpdateUserInput,
   updateUserSchema,
 } from '@keyloom/shared';
-import { CurrentUser } from '../auth/decorators/current-user.decorator';
+import { CurrentActor } from '../auth/decorators/current-user.decorator';
+import type { Actor } from '../auth/session-user';
 import { Roles } from '../auth/decorators/roles.decorator';
 import { zodSchemaObject } from '../common/openapi/zod-schema-object';
 import { ZodValidationPipe } from '../common/pipes/zod-validation.pipe';
@@ -30,22 +30,20 @@ export class UsersController {
   @ApiOperation({ summary: 'Create a staff account (admin)' })
   @ApiBody({ schema: zodSchemaObject(createUserSchema) })
   create(
-    @CurrentUser() user: SessionUser,
-    @Ip() ip: string,
+    @CurrentActor() actor: Actor,
     @Body(new ZodValidationPipe(createUserSchema)) body: CreateUserInput,
   ): Promise<UserDto> {
-    return this.users.create({ ...user, ip }, body);
+    return this.users.create(actor, body);
   }
 
   @Patch(':id')
   @ApiOperation({ summary: 'Change name, role or active of a staff account (admin)' })
   @ApiBody({ schema: zodSchemaObject(updateUserSchema) })
   update(
-    @CurrentUser() user: SessionUser,
-    @Ip() ip: string,
+    @CurrentActor() actor: Actor,
     @Param('id', ParseUUIDPipe) id: string,
     @Body(new ZodValidationPipe(updateUserSchema)) body: UpdateUserInput,
   ): Promise<UserDto> {
-    return this.users.update({ ...user, ip }, id, body);
+    return this.users.update(actor, id, body);
   }
 }
