@@ -2,6 +2,7 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { loadBaseModel } from '../../../../corpora/base-model';
 import { BlendedModel, type NextSymbolModel } from '../index';
 import { PpmModel } from '../ppm-model';
+import { accessTiming } from './profile-rates';
 import { deserializeModel } from '../model-serialization';
 import { prepareText } from '../text-preparation';
 import { codeLengthBits, decodeText, encodeText } from '../text-coding';
@@ -289,5 +290,23 @@ describe('trainAndEvaluateProfile edge cases', () => {
     expect(r.ksNote).toMatch(/first 300 characters/);
     expect(r.baseWeight).toBe(0.25);
     for (const f of r.perFold) expect(f.baseWeight).toBe(0.25);
+  });
+});
+
+describe('accessTiming', () => {
+  // Keyloom's own convention (no outside source): a head pointer's record keeps a time per key.
+  it('takes a head pointer’s time per key, and its dwell time only when that is all there is', () => {
+    expect(accessTiming({ method: 'head_pointer', keyTimeMs: 1800 }).timing).toEqual({
+      kind: 'direct',
+      keyMs: 1800,
+    });
+    expect(accessTiming({ method: 'head_pointer', dwellMs: 900 }).timing).toEqual({
+      kind: 'dwell',
+      dwellMs: 900,
+    });
+    expect(accessTiming({ method: 'eye_gaze', dwellMs: 700 }).timing).toEqual({
+      kind: 'dwell',
+      dwellMs: 700,
+    });
   });
 });

@@ -59,8 +59,12 @@ export function accessTiming(access: AccessSettings): { timing: AccessTiming; de
     case 'switch':
       return scanning();
     case 'eye_gaze':
-    case 'head_pointer':
       return dwell();
+    case 'head_pointer':
+      // The client record keeps a head pointer's time per key (movement and selection together);
+      // a dwell time alone, when that is all there is, stands in for it.
+      if (access.keyTimeMs === undefined && access.dwellMs !== undefined) return dwell();
+      return direct();
     case 'direct':
       return direct();
     case 'other':

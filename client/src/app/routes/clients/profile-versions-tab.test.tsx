@@ -77,9 +77,10 @@ describe('Profile versions tab', () => {
     expect(form.getByRole('checkbox', { name: 'Ignore capitals' })).not.toBeChecked();
     expect(form.getByRole('radio', { name: /Automatic/ })).toBeChecked();
     expect(form.getByLabelText('Suggestion slots')).toHaveValue(5);
-    // The demo client uses a head pointer: dwell is the timing, from the defaults (his record has none).
+    // The demo client uses a head pointer: his record's time per key is the timing.
     expect(form.getByLabelText('Access method for the speed estimate')).toHaveValue('head_pointer');
-    expect(form.getByLabelText('Dwell time (ms)')).toHaveValue(800);
+    expect(form.getByLabelText('Time per key (ms)')).toHaveValue(1800);
+    expect(form.queryByLabelText('Dwell time (ms)')).not.toBeInTheDocument();
     expect(form.queryByLabelText('Scan interval (ms)')).not.toBeInTheDocument();
   });
 
@@ -143,7 +144,7 @@ describe('Profile versions tab', () => {
         baseWeight: 0.25,
         slots: 5,
         caseFold: false,
-        access: { method: 'head_pointer', dwellMs: 800 },
+        access: { method: 'head_pointer', keyTimeMs: 1800 },
       },
     });
     expect(api.requestsTo(`POST /api/profile-versions/${VERSION_2_ID}/train`)).toHaveLength(1);

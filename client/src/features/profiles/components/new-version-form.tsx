@@ -34,7 +34,7 @@ const timingFields: Record<AccessMethod, readonly ('scanIntervalMs' | 'dwellMs' 
   direct: ['keyTimeMs'],
   switch: ['scanIntervalMs'],
   eye_gaze: ['dwellMs'],
-  head_pointer: ['dwellMs'],
+  head_pointer: ['keyTimeMs'],
   other: ['scanIntervalMs', 'dwellMs', 'keyTimeMs'],
 };
 const timingLabels = {

@@ -95,7 +95,7 @@ export const profileVersion = (overrides: Partial<ProfileVersion> = {}): Profile
     baseWeight: 'auto',
     slots: 5,
     caseFold: false,
-    access: { method: 'head_pointer', dwellMs: 800 },
+    access: { method: 'head_pointer', keyTimeMs: 1800 },
   },
   samples: [
     { id: SAMPLE_ID, title: 'Messages to the sailing club', sha256: 'a'.repeat(64), characters: 24_180 },
