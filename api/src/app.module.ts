@@ -8,6 +8,7 @@ import { ConsentsModule } from './consents/consents.module';
 import { ContactsModule } from './contacts/contacts.module';
 import { SamplesModule } from './samples/samples.module';
 import { ProfileVersionsModule } from './profile-versions/profile-versions.module';
+import { SummariesModule } from './summaries/summaries.module';
 import { isSignInRoute, SIGN_IN_THROTTLER } from './auth/decorators/sign-in-rate-limit.decorator';
 import { CsrfGuard } from './auth/guards/csrf.guard';
 import { RolesGuard } from './auth/guards/roles.guard';
@@ -56,6 +57,7 @@ const API_REQUESTS_PER_MINUTE = 1_000;
     ContactsModule,
     SamplesModule,
     ProfileVersionsModule,
+    SummariesModule,
   ],
   providers: [
     Reflector,

@@ -15,3 +15,4 @@ export * from './engine/evaluation/index';
 export * from './engine/profile/index';
 export * from './samples/index';
 export * from './schemas/profile-versions.schema';
+export * from './schemas/summaries.schema';

@@ -38,7 +38,13 @@ export type AuditAction =
   | 'profile.send-back'
   | 'profile.retire'
   | 'profile.export'
-  | 'profile.delete';
+  | 'profile.delete'
+  // Issue 7: progress summaries (clientId set on each; the mail job records with no actor).
+  | 'summary.create'
+  | 'summary.resend'
+  | 'summary.sent'
+  | 'summary.failed'
+  | 'summary.stop';
 
 /** Who did it: a signed-in user, or only a typed e-mail (failed sign-in); ip of the request. */
 export type AuditActor = { id: string | null; email: string | null; ip?: string | null };

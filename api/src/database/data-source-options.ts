@@ -9,9 +9,12 @@ import { CreateAuditEvents1764633600001 } from '../migrations/1764633600001-crea
 import { CreateClientsAndConsents1764720000000 } from '../migrations/1764720000000-create-clients-and-consents';
 import { CreateLanguageSamples1764720500000 } from '../migrations/1764720500000-create-language-samples';
 import { CreateProfileVersions1764721000000 } from '../migrations/1764721000000-create-profile-versions';
+import { CreateSummaries1764722000000 } from '../migrations/1764722000000-create-summaries';
 import { ProfileVersion } from '../profile-versions/profile-version.entity';
 import { SampleFlag } from '../samples/sample-flag.entity';
 import { Sample } from '../samples/sample.entity';
+import { SummaryRecipient } from '../summaries/summary-recipient.entity';
+import { Summary } from '../summaries/summary.entity';
 import { User } from '../users/user.entity';
 
 // Listed as classes (not globs) so the same list works under ts-jest, in dist and for the typeorm CLI.
@@ -26,6 +29,8 @@ export const entities = [
   Sample,
   SampleFlag,
   ProfileVersion,
+  Summary,
+  SummaryRecipient,
 ];
 export const migrations = [
   CreateUsersAndSessions1764633600000,
@@ -33,6 +38,7 @@ export const migrations = [
   CreateClientsAndConsents1764720000000,
   CreateLanguageSamples1764720500000,
   CreateProfileVersions1764721000000,
+  CreateSummaries1764722000000,
 ];
 
 /** TypeORM options for the app, the CLI, migrate.js, seed.js and the HTTP tests. Never synchronize. */

@@ -1,0 +1,16 @@
+import { Module } from '@nestjs/common';
+import { TypeOrmModule } from '@nestjs/typeorm';
+import { AuditModule } from '../audit/audit.module';
+import { ClientsModule } from '../clients/clients.module';
+import { JobsModule } from '../jobs/jobs.module';
+import { SummariesController } from './summaries.controller';
+import { SummariesService } from './summaries.service';
+import { SummaryRecipient } from './summary-recipient.entity';
+import { Summary } from './summary.entity';
+
+@Module({
+  imports: [TypeOrmModule.forFeature([Summary, SummaryRecipient]), ClientsModule, AuditModule, JobsModule],
+  controllers: [SummariesController],
+  providers: [SummariesService],
+})
+export class SummariesModule {}

@@ -1,0 +1,487 @@
+// Progress summaries against real PostgreSQL and the fake mail server (issue 7). So far: the mail
+// job's delivery step, called in-process as the worker will call it — sent and read back from the
+// fake server's API, SMTP down then up → delivered once, two jobs at once → one e-mail, a permanent
+// SMTP refusal → failed. The routes (POST/GET summaries, resend, stop) are not built yet.
+import { randomBytes, randomUUID } from 'node:crypto';
+import { createServer } from 'node:net';
+import { createTransport } from 'nodemailer';
+import type PgBoss from 'pg-boss';
+import type { Summary as SummaryDto, SummaryPreview } from '@keyloom/shared';
+import { createJobBoss } from '../src/jobs/job-queue';
+import { ProfileVersion } from '../src/profile-versions/profile-version.entity';
+import { createSmtpSender, startSummaryMailWork } from '../src/summaries/summary-mail-worker';
+import { AuditEvent } from '../src/audit/audit-event.entity';
+import { AuditService } from '../src/audit/audit.service';
+import { FamilyContact } from '../src/contacts/family-contact.entity';
+import {
+  deliverSummaryEmail,
+  type MailSender,
+  SUMMARY_MAIL_QUEUE,
+  SUMMARY_MAIL_QUEUE_OPTIONS,
+  TransientMailError,
+  WITHHELD_MESSAGE,
+} from '../src/summaries/summary-delivery';
+import { SummaryRecipient } from '../src/summaries/summary-recipient.entity';
+import { summarySubject, summaryText, type VersionFigures } from '../src/summaries/summary-text';
+import { Summary } from '../src/summaries/summary.entity';
+import { type Cast, castOrder, newCast, newClient, newConsent, send } from './caseload-helpers';
+import { createTestApp, resetDatabase, type TestApp, testDatabaseUrl } from './test-app';
+
+type InboxMail = {
+  id: string;
+  subject: string;
+  messageId?: string;
+  to: { address: string; name: string }[];
+  text: string;
+  html: string;
+  attachments?: { generatedFileName: string; contentType: string; contentId?: string }[];
+};
+
+const mailApi = (): string => {
+  const url = process.env.MAIL_API_URL;
+  if (!url) throw new Error('Set MAIL_API_URL to the fake mail server API (npm test does).');
+  return url;
+};
+
+async function inboxFor(address: string): Promise<InboxMail[]> {
+  const res = await fetch(mailApi());
+  const all = (await res.json()) as InboxMail[];
+  return all.filter((mail) => mail.to.some((to) => to.address === address));
+}
+
+/** A loopback port nobody listens on: the "SMTP server is down" case. */
+async function closedPort(): Promise<number> {
+  const server = createServer();
+  await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
+  const address = server.address();
+  await new Promise<void>((resolve) => server.close(() => resolve()));
+  if (typeof address !== 'object' || address === null) throw new Error('no port');
+  return address.port;
+}
+
+const smtpTransport = (port: number) =>
+  createTransport({ host: '127.0.0.1', port, secure: false, ignoreTLS: true, connectionTimeout: 2_000 });
+
+// Figures as the versions' stored metrics would give them (invented demo values).
+const FIGURES: VersionFigures[] = [
+  {
+    number: 1,
+    status: 'retired',
+    date: '2026-10-03',
+    slots: 5,
+    keystrokeSavings: 0.31,
+    wpmWithout: 1.9,
+    wpmWith: 2.2,
+  },
+  {
+    number: 2,
+    status: 'active',
+    date: '2026-11-03',
+    slots: 5,
+    keystrokeSavings: 0.42,
+    wpmWithout: 1.9,
+    wpmWith: 2.72,
+  },
+];
+const SETTINGS = {
+  from: 'Keyloom at Willowmere <keyloom@willowmere.example>',
+  appUrl: 'http://127.0.0.1:3000',
+};
+
+describe('summary e-mail delivery (mail job)', () => {
+  let t: TestApp;
+  let audit: AuditService;
+  let clientId: string;
+  let cast: Cast;
+  let boss: PgBoss;
+
+  beforeAll(async () => {
+    await resetDatabase();
+    t = await createTestApp();
+    audit = new AuditService(t.dataSource.getRepository(AuditEvent));
+    cast = await newCast(t.http, t.dataSource);
+    // The web process queues onto this queue; until startJobBoss creates it (next step of the issue),
+    // the test creates it as the worker will.
+    boss = createJobBoss(testDatabaseUrl(), { supervise: false });
+    await boss.start();
+    await boss.createQueue(SUMMARY_MAIL_QUEUE, SUMMARY_MAIL_QUEUE_OPTIONS);
+    clientId = (await newClient(t.http, cast.owner, undefined, 'R. Ashby')).id;
+  });
+
+  afterAll(async () => {
+    await boss.stop({ graceful: false, wait: true, close: true });
+    await t.app.close();
+  });
+
+  /** A stored summary with one queued recipient at a fresh address. */
+  async function queuedRecipient(): Promise<SummaryRecipient> {
+    const email = `family-${randomBytes(6).toString('hex')}@family.example`;
+    const contact = await t.dataSource.getRepository(FamilyContact).save({
+      clientId,
+      name: 'Ann Ashby',
+      relationship: 'sister',
+      email,
+      consentToSummaries: true,
+      unsubscribedAt: null,
+    });
+    const period = { clientName: 'R. Ashby', from: '2026-10-01', to: '2026-11-30' };
+    const summary = await t.dataSource.getRepository(Summary).save({
+      clientId,
+      periodFrom: period.from,
+      periodTo: period.to,
+      versionIds: [],
+      note: '',
+      subject: summarySubject(period),
+      text: summaryText({ ...period, clinicName: 'Willowmere', versions: FIGURES, note: '' }),
+      figures: FIGURES,
+      createdById: null,
+    });
+    return t.dataSource.getRepository(SummaryRecipient).save({
+      summaryId: summary.id,
+      contactId: contact.id,
+      name: contact.name,
+      email,
+      idempotencyKey: randomUUID(),
+      stopToken: randomBytes(32).toString('base64url'),
+    });
+  }
+
+  const reload = (id: string) => t.dataSource.getRepository(SummaryRecipient).findOneByOrFail({ id });
+
+  it('sends the stored content with both charts and the stop link, read back from the fake server', async () => {
+    const row = await queuedRecipient();
+    const outcome = await deliverSummaryEmail(
+      t.dataSource,
+      audit,
+      smtpTransport(Number(process.env.SMTP_PORT ?? 1025)),
+      SETTINGS,
+      row.id,
+      false,
+    );
+    expect(outcome).toBe('sent');
+    const mails = await inboxFor(row.email);
+    expect(mails).toHaveLength(1);
+    const mail = mails[0];
+    expect(mail.subject).toBe('Progress summary for R. Ashby, 2026-10-01 to 2026-11-30');
+    // The figures in the text are the stored ones, in words.
+    expect(mail.text).toContain('about 3 in 10 key presses saved');
+    expect(mail.text).toContain('about 4 in 10 key presses saved, roughly 3 words a minute with suggestions');
+    expect(mail.text).toContain(`http://127.0.0.1:3000/api/summaries/stop/${row.stopToken}`);
+    expect(
+      (mail.attachments ?? []).map((a) => [a.generatedFileName.endsWith('.png'), a.contentType]),
+    ).toEqual([
+      [true, 'image/png'],
+      [true, 'image/png'],
+    ]);
+    // maildev's JSON shows the HTML with each cid: image resolved to a data: URI, so both images
+    // were found by Content-ID; the raw message names them.
+    expect(mail.html.match(/<img src="data:image\/png;base64,/g)).toHaveLength(2);
+    const raw = await (await fetch(`${mailApi()}/${mail.id}/download`)).text();
+    expect(raw).toMatch(/^Content-ID: <savings-chart@keyloom>/m);
+    expect(raw).toMatch(/^Content-ID: <speed-chart@keyloom>/m);
+    const stored = await reload(row.id);
+    expect([stored.status, stored.attempts, stored.sentAt !== null]).toEqual(['sent', 1, true]);
+    expect(stored.messageId).toBe(`<${row.idempotencyKey}@willowmere.example>`);
+  });
+
+  it('keeps the e-mail queued while SMTP is down and delivers it once when it is back', async () => {
+    const row = await queuedRecipient();
+    const down = smtpTransport(await closedPort());
+    await expect(
+      deliverSummaryEmail(t.dataSource, audit, down, SETTINGS, row.id, false),
+    ).rejects.toBeInstanceOf(TransientMailError);
+    const waiting = await reload(row.id);
+    expect([waiting.status, waiting.attempts]).toEqual(['queued', 1]);
+    expect(waiting.lastError).toMatch(/ECONNREFUSED|connect/i);
+
+    const up = smtpTransport(Number(process.env.SMTP_PORT ?? 1025));
+    expect(await deliverSummaryEmail(t.dataSource, audit, up, SETTINGS, row.id, false)).toBe('sent');
+    // A retry of the same job after success (e.g. the worker died before acknowledging it).
+    expect(await deliverSummaryEmail(t.dataSource, audit, up, SETTINGS, row.id, false)).toBe('already-done');
+    expect(await inboxFor(row.email)).toHaveLength(1);
+    expect((await reload(row.id)).attempts).toBe(2);
+  });
+
+  it('sends one e-mail when two jobs for the same recipient run at once', async () => {
+    const row = await queuedRecipient();
+    const up = smtpTransport(Number(process.env.SMTP_PORT ?? 1025));
+    const outcomes = await Promise.all([
+      deliverSummaryEmail(t.dataSource, audit, up, SETTINGS, row.id, false),
+      deliverSummaryEmail(t.dataSource, audit, up, SETTINGS, row.id, false),
+    ]);
+    expect(outcomes.sort()).toEqual(['already-done', 'sent']);
+    expect(await inboxFor(row.email)).toHaveLength(1);
+  });
+
+  it('withholds a queued e-mail when the contact stopped summaries while it waited', async () => {
+    const row = await queuedRecipient();
+    await t.dataSource
+      .getRepository(FamilyContact)
+      .update({ id: row.contactId ?? '' }, { unsubscribedAt: new Date() });
+    const up = smtpTransport(Number(process.env.SMTP_PORT ?? 1025));
+    expect(await deliverSummaryEmail(t.dataSource, audit, up, SETTINGS, row.id, false)).toBe('withheld');
+    const stored = await reload(row.id);
+    expect([stored.status, stored.lastError]).toEqual(['failed', WITHHELD_MESSAGE]);
+    expect(await inboxFor(row.email)).toHaveLength(0);
+  });
+
+  it('marks a permanent refusal (SMTP 550) failed at once, and a transient one failed on the last attempt', async () => {
+    const refused: MailSender = {
+      sendMail: () =>
+        Promise.reject(Object.assign(new Error('550 mailbox unavailable'), { responseCode: 550 })),
+    };
+    const row = await queuedRecipient();
+    expect(await deliverSummaryEmail(t.dataSource, audit, refused, SETTINGS, row.id, false)).toBe('failed');
+    const failed = await reload(row.id);
+    expect([failed.status, failed.attempts, failed.lastError]).toEqual([
+      'failed',
+      1,
+      '550 mailbox unavailable',
+    ]);
+
+    const busy: MailSender = {
+      sendMail: () => Promise.reject(Object.assign(new Error('421 try later'), { responseCode: 421 })),
+    };
+    const second = await queuedRecipient();
+    await expect(
+      deliverSummaryEmail(t.dataSource, audit, busy, SETTINGS, second.id, false),
+    ).rejects.toBeInstanceOf(TransientMailError);
+    expect(await deliverSummaryEmail(t.dataSource, audit, busy, SETTINGS, second.id, true)).toBe('failed');
+    const events = await t.dataSource
+      .getRepository(AuditEvent)
+      .find({ where: { action: 'summary.failed', clientId } });
+    expect(events.filter((event) => event.details.withheld !== true)).toHaveLength(2);
+  });
+
+  describe('routes (HTTP)', () => {
+    let httpClientId: string;
+    let consenting: string;
+    let refusing: string;
+
+    beforeAll(async () => {
+      httpClientId = (await newClient(t.http, cast.owner, undefined, 'R. Ashby')).id;
+      await newConsent(t.http, cast.owner, httpClientId);
+      const contact = async (name: string, consentToSummaries: boolean) =>
+        (
+          (
+            await send(t.http, cast.owner, 'post', `/api/clients/${httpClientId}/contacts`, {
+              name,
+              relationship: 'sister',
+              email: `${name.toLowerCase()}-${randomBytes(4).toString('hex')}@family.example`,
+              consentToSummaries,
+            }).expect(201)
+          ).body as { id: string }
+        ).id;
+      consenting = await contact('Hannah', true);
+      refusing = await contact('Miles', false);
+      // A trained and approved version with stored metrics (invented values), inside the period.
+      await t.dataSource.getRepository(ProfileVersion).save({
+        clientId: httpClientId,
+        number: 1,
+        status: 'active',
+        settings: {
+          order: 5,
+          escape: 'C',
+          exclusion: true,
+          baseWeight: 'auto',
+          slots: 5,
+          caseFold: false,
+          access: { method: 'switch' },
+        },
+        samples: [],
+        metrics: { keystrokeSavings: { '5': 0.42 }, rates: { wpmWithout: 1.9, wpmWith: 2.72 } },
+        trainedAt: new Date('2026-11-02T10:00:00Z'),
+        approvedAt: new Date('2026-11-03T10:00:00Z'),
+        history: [],
+      });
+    });
+
+    const body = (contactIds: string[]) => ({
+      from: '2026-10-01',
+      to: '2026-11-30',
+      contactIds,
+      note: 'Well done.',
+    });
+
+    it('refuses a contact without consent to summaries (400) and a carer (403)', async () => {
+      const res = await send(
+        t.http,
+        cast.owner,
+        'post',
+        `/api/clients/${httpClientId}/summaries`,
+        body([consenting, refusing]),
+      ).expect(400);
+      expect(JSON.stringify(res.body)).toContain('Miles cannot receive summaries');
+      await send(
+        t.http,
+        cast.assignedCarer,
+        'post',
+        `/api/clients/${httpClientId}/summaries`,
+        body([consenting]),
+      ).expect(403);
+    });
+
+    it('stores and queues a summary, delivers it, then honours the stop link', async () => {
+      const created = (
+        await send(
+          t.http,
+          cast.owner,
+          'post',
+          `/api/clients/${httpClientId}/summaries`,
+          body([consenting]),
+        ).expect(201)
+      ).body as SummaryDto;
+      expect(created.status).toBe('sending');
+      expect(created.text).toContain('Version 1 (active 2026-11-03): about 4 in 10 key presses saved');
+      expect(created.text).toContain('Well done.');
+      expect(created.recipients.map((r) => [r.status, r.round])).toEqual([['queued', 1]]);
+      const [row] = await t.dataSource.getRepository(SummaryRecipient).findBy({ summaryId: created.id });
+      // The job is on the pg-boss queue under the id stored with the row.
+      expect((await boss.getJobById(SUMMARY_MAIL_QUEUE, row.jobId ?? ''))?.data).toEqual({
+        recipientId: row.id,
+      });
+
+      // The worker's step, run in-process.
+      const up = smtpTransport(Number(process.env.SMTP_PORT ?? 1025));
+      expect(await deliverSummaryEmail(t.dataSource, audit, up, SETTINGS, row.id, false)).toBe('sent');
+      const sent = (await send(t.http, cast.owner, 'get', `/api/summaries/${created.id}`).expect(200))
+        .body as SummaryDto;
+      expect([sent.status, sent.recipients[0].status, sent.recipients[0].stopped]).toEqual([
+        'sent',
+        'sent',
+        false,
+      ]);
+      const [mail] = await inboxFor(row.email);
+      expect(mail.text).toContain('about 4 in 10 key presses saved');
+
+      // The stop link, without a session.
+      const stopPath = `/api/summaries/stop/${row.stopToken}`;
+      expect(mail.text).toContain(stopPath);
+      const page = await send(t.http, cast.anonymous, 'get', stopPath).expect(200);
+      expect(page.text).toContain('You will not receive further progress summaries');
+      await send(t.http, cast.anonymous, 'get', stopPath).expect(200); // idempotent
+      await send(t.http, cast.anonymous, 'get', `/api/summaries/stop/${'x'.repeat(43)}`).expect(404);
+      const after = (await send(t.http, cast.owner, 'get', `/api/summaries/${created.id}`).expect(200))
+        .body as SummaryDto;
+      expect(after.recipients[0].stopped).toBe(true);
+      // Honoured next time: no re-send to them, and a new summary refuses them.
+      await send(t.http, cast.owner, 'post', `/api/summaries/${created.id}/resend`).expect(409);
+      await send(
+        t.http,
+        cast.owner,
+        'post',
+        `/api/clients/${httpClientId}/summaries`,
+        body([consenting]),
+      ).expect(400);
+      const list = (
+        await send(t.http, cast.owner, 'get', `/api/clients/${httpClientId}/summaries`).expect(200)
+      ).body as SummaryDto[];
+      expect(list.map((s) => s.id)).toEqual([created.id]);
+    });
+
+    it('refuses to send without a client consent that covers summaries (409)', async () => {
+      const other = (await newClient(t.http, cast.owner, undefined, 'T. Fairweather')).id;
+      const res = await send(t.http, cast.owner, 'post', `/api/clients/${other}/contacts`, {
+        name: 'Jo',
+        relationship: 'brother',
+        email: 'jo@family.example',
+        consentToSummaries: true,
+      }).expect(201);
+      await send(
+        t.http,
+        cast.owner,
+        'post',
+        `/api/clients/${other}/summaries`,
+        body([(res.body as { id: string }).id]),
+      ).expect(409);
+    });
+
+    it('lets pg-boss hand the queued e-mail to the worker step, which delivers it once', async () => {
+      const res = await send(t.http, cast.owner, 'post', `/api/clients/${httpClientId}/contacts`, {
+        name: 'Pat',
+        relationship: 'father',
+        email: `pat-${randomBytes(4).toString('hex')}@family.example`,
+        consentToSummaries: true,
+      }).expect(201);
+      const created = (
+        await send(
+          t.http,
+          cast.owner,
+          'post',
+          `/api/clients/${httpClientId}/summaries`,
+          body([(res.body as { id: string }).id]),
+        ).expect(201)
+      ).body as SummaryDto;
+      const sender = createSmtpSender({
+        host: '127.0.0.1',
+        port: Number(process.env.SMTP_PORT ?? 1025),
+        secure: false,
+      });
+      await startSummaryMailWork(boss, t.dataSource, audit, sender, SETTINGS, { log: () => undefined });
+      try {
+        const id = created.recipients[0].id;
+        for (let i = 0; i < 100 && (await reload(id)).status === 'queued'; i++) {
+          await new Promise((resolve) => setTimeout(resolve, 200));
+        }
+        expect((await reload(id)).status).toBe('sent');
+        expect(await inboxFor(created.recipients[0].email)).toHaveLength(1);
+      } finally {
+        await boss.offWork(SUMMARY_MAIL_QUEUE);
+      }
+    });
+
+    it('lets the same people read summaries as read the contacts, and only the owner send (role × route)', async () => {
+      const read: number[] = [];
+      const contacts: number[] = [];
+      const write: number[] = [];
+      for (const key of castOrder) {
+        const who = cast[key];
+        read.push((await send(t.http, who, 'get', `/api/clients/${httpClientId}/summaries`)).status);
+        contacts.push((await send(t.http, who, 'get', `/api/clients/${httpClientId}/contacts`)).status);
+        // A valid body naming a contact of nobody: the owner gets 400 from the contact check, the others
+        // are stopped before it (404 out of sight, 403 wrong role, 401 no session).
+        write.push(
+          (await send(t.http, who, 'post', `/api/clients/${httpClientId}/summaries`, body([randomUUID()])))
+            .status,
+        );
+      }
+      expect(read).toEqual(contacts);
+      // owner, other clinician, supervisor, assigned carer, unassigned carer, admin, no session.
+      expect(write).toEqual([400, 404, 403, 403, 403, 403, 401]);
+    });
+
+    it('previews the text and charts from the stored metrics without storing anything', async () => {
+      const listPath = `/api/clients/${httpClientId}/summaries`;
+      const before = ((await send(t.http, cast.owner, 'get', listPath).expect(200)).body as SummaryDto[])
+        .length;
+      const preview = (
+        await send(t.http, cast.owner, 'post', `/api/clients/${httpClientId}/summaries/preview`, {
+          from: '2026-10-01',
+          to: '2026-11-30',
+          note: 'Draft note.',
+        }).expect(200)
+      ).body as SummaryPreview;
+      expect(preview.text).toContain('Version 1 (active 2026-11-03): about 4 in 10 key presses saved');
+      expect(preview.text).toContain('Draft note.');
+      expect(preview.charts.map((c) => c.name)).toEqual(['keystroke-savings.png', 'typing-speed.png']);
+      expect(preview.charts[0].alt).toContain('version 1: 42%');
+      const png = Buffer.from(preview.charts[0].pngBase64, 'base64');
+      expect(png.subarray(0, 8).toString('hex')).toBe('89504e470d0a1a0a'); // PNG signature (PNG spec 5.2)
+      // A period without versions: no charts.
+      const empty = (
+        await send(t.http, cast.owner, 'post', `/api/clients/${httpClientId}/summaries/preview`, {
+          from: '2025-01-01',
+          to: '2025-01-31',
+        }).expect(200)
+      ).body as SummaryPreview;
+      expect([empty.versionIds, empty.charts]).toEqual([[], []]);
+      await send(t.http, cast.supervisor, 'post', `/api/clients/${httpClientId}/summaries/preview`, {
+        from: '2026-10-01',
+        to: '2026-11-30',
+      }).expect(403);
+      expect(
+        ((await send(t.http, cast.owner, 'get', listPath).expect(200)).body as SummaryDto[]).length,
+      ).toBe(before);
+    });
+  });
+});
