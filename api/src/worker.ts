@@ -12,10 +12,14 @@ import {
   startJobBoss,
 } from './jobs/job-queue';
 import { loadTrainingRuntime, runProfileTraining } from './profile-versions/profile-training';
+import { createSmtpSender, requeueWaitingRecipients, startSummaryMailWork } from './summaries/summary-mail-worker';
+
+/** How often the worker re-queues summary e-mails whose job was lost (e.g. queued while pg-boss was down). */
+const REQUEUE_EVERY_MS = 5 * 60_000;
 
 // `node api/dist/worker.js`: the job process beside the web process. It trains and evaluates
 // profile versions from the pg-boss queue, WORKER_CONCURRENCY jobs at a time, with PROFILE_FOLDS
-// folds. Several workers (on one machine or many) may share one database; pg-boss hands each job
+// folds, and sends the progress-summary e-mails (one at a time, over SMTP_*). Several workers (on one machine or many) may share one database; pg-boss hands each job
 // to one of them. SIGTERM/SIGINT: stop taking jobs, let a running one finish (up to 60 s), exit.
 async function main(): Promise<void> {
   const logger = new Logger('Worker');
@@ -53,6 +57,26 @@ async function main(): Promise<void> {
       },
     );
   }
+  await startSummaryMailWork(
+    boss,
+    dataSource,
+    audit,
+    createSmtpSender({
+      host: env.SMTP_HOST,
+      port: env.SMTP_PORT,
+      secure: env.SMTP_SECURE,
+      user: env.SMTP_USER,
+      pass: env.SMTP_PASS,
+    }),
+    { from: env.MAIL_FROM, appUrl: env.APP_URL },
+    logger,
+  );
+  const requeue = setInterval(() => {
+    requeueWaitingRecipients(boss, dataSource).catch((error: unknown) =>
+      logger.error(`Re-queueing summary e-mails: ${error instanceof Error ? error.message : String(error)}`),
+    );
+  }, REQUEUE_EVERY_MS);
+  requeue.unref();
   logger.log(
     `Waiting for ${PROFILE_TRAINING_QUEUE} jobs (concurrency ${env.WORKER_CONCURRENCY}, ${env.PROFILE_FOLDS} folds)`,
   );

@@ -16,3 +16,5 @@ export * from './engine/profile/index';
 export * from './samples/index';
 export * from './schemas/profile-versions.schema';
 export * from './schemas/summaries.schema';
+export * from './schemas/trials.schema';
+export * from './trials/index';

@@ -1,4 +1,5 @@
 import PgBoss from 'pg-boss';
+import { SUMMARY_MAIL_QUEUE, SUMMARY_MAIL_QUEUE_OPTIONS } from '../summaries/summary-delivery';
 
 /** The queue of profile-version training jobs; data: ProfileTrainingJobData. */
 export const PROFILE_TRAINING_QUEUE = 'profile-training';
@@ -42,4 +43,5 @@ export async function startJobBoss(boss: PgBoss): Promise<void> {
   await boss.start();
   // Idempotent (INSERT … ON CONFLICT DO NOTHING inside pg-boss), so every process may call it.
   await boss.createQueue(PROFILE_TRAINING_QUEUE, PROFILE_TRAINING_QUEUE_OPTIONS);
+  await boss.createQueue(SUMMARY_MAIL_QUEUE, SUMMARY_MAIL_QUEUE_OPTIONS);
 }

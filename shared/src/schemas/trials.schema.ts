@@ -1,0 +1,164 @@
+import { z } from 'zod';
+
+// Trials on the test keyboard (issue 6): what the browser logs and posts, what the API stores and returns.
+
+/** How the person selects on the test keyboard during a trial. */
+export const trialAccessMethods = ['direct', 'dwell', 'scanning'] as const;
+export const trialAccessMethodSchema = z.enum(trialAccessMethods);
+export type TrialAccessMethod = z.infer<typeof trialAccessMethodSchema>;
+export const trialAccessMethodLabels: Record<TrialAccessMethod, string> = {
+  direct: 'Direct (pointer, touch or keyboard)',
+  dwell: 'Dwell',
+  scanning: 'Single-switch scanning',
+};
+
+/** Key orders of the test keyboard: the standard typewriter order and a plain alphabetical one. */
+export const keyboardLayouts = ['typewriter', 'alphabetical'] as const;
+export const keyboardLayoutSchema = z.enum(keyboardLayouts);
+export type KeyboardLayout = z.infer<typeof keyboardLayoutSchema>;
+export const keyboardLayoutLabels: Record<KeyboardLayout, string> = {
+  typewriter: 'Typewriter order',
+  alphabetical: 'Alphabetical order',
+};
+
+/** The settings a trial ran with (the client record's access settings are the defaults). */
+export const trialSettingsSchema = z.object({
+  method: trialAccessMethodSchema,
+  layout: keyboardLayoutSchema,
+  slots: z.number().int().min(1).max(10),
+  dwellMs: z.number().int().min(100).max(5_000).nullable(),
+  scanIntervalMs: z.number().int().min(100).max(10_000).nullable(),
+  largeTargets: z.boolean(),
+  highContrast: z.boolean(),
+  /** Text size as a multiple of the normal size (1 = 100 %). */
+  textScale: z.number().min(1).max(3),
+  tintKeys: z.boolean(),
+});
+export type TrialSettings = z.infer<typeof trialSettingsSchema>;
+
+/**
+ * One logged step of a trial. `t` is milliseconds since the trial started.
+ * - `letter` / `punctuation`: `value` is the one character inserted.
+ * - `space`: a space inserted. `backspace`: the last character removed.
+ * - `suggestion`: `value` is the whole word picked from slot `slot` (0-based); the word being
+ *   typed is replaced by it and a space follows.
+ * - `switch`: one switch activation in scanning mode (it changes no text by itself).
+ * - `offer`: the suggestion row changed; `words` is what it showed (possibly empty).
+ * Letters, punctuation, space, backspace and suggestions are the trial's keystrokes (selections).
+ */
+export const trialEventTypes = ['letter', 'punctuation', 'space', 'backspace', 'suggestion', 'switch', 'offer'] as const;
+export const trialEventTypeSchema = z.enum(trialEventTypes);
+export type TrialEventType = z.infer<typeof trialEventTypeSchema>;
+
+export const trialEventSchema = z.object({
+  t: z.number().int().min(0).max(24 * 60 * 60 * 1000),
+  type: trialEventTypeSchema,
+  value: z.string().max(64).optional(),
+  slot: z.number().int().min(0).max(9).optional(),
+  words: z.array(z.string().max(64)).max(10).optional(),
+});
+export type TrialEvent = z.infer<typeof trialEventSchema>;
+
+/** Longest trial accepted: events and text. */
+export const TRIAL_MAX_EVENTS = 20_000;
+export const TRIAL_MAX_TEXT = 5_000;
+
+// POST /api/profile-versions/:id/trials. `clientTrialId` is made in the browser; posting the same id
+// again (an upload retried after the network came back) returns the stored trial instead of a second one.
+export const createTrialSchema = z.object({
+  clientTrialId: z.uuid({ error: 'The trial needs an id made by the browser.' }),
+  startedAt: z.iso.datetime({ offset: true }),
+  finishedAt: z.iso.datetime({ offset: true }),
+  /** A practice phrase's id ("kl-…" for Keyloom's own phrases, a uuid for the client's), if one was used. */
+  phraseId: z.string().max(64).nullable().default(null),
+  targetPhrase: z.string().max(500).nullable().default(null),
+  /** The text on screen at the end; the API replays `events` and refuses the trial if they differ. */
+  text: z.string().max(TRIAL_MAX_TEXT),
+  events: z
+    .array(trialEventSchema)
+    .min(1, { error: 'The trial has no key presses.' })
+    .max(TRIAL_MAX_EVENTS, { error: `A trial can log at most ${TRIAL_MAX_EVENTS} steps.` }),
+  settings: trialSettingsSchema,
+  note: z.string().trim().max(2000).default(''),
+});
+export type CreateTrialInput = z.input<typeof createTrialSchema>;
+export type CreateTrialBody = z.output<typeof createTrialSchema>;
+
+/** What a trial measured (computeTrialMeasures in shared/src/trials). */
+export const trialMeasuresSchema = z.object({
+  /** Code points of the final text. */
+  characters: z.number().int(),
+  /** Selections: letters, punctuation, spaces, backspaces and suggestions picked. */
+  keystrokes: z.number().int(),
+  /** Switch activations (scanning only; 0 otherwise). */
+  switchActivations: z.number().int(),
+  /** Times the suggestion row changed to show at least one word. */
+  suggestionsOffered: z.number().int(),
+  suggestionsTaken: z.number().int(),
+  /** Characters that picked suggestions put into the text (their spaces included). */
+  charactersFromSuggestions: z.number().int(),
+  /** Backspaces pressed. */
+  errorsCorrected: z.number().int(),
+  /** From the first selection to the last, ms. */
+  durationMs: z.number().int(),
+  /** 1 − keystrokes / characters (null with no characters); negative when corrections outnumber savings. */
+  keystrokeSavings: z.number().nullable(),
+  /** keystrokes / characters (null with no characters). */
+  kspc: z.number().nullable(),
+  /** ((characters − 1) / seconds) × 60 / 5 (null under 2 characters or no time). */
+  wpm: z.number().nullable(),
+  /** Minimum string distance between the target phrase and the text, over the longer length (null without a target). */
+  errorRate: z.number().nullable(),
+});
+export type TrialMeasures = z.infer<typeof trialMeasuresSchema>;
+
+export const trialSchema = z.object({
+  id: z.uuid(),
+  clientTrialId: z.uuid(),
+  versionId: z.uuid(),
+  versionNumber: z.number().int(),
+  clientId: z.uuid(),
+  by: z.object({ id: z.uuid().nullable(), name: z.string(), role: z.string() }),
+  startedAt: z.string(),
+  finishedAt: z.string(),
+  phraseId: z.string().nullable(),
+  targetPhrase: z.string().nullable(),
+  text: z.string(),
+  settings: trialSettingsSchema,
+  note: z.string(),
+  measures: trialMeasuresSchema,
+  /** The version's simulated figures at the trial's slot count, for comparison (null when the report lacks them). */
+  simulated: z.object({ keystrokeSavings: z.number().nullable(), wpm: z.number().nullable(), slots: z.number().int() }),
+  createdAt: z.string(),
+});
+export type Trial = z.infer<typeof trialSchema>;
+
+// Practice phrases: Keyloom's own invented list plus the ones the clinician adds for the client.
+export const practicePhraseSources = ['keyloom', 'client'] as const;
+export const practicePhraseSchema = z.object({
+  id: z.string(),
+  text: z.string(),
+  source: z.enum(practicePhraseSources),
+  addedBy: z.string().nullable(),
+  createdAt: z.string().nullable(),
+});
+export type PracticePhrase = z.infer<typeof practicePhraseSchema>;
+
+export const createPracticePhraseSchema = z.object({
+  text: z
+    .string({ error: 'Write the phrase.' })
+    .trim()
+    .min(2, { error: 'Write a phrase of at least 2 characters.' })
+    .max(200, { error: 'Keep a practice phrase under 200 characters.' }),
+});
+export type CreatePracticePhraseInput = z.infer<typeof createPracticePhraseSchema>;
+
+// POST /api/profile-versions/:id/report-problem: an assigned carer, after a trial, instead of signing off.
+export const reportProblemSchema = z.object({
+  reason: z
+    .string({ error: 'Say what went wrong in the trial.' })
+    .trim()
+    .min(1, { error: 'Say what went wrong in the trial.' })
+    .max(2000),
+});
+export type ReportProblemInput = z.infer<typeof reportProblemSchema>;

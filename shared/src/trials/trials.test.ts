@@ -1,0 +1,138 @@
+import { describe, expect, it } from 'vitest';
+import { createTrialSchema, type TrialEvent } from '../schemas/trials.schema';
+import { builtInPracticePhrases } from './practice-phrases';
+import { computeTrialMeasures, minimumStringDistance, msdErrorRate } from './trial-measures';
+import { applyTrialEvent, partialWord, replayTrial, TrialReplayError } from './trial-replay';
+
+/** Letter-by-letter events for `text`, evenly spread from 0 to `ms`. */
+function typed(text: string, ms: number): TrialEvent[] {
+  const chars = [...text];
+  return chars.map((c, i) => ({
+    t: chars.length > 1 ? Math.round((i * ms) / (chars.length - 1)) : 0,
+    type: c === ' ' ? 'space' : /[\p{L}\p{N}]/u.test(c) ? 'letter' : 'punctuation',
+    ...(c === ' ' ? {} : { value: c }),
+  }));
+}
+
+describe('trial replay', () => {
+  it('applies letters, spaces, punctuation and backspaces (astral characters as one)', () => {
+    const events: TrialEvent[] = [
+      ...typed('hi,', 100),
+      { t: 200, type: 'backspace' },
+      { t: 300, type: 'letter', value: '𝒜' },
+      { t: 400, type: 'backspace' },
+      { t: 500, type: 'space' },
+      { t: 600, type: 'switch' },
+      { t: 700, type: 'offer', words: ['there'] },
+    ];
+    expect(replayTrial(events)).toBe('hi ');
+  });
+
+  it('a suggestion replaces the word being typed and adds a space', () => {
+    expect(applyTrialEvent('i want te', { t: 0, type: 'suggestion', value: 'tea', slot: 0 })).toBe('i want tea ');
+    expect(applyTrialEvent('i want ', { t: 0, type: 'suggestion', value: 'tea', slot: 1 })).toBe('i want tea ');
+    expect(partialWord("i don'")).toBe("don'");
+    expect(partialWord('end. ')).toBe('');
+  });
+
+  it('names the step that cannot be replayed', () => {
+    expect(() => replayTrial([...typed('ab', 10), { t: 20, type: 'letter', value: 'xy' }])).toThrow(
+      new TrialReplayError('Step 3 of the trial log: A letter step must insert exactly one character, not "xy".'),
+    );
+    expect(() => replayTrial([{ t: 0, type: 'suggestion' }])).toThrow(TrialReplayError);
+  });
+});
+
+describe('trial measures', () => {
+  it('words per minute: 43 characters in 20 s give 25.2 wpm', () => {
+    // MacKenzie (2002), "A note on calculating text entry speed": (43 − 1) / 20 s = 2.10 cps;
+    // × 60 / 5 = 25.2 wpm (REFERENCES.md #44, the wpm step derived).
+    const phrase = 'the quick brown fox jumps over the lazy dog';
+    expect([...phrase].length).toBe(43);
+    const m = computeTrialMeasures(typed(phrase, 20_000), phrase);
+    expect(m.durationMs).toBe(20_000);
+    expect(m.wpm).toBeCloseTo(25.2, 6);
+    // One key per character: KSPC 1.00 as for a full keyboard (MacKenzie 2002 [S]), so KS = 0.
+    expect(m.kspc).toBe(1);
+    expect(m.keystrokeSavings).toBe(0);
+    expect(m.errorRate).toBe(0);
+  });
+
+  it('counts a picked suggestion as one keystroke: "he" + "hello" gives 6 characters for 3 keys', () => {
+    // Derived: KS = 1 − 3/6 = 0.5, the definition of keystroke savings.
+    const events: TrialEvent[] = [
+      { t: 0, type: 'offer', words: ['i', 'the'] },
+      { t: 100, type: 'letter', value: 'h' },
+      { t: 150, type: 'offer', words: ['how', 'he'] },
+      { t: 200, type: 'letter', value: 'e' },
+      { t: 250, type: 'offer', words: ['hello', 'here'] },
+      { t: 900, type: 'suggestion', value: 'hello', slot: 0 },
+      { t: 950, type: 'offer', words: [] },
+    ];
+    const m = computeTrialMeasures(events, null);
+    expect(m).toMatchObject({
+      characters: 6,
+      keystrokes: 3,
+      suggestionsOffered: 3,
+      suggestionsTaken: 1,
+      charactersFromSuggestions: 4,
+      errorsCorrected: 0,
+      durationMs: 800,
+      keystrokeSavings: 0.5,
+      kspc: 0.5,
+      errorRate: null,
+    });
+  });
+
+  it('corrections cost keystrokes and can make savings negative', () => {
+    const events: TrialEvent[] = [...typed('ax', 300), { t: 400, type: 'backspace' }, { t: 500, type: 'letter', value: 'b' }];
+    const m = computeTrialMeasures(events, 'ab');
+    expect(m.characters).toBe(2);
+    expect(m.keystrokes).toBe(4);
+    expect(m.errorsCorrected).toBe(1);
+    expect(m.keystrokeSavings).toBe(-1);
+    expect(m.errorRate).toBe(0);
+  });
+
+  it('minimum string distance is the Levenshtein distance', () => {
+    // "kitten" → "sitting" = 3, the usual textbook example (from memory).
+    expect(minimumStringDistance('kitten', 'sitting')).toBe(3);
+    expect(minimumStringDistance('', 'abc')).toBe(3);
+    expect(minimumStringDistance('flaw', 'lawn')).toBe(2);
+    // "quickly" typed as "qucehkly": MSD 3, error rate 3/8 (Soukoreff & MacKenzie 2001 — from memory).
+    expect(msdErrorRate('quickly', 'qucehkly')).toBeCloseTo(3 / 8, 12);
+    expect(msdErrorRate('Tea please', 'tea please ')).toBe(0);
+  });
+});
+
+describe('practice phrases and the trial schema', () => {
+  it('ships lower-case phrases with unique stable ids, typeable on the test keyboard', () => {
+    const ids = new Set(builtInPracticePhrases.map((p) => p.id));
+    expect(ids.size).toBe(builtInPracticePhrases.length);
+    expect(builtInPracticePhrases.length).toBeGreaterThanOrEqual(20);
+    for (const p of builtInPracticePhrases) expect(p.text).toMatch(/^[a-z .,?'-]+$/);
+  });
+
+  it('refuses a trial without steps and fills defaults', () => {
+    const base = {
+      clientTrialId: '4b9d1c3e-2f7a-4c61-9a0e-8f7b6d5c4a31',
+      startedAt: '2026-12-02T10:00:00Z',
+      finishedAt: '2026-12-02T10:05:00Z',
+      text: 'hi',
+      settings: {
+        method: 'direct',
+        layout: 'typewriter',
+        slots: 5,
+        dwellMs: null,
+        scanIntervalMs: null,
+        largeTargets: false,
+        highContrast: false,
+        textScale: 1,
+        tintKeys: false,
+      },
+    };
+    expect(createTrialSchema.safeParse({ ...base, events: [] }).success).toBe(false);
+    const ok = createTrialSchema.parse({ ...base, events: typed('hi', 10) });
+    expect(ok).toMatchObject({ phraseId: null, targetPhrase: null, note: '' });
+  });
+});
