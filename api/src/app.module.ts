@@ -9,6 +9,7 @@ import { ContactsModule } from './contacts/contacts.module';
 import { SamplesModule } from './samples/samples.module';
 import { ProfileVersionsModule } from './profile-versions/profile-versions.module';
 import { SummariesModule } from './summaries/summaries.module';
+import { TrialsModule } from './trials/trials.module';
 import { isSignInRoute, SIGN_IN_THROTTLER } from './auth/decorators/sign-in-rate-limit.decorator';
 import { CsrfGuard } from './auth/guards/csrf.guard';
 import { RolesGuard } from './auth/guards/roles.guard';
@@ -58,6 +59,7 @@ const API_REQUESTS_PER_MINUTE = 1_000;
     SamplesModule,
     ProfileVersionsModule,
     SummariesModule,
+    TrialsModule,
   ],
   providers: [
     Reflector,

@@ -81,10 +81,11 @@ export function configureApp(app: NestExpressApplication): Pool {
   app.use('/api', passport.initialize());
   app.use('/api', passport.session());
 
-  // JSON bodies up to 100 kB (bigger: 413); later upload routes use multipart with their own limits.
+  // JSON bodies up to 2 MB (bigger: 413): the largest is a long test-keyboard trial's log (20,000
+  // logged steps); file uploads use multipart with their own limits.
   // Parsed here rather than by Nest so a malformed body can be told apart from other 400s
   // (Nest would turn it into a BadRequestException carrying the parser's own message).
-  app.useBodyParser('json', { limit: '100kb' });
+  app.useBodyParser('json', { limit: '2mb' });
   app.use('/api', (error: unknown, _req: Request, _res: Response, next: NextFunction) => {
     const type = (error as { type?: unknown } | null)?.type;
     next(type === 'entity.parse.failed' ? new BadRequestException(INVALID_JSON_MESSAGE) : error);

@@ -31,7 +31,7 @@ describe('platform (HTTP)', () => {
     const res = await agent
       .post('/api/auth/login')
       .set('X-CSRF-Token', token)
-      .send({ email: 'a@willowmere.example', password: 'x'.repeat(200_000) })
+      .send({ email: 'a@willowmere.example', password: 'x'.repeat(2_200_000) })
       .expect(413);
     expect(res.body).toEqual({
       statusCode: 413,

@@ -34,6 +34,7 @@ import type { ProfileVersionDto } from '../src/profile-versions/profile-version.
 import { newUser, signIn } from './factories';
 import { type Caller, type Cast, castOrder, newCast, newClient, newConsent, send } from './caseload-helpers';
 import { createTestApp, resetDatabase, type TestApp, testDatabaseUrl } from './test-app';
+import { postTrial } from './trial-helpers';
 
 // Invented for these tests (the demo scenario's voice: sailing, jazz piano, a dog); not from any corpus.
 const TEXTS = [
@@ -114,6 +115,7 @@ describe('profile versions (HTTP)', () => {
 
   async function signedOff(): Promise<Version> {
     const v = await trained();
+    await postTrial(t.http, cast.assignedCarer, v.id).expect(201);
     await post(cast.assignedCarer, `/api/profile-versions/${v.id}/sign-off`, {
       comment: 'Tried it for a week.',
     }).expect(200);
@@ -419,6 +421,12 @@ describe('profile versions (HTTP)', () => {
       for (const k of notCarer) got.push((await post(cast[k], path, { comment: 'ok' })).status);
       expect(got).toEqual([403, 403, 403, 404, 403, 401]);
       await post(cast.assignedCarer, path, { comment: ' ' }).expect(400);
+      // Issue 6: not before the version was tried on the test keyboard.
+      const untried = await post(cast.assignedCarer, path, { comment: 'Looks fine.' }).expect(409);
+      expect(untried.body.message).toBe(
+        'Try this version on the test keyboard at least once before signing it off.',
+      );
+      await postTrial(t.http, cast.assignedCarer, v.id).expect(201);
       const ok = (
         await post(cast.assignedCarer, path, { comment: 'Used it at the café; quicker.' }).expect(200)
       ).body as Version;

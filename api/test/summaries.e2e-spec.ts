@@ -1,7 +1,7 @@
-// Progress summaries against real PostgreSQL and the fake mail server (issue 7). So far: the mail
-// job's delivery step, called in-process as the worker will call it — sent and read back from the
-// fake server's API, SMTP down then up → delivered once, two jobs at once → one e-mail, a permanent
-// SMTP refusal → failed. The routes (POST/GET summaries, resend, stop) are not built yet.
+// Progress summaries against real PostgreSQL and the fake mail server (issue 7): the mail job's
+// delivery step, called in-process as the worker calls it — sent and read back from the fake server's
+// API, SMTP down then up → delivered once, two jobs at once → one e-mail, a permanent SMTP refusal →
+// failed, consent gone while queued → withheld; then the routes (summaries, preview, resend, stop link).
 import { randomBytes, randomUUID } from 'node:crypto';
 import { createServer } from 'node:net';
 import { createTransport } from 'nodemailer';
@@ -14,6 +14,7 @@ import { AuditEvent } from '../src/audit/audit-event.entity';
 import { AuditService } from '../src/audit/audit.service';
 import { FamilyContact } from '../src/contacts/family-contact.entity';
 import {
+  CLIENT_CONSENT_WITHHELD_MESSAGE,
   deliverSummaryEmail,
   type MailSender,
   SUMMARY_MAIL_QUEUE,
@@ -106,6 +107,8 @@ describe('summary e-mail delivery (mail job)', () => {
     await boss.start();
     await boss.createQueue(SUMMARY_MAIL_QUEUE, SUMMARY_MAIL_QUEUE_OPTIONS);
     clientId = (await newClient(t.http, cast.owner, undefined, 'R. Ashby')).id;
+    // Delivery re-checks the client's consent too, so this client has one covering summaries.
+    await newConsent(t.http, cast.owner, clientId);
   });
 
   afterAll(async () => {
@@ -114,10 +117,10 @@ describe('summary e-mail delivery (mail job)', () => {
   });
 
   /** A stored summary with one queued recipient at a fresh address. */
-  async function queuedRecipient(): Promise<SummaryRecipient> {
+  async function queuedRecipient(forClient = clientId): Promise<SummaryRecipient> {
     const email = `family-${randomBytes(6).toString('hex')}@family.example`;
     const contact = await t.dataSource.getRepository(FamilyContact).save({
-      clientId,
+      clientId: forClient,
       name: 'Ann Ashby',
       relationship: 'sister',
       email,
@@ -126,7 +129,7 @@ describe('summary e-mail delivery (mail job)', () => {
     });
     const period = { clientName: 'R. Ashby', from: '2026-10-01', to: '2026-11-30' };
     const summary = await t.dataSource.getRepository(Summary).save({
-      clientId,
+      clientId: forClient,
       periodFrom: period.from,
       periodTo: period.to,
       versionIds: [],
@@ -225,6 +228,20 @@ describe('summary e-mail delivery (mail job)', () => {
     expect(await inboxFor(row.email)).toHaveLength(0);
   });
 
+  it('withholds a queued e-mail when the client’s consent to summaries was withdrawn while it waited', async () => {
+    const other = (await newClient(t.http, cast.owner, undefined, 'T. Fairweather')).id;
+    const consent = await newConsent(t.http, cast.owner, other);
+    const row = await queuedRecipient(other);
+    await send(t.http, cast.owner, 'post', `/api/clients/${other}/consents/${consent.id}/withdraw`, {
+      reason: 'The client asked to stop everything.',
+    }).expect(200);
+    const up = smtpTransport(Number(process.env.SMTP_PORT ?? 1025));
+    expect(await deliverSummaryEmail(t.dataSource, audit, up, SETTINGS, row.id, false)).toBe('withheld');
+    const stored = await reload(row.id);
+    expect([stored.status, stored.lastError]).toEqual(['failed', CLIENT_CONSENT_WITHHELD_MESSAGE]);
+    expect(await inboxFor(row.email)).toHaveLength(0);
+  });
+
   it('marks a permanent refusal (SMTP 550) failed at once, and a transient one failed on the last attempt', async () => {
     const refused: MailSender = {
       sendMail: () =>
@@ -257,6 +274,7 @@ describe('summary e-mail delivery (mail job)', () => {
     let httpClientId: string;
     let consenting: string;
     let refusing: string;
+    let versionId: string;
 
     beforeAll(async () => {
       httpClientId = (await newClient(t.http, cast.owner, undefined, 'R. Ashby')).id;
@@ -275,7 +293,7 @@ describe('summary e-mail delivery (mail job)', () => {
       consenting = await contact('Hannah', true);
       refusing = await contact('Miles', false);
       // A trained and approved version with stored metrics (invented values), inside the period.
-      await t.dataSource.getRepository(ProfileVersion).save({
+      const version = await t.dataSource.getRepository(ProfileVersion).save({
         clientId: httpClientId,
         number: 1,
         status: 'active',
@@ -294,6 +312,7 @@ describe('summary e-mail delivery (mail job)', () => {
         approvedAt: new Date('2026-11-03T10:00:00Z'),
         history: [],
       });
+      versionId = version.id;
     });
 
     const body = (contactIds: string[]) => ({
@@ -354,13 +373,33 @@ describe('summary e-mail delivery (mail job)', () => {
       const [mail] = await inboxFor(row.email);
       expect(mail.text).toContain('about 4 in 10 key presses saved');
 
-      // The stop link, without a session.
+      // The stop link, without a session. Opening it (as a mail scanner would) changes nothing.
       const stopPath = `/api/summaries/stop/${row.stopToken}`;
       expect(mail.text).toContain(stopPath);
       const page = await send(t.http, cast.anonymous, 'get', stopPath).expect(200);
-      expect(page.text).toContain('You will not receive further progress summaries');
-      await send(t.http, cast.anonymous, 'get', stopPath).expect(200); // idempotent
+      expect(page.text).toContain('<form method="post" action="' + row.stopToken + '">');
+      expect(page.text).toContain('Stop these e-mails');
+      const unchanged = (await send(t.http, cast.owner, 'get', `/api/summaries/${created.id}`).expect(200))
+        .body as SummaryDto;
+      expect(unchanged.recipients[0].stopped).toBe(false);
+      // The button's POST: no session, no CSRF token (RFC 8058 one-click body), and idempotent.
+      const stopped = await send(t.http, cast.anonymous, 'post', stopPath)
+        .type('form')
+        .send('List-Unsubscribe=One-Click')
+        .expect(200);
+      expect(stopped.text).toContain('You will not receive further progress summaries');
+      await send(t.http, cast.anonymous, 'post', stopPath).expect(200);
+      expect((await send(t.http, cast.anonymous, 'get', stopPath).expect(200)).text).toContain(
+        'Summaries stopped',
+      );
       await send(t.http, cast.anonymous, 'get', `/api/summaries/stop/${'x'.repeat(43)}`).expect(404);
+      await send(t.http, cast.anonymous, 'post', `/api/summaries/stop/${'x'.repeat(43)}`).expect(404);
+      // Other POSTs without a token are still refused by the CSRF guard (403).
+      await send(t.http, cast.anonymous, 'post', '/api/auth/login', { email: 'a@b.example' }).expect(403);
+      const events = await t.dataSource
+        .getRepository(AuditEvent)
+        .find({ where: { action: 'summary.stop', clientId: httpClientId } });
+      expect(events).toHaveLength(1);
       const after = (await send(t.http, cast.owner, 'get', `/api/summaries/${created.id}`).expect(200))
         .body as SummaryDto;
       expect(after.recipients[0].stopped).toBe(true);
@@ -482,6 +521,55 @@ describe('summary e-mail delivery (mail job)', () => {
       expect(
         ((await send(t.http, cast.owner, 'get', listPath).expect(200)).body as SummaryDto[]).length,
       ).toBe(before);
+    });
+    it('adds the carer’s trials in the period to the text and the stored figures (means of trials.measures)', async () => {
+      // Rows as the test keyboard's POST stores them (only the columns the summary reads matter).
+      const trial = (finishedAt: string, measures: object) =>
+        t.dataSource.query(
+          `INSERT INTO trials (client_trial_id, profile_version_id, client_id, user_name, user_role,
+                               started_at, finished_at, text, settings, events, measures, simulated)
+           VALUES ($1, $2, $3, 'Hannah', 'carer', $4::timestamptz - interval '2 minutes', $4, 'hi pepper',
+                   '{}', '[]', $5, '{}')`,
+          [randomUUID(), versionId, httpClientId, finishedAt, JSON.stringify(measures)],
+        );
+      await trial('2026-11-10T10:00:00Z', { keystrokeSavings: 0.25, wpm: 1.8 });
+      await trial('2026-11-12T10:00:00Z', { keystrokeSavings: 0.35, wpm: 2.2 });
+      await trial('2026-11-13T10:00:00Z', { keystrokeSavings: null, wpm: null }); // too short to measure
+      await trial('2026-12-05T10:00:00Z', { keystrokeSavings: 0.9, wpm: 9 }); // after the period
+      const period = { from: '2026-10-01', to: '2026-11-30', note: '' };
+      const preview = (
+        await send(
+          t.http,
+          cast.owner,
+          'post',
+          `/api/clients/${httpClientId}/summaries/preview`,
+          period,
+        ).expect(200)
+      ).body as SummaryPreview;
+      // Means over the measured trials in the period: (0.25 + 0.35) / 2 = 0.30, (1.8 + 2.2) / 2 = 2.0 (derived).
+      expect(preview.text).toContain(
+        'In 3 tries on the test keyboard, about 3 in 10 key presses were saved, at roughly 2 words a minute.',
+      );
+      const contact = (
+        await send(t.http, cast.owner, 'post', `/api/clients/${httpClientId}/contacts`, {
+          name: 'Rosa',
+          relationship: 'mother',
+          email: `rosa-${randomBytes(4).toString('hex')}@family.example`,
+          consentToSummaries: true,
+        }).expect(201)
+      ).body as { id: string };
+      const created = (
+        await send(t.http, cast.owner, 'post', `/api/clients/${httpClientId}/summaries`, {
+          ...period,
+          contactIds: [contact.id],
+        }).expect(201)
+      ).body as SummaryDto;
+      expect(created.text).toBe(preview.text);
+      const stored = await t.dataSource.getRepository(Summary).findOneByOrFail({ id: created.id });
+      const tried = stored.figures[0]?.trials;
+      expect(tried?.count).toBe(3);
+      expect(tried?.keystrokeSavings).toBeCloseTo(0.3, 10);
+      expect(tried?.wpm).toBeCloseTo(2.0, 10);
     });
   });
 });

@@ -24,3 +24,21 @@ export async function signOut(page, roleLabel) {
   await page.getByRole('menuitem', { name: /sign out/i }).click();
   await page.waitForURL(/\/sign-in/);
 }
+
+/**
+ * A fresh page signed in as the demo clinician, on one tab of a client's page reached from the
+ * caseload (as a clinician would go).
+ * @param t the runner's helpers
+ * @param clientName the client's pseudonym, e.g. "R. Ashby"
+ * @param tab the tab's name, e.g. "Profile versions"
+ */
+export async function openClientTabAsClinician(t, clientName, tab) {
+  await t.context.clearCookies();
+  const page = await t.newPage();
+  await signIn(page, t.appUrl, 'clinician@willowmere.example');
+  await page.waitForURL((url) => url.pathname === '/caseload');
+  await page.getByRole('link', { name: clientName, exact: true }).first().click();
+  await page.getByRole('heading', { level: 1, name: clientName }).waitFor();
+  await page.getByRole('tab', { name: tab }).click();
+  return page;
+}

@@ -6,6 +6,7 @@ import { readdirSync, readFileSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { signIn, signOut } from './accounts.mjs';
+import { assertNoSidewaysScroll } from './page-checks.mjs';
 
 const demoDir = join(dirname(fileURLToPath(import.meta.url)), '..', '..', 'corpora', 'demo');
 
@@ -23,18 +24,6 @@ function pickDemoFiles() {
   const first = withPhone ?? files[0];
   const second = files.find((file) => file !== first);
   return [first, second];
-}
-
-/** Fails when the page scrolls sideways (WCAG 1.4.10 reflow). */
-async function assertNoSidewaysScroll(page, label) {
-  const { scrollWidth, clientWidth } = await page.evaluate(() => ({
-    scrollWidth: document.documentElement.scrollWidth,
-    clientWidth: document.documentElement.clientWidth,
-  }));
-  assert.ok(
-    scrollWidth <= clientWidth + 1,
-    `${label}: page is ${scrollWidth}px wide in a ${clientWidth}px window`,
-  );
 }
 
 const pseudonym = `E. Tern ${Date.now() % 100000}`;
@@ -186,7 +175,7 @@ export const caseloadSuite = {
         const page = await t.newPage();
         await signIn(page, t.appUrl, 'carer@willowmere.example');
         await page.waitForURL((url) => url.pathname === '/my-clients');
-        await page.getByRole('link', { name: 'R. Ashby' }).click();
+        await page.getByRole('link', { name: 'R. Ashby', exact: true }).click();
         await page.waitForURL(/\/clients\/[0-9a-f-]{36}\/overview$/);
         await page.getByRole('tab', { name: 'Overview' }).waitFor();
         const tabs = await page.getByRole('tab').allTextContents();

@@ -2,15 +2,7 @@
 // admin's staff page, keyboard access and an axe scan of the key pages.
 import assert from 'node:assert/strict';
 import { demoAccounts, signIn, signOut } from './accounts.mjs';
-
-/** Fails when the page scrolls sideways (WCAG 1.4.10 reflow). */
-async function assertNoSidewaysScroll(page, label) {
-  const { scrollWidth, clientWidth } = await page.evaluate(() => ({
-    scrollWidth: document.documentElement.scrollWidth,
-    clientWidth: document.documentElement.clientWidth,
-  }));
-  assert.ok(scrollWidth <= clientWidth + 1, `${label}: page is ${scrollWidth}px wide in a ${clientWidth}px window`);
-}
+import { assertNoSidewaysScroll } from './page-checks.mjs';
 
 export const foundationSuite = {
   name: 'foundation',
@@ -38,7 +30,12 @@ export const foundationSuite = {
       async (t) => {
         const page = await t.newPage();
         await signIn(page, t.appUrl, 'clinician@willowmere.example', 'not-the-password');
-        await assert.doesNotReject(page.getByRole('alert').filter({ hasText: /not right/i }).waitFor());
+        await assert.doesNotReject(
+          page
+            .getByRole('alert')
+            .filter({ hasText: /not right/i })
+            .waitFor(),
+        );
         assert.match(page.url(), /\/sign-in/);
       },
     ],

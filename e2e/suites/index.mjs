@@ -1,6 +1,8 @@
 // Every browser suite, in the order they run. Later issues add their suite here.
 import { caseloadSuite } from './caseload.mjs';
 import { foundationSuite } from './foundation.mjs';
+import { keyboardSuite } from './keyboard.mjs';
 import { profilesSuite } from './profiles.mjs';
+import { summariesSuite } from './summaries.mjs';
 
-export const browserSuites = [foundationSuite, caseloadSuite, profilesSuite];
+export const browserSuites = [foundationSuite, caseloadSuite, profilesSuite, keyboardSuite, summariesSuite];

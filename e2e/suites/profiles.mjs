@@ -1,9 +1,11 @@
 // Profile versions (issue 5): the clinician configures and trains a version of the demo client,
-// watches the progress bar and reads the results and charts; the assigned carer signs it off; the
+// watches the progress bar and reads the results and charts; the assigned carer tries it and signs it off; the
 // supervisor approves it and it becomes the active profile. Axe scan (no serious or critical
 // violations) of each page on the way; screenshots in e2e/out.
 import assert from 'node:assert/strict';
-import { signIn, signOut } from './accounts.mjs';
+import { openClientTabAsClinician, signIn, signOut } from './accounts.mjs';
+import { postTypedTrial } from './api-helpers.mjs';
+import { assertNoSidewaysScroll } from './page-checks.mjs';
 
 // The seeded demo client (api/src/db/seeds/demo-client.seed.ts), with consent, ready samples
 // and the demo carer assigned.
@@ -13,31 +15,13 @@ const DEMO_CLIENT = 'R. Ashby';
 let versionPath = null;
 let versionNumber = null;
 
-/** Fails when the page scrolls sideways (WCAG 1.4.10 reflow). */
-async function assertNoSidewaysScroll(page, label) {
-  const { scrollWidth, clientWidth } = await page.evaluate(() => ({
-    scrollWidth: document.documentElement.scrollWidth,
-    clientWidth: document.documentElement.clientWidth,
-  }));
-  assert.ok(
-    scrollWidth <= clientWidth + 1,
-    `${label}: page is ${scrollWidth}px wide in a ${clientWidth}px window`,
-  );
-}
-
 export const profilesSuite = {
   name: 'profiles',
   tests: [
     [
       'clinician configures and trains a version of the demo client, sees progress, results and charts',
       async (t) => {
-        await t.context.clearCookies();
-        const page = await t.newPage();
-        await signIn(page, t.appUrl, 'clinician@willowmere.example');
-        await page.waitForURL((url) => url.pathname === '/caseload');
-        await page.getByRole('link', { name: DEMO_CLIENT, exact: true }).first().click();
-        await page.getByRole('heading', { level: 1, name: DEMO_CLIENT }).waitFor();
-        await page.getByRole('tab', { name: 'Profile versions' }).click();
+        const page = await openClientTabAsClinician(t, DEMO_CLIENT, 'Profile versions');
         await page.waitForURL(/\/profiles$/);
         await page.getByText('Suggestions are offered, never inserted.').waitFor();
         assert.deepEqual(await t.seriousViolations(page, 'profiles tab'), []);
@@ -115,6 +99,11 @@ export const profilesSuite = {
           'carers do not export',
         );
 
+        // A version is signed off only after a trial (the test keyboard's own suite types one
+        // through the screens; here it is logged through the API).
+        await postTypedTrial(page, t.appUrl, versionPath.split('/').pop());
+        await page.reload({ waitUntil: 'networkidle' });
+        await page.getByRole('heading', { name: 'Results' }).waitFor();
         await page.getByRole('button', { name: 'Sign off' }).click();
         const dialog = page.getByRole('dialog', { name: /^Sign off version/ });
         await dialog.getByRole('button', { name: 'Sign off' }).click();

@@ -39,6 +39,12 @@ export type AuditAction =
   | 'profile.retire'
   | 'profile.export'
   | 'profile.delete'
+  // Issue 6: test keyboard (clientId set on each).
+  | 'profile.model-download'
+  | 'profile.report-problem'
+  | 'trial.create'
+  | 'practice-phrase.create'
+  | 'practice-phrase.delete'
   // Issue 7: progress summaries (clientId set on each; the mail job records with no actor).
   | 'summary.create'
   | 'summary.resend'

@@ -10,11 +10,14 @@ import { CreateClientsAndConsents1764720000000 } from '../migrations/17647200000
 import { CreateLanguageSamples1764720500000 } from '../migrations/1764720500000-create-language-samples';
 import { CreateProfileVersions1764721000000 } from '../migrations/1764721000000-create-profile-versions';
 import { CreateSummaries1764722000000 } from '../migrations/1764722000000-create-summaries';
+import { CreateTrials1764800000000 } from '../migrations/1764800000000-create-trials';
 import { ProfileVersion } from '../profile-versions/profile-version.entity';
 import { SampleFlag } from '../samples/sample-flag.entity';
 import { Sample } from '../samples/sample.entity';
 import { SummaryRecipient } from '../summaries/summary-recipient.entity';
 import { Summary } from '../summaries/summary.entity';
+import { PracticePhraseRow } from '../trials/practice-phrase.entity';
+import { Trial } from '../trials/trial.entity';
 import { User } from '../users/user.entity';
 
 // Listed as classes (not globs) so the same list works under ts-jest, in dist and for the typeorm CLI.
@@ -31,6 +34,8 @@ export const entities = [
   ProfileVersion,
   Summary,
   SummaryRecipient,
+  Trial,
+  PracticePhraseRow,
 ];
 export const migrations = [
   CreateUsersAndSessions1764633600000,
@@ -39,6 +44,7 @@ export const migrations = [
   CreateLanguageSamples1764720500000,
   CreateProfileVersions1764721000000,
   CreateSummaries1764722000000,
+  CreateTrials1764800000000,
 ];
 
 /** TypeORM options for the app, the CLI, migrate.js, seed.js and the HTTP tests. Never synchronize. */

@@ -27,6 +27,8 @@ import {
   type CreateProfileVersionInput,
   createProfileVersionSchema,
   profileVersionSchema,
+  type ReportProblemInput,
+  reportProblemSchema,
   type SendBackInput,
   sendBackSchema,
   type SignOffInput,
@@ -121,7 +123,7 @@ export class ProfileVersionsController {
   @Roles('carer')
   @ApiOperation({
     summary: 'Sign off after a trial (trained → signed_off)',
-    description: `Assigned carer. ${TRANSITION}`,
+    description: `Assigned carer; the version needs at least one trial on the test keyboard (else 409). ${TRANSITION}`,
   })
   @ApiBody({ schema: zodSchemaObject(signOffSchema) })
   @ApiOkResponse({ schema: zodSchemaObject(profileVersionSchema) })
@@ -131,6 +133,23 @@ export class ProfileVersionsController {
     @Body(new ZodValidationPipe(signOffSchema)) body: SignOffInput,
   ): Promise<ProfileVersionDto> {
     return this.versions.signOff(actor, id, body);
+  }
+
+  @Post('profile-versions/:id/report-problem')
+  @HttpCode(200)
+  @Roles('carer')
+  @ApiOperation({
+    summary: 'Report a problem after a trial instead of signing off (trained → sent_back)',
+    description: `Assigned carer; the version needs at least one trial (else 409). ${TRANSITION}`,
+  })
+  @ApiBody({ schema: zodSchemaObject(reportProblemSchema) })
+  @ApiOkResponse({ schema: zodSchemaObject(profileVersionSchema) })
+  reportProblem(
+    @CurrentActor() actor: Actor,
+    @Param('id', ParseUUIDPipe) id: string,
+    @Body(new ZodValidationPipe(reportProblemSchema)) body: ReportProblemInput,
+  ): Promise<ProfileVersionDto> {
+    return this.versions.reportProblem(actor, id, body);
   }
 
   @Post('profile-versions/:id/approve')

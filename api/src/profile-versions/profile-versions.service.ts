@@ -22,6 +22,7 @@ import {
   type ProfileVersionSettings,
   type ProfileVersionStatus,
   profileVersionSettingsSchema,
+  type ReportProblemInput,
   profileVersionStatusLabels,
   type SendBackInput,
   type SignOffInput,
@@ -58,12 +59,16 @@ export const ONLY_CARER_SIGNS_OFF_MESSAGE = 'Only a carer assigned to this clien
 export const ONLY_SUPERVISOR_MESSAGE = 'Only a supervisor approves or sends back a version.';
 export const NO_MODEL_MESSAGE = 'This version has no trained model yet; train it first.';
 export const CARER_EXPORT_MESSAGE = 'Carers cannot export profiles. Ask the client’s clinician.';
+export const TRIAL_FIRST_MESSAGE =
+  'Try this version on the test keyboard at least once before signing it off.';
+export const ONLY_CARER_REPORTS_MESSAGE =
+  'Only a carer assigned to this client reports a problem with a version.';
 
 /** A version whose job shows no sign of life for this long may be queued again (worker killed). */
 export const STALE_HEARTBEAT_MS = 90_000;
 
 /** Statuses whose version holds a trained model (it can be exported). */
-const WITH_MODEL: readonly ProfileVersionStatus[] = [
+export const WITH_MODEL: readonly ProfileVersionStatus[] = [
   'trained',
   'signed_off',
   'active',
@@ -86,6 +91,98 @@ export type ProfileFileReport = {
   header: ProfileFileHeader;
 };
 
+/**
+ * The .klprofile header of a version loaded with `client` and `approvedBy`. With `'as-trained'` it holds
+ * only what was fixed when the version was trained (status "trained", no approval, exported at the
+ * training time by "Keyloom"), so the file's bytes stay the same whatever happens to the version later
+ * (the test keyboard's download and its ETag); otherwise it is stamped with who exports it now.
+ */
+export function profileFileHeader(
+  version: ProfileVersion,
+  stamp: 'as-trained' | { exportedAt: string; exportedBy: string },
+): ProfileFileHeader {
+  const metrics = version.metrics ?? {};
+  const pick = (keys: string[]) =>
+    Object.fromEntries(keys.filter((k) => k in metrics).map((k) => [k, metrics[k]]));
+  const trainedAt = version.trainedAt?.toISOString() ?? null;
+  const asTrained = stamp === 'as-trained';
+  return {
+    format: 'keyloom-profile',
+    client: { pseudonym: version.client?.pseudonym ?? 'client' },
+    version: {
+      id: version.id,
+      number: version.number,
+      status: asTrained ? 'trained' : version.status,
+      note: version.note,
+    },
+    settings: version.settings,
+    blendWeight: version.blendWeight ?? 0,
+    baseModelSha256: version.baseModelSha256,
+    engineVersion: typeof metrics.engineVersion === 'string' ? metrics.engineVersion : 'unknown',
+    metrics: pick([
+      'chars',
+      'folds',
+      'bpcIdeal',
+      'bpcCoded',
+      'keystrokeSavings',
+      'kspc',
+      'baseWeight',
+      'scanStepsPerChar',
+    ]),
+    samples: version.samples.map(({ title, sha256, characters }) => ({ title, sha256, characters })),
+    createdAt: version.createdAt.toISOString(),
+    trainedAt,
+    approvedBy: asTrained || !version.approvedById ? null : (version.approvedBy?.name ?? '(removed account)'),
+    approvedAt: asTrained ? null : (version.approvedAt?.toISOString() ?? null),
+    exportedAt: asTrained ? (trainedAt ?? version.createdAt.toISOString()) : stamp.exportedAt,
+    exportedBy: asTrained ? 'Keyloom' : stamp.exportedBy,
+  };
+}
+
+/**
+ * The ready samples (or the chosen ones, which must be ready), oldest first, with their text now:
+ * what a new version freezes (the demo seed's version too). 400 for a chosen sample not ready or not the client's.
+ */
+export async function frozenSamples(
+  manager: EntityManager,
+  clientId: string,
+  sampleIds: string[] | undefined,
+): Promise<FrozenSample[]> {
+  const repo = manager.getRepository(Sample);
+  const order = { createdAt: 'ASC', title: 'ASC', id: 'ASC' } as const;
+  let rows: Sample[];
+  if (sampleIds) {
+    const unique = [...new Set(sampleIds)];
+    rows = await repo.find({ where: { clientId, id: In(unique) }, order });
+    const missing = unique.filter((id) => !rows.some((r) => r.id === id));
+    if (missing.length > 0) {
+      throw new BadRequestException({
+        message: `${missing.length === 1 ? 'One chosen sample is' : `${missing.length} chosen samples are`} not this client's.`,
+        issues: [{ path: 'sampleIds', message: `Unknown sample: ${missing.join(', ')}` }],
+      });
+    }
+    const notReady = rows.filter((r) => r.status !== 'ready');
+    if (notReady.length > 0) {
+      const why = (r: Sample) =>
+        r.status === 'excluded'
+          ? `“${r.title}” is excluded`
+          : `“${r.title}” still has personal-data flags to review`;
+      const message = `${notReady.map(why).join('; ')}. Only ready samples can be used.`;
+      throw new BadRequestException({ message, issues: [{ path: 'sampleIds', message }] });
+    }
+  } else {
+    rows = await repo.find({ where: { clientId, status: 'ready' }, order });
+    if (rows.length === 0) throw new BadRequestException(NO_READY_SAMPLES_MESSAGE);
+  }
+  return rows.map((r) => ({
+    id: r.id,
+    title: r.title,
+    sha256: r.sha256,
+    characters: r.characters,
+    text: r.text,
+  }));
+}
+
 function label(status: ProfileVersionStatus): string {
   return profileVersionStatusLabels[status].toLowerCase();
 }
@@ -102,8 +199,8 @@ async function updateCount(manager: EntityManager, sql: string, params: unknown[
   return Array.isArray(raw) ? raw.length : 0;
 }
 
-/** The access timings of the client record, as the settings' `access`. */
-function accessFromClient(client: Client): ProfileVersionSettings['access'] {
+/** The access timings of the client record, as the settings' `access` (also the demo seed's). */
+export function accessFromClient(client: Client): ProfileVersionSettings['access'] {
   return {
     method: client.accessMethod,
     ...(client.scanIntervalMs === null ? {} : { scanIntervalMs: client.scanIntervalMs }),
@@ -167,7 +264,7 @@ export class ProfileVersionsService implements OnModuleInit {
         ...input.settings,
         access: input.settings.access ?? accessFromClient(client),
       });
-      const samples = await this.frozenSamples(manager, clientId, input.sampleIds);
+      const samples = await frozenSamples(manager, clientId, input.sampleIds);
       // Numbers per client: one creation at a time per client.
       await manager.query('SELECT 1 FROM clients WHERE id = $1 FOR UPDATE', [clientId]);
       const rows: { next: number }[] = await manager.query(
@@ -200,47 +297,6 @@ export class ProfileVersionsService implements OnModuleInit {
       );
       return this.dto(manager, version.id);
     });
-  }
-
-  // The ready samples (or the chosen ones, which must be ready), oldest first, with their text now.
-  private async frozenSamples(
-    manager: EntityManager,
-    clientId: string,
-    sampleIds: string[] | undefined,
-  ): Promise<FrozenSample[]> {
-    const repo = manager.getRepository(Sample);
-    const order = { createdAt: 'ASC', title: 'ASC', id: 'ASC' } as const;
-    let rows: Sample[];
-    if (sampleIds) {
-      const unique = [...new Set(sampleIds)];
-      rows = await repo.find({ where: { clientId, id: In(unique) }, order });
-      const missing = unique.filter((id) => !rows.some((r) => r.id === id));
-      if (missing.length > 0) {
-        throw new BadRequestException({
-          message: `${missing.length === 1 ? 'One chosen sample is' : `${missing.length} chosen samples are`} not this client's.`,
-          issues: [{ path: 'sampleIds', message: `Unknown sample: ${missing.join(', ')}` }],
-        });
-      }
-      const notReady = rows.filter((r) => r.status !== 'ready');
-      if (notReady.length > 0) {
-        const why = (r: Sample) =>
-          r.status === 'excluded'
-            ? `“${r.title}” is excluded`
-            : `“${r.title}” still has personal-data flags to review`;
-        const message = `${notReady.map(why).join('; ')}. Only ready samples can be used.`;
-        throw new BadRequestException({ message, issues: [{ path: 'sampleIds', message }] });
-      }
-    } else {
-      rows = await repo.find({ where: { clientId, status: 'ready' }, order });
-      if (rows.length === 0) throw new BadRequestException(NO_READY_SAMPLES_MESSAGE);
-    }
-    return rows.map((r) => ({
-      id: r.id,
-      title: r.title,
-      sha256: r.sha256,
-      characters: r.characters,
-      text: r.text,
-    }));
   }
 
   /**
@@ -376,6 +432,7 @@ export class ProfileVersionsService implements OnModuleInit {
           `Only a version that is ready for trial can be signed off; this one is ${label(version.status)}.`,
         );
       }
+      if (!(await hasTrial(manager, id))) throw new ConflictException(TRIAL_FIRST_MESSAGE);
       await updateCount(
         manager,
         `UPDATE profile_versions SET status = 'signed_off', signed_off_by = $2, signed_off_at = now(),
@@ -391,6 +448,59 @@ export class ProfileVersionsService implements OnModuleInit {
       );
       return this.dto(manager, id);
     });
+  }
+
+  /**
+   * trained → sent_back (an assigned carer, after at least one trial), instead of signing off: the
+   * reason is stored as the send-back reason and the history says it came from a trial.
+   */
+  async reportProblem(actor: Actor, id: string, input: ReportProblemInput): Promise<ProfileVersionDto> {
+    const { clientId } = await this.readable(actor, id);
+    if (actor.role !== 'carer') throw new ForbiddenException(ONLY_CARER_REPORTS_MESSAGE);
+    return this.dataSource.transaction(async (manager) => {
+      const version = await this.locked(manager, id);
+      if (version.status === 'sent_back') throw new ConflictException(ALREADY_SENT_BACK_MESSAGE);
+      if (version.status !== 'trained') {
+        throw new ConflictException(
+          `Only a version that is ready for trial can have a problem reported; this one is ${label(version.status)}.`,
+        );
+      }
+      if (!(await hasTrial(manager, id))) throw new ConflictException(TRIAL_FIRST_MESSAGE);
+      const comment = `Problem reported after a trial: ${input.reason}`;
+      await this.markSentBack(
+        manager,
+        actor,
+        { id, clientId },
+        input.reason,
+        comment,
+        'profile.report-problem',
+      );
+      return this.dto(manager, id);
+    });
+  }
+
+  // → sent_back with the reason; the history event carries `comment`; audited as `action`.
+  private async markSentBack(
+    manager: EntityManager,
+    actor: Actor,
+    version: { id: string; clientId: string },
+    reason: string,
+    comment: string,
+    action: 'profile.send-back' | 'profile.report-problem',
+  ): Promise<void> {
+    await updateCount(
+      manager,
+      `UPDATE profile_versions SET status = 'sent_back', sent_back_reason = $2, updated_at = now(),
+         history = history || $3::jsonb WHERE id = $1`,
+      [version.id, reason, historyEvent('sent_back', actor, comment)],
+    );
+    await this.audit.record(
+      actor,
+      action,
+      { type: 'profile-version', id: version.id, clientId: version.clientId },
+      { reason },
+      manager,
+    );
   }
 
   /**
@@ -459,18 +569,13 @@ export class ProfileVersionsService implements OnModuleInit {
           `Only a version signed off by a carer can be sent back; this one is ${label(version.status)}.`,
         );
       }
-      await updateCount(
+      await this.markSentBack(
         manager,
-        `UPDATE profile_versions SET status = 'sent_back', sent_back_reason = $2, updated_at = now(),
-           history = history || $3::jsonb WHERE id = $1`,
-        [id, input.reason, historyEvent('sent_back', actor, input.reason)],
-      );
-      await this.audit.record(
         actor,
+        { id, clientId },
+        input.reason,
+        input.reason,
         'profile.send-back',
-        { type: 'profile-version', id, clientId },
-        { reason: input.reason },
-        manager,
       );
       return this.dto(manager, id);
     });
@@ -491,36 +596,11 @@ export class ProfileVersionsService implements OnModuleInit {
       .where('v.id = :id', { id })
       .getOneOrFail();
     if (!WITH_MODEL.includes(version.status) || !version.model) throw new ConflictException(NO_MODEL_MESSAGE);
-    const metrics = version.metrics ?? {};
-    const pick = (keys: string[]) =>
-      Object.fromEntries(keys.filter((k) => k in metrics).map((k) => [k, metrics[k]]));
     const pseudonym = version.client?.pseudonym ?? 'client';
-    const header: ProfileFileHeader = {
-      format: 'keyloom-profile',
-      client: { pseudonym },
-      version: { id: version.id, number: version.number, status: version.status, note: version.note },
-      settings: version.settings,
-      blendWeight: version.blendWeight ?? 0,
-      baseModelSha256: version.baseModelSha256,
-      engineVersion: typeof metrics.engineVersion === 'string' ? metrics.engineVersion : 'unknown',
-      metrics: pick([
-        'chars',
-        'folds',
-        'bpcIdeal',
-        'bpcCoded',
-        'keystrokeSavings',
-        'kspc',
-        'baseWeight',
-        'scanStepsPerChar',
-      ]),
-      samples: version.samples.map(({ title, sha256, characters }) => ({ title, sha256, characters })),
-      createdAt: version.createdAt.toISOString(),
-      trainedAt: version.trainedAt?.toISOString() ?? null,
-      approvedBy: version.approvedById ? (version.approvedBy?.name ?? '(removed account)') : null,
-      approvedAt: version.approvedAt?.toISOString() ?? null,
+    const header = profileFileHeader(version, {
       exportedAt: new Date().toISOString(),
       exportedBy: actor.name,
-    };
+    });
     const bytes = Buffer.from(writeProfileFile(header, new Uint8Array(version.model)));
     await this.audit.record(
       actor,
@@ -551,8 +631,8 @@ export class ProfileVersionsService implements OnModuleInit {
     }
   }
 
-  // The version's client when the actor may read it; out of sight → 404 as for a made-up id.
-  private async readable(actor: Actor, id: string): Promise<{ clientId: string }> {
+  /** The version's client when the actor may read it; out of sight → 404 as for a made-up id. */
+  async readable(actor: Actor, id: string): Promise<{ clientId: string }> {
     const clientId = await this.clientOf(id);
     try {
       await this.access.requireReadable(actor, clientId, 'clinical');
@@ -599,6 +679,14 @@ export class ProfileVersionsService implements OnModuleInit {
     if (!version) throw new NotFoundException(VERSION_NOT_FOUND_MESSAGE);
     return toProfileVersionDto(version);
   }
+}
+
+// Whether the version was tried at least once on the test keyboard (the trials table is issue 6's).
+async function hasTrial(manager: EntityManager, versionId: string): Promise<boolean> {
+  const rows: unknown[] = await manager.query('SELECT 1 FROM trials WHERE profile_version_id = $1 LIMIT 1', [
+    versionId,
+  ]);
+  return rows.length > 0;
 }
 
 /** The 'profileVersions' withdrawal hook: deletes every version (model and metrics) of the client. */

@@ -4,10 +4,10 @@ import {
   Get,
   Header,
   HttpCode,
-  NotFoundException,
   Param,
   ParseUUIDPipe,
   Post,
+  Res,
 } from '@nestjs/common';
 import { ApiBody, ApiCreatedResponse, ApiOkResponse, ApiOperation, ApiTags } from '@nestjs/swagger';
 import {
@@ -20,22 +20,17 @@ import {
   summaryPreviewSchema,
   summarySchema,
 } from '@keyloom/shared';
+import type { Response } from 'express';
 import { z } from 'zod';
 import { CurrentActor } from '../auth/decorators/current-user.decorator';
 import { Public } from '../auth/decorators/public.decorator';
+import { SkipCsrf } from '../auth/decorators/skip-csrf.decorator';
 import { Roles } from '../auth/decorators/roles.decorator';
 import type { Actor } from '../auth/session-user';
 import { zodSchemaObject } from '../common/openapi/zod-schema-object';
 import { ZodValidationPipe } from '../common/pipes/zod-validation.pipe';
+import { isStopToken, stopFormPage, stoppedPage, unknownStopPage } from './stop-page';
 import { SummariesService } from './summaries.service';
-
-export const STOP_LINK_UNKNOWN_MESSAGE = 'This stop link is not known. It may have been copied incompletely.';
-
-// A tiny page for the recipient's browser (no account, no client app): plain HTML, no scripts.
-const stopPage = (heading: string, text: string): string =>
-  `<!doctype html><html lang="en"><head><meta charset="utf-8"><title>${heading}</title>` +
-  `<meta name="viewport" content="width=device-width, initial-scale=1"></head>` +
-  `<body><main><h1>${heading}</h1><p>${text}</p></main></body></html>`;
 
 @ApiTags('summaries')
 @Controller()
@@ -88,22 +83,49 @@ export class SummariesController {
     return this.summaries.preview(actor, id, body);
   }
 
-  // Declared before summaries/:id so "stop" is never read as an id.
+  // Declared before summaries/:id so "stop" is never read as an id. Opening the link changes nothing
+  // (mail scanners open links): the page's button POSTs to the same address. Both answer HTML for the
+  // recipient's browser, also for an unknown token (404).
   @Get('summaries/stop/:token')
   @Public()
   @Header('Content-Type', 'text/html; charset=utf-8')
   @Header('Cache-Control', 'no-store')
   @ApiOperation({
-    summary: 'Public stop link from the e-mail: no more summaries to this contact (HTML page)',
+    summary: 'Public stop link from the e-mail: a page with a "Stop these e-mails" button (HTML)',
+    description:
+      'Changes nothing. The button (and mail programs, RFC 8058) POST to the same path. 404 for unknown tokens.',
   })
-  async stop(@Param('token') token: string): Promise<string> {
-    if (!/^[A-Za-z0-9_-]{43}$/.test(token) || !(await this.summaries.stop(token))) {
-      throw new NotFoundException(STOP_LINK_UNKNOWN_MESSAGE);
+  async stopPage(
+    @Param('token') token: string,
+    @Res({ passthrough: true }) res: Response,
+  ): Promise<string> {
+    const state = isStopToken(token) ? await this.summaries.stopState(token) : 'unknown';
+    if (state === 'unknown') {
+      res.status(404);
+      return unknownStopPage();
     }
-    return stopPage(
-      'Summaries stopped',
-      'You will not receive further progress summaries. If this was a mistake, please tell the clinic.',
-    );
+    return state === 'stopped' ? stoppedPage() : stopFormPage(token);
+  }
+
+  @Post('summaries/stop/:token')
+  @Public()
+  @SkipCsrf()
+  @HttpCode(200)
+  @Header('Content-Type', 'text/html; charset=utf-8')
+  @Header('Cache-Control', 'no-store')
+  @ApiOperation({
+    summary: 'Stop summaries to this recipient (the stop page’s button; RFC 8058 one-click)',
+    description:
+      'Public and without a CSRF token: the 256-bit token in the path is the only key (mail programs post ' +
+      'with no session). The contact gets no more summaries; idempotent; 404 for unknown tokens.',
+  })
+  async stop(@Param('token') token: string, @Res({ passthrough: true }) res: Response): Promise<string> {
+    const done = isStopToken(token) && (await this.summaries.stop(token));
+    if (!done) {
+      res.status(404);
+      return unknownStopPage();
+    }
+    return stoppedPage();
   }
 
   @Get('summaries/:id')

@@ -26,7 +26,13 @@ import { ProfileVersion } from '../profile-versions/profile-version.entity';
 import { SUMMARY_MAIL_QUEUE } from './summary-delivery';
 import { summaryCharts } from './summary-message';
 import { SummaryRecipient } from './summary-recipient.entity';
-import { figuresFromMetrics, summarySubject, summaryText, type VersionFigures } from './summary-text';
+import {
+  figuresFromMetrics,
+  summarySubject,
+  summaryText,
+  type TrialFigures,
+  type VersionFigures,
+} from './summary-text';
 import { Summary } from './summary.entity';
 
 export const SUMMARY_NOT_FOUND_MESSAGE = 'There is no summary with that id in your caseload.';
@@ -137,8 +143,13 @@ export class SummariesService {
     input: SummaryPreviewRequest,
   ): Promise<{ subject: string; text: string; figures: VersionFigures[]; versionIds: string[] }> {
     const versions = await this.versionsFor(manager, clientId, input);
-    const figures = versions.map((v) =>
-      figuresFromMetrics(
+    const trials = await this.trialFigures(
+      manager,
+      versions.map((v) => v.id),
+      input,
+    );
+    const figures = versions.map((v) => ({
+      ...figuresFromMetrics(
         {
           number: v.number,
           status: v.status,
@@ -147,7 +158,8 @@ export class SummariesService {
         },
         v.metrics,
       ),
-    );
+      trials: trials.get(v.id) ?? null,
+    }));
     const period = { clientName, from: input.from, to: input.to };
     return {
       subject: summarySubject(period),
@@ -155,6 +167,44 @@ export class SummariesService {
       figures,
       versionIds: versions.map((v) => v.id),
     };
+  }
+
+  /**
+   * Per version, the trials finished in the period: their number and the means of the measured
+   * keystroke savings and words a minute (`trials.measures`, jsonb; a null measure is left out of
+   * its mean). Read with SQL: the trials table belongs to the test keyboard's module, and a
+   * database without it yet (older migration state) gives no trial figures rather than an error.
+   */
+  private async trialFigures(
+    manager: EntityManager,
+    versionIds: string[],
+    period: { from: string; to: string },
+  ): Promise<Map<string, TrialFigures>> {
+    const figures = new Map<string, TrialFigures>();
+    if (versionIds.length === 0) return figures;
+    const [table] = await manager.query<{ present: boolean }[]>(
+      `SELECT to_regclass('trials') IS NOT NULL AS present`,
+    );
+    if (!table?.present) return figures;
+    const rows = await manager.query<
+      { version_id: string; count: number; keystroke_savings: number | null; wpm: number | null }[]
+    >(
+      `SELECT profile_version_id AS version_id, count(*)::int AS count,
+              avg((measures->>'keystrokeSavings')::float8) AS keystroke_savings,
+              avg((measures->>'wpm')::float8) AS wpm
+         FROM trials
+        WHERE profile_version_id = ANY($1::uuid[]) AND finished_at::date BETWEEN $2::date AND $3::date
+        GROUP BY profile_version_id`,
+      [versionIds, period.from, period.to],
+    );
+    for (const row of rows) {
+      figures.set(row.version_id, {
+        count: row.count,
+        keystrokeSavings: row.keystroke_savings,
+        wpm: row.wpm,
+      });
+    }
+    return figures;
   }
 
   /** Sends the same content again, as a new round, to the original contacts who may still receive it. */
@@ -190,6 +240,18 @@ export class SummariesService {
     });
     await this.sendJobs(recipients);
     return this.toDto(summary);
+  }
+
+  /**
+   * What the stop link's page should offer, without changing anything (a GET may be opened by a
+   * mail scanner): 'unknown' token, 'active' (summaries still go out), or 'stopped' already.
+   */
+  async stopState(token: string): Promise<'unknown' | 'active' | 'stopped'> {
+    const recipient = await this.dataSource
+      .getRepository(SummaryRecipient)
+      .findOne({ where: { stopToken: token }, relations: { contact: true } });
+    if (!recipient) return 'unknown';
+    return recipient.contact && recipient.contact.unsubscribedAt === null ? 'active' : 'stopped';
   }
 
   /**

@@ -2,6 +2,8 @@ import type PgBoss from 'pg-boss';
 import type { SendMailOptions } from 'nodemailer';
 import type { DataSource } from 'typeorm';
 import type { AuditService } from '../audit/audit.service';
+import { coversScope, todayIso } from '../consents/consent-status';
+import { Consent } from '../consents/consent.entity';
 import { FamilyContact } from '../contacts/family-contact.entity';
 import { buildSummaryMessage } from './summary-message';
 import { SummaryRecipient } from './summary-recipient.entity';
@@ -44,6 +46,8 @@ export type DeliverySettings = { from: string; appUrl: string };
 export type DeliveryOutcome = 'sent' | 'already-done' | 'failed' | 'withheld' | 'missing';
 
 export const WITHHELD_MESSAGE = 'Not sent: the contact stopped summaries or no longer consents.';
+export const CLIENT_CONSENT_WITHHELD_MESSAGE =
+  'Not sent: the client’s consent no longer covers progress summaries (withdrawn or expired).';
 
 /** Thrown for a failure worth retrying; pg-boss retries the job. */
 export class TransientMailError extends Error {}
@@ -71,7 +75,8 @@ const describeError = (error: unknown): string =>
  * Sends the e-mail of one recipient row if it is still queued.
  * @param finalAttempt true on the queue's last retry: a transient failure then marks the row failed
  * @returns 'sent', 'already-done' (sent or failed before), 'failed' (permanent, or out of retries),
- *   'withheld' (the contact stopped summaries or withdrew consent meanwhile; marked failed),
+ *   'withheld' (the contact stopped summaries or withdrew consent meanwhile, or the client's consent
+ *   no longer covers summaries; marked failed),
  *   'missing' (row deleted, e.g. with its client); throws TransientMailError to be retried
  */
 export async function deliverSummaryEmail(
@@ -94,8 +99,18 @@ export async function deliverSummaryEmail(
     const contact = row.contactId
       ? await manager.getRepository(FamilyContact).findOneBy({ id: row.contactId })
       : null;
-    if (!contact || !contact.consentToSummaries || contact.unsubscribedAt !== null) {
-      await recipients.update({ id: row.id }, { status: 'failed', lastError: WITHHELD_MESSAGE });
+    const contactRefuses = !contact || !contact.consentToSummaries || contact.unsubscribedAt !== null;
+    // The client's own consent too: a withdrawal (or expiry) after the summary was queued wins.
+    const clientRefuses =
+      !contactRefuses &&
+      !coversScope(
+        await manager.getRepository(Consent).findBy({ clientId: summary.clientId }),
+        'summaries',
+        todayIso(),
+      );
+    if (contactRefuses || clientRefuses) {
+      const lastError = contactRefuses ? WITHHELD_MESSAGE : CLIENT_CONSENT_WITHHELD_MESSAGE;
+      await recipients.update({ id: row.id }, { status: 'failed', lastError });
       await audit.record(
         null,
         'summary.failed',

@@ -71,6 +71,8 @@ describe('buildSummaryMessage', () => {
     expect(mime).toMatch(
       /^List-Unsubscribe: <http:\/\/127\.0\.0\.1:3000\/api\/summaries\/stop\/abc_DEF-123>/m,
     );
+    // RFC 8058 §3.1: the header carries exactly this key/value pair.
+    expect(mime).toMatch(/^List-Unsubscribe-Post: List-Unsubscribe=One-Click$/m);
     expect(mime).toMatch(/^Content-ID: <savings-chart@keyloom>$/m);
     expect(mime).toMatch(/^To: Ann Ashby <ann@family\.example>$/m);
   });

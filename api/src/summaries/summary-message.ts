@@ -105,8 +105,12 @@ export function buildSummaryMessage(input: SummaryMessageInput): SendMailOptions
     to: { name: input.to.name, address: input.to.email },
     subject: input.subject,
     messageId: `<${input.idempotencyKey}@${senderDomain(input.from)}>`,
-    headers: { 'X-Keyloom-Idempotency-Key': input.idempotencyKey },
-    // One-click opt-out header (RFC 8058) beside the link in the body.
+    headers: {
+      'X-Keyloom-Idempotency-Key': input.idempotencyKey,
+      // RFC 8058 one-click: a mail program may POST "List-Unsubscribe=One-Click" to the stop URL.
+      'List-Unsubscribe-Post': 'List-Unsubscribe=One-Click',
+    },
+    // The opt-out header (RFC 2369) beside the link in the body.
     list: { unsubscribe: { url: input.stopUrl, comment: 'Stop progress summaries' } },
     text: `${input.text}\n\n${stop}\n`,
     html:

@@ -5,7 +5,9 @@ import {
   savingsPhrase,
   summarySubject,
   summaryText,
+  trialsSentence,
   type VersionFigures,
+  versionLine,
 } from './summary-text';
 
 describe('savingsPhrase', () => {
@@ -115,6 +117,42 @@ describe('summaryText', () => {
     expect(text).not.toContain('note from the clinician');
     expect(summarySubject({ clientName: 'R. Ashby', from: '2026-10-01', to: '2026-10-31' })).toBe(
       'Progress summary for R. Ashby, 2026-10-01 to 2026-10-31',
+    );
+  });
+});
+
+describe('trialsSentence', () => {
+  it('puts the measured trial means in words, or nothing without trials', () => {
+    // 1 − keystrokes / characters (the brief's KS definition): 10 selections for 14 characters → 0.286
+    // (derived); Koester & Simpson 2014 2.72 wpm (REFERENCES.md #38 [V]).
+    expect(trialsSentence({ count: 3, keystrokeSavings: 1 - 10 / 14, wpm: 2.72 })).toBe(
+      'In 3 tries on the test keyboard, about 3 in 10 key presses were saved, at roughly 3 words a minute.',
+    );
+    // Corrections can outnumber savings: a negative mean is "hardly any", never a negative count.
+    expect(trialsSentence({ count: 1, keystrokeSavings: -0.2, wpm: null })).toBe(
+      'In 1 try on the test keyboard, hardly any key presses were saved.',
+    );
+    expect(trialsSentence({ count: 2, keystrokeSavings: null, wpm: null })).toBe(
+      'There were 2 tries on the test keyboard.',
+    );
+    expect(trialsSentence(null)).toBe('');
+    expect(trialsSentence({ count: 0, keystrokeSavings: 0.5, wpm: 3 })).toBe('');
+  });
+
+  it('follows the version line only when the version had trials', () => {
+    const base: VersionFigures = {
+      number: 1,
+      status: 'trained',
+      date: '2026-11-02',
+      slots: 5,
+      keystrokeSavings: 0.42,
+      wpmWith: null,
+      wpmWithout: null,
+    };
+    expect(versionLine(base)).toBe('Version 1 (trained 2026-11-02): about 4 in 10 key presses saved.');
+    expect(versionLine({ ...base, trials: { count: 2, keystrokeSavings: 0.31, wpm: null } })).toBe(
+      'Version 1 (trained 2026-11-02): about 4 in 10 key presses saved. ' +
+        'In 2 tries on the test keyboard, about 3 in 10 key presses were saved.',
     );
   });
 });

@@ -15,6 +15,18 @@ export type VersionFigures = {
   /** Estimated words a minute without and with suggestions (≥ 0); null when unknown. */
   wpmWithout: number | null;
   wpmWith: number | null;
+  /** The carer's tries on the test keyboard with this version in the period; absent or null: none. */
+  trials?: TrialFigures | null;
+};
+
+/** Means of the measured figures over a version's trials (from `trials.measures`). */
+export type TrialFigures = {
+  /** Trials counted (≥ 1). */
+  count: number;
+  /** Mean measured keystroke savings, may be negative (corrections); null when no trial measured it. */
+  keystrokeSavings: number | null;
+  /** Mean measured words a minute; null when no trial measured it. */
+  wpm: number | null;
 };
 
 const isNumber = (value: unknown): value is number => typeof value === 'number' && Number.isFinite(value);
@@ -74,6 +86,20 @@ export function savingsChangePhrase(before: number, after: number): string {
   return `${points} more in every 100 key presses ${change > 0 ? 'saved' : 'needed'} than before`;
 }
 
+/**
+ * The carer's trials in words, e.g. "In 3 tries on the test keyboard, about 3 in 10 key presses were
+ * saved, at roughly 2 words a minute." Empty when there were none.
+ */
+export function trialsSentence(t: TrialFigures | null | undefined): string {
+  if (!t || t.count < 1) return '';
+  const parts: string[] = [];
+  if (t.keystrokeSavings !== null)
+    parts.push(savingsPhrase(t.keystrokeSavings).replace(/ saved$/, ' were saved'));
+  if (t.wpm !== null) parts.push(`at ${ratePhrase(t.wpm)}`);
+  const tries = `${t.count} ${t.count === 1 ? 'try' : 'tries'} on the test keyboard`;
+  return parts.length > 0 ? `In ${tries}, ${parts.join(', ')}.` : `There were ${tries}.`;
+}
+
 /** One line per version, e.g. "Version 2 (approved 2026-11-03): about 4 in 10 key presses saved, roughly 3 words a minute." */
 export function versionLine(v: VersionFigures): string {
   const when = v.date ? ` (${v.status.replace('_', ' ')} ${v.date})` : ` (${v.status.replace('_', ' ')})`;
@@ -81,7 +107,9 @@ export function versionLine(v: VersionFigures): string {
   if (v.keystrokeSavings !== null) parts.push(savingsPhrase(v.keystrokeSavings));
   if (v.wpmWith !== null) parts.push(`${ratePhrase(v.wpmWith)} with suggestions`);
   if (v.wpmWithout !== null) parts.push(`${ratePhrase(v.wpmWithout)} without`);
-  return `Version ${v.number}${when}: ${parts.length > 0 ? parts.join(', ') : 'no figures yet'}.`;
+  const line = `Version ${v.number}${when}: ${parts.length > 0 ? parts.join(', ') : 'no figures yet'}.`;
+  const tried = trialsSentence(v.trials);
+  return tried ? `${line} ${tried}` : line;
 }
 
 export type SummaryTextInput = {

@@ -64,6 +64,17 @@ export const routes: RouteObject[] = [
             ],
           },
           {
+            element: <RequireRole roles={['clinician', 'carer']} />,
+            children: [
+              {
+                path: 'clients/:clientId/keyboard',
+                lazy: async () => ({
+                  Component: (await import('./routes/clients/keyboard-page')).KeyboardRoute,
+                }),
+              },
+            ],
+          },
+          {
             element: <RequireRole roles={['clinician', 'supervisor']} />,
             children: [
               {

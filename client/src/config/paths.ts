@@ -37,6 +37,14 @@ export const profileVersionPath = (clientId: string, versionId: string): string 
 export const profileComparePath = (clientId: string, versionIds: readonly string[]): string =>
   `${paths.clients}/${encodeURIComponent(clientId)}/profiles/compare?ids=${versionIds.map(encodeURIComponent).join(',')}`;
 
+/**
+ * The test keyboard of a client (clinician and carer), running one profile version.
+ * @param clientId the client's id
+ * @param versionId the version to run; the page picks the active one (or the newest candidate) when omitted
+ */
+export const keyboardPath = (clientId: string, versionId?: string): string =>
+  `${paths.clients}/${encodeURIComponent(clientId)}/keyboard${versionId ? `?version=${encodeURIComponent(versionId)}` : ''}`;
+
 // Where each role lands after signing in (foundation contract, "Role home pages").
 export const roleHome: Record<Role, string> = {
   admin: paths.staff,

@@ -1,7 +1,7 @@
 // What a trial measured, computed from its log alone (the browser shows it at once; the API
 // recomputes it from the same log before storing, so the figures never depend on the browser).
 import type { TrialEvent, TrialMeasures } from '../schemas/trials.schema';
-import { applyTrialEvent, isSelection, partialWord } from './trial-replay';
+import { applyTrialEvent, isSelection } from './trial-replay';
 
 const round6 = (x: number) => Math.round(x * 1e6) / 1e6;
 
@@ -63,16 +63,17 @@ export function computeTrialMeasures(events: readonly TrialEvent[], targetPhrase
     if (event.type === 'switch') switchActivations++;
     if (event.type === 'offer' && (event.words?.length ?? 0) > 0) suggestionsOffered++;
     if (event.type === 'backspace') errorsCorrected++;
-    if (event.type === 'suggestion') {
-      suggestionsTaken++;
-      charactersFromSuggestions += [...(event.value ?? '')].length - [...partialWord(text)].length + 1;
-    }
     if (isSelection(event)) {
       keystrokes++;
       first ??= event.t;
       last = event.t;
     }
-    text = applyTrialEvent(text, event);
+    const next = applyTrialEvent(text, event);
+    if (event.type === 'suggestion') {
+      suggestionsTaken++;
+      charactersFromSuggestions += [...next].length - [...text].length;
+    }
+    text = next;
   }
   const characters = [...text].length;
   const durationMs = first === null ? 0 : Math.max(0, last - first);

@@ -12,6 +12,20 @@ export class TrialReplayError extends Error {
   }
 }
 
+// Sentence punctuation: typed right after a word and its space it takes the space's place
+// ("tea ." → "tea. "), and a word picked right after it gets a space first ("tea?" → "tea? more ").
+const SENTENCE_PUNCTUATION = /[.,?!;:]$/u;
+const WORD_THEN_SPACE = /[\p{L}\p{M}\p{N}] $/u;
+
+/**
+ * The text the model should read to suggest the next word: a new message reads as the start of a
+ * line ("\n"), and after sentence punctuation a space is assumed, as picking a word will add one.
+ */
+export function suggestionContext(text: string): string {
+  if (text === '') return '\n';
+  return SENTENCE_PUNCTUATION.test(text) ? `${text} ` : text;
+}
+
 /** The word being typed at the end of `text` ("" right after a space or punctuation). */
 export function partialWord(text: string): string {
   const cps = toCodePoints(text);
@@ -21,7 +35,9 @@ export function partialWord(text: string): string {
 
 /**
  * The text after one step. Selections change it; `switch` and `offer` leave it as it is.
- * A suggestion replaces the word being typed by the whole suggested word and adds a space.
+ * A suggestion replaces the word being typed by the whole suggested word and adds a space (and
+ * puts one before it right after sentence punctuation). Sentence punctuation typed after a word
+ * and a space replaces that space and keeps one after it.
  * @throws TrialReplayError for a letter or punctuation step without exactly one character,
  *   or a suggestion without a word
  */
@@ -32,6 +48,9 @@ export function applyTrialEvent(text: string, event: TrialEvent): string {
       const value = event.value ?? '';
       if ([...value].length !== 1) {
         throw new TrialReplayError(`A ${event.type} step must insert exactly one character, not "${value}".`);
+      }
+      if (event.type === 'punctuation' && SENTENCE_PUNCTUATION.test(value) && WORD_THEN_SPACE.test(text)) {
+        return `${text.slice(0, -1)}${value} `;
       }
       return text + value;
     }
@@ -47,7 +66,8 @@ export function applyTrialEvent(text: string, event: TrialEvent): string {
       const word = event.value ?? '';
       if (word.trim() === '') throw new TrialReplayError('A suggestion step must name the word picked.');
       const typed = partialWord(text);
-      return `${text.slice(0, text.length - typed.length)}${word} `;
+      const before = text.slice(0, text.length - typed.length);
+      return `${before}${SENTENCE_PUNCTUATION.test(before) ? ' ' : ''}${word} `;
     }
     case 'switch':
     case 'offer':

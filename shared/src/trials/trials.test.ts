@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { createTrialSchema, type TrialEvent } from '../schemas/trials.schema';
 import { builtInPracticePhrases } from './practice-phrases';
 import { computeTrialMeasures, minimumStringDistance, msdErrorRate } from './trial-measures';
-import { applyTrialEvent, partialWord, replayTrial, TrialReplayError } from './trial-replay';
+import { applyTrialEvent, partialWord, replayTrial, suggestionContext, TrialReplayError } from './trial-replay';
 
 /** Letter-by-letter events for `text`, evenly spread from 0 to `ms`. */
 function typed(text: string, ms: number): TrialEvent[] {
@@ -31,8 +31,23 @@ describe('trial replay', () => {
   it('a suggestion replaces the word being typed and adds a space', () => {
     expect(applyTrialEvent('i want te', { t: 0, type: 'suggestion', value: 'tea', slot: 0 })).toBe('i want tea ');
     expect(applyTrialEvent('i want ', { t: 0, type: 'suggestion', value: 'tea', slot: 1 })).toBe('i want tea ');
+    expect(applyTrialEvent('come sailing?', { t: 0, type: 'suggestion', value: 'I', slot: 0 })).toBe('come sailing? I ');
     expect(partialWord("i don'")).toBe("don'");
     expect(partialWord('end. ')).toBe('');
+  });
+
+  it('sentence punctuation after a word and a space takes the space\'s place', () => {
+    expect(applyTrialEvent('tea ', { t: 0, type: 'punctuation', value: '?' })).toBe('tea? ');
+    expect(applyTrialEvent('tea', { t: 0, type: 'punctuation', value: ',' })).toBe('tea,');
+    expect(applyTrialEvent('tea ', { t: 0, type: 'punctuation', value: "'" })).toBe("tea '");
+    expect(applyTrialEvent('tea. ', { t: 0, type: 'punctuation', value: '.' })).toBe('tea. .');
+  });
+
+  it('suggests from the start of a line for a new message and after a space following punctuation', () => {
+    expect(suggestionContext('')).toBe('\n');
+    expect(suggestionContext('come sailing?')).toBe('come sailing? ');
+    expect(suggestionContext('i want t')).toBe('i want t');
+    expect(suggestionContext("don'")).toBe("don'");
   });
 
   it('names the step that cannot be replayed', () => {
@@ -56,6 +71,17 @@ describe('trial measures', () => {
     expect(m.kspc).toBe(1);
     expect(m.keystrokeSavings).toBe(0);
     expect(m.errorRate).toBe(0);
+  });
+
+  it('counts the characters a picked suggestion adds, its spaces included', () => {
+    const events: TrialEvent[] = [
+      ...typed('ok.', 200),
+      { t: 300, type: 'suggestion', value: 'see', slot: 0 },
+      { t: 400, type: 'punctuation', value: '?' },
+    ];
+    const m = computeTrialMeasures(events, 'ok. see?');
+    expect(replayTrial(events)).toBe('ok. see? ');
+    expect(m).toMatchObject({ characters: 9, keystrokes: 5, charactersFromSuggestions: 5, errorRate: 0 });
   });
 
   it('counts a picked suggestion as one keystroke: "he" + "hello" gives 6 characters for 3 keys', () => {

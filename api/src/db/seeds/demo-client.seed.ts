@@ -1,4 +1,5 @@
 import { AuditEvent } from '../../audit/audit-event.entity';
+import { AuditService } from '../../audit/audit.service';
 import { ClientAssignment } from '../../clients/client-assignment.entity';
 import { Client } from '../../clients/client.entity';
 import { Consent } from '../../consents/consent.entity';
@@ -25,6 +26,27 @@ const DEMO_CONTACTS = [
     consentToSummaries: false,
   },
 ];
+
+/**
+ * The demo clinician as the acting user of later seed steps (samples, version), with an audit
+ * service writing through the step's transaction.
+ */
+export async function demoClinicianActor(manager: Parameters<SeedStep['run']>[0]['manager']): Promise<{
+  clinician: User;
+  actor: { id: string; email: string; ip: null };
+  audit: AuditService;
+}> {
+  const clinician = await manager
+    .getRepository(User)
+    .createQueryBuilder('user')
+    .where('lower(user.email) = lower(:email)', { email: CLINICIAN_EMAIL })
+    .getOneOrFail();
+  return {
+    clinician,
+    actor: { id: clinician.id, email: clinician.email, ip: null },
+    audit: new AuditService(manager.getRepository(AuditEvent)),
+  };
+}
 
 /** Finds the demo client (after the staff step has run), or null. Used by the samples seed too. */
 export async function findDemoClient(

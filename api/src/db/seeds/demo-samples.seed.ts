@@ -1,20 +1,16 @@
 import type { SourceKind } from '@keyloom/shared';
 import { readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
-import { AuditEvent } from '../../audit/audit-event.entity';
-import { AuditService } from '../../audit/audit.service';
 import { loadLexiconWords } from '../../samples/lexicon.service';
 import { SampleFlag } from '../../samples/sample-flag.entity';
 import { countKinds, insertSample, prepareFile } from '../../samples/sample-ingest';
 import { Sample } from '../../samples/sample.entity';
 import { decideSampleFlag } from '../../samples/samples.service';
-import { User } from '../../users/user.entity';
-import { findDemoClient } from './demo-client.seed';
+import { demoClinicianActor, findDemoClient } from './demo-client.seed';
 import type { SeedStep } from './seed-step';
 
 // corpora/demo, four levels above both api/src/db/seeds and api/dist/db/seeds.
 const DEMO_DIR = resolve(__dirname, '..', '..', '..', '..', 'corpora', 'demo');
-const CLINICIAN_EMAIL = 'clinician@willowmere.example';
 
 type DemoFile = {
   file: string;
@@ -94,13 +90,7 @@ export const demoSamplesStep: SeedStep = {
       log('no demo client; skipped');
       return;
     }
-    const clinician = await manager
-      .getRepository(User)
-      .createQueryBuilder('user')
-      .where('lower(user.email) = lower(:email)', { email: CLINICIAN_EMAIL })
-      .getOneOrFail();
-    const actor = { id: clinician.id, email: clinician.email, ip: null };
-    const audit = new AuditService(manager.getRepository(AuditEvent));
+    const { clinician, actor, audit } = await demoClinicianActor(manager);
     let lexicon: Set<string> | null = null;
     const isKnownWord = (word: string) => (lexicon ??= loadLexiconWords().words).has(word);
     let added = 0;

@@ -5,7 +5,6 @@ import { Link, Navigate, useNavigate, useParams } from 'react-router-dom';
 import { PageLoading } from '@/components/layout/page-loading';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
-import { EmptyState } from '@/components/ui/empty-state';
 import { type Announcement, LiveRegion } from '@/components/ui/live-region';
 import { PageHeader } from '@/components/ui/page-header';
 import { type ClientTab, clientPath, roleHome } from '@/config/paths';
@@ -20,18 +19,8 @@ import { SamplesPanel } from '@/features/samples/components/samples-panel';
 import { cn } from '@/lib/cn';
 import { tabLabels, tabsForRole } from './client-tabs';
 import { ProfileVersionsTab } from './profile-versions-tab';
-
-// What the later steps will bring, shown until they exist.
-const comingNext: Record<'trials' | 'summaries', { title: string; text: string }> = {
-  trials: {
-    title: 'No try-outs yet.',
-    text: 'Here carers will try a candidate profile on the test keyboard with the client, log each session and sign a version off or say what is wrong.',
-  },
-  summaries: {
-    title: 'No family updates yet.',
-    text: 'Here you will send plain-language progress summaries to the family contacts who agreed to receive them.',
-  },
-};
+import { SummariesTab } from './summaries-tab';
+import { TrialsTab } from './trials-tab';
 
 type Announce = (tone: 'success' | 'error', text: string) => void;
 
@@ -130,8 +119,8 @@ export const ClientRoute = () => {
       />
     ),
     profiles: <ProfileVersionsTab client={data} role={role} />,
-    trials: <EmptyState title={comingNext.trials.title}>{comingNext.trials.text}</EmptyState>,
-    summaries: <EmptyState title={comingNext.summaries.title}>{comingNext.summaries.text}</EmptyState>,
+    trials: <TrialsTab client={data} role={role} announce={announce} />,
+    summaries: <SummariesTab client={data} role={role} announce={announce} />,
   };
 
   return (

@@ -1,6 +1,7 @@
 import type { ProfileVersion, Role } from '@keyloom/shared';
 import { screen, waitFor, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
+import { trialRecord } from '@/features/keyboard/testing/trial-data';
 import { profileVersion, VERSION_1_ID } from '@/features/profiles/testing/profile-data';
 import { ASHBY_ID, clientRecord, sessionUser } from '@/testing/data';
 import { type MockRoutes, mockFetch, sessionRoutes } from '@/testing/mock-fetch';
@@ -17,6 +18,7 @@ const openVersion = async (
     ...sessionRoutes(sessionUser(role)),
     [`GET /api/clients/${ASHBY_ID}`]: { body: clientRecord() },
     [`GET ${versionUrl}`]: () => ({ body: typeof version === 'function' ? version() : version }),
+    [`GET ${versionUrl}/trials`]: { body: [] },
     ...routes,
   });
   const app = renderApp(`/clients/${ASHBY_ID}/profiles/${VERSION_1_ID}`);
@@ -25,6 +27,12 @@ const openVersion = async (
 };
 
 const cellValue = (cell: HTMLElement) => cell.lastChild?.textContent;
+// A cell's text without the column name that cards show above it (its first child).
+const cellText = (cell: HTMLElement) =>
+  [...cell.childNodes]
+    .slice(1)
+    .map((node) => node.textContent)
+    .join('');
 
 describe('Profile version page', () => {
   it('polls a version in training every second and moves the progress bar and the stage', async () => {
@@ -159,8 +167,10 @@ describe('Profile version page', () => {
   it('lets the assigned carer sign off a trained version only with a comment, and never offers export', async () => {
     const trained = profileVersion();
     const { user, api } = await openVersion('carer', trained, {
+      [`GET ${versionUrl}/trials`]: { body: [trialRecord()] },
       [`POST ${versionUrl}/sign-off`]: { body: { ...trained, status: 'signed_off' } },
     });
+    await waitFor(() => expect(screen.getByRole('button', { name: 'Sign off' })).toBeEnabled());
     expect(screen.queryByRole('link', { name: /Export/ })).not.toBeInTheDocument();
     expect(screen.queryByRole('heading', { name: 'Check an exported file' })).not.toBeInTheDocument();
     await user.click(screen.getByRole('button', { name: 'Sign off' }));
@@ -288,5 +298,77 @@ describe('Profile version page', () => {
     expect(screen.getByText('Version number').nextSibling).toHaveTextContent('1');
     const sent = api.requestsTo('POST /api/profile-exports/verify')[0]?.formData?.get('file');
     expect(sent instanceof File ? sent.name : null).toBe('ashby-v1.klp');
+  });
+  it('keeps the carer’s sign-off and problem report shut until the version has a trial, and points to the keyboard', async () => {
+    const { api } = await openVersion('carer', profileVersion());
+    await waitFor(() => expect(api.requestsTo(`GET ${versionUrl}/trials`)).toHaveLength(1));
+    expect(await screen.findByText('Try this version on the test keyboard first.')).toBeInTheDocument();
+    const signOff = screen.getByRole('button', { name: 'Sign off' });
+    expect(signOff).toBeDisabled();
+    expect(signOff).toHaveAccessibleDescription(/Try this version on the test keyboard first\./);
+    expect(screen.getByRole('button', { name: 'Report a problem' })).toBeDisabled();
+    expect(screen.getByRole('link', { name: 'Open the test keyboard' })).toHaveAttribute(
+      'href',
+      `/clients/${ASHBY_ID}/keyboard?version=${VERSION_1_ID}`,
+    );
+    expect(screen.getByText('No trials of version 1 yet.', { exact: false })).toBeInTheDocument();
+  });
+
+  it('lists the trials with measured figures beside the simulated ones', async () => {
+    await openVersion('clinician', profileVersion(), {
+      [`GET ${versionUrl}/trials`]: {
+        body: [
+          trialRecord(),
+          trialRecord({
+            id: 'e1f2a3b4-c5d6-4e7f-8a9b-0c1d2e3f4a72',
+            measures: { ...trialRecord().measures, keystrokeSavings: -0.1, wpm: null },
+          }),
+        ],
+      },
+    });
+    const table = within(await screen.findByRole('table', { name: 'Trials of version 1, newest first' }));
+    const rows = table.getAllByRole('row');
+    expect(rows).toHaveLength(3);
+    const first = within(rows[1]!).getAllByRole('cell').map(cellText);
+    expect(first).toEqual([
+      'Hannah Ashbycarer',
+      'Direct',
+      '20',
+      '12',
+      '40.0% (36.7% at 5 slots)',
+      '2.4 (7.4)',
+      '0.0%',
+    ]);
+    expect(within(rows[2]!).getAllByRole('cell').map(cellText)).toContain('-10.0% (36.7% at 5 slots)');
+    expect(screen.getByRole('link', { name: 'Try version 1 on the test keyboard' })).toHaveAttribute(
+      'href',
+      `/clients/${ASHBY_ID}/keyboard?version=${VERSION_1_ID}`,
+    );
+  });
+
+  it('lets the carer report a problem after a trial, with a reason', async () => {
+    const trained = profileVersion();
+    const { user, api } = await openVersion('carer', trained, {
+      [`GET ${versionUrl}/trials`]: { body: [trialRecord()] },
+      [`POST ${versionUrl}/report-problem`]: { body: { ...trained, status: 'sent_back' } },
+    });
+    await waitFor(() => expect(screen.getByRole('button', { name: 'Report a problem' })).toBeEnabled());
+    await user.click(screen.getByRole('button', { name: 'Report a problem' }));
+    const dialog = within(await screen.findByRole('dialog', { name: 'Report a problem with version 1?' }));
+    await user.click(dialog.getByRole('button', { name: 'Report the problem' }));
+    expect(await dialog.findByText('Say what went wrong in the trial.')).toBeInTheDocument();
+    await user.type(
+      dialog.getByLabelText('What went wrong in the trials?'),
+      'It kept offering sailing words.',
+    );
+    await user.click(dialog.getByRole('button', { name: 'Report the problem' }));
+    await waitFor(() =>
+      expect(api.requestsTo(`POST ${versionUrl}/report-problem`)[0]?.body).toEqual({
+        reason: 'It kept offering sailing words.',
+      }),
+    );
+    expect(
+      await screen.findByText('You reported a problem with version 1. It went back to the clinician.'),
+    ).toBeInTheDocument();
   });
 });

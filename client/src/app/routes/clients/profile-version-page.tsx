@@ -6,9 +6,12 @@ import { PageLoading } from '@/components/layout/page-loading';
 import { Alert } from '@/components/ui/alert';
 import { type Announcement, LiveRegion } from '@/components/ui/live-region';
 import { PageHeader } from '@/components/ui/page-header';
-import { clientPath } from '@/config/paths';
+import { clientPath, keyboardPath } from '@/config/paths';
 import { useMe } from '@/features/auth/api/get-me';
 import { useClient } from '@/features/clients/api/get-client';
+import { useTrials } from '@/features/keyboard/api/get-trials';
+import { hasModel, takesTrials } from '@/features/keyboard/components/keyboard-versions';
+import { TrialHistory } from '@/features/keyboard/components/trial-history';
 import { useProfileVersion } from '@/features/profiles/api/get-profile-version';
 import { readReport } from '@/features/profiles/components/profile-report';
 import { ProfileStatusBadge } from '@/features/profiles/components/profile-status-badge';
@@ -31,6 +34,8 @@ export const ProfileVersionRoute = () => {
   const me = useMe();
   const client = useClient(clientId);
   const version = useProfileVersion(versionId);
+  // Trials exist only for versions with a model; the carer's sign-off waits for one.
+  const trials = useTrials(version.data && hasModel(version.data) ? versionId : null);
   const [handedOver] = useState(() => handedOverSchema.safeParse(location.state).data?.announcement ?? null);
   const [announcement, setAnnouncement] = useState<Announcement>(null);
   const announce = (tone: 'success' | 'error', text: string) => setAnnouncement({ tone, text });
@@ -84,7 +89,13 @@ export const ProfileVersionRoute = () => {
         message={announcement ?? (data.status === 'training' || data.status === 'draft' ? handedOver : null)}
       />
       <div className="flex flex-col gap-10">
-        <VersionActions role={role} version={data} announce={announce} />
+        <VersionActions
+          role={role}
+          version={data}
+          announce={announce}
+          trialCount={trials.data?.length ?? null}
+          keyboardHref={keyboardPath(clientId, data.id)}
+        />
 
         {data.status === 'training' && (
           <section aria-labelledby="progress-heading" className="flex flex-col gap-3">
@@ -133,6 +144,23 @@ export const ProfileVersionRoute = () => {
           <Alert tone="error" title="The results of this version cannot be shown.">
             <p>They are stored in a form this page does not recognise.</p>
           </Alert>
+        )}
+
+        {hasModel(data) && (
+          <section aria-labelledby="trials-heading" className="flex flex-col gap-3">
+            <h2 id="trials-heading" className="text-2xl font-bold">
+              Trials
+            </h2>
+            {role !== 'supervisor' && takesTrials(data) && (
+              <Link
+                to={keyboardPath(clientId, data.id)}
+                className="inline-flex min-h-11 w-fit items-center font-bold underline"
+              >
+                Try version {data.number} on the test keyboard
+              </Link>
+            )}
+            <TrialHistory versionId={data.id} versionNumber={data.number} />
+          </section>
         )}
 
         <section aria-labelledby="settings-heading" className="flex flex-col gap-3">

@@ -1,11 +1,16 @@
-import { approveSchema, type ProfileVersion, sendBackSchema, signOffSchema } from '@keyloom/shared';
+import {
+  approveSchema,
+  type ProfileVersion,
+  reportProblemSchema,
+  sendBackSchema,
+  signOffSchema,
+} from '@keyloom/shared';
+import { z } from 'zod';
 import { Modal } from '@/components/ui/dialog';
 import { Form, FormServerError } from '@/components/ui/form';
 import { FormActions } from '@/components/ui/form-actions';
 import { TextAreaField } from '@/components/ui/text-area-field';
-import { useApproveProfileVersion } from '../api/approve-profile-version';
-import { useSendBackProfileVersion } from '../api/send-back-profile-version';
-import { useSignOffProfileVersion } from '../api/sign-off-profile-version';
+import { type Decision, type DecisionInputs, useDecideProfileVersion } from '../api/decide-profile-version';
 
 type DialogProps = {
   open: boolean;
@@ -14,36 +19,91 @@ type DialogProps = {
   onDone: (version: ProfileVersion) => void;
 };
 
-/** The carer's sign-off after trying the version, with a required comment. */
-export const SignOffDialog = ({ open, version, onClose, onDone }: DialogProps) => {
-  const signOff = useSignOffProfileVersion();
+// What each decision asks for: one required text (its schema from @keyloom/shared) and the words
+// around it. The dialog edits the text as `text` and sends it under the decision's own field name.
+const decisions = {
+  'sign-off': {
+    formName: 'Sign off',
+    field: 'comment',
+    text: signOffSchema.shape.comment,
+    title: (n: number) => `Sign off version ${n}?`,
+    description: 'Say how the try-outs went. A supervisor reads your comment before approving the version.',
+    label: 'How did the try-outs go?',
+    rows: 4,
+    submitLabel: 'Sign off',
+    busyLabel: 'Signing off…',
+    danger: false,
+  },
+  'report-problem': {
+    formName: 'Report a problem',
+    field: 'reason',
+    text: reportProblemSchema.shape.reason,
+    title: (n: number) => `Report a problem with version ${n}?`,
+    description: 'The version goes back to the clinician with what you write; it will not be signed off.',
+    label: 'What went wrong in the trials?',
+    rows: 4,
+    submitLabel: 'Report the problem',
+    busyLabel: 'Reporting…',
+    danger: true,
+  },
+  approve: {
+    formName: 'Approve',
+    field: 'comment',
+    text: approveSchema.shape.comment,
+    title: (n: number) => `Approve version ${n}?`,
+    description:
+      'It becomes the client’s active profile; the version active until now is retired. The clinical decision rests with the licensed clinician.',
+    label: 'Comment for the record',
+    rows: 3,
+    submitLabel: 'Approve',
+    busyLabel: 'Approving…',
+    danger: false,
+  },
+  'send-back': {
+    formName: 'Send back',
+    field: 'reason',
+    text: sendBackSchema.shape.reason,
+    title: (n: number) => `Send version ${n} back?`,
+    description: 'The clinician sees your reason; a change of settings means training a new version.',
+    label: 'What needs to change',
+    rows: 3,
+    submitLabel: 'Send back',
+    busyLabel: 'Sending back…',
+    danger: true,
+  },
+} as const satisfies Record<Decision, { field: string; text: z.ZodType<string>; [key: string]: unknown }>;
+
+/** One decision on a version: a required comment or reason, then the POST; server errors shown in the form. */
+const DecisionDialog = <D extends Decision>({ decision, open, version, onClose, onDone }: DialogProps & { decision: D }) => {
+  const decide = useDecideProfileVersion(decision);
+  const words = decisions[decision];
+  const schema = z.object({ text: words.text });
   return (
-    <Modal
-      open={open}
-      onClose={onClose}
-      title={`Sign off version ${version.number}?`}
-      description="Say how the try-outs went. A supervisor reads your comment before approving the version."
-    >
+    <Modal open={open} onClose={onClose} title={words.title(version.number)} description={words.description}>
       <Form
-        schema={signOffSchema}
-        defaultValues={{ comment: '' }}
-        aria-label="Sign off"
-        onSubmit={async (input) => onDone(await signOff.mutateAsync({ versionId: version.id, input }))}
+        schema={schema}
+        defaultValues={{ text: '' }}
+        aria-label={words.formName}
+        onSubmit={async ({ text }) => {
+          const input = { [words.field]: text } as DecisionInputs[D];
+          onDone(await decide.mutateAsync({ versionId: version.id, input }));
+        }}
       >
         {({ register, formState }) => (
           <div className="flex flex-col gap-5">
             <FormServerError message={formState.errors.root?.server?.message} />
             <TextAreaField
-              label="How did the try-outs go?"
-              rows={4}
-              registration={register('comment')}
-              error={formState.errors.comment}
+              label={words.label}
+              rows={words.rows}
+              registration={register('text')}
+              error={formState.errors.text}
             />
             <FormActions
-              submitLabel="Sign off"
-              busyLabel="Signing off…"
+              submitLabel={words.submitLabel}
+              busyLabel={words.busyLabel}
               submitting={formState.isSubmitting}
               onCancel={onClose}
+              {...(words.danger ? { submitVariant: 'danger' as const } : {})}
             />
           </div>
         )}
@@ -51,80 +111,15 @@ export const SignOffDialog = ({ open, version, onClose, onDone }: DialogProps) =
     </Modal>
   );
 };
+
+/** The carer's sign-off after trying the version, with a required comment. */
+export const SignOffDialog = (props: DialogProps) => <DecisionDialog decision="sign-off" {...props} />;
+
+/** The carer says what went wrong in the trials instead of signing off; the version goes back. */
+export const ReportProblemDialog = (props: DialogProps) => <DecisionDialog decision="report-problem" {...props} />;
 
 /** The supervisor's approval, with a comment for the record. */
-export const ApproveDialog = ({ open, version, onClose, onDone }: DialogProps) => {
-  const approve = useApproveProfileVersion();
-  return (
-    <Modal
-      open={open}
-      onClose={onClose}
-      title={`Approve version ${version.number}?`}
-      description="It becomes the client’s active profile; the version active until now is retired. The clinical decision rests with the licensed clinician."
-    >
-      <Form
-        schema={approveSchema}
-        defaultValues={{ comment: '' }}
-        aria-label="Approve"
-        onSubmit={async (input) => onDone(await approve.mutateAsync({ versionId: version.id, input }))}
-      >
-        {({ register, formState }) => (
-          <div className="flex flex-col gap-5">
-            <FormServerError message={formState.errors.root?.server?.message} />
-            <TextAreaField
-              label="Comment for the record"
-              rows={3}
-              registration={register('comment')}
-              error={formState.errors.comment}
-            />
-            <FormActions
-              submitLabel="Approve"
-              busyLabel="Approving…"
-              submitting={formState.isSubmitting}
-              onCancel={onClose}
-            />
-          </div>
-        )}
-      </Form>
-    </Modal>
-  );
-};
+export const ApproveDialog = (props: DialogProps) => <DecisionDialog decision="approve" {...props} />;
 
 /** The supervisor sends a signed-off version back, saying what needs to change. */
-export const SendBackDialog = ({ open, version, onClose, onDone }: DialogProps) => {
-  const sendBack = useSendBackProfileVersion();
-  return (
-    <Modal
-      open={open}
-      onClose={onClose}
-      title={`Send version ${version.number} back?`}
-      description="The clinician sees your reason; a change of settings means training a new version."
-    >
-      <Form
-        schema={sendBackSchema}
-        defaultValues={{ reason: '' }}
-        aria-label="Send back"
-        onSubmit={async (input) => onDone(await sendBack.mutateAsync({ versionId: version.id, input }))}
-      >
-        {({ register, formState }) => (
-          <div className="flex flex-col gap-5">
-            <FormServerError message={formState.errors.root?.server?.message} />
-            <TextAreaField
-              label="What needs to change"
-              rows={3}
-              registration={register('reason')}
-              error={formState.errors.reason}
-            />
-            <FormActions
-              submitLabel="Send back"
-              busyLabel="Sending back…"
-              submitting={formState.isSubmitting}
-              onCancel={onClose}
-              submitVariant="danger"
-            />
-          </div>
-        )}
-      </Form>
-    </Modal>
-  );
-};
+export const SendBackDialog = (props: DialogProps) => <DecisionDialog decision="send-back" {...props} />;

@@ -1,21 +1,39 @@
 import type { ProfileVersion, Role } from '@keyloom/shared';
 import { useState } from 'react';
+import { Link } from 'react-router-dom';
 import { Button } from '@/components/ui/button';
 import { buttonClasses } from '@/components/ui/button-classes';
 import { useCancelProfileVersion } from '../api/cancel-profile-version';
 import { useTrainProfileVersion } from '../api/train-profile-version';
 import { profileExportUrl } from '../api/verify-profile-export';
-import { ApproveDialog, SendBackDialog, SignOffDialog } from './decision-dialogs';
+import { ApproveDialog, ReportProblemDialog, SendBackDialog, SignOffDialog } from './decision-dialogs';
 import { visibleActions } from './profile-words';
 
 export type Announce = (tone: 'success' | 'error', text: string) => void;
 
-type Dialog = 'sign-off' | 'approve' | 'send-back' | null;
+type Dialog = 'sign-off' | 'report-problem' | 'approve' | 'send-back' | null;
 
-type VersionActionsProps = { role: Role; version: ProfileVersion; announce: Announce };
+type VersionActionsProps = {
+  role: Role;
+  version: ProfileVersion;
+  announce: Announce;
+  /**
+   * Trials logged on the version (null while unknown): a carer signs off or reports a problem only
+   * after at least one (the API refuses before).
+   */
+  trialCount?: number | null;
+  /** The test keyboard for this version, offered beside a sign-off that waits for a trial. */
+  keyboardHref?: string;
+};
 
 /** The buttons of a version's page, and the dialogs they open. */
-export const VersionActions = ({ role, version, announce }: VersionActionsProps) => {
+export const VersionActions = ({
+  role,
+  version,
+  announce,
+  trialCount = null,
+  keyboardHref,
+}: VersionActionsProps) => {
   const [dialog, setDialog] = useState<Dialog>(null);
   const train = useTrainProfileVersion();
   const cancel = useCancelProfileVersion();
@@ -27,9 +45,11 @@ export const VersionActions = ({ role, version, announce }: VersionActionsProps)
     announce('success', text);
   };
 
+  const needsTrial = show.signOff && (trialCount ?? 0) === 0;
+
   if (!Object.values(show).some(Boolean)) return null;
   return (
-    <div role="group" aria-label="Actions on this version" className="flex flex-wrap gap-3">
+    <div role="group" aria-label="Actions on this version" className="flex flex-wrap items-center gap-3">
       {(show.train || show.retry) && (
         <Button
           variant="primary"
@@ -64,9 +84,37 @@ export const VersionActions = ({ role, version, announce }: VersionActionsProps)
         </a>
       )}
       {show.signOff && (
-        <Button variant="primary" onClick={() => setDialog('sign-off')}>
-          Sign off
-        </Button>
+        <>
+          <Button
+            variant="primary"
+            disabled={needsTrial}
+            aria-describedby={needsTrial ? 'sign-off-needs-trial' : undefined}
+            onClick={() => setDialog('sign-off')}
+          >
+            Sign off
+          </Button>
+          <Button
+            disabled={needsTrial}
+            aria-describedby={needsTrial ? 'sign-off-needs-trial' : undefined}
+            onClick={() => setDialog('report-problem')}
+          >
+            Report a problem
+          </Button>
+          {needsTrial && (
+            <p id="sign-off-needs-trial" className="flex flex-wrap items-center gap-x-3">
+              <span>
+                {trialCount === null
+                  ? 'Checking for trials…'
+                  : 'Try this version on the test keyboard first.'}
+              </span>
+              {keyboardHref && (
+                <Link to={keyboardHref} className="inline-flex min-h-11 items-center font-bold underline">
+                  Open the test keyboard
+                </Link>
+              )}
+            </p>
+          )}
+        </>
       )}
       {show.decide && (
         <>
@@ -82,6 +130,16 @@ export const VersionActions = ({ role, version, announce }: VersionActionsProps)
           version={version}
           onClose={() => setDialog(null)}
           onDone={done(`You signed off version ${version.number}. A supervisor will review it.`)}
+        />
+      )}
+      {show.signOff && (
+        <ReportProblemDialog
+          open={dialog === 'report-problem'}
+          version={version}
+          onClose={() => setDialog(null)}
+          onDone={done(
+            `You reported a problem with version ${version.number}. It went back to the clinician.`,
+          )}
         />
       )}
       {show.decide && (

@@ -1,0 +1,291 @@
+import { createTrialSchema, partialWord, replayTrial, type Role } from '@keyloom/shared';
+import { act, fireEvent, screen, waitFor, within } from '@testing-library/react';
+import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
+import { practicePhrases, trialRecord } from '@/features/keyboard/testing/trial-data';
+import { profileVersion, VERSION_1_ID, VERSION_2_ID } from '@/features/profiles/testing/profile-data';
+import { ASHBY_ID, clientRecord, sessionUser } from '@/testing/data';
+import { type MockRoutes, mockFetch, sessionRoutes } from '@/testing/mock-fetch';
+import { renderApp } from '@/testing/render-app';
+
+// The engine is replaced by a fixed word list, so the page is tested on its own: the row offers
+// the listed words that start with the word being typed, in list order.
+const WORDS = ['the', 'tea', 'garden', 'go', 'good', 'pepper', 'harbour'];
+const requests: { text: string; seq: number }[] = [];
+
+vi.mock('@/features/keyboard/engine/use-keyboard-engine', async () => {
+  const React = await import('react');
+  const shared = await import('@keyloom/shared');
+  return {
+    useKeyboardEngine: (versionId: string | null) => {
+      const [suggestions, setSuggestions] = React.useState<{
+        seq: number;
+        text: string;
+        words: string[];
+        letters: { char: string; p: number }[];
+        engineMs: number;
+      } | null>(null);
+      const request = React.useCallback((text: string, seq: number, slots = 5) => {
+        requests.push({ text, seq });
+        const typed = shared.partialWord(text);
+        const words = WORDS.filter((word) => word.startsWith(typed) && word !== typed).slice(0, slots);
+        const letters = [
+          { char: 'e', p: 0.5 },
+          { char: 'a', p: 0.2 },
+          { char: 'o', p: 0.1 },
+          { char: 'x', p: 0.01 },
+        ];
+        setSuggestions({ seq, text, words, letters, engineMs: 0.2 });
+      }, []);
+      return {
+        status: versionId ? 'ready' : 'idle',
+        error: null,
+        info: versionId
+          ? {
+              versionBytes: 90_000,
+              versionCompressedBytes: 30_000,
+              baseBytes: 0,
+              baseCompressedBytes: 0,
+              loadMs: 12,
+              order: 5,
+              contexts: 1234,
+            }
+          : null,
+        slots: 5,
+        caseFold: false,
+        suggestions,
+        request,
+      };
+    },
+  };
+});
+
+const versionsUrl = `/api/clients/${ASHBY_ID}/profile-versions`;
+const trialsUrl = (id: string) => `/api/profile-versions/${id}/trials`;
+
+const openKeyboard = async (role: Role, query = '', routes: MockRoutes = {}) => {
+  const api = mockFetch({
+    ...sessionRoutes(sessionUser(role)),
+    [`GET /api/clients/${ASHBY_ID}`]: { body: clientRecord() },
+    [`GET ${versionsUrl}`]: {
+      body: [
+        profileVersion({ id: VERSION_2_ID, number: 2, status: 'trained' }),
+        profileVersion({ status: 'active' }),
+      ],
+    },
+    [`GET /api/clients/${ASHBY_ID}/practice-phrases`]: { body: practicePhrases() },
+    [`POST ${trialsUrl(VERSION_1_ID)}`]: (request) => {
+      const input = createTrialSchema.parse(request.body);
+      return { status: 201, body: trialRecord({ clientTrialId: input.clientTrialId, text: input.text }) };
+    },
+    [`GET ${trialsUrl(VERSION_1_ID)}`]: { body: [] },
+    ...routes,
+  });
+  const app = renderApp(`/clients/${ASHBY_ID}/keyboard${query}`);
+  await screen.findByRole('heading', { level: 1, name: 'Test keyboard' });
+  await screen.findByRole('group', { name: 'Keys' });
+  return { ...app, api };
+};
+
+const output = () => screen.getByRole('textbox', { name: 'Text typed so far' });
+const key = (name: string) =>
+  within(screen.getByRole('group', { name: 'Keys' })).getByRole('button', { name });
+
+beforeEach(() => {
+  requests.length = 0;
+  localStorage.clear();
+});
+afterEach(() => {
+  vi.useRealTimers();
+});
+
+describe('Test keyboard page', () => {
+  it('opens the active version by default with the cautions, and offers the versions with a model', async () => {
+    await openKeyboard('carer');
+    expect(screen.getByText(/Suggestions are offered, never inserted on their own/)).toBeInTheDocument();
+    expect(screen.getByText(/not a communication aid for emergencies/)).toBeInTheDocument();
+    const select = screen.getByLabelText('Profile version to try');
+    expect(select).toHaveValue(VERSION_1_ID);
+    expect(
+      within(select)
+        .getAllByRole('option')
+        .map((o) => o.textContent),
+    ).toEqual(['Version 2 — Ready for trial', 'Version 1 — Active profile']);
+    expect(screen.getByText('30 kB downloaded (90 kB unpacked)')).toBeInTheDocument();
+    // A head-pointer client starts in direct mode; the slot count is the version's.
+    expect(screen.getByLabelText('Access method')).toHaveValue('direct');
+    expect(within(screen.getByRole('group', { name: 'Suggestions' })).getAllByRole('button')).toHaveLength(5);
+  });
+
+  it('types with the keys, keeps empty slots in place, and inserts a word only when it is picked', async () => {
+    const { user } = await openKeyboard('carer', `?version=${VERSION_2_ID}`);
+    expect(screen.getByLabelText('Profile version to try')).toHaveValue(VERSION_2_ID);
+    await user.click(key('g'));
+    expect(output()).toHaveTextContent(/^g$/);
+    const row = within(screen.getByRole('group', { name: 'Suggestions' }));
+    await waitFor(() => expect(row.getByRole('button', { name: 'Suggestion 1: garden' })).toBeEnabled());
+    expect(row.getByRole('button', { name: 'Suggestion 3: good' })).toBeEnabled();
+    // Five slots stay on screen: the last two are empty and cannot be picked.
+    expect(row.getByRole('button', { name: 'Suggestion 4: empty' })).toBeDisabled();
+    expect(row.getByRole('button', { name: 'Suggestion 5: empty' })).toBeDisabled();
+    expect(output()).toHaveTextContent(/^g$/);
+
+    await user.click(row.getByRole('button', { name: 'Suggestion 1: garden' }));
+    expect(output().textContent).toBe('garden ');
+    await user.click(key('delete last letter'));
+    expect(output().textContent).toBe('garden');
+    // Each selection asked the engine about the text it made, with a growing number.
+    const asked = requests.slice(-3);
+    expect(asked.map((r) => r.text)).toEqual(['g', 'garden ', 'garden']);
+    expect(asked[1]!.seq).toBeGreaterThan(asked[0]!.seq);
+    expect(partialWord(output().textContent ?? '')).toBe('garden');
+  });
+
+  it('announces the row politely once it has settled, and only when it changed', async () => {
+    const { user } = await openKeyboard('carer');
+    const live = () =>
+      screen
+        .getAllByRole('status')
+        .find(
+          (element) =>
+            element.textContent?.startsWith('Suggestions') || element.textContent === 'No suggestions.',
+        );
+    await waitFor(() => expect(live()?.textContent).toBe('Suggestions: the, tea, garden, go, good.'), {
+      timeout: 2000,
+    });
+    await user.click(key('t'));
+    await user.click(key('e'));
+    // Not yet: the row must rest for 700 ms first.
+    expect(live()?.textContent).toBe('Suggestions: the, tea, garden, go, good.');
+    await waitFor(() => expect(live()?.textContent).toBe('Suggestions: tea.'), { timeout: 2000 });
+  });
+
+  it('tints the likeliest keys with a border cue when asked', async () => {
+    const { user } = await openKeyboard('clinician');
+    expect(key('e').className).not.toMatch(/border-4/);
+    await user.click(screen.getByLabelText('Tint likely next keys'));
+    await waitFor(() => expect(key('e').className).toMatch(/border-4/));
+    expect(key('a').className).toMatch(/border-4/);
+    expect(key('x').className).not.toMatch(/border-4/);
+    expect(key('e').style.backgroundColor).not.toBe(key('x').style.backgroundColor);
+  });
+
+  it('runs a trial on a practice phrase, shows the measured figures beside the simulated ones, and uploads it', async () => {
+    const { user, api } = await openKeyboard('carer');
+    await user.selectOptions(screen.getByLabelText('Practice phrase'), 'kl-11');
+    expect(screen.getByText('the soup is too hot', { selector: '[data-target-phrase]' })).toBeInTheDocument();
+    await user.click(screen.getByRole('button', { name: 'Start trial' }));
+    await user.click(key('t'));
+    await user.click(key('e'));
+    await user.click(await screen.findByRole('button', { name: 'Suggestion 1: tea' }));
+    expect(output().textContent).toBe('tea ');
+    await user.click(screen.getByRole('button', { name: 'Finish trial' }));
+
+    expect(await screen.findByText('The trial is saved.')).toBeInTheDocument();
+    const posted = createTrialSchema.parse(api.requestsTo(`POST ${trialsUrl(VERSION_1_ID)}`)[0]?.body);
+    expect(replayTrial(posted.events)).toBe('tea ');
+    expect(posted).toMatchObject({ phraseId: 'kl-11', targetPhrase: 'the soup is too hot', text: 'tea ' });
+    expect(posted.settings).toMatchObject({
+      method: 'direct',
+      slots: 5,
+      dwellMs: null,
+      scanIntervalMs: null,
+    });
+    // 3 selections for 4 characters: KS = 1 − 3/4 = 25% (the definition; derived).
+    const results = within(screen.getByRole('region', { name: 'This trial' }));
+    expect(results.getByText(/^25\.0% measured; 36\.7% simulated at 5 slots$/)).toBeInTheDocument();
+    expect(results.getByText('7.4 estimated', { exact: false })).toBeInTheDocument();
+  });
+
+  it('scans rows then keys at the scan interval and selects with the switch (Space)', async () => {
+    const { user } = await openKeyboard('carer');
+    await user.selectOptions(screen.getByLabelText('Access method'), 'scanning');
+    const interval = screen.getByLabelText('Scan interval (ms)');
+    await user.clear(interval);
+    await user.type(interval, '200');
+    // Fake timers from here (user-event waits on real ones, so plain events drive the page).
+    vi.useFakeTimers();
+    fireEvent.click(screen.getByRole('button', { name: 'Start scanning' }));
+    expect(screen.getByRole('button', { name: 'Stop scanning (Escape)' })).toBeInTheDocument();
+    const suggestions = screen.getByRole('group', { name: 'Suggestions' });
+    const keyRowsOnScreen = () => [...screen.getByRole('group', { name: 'Keys' }).children];
+    // Rows first: the suggestion row, then each key row, one per interval.
+    expect(suggestions).toHaveAttribute('data-scan-row', 'on');
+    act(() => vi.advanceTimersByTime(200));
+    expect(suggestions).not.toHaveAttribute('data-scan-row');
+    expect(keyRowsOnScreen()[0]).toHaveAttribute('data-scan-row', 'on');
+    act(() => vi.advanceTimersByTime(200));
+    expect(keyRowsOnScreen()[1]).toHaveAttribute('data-scan-row', 'on');
+    // The switch enters the home row: its keys are highlighted one by one (a, s, d…).
+    act(() => {
+      fireEvent.keyDown(document, { key: ' ' });
+    });
+    expect(key('a')).toHaveAttribute('data-scanned', 'on');
+    act(() => vi.advanceTimersByTime(200));
+    expect(key('s')).toHaveAttribute('data-scanned', 'on');
+    expect(key('a')).not.toHaveAttribute('data-scanned');
+    act(() => {
+      fireEvent.keyDown(document, { key: 'Enter' });
+    });
+    expect(output().textContent).toBe('s');
+    act(() => {
+      fireEvent.keyDown(document, { key: 'Escape' });
+    });
+    expect(screen.getByRole('button', { name: 'Start scanning' })).toBeInTheDocument();
+  });
+
+  it('lets the owning clinician add a practice phrase from the keyboard', async () => {
+    const { user, api } = await openKeyboard('clinician', '', {
+      [`POST /api/clients/${ASHBY_ID}/practice-phrases`]: {
+        status: 201,
+        body: {
+          id: 'a0a0a0a0-b1b1-4c2c-8d3d-e4e4e4e4e4e4',
+          text: 'jazz on friday',
+          source: 'client',
+          addedBy: 'Dr. Tomasz Reyes',
+          createdAt: '2026-10-01T10:00:00.000Z',
+        },
+      },
+    });
+    await user.click(screen.getByText('Add a phrase of R. Ashby’s own'));
+    await user.type(screen.getByLabelText('New practice phrase'), 'jazz on friday');
+    await user.click(screen.getByRole('button', { name: 'Add phrase' }));
+    expect(await screen.findByText('Added the practice phrase “jazz on friday”.')).toBeInTheDocument();
+    expect(api.requestsTo(`POST /api/clients/${ASHBY_ID}/practice-phrases`)[0]?.body).toEqual({
+      text: 'jazz on friday',
+    });
+  });
+  it('keeps the text when a setting changes', async () => {
+    const { user } = await openKeyboard('carer');
+    await user.click(key('h'));
+    await user.click(key('i'));
+    await user.selectOptions(screen.getByLabelText('Key order'), 'alphabetical');
+    await user.click(screen.getByLabelText('Large targets'));
+    await user.selectOptions(screen.getByLabelText('Text size'), '2');
+    expect(output().textContent).toBe('hi');
+    // The alphabetical order starts a, b, c… on the first row.
+    const firstRow = within(screen.getByRole('group', { name: 'Keys' }))
+      .getAllByRole('button')
+      .slice(0, 3);
+    expect(firstRow.map((button) => button.getAttribute('aria-label'))).toEqual(['a', 'b', 'c']);
+  });
+
+  it('keeps a finished trial on the device while the network is down, and says so', async () => {
+    const { user } = await openKeyboard('carer', '', {
+      [`POST ${trialsUrl(VERSION_1_ID)}`]: () => {
+        throw new TypeError('Failed to fetch');
+      },
+    });
+    await user.click(screen.getByRole('button', { name: 'Start trial' }));
+    await user.click(key('g'));
+    await user.click(key('o'));
+    await user.click(screen.getByRole('button', { name: 'Finish trial' }));
+    expect(
+      await screen.findByText(
+        'Waiting for the network — the trial will upload when it is back (1 trial waiting on this device).',
+      ),
+    ).toBeInTheDocument();
+    expect(screen.getByText('1 trial is waiting to upload.')).toBeInTheDocument();
+    // 2 letters for 2 characters: no savings (derived from the definition).
+    expect(screen.getByText(/^0\.0% measured; 36\.7% simulated at 5 slots$/)).toBeInTheDocument();
+  });
+});

@@ -1,0 +1,306 @@
+import type { Role, Summary, SummaryPreview } from '@keyloom/shared';
+import { screen, waitFor, within } from '@testing-library/react';
+import { describe, expect, it } from 'vitest';
+import { ASHBY_ID, clientRecord, contactRecord, sessionUser } from '@/testing/data';
+import { type MockRoutes, mockFetch } from '@/testing/mock-fetch';
+import { currentUrl, renderApp } from '@/testing/render-app';
+
+const base = `/api/clients/${ASHBY_ID}`;
+const SUMMARY_ID = '3e4f5a6b-7c8d-4e9f-8a0b-1c2d3e4f5a61';
+
+// Invented family contacts of the demo client: one may receive summaries, one never agreed, one stopped.
+const hannah = contactRecord();
+const miles = contactRecord({
+  id: '8b3c4d5e-6f7a-4b9c-8d1e-2f3a4b5c6d72',
+  name: 'Miles Ashby',
+  relationship: 'Brother',
+  email: 'miles@family.example',
+  consentToSummaries: false,
+});
+const june = contactRecord({
+  id: '8b3c4d5e-6f7a-4b9c-8d1e-2f3a4b5c6d73',
+  name: 'June Ashby',
+  relationship: 'Mother',
+  email: 'june@family.example',
+  unsubscribedAt: '2026-11-20T08:00:00.000Z',
+});
+
+const recipient = (
+  overrides: Partial<Summary['recipients'][number]> = {},
+): Summary['recipients'][number] => ({
+  id: '4f5a6b7c-8d9e-4f0a-9b1c-2d3e4f5a6b71',
+  contactId: hannah.id,
+  name: hannah.name,
+  email: hannah.email,
+  round: 1,
+  status: 'sent',
+  attempts: 1,
+  lastError: null,
+  sentAt: '2026-11-30T10:05:00.000Z',
+  stopped: false,
+  ...overrides,
+});
+
+const storedSummary = (overrides: Partial<Summary> = {}): Summary => ({
+  id: SUMMARY_ID,
+  clientId: ASHBY_ID,
+  from: '2026-10-01',
+  to: '2026-11-30',
+  versionIds: [],
+  note: '',
+  subject: 'Progress summary for R. Ashby, 2026-10-01 to 2026-11-30',
+  text: 'This is a summary of R. Ashby’s typing.',
+  status: 'partly_failed',
+  createdBy: null,
+  createdAt: '2026-11-30T10:00:00.000Z',
+  recipients: [
+    recipient(),
+    recipient({
+      id: '4f5a6b7c-8d9e-4f0a-9b1c-2d3e4f5a6b72',
+      contactId: june.id,
+      name: june.name,
+      email: june.email,
+      stopped: true,
+    }),
+    recipient({
+      id: '4f5a6b7c-8d9e-4f0a-9b1c-2d3e4f5a6b73',
+      contactId: null,
+      name: 'Pat Ashby',
+      email: 'pat@family.example',
+      status: 'failed',
+      sentAt: null,
+      lastError: '550 mailbox unavailable',
+    }),
+  ],
+  ...overrides,
+});
+
+// A 1×1 PNG is enough for the preview's <img>; the real charts are checked in the API's tests.
+const PNG = 'iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAAAAAA6fptVAAAACklEQVR4nGNgAAAAAgABSK+kcQAAAABJRU5ErkJggg==';
+const preview = (overrides: Partial<SummaryPreview> = {}): SummaryPreview => ({
+  subject: 'Progress summary for R. Ashby, 2026-10-01 to 2026-11-30',
+  text: 'Version 1 (trained 2026-11-02): about 4 in 10 key presses saved.\n\nA note from the clinician:\nWell done.',
+  versionIds: ['1a2b3c4d-5e6f-4a7b-8c9d-0e1f2a3b4c51'],
+  charts: [
+    {
+      name: 'keystroke-savings.png',
+      alt: 'Key presses saved by suggestions, by version: version 1: 42%.',
+      pngBase64: PNG,
+    },
+    {
+      name: 'typing-speed.png',
+      alt: 'Estimated words a minute, by version: version 1: 2.7 with, 1.9 without.',
+      pngBase64: PNG,
+    },
+  ],
+  ...overrides,
+});
+
+const openTab = async (role: Role, routes: MockRoutes = {}, client = clientRecord()) => {
+  const api = mockFetch({
+    'GET /api/auth/me': { body: sessionUser(role) },
+    'GET /api/auth/csrf': { body: { token: 'csrf-token-for-tests-0001' } },
+    [`GET ${base}`]: { body: client },
+    [`GET ${base}/summaries`]: { body: [] },
+    [`GET ${base}/contacts`]: { body: [hannah, miles, june] },
+    [`GET ${base}/profile-versions`]: { body: [] },
+    ...routes,
+  });
+  const app = renderApp(`/clients/${ASHBY_ID}/summaries`);
+  await screen.findByRole('heading', { level: 3, name: 'Progress summaries' });
+  return { ...app, api };
+};
+
+describe('Family updates tab', () => {
+  it('lists each e-mail with its state in words: sent, stopped by the family member, refused by the mail server', async () => {
+    await openTab('clinician', { [`GET ${base}/summaries`]: { body: [storedSummary()] } });
+    const card = screen.getByRole('article', { name: '2026-10-01 to 2026-11-30' });
+    expect(within(card).getByText('Some e-mails failed')).toBeInTheDocument();
+    const rows = within(card).getAllByRole('row').slice(1);
+    expect(rows.map((row) => within(row).getByRole('rowheader').textContent)).toEqual([
+      'RecipientHannah Ashbyhannah.ashby@family.example',
+      'RecipientJune Ashbyjune@family.example',
+      'RecipientPat Ashbypat@family.example',
+    ]);
+    // Cells: round, status, sent, what happened.
+    const cells = rows.map((row) =>
+      within(row)
+        .getAllByRole('cell')
+        .map((cell) => cell.textContent),
+    );
+    expect(cells).toEqual([
+      ['Round1', 'StatusSent', 'Sent30 Nov 2026, 10:05', 'What happenedHanded to the mail server.'],
+      [
+        'Round1',
+        'StatusStopped summaries',
+        'Sent30 Nov 2026, 10:05',
+        'What happenedUsed the stop link: gets no more summaries.',
+      ],
+      [
+        'Round1',
+        'StatusNot delivered',
+        'Sent—',
+        'What happenedThe receiving mail server refused this e-mail for good (550 mailbox unavailable).',
+      ],
+    ]);
+  });
+
+  it('composes, previews (text and charts with their alt text) and sends to consenting contacts only', async () => {
+    const { user, api } = await openTab('clinician', {
+      [`POST ${base}/summaries/preview`]: { body: preview() },
+      [`POST ${base}/summaries`]: {
+        status: 201,
+        body: storedSummary({
+          status: 'sending',
+          recipients: [recipient({ status: 'queued', sentAt: null, attempts: 0 })],
+        }),
+      },
+    });
+    await user.click(screen.getByRole('button', { name: 'New progress summary' }));
+    const form = await screen.findByRole('form', { name: 'New progress summary for R. Ashby' });
+    expect(within(form).getByText(/figures are estimates/)).toBeInTheDocument();
+    expect(within(form).getByText(/link with which the family member can stop/)).toBeInTheDocument();
+
+    // Contacts who cannot receive summaries are listed, switched off, with the reason tied to them.
+    const miles = within(form).getByRole('checkbox', { name: 'Miles Ashby (Brother)' });
+    expect(miles).toBeDisabled();
+    expect(miles).toHaveAccessibleDescription('Has not agreed to receive summaries.');
+    expect(within(form).getByRole('checkbox', { name: 'June Ashby (Mother)' })).toBeDisabled();
+    const hannahBox = within(form).getByRole('checkbox', { name: 'Hannah Ashby (Sister)' });
+    expect(hannahBox).toBeEnabled();
+
+    await user.clear(within(form).getByLabelText('From'));
+    await user.type(within(form).getByLabelText('From'), '2026-10-01');
+    await user.clear(within(form).getByLabelText('To'));
+    await user.type(within(form).getByLabelText('To'), '2026-11-30');
+    await user.type(within(form).getByLabelText(/Your note to the family/), 'Well done.');
+    await user.click(hannahBox);
+    await user.click(within(form).getByRole('button', { name: 'Preview' }));
+
+    const previewRegion = await within(form).findByRole('region', { name: 'Preview' });
+    await waitFor(() =>
+      expect(within(previewRegion).getByRole('heading', { name: 'Preview' })).toHaveFocus(),
+    );
+    expect(api.requestsTo(`POST ${base}/summaries/preview`)[0]?.body).toEqual({
+      from: '2026-10-01',
+      to: '2026-11-30',
+      versionIds: [],
+      note: 'Well done.',
+    });
+    expect(
+      within(previewRegion).getByText('Progress summary for R. Ashby, 2026-10-01 to 2026-11-30'),
+    ).toBeInTheDocument();
+    expect(within(previewRegion).getByText(/about 4 in 10 key presses saved/)).toBeInTheDocument();
+    const images = within(previewRegion).getAllByRole('img');
+    expect(images.map((img) => img.getAttribute('alt'))).toEqual([
+      'Key presses saved by suggestions, by version: version 1: 42%.',
+      'Estimated words a minute, by version: version 1: 2.7 with, 1.9 without.',
+    ]);
+    expect(images[0]).toHaveAttribute('src', `data:image/png;base64,${PNG}`);
+
+    await user.click(within(previewRegion).getByRole('button', { name: 'Send to 1 recipient' }));
+    await waitFor(() => expect(api.requestsTo(`POST ${base}/summaries`)).toHaveLength(1));
+    expect(api.requestsTo(`POST ${base}/summaries`)[0]?.body).toEqual({
+      from: '2026-10-01',
+      to: '2026-11-30',
+      versionIds: [],
+      contactIds: [hannah.id],
+      note: 'Well done.',
+    });
+    // The page's polite live region says what happened.
+    const status = screen.getAllByRole('status').find((el) => el.textContent?.includes('queued'));
+    expect(status?.textContent).toContain('The summary is saved and 1 e-mail queued.');
+    expect(screen.queryByRole('form', { name: /New progress summary/ })).not.toBeInTheDocument();
+  });
+
+  it('ties errors to their fields, asks to preview again after a change, and says when the period has no version', async () => {
+    const { user, api } = await openTab('clinician', {
+      [`POST ${base}/summaries/preview`]: {
+        body: preview({ versionIds: [], charts: [], text: 'Only a note.' }),
+      },
+    });
+    await user.click(screen.getByRole('button', { name: 'New progress summary' }));
+    const form = await screen.findByRole('form', { name: 'New progress summary for R. Ashby' });
+    await user.clear(within(form).getByLabelText('From'));
+    await user.type(within(form).getByLabelText('From'), '2026-12-01');
+    await user.clear(within(form).getByLabelText('To'));
+    await user.type(within(form).getByLabelText('To'), '2026-11-01');
+    await user.click(within(form).getByRole('button', { name: 'Preview' }));
+    const to = within(form).getByLabelText('To');
+    await waitFor(() => expect(to).toHaveAttribute('aria-invalid', 'true'));
+    expect(to).toHaveAccessibleDescription('The period must end on or after its start.');
+    expect(api.requestsTo(`POST ${base}/summaries/preview`)).toHaveLength(0);
+
+    await user.clear(to);
+    await user.type(to, '2026-12-31');
+    await user.click(within(form).getByRole('button', { name: 'Preview' }));
+    const previewRegion = await within(form).findByRole('region', { name: 'Preview' });
+    expect(
+      within(previewRegion).getByText(
+        'No version was trained in this period; the summary will only carry your note.',
+      ),
+    ).toBeInTheDocument();
+    expect(within(previewRegion).queryAllByRole('img')).toHaveLength(0);
+
+    // Sending without a recipient: the error is announced with the recipients group.
+    await user.click(within(previewRegion).getByRole('button', { name: 'Send to 0 recipients' }));
+    const group = within(form).getByRole('group', { name: 'Recipients' });
+    await waitFor(() => expect(group).toHaveAccessibleDescription(/Choose at least one family contact\./));
+
+    // A change after the preview takes the Send button away until the next preview.
+    await user.type(within(form).getByLabelText(/Your note to the family/), 'More.');
+    expect(await within(form).findByText('The preview is out of date.')).toBeInTheDocument();
+    expect(within(form).queryByRole('button', { name: /^Send to/ })).not.toBeInTheDocument();
+  });
+
+  it('sends again only after confirmation', async () => {
+    const { user, api } = await openTab('clinician', {
+      [`GET ${base}/summaries`]: { body: [storedSummary()] },
+      [`POST /api/summaries/${SUMMARY_ID}/resend`]: {
+        body: storedSummary({
+          recipients: [
+            recipient(),
+            recipient({
+              id: '4f5a6b7c-8d9e-4f0a-9b1c-2d3e4f5a6b79',
+              round: 2,
+              status: 'queued',
+              sentAt: null,
+            }),
+          ],
+        }),
+      },
+    });
+    await user.click(screen.getByRole('button', { name: /^Send again/ }));
+    const dialog = await screen.findByRole('dialog', { name: 'Send this summary again?' });
+    expect(api.requestsTo(`POST /api/summaries/${SUMMARY_ID}/resend`)).toHaveLength(0);
+    await user.click(within(dialog).getByRole('button', { name: 'Send again' }));
+    await waitFor(() => expect(api.requestsTo(`POST /api/summaries/${SUMMARY_ID}/resend`)).toHaveLength(1));
+    await waitFor(() => expect(screen.queryByRole('dialog')).not.toBeInTheDocument());
+  });
+
+  it('switches composing off without a summaries consent and says why', async () => {
+    await openTab('clinician', {}, clientRecord({ summariesConsent: false }));
+    const button = screen.getByRole('button', { name: 'New progress summary' });
+    expect(button).toBeDisabled();
+    expect(button).toHaveAccessibleDescription(/no consent in force that covers sharing progress/);
+  });
+
+  it('lets a supervisor read the summaries with no composer or re-send, and never shows carers the tab', async () => {
+    const { api } = await openTab('supervisor', { [`GET ${base}/summaries`]: { body: [storedSummary()] } });
+    expect(screen.getByRole('article', { name: '2026-10-01 to 2026-11-30' })).toBeInTheDocument();
+    expect(screen.queryByRole('button', { name: 'New progress summary' })).not.toBeInTheDocument();
+    expect(screen.queryByRole('button', { name: /Send again/ })).not.toBeInTheDocument();
+    expect(api.requestsTo(`GET ${base}/contacts`)).toHaveLength(0);
+  });
+
+  it('sends a carer who types the tab address back to the overview', async () => {
+    mockFetch({
+      'GET /api/auth/me': { body: sessionUser('carer') },
+      'GET /api/auth/csrf': { body: { token: 'csrf-token-for-tests-0001' } },
+      [`GET ${base}`]: { body: clientRecord({ notes: null }) },
+      [`GET ${base}/carers-available`]: { body: [] },
+    });
+    const { router } = renderApp(`/clients/${ASHBY_ID}/summaries`);
+    await waitFor(() => expect(currentUrl(router)).toBe(`/clients/${ASHBY_ID}/overview`));
+  });
+});

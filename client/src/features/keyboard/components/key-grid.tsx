@@ -1,0 +1,162 @@
+import { memo, type KeyboardEvent, useRef, useState } from 'react';
+import type { KeyDef } from '../logic/layouts';
+import { DwellFill } from './dwell-fill';
+import { targetClasses, tintStyle } from './keyboard-styles';
+import { cn } from '@/lib/cn';
+
+/** Where the scanner is inside the key grid (rows counted from the first key row). */
+export type GridScan = { level: 'rows' | 'items'; row: number; item: number } | null;
+
+export type DwellView = {
+  activeId: string | null;
+  progress: number;
+  targetProps: (id: string) => { onPointerEnter: () => void; onPointerLeave: () => void };
+} | null;
+
+type KeyGridProps = {
+  rows: readonly KeyDef[][];
+  onSelect: (key: KeyDef) => void;
+  highContrast: boolean;
+  largeTargets: boolean;
+  reduceMotion: boolean;
+  textScale: number;
+  /** Next-letter probabilities when tinting is on, else null. */
+  letterProbabilities: ReadonlyMap<string, number> | null;
+  scan: GridScan;
+  dwell: DwellView;
+};
+
+/** Columns a key takes: the space bar three, delete two, every other key one. */
+const span = (key: KeyDef): number => (key.kind === 'space' ? 3 : key.kind === 'backspace' ? 2 : 1);
+
+const moves: Record<string, [number, number]> = {
+  ArrowLeft: [0, -1],
+  ArrowRight: [0, 1],
+  ArrowUp: [-1, 0],
+  ArrowDown: [1, 0],
+};
+
+/**
+ * The key grid: one Tab stop, arrow keys move between keys (roving tabindex), Home and End jump
+ * to the ends of a row. Keys are tinted by the model (with a thick border on the three likeliest),
+ * filled while a dwell runs, and outlined where the scanner is.
+ */
+// Memoised: a key press re-renders the page, but the grid only when its own props change.
+export const KeyGrid = memo(function KeyGrid({
+  rows,
+  onSelect,
+  highContrast,
+  largeTargets,
+  reduceMotion,
+  textScale,
+  letterProbabilities,
+  scan,
+  dwell,
+}: KeyGridProps) {
+  const [focus, setFocus] = useState<[number, number]>([0, 0]);
+  const refs = useRef(new Map<string, HTMLButtonElement>());
+  // Keep the roving position inside the grid when the layout changes.
+  const row = Math.min(focus[0], rows.length - 1);
+  const col = Math.min(focus[1], (rows[row]?.length ?? 1) - 1);
+
+  const top = new Set(
+    letterProbabilities
+      ? [...letterProbabilities.entries()]
+          .sort((a, b) => b[1] - a[1])
+          .slice(0, 3)
+          .map(([char]) => char)
+      : [],
+  );
+
+  const moveFocus = (event: KeyboardEvent<HTMLButtonElement>, r: number, c: number) => {
+    let next: [number, number] | null = null;
+    const move = moves[event.key];
+    if (move) {
+      const nr = Math.min(rows.length - 1, Math.max(0, r + move[0]));
+      const nc = Math.min(rows[nr]!.length - 1, Math.max(0, move[0] === 0 ? c + move[1] : c));
+      next = [nr, nc];
+    } else if (event.key === 'Home') next = [r, 0];
+    else if (event.key === 'End') next = [r, rows[r]!.length - 1];
+    if (!next) return;
+    event.preventDefault();
+    setFocus(next);
+    refs.current.get(rows[next[0]]![next[1]]!.id)?.focus();
+  };
+
+  return (
+    <div
+      role="group"
+      aria-label="Keys"
+      className="flex flex-col gap-2"
+      // Capped by the window's width so a letter never outgrows its key on a narrow screen.
+      style={{ fontSize: `min(${(largeTargets ? 1.6 : 1.3) * textScale}rem, 7vw)` }}
+    >
+      {rows.map((keys, r) => {
+        const rowScanned = scan?.level === 'rows' && scan.row === r;
+        return (
+          <div
+            key={r}
+            data-scan-row={rowScanned ? 'on' : undefined}
+            className={cn(
+              'grid gap-2 rounded-xl p-1',
+              rowScanned && (highContrast ? 'outline-6 outline-[#ffff00]' : 'outline-6 outline-rust'),
+            )}
+            style={{
+              gridTemplateColumns: `repeat(${keys.reduce((sum, k) => sum + span(k), 0)}, minmax(0, 1fr))`,
+            }}
+          >
+            {keys.map((key, c) => {
+              const scanned = rowScanned || (scan?.level === 'items' && scan.row === r && scan.item === c);
+              const p =
+                key.kind === 'letter' && letterProbabilities
+                  ? (letterProbabilities.get(key.value) ?? 0)
+                  : null;
+              const strongCue = p !== null && top.has(key.value);
+              return (
+                <button
+                  key={key.id}
+                  ref={(element) => {
+                    if (element) refs.current.set(key.id, element);
+                    else refs.current.delete(key.id);
+                  }}
+                  type="button"
+                  tabIndex={r === row && c === col ? 0 : -1}
+                  aria-label={key.spokenLabel}
+                  data-key={key.id}
+                  data-scanned={scanned ? 'on' : undefined}
+                  className={cn(
+                    targetClasses({ highContrast, largeTargets, scanned, strongCue }),
+                    span(key) === 3 && 'col-span-3',
+                    span(key) === 2 && 'col-span-2',
+                  )}
+                  style={tintStyle(p, strongCue, highContrast, scanned)}
+                  onClick={() => {
+                    setFocus([r, c]);
+                    onSelect(key);
+                  }}
+                  onFocus={() => setFocus([r, c])}
+                  onKeyDown={(event) => moveFocus(event, r, c)}
+                  {...dwell?.targetProps(key.id)}
+                >
+                  <span
+                    aria-hidden="true"
+                    style={key.label.length > 1 ? { fontSize: 'min(0.85em, 3.6vw)' } : undefined}
+                  >
+                    {key.label}
+                  </span>
+                  {dwell && dwell.activeId === key.id && (
+                    <DwellFill
+                      progress={dwell.progress}
+                      reduceMotion={reduceMotion}
+                      highContrast={highContrast}
+                    />
+                  )}
+                </button>
+              );
+            })}
+          </div>
+        );
+      })}
+    </div>
+  );
+});

@@ -1,0 +1,68 @@
+import {
+  type AccessMethod,
+  type Client,
+  defaultAccessTiming,
+  type TrialAccessMethod,
+  type TrialSettings,
+} from '@keyloom/shared';
+
+/** What the test keyboard page can change: the trial's settings plus a display-only motion switch. */
+export type KeyboardViewSettings = TrialSettings & {
+  /** Dwell fill and scan highlight move in steps, with no transition (also forced on by the OS). */
+  reduceMotion: boolean;
+};
+
+// The client record's access method decides how the trial selects by default.
+const methodFor: Record<AccessMethod, TrialAccessMethod> = {
+  direct: 'direct',
+  head_pointer: 'direct',
+  other: 'direct',
+  eye_gaze: 'dwell',
+  switch: 'scanning',
+};
+
+/** Text size choices, as multiples of the normal size (100–300 %). */
+export const textScales = [1, 1.25, 1.5, 2, 2.5, 3] as const;
+
+/**
+ * Starting settings from the client record and the version's slot count.
+ * @param client the record's access method and timings (null timings fall back to Keyloom's defaults)
+ * @param slots the version's suggestion slots, 1–10
+ * @param osReducedMotion whether the system asks for reduced motion
+ */
+export const defaultKeyboardSettings = (
+  client: Pick<Client, 'accessMethod' | 'dwellMs' | 'scanIntervalMs'>,
+  slots: number,
+  osReducedMotion = false,
+): KeyboardViewSettings => ({
+  method: methodFor[client.accessMethod],
+  layout: 'typewriter',
+  slots: Math.min(10, Math.max(1, Math.round(slots))),
+  dwellMs: client.dwellMs ?? defaultAccessTiming.dwellMs,
+  scanIntervalMs: client.scanIntervalMs ?? defaultAccessTiming.scanIntervalMs,
+  largeTargets: false,
+  highContrast: false,
+  textScale: 1,
+  tintKeys: false,
+  reduceMotion: osReducedMotion,
+});
+
+/** The settings a trial is logged with: only the timing its method uses (the schema's shape). */
+export const trialSettingsOf = (settings: KeyboardViewSettings): TrialSettings => ({
+  method: settings.method,
+  layout: settings.layout,
+  slots: settings.slots,
+  dwellMs: settings.method === 'dwell' ? settings.dwellMs : null,
+  scanIntervalMs: settings.method === 'scanning' ? settings.scanIntervalMs : null,
+  largeTargets: settings.largeTargets,
+  highContrast: settings.highContrast,
+  textScale: settings.textScale,
+  tintKeys: settings.tintKeys,
+});
+
+/** A millisecond value from a number field, clamped to [min, max]; the old value when not a number. */
+export const clampMs = (raw: string, min: number, max: number, previous: number): number => {
+  const value = Math.round(Number(raw));
+  if (raw.trim() === '' || !Number.isFinite(value)) return previous;
+  return Math.min(max, Math.max(min, value));
+};

@@ -1,0 +1,263 @@
+import {
+  keyboardLayoutLabels,
+  keyboardLayouts,
+  type KeyboardLayout,
+  trialAccessMethodLabels,
+  trialAccessMethods,
+  type TrialAccessMethod,
+} from '@keyloom/shared';
+import { memo, type ReactNode, useId, useState } from 'react';
+import { fieldClasses } from '@/components/ui/field-classes';
+import { clampMs, type KeyboardViewSettings, textScales } from './keyboard-settings';
+
+type SettingsPanelProps = {
+  settings: KeyboardViewSettings;
+  onChange: (next: KeyboardViewSettings) => void;
+  /** True while the system asks for reduced motion: the switch stays on. */
+  osReducedMotion: boolean;
+  /** Method and timings are fixed while a trial runs (the log records one setting per trial). */
+  trialRunning: boolean;
+};
+
+const Field = ({
+  label,
+  hint,
+  children,
+}: {
+  label: string;
+  hint?: string;
+  children: (id: string, hintId?: string) => ReactNode;
+}) => {
+  const id = useId();
+  const hintId = hint ? `${id}-hint` : undefined;
+  return (
+    <div className="flex flex-col gap-1">
+      <label htmlFor={id} className="font-bold">
+        {label}
+      </label>
+      {hint && (
+        <p id={hintId} className="text-ink-soft">
+          {hint}
+        </p>
+      )}
+      {children(id, hintId)}
+    </div>
+  );
+};
+
+const Toggle = ({
+  label,
+  checked,
+  disabled,
+  hint,
+  onChange,
+}: {
+  label: string;
+  checked: boolean;
+  disabled?: boolean;
+  hint?: string;
+  onChange: (checked: boolean) => void;
+}) => {
+  const id = useId();
+  return (
+    <div className="flex items-start gap-3">
+      <input
+        id={id}
+        type="checkbox"
+        className="mt-1 size-6 shrink-0 accent-ink"
+        checked={checked}
+        disabled={disabled}
+        aria-describedby={hint ? `${id}-hint` : undefined}
+        onChange={(event) => onChange(event.target.checked)}
+      />
+      <div>
+        <label htmlFor={id} className="font-bold">
+          {label}
+        </label>
+        {hint && (
+          <p id={`${id}-hint`} className="text-ink-soft">
+            {hint}
+          </p>
+        )}
+      </div>
+    </div>
+  );
+};
+
+/** A milliseconds field: a value in range applies at once; anything else is put back in range on leaving. */
+const MsField = ({
+  label,
+  hint,
+  min,
+  max,
+  value,
+  disabled,
+  onCommit,
+}: {
+  label: string;
+  hint: string;
+  min: number;
+  max: number;
+  value: number;
+  disabled: boolean;
+  onCommit: (value: number) => void;
+}) => {
+  const [draft, setDraft] = useState(String(value));
+  return (
+    <Field label={label} hint={hint}>
+      {(id, hintId) => (
+        <input
+          id={id}
+          type="number"
+          inputMode="numeric"
+          min={min}
+          max={max}
+          step={50}
+          aria-describedby={hintId}
+          className={fieldClasses(false)}
+          value={draft}
+          disabled={disabled}
+          onChange={(event) => {
+            setDraft(event.target.value);
+            const next = Number(event.target.value);
+            if (Number.isInteger(next) && next >= min && next <= max) onCommit(next);
+          }}
+          onBlur={() => {
+            const next = clampMs(draft, min, max, value);
+            setDraft(String(next));
+            onCommit(next);
+          }}
+        />
+      )}
+    </Field>
+  );
+};
+
+/** The keyboard's settings: changing them keeps the text typed so far. */
+export const SettingsPanel = memo(function SettingsPanel({
+  settings,
+  onChange,
+  osReducedMotion,
+  trialRunning,
+}: SettingsPanelProps) {
+  const set = (patch: Partial<KeyboardViewSettings>) => onChange({ ...settings, ...patch });
+  return (
+    <section
+      aria-labelledby="keyboard-settings-heading"
+      className="flex flex-col gap-4 rounded-xl border-2 border-thread bg-surface p-4 sm:p-6"
+    >
+      <h2 id="keyboard-settings-heading" className="text-2xl font-bold">
+        Settings
+      </h2>
+      <p className="text-ink-soft">
+        The client record’s access method and timing are the starting values. Changing a setting keeps the
+        text.
+        {trialRunning && ' The method and its timing stay fixed until the trial ends.'}
+      </p>
+      <div className="grid gap-5 md:grid-cols-2">
+        <Field label="Key order">
+          {(id) => (
+            <select
+              id={id}
+              className={fieldClasses(false)}
+              value={settings.layout}
+              onChange={(event) => set({ layout: event.target.value as KeyboardLayout })}
+            >
+              {keyboardLayouts.map((layout) => (
+                <option key={layout} value={layout}>
+                  {keyboardLayoutLabels[layout]}
+                </option>
+              ))}
+            </select>
+          )}
+        </Field>
+        <Field label="Access method">
+          {(id) => (
+            <select
+              id={id}
+              className={fieldClasses(false)}
+              value={settings.method}
+              disabled={trialRunning}
+              onChange={(event) => set({ method: event.target.value as TrialAccessMethod })}
+            >
+              {trialAccessMethods.map((method) => (
+                <option key={method} value={method}>
+                  {trialAccessMethodLabels[method]}
+                </option>
+              ))}
+            </select>
+          )}
+        </Field>
+        {settings.method === 'dwell' && (
+          <MsField
+            label="Dwell time (ms)"
+            hint="How long the pointer must rest on a key before it is chosen (100–5000)."
+            min={100}
+            max={5000}
+            value={settings.dwellMs ?? 800}
+            disabled={trialRunning}
+            onCommit={(dwellMs) => set({ dwellMs })}
+          />
+        )}
+        {settings.method === 'scanning' && (
+          <MsField
+            label="Scan interval (ms)"
+            hint="How long each row or key stays highlighted (100–10000)."
+            min={100}
+            max={10_000}
+            value={settings.scanIntervalMs ?? 1000}
+            disabled={trialRunning}
+            onCommit={(scanIntervalMs) => set({ scanIntervalMs })}
+          />
+        )}
+        <Field label="Text size">
+          {(id) => (
+            <select
+              id={id}
+              className={fieldClasses(false)}
+              value={String(settings.textScale)}
+              onChange={(event) => set({ textScale: Number(event.target.value) })}
+            >
+              {textScales.map((scale) => (
+                <option key={scale} value={String(scale)}>
+                  {Math.round(scale * 100)} %
+                </option>
+              ))}
+            </select>
+          )}
+        </Field>
+      </div>
+      <div className="grid gap-4 md:grid-cols-2">
+        <Toggle
+          label="Large targets"
+          hint="Keys at least 64 pixels high."
+          checked={settings.largeTargets}
+          onChange={(largeTargets) => set({ largeTargets })}
+        />
+        <Toggle
+          label="High contrast"
+          hint="Black, white and yellow only."
+          checked={settings.highContrast}
+          onChange={(highContrast) => set({ highContrast })}
+        />
+        <Toggle
+          label="Tint likely next keys"
+          hint="Stronger tint for likelier letters; the three likeliest also get a thick border."
+          checked={settings.tintKeys}
+          onChange={(tintKeys) => set({ tintKeys })}
+        />
+        <Toggle
+          label="Reduce motion"
+          hint={
+            osReducedMotion
+              ? 'On because this device asks for reduced motion.'
+              : 'The dwell fill and scan highlight move in steps, without animation.'
+          }
+          checked={settings.reduceMotion || osReducedMotion}
+          disabled={osReducedMotion}
+          onChange={(reduceMotion) => set({ reduceMotion })}
+        />
+      </div>
+    </section>
+  );
+});

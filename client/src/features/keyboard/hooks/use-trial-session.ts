@@ -1,0 +1,130 @@
+// The text on screen and the trial log. Every edit goes through applyTrialEvent (the same step
+// the API replays), so the logged steps always rebuild exactly the text shown.
+import { applyTrialEvent, type CreateTrialInput, type TrialEvent, type TrialSettings } from '@keyloom/shared';
+import { useCallback, useRef, useState } from 'react';
+
+/** A step that edits the text: letter, punctuation, space, backspace or suggestion. */
+export type TrialSelection = Omit<TrialEvent, 't'>;
+
+export type TrialFinish = {
+  phraseId: string | null;
+  targetPhrase: string | null;
+  settings: TrialSettings;
+  note: string;
+};
+
+export type TrialSession = {
+  text: string;
+  running: boolean;
+  events: TrialEvent[];
+  startedAt: string | null;
+  /** Applies a selection to the text; logs it while a trial runs. */
+  select: (e: TrialSelection) => void;
+  /** Logs one switch activation (scanning) while a trial runs. */
+  logSwitch: () => void;
+  /** Logs the suggestion row shown, when it differs from the last one logged, while a trial runs. */
+  logOffer: (words: string[]) => void;
+  /** Starts a trial on an empty text (the API replays the log from an empty text). */
+  start: () => void;
+  /** Empties the text and ends any trial without keeping its log. */
+  clear: () => void;
+  /**
+   * Ends the running trial and returns the body to upload (a fresh `clientTrialId`).
+   * @throws Error when no trial is running or it has no steps
+   */
+  finish: (o: TrialFinish) => CreateTrialInput;
+};
+
+const sameWords = (a: readonly string[] | undefined, b: readonly string[]) =>
+  a !== undefined && a.length === b.length && a.every((w, i) => w === b[i]);
+
+/**
+ * The test keyboard's text and trial log. While no trial runs, typing still edits the text but
+ * nothing is logged. `t` of each step is whole ms since start().
+ */
+export function useTrialSession(): TrialSession {
+  const [text, setText] = useState('');
+  const [running, setRunning] = useState(false);
+  const [events, setEvents] = useState<TrialEvent[]>([]);
+  const [startedAt, setStartedAt] = useState<string | null>(null);
+
+  // The refs are the truth (several steps may come in one tick); the state mirrors them for rendering.
+  const textRef = useRef('');
+  const eventsRef = useRef<TrialEvent[]>([]);
+  const runningRef = useRef(false);
+  const startRef = useRef(0);
+  const startedAtRef = useRef<string | null>(null);
+  const lastOfferRef = useRef<string[] | undefined>(undefined);
+
+  const elapsed = () => Math.max(0, Math.round(performance.now() - startRef.current));
+
+  const log = useCallback((event: TrialEvent) => {
+    eventsRef.current = [...eventsRef.current, event];
+    setEvents(eventsRef.current);
+  }, []);
+
+  const select = useCallback(
+    (e: TrialSelection) => {
+      const event: TrialEvent = { ...e, t: runningRef.current ? elapsed() : 0 };
+      // Throws on a malformed step (e.g. two letters at once) before anything changes.
+      const next = applyTrialEvent(textRef.current, event);
+      textRef.current = next;
+      setText(next);
+      if (runningRef.current) log(event);
+    },
+    [log],
+  );
+
+  const logSwitch = useCallback(() => {
+    if (runningRef.current) log({ t: elapsed(), type: 'switch' });
+  }, [log]);
+
+  const logOffer = useCallback(
+    (words: string[]) => {
+      // The log keeps at most 10 words of at most 64 characters (trialEventSchema).
+      const shown = words.filter((w) => w.length <= 64).slice(0, 10);
+      if (!runningRef.current || sameWords(lastOfferRef.current, shown)) return;
+      lastOfferRef.current = shown;
+      log({ t: elapsed(), type: 'offer', words: [...shown] });
+    },
+    [log],
+  );
+
+  const reset = (run: boolean) => {
+    textRef.current = '';
+    eventsRef.current = [];
+    runningRef.current = run;
+    lastOfferRef.current = undefined;
+    startRef.current = performance.now();
+    startedAtRef.current = run ? new Date().toISOString() : null;
+    setText('');
+    setEvents([]);
+    setRunning(run);
+    setStartedAt(startedAtRef.current);
+  };
+
+  const start = useCallback(() => reset(true), []);
+  const clear = useCallback(() => reset(false), []);
+
+  const finish = useCallback((o: TrialFinish): CreateTrialInput => {
+    if (!runningRef.current || startedAtRef.current === null) throw new Error('No trial is running.');
+    if (!eventsRef.current.some((e) => e.type !== 'offer' && e.type !== 'switch')) {
+      throw new Error('The trial has no key presses yet.');
+    }
+    runningRef.current = false;
+    setRunning(false);
+    return {
+      clientTrialId: crypto.randomUUID(),
+      startedAt: startedAtRef.current,
+      finishedAt: new Date().toISOString(),
+      phraseId: o.phraseId,
+      targetPhrase: o.targetPhrase,
+      text: textRef.current,
+      events: eventsRef.current,
+      settings: o.settings,
+      note: o.note,
+    };
+  }, []);
+
+  return { text, running, events, startedAt, select, logSwitch, logOffer, start, clear, finish };
+}

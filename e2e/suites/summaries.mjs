@@ -1,0 +1,165 @@
+// Family updates (issue 7): the demo clinician composes a progress summary for the demo client with
+// the keyboard, previews it (text and the two chart images with their alt text), sends it; the
+// worker delivers it through SMTP to the fake mail server, whose API shows one message for the
+// consenting contact and none for the contact who never agreed. Then the family member's stop link:
+// opening it changes nothing, its button stops the summaries, and the clinician sees that.
+// Axe scan (no serious or critical violations) on the way; screenshots in e2e/out.
+import assert from 'node:assert/strict';
+import { openClientTabAsClinician, signIn } from './accounts.mjs';
+
+// The seeded demo client and its family contacts (api/src/db/seeds/demo-client.seed.ts): Hannah
+// agreed to summaries, Marguerite did not. Version 1 is seeded trained (demo-version.seed.ts).
+const DEMO_CLIENT = 'R. Ashby';
+const CONSENTING = { name: 'Hannah Ashby', email: 'hannah.ashby@family.example' };
+const NOT_CONSENTING = { name: 'Marguerite Ashby', email: 'marguerite.ashby@family.example' };
+const NOTE = 'Pepper the dog now gets a mention in every message Robin writes.';
+
+/** The fake mail server's messages (maildev JSON API, MAIL_API_URL from scripts/test.mjs). */
+async function inbox() {
+  const url = process.env.MAIL_API_URL;
+  assert.ok(url, 'MAIL_API_URL names the fake mail server API (npm test sets it)');
+  const res = await fetch(url);
+  assert.equal(res.status, 200, 'the fake mail server answers');
+  return /** @type {{subject: string, text: string, to: {address: string}[], attachments?: {contentType: string}[]}[]} */ (
+    await res.json()
+  );
+}
+
+const sleep = (ms) => new Promise((resolve) => setTimeout(resolve, ms));
+
+let stopPath = null;
+
+export const summariesSuite = {
+  name: 'summaries',
+  tests: [
+    [
+      'clinician composes, previews and sends a family update; the consenting contact alone receives it',
+      async (t) => {
+        const page = await openClientTabAsClinician(t, DEMO_CLIENT, 'Family updates');
+        await page.waitForURL(/\/summaries$/);
+        await page.getByRole('heading', { name: 'Progress summaries' }).waitFor();
+        assert.deepEqual(await t.seriousViolations(page, 'family updates tab'), []);
+
+        // Keyboard alone from here: focus, Enter and Space.
+        const newButton = page.getByRole('button', { name: 'New progress summary' });
+        await newButton.focus();
+        await newButton.press('Enter');
+        const form = page.getByRole('form', { name: `New progress summary for ${DEMO_CLIENT}` });
+        await form.getByLabel('From').waitFor();
+        await form.getByText(/figures are estimates/).waitFor();
+        await form.getByText(/link with which the family member can stop/).waitFor();
+
+        const refused = form.getByRole('checkbox', { name: new RegExp(`^${NOT_CONSENTING.name}`) });
+        assert.ok(await refused.isDisabled(), 'a contact without consent cannot be chosen');
+        await form.getByText('Has not agreed to receive summaries.').waitFor();
+        const hannah = form.getByRole('checkbox', { name: new RegExp(`^${CONSENTING.name}`) });
+        await hannah.focus();
+        await hannah.press('Space');
+        assert.ok(await hannah.isChecked(), 'Space ticks the consenting contact');
+        const note = form.getByLabel(/Your note to the family/);
+        await note.focus();
+        await page.keyboard.type(NOTE);
+
+        const previewButton = form.getByRole('button', { name: 'Preview' });
+        await previewButton.focus();
+        await previewButton.press('Enter');
+        const preview = form.getByRole('region', { name: 'Preview' });
+        await preview.waitFor();
+        const text = await preview.getByTestId('summary-preview-text').textContent();
+        assert.match(
+          text ?? '',
+          /Version 1 \([a-z ]+ \d{4}-\d{2}-\d{2}\): about \d+ in 10 key presses saved/,
+        );
+        assert.ok(text?.includes(NOTE), 'the note is in the text');
+        assert.ok(text?.includes('These figures are estimates'), 'the caution is in the text');
+
+        // The two charts, drawn by the API as PNG, each with the alt text that states its figures.
+        const images = preview.getByRole('img');
+        assert.equal(await images.count(), 2, 'two charts');
+        for (const image of await images.all()) {
+          assert.ok(await image.isVisible(), 'the chart is visible');
+          const alt = (await image.getAttribute('alt')) ?? '';
+          assert.match(alt, /version 1: /, `alt text states the figures: ${alt}`);
+          const width = await image.evaluate((img) => /** @type {HTMLImageElement} */ (img).naturalWidth);
+          assert.equal(width, 480, 'the PNG decodes in the browser');
+        }
+        assert.deepEqual(await t.seriousViolations(page, 'summary preview'), []);
+        await t.screenshot(page, 'summary-preview');
+        const subject = await preview.locator('dd').first().textContent();
+
+        const sendButton = preview.getByRole('button', { name: 'Send to 1 recipient' });
+        await sendButton.focus();
+        await sendButton.press('Enter');
+        await page
+          .getByRole('status')
+          .getByText(/The summary is saved and 1 e-mail queued/)
+          .waitFor();
+
+        // The worker sends it; the list polls until the e-mail shows as sent.
+        const card = page.getByRole('article').first();
+        await card.getByRole('cell', { name: 'Sent', exact: true }).first().waitFor({ timeout: 60_000 });
+        let mails = [];
+        for (let i = 0; i < 50; i++) {
+          mails = (await inbox()).filter((mail) => mail.subject === subject);
+          if (mails.length > 0) break;
+          await sleep(200);
+        }
+        assert.equal(mails.length, 1, 'one e-mail with this subject');
+        const [mail] = mails;
+        assert.deepEqual(
+          mail.to.map((to) => to.address),
+          [CONSENTING.email],
+        );
+        assert.ok(mail.text.includes(NOTE), 'the e-mail carries the note');
+        assert.equal(
+          (mail.attachments ?? []).filter((a) => a.contentType === 'image/png').length,
+          2,
+          'both charts are attached as images',
+        );
+        const all = await inbox();
+        assert.equal(
+          all.filter((m) => m.to.some((to) => to.address === NOT_CONSENTING.email)).length,
+          0,
+          'nothing went to the contact who did not agree',
+        );
+        stopPath = mail.text.match(/\/api\/summaries\/stop\/[A-Za-z0-9_-]{43}/)?.[0] ?? null;
+        assert.ok(stopPath, 'the e-mail carries a stop link');
+        assert.deepEqual(await t.seriousViolations(page, 'sent summary list'), []);
+        await t.screenshot(page, 'summary-sent');
+      },
+    ],
+    [
+      'the family member’s stop link asks first, stops on the button, and the clinician sees it',
+      async (t) => {
+        assert.ok(stopPath, 'the first step read the stop link from the e-mail');
+        await t.context.clearCookies();
+        const page = await t.newPage();
+        // As the family member, without an account (the app's own address; nothing leaves the machine).
+        await page.goto(`${t.appUrl}${stopPath}`);
+        await page.getByRole('heading', { name: 'Stop progress summaries?' }).waitFor();
+        assert.deepEqual(await t.seriousViolations(page, 'stop link page'), []);
+        const stop = page.getByRole('button', { name: 'Stop these e-mails' });
+        await stop.focus();
+        await stop.press('Enter');
+        await page.getByRole('heading', { name: 'Summaries stopped' }).waitFor();
+        await t.screenshot(page, 'summary-stopped');
+
+        const app = await t.newPage();
+        await signIn(app, t.appUrl, 'clinician@willowmere.example');
+        await app.waitForURL((url) => url.pathname === '/caseload');
+        await app.getByRole('link', { name: DEMO_CLIENT, exact: true }).first().click();
+        await app.getByRole('tab', { name: 'Family updates' }).click();
+        await app
+          .getByRole('article')
+          .first()
+          .getByText('Used the stop link: gets no more summaries.')
+          .waitFor();
+        await app.getByRole('button', { name: 'New progress summary' }).click();
+        const form = app.getByRole('form', { name: `New progress summary for ${DEMO_CLIENT}` });
+        const hannah = form.getByRole('checkbox', { name: new RegExp(`^${CONSENTING.name}`) });
+        await hannah.waitFor();
+        assert.ok(await hannah.isDisabled(), 'a contact who stopped summaries cannot be chosen again');
+      },
+    ],
+  ],
+};
