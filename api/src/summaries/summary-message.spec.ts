@@ -48,6 +48,8 @@ describe('buildSummaryMessage', () => {
     const attachments = message.attachments ?? [];
     expect(attachments.map((a) => a.filename)).toEqual(['keystroke-savings.png', 'typing-speed.png']);
     expect(message.html).toContain(`src="cid:${SAVINGS_CHART_CID}"`);
+    // Each chart's figures are also written under it, for readers whose mail program hides images.
+    expect((message.html as string).match(/<small>[^<]*\d[^<]*<\/small>/g)).toHaveLength(2);
     for (const a of attachments) {
       const png = a.content as Buffer;
       expect(png.subarray(1, 4).toString('ascii')).toBe('PNG');

@@ -92,8 +92,12 @@ export function buildSummaryMessage(input: SummaryMessageInput): SendMailOptions
     cid: chart.cid,
     content: chart.png,
   }));
+  // The chart's figures under it in words too: the picture carries no lettering, and some mail
+  // programs do not show images until asked.
   const images = charts.map(
-    (chart) => `<p><img src="cid:${chart.cid}" width="480" height="240" alt="${escapeHtml(chart.alt)}"></p>`,
+    (chart) =>
+      `<p><img src="cid:${chart.cid}" width="480" height="240" alt="${escapeHtml(chart.alt)}"><br>` +
+      `<small>${escapeHtml(chart.alt)}</small></p>`,
   );
   const paragraphs = input.text
     .split('\n\n')
