@@ -22,7 +22,7 @@ try {
   });
   await step('worker', async () => {
     const pid = await startWorker({ name: 'worker', env });
-    return `job worker started (pid ${pid}), taking profile-training jobs`;
+    return `job worker started (pid ${pid}), training profile versions and sending summary e-mails`;
   });
 } catch {
   const previous = livePid('app', ['api/dist/main.js']);

@@ -12,7 +12,11 @@ import {
   startJobBoss,
 } from './jobs/job-queue';
 import { loadTrainingRuntime, runProfileTraining } from './profile-versions/profile-training';
-import { createSmtpSender, requeueWaitingRecipients, startSummaryMailWork } from './summaries/summary-mail-worker';
+import {
+  createSmtpSender,
+  requeueWaitingRecipients,
+  startSummaryMailWork,
+} from './summaries/summary-mail-worker';
 
 /** How often the worker re-queues summary e-mails whose job was lost (e.g. queued while pg-boss was down). */
 const REQUEUE_EVERY_MS = 5 * 60_000;

@@ -1,14 +1,4 @@
-import {
-  Body,
-  Controller,
-  Get,
-  Header,
-  HttpCode,
-  Param,
-  ParseUUIDPipe,
-  Post,
-  Res,
-} from '@nestjs/common';
+import { Body, Controller, Get, Header, HttpCode, Param, ParseUUIDPipe, Post, Res } from '@nestjs/common';
 import { ApiBody, ApiCreatedResponse, ApiOkResponse, ApiOperation, ApiTags } from '@nestjs/swagger';
 import {
   type CreateSummaryInput,
@@ -95,10 +85,7 @@ export class SummariesController {
     description:
       'Changes nothing. The button (and mail programs, RFC 8058) POST to the same path. 404 for unknown tokens.',
   })
-  async stopPage(
-    @Param('token') token: string,
-    @Res({ passthrough: true }) res: Response,
-  ): Promise<string> {
+  async stopPage(@Param('token') token: string, @Res({ passthrough: true }) res: Response): Promise<string> {
     const state = isStopToken(token) ? await this.summaries.stopState(token) : 'unknown';
     if (state === 'unknown') {
       res.status(404);

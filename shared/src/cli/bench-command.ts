@@ -421,7 +421,11 @@ async function measureKeyboard(log: (msg: string) => void): Promise<{
   );
   const baseBytes = serializeModel(base);
   const t0 = performance.now();
-  const model = new BlendedModel(deserializeModel(modelBytes).freeze(), deserializeModel(baseBytes).freeze(), blendWeight);
+  const model = new BlendedModel(
+    deserializeModel(modelBytes).freeze(),
+    deserializeModel(baseBytes).freeze(),
+    blendWeight,
+  );
   const loadMs = performance.now() - t0;
   const times: number[] = [];
   for (const { text } of builtInPracticePhrases) {

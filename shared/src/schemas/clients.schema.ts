@@ -14,6 +14,30 @@ export const accessMethodLabels: Record<AccessMethod, string> = {
   other: 'Other',
 };
 
+/** The timing fields of an access method. */
+export type AccessTimingField = 'scanIntervalMs' | 'dwellMs' | 'keyTimeMs';
+
+/**
+ * Which timings each access method uses, the one the client record keeps first: scanning steps for
+ * a switch, dwell for eye gaze, time per key otherwise. "Other" may be timed any way for a profile
+ * version's estimate (the engine prefers time per key, then scanning, then dwell).
+ */
+export const accessTimingFields: Record<AccessMethod, readonly [AccessTimingField, ...AccessTimingField[]]> =
+  {
+    direct: ['keyTimeMs'],
+    switch: ['scanIntervalMs'],
+    eye_gaze: ['dwellMs'],
+    head_pointer: ['keyTimeMs'],
+    other: ['keyTimeMs', 'scanIntervalMs', 'dwellMs'],
+  };
+
+/** What each timing field is called on forms. */
+export const accessTimingLabels: Record<AccessTimingField, string> = {
+  scanIntervalMs: 'Scan interval (ms)',
+  dwellMs: 'Dwell time (ms)',
+  keyTimeMs: 'Time per key (ms)',
+};
+
 // Starting values when the clinician has not measured the client's own timing yet
 // (common practice, no source: scan 0.5–2 s per step, gaze dwell 0.45–1 s; see REFERENCES §7).
 export const defaultAccessTiming = { scanIntervalMs: 1000, dwellMs: 800, keyTimeMs: 1500 } as const;

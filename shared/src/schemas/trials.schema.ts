@@ -46,12 +46,24 @@ export type TrialSettings = z.infer<typeof trialSettingsSchema>;
  * - `offer`: the suggestion row changed; `words` is what it showed (possibly empty).
  * Letters, punctuation, space, backspace and suggestions are the trial's keystrokes (selections).
  */
-export const trialEventTypes = ['letter', 'punctuation', 'space', 'backspace', 'suggestion', 'switch', 'offer'] as const;
+export const trialEventTypes = [
+  'letter',
+  'punctuation',
+  'space',
+  'backspace',
+  'suggestion',
+  'switch',
+  'offer',
+] as const;
 export const trialEventTypeSchema = z.enum(trialEventTypes);
 export type TrialEventType = z.infer<typeof trialEventTypeSchema>;
 
 export const trialEventSchema = z.object({
-  t: z.number().int().min(0).max(24 * 60 * 60 * 1000),
+  t: z
+    .number()
+    .int()
+    .min(0)
+    .max(24 * 60 * 60 * 1000),
   type: trialEventTypeSchema,
   value: z.string().max(64).optional(),
   slot: z.number().int().min(0).max(9).optional(),
@@ -128,7 +140,11 @@ export const trialSchema = z.object({
   note: z.string(),
   measures: trialMeasuresSchema,
   /** The version's simulated figures at the trial's slot count, for comparison (null when the report lacks them). */
-  simulated: z.object({ keystrokeSavings: z.number().nullable(), wpm: z.number().nullable(), slots: z.number().int() }),
+  simulated: z.object({
+    keystrokeSavings: z.number().nullable(),
+    wpm: z.number().nullable(),
+    slots: z.number().int(),
+  }),
   createdAt: z.string(),
 });
 export type Trial = z.infer<typeof trialSchema>;

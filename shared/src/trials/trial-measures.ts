@@ -49,7 +49,10 @@ export function msdErrorRate(target: string, text: string): number {
  * @param events the log, in order (`t` non-decreasing)
  * @param targetPhrase the phrase the person was asked to type, or null
  */
-export function computeTrialMeasures(events: readonly TrialEvent[], targetPhrase: string | null): TrialMeasures {
+export function computeTrialMeasures(
+  events: readonly TrialEvent[],
+  targetPhrase: string | null,
+): TrialMeasures {
   let text = '';
   let keystrokes = 0;
   let switchActivations = 0;
@@ -90,6 +93,7 @@ export function computeTrialMeasures(events: readonly TrialEvent[], targetPhrase
     keystrokeSavings: characters > 0 ? round6(1 - keystrokes / characters) : null,
     kspc: characters > 0 ? round6(keystrokes / characters) : null,
     wpm: characters >= 2 && seconds > 0 ? round6(((characters - 1) / seconds) * (60 / 5)) : null,
-    errorRate: targetPhrase === null || targetPhrase.trim() === '' ? null : round6(msdErrorRate(targetPhrase, text)),
+    errorRate:
+      targetPhrase === null || targetPhrase.trim() === '' ? null : round6(msdErrorRate(targetPhrase, text)),
   };
 }

@@ -2,7 +2,13 @@ import { describe, expect, it } from 'vitest';
 import { createTrialSchema, type TrialEvent } from '../schemas/trials.schema';
 import { builtInPracticePhrases } from './practice-phrases';
 import { computeTrialMeasures, minimumStringDistance, msdErrorRate } from './trial-measures';
-import { applyTrialEvent, partialWord, replayTrial, suggestionContext, TrialReplayError } from './trial-replay';
+import {
+  applyTrialEvent,
+  partialWord,
+  replayTrial,
+  suggestionContext,
+  TrialReplayError,
+} from './trial-replay';
 
 /** Letter-by-letter events for `text`, evenly spread from 0 to `ms`. */
 function typed(text: string, ms: number): TrialEvent[] {
@@ -29,14 +35,20 @@ describe('trial replay', () => {
   });
 
   it('a suggestion replaces the word being typed and adds a space', () => {
-    expect(applyTrialEvent('i want te', { t: 0, type: 'suggestion', value: 'tea', slot: 0 })).toBe('i want tea ');
-    expect(applyTrialEvent('i want ', { t: 0, type: 'suggestion', value: 'tea', slot: 1 })).toBe('i want tea ');
-    expect(applyTrialEvent('come sailing?', { t: 0, type: 'suggestion', value: 'I', slot: 0 })).toBe('come sailing? I ');
+    expect(applyTrialEvent('i want te', { t: 0, type: 'suggestion', value: 'tea', slot: 0 })).toBe(
+      'i want tea ',
+    );
+    expect(applyTrialEvent('i want ', { t: 0, type: 'suggestion', value: 'tea', slot: 1 })).toBe(
+      'i want tea ',
+    );
+    expect(applyTrialEvent('come sailing?', { t: 0, type: 'suggestion', value: 'I', slot: 0 })).toBe(
+      'come sailing? I ',
+    );
     expect(partialWord("i don'")).toBe("don'");
     expect(partialWord('end. ')).toBe('');
   });
 
-  it('sentence punctuation after a word and a space takes the space\'s place', () => {
+  it("sentence punctuation after a word and a space takes the space's place", () => {
     expect(applyTrialEvent('tea ', { t: 0, type: 'punctuation', value: '?' })).toBe('tea? ');
     expect(applyTrialEvent('tea', { t: 0, type: 'punctuation', value: ',' })).toBe('tea,');
     expect(applyTrialEvent('tea ', { t: 0, type: 'punctuation', value: "'" })).toBe("tea '");
@@ -52,7 +64,9 @@ describe('trial replay', () => {
 
   it('names the step that cannot be replayed', () => {
     expect(() => replayTrial([...typed('ab', 10), { t: 20, type: 'letter', value: 'xy' }])).toThrow(
-      new TrialReplayError('Step 3 of the trial log: A letter step must insert exactly one character, not "xy".'),
+      new TrialReplayError(
+        'Step 3 of the trial log: A letter step must insert exactly one character, not "xy".',
+      ),
     );
     expect(() => replayTrial([{ t: 0, type: 'suggestion' }])).toThrow(TrialReplayError);
   });
@@ -111,7 +125,11 @@ describe('trial measures', () => {
   });
 
   it('corrections cost keystrokes and can make savings negative', () => {
-    const events: TrialEvent[] = [...typed('ax', 300), { t: 400, type: 'backspace' }, { t: 500, type: 'letter', value: 'b' }];
+    const events: TrialEvent[] = [
+      ...typed('ax', 300),
+      { t: 400, type: 'backspace' },
+      { t: 500, type: 'letter', value: 'b' },
+    ];
     const m = computeTrialMeasures(events, 'ab');
     expect(m.characters).toBe(2);
     expect(m.keystrokes).toBe(4);

@@ -4,4 +4,5 @@
 export const trialsQueryKey = (versionId: string) => ['profile-versions', versionId, 'trials'] as const;
 
 /** A client's practice phrases (GET /api/clients/:id/practice-phrases). */
-export const practicePhrasesQueryKey = (clientId: string) => ['clients', clientId, 'practice-phrases'] as const;
+export const practicePhrasesQueryKey = (clientId: string) =>
+  ['clients', clientId, 'practice-phrases'] as const;

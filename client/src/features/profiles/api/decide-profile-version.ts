@@ -1,4 +1,10 @@
-import type { ApproveInput, ProfileVersion, ReportProblemInput, SendBackInput, SignOffInput } from '@keyloom/shared';
+import type {
+  ApproveInput,
+  ProfileVersion,
+  ReportProblemInput,
+  SendBackInput,
+  SignOffInput,
+} from '@keyloom/shared';
 import { profileVersionSchema } from '@keyloom/shared';
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { apiRequest } from '@/lib/api-client';

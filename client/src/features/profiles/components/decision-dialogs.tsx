@@ -74,7 +74,13 @@ const decisions = {
 } as const satisfies Record<Decision, { field: string; text: z.ZodType<string>; [key: string]: unknown }>;
 
 /** One decision on a version: a required comment or reason, then the POST; server errors shown in the form. */
-const DecisionDialog = <D extends Decision>({ decision, open, version, onClose, onDone }: DialogProps & { decision: D }) => {
+const DecisionDialog = <D extends Decision>({
+  decision,
+  open,
+  version,
+  onClose,
+  onDone,
+}: DialogProps & { decision: D }) => {
   const decide = useDecideProfileVersion(decision);
   const words = decisions[decision];
   const schema = z.object({ text: words.text });
@@ -116,7 +122,9 @@ const DecisionDialog = <D extends Decision>({ decision, open, version, onClose, 
 export const SignOffDialog = (props: DialogProps) => <DecisionDialog decision="sign-off" {...props} />;
 
 /** The carer says what went wrong in the trials instead of signing off; the version goes back. */
-export const ReportProblemDialog = (props: DialogProps) => <DecisionDialog decision="report-problem" {...props} />;
+export const ReportProblemDialog = (props: DialogProps) => (
+  <DecisionDialog decision="report-problem" {...props} />
+);
 
 /** The supervisor's approval, with a comment for the record. */
 export const ApproveDialog = (props: DialogProps) => <DecisionDialog decision="approve" {...props} />;

@@ -1,4 +1,6 @@
 import {
+  accessTimingFields,
+  accessTimingLabels,
   type AccessMethod,
   accessMethodLabels,
   createProfileVersionSchema,
@@ -28,20 +30,6 @@ export type AccessDefaults = {
   dwellMs: number | null;
   keyTimeMs: number | null;
 };
-
-// Which timing each access method uses for the speed estimate (the others are not shown).
-const timingFields: Record<AccessMethod, readonly ('scanIntervalMs' | 'dwellMs' | 'keyTimeMs')[]> = {
-  direct: ['keyTimeMs'],
-  switch: ['scanIntervalMs'],
-  eye_gaze: ['dwellMs'],
-  head_pointer: ['keyTimeMs'],
-  other: ['scanIntervalMs', 'dwellMs', 'keyTimeMs'],
-};
-const timingLabels = {
-  scanIntervalMs: 'Scan interval (ms)',
-  dwellMs: 'Dwell time (ms)',
-  keyTimeMs: 'Time per key (ms)',
-} as const;
 
 // Empty number boxes become undefined (the schema's default, or "not set"), never 0.
 const optionalNumber = (value: unknown) => (value === '' || value === null ? undefined : value);
@@ -127,7 +115,7 @@ export const NewVersionForm = ({ clientId, samples, access, onCancel, onStarted 
         const chosen = input.settings.access;
         const access = chosen && {
           method: chosen.method,
-          ...Object.fromEntries(timingFields[chosen.method].map((field) => [field, chosen[field]])),
+          ...Object.fromEntries(accessTimingFields[chosen.method].map((field) => [field, chosen[field]])),
         };
         const version = await create.mutateAsync({
           clientId,
@@ -259,10 +247,10 @@ export const NewVersionForm = ({ clientId, samples, access, onCancel, onStarted 
                 registration={register('settings.access.method')}
                 error={errors.settings?.access?.method}
               />
-              {timingFields[method].map((field) => (
+              {accessTimingFields[method].map((field) => (
                 <TextField
                   key={field}
-                  label={timingLabels[field]}
+                  label={accessTimingLabels[field]}
                   type="number"
                   inputMode="numeric"
                   registration={register(`settings.access.${field}`, { setValueAs: optionalNumber })}
