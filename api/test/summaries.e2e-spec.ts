@@ -536,6 +536,11 @@ describe('summary e-mail delivery (mail job)', () => {
       await trial('2026-11-12T10:00:00Z', { keystrokeSavings: 0.35, wpm: 2.2 });
       await trial('2026-11-13T10:00:00Z', { keystrokeSavings: null, wpm: null }); // too short to measure
       await trial('2026-12-05T10:00:00Z', { keystrokeSavings: 0.9, wpm: 9 }); // after the period
+      // The carer's sign-off comment is quoted after the trials (the user named by the cast's label).
+      await t.dataSource.query(
+        `UPDATE profile_versions SET signed_off_by = $2, sign_off_comment = $3 WHERE id = $1`,
+        [versionId, cast.assignedCarer.id, 'He liked the sailing words.'],
+      );
       const period = { from: '2026-10-01', to: '2026-11-30', note: '' };
       const preview = (
         await send(
@@ -548,7 +553,8 @@ describe('summary e-mail delivery (mail job)', () => {
       ).body as SummaryPreview;
       // Means over the measured trials in the period: (0.25 + 0.35) / 2 = 0.30, (1.8 + 2.2) / 2 = 2.0 (derived).
       expect(preview.text).toContain(
-        'In 3 tries on the test keyboard, about 3 in 10 key presses were saved, at roughly 2 words a minute.',
+        'In 3 tries on the test keyboard, about 3 in 10 key presses were saved, at roughly 2 words a minute. ' +
+          'assigned carer tried it and wrote: “He liked the sailing words.”',
       );
       const contact = (
         await send(t.http, cast.owner, 'post', `/api/clients/${httpClientId}/contacts`, {

@@ -159,6 +159,8 @@ export class SummariesService {
         v.metrics,
       ),
       trials: trials.get(v.id) ?? null,
+      carerComment:
+        v.signOffComment && v.signedOffBy ? { by: v.signedOffBy.name, text: v.signOffComment } : null,
     }));
     const period = { clientName, from: input.from, to: input.to };
     return {
@@ -172,8 +174,7 @@ export class SummariesService {
   /**
    * Per version, the trials finished in the period: their number and the means of the measured
    * keystroke savings and words a minute (`trials.measures`, jsonb; a null measure is left out of
-   * its mean). Read with SQL: the trials table belongs to the test keyboard's module, and a
-   * database without it yet (older migration state) gives no trial figures rather than an error.
+   * its mean). Read with SQL: the trials table belongs to the test keyboard's module.
    */
   private async trialFigures(
     manager: EntityManager,
@@ -182,10 +183,6 @@ export class SummariesService {
   ): Promise<Map<string, TrialFigures>> {
     const figures = new Map<string, TrialFigures>();
     if (versionIds.length === 0) return figures;
-    const [table] = await manager.query<{ present: boolean }[]>(
-      `SELECT to_regclass('trials') IS NOT NULL AS present`,
-    );
-    if (!table?.present) return figures;
     const rows = await manager.query<
       { version_id: string; count: number; keystroke_savings: number | null; wpm: number | null }[]
     >(
@@ -321,6 +318,7 @@ export class SummariesService {
     if (input.versionIds.length > 0) {
       const chosen = await repo.find({
         where: { id: In(input.versionIds), clientId, status: In([...REPORTABLE]) },
+        relations: { signedOffBy: true },
         order: { number: 'ASC' },
       });
       if (chosen.length !== new Set(input.versionIds).size) {
@@ -330,6 +328,7 @@ export class SummariesService {
     }
     return repo
       .createQueryBuilder('v')
+      .leftJoinAndSelect('v.signedOffBy', 'signer')
       .where('v.clientId = :clientId', { clientId })
       .andWhere('v.status IN (:...statuses)', { statuses: [...REPORTABLE] })
       .andWhere(

@@ -154,5 +154,15 @@ describe('trialsSentence', () => {
       'Version 1 (trained 2026-11-02): about 4 in 10 key presses saved. ' +
         'In 2 tries on the test keyboard, about 3 in 10 key presses were saved.',
     );
+    expect(
+      versionLine({
+        ...base,
+        status: 'signed_off',
+        carerComment: { by: 'Hannah Ashby', text: ' He liked the sailing words. ' },
+      }),
+    ).toBe(
+      'Version 1 (signed off 2026-11-02): about 4 in 10 key presses saved. ' +
+        'Hannah Ashby tried it and wrote: “He liked the sailing words.”',
+    );
   });
 });

@@ -17,6 +17,8 @@ export type VersionFigures = {
   wpmWith: number | null;
   /** The carer's tries on the test keyboard with this version in the period; absent or null: none. */
   trials?: TrialFigures | null;
+  /** The carer's comment when signing the version off after trying it; absent or null: none. */
+  carerComment?: { by: string; text: string } | null;
 };
 
 /** Means of the measured figures over a version's trials (from `trials.measures`). */
@@ -109,7 +111,10 @@ export function versionLine(v: VersionFigures): string {
   if (v.wpmWithout !== null) parts.push(`${ratePhrase(v.wpmWithout)} without`);
   const line = `Version ${v.number}${when}: ${parts.length > 0 ? parts.join(', ') : 'no figures yet'}.`;
   const tried = trialsSentence(v.trials);
-  return tried ? `${line} ${tried}` : line;
+  const said = v.carerComment
+    ? `${v.carerComment.by} tried it and wrote: “${v.carerComment.text.trim()}”`
+    : '';
+  return [line, tried, said].filter((part) => part !== '').join(' ');
 }
 
 export type SummaryTextInput = {
