@@ -1,6 +1,54 @@
 import { z } from 'zod';
 import { pageQuerySchema } from './common';
 
+// Every action the audit log records, in plain words for the audit page. The API's AuditAction type is
+// the keys of this object, so a new action cannot be recorded without its words.
+export const auditActionLabels = {
+  'auth.sign-in': 'Signed in',
+  'auth.sign-out': 'Signed out',
+  'auth.sign-in-failed': 'Sign-in refused',
+  'user.create': 'Added a staff account',
+  'user.update': 'Changed a staff account',
+  'client.create': 'Opened a client record',
+  'client.update': 'Changed a client record',
+  'assignment.create': 'Assigned a carer',
+  'assignment.delete': 'Removed a carer',
+  'consent.create': 'Recorded consent',
+  'consent.withdraw': 'Recorded a consent withdrawal',
+  'consent.document-upload': 'Attached a scanned consent form',
+  'contact.create': 'Added a family contact',
+  'contact.update': 'Changed a family contact',
+  'sample.upload': 'Uploaded a language sample',
+  'sample.paste': 'Stored pasted text',
+  'sample.duplicate-refused': 'Refused a duplicate upload',
+  'sample.flag-redact': 'Redacted personal data',
+  'sample.flag-keep': 'Kept flagged text',
+  'sample.exclude': 'Left a sample out',
+  'sample.delete': 'Deleted a sample (consent withdrawn)',
+  'profile.create': 'Configured a profile version',
+  'profile.train': 'Started training a version',
+  'profile.cancel': 'Cancelled training',
+  'profile.trained': 'A version finished training',
+  'profile.failed': 'Training failed',
+  'profile.sign-off': 'Signed a version off',
+  'profile.report-problem': 'Reported a problem with a version',
+  'profile.approve': 'Approved a version',
+  'profile.send-back': 'Sent a version back',
+  'profile.retire': 'Retired a version',
+  'profile.export': 'Exported a profile file',
+  'profile.model-download': 'Opened a version on the test keyboard',
+  'profile.delete': 'Deleted a version (consent withdrawn)',
+  'trial.create': 'Logged a trial on the test keyboard',
+  'practice-phrase.create': 'Added a practice phrase',
+  'practice-phrase.delete': 'Removed a practice phrase',
+  'summary.create': 'Queued a progress summary',
+  'summary.resend': 'Sent a progress summary again',
+  'summary.sent': 'A summary e-mail was delivered',
+  'summary.failed': 'A summary e-mail failed',
+  'summary.stop': 'A family member stopped summaries',
+} as const;
+export type AuditAction = keyof typeof auditActionLabels;
+
 // GET /api/audit (supervisor, admin): filters and one page of events, newest first.
 export const auditQuerySchema = pageQuerySchema.extend({
   clientId: z.uuid().optional(),

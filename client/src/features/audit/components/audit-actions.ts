@@ -1,30 +1,8 @@
-// Each recorded action in plain words (the names are the API's, issue 4 contract and foundation).
-export const auditActionLabels: Record<string, string> = {
-  'auth.sign-in': 'Signed in',
-  'auth.sign-out': 'Signed out',
-  'auth.sign-in-failed': 'Sign-in refused',
-  'user.create': 'Added a staff account',
-  'user.update': 'Changed a staff account',
-  'client.create': 'Opened a client record',
-  'client.update': 'Changed a client record',
-  'assignment.create': 'Assigned a carer',
-  'assignment.delete': 'Removed a carer',
-  'consent.create': 'Recorded consent',
-  'consent.withdraw': 'Recorded a consent withdrawal',
-  'consent.document-upload': 'Attached a scanned consent form',
-  'contact.create': 'Added a family contact',
-  'contact.update': 'Changed a family contact',
-  'sample.upload': 'Uploaded a language sample',
-  'sample.paste': 'Stored pasted text',
-  'sample.duplicate-refused': 'Refused a duplicate upload',
-  'sample.flag-redact': 'Redacted personal data',
-  'sample.flag-keep': 'Kept flagged text',
-  'sample.exclude': 'Left a sample out',
-  'sample.delete': 'Deleted a sample (consent withdrawn)',
-};
+import { auditActionLabels } from '@keyloom/shared';
 
 /** Plain words for an action; unknown actions show their name. */
-export const describeAction = (action: string): string => auditActionLabels[action] ?? action;
+export const describeAction = (action: string): string =>
+  (auditActionLabels as Record<string, string>)[action] ?? action;
 
 // The filter's choices: groups (prefixes ending in ".") first, then each known action.
 export const auditActionOptions = [
@@ -35,6 +13,10 @@ export const auditActionOptions = [
   { value: 'consent.', label: 'All consent events' },
   { value: 'contact.', label: 'All family contact changes' },
   { value: 'sample.', label: 'All language sample events' },
+  { value: 'profile.', label: 'All profile version events' },
+  { value: 'trial.', label: 'All test keyboard trials' },
+  { value: 'practice-phrase.', label: 'All practice phrase changes' },
+  { value: 'summary.', label: 'All progress summary events' },
   ...Object.entries(auditActionLabels).map(([value, label]) => ({ value, label })),
 ];
 
