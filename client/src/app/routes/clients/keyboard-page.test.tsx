@@ -11,6 +11,7 @@ import { renderApp } from '@/testing/render-app';
 // the listed words that start with the word being typed, in list order.
 const WORDS = ['the', 'tea', 'garden', 'go', 'good', 'pepper', 'harbour'];
 const requests: { text: string; seq: number }[] = [];
+let resets = 0;
 
 vi.mock('@/features/keyboard/engine/use-keyboard-engine', async () => {
   const React = await import('react');
@@ -54,6 +55,9 @@ vi.mock('@/features/keyboard/engine/use-keyboard-engine', async () => {
         caseFold: false,
         suggestions,
         request,
+        resetLearning: () => {
+          resets++;
+        },
       };
     },
   };
@@ -173,7 +177,10 @@ describe('Test keyboard page', () => {
     const { user, api } = await openKeyboard('carer');
     await user.selectOptions(screen.getByLabelText('Practice phrase'), 'kl-11');
     expect(screen.getByText('the soup is too hot', { selector: '[data-target-phrase]' })).toBeInTheDocument();
+    const resetsBefore = resets;
     await user.click(screen.getByRole('button', { name: 'Start trial' }));
+    // Each trial starts from the version as trained.
+    expect(resets).toBe(resetsBefore + 1);
     await user.click(key('t'));
     await user.click(key('e'));
     await user.click(await screen.findByRole('button', { name: 'Suggestion 1: tea' }));

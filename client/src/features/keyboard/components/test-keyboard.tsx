@@ -218,6 +218,8 @@ export const TestKeyboard = ({
 
   const startTrial = () => {
     setFinished(null);
+    // Every trial starts from the version as trained; it then learns the words typed in it.
+    engine.resetLearning();
     session.start();
     if (settings.method === 'scanning') startScanning();
   };
@@ -273,6 +275,10 @@ export const TestKeyboard = ({
         <h2 id="keyboard-trial-heading" className="text-2xl font-bold">
           Trial
         </h2>
+        <p className="text-ink-soft">
+          Each trial starts from the version as trained and learns every word finished in it, as the client’s
+          device does and as the version’s simulated figures assume.
+        </p>
         <div className="grid gap-4 md:grid-cols-2">
           <PhrasePicker
             phrases={phrases}

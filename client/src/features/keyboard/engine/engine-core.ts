@@ -6,6 +6,8 @@ import {
   deserializeModel,
   nextLetterProbabilities,
   type NextSymbolModel,
+  partialWord,
+  type PpmModel,
   prepareText,
   type ProfileFileHeader,
   readProfileFile,
@@ -15,6 +17,7 @@ import {
 
 /** A loaded profile version, ready to answer. */
 export type LoadedEngine = {
+  /** The model answering: the personal model (learning when adaptive) blended with the frozen base. */
   model: NextSymbolModel;
   header: ProfileFileHeader;
   /** Suggestion slots from the header's settings (1..10; 5 when the header does not say). */
@@ -27,6 +30,12 @@ export type LoadedEngine = {
   contexts: number;
   /** Answers by text and slots, most recent last (a small cache: typing back and forth repeats texts). */
   cache: Map<string, EngineAnswer>;
+  /** The personal model's bytes as trained, to start again from them (resetEngineLearning). */
+  personalBytes: Uint8Array;
+  /** The frozen base model and its weight, or null without a base. */
+  base: { model: PpmModel; weight: number } | null;
+  /** The text whose finished words the personal model has learned since loading or the last reset. */
+  learnedText: string;
 };
 
 /** Words for the suggestion row and next-letter probabilities for tinting keys. */
@@ -54,13 +63,13 @@ function slotsOf(settings: Record<string, unknown>): number {
 /**
  * Loads a profile version as the profile pipeline uses it: the personal model blended with the
  * frozen base model at the header's λ (`new BlendedModel(personal, base, blendWeight)`), or the
- * personal model alone when the profile has no base model. Neither model learns while the
- * keyboard is used, so the same text always gets the same suggestions.
+ * personal model alone when the profile has no base model. The base never learns; the personal
+ * model learns only through engineLearn (the worker calls it when asked to adapt).
  * @param profile the uncompressed `.klprofile` bytes
- * @param base the uncompressed base model bytes (serializeModel layout), or null
+ * @param baseBytes the uncompressed base model bytes (serializeModel layout), or null
  * @throws EngineLoadError with a readable message when a file is damaged or the base is missing
  */
-export function loadEngine(profile: Uint8Array, base: Uint8Array | null): LoadedEngine {
+export function loadEngine(profile: Uint8Array, baseBytes: Uint8Array | null): LoadedEngine {
   let file;
   try {
     file = readProfileFile(profile);
@@ -70,16 +79,19 @@ export function loadEngine(profile: Uint8Array, base: Uint8Array | null): Loaded
   const { header } = file;
   let personal;
   try {
-    personal = deserializeModel(file.model).freeze();
+    personal = deserializeModel(file.model);
   } catch (error) {
     throw new EngineLoadError(`The model inside the profile file cannot be read: ${messageOf(error)}`);
   }
-  let model: NextSymbolModel = personal;
+  // The personal model learns what is typed (engineLearn); the base never does.
+  personal.adaptive = true;
+  let base: LoadedEngine['base'] = null;
   if (header.baseModelSha256) {
-    if (!base) throw new EngineLoadError('This version was trained with a base model, but none was loaded.');
+    if (!baseBytes)
+      throw new EngineLoadError('This version was trained with a base model, but none was loaded.');
     let baseModel;
     try {
-      baseModel = deserializeModel(base).freeze();
+      baseModel = deserializeModel(baseBytes).freeze();
     } catch (error) {
       throw new EngineLoadError(`The base model cannot be read: ${messageOf(error)}`);
     }
@@ -87,8 +99,9 @@ export function loadEngine(profile: Uint8Array, base: Uint8Array | null): Loaded
     if (!(typeof weight === 'number' && weight >= 0 && weight <= 1)) {
       throw new EngineLoadError(`The profile file's blend weight must be 0..1, not ${String(weight)}.`);
     }
-    model = new BlendedModel(personal, baseModel, weight);
+    base = { model: baseModel, weight };
   }
+  const model = blendWith(personal, base);
   const settings = typeof header.settings === 'object' && header.settings !== null ? header.settings : {};
   return {
     model,
@@ -98,7 +111,43 @@ export function loadEngine(profile: Uint8Array, base: Uint8Array | null): Loaded
     order: model.order,
     contexts: personal.contextCount,
     cache: new Map(),
+    personalBytes: file.model,
+    base,
+    learnedText: '',
   };
+}
+
+/** The personal model blended with the base at its weight, or alone without a base. */
+function blendWith(personal: PpmModel, base: LoadedEngine['base']): NextSymbolModel {
+  return base ? new BlendedModel(personal, base.model, base.weight) : personal;
+}
+
+/**
+ * Lets the personal model learn the words finished in `text` since it last learned, as the
+ * client's device does and as the profile's keystroke simulation does (adaptive, a word's letters
+ * learned once the word is finished, with the boundary after it). Only what is new is learned: text
+ * deleted after it was learned stays learned (counts are never taken back), and the learning
+ * goes on from where the two texts agree. Clears the answer cache when anything was learned.
+ */
+export function engineLearn(engine: LoadedEngine, text: string): void {
+  const finished = text.slice(0, text.length - partialWord(text).length);
+  let agree = 0;
+  const known = engine.learnedText;
+  while (agree < known.length && agree < finished.length && known[agree] === finished[agree]) agree++;
+  const from = historyOf(engine, finished.slice(0, agree)).length;
+  const history = historyOf(engine, finished);
+  for (let at = from; at < history.length; at++) engine.model.learn(history, at);
+  if (history.length > from) engine.cache.clear();
+  engine.learnedText = finished;
+}
+
+/** Starts again from the version as trained: what was learned since loading is forgotten. */
+export function resetEngineLearning(engine: LoadedEngine): void {
+  const personal = deserializeModel(engine.personalBytes);
+  personal.adaptive = true;
+  engine.model = blendWith(personal, engine.base);
+  engine.cache.clear();
+  engine.learnedText = '';
 }
 
 /**

@@ -106,6 +106,47 @@ describe('engine in the worker, on Brown models', () => {
     expect(mid?.type === 'suggestions' && mid.words.every((w) => w.startsWith('nig'))).toBe(true);
   });
 
+  it('with adaptive loading, learns each finished word as the simulation does, and a reset forgets', () => {
+    const h = harness();
+    h.send({
+      type: 'load',
+      profile: buffer(built.profileBytes),
+      base: buffer(built.baseBytes ?? new Uint8Array()),
+      adaptive: true,
+    });
+    let seq = 0;
+    const ask = (text: string): string[] => {
+      h.send({ type: 'suggest', seq: ++seq, text, slots: 4 });
+      h.flush();
+      const reply = h.replies.at(-1);
+      if (reply?.type !== 'suggestions') throw new Error(`no suggestions for "${text}"`);
+      return reply.words;
+    };
+    // An invented word neither Brown model has seen.
+    expect(ask('zorb')).not.toContain('zorbly');
+    ask('zorbly'); // typed but not finished (no boundary after it): nothing is learned
+    expect(ask('zorb')).not.toContain('zorbly');
+    const typed = 'zorbly and zorbly and zorbly ';
+    const learnedWords = ask(typed);
+    expect(ask(`${typed}zorb`)).toContain('zorbly');
+
+    // The reference: the adaptive model of the keystroke simulation (personal learning, base
+    // frozen) learning the same finished text character by character, as the profile pipeline's
+    // adaptive runs do.
+    const personal = built.personal.clone();
+    personal.adaptive = true;
+    const reference = new BlendedModel(personal, built.base ?? built.personal, weight);
+    const history = prepareText(typed);
+    for (let at = 0; at < history.length; at++) reference.learn(history, at);
+    expect(learnedWords).toEqual(suggest(reference, history, history.length, 4).map((s) => s.word));
+    const next = prepareText(`${typed}zorb`);
+    expect(ask(`${typed}zorb`)).toEqual(suggest(reference, next, next.length, 4).map((s) => s.word));
+
+    // A new trial starts from the version as trained.
+    h.send({ type: 'reset' });
+    expect(ask('zorb')).not.toContain('zorbly');
+  });
+
   it('answers only the newest of several queued requests', () => {
     const h = harness();
     h.send({

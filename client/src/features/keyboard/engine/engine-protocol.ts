@@ -1,11 +1,24 @@
 // The messages between the page and the engine worker, and the worker's whole behaviour as a
 // pure function of (state, message) → posted answers, so it is tested without a worker.
-import { type EngineAnswer, engineSuggest, type LoadedEngine, loadEngine, warmUpEngine } from './engine-core';
+import {
+  type EngineAnswer,
+  engineLearn,
+  engineSuggest,
+  type LoadedEngine,
+  loadEngine,
+  resetEngineLearning,
+  warmUpEngine,
+} from './engine-core';
 
-/** Page → worker. `suggest.seq` grows with every request; only the newest queued one is answered. */
+/**
+ * Page → worker. `suggest.seq` grows with every request; only the newest queued one is answered.
+ * With `load.adaptive`, the personal model learns each finished word of the texts it is asked
+ * about (engineLearn) before answering; `reset` forgets what it learned (a new trial).
+ */
 export type EngineRequest =
-  | { type: 'load'; profile: ArrayBuffer; base: ArrayBuffer | null }
-  | { type: 'suggest'; seq: number; text: string; slots: number };
+  | { type: 'load'; profile: ArrayBuffer; base: ArrayBuffer | null; adaptive?: boolean }
+  | { type: 'suggest'; seq: number; text: string; slots: number }
+  | { type: 'reset' };
 
 /** Worker → page. */
 export type EngineReply =
@@ -16,6 +29,8 @@ export type EngineReply =
 /** What the worker keeps between messages. */
 export type EngineState = {
   engine: LoadedEngine | null;
+  /** Whether the loaded engine learns what is typed (load.adaptive). */
+  adaptive: boolean;
   /** The newest suggest request not answered yet (older queued ones are dropped). */
   pending: Extract<EngineRequest, { type: 'suggest' }> | null;
   scheduled: boolean;
@@ -34,7 +49,7 @@ export function createEngineState(
   schedule: (run: () => void) => void = (run) => setTimeout(run, 0),
   now: () => number = () => performance.now(),
 ): EngineState {
-  return { engine: null, pending: null, scheduled: false, schedule, now };
+  return { engine: null, adaptive: false, pending: null, scheduled: false, schedule, now };
 }
 
 const messageOf = (error: unknown): string => (error instanceof Error ? error.message : String(error));
@@ -53,6 +68,7 @@ function answer(
   const started = state.now();
   try {
     const slots = Math.min(10, Math.max(1, Math.round(request.slots)));
+    if (state.adaptive) engineLearn(engine, request.text);
     const { words, letters } = engineSuggest(engine, request.text, slots);
     post({
       type: 'suggestions',
@@ -90,6 +106,7 @@ export function handleEngineMessage(
       );
       warmUpEngine(engine);
       state.engine = engine;
+      state.adaptive = message.adaptive === true;
       post({
         type: 'loaded',
         slots: engine.slots,
@@ -101,6 +118,10 @@ export function handleEngineMessage(
     } catch (error) {
       post({ type: 'error', message: messageOf(error) });
     }
+    return;
+  }
+  if (message.type === 'reset') {
+    if (state.engine) resetEngineLearning(state.engine);
     return;
   }
   if (message.type === 'suggest') {

@@ -45,6 +45,12 @@ export type KeyboardEngine = {
    * @param slots list length 1..10 (default: the version's)
    */
   request: (text: string, seq: number, slots?: number) => void;
+  /**
+   * Starts again from the version as trained. The personal model learns each word finished on the
+   * keyboard (as on the client's device and in the version's simulation); a new trial calls this
+   * so every trial starts from the same model.
+   */
+  resetLearning: () => void;
 };
 
 type Download = {
@@ -60,7 +66,7 @@ const messageOf = (error: unknown): string => (error instanceof Error ? error.me
 // A copy that owns its buffer (the downloaded bytes stay cached for the next load).
 const ownBuffer = (bytes: Uint8Array): ArrayBuffer => bytes.slice().buffer;
 
-type EngineView = Omit<KeyboardEngine, 'request'> & { versionId: string | null };
+type EngineView = Omit<KeyboardEngine, 'request' | 'resetLearning'> & { versionId: string | null };
 
 const initialView = (versionId: string | null): EngineView => ({
   versionId,
@@ -174,7 +180,7 @@ export function useKeyboardEngine(versionId: string | null): KeyboardEngine {
         const profile = ownBuffer(version.bytes);
         const baseBuffer = base ? ownBuffer(base.bytes) : null;
         worker.postMessage(
-          { type: 'load', profile, base: baseBuffer },
+          { type: 'load', profile, base: baseBuffer, adaptive: true },
           baseBuffer ? [profile, baseBuffer] : [profile],
         );
       })
@@ -198,6 +204,11 @@ export function useKeyboardEngine(versionId: string | null): KeyboardEngine {
     [sendQueued],
   );
 
+  const resetLearning = useCallback(() => {
+    // Messages reach the worker in order: requests sent after this are answered by the fresh model.
+    workerRef.current?.postMessage({ type: 'reset' } satisfies EngineRequest, []);
+  }, []);
+
   const { status, error, info, slots, caseFold, suggestions } = view;
-  return { status, error, info, slots, caseFold, suggestions, request };
+  return { status, error, info, slots, caseFold, suggestions, request, resetLearning };
 }
