@@ -110,6 +110,9 @@ export const keyboardSuite = {
         await page.getByText(/^No trials of version 1 yet\./).waitFor();
         assert.deepEqual(await t.seriousViolations(page, 'try-outs tab'), []);
         await t.screenshot(page, 'keyboard-tryouts-tab');
+        await page.setViewportSize({ width: 640, height: 800 });
+        await assertNoSidewaysScroll(page, 'try-outs tab at 200%');
+        await page.setViewportSize({ width: 1280, height: 860 });
 
         await page.goto(`${t.appUrl}/clients/${clientId}/profiles/${versionId}`, {
           waitUntil: 'networkidle',

@@ -6,6 +6,7 @@
 // Axe scan (no serious or critical violations) on the way; screenshots in e2e/out.
 import assert from 'node:assert/strict';
 import { openClientTabAsClinician, signIn } from './accounts.mjs';
+import { assertNoSidewaysScroll } from './page-checks.mjs';
 
 // The seeded demo client and its family contacts (api/src/db/seeds/demo-client.seed.ts): Hannah
 // agreed to summaries, Marguerite did not. Version 1 is seeded trained (demo-version.seed.ts).
@@ -85,6 +86,11 @@ export const summariesSuite = {
         }
         assert.deepEqual(await t.seriousViolations(page, 'summary preview'), []);
         await t.screenshot(page, 'summary-preview');
+        // 640 px wide (1280 px at 200 % zoom): the composer and preview reflow without sideways scrolling.
+        await page.setViewportSize({ width: 640, height: 800 });
+        await assertNoSidewaysScroll(page, 'summary preview at 200%');
+        await t.screenshot(page, 'summary-preview-640');
+        await page.setViewportSize({ width: 1280, height: 860 });
         const subject = await preview.locator('dd').first().textContent();
 
         const sendButton = preview.getByRole('button', { name: 'Send to 1 recipient' });

@@ -1,6 +1,7 @@
 // Plain-language wording of a progress summary, from the metrics stored with each profile version.
 // Pure functions: the e-mail, the preview and the tests all use the same wording, so the figures in
 // the text always come from the stored metrics.
+import { reportFigures } from '@keyloom/shared';
 
 /** The figures of one version that a summary talks about. */
 export type VersionFigures = {
@@ -31,29 +32,16 @@ export type TrialFigures = {
   wpm: number | null;
 };
 
-const isNumber = (value: unknown): value is number => typeof value === 'number' && Number.isFinite(value);
-const isRecord = (value: unknown): value is Record<string, unknown> =>
-  typeof value === 'object' && value !== null && !Array.isArray(value);
-
 /**
- * Reads the figures from a stored ProfileReport (`profile_versions.metrics`), defensively: metrics are
- * jsonb and older engine versions may lack a field.
+ * The figures of a version from its stored ProfileReport (`profile_versions.metrics`; read
+ * defensively by the shared `reportFigures`).
  * @param slots suggestion slots of the version's settings, 1..10
  */
 export function figuresFromMetrics(
   version: { number: number; status: string; date: string | null; slots: number },
   metrics: Record<string, unknown> | null,
 ): VersionFigures {
-  const savings = isRecord(metrics?.keystrokeSavings)
-    ? metrics.keystrokeSavings[String(version.slots)]
-    : undefined;
-  const rates = isRecord(metrics?.rates) ? metrics.rates : {};
-  return {
-    ...version,
-    keystrokeSavings: isNumber(savings) ? savings : null,
-    wpmWithout: isNumber(rates.wpmWithout) ? rates.wpmWithout : null,
-    wpmWith: isNumber(rates.wpmWith) ? rates.wpmWith : null,
-  };
+  return { ...version, ...reportFigures(metrics, version.slots) };
 }
 
 /**

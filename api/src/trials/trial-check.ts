@@ -2,6 +2,7 @@ import {
   computeTrialMeasures,
   type CreateTrialBody,
   replayTrial,
+  reportFigures,
   TrialReplayError,
   type TrialMeasures,
 } from '@keyloom/shared';
@@ -43,17 +44,12 @@ export function checkAndMeasureTrial(body: CreateTrialBody): TrialMeasures {
 }
 
 /**
- * The version's simulated figures for comparison: keystroke savings at `slots` from the report's
- * per-slot table, and the estimated wpm with suggestions (`rates.wpmWith`); null when missing.
+ * The version's simulated figures for comparison: keystroke savings at `slots` and the estimated
+ * wpm with suggestions, from its stored report (null when missing).
  * @param metrics the version's stored engine report (or null)
  * @param slots 1..10, the trial's suggestion slots
  */
 export function simulatedFigures(metrics: Record<string, unknown> | null, slots: number): SimulatedFigures {
-  const ks = (metrics?.keystrokeSavings as Record<string, unknown> | undefined)?.[String(slots)];
-  const wpm = (metrics?.rates as Record<string, unknown> | undefined)?.wpmWith;
-  return {
-    keystrokeSavings: typeof ks === 'number' && Number.isFinite(ks) ? ks : null,
-    wpm: typeof wpm === 'number' && Number.isFinite(wpm) ? wpm : null,
-    slots,
-  };
+  const { keystrokeSavings, wpmWith } = reportFigures(metrics, slots);
+  return { keystrokeSavings, wpm: wpmWith, slots };
 }

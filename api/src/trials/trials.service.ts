@@ -74,8 +74,8 @@ export class TrialsService {
       throw error;
     }
     const version = await this.version(versionId);
-    if (version.modelSize === null || !TRIABLE.includes(version.status)) {
-      if (version.modelSize === null) throw new ConflictException(MODEL_NOT_READY_MESSAGE);
+    if (version.modelSize === null) throw new ConflictException(MODEL_NOT_READY_MESSAGE);
+    if (!TRIABLE.includes(version.status)) {
       throw new ConflictException(
         `Only a version that is ready for trial, signed off or active can be tried; this one is ${profileVersionStatusLabels[version.status].toLowerCase()}.`,
       );

@@ -46,3 +46,5 @@ export {
   PROFILE_FILE_EXTENSION,
 } from './profile-file';
 export type { ProfileFileHeader, ProfileFileContents } from './profile-file';
+export { reportFigures } from './report-figures';
+export type { ReportFigures } from './report-figures';

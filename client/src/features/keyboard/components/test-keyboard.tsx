@@ -135,18 +135,12 @@ export const TestKeyboard = ({
   const words = useMemo(() => (answer?.words ?? []).slice(0, slots), [answer, slots]);
 
   // ---- the trial log's "offer" steps: each time the row shows something new during a trial ----
-  const lastOffer = useRef<string | null>(null);
+  // (logOffer itself skips a row equal to the last one logged, and does nothing outside a trial).
   const wordsKey = words.join('\u0000');
   const { running, logOffer } = session;
   useEffect(() => {
-    if (!running) {
-      lastOffer.current = null;
-      return;
-    }
-    if (lastOffer.current === wordsKey) return;
-    lastOffer.current = wordsKey;
-    logOffer([...words]);
-  }, [running, wordsKey, words, logOffer]);
+    if (running) logOffer(wordsKey === '' ? [] : wordsKey.split('\u0000'));
+  }, [running, wordsKey, logOffer]);
 
   const letterProbabilities = useMemo(() => {
     if (!settings.tintKeys || !answer) return null;

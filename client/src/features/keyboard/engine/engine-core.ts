@@ -131,6 +131,8 @@ function blendWith(personal: PpmModel, base: LoadedEngine['base']): NextSymbolMo
  */
 export function engineLearn(engine: LoadedEngine, text: string): void {
   const finished = text.slice(0, text.length - partialWord(text).length);
+  // Most key presses finish no word: nothing to prepare or learn.
+  if (finished === engine.learnedText) return;
   let agree = 0;
   const known = engine.learnedText;
   while (agree < known.length && agree < finished.length && known[agree] === finished[agree]) agree++;
@@ -175,9 +177,10 @@ export function engineSuggest(engine: LoadedEngine, text: string, slots: number)
     engine.cache.set(key, cached);
     return cached;
   }
-  const context = historyOf(engine, suggestionContext(text));
+  const contextText = suggestionContext(text);
+  const context = historyOf(engine, contextText);
   const words = suggest(engine.model, context, context.length, slots).map((s) => s.word);
-  const history = text === '' ? context : historyOf(engine, text);
+  const history = text === '' || contextText === text ? context : historyOf(engine, text);
   const letters = nextLetterProbabilities(engine.model, history, history.length, { foldCase: true }).filter(
     (l) => LETTER.test(l.char),
   );

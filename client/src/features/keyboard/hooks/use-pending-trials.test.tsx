@@ -5,6 +5,7 @@ import type { ReactNode } from 'react';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import { type MockResponse, mockFetch, sessionRoutes } from '@/testing/mock-fetch';
 import { trialsQueryKey } from '../api/query-keys';
+import { directTrialSettings } from '../testing/trial-data';
 import {
   PENDING_RETRY_MS,
   PENDING_TRIALS_KEY,
@@ -26,17 +27,7 @@ const trialInput = (clientTrialId: string): CreateTrialInput => ({
     { t: 0, type: 'letter', value: 'h' },
     { t: 400, type: 'letter', value: 'i' },
   ],
-  settings: {
-    method: 'direct',
-    layout: 'typewriter',
-    slots: 5,
-    dwellMs: null,
-    scanIntervalMs: null,
-    largeTargets: false,
-    highContrast: false,
-    textScale: 1,
-    tintKeys: false,
-  },
+  settings: directTrialSettings,
   note: '',
 });
 

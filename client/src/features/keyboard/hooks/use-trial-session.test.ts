@@ -1,19 +1,10 @@
-import { computeTrialMeasures, createTrialSchema, replayTrial, type TrialSettings } from '@keyloom/shared';
+import { computeTrialMeasures, createTrialSchema, replayTrial } from '@keyloom/shared';
 import { act, renderHook } from '@testing-library/react';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
+import { directTrialSettings } from '../testing/trial-data';
 import { useTrialSession } from './use-trial-session';
 
-const settings: TrialSettings = {
-  method: 'direct',
-  layout: 'typewriter',
-  slots: 5,
-  dwellMs: null,
-  scanIntervalMs: null,
-  largeTargets: false,
-  highContrast: false,
-  textScale: 1,
-  tintKeys: false,
-};
+const settings = directTrialSettings;
 
 describe('useTrialSession', () => {
   beforeEach(() => vi.useFakeTimers({ now: new Date('2026-12-02T10:00:00Z') }));

@@ -1,8 +1,27 @@
-import { builtInPracticePhrases, type PracticePhrase, type Trial, trialSchema } from '@keyloom/shared';
+import {
+  builtInPracticePhrases,
+  type PracticePhrase,
+  type Trial,
+  trialSchema,
+  type TrialSettings,
+} from '@keyloom/shared';
 import { VERSION_1_ID } from '@/features/profiles/testing/profile-data';
 import { ASHBY_ID } from '@/testing/data';
 
 // Invented trials of the Willowmere demo client's version 1 (the pages only show what the API sends).
+
+/** Settings of a direct-access trial on the typewriter layout with 5 slots, nothing else switched on. */
+export const directTrialSettings: TrialSettings = {
+  method: 'direct',
+  layout: 'typewriter',
+  slots: 5,
+  dwellMs: null,
+  scanIntervalMs: null,
+  largeTargets: false,
+  highContrast: false,
+  textScale: 1,
+  tintKeys: false,
+};
 
 export const TRIAL_1_ID = 'e1f2a3b4-c5d6-4e7f-8a9b-0c1d2e3f4a71';
 export const OWN_PHRASE_ID = 'f1e2d3c4-b5a6-4978-8695-a4b3c2d1e081';
@@ -20,17 +39,7 @@ export const trialRecord = (overrides: Partial<Trial> = {}): Trial =>
     phraseId: 'kl-11',
     targetPhrase: 'the soup is too hot',
     text: 'the soup is too hot ',
-    settings: {
-      method: 'direct',
-      layout: 'typewriter',
-      slots: 5,
-      dwellMs: null,
-      scanIntervalMs: null,
-      largeTargets: false,
-      highContrast: false,
-      textScale: 1,
-      tintKeys: false,
-    },
+    settings: directTrialSettings,
     note: '',
     measures: {
       characters: 20,
