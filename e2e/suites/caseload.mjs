@@ -86,7 +86,9 @@ export const caseloadSuite = {
         await page.getByRole('tab', { name: 'Writing samples' }).click();
         await page.waitForURL(/\/samples$/);
         const files = pickDemoFiles();
-        await page.locator('input[type=file]').setInputFiles(files);
+        // The samples' own input (it takes many files): right after the tab switch the consent
+        // tab's single-file input for the scanned form may still be on the page.
+        await page.locator('input[type=file][multiple]').setInputFiles(files);
         await page.getByLabel('Where the text came from').selectOption('messages');
         await page.getByRole('button', { name: 'Upload files' }).click();
         await page
