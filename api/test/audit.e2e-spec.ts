@@ -122,7 +122,9 @@ describe('audit log browsing (HTTP)', () => {
           [action, clientId, JSON.stringify(details)],
         )
       )[0].id;
-    const phrase = await insert(first.id, 'practice-phrase.create', { text: 'my brother Tom is in ward nine' });
+    const phrase = await insert(first.id, 'practice-phrase.create', {
+      text: 'my brother Tom is in ward nine',
+    });
     const signOff = await insert(first.id, 'profile.sign-off', { comment: 'Typed to Tom at lunch.' });
     const upload = await insert(first.id, 'sample.upload', {
       fileName: 'Tom letters.txt',
@@ -142,8 +144,11 @@ describe('audit log browsing (HTTP)', () => {
     }
 
     const details = async (id: string) =>
-      (await t.dataSource.query<{ details: object }[]>(`SELECT details FROM audit_events WHERE id = $1`, [id]))[0]
-        .details;
+      (
+        await t.dataSource.query<{ details: object }[]>(`SELECT details FROM audit_events WHERE id = $1`, [
+          id,
+        ])
+      )[0].details;
     expect(await details(phrase)).toEqual({});
     expect(await details(signOff)).toEqual({});
     expect(await details(upload)).toEqual({ sha256: 'ab12', byteSize: 40 });

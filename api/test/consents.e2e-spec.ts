@@ -391,7 +391,11 @@ describe('consents, withdrawal and family contacts (HTTP)', () => {
       ).body as WithdrawalPreview;
 
     it('withdrawing a summaries-only consent deletes nothing while a training consent stands', async () => {
-      const { target, consents } = await clientWithTwoConsents('S. Summariesonly', ['training'], ['summaries']);
+      const { target, consents } = await clientWithTwoConsents(
+        'S. Summariesonly',
+        ['training'],
+        ['summaries'],
+      );
       const [training, summaries] = consents;
 
       const before = await preview(target.id, summaries.id);
@@ -422,7 +426,11 @@ describe('consents, withdrawal and family contacts (HTTP)', () => {
       const { target, consents } = await clientWithTwoConsents('T. Twotraining', ['training'], ['training']);
       const [older, newer] = consents;
       const before = await preview(target.id, newer.id);
-      expect(before.report).toMatchObject({ samplesDeleted: 0, derived: { testDerived: 0 }, keptScopes: ['training'] });
+      expect(before.report).toMatchObject({
+        samplesDeleted: 0,
+        derived: { testDerived: 0 },
+        keptScopes: ['training'],
+      });
       expect(before.scopes).toEqual([
         { scope: 'training', coveredBy: [{ id: older.id, givenOn: '2026-09-14', expiresOn: null }] },
       ]);
@@ -452,7 +460,10 @@ describe('consents, withdrawal and family contacts (HTTP)', () => {
         [target.id, future, cast.owner.id],
       );
       const res = await withdraw(target.id, newer.id, 'client asked').expect(200);
-      expect((res.body as Consent).withdrawal).toMatchObject({ samplesDeleted: 2, derived: { testDerived: 2 } });
+      expect((res.body as Consent).withdrawal).toMatchObject({
+        samplesDeleted: 2,
+        derived: { testDerived: 2 },
+      });
       expect(await samplesOf(target.id)).toBe(0);
     });
 

@@ -449,7 +449,8 @@ describe('test keyboard (HTTP)', () => {
 
     it('keeps the sign-off comment and the reported problem out of the audit log', async () => {
       const log = JSON.stringify(
-        (await get(cast.admin, `/api/audit?clientId=${clientId}&action=profile.&pageSize=200`).expect(200)).body,
+        (await get(cast.admin, `/api/audit?clientId=${clientId}&action=profile.&pageSize=200`).expect(200))
+          .body,
       );
       expect(log).toContain('profile.sign-off');
       expect(log).toContain('profile.report-problem');
@@ -505,11 +506,20 @@ describe('test keyboard (HTTP)', () => {
       const added = (await post(cast.owner, phrases(), { text }).expect(201)).body as PracticePhrase;
       await del(cast.owner, `${phrases()}/${added.id}`).expect(204);
       for (const who of ['supervisor', 'admin'] as const) {
-        const page = (await get(cast[who], `/api/audit?clientId=${clientId}&action=practice-phrase.&pageSize=200`).expect(200))
-          .body as AuditPage;
+        const page = (
+          await get(cast[who], `/api/audit?clientId=${clientId}&action=practice-phrase.&pageSize=200`).expect(
+            200,
+          )
+        ).body as AuditPage;
         const mine = page.items.filter((e) => e.subjectId === added.id);
-        expect(mine.map((e) => e.action).sort()).toEqual(['practice-phrase.create', 'practice-phrase.delete']);
-        expect(mine.map((e) => e.details)).toEqual([{ characters: text.length }, { characters: text.length }]);
+        expect(mine.map((e) => e.action).sort()).toEqual([
+          'practice-phrase.create',
+          'practice-phrase.delete',
+        ]);
+        expect(mine.map((e) => e.details)).toEqual([
+          { characters: text.length },
+          { characters: text.length },
+        ]);
         expect(JSON.stringify(page)).not.toMatch(/ward nine|brother Tom/);
       }
     });
@@ -557,9 +567,10 @@ describe('test keyboard (HTTP)', () => {
   describe('consent withdrawal', () => {
     const count = async (table: string) =>
       (
-        await t.dataSource.query<{ n: number }[]>(`SELECT count(*)::int AS n FROM ${table} WHERE client_id = $1`, [
-          clientId,
-        ])
+        await t.dataSource.query<{ n: number }[]>(
+          `SELECT count(*)::int AS n FROM ${table} WHERE client_id = $1`,
+          [clientId],
+        )
       )[0].n;
 
     it('keeps every trial, version, sample and phrase when only a summaries consent is withdrawn', async () => {

@@ -7,7 +7,11 @@ describe('withoutClientText', () => {
       count: 2,
       phraseIds: ['a', 'b'],
       fields: ['note', 'relationship'],
-      nested: { comment: 'Tried at lunch with Ada', byteSize: 120, list: [{ fileName: 'Ada diary.txt', sha256: 'ff' }] },
+      nested: {
+        comment: 'Tried at lunch with Ada',
+        byteSize: 120,
+        list: [{ fileName: 'Ada diary.txt', sha256: 'ff' }],
+      },
     });
     expect(result.details).toEqual({
       count: 2,

@@ -36,7 +36,9 @@ describe(AuditService.name, () => {
   it('keeps the details of events that are not about a client (a sign-in refusal keeps its reason)', async () => {
     const { repo, saved } = fakeEvents();
     const sut = new AuditService(repo);
-    await sut.record({ id: null, email: 'x@y.example' }, 'auth.sign-in-failed', null, { reason: 'wrong-password' });
+    await sut.record({ id: null, email: 'x@y.example' }, 'auth.sign-in-failed', null, {
+      reason: 'wrong-password',
+    });
     expect(saved[0].details).toEqual({ reason: 'wrong-password' });
   });
 });

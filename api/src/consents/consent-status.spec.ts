@@ -58,7 +58,9 @@ describe('consent status', () => {
     const both = record();
     expect(releasedScopes(summaries, [training], TODAY)).toEqual(['summaries']);
     expect(releasedScopes(training, [summaries], TODAY)).toEqual(['training']);
-    expect(releasedScopes(training, [record({ scopes: ['training'], givenOn: '2026-01-02' })], TODAY)).toEqual([]);
+    expect(
+      releasedScopes(training, [record({ scopes: ['training'], givenOn: '2026-01-02' })], TODAY),
+    ).toEqual([]);
     expect(releasedScopes(both, [training], TODAY)).toEqual(['summaries']);
     expect(releasedScopes(both, [], TODAY)).toEqual(['training', 'summaries']);
     // A record that is not in force keeps nothing: withdrawn, expired, or given only in the future.

@@ -58,7 +58,10 @@ describe(WithdrawalHooks.name, () => {
     const sut = new WithdrawalHooks();
     const log: string[] = [];
     sut.register('samples', tableHook(log, 'samples', { n: 2 }));
-    sut.register('summaryEmails', tableHook(log, 'summaryEmails', { n: 4 }, { scope: 'summaries', effect: 'cancel' }));
+    sut.register(
+      'summaryEmails',
+      tableHook(log, 'summaryEmails', { n: 4 }, { scope: 'summaries', effect: 'cancel' }),
+    );
     // The samples stay (training is still covered): reported as 0, never asked or removed.
     await expect(sut.runAll(CLIENT_ID, ['summaries'], manager)).resolves.toEqual({
       deleted: { samples: 0 },

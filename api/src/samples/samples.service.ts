@@ -60,7 +60,13 @@ export class SamplesService implements OnModuleInit {
     // Samples and their flags exist only under a training consent.
     this.withdrawalHooks.register(
       'samples',
-      clientRowsHook({ entity: Sample, scope: 'training', audit: this.audit, action: 'sample.delete', idsKey: 'sampleIds' }),
+      clientRowsHook({
+        entity: Sample,
+        scope: 'training',
+        audit: this.audit,
+        action: 'sample.delete',
+        idsKey: 'sampleIds',
+      }),
     );
     this.withdrawalHooks.register('sampleFlags', sampleFlagsWithdrawalHook);
   }
@@ -294,7 +300,9 @@ const CLIENT_FLAGS = `FROM sample_flags WHERE sample_id IN (SELECT id FROM langu
 export const sampleFlagsWithdrawalHook: WithdrawalHook = {
   scope: 'training',
   count: async (clientId, manager) => {
-    const rows = await manager.query<{ n: number }[]>(`SELECT count(*)::int AS n ${CLIENT_FLAGS}`, [clientId]);
+    const rows = await manager.query<{ n: number }[]>(`SELECT count(*)::int AS n ${CLIENT_FLAGS}`, [
+      clientId,
+    ]);
     return rows[0]?.n ?? 0;
   },
   remove: async (clientId, manager) => {

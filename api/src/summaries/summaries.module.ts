@@ -10,7 +10,13 @@ import { SummaryRecipient } from './summary-recipient.entity';
 import { Summary } from './summary.entity';
 
 @Module({
-  imports: [TypeOrmModule.forFeature([Summary, SummaryRecipient]), ClientsModule, ConsentsModule, AuditModule, JobsModule],
+  imports: [
+    TypeOrmModule.forFeature([Summary, SummaryRecipient]),
+    ClientsModule,
+    ConsentsModule,
+    AuditModule,
+    JobsModule,
+  ],
   controllers: [SummariesController],
   providers: [SummariesService],
 })

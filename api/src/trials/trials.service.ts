@@ -52,7 +52,13 @@ export class TrialsService implements OnModuleInit {
     // training consent, counted under their own name even when their version's deletion takes them.
     this.withdrawalHooks.register(
       'trials',
-      clientRowsHook({ entity: Trial, scope: 'training', audit: this.audit, action: 'trial.delete', idsKey: 'trialIds' }),
+      clientRowsHook({
+        entity: Trial,
+        scope: 'training',
+        audit: this.audit,
+        action: 'trial.delete',
+        idsKey: 'trialIds',
+      }),
     );
   }
 

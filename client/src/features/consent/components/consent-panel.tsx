@@ -11,18 +11,18 @@ import { ContactDialog } from './contact-dialog';
 import { ContactsTable } from './contacts-table';
 import { RecordConsentDialog } from './record-consent-dialog';
 import { WithdrawConsentDialog } from './withdraw-consent-dialog';
+import { reportSentence } from './withdrawal-words';
 
 type ConsentPanelProps = {
   clientId: string;
   pseudonym: string;
-  sampleCount: number;
   /** Owning clinician; supervisors read only. */
   canEdit: boolean;
   announce: (tone: 'success' | 'error', text: string) => void;
 };
 
 /** The "Consent & family" tab: consent records, withdrawal, scanned forms and family contacts. */
-export const ConsentPanel = ({ clientId, pseudonym, sampleCount, canEdit, announce }: ConsentPanelProps) => {
+export const ConsentPanel = ({ clientId, pseudonym, canEdit, announce }: ConsentPanelProps) => {
   const consents = useConsents(clientId);
   const contacts = useContacts(clientId);
   const [recording, setRecording] = useState(false);
@@ -43,8 +43,10 @@ export const ConsentPanel = ({ clientId, pseudonym, sampleCount, canEdit, announ
           )}
         </div>
         <p className="max-w-3xl text-ink-soft">
-          Writing can be uploaded, and a model trained, only while a consent for model training is active. A
-          withdrawal deletes the client’s language samples and everything trained from them.
+          Writing can be uploaded, and a model trained, only while a consent for model training is active.
+          Withdrawing a consent deletes only what no other active consent still covers: the language samples
+          and everything trained from them go once no consent covers training, and queued summary e-mails are
+          stopped once none covers summaries. The dialog lists what will go before you confirm.
         </p>
         {consents.isPending && <PageLoading />}
         {consents.isError && (
@@ -112,15 +114,13 @@ export const ConsentPanel = ({ clientId, pseudonym, sampleCount, canEdit, announ
           <WithdrawConsentDialog
             clientId={clientId}
             pseudonym={pseudonym}
-            sampleCount={sampleCount}
             consent={withdrawing}
             onClose={() => setWithdrawing(null)}
             onWithdrawn={(consent) => {
               setWithdrawing(null);
-              const deleted = consent.withdrawal?.samplesDeleted ?? 0;
               announce(
                 'success',
-                `Consent withdrawn. ${deleted} language sample${deleted === 1 ? ' was' : 's were'} deleted.`,
+                `Consent withdrawn. ${consent.withdrawal ? reportSentence(consent.withdrawal) : ''}`.trim(),
               );
             }}
           />
