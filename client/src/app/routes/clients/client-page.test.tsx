@@ -202,6 +202,8 @@ describe('Client page', () => {
         'Consent withdrawn. Deleted: 3 language samples, 2 profile versions (their models and measures), 7 test keyboard trials, 1 practice phrase of the client’s own. Not sent: 1 queued summary e-mail.',
       ),
     );
+    // The button that opened the dialog is gone with the withdrawal: focus lands on the records' heading.
+    await waitFor(() => expect(screen.getByRole('heading', { name: 'Consent records' })).toHaveFocus());
     expect(api.requestsTo(`POST ${base}/consents/${withdrawn.id}/withdraw`)[0]?.body).toEqual({
       reason: 'He asked by e-mail.',
     });

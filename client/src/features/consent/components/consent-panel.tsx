@@ -1,5 +1,5 @@
 import type { Consent, Contact } from '@keyloom/shared';
-import { useState } from 'react';
+import { useEffect, useRef, useState } from 'react';
 import { PageLoading } from '@/components/layout/page-loading';
 import { Button } from '@/components/ui/button';
 import { EmptyState } from '@/components/ui/empty-state';
@@ -28,12 +28,24 @@ export const ConsentPanel = ({ clientId, pseudonym, canEdit, announce }: Consent
   const [recording, setRecording] = useState(false);
   const [withdrawing, setWithdrawing] = useState<Consent | null>(null);
   const [editingContact, setEditingContact] = useState<Contact | 'new' | null>(null);
+  // After a withdrawal the button that opened the dialog is gone: focus goes to the records' heading,
+  // once the dialog has closed, so keyboard users carry on from the list that shows the report.
+  const recordsHeading = useRef<HTMLHeadingElement>(null);
+  const [focusRecords, setFocusRecords] = useState(false);
+  useEffect(() => {
+    if (!focusRecords) return;
+    const timer = window.setTimeout(() => {
+      recordsHeading.current?.focus();
+      setFocusRecords(false);
+    }, 0);
+    return () => window.clearTimeout(timer);
+  }, [focusRecords]);
 
   return (
     <div className="flex flex-col gap-10">
       <section aria-labelledby="consent-heading" className="flex flex-col gap-4">
         <div className="flex flex-wrap items-center justify-between gap-3">
-          <h3 id="consent-heading" className="text-2xl font-bold">
+          <h3 id="consent-heading" ref={recordsHeading} tabIndex={-1} className="text-2xl font-bold">
             Consent records
           </h3>
           {canEdit && (
@@ -118,6 +130,7 @@ export const ConsentPanel = ({ clientId, pseudonym, canEdit, announce }: Consent
             onClose={() => setWithdrawing(null)}
             onWithdrawn={(consent) => {
               setWithdrawing(null);
+              setFocusRecords(true);
               announce(
                 'success',
                 `Consent withdrawn. ${consent.withdrawal ? reportSentence(consent.withdrawal) : ''}`.trim(),
