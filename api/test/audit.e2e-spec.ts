@@ -1,6 +1,7 @@
 import type { AuditPage, Client } from '@keyloom/shared';
 import { randomUUID } from 'node:crypto';
 import request from 'supertest';
+import { ScrubClientTextFromAudit1764910000001 } from '../src/migrations/1764910000001-scrub-client-text-from-audit';
 import { type Cast, newCast, newClient, newConsent, send } from './caseload-helpers';
 import { createTestApp, resetDatabase, type TestApp } from './test-app';
 
@@ -104,6 +105,59 @@ describe('audit log browsing (HTTP)', () => {
   ])('answers 400 for %s', async (_name, query) => {
     const res = await send(t.http, cast.supervisor, 'get', `/api/audit${query}`).expect(400);
     expect(res.body.issues.length).toBeGreaterThan(0);
+  });
+
+  it('holds no free text of the client: the contact’s name, address and relationship stay out', async () => {
+    const log = JSON.stringify(await page(`?clientId=${first.id}&pageSize=200`, 'admin'));
+    expect(log).toContain('contact.create');
+    expect(log).not.toMatch(/Nell|nell@family|niece/);
+  });
+
+  it('the scrub migration removes client text from stored events, keeps the rest and the lock', async () => {
+    // Events as earlier versions wrote them (inserting is allowed; changing is not).
+    const insert = async (clientId: string | null, action: string, details: object) =>
+      (
+        await t.dataSource.query<{ id: string }[]>(
+          `INSERT INTO audit_events (action, client_id, details) VALUES ($1, $2, $3) RETURNING id`,
+          [action, clientId, JSON.stringify(details)],
+        )
+      )[0].id;
+    const phrase = await insert(first.id, 'practice-phrase.create', {
+      text: 'my brother Tom is in ward nine',
+    });
+    const signOff = await insert(first.id, 'profile.sign-off', { comment: 'Typed to Tom at lunch.' });
+    const upload = await insert(first.id, 'sample.upload', {
+      fileName: 'Tom letters.txt',
+      sha256: 'ab12',
+      byteSize: 40,
+    });
+    const withdrawal = await insert(first.id, 'sample.delete', { reason: 'consent withdrawn', count: 2 });
+    const signIn = await insert(null, 'auth.sign-in-failed', { reason: 'wrong-password' });
+
+    const runner = t.dataSource.createQueryRunner();
+    try {
+      await runner.startTransaction();
+      await new ScrubClientTextFromAudit1764910000001().up(runner);
+      await runner.commitTransaction();
+    } finally {
+      await runner.release();
+    }
+
+    const details = async (id: string) =>
+      (
+        await t.dataSource.query<{ details: object }[]>(`SELECT details FROM audit_events WHERE id = $1`, [
+          id,
+        ])
+      )[0].details;
+    expect(await details(phrase)).toEqual({});
+    expect(await details(signOff)).toEqual({});
+    expect(await details(upload)).toEqual({ sha256: 'ab12', byteSize: 40 });
+    expect(await details(withdrawal)).toEqual({ cause: 'consent-withdrawn', count: 2 });
+    expect(await details(signIn)).toEqual({ reason: 'wrong-password' });
+    // The log is append-only again afterwards.
+    await expect(
+      t.dataSource.query(`UPDATE audit_events SET details = '{}' WHERE id = $1`, [signIn]),
+    ).rejects.toThrow(/append-only/);
   });
 
   it('offers no route that changes or deletes an event', async () => {

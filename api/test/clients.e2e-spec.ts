@@ -311,6 +311,7 @@ describe('clients and assignments (HTTP)', () => {
       ['/api/clients/{id}/carers-available', ['get']],
       ['/api/clients/{id}/consents', ['get', 'post']],
       ['/api/clients/{id}/consents/{consentId}/withdraw', ['post']],
+      ['/api/clients/{id}/consents/{consentId}/withdrawal-preview', ['get']],
       ['/api/clients/{id}/consents/{consentId}/document', ['get', 'put']],
       ['/api/clients/{id}/contacts', ['get', 'post']],
       ['/api/clients/{id}/contacts/{contactId}', ['patch']],

@@ -11,6 +11,7 @@ import { createJobBoss } from '../src/jobs/job-queue';
 import { ProfileVersion } from '../src/profile-versions/profile-version.entity';
 import { createSmtpSender, startSummaryMailWork } from '../src/summaries/summary-mail-worker';
 import { AuditEvent } from '../src/audit/audit-event.entity';
+import { todayIso } from '../src/consents/consent-status';
 import { AuditService } from '../src/audit/audit.service';
 import { FamilyContact } from '../src/contacts/family-contact.entity';
 import {
@@ -228,13 +229,35 @@ describe('summary e-mail delivery (mail job)', () => {
     expect(await inboxFor(row.email)).toHaveLength(0);
   });
 
-  it('withholds a queued e-mail when the client’s consent to summaries was withdrawn while it waited', async () => {
+  it('withholds the queued e-mails at once when the client’s consent to summaries is withdrawn', async () => {
     const other = (await newClient(t.http, cast.owner, undefined, 'T. Fairweather')).id;
     const consent = await newConsent(t.http, cast.owner, other);
     const row = await queuedRecipient(other);
-    await send(t.http, cast.owner, 'post', `/api/clients/${other}/consents/${consent.id}/withdraw`, {
-      reason: 'The client asked to stop everything.',
-    }).expect(200);
+    const res = await send(
+      t.http,
+      cast.owner,
+      'post',
+      `/api/clients/${other}/consents/${consent.id}/withdraw`,
+      {
+        reason: 'The client asked to stop everything.',
+      },
+    ).expect(200);
+    expect(res.body.withdrawal.cancelled).toEqual({ summaryEmails: 1 });
+    const stored = await reload(row.id);
+    expect([stored.status, stored.lastError]).toEqual(['failed', CLIENT_CONSENT_WITHHELD_MESSAGE]);
+    // The job that was queued for it finds it done and sends nothing.
+    const up = smtpTransport(Number(process.env.SMTP_PORT ?? 1025));
+    expect(await deliverSummaryEmail(t.dataSource, audit, up, SETTINGS, row.id, false)).toBe('already-done');
+    expect(await inboxFor(row.email)).toHaveLength(0);
+  });
+
+  it('withholds a queued e-mail when the client’s consent to summaries expired while it waited', async () => {
+    const other = (await newClient(t.http, cast.owner, undefined, 'U. Lapsed')).id;
+    const consent = await newConsent(t.http, cast.owner, other, '2026-01-05');
+    const row = await queuedRecipient(other);
+    const now = new Date();
+    const yesterday = todayIso(new Date(now.getFullYear(), now.getMonth(), now.getDate() - 1));
+    await t.dataSource.query(`UPDATE consents SET expires_on = $2 WHERE id = $1`, [consent.id, yesterday]);
     const up = smtpTransport(Number(process.env.SMTP_PORT ?? 1025));
     expect(await deliverSummaryEmail(t.dataSource, audit, up, SETTINGS, row.id, false)).toBe('withheld');
     const stored = await reload(row.id);

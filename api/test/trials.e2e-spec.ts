@@ -3,6 +3,7 @@
 // idempotent re-uploads), practice phrases, the sign-off gate and report-problem, consent withdrawal.
 // Training is kept small (2 folds, a 400-character keystroke sample) so the suite stays fast.
 import {
+  type AuditPage,
   computeTrialMeasures,
   type PracticePhrase,
   type ProfileReport,
@@ -445,6 +446,16 @@ describe('test keyboard (HTTP)', () => {
         'Only a version that is ready for trial, signed off or active can be tried; this one is sent back.',
       );
     });
+
+    it('keeps the sign-off comment and the reported problem out of the audit log', async () => {
+      const log = JSON.stringify(
+        (await get(cast.admin, `/api/audit?clientId=${clientId}&action=profile.&pageSize=200`).expect(200))
+          .body,
+      );
+      expect(log).toContain('profile.sign-off');
+      expect(log).toContain('profile.report-problem');
+      expect(log).not.toMatch(/shopping list|boat names/);
+    });
   });
 
   describe('practice phrases', () => {
@@ -490,6 +501,29 @@ describe('test keyboard (HTTP)', () => {
       ).toBe(3);
     });
 
+    it('keeps phrase text out of the audit log when a phrase is added and removed (supervisor, admin)', async () => {
+      const text = 'my brother Tom is in ward nine';
+      const added = (await post(cast.owner, phrases(), { text }).expect(201)).body as PracticePhrase;
+      await del(cast.owner, `${phrases()}/${added.id}`).expect(204);
+      for (const who of ['supervisor', 'admin'] as const) {
+        const page = (
+          await get(cast[who], `/api/audit?clientId=${clientId}&action=practice-phrase.&pageSize=200`).expect(
+            200,
+          )
+        ).body as AuditPage;
+        const mine = page.items.filter((e) => e.subjectId === added.id);
+        expect(mine.map((e) => e.action).sort()).toEqual([
+          'practice-phrase.create',
+          'practice-phrase.delete',
+        ]);
+        expect(mine.map((e) => e.details)).toEqual([
+          { characters: text.length },
+          { characters: text.length },
+        ]);
+        expect(JSON.stringify(page)).not.toMatch(/ward nine|brother Tom/);
+      }
+    });
+
     it('at most 200 of the client’s own', async () => {
       const other = (await newClient(t.http, cast.owner, undefined, 'K. Bramley')).id;
       await t.dataSource.query(
@@ -531,6 +565,48 @@ describe('test keyboard (HTTP)', () => {
   });
 
   describe('consent withdrawal', () => {
+    const count = async (table: string) =>
+      (
+        await t.dataSource.query<{ n: number }[]>(
+          `SELECT count(*)::int AS n FROM ${table} WHERE client_id = $1`,
+          [clientId],
+        )
+      )[0].n;
+
+    it('keeps every trial, version, sample and phrase when only a summaries consent is withdrawn', async () => {
+      const summariesOnly = (
+        await post(cast.owner, `/api/clients/${clientId}/consents`, {
+          givenBy: 'client',
+          scopes: ['summaries'],
+          givenOn: '2026-10-01',
+        }).expect(201)
+      ).body as { id: string };
+      // The first consent covers both scopes; make it a training-only one for this scenario.
+      await t.dataSource.query(`UPDATE consents SET scopes = ARRAY['training'] WHERE id = $1`, [consentId]);
+      const before = {
+        samples: await count('language_samples'),
+        profile_versions: await count('profile_versions'),
+        trials: await count('trials'),
+        practice_phrases: await count('practice_phrases'),
+      };
+      expect(before.trials).toBeGreaterThan(5);
+      expect(before.practice_phrases).toBeGreaterThan(0);
+      const res = await post(cast.owner, `/api/clients/${clientId}/consents/${summariesOnly.id}/withdraw`, {
+        reason: 'family asked to stop e-mails',
+      }).expect(200);
+      expect(res.body.withdrawal).toMatchObject({
+        samplesDeleted: 0,
+        derived: { sampleFlags: 0, profileVersions: 0, trials: 0, practicePhrases: 0 },
+        keptScopes: [],
+      });
+      expect({
+        samples: await count('language_samples'),
+        profile_versions: await count('profile_versions'),
+        trials: await count('trials'),
+        practice_phrases: await count('practice_phrases'),
+      }).toEqual(before);
+    });
+
     it('deletes the client’s own phrases (counted) and, with the versions, their trials', async () => {
       const before: { n: string }[] = await t.dataSource.query(
         'SELECT count(*) AS n FROM trials WHERE client_id = $1',
@@ -545,6 +621,12 @@ describe('test keyboard (HTTP)', () => {
         reason: 'The client asked.',
       }).expect(200);
       expect(JSON.stringify(res.body)).toContain(`"practicePhrases":${own.length}`);
+      // Every kind of row is counted, trials too (they go by cascade with their versions).
+      expect(res.body.withdrawal).toMatchObject({
+        samplesDeleted: TEXTS.length,
+        derived: { trials: Number(before[0].n), practicePhrases: own.length },
+      });
+      expect(res.body.withdrawal.derived.profileVersions).toBeGreaterThan(0);
       const after: { n: string }[] = await t.dataSource.query(
         'SELECT count(*) AS n FROM trials WHERE client_id = $1',
         [clientId],

@@ -196,5 +196,44 @@ export const caseloadSuite = {
         await signOut(page, 'Carer');
       },
     ],
+    [
+      'clinician sees what a withdrawal deletes before confirming, then the report (keyboard, axe)',
+      async (t) => {
+        await t.context.clearCookies();
+        const page = await t.newPage();
+        await signIn(page, t.appUrl, 'clinician@willowmere.example');
+        await page.waitForURL((url) => url.pathname === '/caseload');
+        await page.getByRole('link', { name: pseudonym, exact: true }).click();
+        await page.waitForURL(/\/clients\/[0-9a-f-]{36}\/overview$/);
+        await page.getByRole('tab', { name: 'Consent & family' }).click();
+        await page.waitForURL(/\/consent$/);
+        const open = page.getByRole('button', { name: /^Withdraw the consent given on/ });
+        await open.focus();
+        await open.press('Enter');
+        const dialog = page.getByRole('dialog', { name: `Withdraw consent for ${pseudonym}?` });
+        const deletes = dialog.getByRole('region', { name: 'Will be deleted' });
+        await deletes.waitFor();
+        // The two samples stored by the first test of this suite (the duplicate was not stored).
+        assert.deepEqual(await deletes.getByRole('listitem').first().textContent(), '2 language samples');
+        assert.deepEqual(await t.seriousViolations(page, 'withdraw dialog'), []);
+        await t.screenshot(page, 'withdraw-dialog');
+        // Escape closes it and gives focus back to the button that opened it; nothing was withdrawn.
+        await page.keyboard.press('Escape');
+        await dialog.waitFor({ state: 'hidden' });
+        assert.equal(await open.evaluate((button) => button === document.activeElement), true);
+
+        await open.press('Enter');
+        await deletes.waitFor();
+        await dialog.getByLabel('Reason for the withdrawal').fill('The client asked in clinic.');
+        await dialog.getByRole('button', { name: 'Withdraw and delete 2 language samples' }).press('Enter');
+        await page
+          .getByRole('status')
+          .filter({ hasText: /Consent withdrawn\. Deleted: 2 language samples/ })
+          .waitFor();
+        await page.getByText(/^Deleted: 2 language samples/).waitFor();
+        assert.deepEqual(await t.seriousViolations(page, 'consent tab after withdrawal'), []);
+        await signOut(page, 'Clinician');
+      },
+    ],
   ],
 };

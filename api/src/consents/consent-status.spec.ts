@@ -4,6 +4,7 @@ import {
   type ConsentTerms,
   coversScope,
   isInForce,
+  releasedScopes,
   todayIso,
 } from './consent-status';
 
@@ -49,6 +50,27 @@ describe('consent status', () => {
     expect(clientConsentStatus([expired, withdrawn], TODAY)).toBe('expired');
     expect(clientConsentStatus([withdrawn, record()], TODAY)).toBe('active');
     expect(clientConsentStatus([record({ givenOn: '2027-01-01' })], TODAY)).toBe('none');
+  });
+
+  it('releases only the scopes of the withdrawn record that no other record in force covers', () => {
+    const training = record({ scopes: ['training'] });
+    const summaries = record({ scopes: ['summaries'] });
+    const both = record();
+    expect(releasedScopes(summaries, [training], TODAY)).toEqual(['summaries']);
+    expect(releasedScopes(training, [summaries], TODAY)).toEqual(['training']);
+    expect(
+      releasedScopes(training, [record({ scopes: ['training'], givenOn: '2026-01-02' })], TODAY),
+    ).toEqual([]);
+    expect(releasedScopes(both, [training], TODAY)).toEqual(['summaries']);
+    expect(releasedScopes(both, [], TODAY)).toEqual(['training', 'summaries']);
+    // A record that is not in force keeps nothing: withdrawn, expired, or given only in the future.
+    for (const other of [
+      record({ scopes: ['training'], withdrawnAt: '2026-10-01' }),
+      record({ scopes: ['training'], expiresOn: '2026-11-30' }),
+      record({ scopes: ['training'], givenOn: '2026-12-02' }),
+    ]) {
+      expect(releasedScopes(training, [other], TODAY)).toEqual(['training']);
+    }
   });
 
   it('gives the local calendar date as YYYY-MM-DD', () => {

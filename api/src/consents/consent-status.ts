@@ -46,3 +46,17 @@ export function clientConsentStatus(newestFirst: readonly ConsentTerms[], today:
   const status = consentRecordStatus(newest, today);
   return status === 'active' ? 'none' : status;
 }
+
+/**
+ * What withdrawing one record releases: the scopes it lists that no OTHER record in force still
+ * covers. The data of a released scope is removed; a scope another record covers keeps its data
+ * (two training consents: withdrawing one deletes nothing). A record given in the future or expired
+ * is not in force, so it keeps nothing.
+ */
+export function releasedScopes(
+  withdrawn: Pick<ConsentTerms, 'scopes'>,
+  others: readonly ConsentTerms[],
+  today: string,
+): ConsentScope[] {
+  return withdrawn.scopes.filter((scope) => !coversScope(others, scope, today));
+}

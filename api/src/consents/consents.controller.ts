@@ -27,6 +27,8 @@ import {
   type CreateConsentInput,
   createConsentSchema,
   type WithdrawConsentInput,
+  type WithdrawalPreview,
+  withdrawalPreviewSchema,
   withdrawConsentSchema,
 } from '@keyloom/shared';
 import { memoryStorage } from 'multer';
@@ -69,14 +71,33 @@ export class ConsentsController {
     return this.consents.create(actor, id, body);
   }
 
+  @Get(':consentId/withdrawal-preview')
+  @Roles('clinician')
+  @ApiOperation({
+    summary: 'What withdrawing this consent would delete now (owning clinician); changes nothing',
+    description:
+      'The counts the withdrawal would report, and for each scope the other consents in force that ' +
+      'still cover it (their data is kept). A withdrawn consent: 409.',
+  })
+  @ApiOkResponse({ schema: zodSchemaObject(withdrawalPreviewSchema) })
+  withdrawalPreview(
+    @CurrentActor() actor: Actor,
+    @Param('id', ParseUUIDPipe) id: string,
+    @Param('consentId', ParseUUIDPipe) consentId: string,
+  ): Promise<WithdrawalPreview> {
+    return this.consents.withdrawalPreview(actor, id, consentId);
+  }
+
   @Post(':consentId/withdraw')
   @Roles('clinician')
   @HttpCode(200)
   @ApiOperation({
     summary: 'Withdraw a consent (owning clinician) — cannot be undone',
     description:
-      'Deletes the client’s language samples and everything derived from them in one transaction, and ' +
-      'answers 200 with the consent and its withdrawal report. A second withdrawal: 409.',
+      'Deletes, in one transaction, what only this consent allowed: the language samples and everything ' +
+      'derived from them when no other consent in force covers training; queued summary e-mails are ' +
+      'cancelled when none covers summaries. Answers 200 with the consent and its withdrawal report ' +
+      '(every kind of row counted). A second withdrawal: 409.',
   })
   @ApiBody({ schema: zodSchemaObject(withdrawConsentSchema) })
   @ApiOkResponse({ schema: zodSchemaObject(consentSchema) })

@@ -1,16 +1,22 @@
 import { BadRequestException, ConflictException, Injectable, NotFoundException } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
-import type { CreateConsentInput, WithdrawConsentInput, WithdrawalReport } from '@keyloom/shared';
+import type {
+  ConsentScope,
+  CreateConsentInput,
+  WithdrawConsentInput,
+  WithdrawalPreview,
+  WithdrawalReport,
+} from '@keyloom/shared';
 import { createHash } from 'node:crypto';
 import { DataSource, type EntityManager } from 'typeorm';
 import { AuditService } from '../audit/audit.service';
 import type { Actor } from '../auth/session-user';
 import { ClientAccessService } from '../clients/client-access.service';
-import { todayIso } from './consent-status';
+import { isInForce, releasedScopes, todayIso } from './consent-status';
 import { Consent } from './consent.entity';
 import { cleanFileName, detectConsentDocumentType } from './document-type';
 import { type ConsentDto, toConsentDto } from './dto/consent.dto';
-import { WithdrawalHooks } from './withdrawal-hooks';
+import { type WithdrawalCounts, WithdrawalHooks } from './withdrawal-hooks';
 
 export const CONSENT_NOT_FOUND_MESSAGE = 'There is no consent record with that id for this client.';
 export const ALREADY_WITHDRAWN_MESSAGE = 'This consent was already withdrawn.';
@@ -86,9 +92,10 @@ export class ConsentsService {
   }
 
   /**
-   * Withdraws a consent (owning clinician), in ONE transaction: every registered WithdrawalHook deletes
-   * what it derived from the client's writing, the record gets withdrawn_* and the report of what was
-   * deleted, and the audit event is written. Cannot be undone; a second withdrawal is 409.
+   * Withdraws a consent (owning clinician), in ONE transaction with every consent record of the
+   * client locked: the scopes that no other consent in force still covers are released, the hooks of
+   * those scopes delete (or cancel) what they keep, the record gets withdrawn_* and the report of
+   * what went, and the audit event is written. Cannot be undone; a second withdrawal is 409.
    */
   async withdraw(
     actor: Actor,
@@ -98,10 +105,11 @@ export class ConsentsService {
   ): Promise<ConsentDto> {
     return this.dataSource.transaction(async (manager) => {
       await this.access.requireOwned(actor, clientId, manager);
-      const consent = await this.lockConsent(manager, clientId, consentId);
+      const { consent, others } = await this.lockClientConsents(manager, clientId, consentId);
       if (consent.withdrawnAt !== null) throw new ConflictException(ALREADY_WITHDRAWN_MESSAGE);
-      const { samples = 0, ...derived } = await this.hooks.runAll(clientId, manager);
-      const report: WithdrawalReport = { samplesDeleted: samples, derived };
+      const released = releasedScopes(consent, others, todayIso());
+      const counts = await this.hooks.runAll(clientId, released, manager);
+      const report = toWithdrawalReport(counts, consent.scopes, released);
       await manager.getRepository(Consent).update(
         { id: consentId },
         {
@@ -120,6 +128,35 @@ export class ConsentsService {
         manager,
       );
       return this.findDto(manager, clientId, consentId);
+    });
+  }
+
+  /**
+   * What withdrawing the consent would do now (owning clinician), counted by the same hooks as the
+   * withdrawal, without changing anything; with the other consents that keep each scope covered.
+   */
+  async withdrawalPreview(actor: Actor, clientId: string, consentId: string): Promise<WithdrawalPreview> {
+    return this.dataSource.transaction('REPEATABLE READ', async (manager) => {
+      await this.access.requireOwned(actor, clientId, manager);
+      const all = await manager.getRepository(Consent).find({ where: { clientId } });
+      const consent = all.find((row) => row.id === consentId);
+      if (!consent) throw new NotFoundException(CONSENT_NOT_FOUND_MESSAGE);
+      if (consent.withdrawnAt !== null) throw new ConflictException(ALREADY_WITHDRAWN_MESSAGE);
+      const others = all.filter((row) => row.id !== consentId);
+      const today = todayIso();
+      const released = releasedScopes(consent, others, today);
+      const counts = await this.hooks.countAll(clientId, released, manager);
+      return {
+        consentId,
+        report: toWithdrawalReport(counts, consent.scopes, released),
+        scopes: consent.scopes.map((scope) => ({
+          scope,
+          coveredBy: others
+            .filter((row) => isInForce(row, today) && row.scopes.includes(scope))
+            .sort((a, b) => a.givenOn.localeCompare(b.givenOn) || a.id.localeCompare(b.id))
+            .map(({ id, givenOn, expiresOn }) => ({ id, givenOn, expiresOn })),
+        })),
+      };
     });
   }
 
@@ -152,7 +189,6 @@ export class ConsentsService {
         'consent.document-upload',
         { type: 'consent', id: consentId, clientId },
         {
-          fileName,
           mimeType: type.mimeType,
           byteSize: file.buffer.length,
           sha256: createHash('sha256').update(file.buffer).digest('hex'),
@@ -204,4 +240,37 @@ export class ConsentsService {
     if (!consent) throw new NotFoundException(CONSENT_NOT_FOUND_MESSAGE);
     return consent;
   }
+
+  // Every consent of the client locked, always in id order (no deadlock between two withdrawals):
+  // withdrawing X and Y at once, the second waits for the first and then sees X withdrawn, so the
+  // pair can neither both keep the data nor both count it.
+  private async lockClientConsents(
+    manager: EntityManager,
+    clientId: string,
+    consentId: string,
+  ): Promise<{ consent: Consent; others: Consent[] }> {
+    const all = await manager.getRepository(Consent).find({
+      where: { clientId },
+      order: { id: 'ASC' },
+      lock: { mode: 'pessimistic_write' },
+    });
+    const consent = all.find((row) => row.id === consentId);
+    if (!consent) throw new NotFoundException(CONSENT_NOT_FOUND_MESSAGE);
+    return { consent, others: all.filter((row) => row.id !== consentId) };
+  }
+}
+
+/** The stored report: samples apart, every other deleted kind under its hook's name, zeros included. */
+export function toWithdrawalReport(
+  counts: WithdrawalCounts,
+  scopes: readonly ConsentScope[],
+  released: readonly ConsentScope[],
+): WithdrawalReport {
+  const { samples = 0, ...derived } = counts.deleted;
+  return {
+    samplesDeleted: samples,
+    derived,
+    cancelled: counts.cancelled,
+    keptScopes: scopes.filter((scope) => !released.includes(scope)),
+  };
 }

@@ -40,7 +40,7 @@ export class ContactsService {
         actor,
         'contact.create',
         { type: 'family_contact', id, clientId },
-        { relationship: input.relationship, consentToSummaries: input.consentToSummaries },
+        { consentToSummaries: input.consentToSummaries },
         manager,
       );
       return toContactDto(await repo.findOneByOrFail({ id }));

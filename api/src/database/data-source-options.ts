@@ -11,6 +11,7 @@ import { CreateLanguageSamples1764720500000 } from '../migrations/1764720500000-
 import { CreateProfileVersions1764721000000 } from '../migrations/1764721000000-create-profile-versions';
 import { CreateSummaries1764722000000 } from '../migrations/1764722000000-create-summaries';
 import { CreateTrials1764800000000 } from '../migrations/1764800000000-create-trials';
+import { ScrubClientTextFromAudit1764910000001 } from '../migrations/1764910000001-scrub-client-text-from-audit';
 import { ProfileVersion } from '../profile-versions/profile-version.entity';
 import { SampleFlag } from '../samples/sample-flag.entity';
 import { Sample } from '../samples/sample.entity';
@@ -45,6 +46,7 @@ export const migrations = [
   CreateProfileVersions1764721000000,
   CreateSummaries1764722000000,
   CreateTrials1764800000000,
+  ScrubClientTextFromAudit1764910000001,
 ];
 
 /** TypeORM options for the app, the CLI, migrate.js, seed.js and the HTTP tests. Never synchronize. */

@@ -36,7 +36,7 @@ import type { Actor } from '../auth/session-user';
 import { WRONG_ROLE_MESSAGE } from '../auth/session-user';
 import { ClientAccessService } from '../clients/client-access.service';
 import type { Client } from '../clients/client.entity';
-import { WithdrawalHooks } from '../consents/withdrawal-hooks';
+import { clientRowsHook, WithdrawalHooks } from '../consents/withdrawal-hooks';
 import { LIVE_JOB_STATES, PROFILE_TRAINING_QUEUE } from '../jobs/job-queue';
 import { JobQueueService } from '../jobs/job-queue.service';
 import { Sample } from '../samples/sample.entity';
@@ -233,8 +233,17 @@ export class ProfileVersionsService implements OnModuleInit {
   ) {}
 
   onModuleInit(): void {
-    this.withdrawalHooks.register('profileVersions', (clientId, manager) =>
-      deleteClientProfileVersions(clientId, manager, this.audit),
+    // Versions are models of the samples: they go with the training consent. A running job finds its
+    // row gone.
+    this.withdrawalHooks.register(
+      'profileVersions',
+      clientRowsHook({
+        entity: ProfileVersion,
+        scope: 'training',
+        audit: this.audit,
+        action: 'profile.delete',
+        idsKey: 'versionIds',
+      }),
     );
   }
 
@@ -443,7 +452,8 @@ export class ProfileVersionsService implements OnModuleInit {
         actor,
         'profile.sign-off',
         { type: 'profile-version', id, clientId },
-        { comment: input.comment },
+        // The comment stays with the version (its history), not in the log.
+        { status: 'signed_off' },
         manager,
       );
       return this.dto(manager, id);
@@ -498,7 +508,8 @@ export class ProfileVersionsService implements OnModuleInit {
       actor,
       action,
       { type: 'profile-version', id: version.id, clientId: version.clientId },
-      { reason },
+      // The reason and comment stay with the version (its history), not in the log.
+      { status: 'sent_back' },
       manager,
     );
   }
@@ -550,7 +561,7 @@ export class ProfileVersionsService implements OnModuleInit {
         actor,
         'profile.approve',
         { type: 'profile-version', id, clientId },
-        { comment: input.comment, retired: previous?.id ?? null },
+        { status: 'active', retired: previous?.id ?? null },
         manager,
       );
       return this.dto(manager, id);
@@ -687,24 +698,4 @@ async function hasTrial(manager: EntityManager, versionId: string): Promise<bool
     versionId,
   ]);
   return rows.length > 0;
-}
-
-/** The 'profileVersions' withdrawal hook: deletes every version (model and metrics) of the client. */
-export async function deleteClientProfileVersions(
-  clientId: string,
-  manager: EntityManager,
-  audit: AuditService,
-): Promise<number> {
-  const rows = await manager.getRepository(ProfileVersion).find({ where: { clientId }, select: ['id'] });
-  if (rows.length === 0) return 0;
-  await manager.getRepository(ProfileVersion).delete({ clientId });
-  // No actor: the consent.withdraw event beside it names who withdrew. A running job finds its row gone.
-  await audit.record(
-    null,
-    'profile.delete',
-    { type: 'client', id: clientId, clientId },
-    { reason: 'consent withdrawn', count: rows.length, versionIds: rows.map((r) => r.id) },
-    manager,
-  );
-  return rows.length;
 }

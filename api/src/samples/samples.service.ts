@@ -22,7 +22,7 @@ import { AuditService } from '../audit/audit.service';
 import type { Actor } from '../auth/session-user';
 import { ClientAccessService } from '../clients/client-access.service';
 import { AppConfig } from '../config/app-config';
-import { WithdrawalHooks } from '../consents/withdrawal-hooks';
+import { clientRowsHook, type WithdrawalHook, WithdrawalHooks } from '../consents/withdrawal-hooks';
 import { LexiconService } from './lexicon.service';
 import { SampleFlag } from './sample-flag.entity';
 import {
@@ -57,9 +57,18 @@ export class SamplesService implements OnModuleInit {
   ) {}
 
   onModuleInit(): void {
-    this.withdrawalHooks.register('samples', (clientId, manager) =>
-      deleteClientSamples(clientId, manager, this.audit),
+    // Samples and their flags exist only under a training consent.
+    this.withdrawalHooks.register(
+      'samples',
+      clientRowsHook({
+        entity: Sample,
+        scope: 'training',
+        audit: this.audit,
+        action: 'sample.delete',
+        idsKey: 'sampleIds',
+      }),
     );
+    this.withdrawalHooks.register('sampleFlags', sampleFlagsWithdrawalHook);
   }
 
   private readonly isKnownWord = (word: string) => this.lexicon.has(word);
@@ -146,7 +155,7 @@ export class SamplesService implements OnModuleInit {
             actor,
             'sample.duplicate-refused',
             { type: 'sample', id: existingId, clientId },
-            { fileName: p.fileName, sha256: p.sha256 },
+            { sha256: p.sha256, byteSize: p.byteSize },
             manager,
           );
           continue;
@@ -158,7 +167,7 @@ export class SamplesService implements OnModuleInit {
           action,
           { type: 'sample', id: sample.id, clientId },
           {
-            fileName: p.fileName,
+            // The file name or title may name people: the log keeps the hash and sizes only.
             sha256: p.sha256,
             byteSize: p.byteSize,
             encoding: p.encoding,
@@ -285,24 +294,21 @@ export class SamplesService implements OnModuleInit {
 }
 
 /** The 'samples' withdrawal hook: deletes the client's samples (their flags go by cascade); returns the count. */
-export async function deleteClientSamples(
-  clientId: string,
-  manager: EntityManager,
-  audit: AuditService,
-): Promise<number> {
-  const rows = await manager.getRepository(Sample).find({ where: { clientId }, select: ['id'] });
-  if (rows.length === 0) return 0;
-  await manager.getRepository(Sample).delete({ clientId });
-  // No actor here: the consent.withdraw event beside it names who withdrew.
-  await audit.record(
-    null,
-    'sample.delete',
-    { type: 'client', id: clientId, clientId },
-    { reason: 'consent withdrawn', count: rows.length, sampleIds: rows.map((r) => r.id) },
-    manager,
-  );
-  return rows.length;
-}
+const CLIENT_FLAGS = `FROM sample_flags WHERE sample_id IN (SELECT id FROM language_samples WHERE client_id = $1)`;
+
+/** The 'sampleFlags' withdrawal hook: the flags of the client's samples (they hold found text). */
+export const sampleFlagsWithdrawalHook: WithdrawalHook = {
+  scope: 'training',
+  count: async (clientId, manager) => {
+    const rows = await manager.query<{ n: number }[]>(`SELECT count(*)::int AS n ${CLIENT_FLAGS}`, [
+      clientId,
+    ]);
+    return rows[0]?.n ?? 0;
+  },
+  remove: async (clientId, manager) => {
+    await manager.query(`DELETE ${CLIENT_FLAGS}`, [clientId]);
+  },
+};
 
 /**
  * Redacts or keeps one open flag (inside the caller's transaction; the sample row is locked).

@@ -4,6 +4,7 @@ import {
   Injectable,
   Logger,
   NotFoundException,
+  type OnModuleInit,
 } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
 import {
@@ -20,11 +21,13 @@ import type { Actor } from '../auth/session-user';
 import { ClientAccessService } from '../clients/client-access.service';
 import { coversScope, todayIso } from '../consents/consent-status';
 import { Consent } from '../consents/consent.entity';
+import { WithdrawalHooks } from '../consents/withdrawal-hooks';
 import { FamilyContact } from '../contacts/family-contact.entity';
 import { JobQueueService } from '../jobs/job-queue.service';
 import { ProfileVersion } from '../profile-versions/profile-version.entity';
 import { SUMMARY_MAIL_QUEUE } from './summary-delivery';
 import { summaryCharts } from './summary-message';
+import { summaryEmailsWithdrawalHook } from './summary-withdrawal';
 import { SummaryRecipient } from './summary-recipient.entity';
 import {
   figuresFromMetrics,
@@ -48,7 +51,7 @@ const REPORTABLE = ['trained', 'signed_off', 'active', 'retired', 'sent_back'] a
 const iso = (date: Date | null): string | null => (date ? date.toISOString() : null);
 
 @Injectable()
-export class SummariesService {
+export class SummariesService implements OnModuleInit {
   private readonly logger = new Logger('Summaries');
 
   constructor(
@@ -56,7 +59,12 @@ export class SummariesService {
     private readonly access: ClientAccessService,
     private readonly audit: AuditService,
     private readonly jobs: JobQueueService,
+    private readonly withdrawalHooks: WithdrawalHooks,
   ) {}
+
+  onModuleInit(): void {
+    this.withdrawalHooks.register('summaryEmails', summaryEmailsWithdrawalHook(this.audit));
+  }
 
   /** The client's summaries, newest first (owning clinician, supervisor). */
   async list(actor: Actor, clientId: string): Promise<SummaryDto[]> {

@@ -1,7 +1,7 @@
 import type PgBoss from 'pg-boss';
 import type { SendMailOptions } from 'nodemailer';
-import type { DataSource } from 'typeorm';
-import type { AuditService } from '../audit/audit.service';
+import type { DataSource, EntityManager } from 'typeorm';
+import type { AuditService, AuditSubject } from '../audit/audit.service';
 import { coversScope, todayIso } from '../consents/consent-status';
 import { Consent } from '../consents/consent.entity';
 import { FamilyContact } from '../contacts/family-contact.entity';
@@ -48,6 +48,27 @@ export type DeliveryOutcome = 'sent' | 'already-done' | 'failed' | 'withheld' | 
 export const WITHHELD_MESSAGE = 'Not sent: the contact stopped summaries or no longer consents.';
 export const CLIENT_CONSENT_WITHHELD_MESSAGE =
   'Not sent: the client’s consent no longer covers progress summaries (withdrawn or expired).';
+
+/**
+ * Marks a queued recipient failed without sending it, with the reason shown to the clinician, and
+ * audits it as withheld. Used at send time and when a consent withdrawal releases the summaries scope.
+ */
+export async function withholdRecipient(
+  manager: EntityManager,
+  audit: AuditService,
+  row: Pick<SummaryRecipient, 'id' | 'round'>,
+  subject: AuditSubject,
+  lastError: string,
+): Promise<void> {
+  await manager.getRepository(SummaryRecipient).update({ id: row.id }, { status: 'failed', lastError });
+  await audit.record(
+    null,
+    'summary.failed',
+    subject,
+    { recipientId: row.id, round: row.round, withheld: true },
+    manager,
+  );
+}
 
 /** Thrown for a failure worth retrying; pg-boss retries the job. */
 export class TransientMailError extends Error {}
@@ -110,14 +131,7 @@ export async function deliverSummaryEmail(
       );
     if (contactRefuses || clientRefuses) {
       const lastError = contactRefuses ? WITHHELD_MESSAGE : CLIENT_CONSENT_WITHHELD_MESSAGE;
-      await recipients.update({ id: row.id }, { status: 'failed', lastError });
-      await audit.record(
-        null,
-        'summary.failed',
-        subject,
-        { recipientId: row.id, round: row.round, withheld: true },
-        manager,
-      );
+      await withholdRecipient(manager, audit, row, subject, lastError);
       return 'withheld';
     }
     const message = buildSummaryMessage({

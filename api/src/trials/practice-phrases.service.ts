@@ -1,11 +1,11 @@
 import { ConflictException, Injectable, NotFoundException, type OnModuleInit } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
 import { builtInPracticePhrases, type CreatePracticePhraseInput, type PracticePhrase } from '@keyloom/shared';
-import type { DataSource, EntityManager } from 'typeorm';
+import type { DataSource } from 'typeorm';
 import { AuditService } from '../audit/audit.service';
 import type { Actor } from '../auth/session-user';
 import { ClientAccessService } from '../clients/client-access.service';
-import { WithdrawalHooks } from '../consents/withdrawal-hooks';
+import { clientRowsHook, WithdrawalHooks } from '../consents/withdrawal-hooks';
 import { isUniqueViolation } from '../database/database-errors';
 import { PracticePhraseRow } from './practice-phrase.entity';
 import { toPracticePhraseDto } from './trial.mapper';
@@ -30,8 +30,16 @@ export class PracticePhrasesService implements OnModuleInit {
   ) {}
 
   onModuleInit(): void {
-    this.withdrawalHooks.register('practicePhrases', (clientId, manager) =>
-      deleteClientPracticePhrases(clientId, manager, this.audit),
+    // The client's own phrases may quote the client: they go with the training consent.
+    this.withdrawalHooks.register(
+      'practicePhrases',
+      clientRowsHook({
+        entity: PracticePhraseRow,
+        scope: 'training',
+        audit: this.audit,
+        action: 'practice-phrase.delete',
+        idsKey: 'phraseIds',
+      }),
     );
   }
 
@@ -68,7 +76,7 @@ export class PracticePhrasesService implements OnModuleInit {
           actor,
           'practice-phrase.create',
           { type: 'practice-phrase', id: saved.id, clientId },
-          { text: input.text },
+          { characters: input.text.length },
           manager,
         );
         return toPracticePhraseDto(
@@ -97,29 +105,9 @@ export class PracticePhrasesService implements OnModuleInit {
         actor,
         'practice-phrase.delete',
         { type: 'practice-phrase', id: phraseId, clientId },
-        { text: row.text },
+        { characters: row.text.length },
         manager,
       );
     });
   }
-}
-
-/** The 'practicePhrases' withdrawal hook: deletes the client's own phrases (they may quote the client). */
-export async function deleteClientPracticePhrases(
-  clientId: string,
-  manager: EntityManager,
-  audit: AuditService,
-): Promise<number> {
-  const rows = await manager.getRepository(PracticePhraseRow).find({ where: { clientId }, select: ['id'] });
-  if (rows.length === 0) return 0;
-  await manager.getRepository(PracticePhraseRow).delete({ clientId });
-  // No actor: the consent.withdraw event beside it names who withdrew.
-  await audit.record(
-    null,
-    'practice-phrase.delete',
-    { type: 'client', id: clientId, clientId },
-    { reason: 'consent withdrawn', count: rows.length, phraseIds: rows.map((r) => r.id) },
-    manager,
-  );
-  return rows.length;
 }

@@ -4,6 +4,7 @@ import {
   ForbiddenException,
   Injectable,
   NotFoundException,
+  type OnModuleInit,
 } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
 import {
@@ -15,6 +16,7 @@ import {
 import type { DataSource } from 'typeorm';
 import { AuditService } from '../audit/audit.service';
 import type { Actor } from '../auth/session-user';
+import { clientRowsHook, WithdrawalHooks } from '../consents/withdrawal-hooks';
 import { isUniqueViolation } from '../database/database-errors';
 import { ProfileVersion } from '../profile-versions/profile-version.entity';
 import {
@@ -37,12 +39,28 @@ const TRIABLE: readonly ProfileVersionStatus[] = ['trained', 'signed_off', 'acti
 export type TrialUpload = { created: boolean; trial: TrialShape };
 
 @Injectable()
-export class TrialsService {
+export class TrialsService implements OnModuleInit {
   constructor(
     @InjectDataSource() private readonly dataSource: DataSource,
     private readonly versions: ProfileVersionsService,
     private readonly audit: AuditService,
+    private readonly withdrawalHooks: WithdrawalHooks,
   ) {}
+
+  onModuleInit(): void {
+    // Trials are runs of the client's profile versions (and may carry typed text): they go with the
+    // training consent, counted under their own name even when their version's deletion takes them.
+    this.withdrawalHooks.register(
+      'trials',
+      clientRowsHook({
+        entity: Trial,
+        scope: 'training',
+        audit: this.audit,
+        action: 'trial.delete',
+        idsKey: 'trialIds',
+      }),
+    );
+  }
 
   /** The version's trials, newest first (readers of the version). */
   async list(actor: Actor, versionId: string): Promise<TrialShape[]> {

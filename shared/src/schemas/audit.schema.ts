@@ -39,6 +39,7 @@ export const auditActionLabels = {
   'profile.model-download': 'Opened a version on the test keyboard',
   'profile.delete': 'Deleted a version (consent withdrawn)',
   'trial.create': 'Logged a trial on the test keyboard',
+  'trial.delete': 'Deleted trials (consent withdrawn)',
   'practice-phrase.create': 'Added a practice phrase',
   'practice-phrase.delete': 'Removed a practice phrase',
   'summary.create': 'Queued a progress summary',

@@ -70,12 +70,35 @@ export type WithdrawConsentInput = z.infer<typeof withdrawConsentSchema>;
 export const consentRecordStatuses = ['active', 'expired', 'withdrawn'] as const;
 
 // What a withdrawal removed, kept with the consent record as the trace that it happened.
+// Data is removed only for a scope of the withdrawn consent that no other consent in force still
+// covers: withdrawing a summaries-only consent never deletes the samples a training consent allows.
 export const withdrawalReportSchema = z.object({
   samplesDeleted: z.number().int(),
-  // Later issues add their own counts (profile versions, trials…) under their own keys.
+  // Rows deleted besides the samples, one count per kind (sampleFlags, profileVersions, trials,
+  // practicePhrases…), zeros included.
   derived: z.record(z.string(), z.number().int()),
+  // Things stopped rather than deleted (queued summary e-mails that will not be sent).
+  cancelled: z.record(z.string(), z.number().int()).optional(),
+  // Scopes of this consent that another consent in force still covers: nothing of theirs is deleted.
+  keptScopes: z.array(consentScopeSchema).optional(),
 });
 export type WithdrawalReport = z.infer<typeof withdrawalReportSchema>;
+
+// GET /api/clients/:id/consents/:consentId/withdrawal-preview — what withdrawing would do now,
+// counted in the same way as the withdrawal itself, before the clinician confirms.
+export const withdrawalPreviewSchema = z.object({
+  consentId: z.uuid(),
+  report: withdrawalReportSchema,
+  // For each scope of the consent: the other consents in force that still cover it (empty: its
+  // data goes).
+  scopes: z.array(
+    z.object({
+      scope: consentScopeSchema,
+      coveredBy: z.array(z.object({ id: z.uuid(), givenOn: z.string(), expiresOn: z.string().nullable() })),
+    }),
+  ),
+});
+export type WithdrawalPreview = z.infer<typeof withdrawalPreviewSchema>;
 
 export const consentSchema = z.object({
   id: z.uuid(),

@@ -105,7 +105,6 @@ export const demoSamplesStep: SeedStep = {
         'sample.upload',
         { type: 'sample', id: sample.id, clientId: client.id },
         {
-          fileName: demo.file,
           sha256: prepared.sha256,
           byteSize: prepared.byteSize,
           flags: countKinds(prepared.matches),

@@ -49,7 +49,7 @@ export const demoVersionStep: SeedStep = {
         actor,
         'practice-phrase.create',
         { type: 'practice-phrase', id: phrase.id, clientId: client.id },
-        { text: DEMO_PRACTICE_PHRASE, by: 'seed' },
+        { characters: DEMO_PRACTICE_PHRASE.length, by: 'seed' },
         manager,
       );
       log('added a practice phrase of his own');

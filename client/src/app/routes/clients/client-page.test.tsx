@@ -146,22 +146,51 @@ describe('Client page', () => {
     expect(api.requestsTo(`POST ${base}/consents`)).toHaveLength(0);
   });
 
-  it('states what a withdrawal deletes, requires a reason, then reports what was deleted', async () => {
+  it('lists what a withdrawal will delete before asking for a reason, then reports what was deleted', async () => {
+    const consent = consentRecord();
+    const report = {
+      samplesDeleted: 3,
+      derived: { sampleFlags: 0, profileVersions: 2, trials: 7, practicePhrases: 1 },
+      cancelled: { summaryEmails: 1 },
+      keptScopes: [],
+    };
     const withdrawn = consentRecord({
       status: 'withdrawn',
       withdrawnAt: '2026-10-05T10:00:00.000Z',
       withdrawalReason: 'He asked by e-mail.',
-      withdrawal: { samplesDeleted: 3, derived: {} },
+      withdrawal: report,
     });
     const { user, api } = await openClient('clinician', 'consent', {
+      [`GET ${base}/consents/${consent.id}/withdrawal-preview`]: {
+        body: {
+          consentId: consent.id,
+          report,
+          scopes: [
+            { scope: 'training', coveredBy: [] },
+            { scope: 'summaries', coveredBy: [] },
+          ],
+        },
+      },
       [`POST ${base}/consents/${withdrawn.id}/withdraw`]: { body: withdrawn },
     });
     await user.click(await screen.findByRole('button', { name: 'Withdraw the consent given on 2026-09-14' }));
     const dialog = await screen.findByRole('dialog', { name: 'Withdraw consent for R. Ashby?' });
-    expect(dialog).toHaveAccessibleDescription(
-      /permanently delete all 3 language samples of R\. Ashby, and every model trained from them.*This cannot be undone\./,
+    await waitFor(() =>
+      expect(dialog).toHaveAccessibleDescription(
+        /permanently delete what this consent alone allowed for R\. Ashby.*This cannot be undone\./,
+      ),
     );
     const form = within(dialog);
+    const deletes = within(form.getByRole('region', { name: 'Will be deleted' }));
+    expect(deletes.getAllByRole('listitem').map((item) => item.textContent)).toEqual([
+      '3 language samples',
+      '2 profile versions (their models and measures)',
+      '7 test keyboard trials',
+      '1 practice phrase of the client’s own',
+    ]);
+    expect(
+      within(form.getByRole('region', { name: 'Will not be sent' })).getByRole('listitem'),
+    ).toHaveTextContent('1 queued summary e-mail');
     await user.click(form.getByRole('button', { name: 'Withdraw and delete 3 language samples' }));
     expect(await form.findByText('Say why consent was withdrawn (for the record).')).toBeInTheDocument();
     expect(api.requestsTo(`POST ${base}/consents/${withdrawn.id}/withdraw`)).toHaveLength(0);
@@ -170,12 +199,66 @@ describe('Client page', () => {
     await user.click(form.getByRole('button', { name: 'Withdraw and delete 3 language samples' }));
     await waitFor(() =>
       expect(screen.getByRole('status')).toHaveTextContent(
-        'Consent withdrawn. 3 language samples were deleted.',
+        'Consent withdrawn. Deleted: 3 language samples, 2 profile versions (their models and measures), 7 test keyboard trials, 1 practice phrase of the client’s own. Not sent: 1 queued summary e-mail.',
       ),
     );
+    // The button that opened the dialog is gone with the withdrawal: focus lands on the records' heading.
+    await waitFor(() => expect(screen.getByRole('heading', { name: 'Consent records' })).toHaveFocus());
     expect(api.requestsTo(`POST ${base}/consents/${withdrawn.id}/withdraw`)[0]?.body).toEqual({
       reason: 'He asked by e-mail.',
     });
+  });
+
+  it('says nothing will be deleted when another consent still covers training, and names it', async () => {
+    const older = consentRecord({ id: '7a2b3c4d-5e6f-4a8b-9c0d-1e2f3a4b5c62', scopes: ['training'] });
+    const newer = consentRecord({ givenOn: '2026-10-01', scopes: ['training'] });
+    const { user } = await openClient('clinician', 'consent', {
+      [`GET ${base}/consents`]: { body: [newer, older] },
+      [`GET ${base}/consents/${newer.id}/withdrawal-preview`]: {
+        body: {
+          consentId: newer.id,
+          report: {
+            samplesDeleted: 0,
+            derived: { profileVersions: 0, trials: 0 },
+            cancelled: {},
+            keptScopes: ['training'],
+          },
+          scopes: [
+            { scope: 'training', coveredBy: [{ id: older.id, givenOn: '2026-09-14', expiresOn: null }] },
+          ],
+        },
+      },
+    });
+    await user.click(await screen.findByRole('button', { name: 'Withdraw the consent given on 2026-10-01' }));
+    const dialog = await screen.findByRole('dialog', { name: 'Withdraw consent for R. Ashby?' });
+    await waitFor(() =>
+      expect(dialog).toHaveAccessibleDescription(
+        /Nothing will be deleted for R\. Ashby\. The consent given on 2026-09-14 still covers training a personal model on the client’s writing, so nothing it allows is deleted\./,
+      ),
+    );
+    const form = within(dialog);
+    expect(form.queryByRole('region', { name: 'Will be deleted' })).not.toBeInTheDocument();
+    expect(form.getByRole('button', { name: 'Withdraw consent' })).toBeInTheDocument();
+  });
+
+  it('shows the stored report of a withdrawn consent in plain words', async () => {
+    await openClient('supervisor', 'consent', {
+      [`GET ${base}/consents`]: {
+        body: [
+          consentRecord({
+            status: 'withdrawn',
+            withdrawnAt: '2026-10-05T10:00:00.000Z',
+            withdrawal: {
+              samplesDeleted: 0,
+              derived: { trials: 0 },
+              cancelled: {},
+              keptScopes: ['training'],
+            },
+          }),
+        ],
+      },
+    });
+    expect(await screen.findByText('Nothing was deleted.')).toBeInTheDocument();
   });
 
   it('lets the owner assign an available carer', async () => {

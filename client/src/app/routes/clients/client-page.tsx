@@ -104,7 +104,6 @@ export const ClientRoute = () => {
       <ConsentPanel
         clientId={data.id}
         pseudonym={data.pseudonym}
-        sampleCount={data.sampleCount}
         canEdit={role === 'clinician'}
         announce={announce}
       />

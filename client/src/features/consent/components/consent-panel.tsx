@@ -1,5 +1,5 @@
 import type { Consent, Contact } from '@keyloom/shared';
-import { useState } from 'react';
+import { useEffect, useRef, useState } from 'react';
 import { PageLoading } from '@/components/layout/page-loading';
 import { Button } from '@/components/ui/button';
 import { EmptyState } from '@/components/ui/empty-state';
@@ -11,29 +11,41 @@ import { ContactDialog } from './contact-dialog';
 import { ContactsTable } from './contacts-table';
 import { RecordConsentDialog } from './record-consent-dialog';
 import { WithdrawConsentDialog } from './withdraw-consent-dialog';
+import { reportSentence } from './withdrawal-words';
 
 type ConsentPanelProps = {
   clientId: string;
   pseudonym: string;
-  sampleCount: number;
   /** Owning clinician; supervisors read only. */
   canEdit: boolean;
   announce: (tone: 'success' | 'error', text: string) => void;
 };
 
 /** The "Consent & family" tab: consent records, withdrawal, scanned forms and family contacts. */
-export const ConsentPanel = ({ clientId, pseudonym, sampleCount, canEdit, announce }: ConsentPanelProps) => {
+export const ConsentPanel = ({ clientId, pseudonym, canEdit, announce }: ConsentPanelProps) => {
   const consents = useConsents(clientId);
   const contacts = useContacts(clientId);
   const [recording, setRecording] = useState(false);
   const [withdrawing, setWithdrawing] = useState<Consent | null>(null);
   const [editingContact, setEditingContact] = useState<Contact | 'new' | null>(null);
+  // After a withdrawal the button that opened the dialog is gone: focus goes to the records' heading,
+  // once the dialog has closed, so keyboard users carry on from the list that shows the report.
+  const recordsHeading = useRef<HTMLHeadingElement>(null);
+  const [focusRecords, setFocusRecords] = useState(false);
+  useEffect(() => {
+    if (!focusRecords) return;
+    const timer = window.setTimeout(() => {
+      recordsHeading.current?.focus();
+      setFocusRecords(false);
+    }, 0);
+    return () => window.clearTimeout(timer);
+  }, [focusRecords]);
 
   return (
     <div className="flex flex-col gap-10">
       <section aria-labelledby="consent-heading" className="flex flex-col gap-4">
         <div className="flex flex-wrap items-center justify-between gap-3">
-          <h3 id="consent-heading" className="text-2xl font-bold">
+          <h3 id="consent-heading" ref={recordsHeading} tabIndex={-1} className="text-2xl font-bold">
             Consent records
           </h3>
           {canEdit && (
@@ -43,8 +55,10 @@ export const ConsentPanel = ({ clientId, pseudonym, sampleCount, canEdit, announ
           )}
         </div>
         <p className="max-w-3xl text-ink-soft">
-          Writing can be uploaded, and a model trained, only while a consent for model training is active. A
-          withdrawal deletes the client’s language samples and everything trained from them.
+          Writing can be uploaded, and a model trained, only while a consent for model training is active.
+          Withdrawing a consent deletes only what no other active consent still covers: the language samples
+          and everything trained from them go once no consent covers training, and queued summary e-mails are
+          stopped once none covers summaries. The dialog lists what will go before you confirm.
         </p>
         {consents.isPending && <PageLoading />}
         {consents.isError && (
@@ -112,15 +126,14 @@ export const ConsentPanel = ({ clientId, pseudonym, sampleCount, canEdit, announ
           <WithdrawConsentDialog
             clientId={clientId}
             pseudonym={pseudonym}
-            sampleCount={sampleCount}
             consent={withdrawing}
             onClose={() => setWithdrawing(null)}
             onWithdrawn={(consent) => {
               setWithdrawing(null);
-              const deleted = consent.withdrawal?.samplesDeleted ?? 0;
+              setFocusRecords(true);
               announce(
                 'success',
-                `Consent withdrawn. ${deleted} language sample${deleted === 1 ? ' was' : 's were'} deleted.`,
+                `Consent withdrawn. ${consent.withdrawal ? reportSentence(consent.withdrawal) : ''}`.trim(),
               );
             }}
           />

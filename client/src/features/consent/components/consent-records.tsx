@@ -6,6 +6,7 @@ import { Button } from '@/components/ui/button';
 import { env } from '@/config/env';
 import { formatDateTime } from '@/lib/format';
 import { consentDocumentPath, useUploadConsentDocument } from '../api/upload-consent-document';
+import { reportSentence } from './withdrawal-words';
 
 const statusWords: Record<Consent['status'], { label: string; tone: BadgeTone }> = {
   active: { label: 'Active', tone: 'good' },
@@ -17,16 +18,6 @@ const DOCUMENT_MAX_BYTES = 10 * 1024 * 1024;
 const DOCUMENT_ACCEPT = '.pdf,.png,.jpg,.jpeg,application/pdf,image/png,image/jpeg';
 
 const kilobytes = (bytes: number) => `${Math.max(1, Math.round(bytes / 1024))} KB`;
-
-const derivedLine = (consent: Consent): string | null => {
-  const report = consent.withdrawal;
-  if (!report) return null;
-  const parts = [`${report.samplesDeleted} language sample${report.samplesDeleted === 1 ? '' : 's'}`];
-  for (const [name, count] of Object.entries(report.derived)) {
-    if (name !== 'samples') parts.push(`${count} ${name}`);
-  }
-  return `Deleted: ${parts.join(', ')}.`;
-};
 
 type DocumentUploadProps = { clientId: string; consent: Consent; onDone: (message: string) => void };
 
@@ -102,7 +93,6 @@ export const ConsentRecords = ({
     <ul className="flex flex-col gap-4">
       {sorted.map((consent) => {
         const status = statusWords[consent.status];
-        const deleted = derivedLine(consent);
         return (
           <li key={consent.id} className="rounded-xl border-2 border-thread bg-surface p-4 sm:p-5">
             <article aria-label={`Consent given on ${consent.givenOn}`} className="flex flex-col gap-3">
@@ -150,7 +140,7 @@ export const ConsentRecords = ({
                   title={`Withdrawn${consent.withdrawnAt ? ` on ${formatDateTime(consent.withdrawnAt)}` : ''}`}
                 >
                   {consent.withdrawalReason && <p>Reason: {consent.withdrawalReason}</p>}
-                  {deleted && <p>{deleted}</p>}
+                  {consent.withdrawal && <p>{reportSentence(consent.withdrawal)}</p>}
                 </Alert>
               )}
               {canEdit && consent.status !== 'withdrawn' && (
