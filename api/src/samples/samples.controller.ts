@@ -8,6 +8,7 @@ import {
   Post,
   Req,
   UploadedFiles,
+  UseGuards,
   UseInterceptors,
 } from '@nestjs/common';
 import {
@@ -35,6 +36,7 @@ import {
 import type { Request } from 'express';
 import { z } from 'zod';
 import { CurrentActor } from '../auth/decorators/current-user.decorator';
+import { OwnedClientGuard } from '../clients/owned-client.guard';
 import type { Actor } from '../auth/session-user';
 import { zodSchemaObject } from '../common/openapi/zod-schema-object';
 import { parseOrThrow, ZodValidationPipe } from '../common/pipes/zod-validation.pipe';
@@ -56,6 +58,8 @@ export class SamplesController {
   constructor(private readonly samples: SamplesService) {}
 
   @Post('clients/:id/samples')
+  // Role and caseload are checked before the body is read (guards run before interceptors).
+  @UseGuards(OwnedClientGuard)
   @UseInterceptors(SampleFilesInterceptor)
   @ApiOperation({
     summary: 'Upload language samples (multipart) or paste one (JSON)',
