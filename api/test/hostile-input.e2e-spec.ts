@@ -64,19 +64,24 @@ function cookieHeader(who: Caller): string {
 
 type StreamedUpload = { status: number; body: string; sentWhenAnswered: number; totalBytes: number };
 
+type UploadPlan = {
+  method: 'POST' | 'PUT';
+  path: string;
+  field: string;
+  files: number;
+  fileBytes: number;
+  /** Send Content-Length; otherwise the body is chunked, its size unknown in advance. */
+  declareLength: boolean;
+};
+
 /**
  * Streams a multipart body of `files` files of `fileBytes` bytes each to `path` with node:http,
  * writing only as fast as the server reads (backpressure), and stops writing once the answer arrives.
- * `declareLength` sends Content-Length (otherwise the body is chunked, its size unknown in advance).
  */
 function streamUpload(
   server: Server,
   who: Caller,
-  path: string,
-  field: string,
-  files: number,
-  fileBytes: number,
-  declareLength: boolean,
+  { method, path, field, files, fileBytes, declareLength }: UploadPlan,
 ): Promise<StreamedUpload> {
   const boundary = `hostile-${randomUUID()}`;
   const fieldsPart = `--${boundary}\r\nContent-Disposition: form-data; name="sourceKind"\r\n\r\ndiary\r\n`;
@@ -96,7 +101,7 @@ function streamUpload(
       host: '127.0.0.1',
       port,
       path,
-      method: 'POST',
+      method,
       headers: {
         'Content-Type': `multipart/form-data; boundary=${boundary}`,
         Cookie: cookieHeader(who),
@@ -243,15 +248,14 @@ describe('hostile input (HTTP)', () => {
     it('refuses a carer’s large upload with 403 before reading its body', async () => {
       // 8 files of 10 MB, sent chunked: 80 MB the API would hold in memory if it read them first.
       const { result, growth } = await peakRssGrowth(() =>
-        streamUpload(
-          listening,
-          cast.assignedCarer,
-          `/api/clients/${clientId}/samples`,
-          'files',
-          8,
-          10 * MB,
-          false,
-        ),
+        streamUpload(listening, cast.assignedCarer, {
+          method: 'POST',
+          path: `/api/clients/${clientId}/samples`,
+          field: 'files',
+          files: 8,
+          fileBytes: 10 * MB,
+          declareLength: false,
+        }),
       );
       console.log(
         `carer upload: ${(result.totalBytes / MB).toFixed(0)} MB body, answered ${result.status} after ` +
@@ -266,16 +270,22 @@ describe('hostile input (HTTP)', () => {
 
     it('refuses a consent form upload to another clinician’s client with 404 before reading it', async () => {
       // 30 MB: three times the form limit, so reading it at all would end in 413, not 404.
-      const result = await streamUpload(
-        listening,
-        cast.otherClinician,
-        `/api/clients/${clientId}/consents/${consentId}/document`,
-        'file',
-        1,
-        30 * MB,
-        false,
+      const result = await streamUpload(listening, cast.otherClinician, {
+        method: 'PUT',
+        path: `/api/clients/${clientId}/consents/${consentId}/document`,
+        field: 'file',
+        files: 1,
+        fileBytes: 30 * MB,
+        declareLength: false,
+      });
+      console.log(
+        `consent form to another clinician's client: ${(result.totalBytes / MB).toFixed(0)} MB body, answered ` +
+          `${result.status} after ${(result.sentWhenAnswered / MB).toFixed(1)} MB were sent`,
       );
       expect(result.status).toBe(404);
+      expect(JSON.parse(result.body)).toMatchObject({
+        message: 'There is no client with that id in your caseload.',
+      });
       expect(result.sentWhenAnswered).toBeLessThan(16 * MB);
     });
 
@@ -284,15 +294,14 @@ describe('hostile input (HTTP)', () => {
       // Files under the per-file limit, but together over the client's total.
       const fileBytes = limits.maxFileBytes - MB;
       const files = Math.ceil((limits.maxClientBytes + 2 * MB) / fileBytes);
-      const result = await streamUpload(
-        listening,
-        cast.owner,
-        `/api/clients/${clientId}/samples`,
-        'files',
+      const result = await streamUpload(listening, cast.owner, {
+        method: 'POST',
+        path: `/api/clients/${clientId}/samples`,
+        field: 'files',
         files,
         fileBytes,
-        true,
-      );
+        declareLength: true,
+      });
       console.log(
         `owner upload declared ${(result.totalBytes / MB).toFixed(0)} MB: answered ${result.status} after ` +
           `${(result.sentWhenAnswered / MB).toFixed(1)} MB were sent`,
