@@ -18,6 +18,7 @@ import {
   type TrainingRuntime,
 } from '../src/profile-versions/profile-training';
 import type { ProfileVersionDto } from '../src/profile-versions/profile-version.mapper';
+import { UPLOAD_LENGTH_REQUIRED_MESSAGE } from '../src/samples/sample-files.interceptor';
 import { type Caller, type Cast, newCast, newClient, newConsent, send } from './caseload-helpers';
 import { binaryBody } from './factories';
 import { createTestApp, resetDatabase, type TestApp } from './test-app';
@@ -310,6 +311,24 @@ describe('hostile input (HTTP)', () => {
       expect(JSON.parse(result.body).message).toMatch(
         /^The upload is larger than .* the most one upload can hold/,
       );
+      expect(result.sentWhenAnswered).toBeLessThan(16 * MB);
+    });
+
+    it('refuses an owner’s chunked upload (size unknown in advance) with 411 before reading it', async () => {
+      const result = await streamUpload(listening, cast.owner, {
+        method: 'POST',
+        path: `/api/clients/${clientId}/samples`,
+        field: 'files',
+        files: 12,
+        fileBytes: 10 * MB,
+        declareLength: false,
+      });
+      console.log(
+        `owner chunked upload of ${(result.totalBytes / MB).toFixed(0)} MB: answered ${result.status} after ` +
+          `${(result.sentWhenAnswered / MB).toFixed(1)} MB were sent`,
+      );
+      expect(result.status).toBe(411);
+      expect(JSON.parse(result.body).message).toBe(UPLOAD_LENGTH_REQUIRED_MESSAGE);
       expect(result.sentWhenAnswered).toBeLessThan(16 * MB);
     });
   });

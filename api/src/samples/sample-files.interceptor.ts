@@ -3,6 +3,7 @@ import {
   type CallHandler,
   type ExecutionContext,
   HttpException,
+  HttpStatus,
   Injectable,
   type NestInterceptor,
   PayloadTooLargeException,
@@ -13,6 +14,9 @@ import type { Request } from 'express';
 import type { Observable } from 'rxjs';
 import { AppConfig } from '../config/app-config';
 import { sizeLabel } from './sample-ingest';
+
+export const UPLOAD_LENGTH_REQUIRED_MESSAGE =
+  'The upload did not say how large it is (no Content-Length). Nothing was stored; upload the files from the form.';
 
 /** Room for the multipart boundaries, part headers and text fields around the files. */
 const MULTIPART_ALLOWANCE = 1024 * 1024;
@@ -46,7 +50,13 @@ export class SampleFilesInterceptor implements NestInterceptor {
   async intercept(context: ExecutionContext, next: CallHandler): Promise<Observable<unknown>> {
     const request = context.switchToHttp().getRequest<Request>();
     const declared = Number(request.headers['content-length']);
-    if (request.is('multipart/form-data') && declared > this.maxRequestBytes) {
+    const multipart = Boolean(request.is('multipart/form-data'));
+    if (multipart && request.headers['content-length'] === undefined) {
+      // A chunked upload's size is unknown until all of it has arrived: refused unread with 411
+      // Length Required (RFC 9110, section 15.5.12). Browsers send the length of a form's files.
+      throw new HttpException(UPLOAD_LENGTH_REQUIRED_MESSAGE, HttpStatus.LENGTH_REQUIRED);
+    }
+    if (multipart && declared > this.maxRequestBytes) {
       // Refused on its declared length, before multer buffers any of it.
       throw new PayloadTooLargeException(
         `The upload is larger than ${sizeLabel(this.maxRequestBytes - MULTIPART_ALLOWANCE)}, the most one upload ` +

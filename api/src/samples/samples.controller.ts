@@ -68,7 +68,7 @@ export class SamplesController {
       'UTF-16; ≤ SAMPLE_MAX_FILE_MB each → 413; ≤ SAMPLE_MAX_FILES → 400) and the fields of ' +
       'uploadSamplesFieldsSchema (csvColumn names the CSV column that holds the text). JSON: pasteSampleSchema ' +
       '(pasted text ≤ 100 kB of UTF-8, 400 above). A caller who may not upload is refused before the body is ' +
-      'read; a multipart body declared larger than the client may hold: 413 unread. Every file is checked before anything is stored; all are stored in one transaction. ' +
+      'read; a multipart body declared larger than the client may hold: 413 unread; without Content-Length: 411. Every file is checked before anything is stored; all are stored in one transaction. ' +
       'Files whose bytes this client already has are listed in "duplicates" and not stored. Over ' +
       'SAMPLE_MAX_CLIENT_MB for the client: 413.',
   })
