@@ -58,3 +58,10 @@ export function sessionCookie(res: request.Response): string | undefined {
   const lines = Array.isArray(raw) ? (raw as string[]) : typeof raw === 'string' ? [raw] : [];
   return lines.find((line) => line.startsWith('keyloom.sid='));
 }
+
+/** supertest parser that keeps a binary response body as a Buffer (`.buffer(true).parse(binaryBody)`). */
+export function binaryBody(res: request.Response, done: (error: Error | null, body: Buffer) => void): void {
+  const chunks: Buffer[] = [];
+  res.on('data', (chunk: Buffer) => chunks.push(chunk));
+  res.on('end', () => done(null, Buffer.concat(chunks)));
+}

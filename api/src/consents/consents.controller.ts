@@ -10,6 +10,7 @@ import {
   Put,
   StreamableFile,
   UploadedFile,
+  UseGuards,
   UseInterceptors,
 } from '@nestjs/common';
 import { FileInterceptor } from '@nestjs/platform-express';
@@ -36,6 +37,7 @@ import { z } from 'zod';
 import { CurrentActor } from '../auth/decorators/current-user.decorator';
 import type { Actor } from '../auth/session-user';
 import { Roles } from '../auth/decorators/roles.decorator';
+import { OwnedClientGuard } from '../clients/owned-client.guard';
 import { zodSchemaObject } from '../common/openapi/zod-schema-object';
 import { ZodValidationPipe } from '../common/pipes/zod-validation.pipe';
 import {
@@ -112,6 +114,8 @@ export class ConsentsController {
 
   @Put(':consentId/document')
   @Roles('clinician')
+  // The caseload is checked before multer reads the file (guards run before interceptors).
+  @UseGuards(OwnedClientGuard)
   @UseInterceptors(
     ConsentDocumentErrors,
     FileInterceptor('file', {

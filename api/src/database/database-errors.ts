@@ -45,3 +45,16 @@ export function isUniqueViolation(error: unknown): boolean {
   const e = error as MaybeDbError;
   return e.code === '23505' || isUniqueViolation(e.driverError);
 }
+
+/**
+ * PostgreSQL "Class 22 — Data Exception" (PostgreSQL documentation, Appendix A "PostgreSQL Error
+ * Codes"): a value the request carried that the database cannot take — an invalid byte sequence
+ * (22021), a date out of range (22008), a malformed number or date (22P02, 22007), a number out of
+ * range (22003), text too long for its column (22001). The input's fault, not the server's.
+ */
+export function isBadValueForDatabase(error: unknown, depth = 0): boolean {
+  if (depth > 3 || typeof error !== 'object' || error === null) return false;
+  const e = error as MaybeDbError;
+  if (typeof e.code === 'string' && /^22[0-9A-Z]{3}$/.test(e.code)) return true;
+  return e.driverError !== undefined && isBadValueForDatabase(e.driverError, depth + 1);
+}

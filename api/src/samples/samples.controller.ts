@@ -8,6 +8,7 @@ import {
   Post,
   Req,
   UploadedFiles,
+  UseGuards,
   UseInterceptors,
 } from '@nestjs/common';
 import {
@@ -35,6 +36,7 @@ import {
 import type { Request } from 'express';
 import { z } from 'zod';
 import { CurrentActor } from '../auth/decorators/current-user.decorator';
+import { OwnedClientGuard } from '../clients/owned-client.guard';
 import type { Actor } from '../auth/session-user';
 import { zodSchemaObject } from '../common/openapi/zod-schema-object';
 import { parseOrThrow, ZodValidationPipe } from '../common/pipes/zod-validation.pipe';
@@ -56,6 +58,8 @@ export class SamplesController {
   constructor(private readonly samples: SamplesService) {}
 
   @Post('clients/:id/samples')
+  // Role and caseload are checked before the body is read (guards run before interceptors).
+  @UseGuards(OwnedClientGuard)
   @UseInterceptors(SampleFilesInterceptor)
   @ApiOperation({
     summary: 'Upload language samples (multipart) or paste one (JSON)',
@@ -63,7 +67,8 @@ export class SamplesController {
       `${ACCESS} Needs an active training consent (409). Multipart: field "files" (.txt, .md, .csv; UTF-8 or ` +
       'UTF-16; ≤ SAMPLE_MAX_FILE_MB each → 413; ≤ SAMPLE_MAX_FILES → 400) and the fields of ' +
       'uploadSamplesFieldsSchema (csvColumn names the CSV column that holds the text). JSON: pasteSampleSchema ' +
-      '(≤ 100 kB body). Every file is checked before anything is stored; all are stored in one transaction. ' +
+      '(pasted text ≤ 100 kB of UTF-8, 400 above). A caller who may not upload is refused before the body is ' +
+      'read; a multipart body declared larger than the client may hold: 413 unread; without Content-Length: 411. Every file is checked before anything is stored; all are stored in one transaction. ' +
       'Files whose bytes this client already has are listed in "duplicates" and not stored. Over ' +
       'SAMPLE_MAX_CLIENT_MB for the client: 413.',
   })

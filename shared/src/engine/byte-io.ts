@@ -10,6 +10,22 @@ export class FormatError extends Error {
   }
 }
 
+/**
+ * Checks a count read from a file against the bytes that could hold it, before anything is allocated
+ * for it: `count` items of at least `minBytesEach` bytes need that many bytes. A forged count ("400
+ * million contexts" in a 6 kB file) is refused here instead of allocating gigabytes.
+ */
+export function requireDeclaredFits(
+  count: number,
+  what: string,
+  minBytesEach: number,
+  available: number,
+): void {
+  if (!Number.isSafeInteger(count) || count < 0 || count * minBytesEach > available) {
+    throw new FormatError(`damaged: declares ${count} ${what} but holds only ${available} bytes`);
+  }
+}
+
 export class ByteWriter {
   private bytes = new Uint8Array(1024);
   length = 0;

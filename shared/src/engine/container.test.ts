@@ -91,6 +91,28 @@ describe('container', () => {
     }
   });
 
+  it('refuses a declared length its payload cannot hold without allocating it (header checksum recomputed)', () => {
+    const packed = compressBytes(utf8('a short note'), { order: 3, escape: 'C' });
+    const forged = packed.slice();
+    const view = new DataView(forged.buffer);
+    // 2^31 code points of 1 byte each: an 8 GB array if the length were trusted.
+    view.setUint32(12, 2 ** 31, true);
+    view.setUint32(16, 2 ** 31, true);
+    view.setUint32(28, crc32(forged, 0, 0, 28), true);
+    const before = process.memoryUsage().arrayBuffers;
+    expect(() => decompressBytes(forged)).toThrow(
+      /^damaged: declares 2147483648 code points but holds only \d+ bytes$/,
+    );
+    expect(process.memoryUsage().arrayBuffers - before).toBeLessThan(64 * 1024 * 1024);
+  });
+
+  it('still restores text that compresses extremely well (many code points per payload byte)', () => {
+    const input = utf8('a'.repeat(300_000));
+    const packed = compressBytes(input, { order: 2, escape: 'D' });
+    expect(input.length / packed.length).toBeGreaterThan(100);
+    expect(decompressBytes(packed)).toEqual(input);
+  });
+
   it('rejects a truncated file and a wrong magic', () => {
     const packed = compressBytes(sample, { order: 5, escape: 'C' });
     expect(() => decompressBytes(packed.subarray(0, packed.length - 1))).toThrow(/truncated/);

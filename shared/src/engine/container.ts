@@ -28,6 +28,14 @@ import { decodeUtf8, encodeUtf8 } from './utf8-codec';
 const MAGIC = [0x8b, 0x4b, 0x4c, 0x43];
 const VERSION = 1;
 const HEADER_BYTES = 32;
+/**
+ * Most code points one payload byte can carry, with room to spare (derived, no outside source): an
+ * entry's count stays under MAX_COUNT (1023) and every context keeps a non-zero escape, so the likeliest
+ * symbol has probability at most 2045/2046 (escape method D) and costs at least 0.0007 bits, i.e. at
+ * most about 11,300 code points per byte. The range coder reads up to 8 bytes past a short stream.
+ */
+const MAX_CODE_POINTS_PER_BYTE = 65_536;
+const CODER_SLACK_BYTES = 8;
 
 export type ContainerSettings = Pick<PpmSettings, 'order' | 'escape'> &
   Partial<Pick<PpmSettings, 'exclusion' | 'updateExclusion' | 'alphabetSize'>>;
@@ -88,6 +96,9 @@ export function decompressBytes(file: Uint8Array): Uint8Array {
     throw new FormatError('damaged file: bad settings');
   if (length > byteLength || byteLength > 4 * length)
     throw new FormatError('damaged file: inconsistent lengths');
+  // The decoder sizes its output by `length`: checked against the payload before it allocates.
+  if (length > (payloadLength + CODER_SLACK_BYTES) * MAX_CODE_POINTS_PER_BYTE)
+    throw new FormatError(`damaged: declares ${length} code points but holds only ${payloadLength} bytes`);
   const model = new PpmModel({
     order,
     escape: escape as EscapeMethod,

@@ -88,6 +88,31 @@ describe('serializeModel / deserializeModel', () => {
     version[4] = 9;
     expect(() => deserializeModel(version)).toThrow(/version/);
   });
+
+  it('refuses declared counts the bytes cannot hold before allocating for them (checksum recomputed)', () => {
+    const bytes = serializeModel(PpmModel.train(text.subarray(0, 3000), { order: 3 }));
+    const trieBytes = bytes.length - 28;
+    const forged = (offset: number, value: number) => {
+      const copy = bytes.slice();
+      const view = new DataView(copy.buffer);
+      view.setUint32(offset, value, true);
+      view.setUint32(copy.length - 4, crc32(copy, 0, 0, copy.length - 4), true);
+      return copy;
+    };
+    const before = process.memoryUsage().arrayBuffers;
+    expect(() => deserializeModel(forged(16, 400_000_000))).toThrow(
+      `damaged: declares 400000000 contexts but holds only ${trieBytes} bytes`,
+    );
+    expect(() => deserializeModel(forged(20, 0xffffffff))).toThrow(
+      `damaged: declares 4294967295 entries but holds only ${trieBytes} bytes`,
+    );
+    // Either count alone fits, both together do not.
+    expect(() => deserializeModel(forged(16, trieBytes - 2))).toThrow(
+      /damaged: declares .* bytes of contexts and entries/,
+    );
+    // Nothing of the declared size was allocated (400 million contexts would take gigabytes).
+    expect(process.memoryUsage().arrayBuffers - before).toBeLessThan(16 * 1024 * 1024);
+  });
 });
 
 describe('large models', () => {

@@ -21,11 +21,13 @@
 import { PpmModel, CONTEXT_TOTAL_LIMIT } from './ppm-model';
 import { ContextTrie, MAX_COUNT, NONE } from './context-trie';
 import { crc32 } from './crc32';
-import { ByteReader, ByteWriter, FormatError } from './byte-io';
+import { ByteReader, ByteWriter, FormatError, requireDeclaredFits } from './byte-io';
 import { type EscapeMethod } from './ppm-settings';
 
 const MAGIC = [0x8b, 0x4b, 0x4c, 0x4d];
 const VERSION = 1;
+/** Bytes before the trie (magic to entry count). */
+const HEADER_BYTES = 24;
 
 /** Serialises a PpmModel (see the layout above). */
 export function serializeModel(model: PpmModel): Uint8Array {
@@ -97,17 +99,28 @@ export function deserializeModel(bytes: Uint8Array): PpmModel {
     throw new FormatError(`model kept counts under ${limit}, this engine uses ${CONTEXT_TOTAL_LIMIT}`);
   const nodes = r.u32();
   const entries = r.u32();
+  // Each node takes at least one byte (its entry count) and each entry at least two (symbol and
+  // count), so the declared sizes must fit in the trie's bytes before anything is sized by them.
+  const trieBytes = bytes.length - 4 - HEADER_BYTES;
+  requireDeclaredFits(nodes, 'contexts', 1, trieBytes);
+  requireDeclaredFits(entries, 'entries', 2, trieBytes);
+  requireDeclaredFits(nodes + 2 * entries, 'bytes of contexts and entries', 1, trieBytes);
   if (!['A', 'B', 'C', 'D'].includes(escape))
     throw new FormatError(`bad escape method ${JSON.stringify(escape)}`);
-  const model = new PpmModel({
-    order,
-    escape: escape as EscapeMethod,
-    exclusion: (flags & 1) !== 0,
-    updateExclusion: (flags & 2) !== 0,
-    adaptive: (flags & 4) !== 0,
-    literals: (flags & 8) !== 0,
-    alphabetSize,
-  });
+  let model: PpmModel;
+  try {
+    model = new PpmModel({
+      order,
+      escape: escape as EscapeMethod,
+      exclusion: (flags & 1) !== 0,
+      updateExclusion: (flags & 2) !== 0,
+      adaptive: (flags & 4) !== 0,
+      literals: (flags & 8) !== 0,
+      alphabetSize,
+    });
+  } catch (error) {
+    throw new FormatError(`damaged model: ${error instanceof Error ? error.message : String(error)}`);
+  }
   const trie = new ContextTrie(Math.max(nodes, 1), Math.max(2 * entries, 1));
   // depth[c] and, for the suffix pass, each node's parent and last symbol.
   const depth = new Uint8Array(Math.max(nodes, 1));

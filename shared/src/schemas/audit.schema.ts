@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { pageQuerySchema } from './common';
+import { isoDateField, pageQuerySchema, safeText } from './common';
 
 // Every action the audit log records, in plain words for the audit page. The API's AuditAction type is
 // the keys of this object, so a new action cannot be recorded without its words.
@@ -55,9 +55,9 @@ export const auditQuerySchema = pageQuerySchema.extend({
   clientId: z.uuid().optional(),
   userId: z.uuid().optional(),
   // An exact action ("sample.upload") or a prefix ending in "." ("sample.").
-  action: z.string().trim().max(80).optional(),
-  from: z.iso.date().optional(),
-  to: z.iso.date().optional(),
+  action: safeText().trim().max(80).optional(),
+  from: isoDateField.optional(),
+  to: isoDateField.optional(),
 });
 export type AuditQuery = z.infer<typeof auditQuerySchema>;
 

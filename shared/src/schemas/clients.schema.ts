@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { optionalText } from './common';
+import { numberField, optionalText, safeText } from './common';
 
 // How the client selects: the timing field that matters follows from it.
 export const accessMethods = ['direct', 'switch', 'eye_gaze', 'head_pointer', 'other'] as const;
@@ -43,17 +43,18 @@ export const accessTimingLabels: Record<AccessTimingField, string> = {
 export const defaultAccessTiming = { scanIntervalMs: 1000, dwellMs: 800, keyTimeMs: 1500 } as const;
 
 const msField = (min: number, max: number, what: string) =>
-  z.coerce
-    .number({ error: `Enter the ${what} in milliseconds.` })
-    .int({ error: `Enter the ${what} as a whole number of milliseconds.` })
-    .min(min, { error: `The ${what} must be at least ${min} ms.` })
-    .max(max, { error: `The ${what} must be at most ${max} ms.` })
+  numberField(
+    z
+      .number({ error: `Enter the ${what} in milliseconds.` })
+      .int({ error: `Enter the ${what} as a whole number of milliseconds.` })
+      .min(min, { error: `The ${what} must be at least ${min} ms.` })
+      .max(max, { error: `The ${what} must be at most ${max} ms.` }),
+  )
     .nullable()
     .optional();
 
 const clientFields = {
-  pseudonym: z
-    .string({ error: 'Enter a pseudonym.' })
+  pseudonym: safeText({ error: 'Enter a pseudonym.' })
     .trim()
     .min(1, { error: 'Enter a pseudonym.' })
     .max(80, { error: 'Keep the pseudonym under 80 characters.' }),

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { isoDateField, optionalText } from './common';
+import { isoDateField, optionalText, safeText } from './common';
 import { emailField } from './email';
 
 // What a consent covers: training a model on the client's writing, and sending
@@ -20,8 +20,10 @@ export const consentGivers = ['client', 'representative'] as const;
 export const createConsentSchema = z
   .object({
     givenBy: z.enum(consentGivers, { error: 'Say who gave consent.' }),
-    representativeName: optionalText(120, 'Keep the name under 120 characters.'),
-    representativeRelationship: optionalText(80, 'Keep the relationship under 80 characters.'),
+    representativeName: optionalText(120, 'Keep the name under 120 characters.', { multiline: false }),
+    representativeRelationship: optionalText(80, 'Keep the relationship under 80 characters.', {
+      multiline: false,
+    }),
     scopes: z
       .array(consentScopeSchema)
       .min(1, { error: 'Choose at least one thing the consent covers.' })
@@ -59,8 +61,7 @@ export type CreateConsentInput = z.infer<typeof createConsentSchema>;
 
 // POST /api/clients/:id/consents/:consentId/withdraw — cannot be undone.
 export const withdrawConsentSchema = z.object({
-  reason: z
-    .string({ error: 'Say why consent was withdrawn (for the record).' })
+  reason: safeText({ error: 'Say why consent was withdrawn (for the record).', multiline: true })
     .trim()
     .min(1, { error: 'Say why consent was withdrawn (for the record).' })
     .max(2000),
@@ -124,9 +125,8 @@ export type Consent = z.infer<typeof consentSchema>;
 
 // Family contacts (no account): summaries go only to those who consented.
 export const createContactSchema = z.object({
-  name: z.string({ error: 'Enter a name.' }).trim().min(1, { error: 'Enter a name.' }).max(120),
-  relationship: z
-    .string({ error: 'Enter the relationship.' })
+  name: safeText({ error: 'Enter a name.' }).trim().min(1, { error: 'Enter a name.' }).max(120),
+  relationship: safeText({ error: 'Enter the relationship.' })
     .trim()
     .min(1, { error: 'Enter the relationship.' })
     .max(80),

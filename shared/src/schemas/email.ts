@@ -1,9 +1,9 @@
 import { z } from 'zod';
+import { safeText } from './common';
 
 // An e-mail address as typed: surrounding spaces removed and lower-cased
 // before the format is checked, so " Ann@Clinic.example " is accepted.
-export const emailField = z
-  .string({ error: 'Enter a valid e-mail address.' })
+export const emailField = safeText({ error: 'Enter a valid e-mail address.' })
   .trim()
   .toLowerCase()
   .pipe(

@@ -1,42 +1,38 @@
 import { z } from 'zod';
 import { accessMethodSchema } from './clients.schema';
+import { numberField, safeText } from './common';
 
 // Settings of a profile version, with the engine's option names (ProfileSettings in
 // shared/src/engine/profile/profile-settings.ts must accept exactly what this accepts).
 export const escapeMethods = ['A', 'B', 'C', 'D'] as const;
 
+/** A whole number from `min` to `max` (a number, or its digits from a form), one message for every problem. */
+const wholeNumberFrom = (min: number, max: number, error: string) =>
+  numberField(z.number({ error }).int({ error }).min(min, { error }).max(max, { error }));
+
+const weightMessage = 'Enter a base-model weight from 0 to 1, or choose automatic.';
+
 export const profileVersionSettingsSchema = z.object({
-  order: z.coerce
-    .number({ error: 'Choose a context order from 1 to 12.' })
-    .int({ error: 'Choose a context order from 1 to 12.' })
-    .min(1, { error: 'Choose a context order from 1 to 12.' })
-    .max(12, { error: 'Choose a context order from 1 to 12.' })
-    .default(5),
+  order: wholeNumberFrom(1, 12, 'Choose a context order from 1 to 12.').default(5),
   escape: z.enum(escapeMethods, { error: 'Choose escape method A, B, C or D.' }).default('C'),
   exclusion: z.boolean().default(true),
   // 'auto' tunes the weight of the base English model on held-out text; 0 = personal alone, 1 = base alone.
   baseWeight: z
     .union([
       z.literal('auto'),
-      z.coerce
-        .number({ error: 'Enter a base-model weight from 0 to 1, or choose automatic.' })
-        .min(0, { error: 'Enter a base-model weight from 0 to 1, or choose automatic.' })
-        .max(1, { error: 'Enter a base-model weight from 0 to 1, or choose automatic.' }),
+      numberField(
+        z.number({ error: weightMessage }).min(0, { error: weightMessage }).max(1, { error: weightMessage }),
+      ),
     ])
     .default('auto'),
-  slots: z.coerce
-    .number({ error: 'Choose 1 to 10 suggestion slots.' })
-    .int({ error: 'Choose 1 to 10 suggestion slots.' })
-    .min(1, { error: 'Choose 1 to 10 suggestion slots.' })
-    .max(10, { error: 'Choose 1 to 10 suggestion slots.' })
-    .default(5),
+  slots: wholeNumberFrom(1, 10, 'Choose 1 to 10 suggestion slots.').default(5),
   caseFold: z.boolean().default(false),
   // The access-method timings used for the estimates; the client record's by default.
   access: z.object({
     method: accessMethodSchema,
-    scanIntervalMs: z.coerce.number().int().min(100).max(10_000).optional(),
-    dwellMs: z.coerce.number().int().min(100).max(5_000).optional(),
-    keyTimeMs: z.coerce.number().int().min(100).max(30_000).optional(),
+    scanIntervalMs: numberField(z.number().int().min(100).max(10_000)).optional(),
+    dwellMs: numberField(z.number().int().min(100).max(5_000)).optional(),
+    keyTimeMs: numberField(z.number().int().min(100).max(30_000)).optional(),
   }),
 });
 export type ProfileVersionSettings = z.infer<typeof profileVersionSettingsSchema>;
@@ -46,7 +42,7 @@ export type ProfileVersionSettings = z.infer<typeof profileVersionSettingsSchema
 export const createProfileVersionSchema = z.object({
   settings: profileVersionSettingsSchema.partial({ access: true }),
   sampleIds: z.array(z.uuid()).min(1, { error: 'Choose at least one sample.' }).optional(),
-  note: z.string().trim().max(1000).optional(),
+  note: safeText({ multiline: true }).trim().max(1000).optional(),
 });
 export type CreateProfileVersionInput = z.infer<typeof createProfileVersionSchema>;
 
@@ -74,11 +70,18 @@ export const profileVersionStatusLabels: Record<ProfileVersionStatus, string> = 
   sent_back: 'Sent back',
 };
 
-export const profileStages = ['queued', 'preparing', 'training', 'cross-validating', 'simulating', 'saving'] as const;
+export const profileStages = [
+  'queued',
+  'preparing',
+  'training',
+  'cross-validating',
+  'simulating',
+  'saving',
+] as const;
 
 // POST /api/profile-versions/:id/sign-off and /approve take a comment; /send-back a reason.
 const requiredText = (message: string) =>
-  z.string({ error: message }).trim().min(1, { error: message }).max(2000);
+  safeText({ error: message, multiline: true }).trim().min(1, { error: message }).max(2000);
 export const signOffSchema = z.object({ comment: requiredText('Add a comment about the trial.') });
 export const approveSchema = z.object({ comment: requiredText('Add a comment for the record.') });
 export const sendBackSchema = z.object({ reason: requiredText('Say what needs to change.') });
@@ -106,7 +109,9 @@ export const profileVersionSchema = z.object({
   stage: z.string().nullable(),
   error: z.string().nullable(),
   settings: profileVersionSettingsSchema,
-  samples: z.array(z.object({ id: z.uuid(), title: z.string(), sha256: z.string(), characters: z.number().int() })),
+  samples: z.array(
+    z.object({ id: z.uuid(), title: z.string(), sha256: z.string(), characters: z.number().int() }),
+  ),
   // The engine's ProfileReport (same names as `model evaluate --json`), null until trained.
   metrics: z.record(z.string(), z.unknown()).nullable(),
   modelBytes: z.number().int().nullable(),

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { isoDateField, optionalText } from './common';
+import { isoDateField, optionalText, safeText } from './common';
 
 // Where a language sample came from.
 export const sourceKinds = ['messages', 'diary', 'email', 'transcript', 'other'] as const;
@@ -21,6 +21,19 @@ export const sampleLimits = {
   maxFiles: 50,
 };
 
+/** Largest pasted text, in UTF-8 bytes (longer text is uploaded as a file). */
+export const PASTE_MAX_BYTES = 100 * 1024;
+
+/** UTF-8 length of a string whose surrogates are paired (safeText checks that first). */
+function utf8Length(text: string): number {
+  let bytes = 0;
+  for (const char of text) {
+    const code = char.codePointAt(0) ?? 0;
+    bytes += code < 0x80 ? 1 : code < 0x800 ? 2 : code < 0x10000 ? 3 : 4;
+  }
+  return bytes;
+}
+
 const sampleMetaFields = {
   sourceKind: sourceKindSchema,
   periodStart: isoDateField.nullable().optional(),
@@ -35,7 +48,10 @@ const periodIssue = { error: 'The period must end on or after its start.', path:
 // The text fields that go with a multipart upload (field `files`). For CSV files,
 // `csvColumn` names the column that holds the text (header name).
 export const uploadSamplesFieldsSchema = z
-  .object({ ...sampleMetaFields, csvColumn: optionalText(200, 'That column name is too long.') })
+  .object({
+    ...sampleMetaFields,
+    csvColumn: optionalText(200, 'That column name is too long.', { multiline: false }),
+  })
   .refine(periodInOrder, periodIssue);
 export type UploadSamplesFields = z.infer<typeof uploadSamplesFieldsSchema>;
 
@@ -43,14 +59,15 @@ export type UploadSamplesFields = z.infer<typeof uploadSamplesFieldsSchema>;
 export const pasteSampleSchema = z
   .object({
     ...sampleMetaFields,
-    title: z
-      .string({ error: 'Give the sample a title.' })
+    title: safeText({ error: 'Give the sample a title.' })
       .trim()
       .min(1, { error: 'Give the sample a title.' })
       .max(120),
-    text: z
-      .string({ error: 'Paste some text.' })
-      .refine((text) => text.trim().length > 0, { error: 'Paste some text.' }),
+    text: safeText({ error: 'Paste some text.', multiline: true })
+      .refine((text) => text.trim().length > 0, { error: 'Paste some text.' })
+      .refine((text) => utf8Length(text) <= PASTE_MAX_BYTES, {
+        error: `Pasted text is limited to ${PASTE_MAX_BYTES / 1024} kB; upload longer text as a file.`,
+      }),
   })
   .refine(periodInOrder, periodIssue);
 export type PasteSampleInput = z.infer<typeof pasteSampleSchema>;
@@ -115,8 +132,7 @@ export type FlagDecisionInput = z.infer<typeof flagDecisionSchema>;
 
 // POST /api/samples/:id/exclude.
 export const excludeSampleSchema = z.object({
-  reason: z
-    .string({ error: 'Say why the sample is left out.' })
+  reason: safeText({ error: 'Say why the sample is left out.', multiline: true })
     .trim()
     .min(1, { error: 'Say why the sample is left out.' })
     .max(500),

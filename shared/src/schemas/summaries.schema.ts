@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { isoDateField } from './common';
+import { isoDateField, safeText } from './common';
 
 // Progress summaries e-mailed to the client's family contacts (issue 7).
 
@@ -11,7 +11,10 @@ const summaryFields = {
     .array(z.uuid())
     .min(1, { error: 'Choose at least one family contact.' })
     .max(20, { error: 'Choose at most 20 family contacts.' }),
-  note: z.string().trim().max(4000, { error: 'Keep the note under 4000 characters.' }).default(''),
+  note: safeText({ multiline: true })
+    .trim()
+    .max(4000, { error: 'Keep the note under 4000 characters.' })
+    .default(''),
 };
 // ISO dates compare correctly as strings.
 const periodInOrder = (input: { from: string; to: string }) => input.from <= input.to;

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { isoDateTimeField, safeText } from './common';
 
 // Trials on the test keyboard (issue 6): what the browser logs and posts, what the API stores and returns.
 
@@ -65,9 +66,9 @@ export const trialEventSchema = z.object({
     .min(0)
     .max(24 * 60 * 60 * 1000),
   type: trialEventTypeSchema,
-  value: z.string().max(64).optional(),
+  value: safeText().max(64).optional(),
   slot: z.number().int().min(0).max(9).optional(),
-  words: z.array(z.string().max(64)).max(10).optional(),
+  words: z.array(safeText().max(64)).max(10).optional(),
 });
 export type TrialEvent = z.infer<typeof trialEventSchema>;
 
@@ -79,19 +80,19 @@ export const TRIAL_MAX_TEXT = 5_000;
 // again (an upload retried after the network came back) returns the stored trial instead of a second one.
 export const createTrialSchema = z.object({
   clientTrialId: z.uuid({ error: 'The trial needs an id made by the browser.' }),
-  startedAt: z.iso.datetime({ offset: true }),
-  finishedAt: z.iso.datetime({ offset: true }),
+  startedAt: isoDateTimeField,
+  finishedAt: isoDateTimeField,
   /** A practice phrase's id ("kl-…" for Keyloom's own phrases, a uuid for the client's), if one was used. */
-  phraseId: z.string().max(64).nullable().default(null),
-  targetPhrase: z.string().max(500).nullable().default(null),
+  phraseId: safeText().max(64).nullable().default(null),
+  targetPhrase: safeText().max(500).nullable().default(null),
   /** The text on screen at the end; the API replays `events` and refuses the trial if they differ. */
-  text: z.string().max(TRIAL_MAX_TEXT),
+  text: safeText({ multiline: true }).max(TRIAL_MAX_TEXT),
   events: z
     .array(trialEventSchema)
     .min(1, { error: 'The trial has no key presses.' })
     .max(TRIAL_MAX_EVENTS, { error: `A trial can log at most ${TRIAL_MAX_EVENTS} steps.` }),
   settings: trialSettingsSchema,
-  note: z.string().trim().max(2000).default(''),
+  note: safeText({ multiline: true }).trim().max(2000).default(''),
 });
 export type CreateTrialInput = z.input<typeof createTrialSchema>;
 export type CreateTrialBody = z.output<typeof createTrialSchema>;
@@ -161,8 +162,7 @@ export const practicePhraseSchema = z.object({
 export type PracticePhrase = z.infer<typeof practicePhraseSchema>;
 
 export const createPracticePhraseSchema = z.object({
-  text: z
-    .string({ error: 'Write the phrase.' })
+  text: safeText({ error: 'Write the phrase.' })
     .trim()
     .min(2, { error: 'Write a phrase of at least 2 characters.' })
     .max(200, { error: 'Keep a practice phrase under 200 characters.' }),
@@ -171,8 +171,7 @@ export type CreatePracticePhraseInput = z.infer<typeof createPracticePhraseSchem
 
 // POST /api/profile-versions/:id/report-problem: an assigned carer, after a trial, instead of signing off.
 export const reportProblemSchema = z.object({
-  reason: z
-    .string({ error: 'Say what went wrong in the trial.' })
+  reason: safeText({ error: 'Say what went wrong in the trial.', multiline: true })
     .trim()
     .min(1, { error: 'Say what went wrong in the trial.' })
     .max(2000),

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { safeText } from './common';
 import { emailField } from './email';
 import { roleSchema } from './roles';
 
@@ -6,8 +7,7 @@ import { roleSchema } from './roles';
 // (common practice, no source).
 export const PASSWORD_MIN_LENGTH = 12;
 
-const nameField = z
-  .string({ error: 'Enter a name.' })
+const nameField = safeText({ error: 'Enter a name.' })
   .trim()
   .min(1, { error: 'Enter a name.' })
   .max(120, { error: 'Keep the name under 120 characters.' });

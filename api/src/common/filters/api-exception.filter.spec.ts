@@ -1,6 +1,6 @@
 import { BadRequestException, ForbiddenException, NotFoundException } from '@nestjs/common';
 import { apiErrorSchema } from '@keyloom/shared';
-import { DATABASE_DOWN_MESSAGE, toApiError } from './api-exception.filter';
+import { BAD_VALUE_MESSAGE, DATABASE_DOWN_MESSAGE, toApiError } from './api-exception.filter';
 
 describe('toApiError', () => {
   it('keeps the status and message of Nest exceptions, and zod issues', () => {
@@ -26,6 +26,19 @@ describe('toApiError', () => {
     expect(toApiError(refused)).toMatchObject({ statusCode: 503, message: DATABASE_DOWN_MESSAGE });
     const wrapped = Object.assign(new Error('terminating connection'), { driverError: { code: '57P01' } });
     expect(toApiError(wrapped).statusCode).toBe(503);
+  });
+
+  it('maps PostgreSQL data exceptions (class 22) to 400, also when TypeORM wraps them; other query errors stay 500', () => {
+    const nul = Object.assign(new Error('invalid byte sequence for encoding "UTF8": 0x00'), {
+      code: '22021',
+    });
+    expect(toApiError(nul)).toMatchObject({ statusCode: 400, message: BAD_VALUE_MESSAGE });
+    const year0 = Object.assign(new Error('query failed'), {
+      driverError: { code: '22008', message: 'date/time field value out of range: "0000-06-01"' },
+    });
+    expect(toApiError(year0).statusCode).toBe(400);
+    // 42P01 undefined_table is the server's fault, not the input's.
+    expect(toApiError(Object.assign(new Error('relation missing'), { code: '42P01' })).statusCode).toBe(500);
   });
 
   it('maps body-parser errors and hides everything else behind a 500', () => {

@@ -9,11 +9,13 @@ import {
 import type { ApiError } from '@keyloom/shared';
 import type { Response } from 'express';
 import { STATUS_CODES } from 'node:http';
-import { isDatabaseUnavailable } from '../../database/database-errors';
+import { isBadValueForDatabase, isDatabaseUnavailable } from '../../database/database-errors';
 
 export const DATABASE_DOWN_MESSAGE =
   'The database is not reachable right now; nothing was changed. Try again in a moment.';
 export const INVALID_JSON_MESSAGE = 'The request body is not valid JSON.';
+export const BAD_VALUE_MESSAGE =
+  'A value in the request cannot be stored (a broken character, or a date or number out of range). Nothing was changed.';
 const INTERNAL_MESSAGE =
   'Something went wrong on the server. Try again; if it keeps happening, tell an administrator.';
 
@@ -40,6 +42,8 @@ export function toApiError(exception: unknown): ApiError {
     return build(status, text, issues);
   }
   if (isDatabaseUnavailable(exception)) return build(HttpStatus.SERVICE_UNAVAILABLE, DATABASE_DOWN_MESSAGE);
+  // The schemas refuse such values first; this is the last line of defence for one they missed.
+  if (isBadValueForDatabase(exception)) return build(HttpStatus.BAD_REQUEST, BAD_VALUE_MESSAGE);
 
   // Errors raised by Express middleware (body-parser, http-errors) carry a status and a type.
   const e = (typeof exception === 'object' && exception !== null ? exception : {}) as HttpErrorLike;
