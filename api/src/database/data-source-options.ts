@@ -4,6 +4,7 @@ import { ClientAssignment } from '../clients/client-assignment.entity';
 import { Client } from '../clients/client.entity';
 import { Consent } from '../consents/consent.entity';
 import { FamilyContact } from '../contacts/family-contact.entity';
+import { IdempotencyKey } from '../idempotency/idempotency-key.entity';
 import { CreateUsersAndSessions1764633600000 } from '../migrations/1764633600000-create-users-and-sessions';
 import { CreateAuditEvents1764633600001 } from '../migrations/1764633600001-create-audit-events';
 import { CreateClientsAndConsents1764720000000 } from '../migrations/1764720000000-create-clients-and-consents';
@@ -11,6 +12,7 @@ import { CreateLanguageSamples1764720500000 } from '../migrations/1764720500000-
 import { CreateProfileVersions1764721000000 } from '../migrations/1764721000000-create-profile-versions';
 import { CreateSummaries1764722000000 } from '../migrations/1764722000000-create-summaries';
 import { CreateTrials1764800000000 } from '../migrations/1764800000000-create-trials';
+import { CreateIdempotencyKeys1764930000001 } from '../migrations/1764930000001-create-idempotency-keys';
 import { ProfileVersion } from '../profile-versions/profile-version.entity';
 import { SampleFlag } from '../samples/sample-flag.entity';
 import { Sample } from '../samples/sample.entity';
@@ -36,6 +38,7 @@ export const entities = [
   SummaryRecipient,
   Trial,
   PracticePhraseRow,
+  IdempotencyKey,
 ];
 export const migrations = [
   CreateUsersAndSessions1764633600000,
@@ -45,6 +48,7 @@ export const migrations = [
   CreateProfileVersions1764721000000,
   CreateSummaries1764722000000,
   CreateTrials1764800000000,
+  CreateIdempotencyKeys1764930000001,
 ];
 
 /** TypeORM options for the app, the CLI, migrate.js, seed.js and the HTTP tests. Never synchronize. */

@@ -2,6 +2,7 @@ import { Module } from '@nestjs/common';
 import { TypeOrmModule } from '@nestjs/typeorm';
 import { AuditModule } from '../audit/audit.module';
 import { ClientsModule } from '../clients/clients.module';
+import { IdempotencyModule } from '../idempotency/idempotency.module';
 import { JobsModule } from '../jobs/jobs.module';
 import { SummariesController } from './summaries.controller';
 import { SummariesService } from './summaries.service';
@@ -9,7 +10,13 @@ import { SummaryRecipient } from './summary-recipient.entity';
 import { Summary } from './summary.entity';
 
 @Module({
-  imports: [TypeOrmModule.forFeature([Summary, SummaryRecipient]), ClientsModule, AuditModule, JobsModule],
+  imports: [
+    TypeOrmModule.forFeature([Summary, SummaryRecipient]),
+    ClientsModule,
+    AuditModule,
+    JobsModule,
+    IdempotencyModule,
+  ],
   controllers: [SummariesController],
   providers: [SummariesService],
 })
