@@ -2,7 +2,7 @@ import { BadRequestException, createParamDecorator, type ExecutionContext } from
 import type { Request } from 'express';
 
 // The Idempotency-Key request header (IETF HTTPAPI draft "The Idempotency-Key HTTP Header Field",
-// draft-ietf-httpapi-idempotency-key-header, §2): an Item Structured Field (RFC 8941) whose value is
+// draft-ietf-httpapi-idempotency-key-header, "Syntax"): an Item Structured Field (RFC 8941) whose value is
 // a String, e.g. Idempotency-Key: "8e03978e-40d5-43e8-bc93-6894a57f9324". A bare value without the
 // quotes is accepted as well (common practice, no source). Keys longer than 255 characters are
 // refused (common practice, no source): a UUID is 36.

@@ -9,11 +9,14 @@ import { IdempotencyKey } from './idempotency-key.entity';
 // - the first request with a key claims it (a row unique on user and key) and acts; the row is
 //   marked done with the id of what it made IN THE SAME TRANSACTION as the change, so "done" and
 //   "made" cannot part, across processes;
-// - a repeat with the same key and the same request answers the first request's result (§2.6);
-// - the same key with another request: 422 (§2.7); while the first is still running: 409 (§2.7);
+// - a repeat with the same key and the same request answers the first request's result (the
+//   draft's "Idempotency Enforcement Scenarios");
+// - the same key with another request: 422; while the first is still running: 409 (its "Error
+//   Scenarios");
 // - a first request that fails leaves nothing behind, so the same key may be tried again.
-// Keys are kept for a day (the draft leaves the expiry to the server, §2.3; common practice, no
-// source); a claim left pending for 5 minutes (its process died) may be taken over.
+// Keys are kept for a day (the draft leaves the expiry to the server, "Idempotency Key Validity and
+// Expiry"; the day is common practice, no source); a claim left pending for 5 minutes (its process
+// died) may be taken over (common practice, no source).
 
 export const KEY_IN_FLIGHT_MESSAGE =
   'A request with this Idempotency-Key is still being processed. Wait a moment, then look at the result.';
