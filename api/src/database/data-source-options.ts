@@ -13,8 +13,10 @@ import { CreateProfileVersions1764721000000 } from '../migrations/1764721000000-
 import { CreateSummaries1764722000000 } from '../migrations/1764722000000-create-summaries';
 import { CreateTrials1764800000000 } from '../migrations/1764800000000-create-trials';
 import { CreateIdempotencyKeys1764930000001 } from '../migrations/1764930000001-create-idempotency-keys';
+import { CreateAppSettings1764930000002 } from '../migrations/1764930000002-create-app-settings';
 import { ProfileVersion } from '../profile-versions/profile-version.entity';
 import { SampleFlag } from '../samples/sample-flag.entity';
+import { AppSetting } from '../settings/app-setting.entity';
 import { Sample } from '../samples/sample.entity';
 import { SummaryRecipient } from '../summaries/summary-recipient.entity';
 import { Summary } from '../summaries/summary.entity';
@@ -39,6 +41,7 @@ export const entities = [
   Trial,
   PracticePhraseRow,
   IdempotencyKey,
+  AppSetting,
 ];
 export const migrations = [
   CreateUsersAndSessions1764633600000,
@@ -49,6 +52,7 @@ export const migrations = [
   CreateSummaries1764722000000,
   CreateTrials1764800000000,
   CreateIdempotencyKeys1764930000001,
+  CreateAppSettings1764930000002,
 ];
 
 /** TypeORM options for the app, the CLI, migrate.js, seed.js and the HTTP tests. Never synchronize. */
