@@ -10,7 +10,7 @@ import {
   trainAndEvaluateProfile,
   type UploadResult,
 } from '@keyloom/shared';
-import { randomUUID } from 'node:crypto';
+import { createHmac, randomBytes, randomUUID } from 'node:crypto';
 import { crc32 as zlibCrc32 } from 'node:zlib';
 import type PgBoss from 'pg-boss';
 import type request from 'supertest';
@@ -551,16 +551,19 @@ describe('profile versions (HTTP)', () => {
   });
 
   describe('export and verify', () => {
-    it('exports a .klprofile that verifies; carers and admins may not export; a draft has nothing to export', async () => {
-      const v = await trained();
-      const res = await get(cast.owner, `/api/profile-versions/${v.id}/export`)
+    /** GET the export as the owner, the body kept as bytes. */
+    const download = (versionId: string) =>
+      get(cast.owner, `/api/profile-versions/${versionId}/export`)
         .buffer(true)
         .parse((r, done) => {
           const chunks: Buffer[] = [];
           r.on('data', (c: Buffer) => chunks.push(c));
           r.on('end', () => done(null, Buffer.concat(chunks)));
-        })
-        .expect(200);
+        });
+
+    it('exports a .klprofile that verifies; carers and admins may not export; a draft has nothing to export', async () => {
+      const v = await trained();
+      const res = await download(v.id).expect(200);
       const file = res.body as Buffer;
       expect(res.headers['content-disposition']).toMatch(/filename="keyloom-p-ashcombe-v\d+\.klprofile"/);
       expect(file.subarray(0, 4).toString('latin1')).toBe('KLPF');
@@ -599,6 +602,107 @@ describe('profile versions (HTTP)', () => {
       const draft = await create();
       const none = await get(cast.owner, `/api/profile-versions/${draft.id}/export`).expect(409);
       expect(none.body.message).toBe('This version has no trained model yet; train it first.');
+    });
+
+    /** The export as bytes. */
+    const exported = async (versionId: string): Promise<Buffer> =>
+      (await download(versionId).expect(200)).body as Buffer;
+
+    type Check = { valid: boolean; intact: boolean; authenticity: string; header: { approvedBy: string } };
+    const check = async (bytes: Buffer, status = 200) =>
+      (
+        await send(t.http, cast.owner, 'post', '/api/profile-exports/verify')
+          .attach('file', bytes, 'profile.klprofile')
+          .expect(status)
+      ).body as Check;
+
+    // The file's parts, read by hand from the layout documented in shared/src/engine/README.md (not with
+    // the engine's reader), as someone editing the file with a hex editor would.
+    function parts(file: Buffer) {
+      const headerLength = file.readUInt32LE(6);
+      const modelAt = 10 + headerLength;
+      const modelEnd = modelAt + 4 + file.readUInt32LE(modelAt);
+      return {
+        layout: file.readUInt16LE(4),
+        header: JSON.parse(file.subarray(10, modelAt).toString('utf8')) as Record<string, unknown>,
+        modelPart: file.subarray(modelAt, modelEnd), // the model length and the model
+        signature: file.subarray(modelEnd, file.length - 4),
+      };
+    }
+
+    /** Joins the parts and appends the CRC-32 of all before it, as node:zlib computes it. */
+    function assemble(layout: number, header: object, modelPart: Buffer, signature: Buffer): Buffer {
+      const json = Buffer.from(JSON.stringify(header), 'utf8');
+      const fixed = Buffer.alloc(10);
+      fixed.write('KLPF', 0, 'latin1');
+      fixed.writeUInt16LE(layout, 4);
+      fixed.writeUInt32LE(json.length, 6);
+      const body = Buffer.concat([fixed, json, modelPart, signature]);
+      const crc = Buffer.alloc(4);
+      crc.writeUInt32LE(zlibCrc32(body));
+      return Buffer.concat([body, crc]);
+    }
+
+    describe('signature: made by this clinic, or not', () => {
+      let file: Buffer;
+      let pieces: ReturnType<typeof parts>;
+      // The bytes the signature covers: all before the 32-byte signature and the 4-byte CRC.
+      const signedEnd = () => file.length - 4 - 32;
+
+      beforeAll(async () => {
+        file = await exported((await trained()).id);
+        pieces = parts(file);
+      });
+
+      it('signs an export with HMAC-SHA-256 under the key kept in app_settings, and says so', async () => {
+        const own = await check(file);
+        expect([own.valid, own.intact, own.authenticity]).toEqual([true, true, 'this-clinic']);
+        // RFC 2104 HMAC as node:crypto computes it, over every byte before the signature.
+        const [{ value }] = await t.dataSource.query<{ value: string }[]>(
+          `SELECT value FROM app_settings WHERE name = 'export-signing-key'`,
+        );
+        const key = Buffer.from(value, 'base64');
+        expect(key).toHaveLength(32);
+        expect(pieces.layout).toBe(2);
+        const expected = createHmac('sha256', key).update(file.subarray(0, signedEnd())).digest();
+        expect(pieces.signature.equals(expected)).toBe(true);
+      });
+
+      it('says a file whose header was edited to claim approval (CRC recomputed) is not signed by this clinic', async () => {
+        const forgedHeader = {
+          ...pieces.header,
+          version: { ...(pieces.header.version as object), status: 'active' },
+          approvedBy: 'Chief Supervisor (forged)',
+        };
+        const forged = await check(assemble(pieces.layout, forgedHeader, pieces.modelPart, pieces.signature));
+        expect(forged.valid).toBe(false);
+        expect([forged.intact, forged.authenticity]).toEqual([true, 'other']);
+        expect(forged.header.approvedBy).toBe('Chief Supervisor (forged)');
+      });
+
+      it('says a file signed with another key is not signed by this clinic', async () => {
+        const { layout, header, modelPart } = pieces;
+        const body = assemble(layout, header, modelPart, Buffer.alloc(32)).subarray(0, signedEnd());
+        const otherSignature = createHmac('sha256', randomBytes(32)).update(body).digest();
+        const foreign = await check(assemble(layout, header, modelPart, otherSignature));
+        expect(foreign.valid).toBe(false);
+        expect(foreign.authenticity).toBe('other');
+      });
+
+      it('reads a file in the unsigned layout (exported before signing) and says it is not signed', async () => {
+        const unsigned = await check(assemble(1, pieces.header, pieces.modelPart, Buffer.alloc(0)));
+        expect(unsigned.valid).toBe(false);
+        expect([unsigned.intact, unsigned.authenticity]).toEqual([true, 'unsigned']);
+      });
+
+      it('reports damage (a changed signature or header byte, CRC not fixed) as damage, 400', async () => {
+        for (const at of [file.length - 10, 12]) {
+          const damaged = Buffer.from(file);
+          damaged[at] ^= 0x01;
+          const answer = (await check(damaged, 400)) as unknown as { message: string };
+          expect(answer.message).toMatch(/checksum does not match/);
+        }
+      });
     });
   });
 

@@ -600,5 +600,115 @@ describe('summary e-mail delivery (mail job)', () => {
       expect(tried?.keystrokeSavings).toBeCloseTo(0.3, 10);
       expect(tried?.wpm).toBeCloseTo(2.0, 10);
     });
+
+    describe('exactly once: Idempotency-Key and one round at a time', () => {
+      const up = () => smtpTransport(Number(process.env.SMTP_PORT ?? 1025));
+
+      async function newContact(name: string): Promise<{ id: string; email: string }> {
+        const email = `${name.toLowerCase()}-${randomBytes(4).toString('hex')}@family.example`;
+        const res = await send(t.http, cast.owner, 'post', `/api/clients/${httpClientId}/contacts`, {
+          name,
+          relationship: 'aunt',
+          email,
+          consentToSummaries: true,
+        }).expect(201);
+        return { id: (res.body as { id: string }).id, email };
+      }
+
+      /** Runs the worker's step for every queued e-mail to the contact; the rounds of their rows. */
+      async function deliverQueued(contactId: string): Promise<number[]> {
+        const rows = await t.dataSource.getRepository(SummaryRecipient).findBy({ contactId });
+        for (const row of rows.filter((r) => r.status === 'queued')) {
+          expect(await deliverSummaryEmail(t.dataSource, audit, up(), SETTINGS, row.id, false)).toBe('sent');
+        }
+        return rows.map((r) => r.round).sort((a, b) => a - b);
+      }
+
+      /** POST a summary to one contact as the owner, with an Idempotency-Key when given. */
+      const sendSummary = (contactId: string, key?: string, extra: object = {}) => {
+        const req = send(t.http, cast.owner, 'post', `/api/clients/${httpClientId}/summaries`, {
+          ...body([contactId]),
+          ...extra,
+        });
+        return key === undefined ? req : req.set('Idempotency-Key', key);
+      };
+
+      const statusCounts = (statuses: number[]) =>
+        statuses.reduce<Record<number, number>>(
+          (counts, s) => ({ ...counts, [s]: (counts[s] ?? 0) + 1 }),
+          {},
+        );
+
+      it('makes one summary and sends one e-mail for 20 identical sends at once with one Idempotency-Key', async () => {
+        const contact = await newContact('Ines');
+        // A structured-field string (RFC 8941), as the draft's examples send it.
+        const key = `"${randomUUID()}"`;
+        const responses = await Promise.all(Array.from({ length: 20 }, () => sendSummary(contact.id, key)));
+        const counts = statusCounts(responses.map((r) => r.status));
+        // The first 201; the others either still saw it running (409) or got its result (201).
+        expect(Object.keys(counts).sort()).toEqual(
+          Object.keys(counts).filter((s) => s === '201' || s === '409'),
+        );
+        const ids = new Set(responses.filter((r) => r.status === 201).map((r) => (r.body as SummaryDto).id));
+        expect(ids.size).toBe(1);
+        const [summaryId] = [...ids];
+        for (const r of responses.filter((res) => res.status === 409)) {
+          expect((r.body as { message: string }).message).toMatch(/still being processed/);
+        }
+        expect(await t.dataSource.getRepository(Summary).countBy({ id: summaryId })).toBe(1);
+        expect(await deliverQueued(contact.id)).toEqual([1]);
+        expect(await inboxFor(contact.email)).toHaveLength(1);
+
+        // A retry after the first finished: the first result (201, same summary), nothing sent again.
+        const again = await sendSummary(contact.id, key).expect(201);
+        expect((again.body as SummaryDto).id).toBe(summaryId);
+        // The same key with another body: 422, as the draft says; nothing stored.
+        const other = await sendSummary(contact.id, key, { note: 'Other.' }).expect(422);
+        expect((other.body as { message: string }).message).toMatch(/different request/);
+        expect(await deliverQueued(contact.id)).toEqual([1]);
+        expect(await inboxFor(contact.email)).toHaveLength(1);
+        // Keys are per user: another clinician's same key is not the owner's (and they may not send: 404).
+        await send(
+          t.http,
+          cast.otherClinician,
+          'post',
+          `/api/clients/${httpClientId}/summaries`,
+          body([contact.id]),
+        )
+          .set('Idempotency-Key', key)
+          .expect(404);
+        // A malformed key is refused with a plain message.
+        const bad = await sendSummary(contact.id, '"unterminated').expect(400);
+        expect((bad.body as { message: string }).message).toMatch(/Idempotency-Key header must be/);
+      });
+
+      it('adds one round for 20 resends at once and answers the others 409, never 500', async () => {
+        const contact = await newContact('Omar');
+        const created = (await sendSummary(contact.id).expect(201)).body as SummaryDto;
+        expect(await deliverQueued(contact.id)).toEqual([1]);
+        const resendPath = `/api/summaries/${created.id}/resend`;
+        const responses = await Promise.all(
+          Array.from({ length: 20 }, () => send(t.http, cast.owner, 'post', resendPath)),
+        );
+        expect(statusCounts(responses.map((r) => r.status))).toEqual({ 200: 1, 409: 19 });
+        for (const r of responses.filter((res) => res.status === 409)) {
+          expect((r.body as { message: string }).message).toMatch(/still going out/);
+        }
+        expect(await deliverQueued(contact.id)).toEqual([1, 2]);
+        expect(await inboxFor(contact.email)).toHaveLength(2);
+
+        // With a key: the retry of the same resend answers its result and adds no round.
+        const key = `"${randomUUID()}"`;
+        const first = await send(t.http, cast.owner, 'post', resendPath)
+          .set('Idempotency-Key', key)
+          .expect(200);
+        const retry = await send(t.http, cast.owner, 'post', resendPath)
+          .set('Idempotency-Key', key)
+          .expect(200);
+        expect((retry.body as SummaryDto).id).toBe((first.body as SummaryDto).id);
+        expect(await deliverQueued(contact.id)).toEqual([1, 2, 3]);
+        expect(await inboxFor(contact.email)).toHaveLength(3);
+      });
+    });
   });
 });

@@ -15,6 +15,7 @@ export * from './engine/evaluation/index';
 export * from './engine/profile/index';
 export * from './samples/index';
 export * from './schemas/profile-versions.schema';
+export * from './schemas/profile-exports.schema';
 export * from './schemas/summaries.schema';
 export * from './schemas/trials.schema';
 export * from './trials/index';

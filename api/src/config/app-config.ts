@@ -75,6 +75,10 @@ export class AppConfig {
     const dir = this.get('CLIENT_DIST');
     return isAbsolute(dir) ? dir : resolve(REPO_ROOT, dir);
   }
+  /** EXPORT_SIGNING_KEY when set (else the export key is kept in the database). */
+  get exportSigningKey(): string | undefined {
+    return this.get('EXPORT_SIGNING_KEY');
+  }
   get demoPassword(): string {
     return this.get('DEMO_PASSWORD');
   }

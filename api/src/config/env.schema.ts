@@ -63,6 +63,10 @@ export const envSchema = z
     // Profile training (issue 5): jobs one worker process runs at once, and cross-validation folds.
     WORKER_CONCURRENCY: wholeNumber(1, 8, 1),
     PROFILE_FOLDS: wholeNumber(2, 10, 5),
+    // Key of the HMAC-SHA-256 signature on exported profile files. Unset: a random key is made once and
+    // kept in the database (app_settings). RFC 2104 §3 asks for at least the hash's output length
+    // (32 bytes); 32 characters is the floor here.
+    EXPORT_SIGNING_KEY: z.string().min(32, { error: 'Use at least 32 random characters.' }).optional(),
   })
   .transform((env) => ({ ...env, SESSION_SECRET: env.SESSION_SECRET ?? DEV_SESSION_SECRET }));
 
@@ -93,7 +97,8 @@ export function validateEnv(raw: Record<string, unknown>): Env {
   const lines = issues.map((issue) => {
     const name = issue.path.join('.') || '(environment)';
     const value = cleaned[name];
-    const shown = /SECRET|PASS/.test(name) || value === undefined ? '' : ` (got ${JSON.stringify(value)})`;
+    const shown =
+      /SECRET|PASS|KEY/.test(name) || value === undefined ? '' : ` (got ${JSON.stringify(value)})`;
     return `  - ${name}: ${issue.message}${shown}`;
   });
   if (secretProblem) lines.push(`  - SESSION_SECRET: ${secretProblem}`);

@@ -4,6 +4,7 @@ import { ClientAssignment } from '../clients/client-assignment.entity';
 import { Client } from '../clients/client.entity';
 import { Consent } from '../consents/consent.entity';
 import { FamilyContact } from '../contacts/family-contact.entity';
+import { IdempotencyKey } from '../idempotency/idempotency-key.entity';
 import { CreateUsersAndSessions1764633600000 } from '../migrations/1764633600000-create-users-and-sessions';
 import { CreateAuditEvents1764633600001 } from '../migrations/1764633600001-create-audit-events';
 import { CreateClientsAndConsents1764720000000 } from '../migrations/1764720000000-create-clients-and-consents';
@@ -12,8 +13,11 @@ import { CreateProfileVersions1764721000000 } from '../migrations/1764721000000-
 import { CreateSummaries1764722000000 } from '../migrations/1764722000000-create-summaries';
 import { CreateTrials1764800000000 } from '../migrations/1764800000000-create-trials';
 import { ScrubClientTextFromAudit1764910000001 } from '../migrations/1764910000001-scrub-client-text-from-audit';
+import { CreateIdempotencyKeys1764930000001 } from '../migrations/1764930000001-create-idempotency-keys';
+import { CreateAppSettings1764930000002 } from '../migrations/1764930000002-create-app-settings';
 import { ProfileVersion } from '../profile-versions/profile-version.entity';
 import { SampleFlag } from '../samples/sample-flag.entity';
+import { AppSetting } from '../settings/app-setting.entity';
 import { Sample } from '../samples/sample.entity';
 import { SummaryRecipient } from '../summaries/summary-recipient.entity';
 import { Summary } from '../summaries/summary.entity';
@@ -37,6 +41,8 @@ export const entities = [
   SummaryRecipient,
   Trial,
   PracticePhraseRow,
+  IdempotencyKey,
+  AppSetting,
 ];
 export const migrations = [
   CreateUsersAndSessions1764633600000,
@@ -47,6 +53,8 @@ export const migrations = [
   CreateSummaries1764722000000,
   CreateTrials1764800000000,
   ScrubClientTextFromAudit1764910000001,
+  CreateIdempotencyKeys1764930000001,
+  CreateAppSettings1764930000002,
 ];
 
 /** TypeORM options for the app, the CLI, migrate.js, seed.js and the HTTP tests. Never synchronize. */

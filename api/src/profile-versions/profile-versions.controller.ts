@@ -26,6 +26,7 @@ import {
   approveSchema,
   type CreateProfileVersionInput,
   createProfileVersionSchema,
+  profileFileCheckSchema,
   profileVersionSchema,
   type ReportProblemInput,
   reportProblemSchema,
@@ -219,7 +220,9 @@ export class ProfileVersionsController {
     summary: 'Check a .klprofile file and report its contents',
     description:
       'Multipart field "file". Checks the magic, layout version, lengths, CRC-32 and that the model loads; ' +
-      '400 with what is wrong (not a profile file, cut short, damaged).',
+      '400 with what is wrong (not a profile file, cut short, damaged). Apart from that, `authenticity` says ' +
+      'whether this clinic signed it (HMAC-SHA-256 under its export key) and it is unchanged since; ' +
+      '`valid` is both.',
   })
   @ApiConsumes('multipart/form-data')
   @ApiBody({
@@ -229,7 +232,8 @@ export class ProfileVersionsController {
       properties: { file: { type: 'string', format: 'binary' } },
     },
   })
-  verify(@UploadedFile() file: Express.Multer.File | undefined): ProfileFileReport {
+  @ApiOkResponse({ schema: zodSchemaObject(profileFileCheckSchema) })
+  verify(@UploadedFile() file: Express.Multer.File | undefined): Promise<ProfileFileReport> {
     if (!file) throw new BadRequestException(PROFILE_FILE_FIELD_MESSAGE);
     return this.versions.verify(file.originalname ?? null, file.buffer);
   }

@@ -5,6 +5,7 @@ import { ClientsModule } from '../clients/clients.module';
 import { ConsentsModule } from '../consents/consents.module';
 import { JobsModule } from '../jobs/jobs.module';
 import { Sample } from '../samples/sample.entity';
+import { ExportSigningService } from './export-signing.service';
 import { ProfileVersion } from './profile-version.entity';
 import { ProfileVersionsController } from './profile-versions.controller';
 import { ProfileVersionsService } from './profile-versions.service';
@@ -18,7 +19,7 @@ import { ProfileVersionsService } from './profile-versions.service';
     JobsModule,
   ],
   controllers: [ProfileVersionsController],
-  providers: [ProfileVersionsService],
+  providers: [ProfileVersionsService, ExportSigningService],
   exports: [ProfileVersionsService],
 })
 export class ProfileVersionsModule {}

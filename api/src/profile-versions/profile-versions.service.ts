@@ -16,6 +16,7 @@ import {
   MIN_PROFILE_CHARS,
   prepareText,
   PROFILE_FILE_EXTENSION,
+  type ProfileFileCheck,
   ProfileFileError,
   type ProfileFileHeader,
   ProfileInputError,
@@ -40,6 +41,7 @@ import { clientRowsHook, WithdrawalHooks } from '../consents/withdrawal-hooks';
 import { LIVE_JOB_STATES, PROFILE_TRAINING_QUEUE } from '../jobs/job-queue';
 import { JobQueueService } from '../jobs/job-queue.service';
 import { Sample } from '../samples/sample.entity';
+import { ExportSigningService } from './export-signing.service';
 import { engineSettings } from './profile-training';
 import { type FrozenSample, ProfileVersion, type StoredVersionEvent } from './profile-version.entity';
 import { type ProfileVersionDto, toProfileVersionDto } from './profile-version.mapper';
@@ -79,17 +81,8 @@ export const WITH_MODEL: readonly ProfileVersionStatus[] = [
 /** The file a version exports to. */
 export type ExportedProfile = { fileName: string; bytes: Buffer };
 
-/** What POST /api/profile-exports/verify answers for a good file. */
-export type ProfileFileReport = {
-  valid: true;
-  fileName: string | null;
-  bytes: number;
-  checksum: string;
-  modelBytes: number;
-  modelOrder: number;
-  modelContexts: number;
-  header: ProfileFileHeader;
-};
+/** What POST /api/profile-exports/verify answers for a readable file (damaged ones: 400). */
+export type ProfileFileReport = ProfileFileCheck & { header: ProfileFileHeader };
 
 /**
  * The .klprofile header of a version loaded with `client` and `approvedBy`. With `'as-trained'` it holds
@@ -230,6 +223,7 @@ export class ProfileVersionsService implements OnModuleInit {
     private readonly audit: AuditService,
     private readonly jobs: JobQueueService,
     private readonly withdrawalHooks: WithdrawalHooks,
+    private readonly signing: ExportSigningService,
   ) {}
 
   onModuleInit(): void {
@@ -612,7 +606,9 @@ export class ProfileVersionsService implements OnModuleInit {
       exportedAt: new Date().toISOString(),
       exportedBy: actor.name,
     });
-    const bytes = Buffer.from(writeProfileFile(header, new Uint8Array(version.model)));
+    const bytes = Buffer.from(
+      writeProfileFile(header, new Uint8Array(version.model), await this.signing.signer()),
+    );
     await this.audit.record(
       actor,
       'profile.export',
@@ -622,24 +618,31 @@ export class ProfileVersionsService implements OnModuleInit {
     return { fileName: `keyloom-${slug(pseudonym)}-v${version.number}${PROFILE_FILE_EXTENSION}`, bytes };
   }
 
-  /** Checks an uploaded .klprofile file; 400 with what is wrong. */
-  verify(fileName: string | null, bytes: Buffer): ProfileFileReport {
+  /**
+   * Checks an uploaded .klprofile file: damage (layout, CRC, the model loads; 400 with what is wrong)
+   * and, apart from it, whether this clinic's key signed it (`authenticity`); `valid` is both.
+   */
+  async verify(fileName: string | null, bytes: Buffer): Promise<ProfileFileReport> {
+    let contents;
     try {
-      const contents = verifyProfileFile(new Uint8Array(bytes.buffer, bytes.byteOffset, bytes.byteLength));
-      return {
-        valid: true,
-        fileName,
-        bytes: bytes.length,
-        checksum: contents.checksum,
-        modelBytes: contents.modelBytes,
-        modelOrder: contents.modelOrder,
-        modelContexts: contents.modelContexts,
-        header: contents.header,
-      };
+      contents = verifyProfileFile(new Uint8Array(bytes.buffer, bytes.byteOffset, bytes.byteLength));
     } catch (error) {
       if (error instanceof ProfileFileError) throw new BadRequestException(error.message);
       throw error;
     }
+    const authenticity = await this.signing.authenticity(contents.signature, contents.signedBytes);
+    return {
+      valid: authenticity === 'this-clinic',
+      intact: true,
+      authenticity,
+      fileName,
+      bytes: bytes.length,
+      checksum: contents.checksum,
+      modelBytes: contents.modelBytes,
+      modelOrder: contents.modelOrder,
+      modelContexts: contents.modelContexts,
+      header: contents.header,
+    };
   }
 
   /** The version's client when the actor may read it; out of sight → 404 as for a made-up id. */

@@ -1,5 +1,12 @@
 import { Body, Controller, Get, Header, HttpCode, Param, ParseUUIDPipe, Post, Res } from '@nestjs/common';
-import { ApiBody, ApiCreatedResponse, ApiOkResponse, ApiOperation, ApiTags } from '@nestjs/swagger';
+import {
+  ApiBody,
+  ApiCreatedResponse,
+  ApiHeader,
+  ApiOkResponse,
+  ApiOperation,
+  ApiTags,
+} from '@nestjs/swagger';
 import {
   type CreateSummaryInput,
   createSummarySchema,
@@ -19,8 +26,15 @@ import { Roles } from '../auth/decorators/roles.decorator';
 import type { Actor } from '../auth/session-user';
 import { zodSchemaObject } from '../common/openapi/zod-schema-object';
 import { ZodValidationPipe } from '../common/pipes/zod-validation.pipe';
+import { IDEMPOTENCY_KEY_HEADER, IdempotencyKeyHeader } from '../idempotency/idempotency-key';
 import { isStopToken, stopFormPage, stoppedPage, unknownStopPage } from './stop-page';
 import { SummariesService } from './summaries.service';
+
+const IDEMPOTENCY_HEADER_DOC = {
+  name: IDEMPOTENCY_KEY_HEADER,
+  required: false,
+  description: 'A fresh quoted string per send action (e.g. a UUID), the same when the action is retried.',
+};
 
 @ApiTags('summaries')
 @Controller()
@@ -44,16 +58,19 @@ export class SummariesController {
     description:
       'Owning clinician; a client consent covering summaries (409). Empty versionIds: every version ' +
       'trained or approved in the period. A contact without consent, or who stopped summaries: 400. ' +
-      'Answers at once; the e-mails go out from the worker.',
+      'Answers at once; the e-mails go out from the worker. With an Idempotency-Key, a repeat answers ' +
+      'the first result and sends nothing (same key, other body: 422; first still running: 409).',
   })
+  @ApiHeader(IDEMPOTENCY_HEADER_DOC)
   @ApiBody({ schema: zodSchemaObject(createSummarySchema) })
   @ApiCreatedResponse({ schema: zodSchemaObject(summarySchema) })
   create(
     @CurrentActor() actor: Actor,
     @Param('id', ParseUUIDPipe) id: string,
     @Body(new ZodValidationPipe(createSummarySchema)) body: CreateSummaryInput,
+    @IdempotencyKeyHeader() key: string | undefined,
   ): Promise<Summary> {
-    return this.summaries.create(actor, id, body);
+    return this.summaries.create(actor, id, body, key);
   }
 
   @Post('clients/:id/summaries/preview')
@@ -130,10 +147,17 @@ export class SummariesController {
   @HttpCode(200)
   @ApiOperation({
     summary: 'Send the same summary again (a new round) to the original contacts who may still receive it',
-    description: 'Owning clinician. Nobody left: 409.',
+    description:
+      'Owning clinician. Nobody left, or an e-mail of the last round still queued: 409. With an ' +
+      'Idempotency-Key, a repeat answers the first result and sends nothing.',
   })
+  @ApiHeader(IDEMPOTENCY_HEADER_DOC)
   @ApiOkResponse({ schema: zodSchemaObject(summarySchema) })
-  resend(@CurrentActor() actor: Actor, @Param('id', ParseUUIDPipe) id: string): Promise<Summary> {
-    return this.summaries.resend(actor, id);
+  resend(
+    @CurrentActor() actor: Actor,
+    @Param('id', ParseUUIDPipe) id: string,
+    @IdempotencyKeyHeader() key: string | undefined,
+  ): Promise<Summary> {
+    return this.summaries.resend(actor, id, key);
   }
 }

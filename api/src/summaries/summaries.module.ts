@@ -3,6 +3,7 @@ import { TypeOrmModule } from '@nestjs/typeorm';
 import { AuditModule } from '../audit/audit.module';
 import { ClientsModule } from '../clients/clients.module';
 import { ConsentsModule } from '../consents/consents.module';
+import { IdempotencyModule } from '../idempotency/idempotency.module';
 import { JobsModule } from '../jobs/jobs.module';
 import { SummariesController } from './summaries.controller';
 import { SummariesService } from './summaries.service';
@@ -16,6 +17,7 @@ import { Summary } from './summary.entity';
     ConsentsModule,
     AuditModule,
     JobsModule,
+    IdempotencyModule,
   ],
   controllers: [SummariesController],
   providers: [SummariesService],

@@ -23,6 +23,8 @@ import { coversScope, todayIso } from '../consents/consent-status';
 import { Consent } from '../consents/consent.entity';
 import { WithdrawalHooks } from '../consents/withdrawal-hooks';
 import { FamilyContact } from '../contacts/family-contact.entity';
+import { isUniqueViolation } from '../database/database-errors';
+import { type FinishIdempotent, IdempotencyService } from '../idempotency/idempotency.service';
 import { JobQueueService } from '../jobs/job-queue.service';
 import { ProfileVersion } from '../profile-versions/profile-version.entity';
 import { SUMMARY_MAIL_QUEUE } from './summary-delivery';
@@ -43,6 +45,8 @@ export const NO_SUMMARY_CONSENT_MESSAGE =
   'The client has no consent in force that covers progress summaries. Record one before sending.';
 export const NO_RECIPIENTS_LEFT_MESSAGE =
   'None of the recipients may receive summaries any more (consent changed or they stopped them).';
+export const ROUND_PENDING_MESSAGE =
+  'The last sending of this summary is still going out. Wait until every e-mail is sent or failed, then send again.';
 export const CLINIC_NAME = 'Willowmere Community Communication Clinic';
 
 // Versions a summary may report: trained at least (draft, training and failed versions have no metrics).
@@ -60,6 +64,7 @@ export class SummariesService implements OnModuleInit {
     private readonly audit: AuditService,
     private readonly jobs: JobQueueService,
     private readonly withdrawalHooks: WithdrawalHooks,
+    private readonly idempotency: IdempotencyService,
   ) {}
 
   onModuleInit(): void {
@@ -92,7 +97,27 @@ export class SummariesService implements OnModuleInit {
    * Composes, stores and queues a summary (owning clinician). Refuses contacts who did not consent or
    * stopped summaries (400), and sending without a summaries consent of the client (409).
    */
-  async create(actor: Actor, clientId: string, input: CreateSummaryInput): Promise<SummaryDto> {
+  async create(
+    actor: Actor,
+    clientId: string,
+    input: CreateSummaryInput,
+    idempotencyKey?: string,
+  ): Promise<SummaryDto> {
+    return this.idempotency.once(
+      actor.id,
+      idempotencyKey,
+      { route: `POST /clients/${clientId}/summaries`, body: input },
+      (finish) => this.createOnce(actor, clientId, input, finish),
+      (summaryId) => this.get(actor, summaryId),
+    );
+  }
+
+  private async createOnce(
+    actor: Actor,
+    clientId: string,
+    input: CreateSummaryInput,
+    finish: FinishIdempotent,
+  ): Promise<SummaryDto> {
     const { summary, recipients } = await this.dataSource.transaction(async (manager) => {
       const client = await this.access.requireOwned(actor, clientId, manager);
       await this.requireSummaryConsent(manager, clientId);
@@ -119,6 +144,7 @@ export class SummariesService implements OnModuleInit {
         { versions: content.versionIds.length, recipients: rows.length },
         manager,
       );
+      await finish(manager, saved.id);
       return { summary: saved, recipients: rows };
     });
     await this.sendJobs(recipients);
@@ -212,39 +238,66 @@ export class SummariesService implements OnModuleInit {
     return figures;
   }
 
-  /** Sends the same content again, as a new round, to the original contacts who may still receive it. */
-  async resend(actor: Actor, id: string): Promise<SummaryDto> {
-    const { summary, recipients } = await this.dataSource.transaction(async (manager) => {
-      const summary = await manager.getRepository(Summary).findOneBy({ id });
-      if (!summary) throw new NotFoundException(SUMMARY_NOT_FOUND_MESSAGE);
-      try {
-        await this.access.requireOwned(actor, summary.clientId, manager);
-      } catch (error) {
-        if (error instanceof NotFoundException) throw new NotFoundException(SUMMARY_NOT_FOUND_MESSAGE);
-        throw error;
-      }
-      await this.requireSummaryConsent(manager, summary.clientId);
-      const previous = await manager
-        .getRepository(SummaryRecipient)
-        .find({ where: { summaryId: id }, lock: { mode: 'pessimistic_write' } });
-      const round = Math.max(0, ...previous.map((r) => r.round)) + 1;
-      const contactIds = [...new Set(previous.flatMap((r) => (r.contactId ? [r.contactId] : [])))];
-      const contacts = (
-        await manager.getRepository(FamilyContact).findBy({ id: In(contactIds), clientId: summary.clientId })
-      ).filter((c) => c.consentToSummaries && c.unsubscribedAt === null);
-      if (contacts.length === 0) throw new ConflictException(NO_RECIPIENTS_LEFT_MESSAGE);
-      const rows = await this.queueRecipients(manager, id, contacts, round);
-      await this.audit.record(
-        actor,
-        'summary.resend',
-        { type: 'summary', id, clientId: summary.clientId },
-        { round, recipients: rows.length },
-        manager,
-      );
-      return { summary, recipients: rows };
-    });
-    await this.sendJobs(recipients);
-    return this.toDto(summary);
+  /**
+   * Sends the same content again, as a new round, to the original contacts who may still receive it.
+   * One round at a time: the summary row is locked, and while an e-mail of an earlier round is still
+   * queued the answer is 409 (so a double click, or twenty, adds one round).
+   */
+  async resend(actor: Actor, id: string, idempotencyKey?: string): Promise<SummaryDto> {
+    return this.idempotency.once(
+      actor.id,
+      idempotencyKey,
+      { route: `POST /summaries/${id}/resend`, body: null },
+      (finish) => this.resendOnce(actor, id, finish),
+      (summaryId) => this.get(actor, summaryId),
+    );
+  }
+
+  private async resendOnce(actor: Actor, id: string, finish: FinishIdempotent): Promise<SummaryDto> {
+    let queued: { summary: Summary; recipients: SummaryRecipient[] };
+    try {
+      queued = await this.dataSource.transaction(async (manager) => {
+        // SELECT … FOR UPDATE on the summary: concurrent resends of it run one after the other, and
+        // each reads the rounds the one before committed.
+        const summary = await manager
+          .getRepository(Summary)
+          .findOne({ where: { id }, lock: { mode: 'pessimistic_write' } });
+        if (!summary) throw new NotFoundException(SUMMARY_NOT_FOUND_MESSAGE);
+        try {
+          await this.access.requireOwned(actor, summary.clientId, manager);
+        } catch (error) {
+          if (error instanceof NotFoundException) throw new NotFoundException(SUMMARY_NOT_FOUND_MESSAGE);
+          throw error;
+        }
+        await this.requireSummaryConsent(manager, summary.clientId);
+        const previous = await manager.getRepository(SummaryRecipient).find({ where: { summaryId: id } });
+        if (previous.some((r) => r.status === 'queued')) throw new ConflictException(ROUND_PENDING_MESSAGE);
+        const round = Math.max(0, ...previous.map((r) => r.round)) + 1;
+        const contactIds = [...new Set(previous.flatMap((r) => (r.contactId ? [r.contactId] : [])))];
+        const contacts = (
+          await manager
+            .getRepository(FamilyContact)
+            .findBy({ id: In(contactIds), clientId: summary.clientId })
+        ).filter((c) => c.consentToSummaries && c.unsubscribedAt === null);
+        if (contacts.length === 0) throw new ConflictException(NO_RECIPIENTS_LEFT_MESSAGE);
+        const rows = await this.queueRecipients(manager, id, contacts, round);
+        await this.audit.record(
+          actor,
+          'summary.resend',
+          { type: 'summary', id, clientId: summary.clientId },
+          { round, recipients: rows.length },
+          manager,
+        );
+        await finish(manager, id);
+        return { summary, recipients: rows };
+      });
+    } catch (error) {
+      // The same round written twice (a path the lock should never leave open): still a conflict.
+      if (isUniqueViolation(error)) throw new ConflictException(ROUND_PENDING_MESSAGE);
+      throw error;
+    }
+    await this.sendJobs(queued.recipients);
+    return this.toDto(queued.summary);
   }
 
   /**

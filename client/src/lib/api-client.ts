@@ -35,6 +35,8 @@ type RequestOptions<T> = {
   /** Validates the JSON answer; omit for answers whose body is not used. */
   schema?: z.ZodType<T>;
   signal?: AbortSignal;
+  /** Extra request headers, e.g. an Idempotency-Key. */
+  headers?: Record<string, string>;
 };
 
 // ---- CSRF token -------------------------------------------------------------------------
@@ -86,7 +88,7 @@ async function send<T>(url: string, options: RequestOptions<T>, headers: Record<
   const init: RequestInit = {
     method: options.method ?? 'GET',
     credentials: 'same-origin',
-    headers: { Accept: 'application/json', ...headers },
+    headers: { Accept: 'application/json', ...options.headers, ...headers },
     signal: options.signal,
   };
   if (options.body instanceof FormData) {

@@ -42,9 +42,11 @@ export {
   ProfileFileError,
   PROFILE_FILE_MAGIC,
   PROFILE_FILE_VERSION,
+  PROFILE_FILE_SIGNED_VERSION,
+  PROFILE_SIGNATURE_BYTES,
   PROFILE_FILE_FORMAT,
   PROFILE_FILE_EXTENSION,
 } from './profile-file';
-export type { ProfileFileHeader, ProfileFileContents } from './profile-file';
+export type { ProfileFileHeader, ProfileFileContents, ProfileFileSigner } from './profile-file';
 export { reportFigures } from './report-figures';
 export type { ReportFigures } from './report-figures';

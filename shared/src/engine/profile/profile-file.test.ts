@@ -1,3 +1,4 @@
+import { createHmac } from 'node:crypto';
 import { crc32 as zlibCrc32 } from 'node:zlib';
 import { describe, expect, it } from 'vitest';
 import { PpmModel } from '../ppm-model';
@@ -74,6 +75,51 @@ describe('profile file (.klprofile)', () => {
     const damaged = bytes.slice();
     damaged[bytes.length - 30] ^= 1;
     expect(() => readProfileFile(damaged)).toThrow(/checksum does not match/);
+  });
+
+  describe('signed layout (version 2)', () => {
+    // HMAC-SHA-256 (RFC 2104) from node:crypto, as the API signs; the key is invented for the test.
+    const key = Buffer.from('a test key that is not any installation’s key', 'utf8');
+    const sign = (bytes: Uint8Array) => new Uint8Array(createHmac('sha256', key).update(bytes).digest());
+
+    it('carries the signer’s 32 bytes over every byte before them, then the CRC-32 of all before it', () => {
+      const bytes = writeProfileFile(header(), model(), sign);
+      const view = new DataView(bytes.buffer);
+      expect(view.getUint16(4, true)).toBe(2);
+      const signatureAt = bytes.length - 4 - 32;
+      expect([...bytes.subarray(signatureAt, bytes.length - 4)]).toEqual([
+        ...sign(bytes.subarray(0, signatureAt)),
+      ]);
+      expect(view.getUint32(bytes.length - 4, true)).toBe(
+        zlibCrc32(Buffer.from(bytes.subarray(0, bytes.length - 4))),
+      );
+      const read = verifyProfileFile(bytes);
+      expect(read.header).toEqual(header());
+      expect([...read.model]).toEqual([...model()]);
+      expect(read.signature && [...read.signature]).toEqual([...sign(read.signedBytes)]);
+      expect(read.signedBytes.length).toBe(signatureAt);
+    });
+
+    it('writes the unsigned layout 1, byte for byte, when there is no signer, and reads it as unsigned', () => {
+      const unsigned = writeProfileFile(header(), model());
+      const signed = writeProfileFile(header(), model(), sign);
+      expect(new DataView(unsigned.buffer).getUint16(4, true)).toBe(1);
+      expect(unsigned.length).toBe(signed.length - 32);
+      // Same bytes up to the model's end, apart from the layout version.
+      expect([...unsigned.subarray(6, unsigned.length - 4)]).toEqual([
+        ...signed.subarray(6, unsigned.length - 4),
+      ]);
+      expect(readProfileFile(unsigned).signature).toBeNull();
+    });
+
+    it('tells a damaged signature by its CRC, and refuses a signer of the wrong length', () => {
+      const bytes = writeProfileFile(header(), model(), sign);
+      const damaged = bytes.slice();
+      damaged[bytes.length - 10] ^= 1;
+      expect(() => readProfileFile(damaged)).toThrow(/checksum does not match/);
+      expect(() => readProfileFile(bytes.subarray(0, bytes.length - 32))).toThrow(/cut short/);
+      expect(() => writeProfileFile(header(), model(), () => new Uint8Array(20))).toThrow(/32 bytes/);
+    });
   });
 
   it('refuses a good checksum over a model that does not load', () => {

@@ -1,21 +1,34 @@
 // The .klprofile file: one self-describing file per exported profile version, our own layout.
 // Plain TypeScript (no Node-only API) so the browser can read it as well as the API.
 //
+// Layout version 1 (unsigned; still read, reported as not signed):
 //   offset  size  field
 //   0       4     magic "KLPF"
-//   4       2     layout version, u16 little-endian (PROFILE_FILE_VERSION)
+//   4       2     layout version, u16 little-endian (1)
 //   6       4     header length H, u32 LE
 //   10      H     header: JSON, UTF-8 (ProfileFileHeader)
 //   10+H    4     model length M, u32 LE
 //   14+H    M     model: serializeModel bytes of the personal PPM model
 //   14+H+M  4     CRC-32 (zip/PNG polynomial) of every byte before it, u32 LE
+//
+// Layout version 2 (signed): the same, with layout version 2 and, between the model and the CRC,
+//   14+H+M  32    signature: HMAC-SHA-256 (RFC 2104, FIPS 198-1) of bytes 0 .. 14+H+M−1 under the
+//                 clinic's export key (computed by the API; this module only carries the bytes)
+//   46+H+M  4     CRC-32 of every byte before it (the signature included), u32 LE
+// The CRC tells damage; only the signature tells who made the file. An unsigned file is written as
+// version 1, byte for byte as before.
 import { crc32 } from '../crc32';
 import { deserializeModel } from '../model-serialization';
 import { codePointsOf, stringFromCodePoints } from '../text-preparation';
 import { decodeUtf8, encodeUtf8 } from '../utf8-codec';
 
 export const PROFILE_FILE_MAGIC = 'KLPF';
+/** The unsigned layout (written when there is no signer). */
 export const PROFILE_FILE_VERSION = 1;
+/** The signed layout: a 32-byte signature between the model and the CRC. */
+export const PROFILE_FILE_SIGNED_VERSION = 2;
+/** Bytes of the signature in a signed file (HMAC-SHA-256). */
+export const PROFILE_SIGNATURE_BYTES = 32;
 export const PROFILE_FILE_FORMAT = 'keyloom-profile';
 export const PROFILE_FILE_EXTENSION = '.klprofile';
 /** Largest header accepted on reading (a header is a few kB; this stops a damaged length from allocating). */
@@ -61,25 +74,50 @@ export type ProfileFileContents = {
   modelOrder: number;
   modelContexts: number;
   checksum: string;
+  /** The signature bytes of a signed (version 2) file; null for an unsigned one. */
+  signature: Uint8Array | null;
+  /** The bytes the signature covers: everything before it. */
+  signedBytes: Uint8Array;
 };
+
+/** Computes a file's signature over the given bytes (the API passes an HMAC-SHA-256 under its key). */
+export type ProfileFileSigner = (bytes: Uint8Array) => Uint8Array;
 
 function utf8Bytes(text: string): Uint8Array {
   return encodeUtf8(codePointsOf(text));
 }
 
-/** Writes a profile file from its header and the serialised personal model. */
-export function writeProfileFile(header: ProfileFileHeader, model: Uint8Array): Uint8Array {
+/**
+ * Writes a profile file from its header and the serialised personal model: layout version 1, or
+ * version 2 signed by `sign` when given (it must return PROFILE_SIGNATURE_BYTES bytes).
+ */
+export function writeProfileFile(
+  header: ProfileFileHeader,
+  model: Uint8Array,
+  sign?: ProfileFileSigner,
+): Uint8Array {
   const headerBytes = utf8Bytes(JSON.stringify(header));
-  const out = new Uint8Array(FIXED_BYTES + headerBytes.length + model.length);
+  const signatureBytes = sign ? PROFILE_SIGNATURE_BYTES : 0;
+  const out = new Uint8Array(FIXED_BYTES + headerBytes.length + model.length + signatureBytes);
   const view = new DataView(out.buffer);
   for (let i = 0; i < 4; i++) out[i] = PROFILE_FILE_MAGIC.charCodeAt(i);
-  view.setUint16(4, PROFILE_FILE_VERSION, true);
+  view.setUint16(4, sign ? PROFILE_FILE_SIGNED_VERSION : PROFILE_FILE_VERSION, true);
   view.setUint32(6, headerBytes.length, true);
   out.set(headerBytes, 10);
   const modelAt = 10 + headerBytes.length;
   view.setUint32(modelAt, model.length, true);
   out.set(model, modelAt + 4);
-  const crcAt = modelAt + 4 + model.length;
+  const signatureAt = modelAt + 4 + model.length;
+  if (sign) {
+    const signature = sign(out.subarray(0, signatureAt));
+    if (signature.length !== PROFILE_SIGNATURE_BYTES) {
+      throw new Error(
+        `A profile file signature is ${PROFILE_SIGNATURE_BYTES} bytes, not ${signature.length}.`,
+      );
+    }
+    out.set(signature, signatureAt);
+  }
+  const crcAt = signatureAt + signatureBytes;
   view.setUint32(crcAt, crc32(out, 0, 0, crcAt), true);
   return out;
 }
@@ -94,6 +132,8 @@ export function readProfileFile(bytes: Uint8Array): {
   header: ProfileFileHeader;
   model: Uint8Array;
   checksum: string;
+  signature: Uint8Array | null;
+  signedBytes: Uint8Array;
 } {
   const magic = String.fromCharCode(...bytes.subarray(0, 4));
   if (bytes.length < 4 || magic !== PROFILE_FILE_MAGIC) {
@@ -106,11 +146,13 @@ export function readProfileFile(bytes: Uint8Array): {
   }
   const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);
   const layout = view.getUint16(4, true);
-  if (layout !== PROFILE_FILE_VERSION) {
+  if (layout !== PROFILE_FILE_VERSION && layout !== PROFILE_FILE_SIGNED_VERSION) {
     throw new ProfileFileError(
-      `The file uses layout version ${layout}; this Keyloom reads version ${PROFILE_FILE_VERSION}.`,
+      `The file uses layout version ${layout}; this Keyloom reads versions ${PROFILE_FILE_VERSION} ` +
+        `and ${PROFILE_FILE_SIGNED_VERSION}.`,
     );
   }
+  const signatureBytes = layout === PROFILE_FILE_SIGNED_VERSION ? PROFILE_SIGNATURE_BYTES : 0;
   const headerLength = view.getUint32(6, true);
   const expectedAtLeast = FIXED_BYTES + headerLength;
   if (headerLength > MAX_HEADER_BYTES || bytes.length < expectedAtLeast) {
@@ -121,7 +163,7 @@ export function readProfileFile(bytes: Uint8Array): {
   }
   const modelAt = 10 + headerLength;
   const modelLength = view.getUint32(modelAt, true);
-  const total = FIXED_BYTES + headerLength + modelLength;
+  const total = FIXED_BYTES + headerLength + modelLength + signatureBytes;
   if (bytes.length < total) {
     throw new ProfileFileError(
       `The file is cut short: it should be ${total} bytes long but has ${bytes.length}.`,
@@ -156,16 +198,19 @@ export function readProfileFile(bytes: Uint8Array): {
   ) {
     throw new ProfileFileError(`The header does not describe a ${PROFILE_FILE_FORMAT}.`);
   }
+  const signatureAt = crcAt - signatureBytes;
   return {
     header: header as ProfileFileHeader,
-    model: bytes.slice(modelAt + 4, crcAt),
+    model: bytes.slice(modelAt + 4, signatureAt),
     checksum: hex8(stored),
+    signature: signatureBytes > 0 ? bytes.slice(signatureAt, crcAt) : null,
+    signedBytes: bytes.subarray(0, signatureAt),
   };
 }
 
 /** readProfileFile, then loads the model to be sure it deserialises (ProfileFileError when it does not). */
 export function verifyProfileFile(bytes: Uint8Array): ProfileFileContents {
-  const { header, model, checksum } = readProfileFile(bytes);
+  const { header, model, checksum, signature, signedBytes } = readProfileFile(bytes);
   let loaded;
   try {
     loaded = deserializeModel(model);
@@ -180,5 +225,7 @@ export function verifyProfileFile(bytes: Uint8Array): ProfileFileContents {
     modelOrder: loaded.settings.order,
     modelContexts: loaded.contextCount,
     checksum,
+    signature,
+    signedBytes,
   };
 }

@@ -279,26 +279,73 @@ describe('Profile version page', () => {
     ).toHaveTextContent('Too few try-outs.');
   });
 
+  // The answer of POST /api/profile-exports/verify for a readable file (shared profileFileCheckSchema).
+  const fileCheck = (authenticity: 'this-clinic' | 'unsigned' | 'other') => ({
+    valid: authenticity === 'this-clinic',
+    intact: true,
+    authenticity,
+    fileName: 'ashby-v1.klp',
+    bytes: 5120,
+    checksum: '1a2b3c4d',
+    modelBytes: 4000,
+    modelOrder: 5,
+    modelContexts: 812,
+    header: { client: { pseudonym: 'R. Ashby' }, version: { number: 1, status: 'active' } },
+  });
+
+  /** Chooses a file and presses "Check file"; the answer is whatever `answer` gives. */
+  async function checkFile(answer: { status?: number; body: unknown }) {
+    const { user, api } = await openVersion('clinician', profileVersion(), {
+      'POST /api/profile-exports/verify': answer,
+    });
+    await user.upload(screen.getByLabelText('Exported profile file'), new File(['KLPF…'], 'ashby-v1.klp'));
+    await user.click(screen.getByRole('button', { name: 'Check file' }));
+    return { user, api };
+  }
+
   it('checks an exported file and shows what it holds', async () => {
     const { user, api } = await openVersion('clinician', profileVersion(), {
-      'POST /api/profile-exports/verify': {
-        body: {
-          valid: true,
-          checksum: 'b'.repeat(64),
-          header: { client: { pseudonym: 'R. Ashby' }, version: { number: 1, status: 'active' } },
-        },
-      },
+      'POST /api/profile-exports/verify': { body: fileCheck('this-clinic') },
     });
     await user.click(screen.getByRole('button', { name: 'Check file' }));
     expect(await screen.findByText('Choose a file to check.')).toBeInTheDocument();
     await user.upload(screen.getByLabelText('Exported profile file'), new File(['KLPF…'], 'ashby-v1.klp'));
     await user.click(screen.getByRole('button', { name: 'Check file' }));
-    expect(await screen.findByText('The file is intact.')).toBeInTheDocument();
+    expect(await screen.findByText('Made by this clinic and not damaged.')).toBeInTheDocument();
+    expect(screen.getByText('Damage:').nextSibling).toHaveTextContent(/^Not damaged/);
+    expect(screen.getByText('Made by:').nextSibling).toHaveTextContent(
+      'Made by this clinic and unchanged since it was exported.',
+    );
     expect(screen.getByText('Client pseudonym').nextSibling).toHaveTextContent('R. Ashby');
     expect(screen.getByText('Version number').nextSibling).toHaveTextContent('1');
     const sent = api.requestsTo('POST /api/profile-exports/verify')[0]?.formData?.get('file');
     expect(sent instanceof File ? sent.name : null).toBe('ashby-v1.klp');
   });
+
+  it('says in words when a readable file was not signed by this clinic (changed, foreign or unsigned)', async () => {
+    await checkFile({ body: fileCheck('other') });
+    expect(
+      await screen.findByText('Not signed by this clinic: do not rely on this file.'),
+    ).toBeInTheDocument();
+    expect(screen.getByText('Damage:').nextSibling).toHaveTextContent(/^Not damaged/);
+    expect(screen.getByText('Made by:').nextSibling).toHaveTextContent(
+      /^Not signed by this clinic: the signature does not match/,
+    );
+    expect(screen.queryByText('Made by this clinic and not damaged.')).not.toBeInTheDocument();
+  });
+
+  it('says a damaged file is damaged, and that who made it cannot be checked', async () => {
+    await checkFile({
+      status: 400,
+      body: { statusCode: 400, message: 'The checksum does not match (stored 00000000, computed 1a2b3c4d).' },
+    });
+    expect(await screen.findByText('The file is damaged or is not a Keyloom profile.')).toBeInTheDocument();
+    expect(screen.getByText('Damage:').nextSibling).toHaveTextContent(/^The checksum does not match/);
+    expect(screen.getByText('Made by:').nextSibling).toHaveTextContent(
+      'Cannot be checked on a damaged file.',
+    );
+  });
+
   it('keeps the carer’s sign-off and problem report shut until the version has a trial, and points to the keyboard', async () => {
     const { api } = await openVersion('carer', profileVersion());
     await waitFor(() => expect(api.requestsTo(`GET ${versionUrl}/trials`)).toHaveLength(1));

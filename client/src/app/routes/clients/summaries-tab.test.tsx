@@ -278,6 +278,82 @@ describe('Family updates tab', () => {
     await waitFor(() => expect(screen.queryByRole('dialog')).not.toBeInTheDocument());
   });
 
+  // The key is a structured-field string (RFC 8941) holding a UUID, as the IETF Idempotency-Key draft sends it.
+  const QUOTED_UUID = /^"[0-9a-f]{8}-[0-9a-f]{4}-4[0-9a-f]{3}-[89ab][0-9a-f]{3}-[0-9a-f]{12}"$/;
+  const keysOf = (requests: { headers: Headers }[]) => requests.map((r) => r.headers.get('Idempotency-Key'));
+
+  it('sends a summary with an Idempotency-Key, the same one when the send is tried again after an error', async () => {
+    let answers = 0;
+    const { user, api } = await openTab('clinician', {
+      [`POST ${base}/summaries/preview`]: { body: preview() },
+      // The first answer is lost (the server may have stored it); the retry must carry the same key.
+      [`POST ${base}/summaries`]: () =>
+        ++answers === 1
+          ? { status: 503, body: { statusCode: 503, message: 'The database is not reachable right now.' } }
+          : { status: 201, body: storedSummary({ status: 'sending' }) },
+    });
+    await user.click(screen.getByRole('button', { name: 'New progress summary' }));
+    const form = await screen.findByRole('form', { name: 'New progress summary for R. Ashby' });
+    await user.click(within(form).getByRole('checkbox', { name: 'Hannah Ashby (Sister)' }));
+    await user.click(within(form).getByRole('button', { name: 'Preview' }));
+    const previewRegion = await within(form).findByRole('region', { name: 'Preview' });
+    const sendButton = within(previewRegion).getByRole('button', { name: 'Send to 1 recipient' });
+    await user.click(sendButton);
+    expect(await within(form).findByText('The database is not reachable right now.')).toBeInTheDocument();
+    await user.click(sendButton);
+    await waitFor(() => expect(api.requestsTo(`POST ${base}/summaries`)).toHaveLength(2));
+    const [first, second] = keysOf(api.requestsTo(`POST ${base}/summaries`));
+    expect(first).toMatch(QUOTED_UUID);
+    expect(second).toBe(first);
+    await waitFor(() =>
+      expect(screen.queryByRole('form', { name: /New progress summary/ })).not.toBeInTheDocument(),
+    );
+
+    // A new summary is a new action: a new key.
+    await user.click(screen.getByRole('button', { name: 'New progress summary' }));
+    const again = await screen.findByRole('form', { name: 'New progress summary for R. Ashby' });
+    await user.click(within(again).getByRole('checkbox', { name: 'Hannah Ashby (Sister)' }));
+    await user.click(within(again).getByRole('button', { name: 'Preview' }));
+    const region = await within(again).findByRole('region', { name: 'Preview' });
+    await user.click(within(region).getByRole('button', { name: 'Send to 1 recipient' }));
+    await waitFor(() => expect(api.requestsTo(`POST ${base}/summaries`)).toHaveLength(3));
+    const third = keysOf(api.requestsTo(`POST ${base}/summaries`))[2];
+    expect(third).toMatch(QUOTED_UUID);
+    expect(third).not.toBe(first);
+  });
+
+  it('keeps the Idempotency-Key of a re-send while it is retried, disables the button while it runs, and uses a new one next time', async () => {
+    let answers = 0;
+    let release: () => void = () => undefined;
+    const { user, api } = await openTab('clinician', {
+      [`GET ${base}/summaries`]: { body: [storedSummary()] },
+      [`POST /api/summaries/${SUMMARY_ID}/resend`]: async () => {
+        answers += 1;
+        if (answers === 1) return { status: 502, body: { statusCode: 502, message: 'Bad gateway.' } };
+        if (answers === 2) await new Promise<void>((resolve) => (release = resolve));
+        return { body: storedSummary() };
+      },
+    });
+    await user.click(screen.getByRole('button', { name: /^Send again/ }));
+    let dialog = await screen.findByRole('dialog', { name: 'Send this summary again?' });
+    await user.click(within(dialog).getByRole('button', { name: 'Send again' }));
+    expect(await within(dialog).findByText('Bad gateway.')).toBeInTheDocument();
+    await user.click(within(dialog).getByRole('button', { name: 'Send again' }));
+    // While the retry runs, the button is off: a second click cannot send a second round.
+    expect(await within(dialog).findByRole('button', { name: 'Sending…' })).toBeDisabled();
+    release();
+    await waitFor(() => expect(screen.queryByRole('dialog')).not.toBeInTheDocument());
+    await user.click(screen.getByRole('button', { name: /^Send again/ }));
+    dialog = await screen.findByRole('dialog', { name: 'Send this summary again?' });
+    await user.click(within(dialog).getByRole('button', { name: 'Send again' }));
+    await waitFor(() => expect(api.requestsTo(`POST /api/summaries/${SUMMARY_ID}/resend`)).toHaveLength(3));
+    const [first, retry, next] = keysOf(api.requestsTo(`POST /api/summaries/${SUMMARY_ID}/resend`));
+    expect(first).toMatch(QUOTED_UUID);
+    expect(retry).toBe(first);
+    expect(next).toMatch(QUOTED_UUID);
+    expect(next).not.toBe(first);
+  });
+
   it('switches composing off without a summaries consent and says why', async () => {
     await openTab('clinician', {}, clientRecord({ summariesConsent: false }));
     const button = screen.getByRole('button', { name: 'New progress summary' });

@@ -1,7 +1,12 @@
+import {
+  PROFILE_FILE_INTACT_TEXT,
+  type ProfileFileCheck,
+  profileFileAuthenticityLabels,
+} from '@keyloom/shared';
 import { type FormEvent, useId, useState } from 'react';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
-import { type ExportCheck, useVerifyProfileExport } from '../api/verify-profile-export';
+import { useVerifyProfileExport } from '../api/verify-profile-export';
 
 const words = (key: string) =>
   key
@@ -38,15 +43,22 @@ const show = (value: unknown): string => {
   return String(value);
 };
 
-// Problems the API may list in its answer (several names tolerated until the contract is final).
-const problemsOf = (check: ExportCheck): string[] => {
-  for (const key of ['problems', 'errors', 'issues']) {
-    const list = check[key];
-    if (Array.isArray(list) && list.length > 0)
-      return list.map((item) => (typeof item === 'string' ? item : show(item)));
-  }
-  return [];
-};
+// The two findings, shown first and in words; the rest of the answer is listed below them.
+const FINDINGS = ['valid', 'intact', 'authenticity'];
+
+/** The two lines of a check: damage, and who made the file. */
+const Findings = ({ damage, origin }: { damage: string; origin: string }) => (
+  <dl className="mt-2 flex flex-col gap-1">
+    <div>
+      <dt className="inline font-bold">Damage: </dt>
+      <dd className="inline">{damage}</dd>
+    </div>
+    <div>
+      <dt className="inline font-bold">Made by: </dt>
+      <dd className="inline">{origin}</dd>
+    </div>
+  </dl>
+);
 
 /** Checks an exported profile file: shows what it holds, or what is wrong with it. */
 export const VerifyExportPanel = () => {
@@ -64,9 +76,7 @@ export const VerifyExportPanel = () => {
     verify.mutate(file);
   };
 
-  const check = verify.data;
-  const problems = check ? problemsOf(check) : [];
-  const valid = check ? check.valid !== false && problems.length === 0 : false;
+  const check: ProfileFileCheck | undefined = verify.data;
   return (
     <section aria-labelledby="verify-heading" className="flex flex-col gap-4">
       <h3 id="verify-heading" className="text-2xl font-bold">
@@ -101,25 +111,26 @@ export const VerifyExportPanel = () => {
       <div role="status" aria-live="polite">
         {missing && <Alert tone="error">Choose a file to check.</Alert>}
         {verify.isError && (
-          <Alert tone="error" title="This file is not a valid Keyloom profile.">
-            {verify.error.message}
+          <Alert tone="error" title="The file is damaged or is not a Keyloom profile.">
+            <Findings damage={verify.error.message} origin="Cannot be checked on a damaged file." />
           </Alert>
         )}
         {check && (
           <Alert
-            tone={valid ? 'success' : 'error'}
-            title={valid ? 'The file is intact.' : 'The file has problems.'}
+            tone={check.valid ? 'success' : 'error'}
+            title={
+              check.valid
+                ? 'Made by this clinic and not damaged.'
+                : 'Not signed by this clinic: do not rely on this file.'
+            }
           >
-            {problems.length > 0 && (
-              <ul className="list-disc pl-5">
-                {problems.map((problem) => (
-                  <li key={problem}>{problem}</li>
-                ))}
-              </ul>
-            )}
+            <Findings
+              damage={PROFILE_FILE_INTACT_TEXT}
+              origin={profileFileAuthenticityLabels[check.authenticity]}
+            />
             <dl className="mt-2 grid grid-cols-[auto_1fr] gap-x-4 gap-y-1">
               {flatten(check)
-                .filter(([key]) => !['problems', 'errors', 'issues', 'model'].includes(key))
+                .filter(([key]) => !FINDINGS.includes(key))
                 .map(([key, value]) => (
                   <div key={key} className="contents">
                     <dt className="font-bold">{words(key)}</dt>

@@ -16,6 +16,7 @@ import { Form, FormServerError } from '@/components/ui/form';
 import { TextAreaField } from '@/components/ui/text-area-field';
 import { TextField } from '@/components/ui/text-field';
 import { useCreateSummary } from '../api/create-summary';
+import { useIdempotencyKey } from '../api/idempotency-key';
 import { usePreviewSummary } from '../api/preview-summary';
 import { defaultPeriod } from './summary-period';
 import { SummaryPreviewView } from './summary-preview';
@@ -85,6 +86,7 @@ export const SummaryComposer = ({
 }: SummaryComposerProps) => {
   const ids = useId();
   const createSummary = useCreateSummary();
+  const sendKey = useIdempotencyKey();
   const previewSummary = usePreviewSummary();
   const [preview, setPreview] = useState<{ key: string; result: SummaryPreview } | null>(null);
   const [previewError, setPreviewError] = useState<string | null>(null);
@@ -100,7 +102,10 @@ export const SummaryComposer = ({
       aria-labelledby={`${ids}-title`}
       defaultValues={{ ...defaultPeriod(), versionIds: [], contactIds: [], note: '' }}
       onSubmit={async (input) => {
-        const summary = await createSummary.mutateAsync({ clientId, input });
+        // The same key when the same summary is sent again after an error: it goes out once.
+        const idempotencyKey = sendKey.keyFor({ clientId, input });
+        const summary = await createSummary.mutateAsync({ clientId, input, idempotencyKey });
+        sendKey.done();
         onSent(summary);
       }}
     >

@@ -14,6 +14,7 @@ import {
   TableRow,
 } from '@/components/ui/table';
 import { formatDateTime } from '@/lib/format';
+import { useIdempotencyKey } from '../api/idempotency-key';
 import { useResendSummary } from '../api/resend-summary';
 import { failureWords, recipientState, recipientStateLabels, recipientStateTones } from './summary-words';
 
@@ -41,9 +42,12 @@ type ResendDialogProps = {
 /** Confirms a re-send: a new e-mail to each original contact who may still receive summaries. */
 const ResendDialog = ({ summary, onClose, onResent }: ResendDialogProps) => {
   const resend = useResendSummary();
+  const resendKey = useIdempotencyKey();
   const [error, setError] = useState<string | null>(null);
   const close = () => {
     setError(null);
+    // Closing ends this action: opening the dialog again is a new one, with a new key.
+    resendKey.done();
     onClose();
   };
   return (
@@ -67,13 +71,19 @@ const ResendDialog = ({ summary, onClose, onResent }: ResendDialogProps) => {
           onClick={() => {
             if (!summary) return;
             setError(null);
-            resend.mutate(summary.id, {
-              onSuccess: (saved) => {
-                setError(null);
-                onResent(saved);
+            // Trying again after an error reuses the key, so the round goes out at most once.
+            const idempotencyKey = resendKey.keyFor(summary.id);
+            resend.mutate(
+              { summaryId: summary.id, idempotencyKey },
+              {
+                onSuccess: (saved) => {
+                  setError(null);
+                  resendKey.done();
+                  onResent(saved);
+                },
+                onError: (failure) => setError(failure.message),
               },
-              onError: (failure) => setError(failure.message),
-            });
+            );
           }}
         >
           {resend.isPending ? 'Sending…' : 'Send again'}
