@@ -11,6 +11,8 @@ import { CreateLanguageSamples1764720500000 } from '../migrations/1764720500000-
 import { CreateProfileVersions1764721000000 } from '../migrations/1764721000000-create-profile-versions';
 import { CreateSummaries1764722000000 } from '../migrations/1764722000000-create-summaries';
 import { CreateTrials1764800000000 } from '../migrations/1764800000000-create-trials';
+import { AddSignInLimitsAndPasswordChange1764940000001 } from '../migrations/1764940000001-add-sign-in-limits-and-password-change';
+import { SignInLimit } from '../auth/sign-in-limits/sign-in-limit.entity';
 import { ProfileVersion } from '../profile-versions/profile-version.entity';
 import { SampleFlag } from '../samples/sample-flag.entity';
 import { Sample } from '../samples/sample.entity';
@@ -36,6 +38,7 @@ export const entities = [
   SummaryRecipient,
   Trial,
   PracticePhraseRow,
+  SignInLimit,
 ];
 export const migrations = [
   CreateUsersAndSessions1764633600000,
@@ -45,6 +48,7 @@ export const migrations = [
   CreateProfileVersions1764721000000,
   CreateSummaries1764722000000,
   CreateTrials1764800000000,
+  AddSignInLimitsAndPasswordChange1764940000001,
 ];
 
 /** TypeORM options for the app, the CLI, migrate.js, seed.js and the HTTP tests. Never synchronize. */
