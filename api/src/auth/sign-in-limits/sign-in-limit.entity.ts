@@ -19,12 +19,12 @@ export class SignInLimit {
   @Column({ type: 'integer', default: 0 })
   failures: number;
 
-  @Column({ name: 'window_started_at', type: 'timestamptz' })
+  @Column({ name: 'window_started_at', type: 'timestamptz', default: () => 'now()' })
   windowStartedAt: Date;
 
   @Column({ name: 'locked_until', type: 'timestamptz', nullable: true })
   lockedUntil: Date | null;
 
-  @Column({ name: 'updated_at', type: 'timestamptz' })
+  @Column({ name: 'updated_at', type: 'timestamptz', default: () => 'now()' })
   updatedAt: Date;
 }
