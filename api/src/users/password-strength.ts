@@ -7,9 +7,9 @@ export const WEAK_PASSWORD_MESSAGE =
   'That password is too easy to guess (a common password, a repeat or a simple pattern). ' +
   'Try three or four unrelated words.';
 
-// zxcvbn scores 0–4; 3 is the package's "safely unguessable" band (about 10^8 guesses or more),
-// the usual bar for accepting a password (zxcvbn-ts documentation, "score"). Checking against
-// commonly used passwords is what NIST SP 800-63B §5.1.1.2 asks of a verifier.
+// zxcvbn scores 0–4 (Wheeler 2016; zxcvbn-ts documentation, "score"): 3 is "safely unguessable",
+// 10^8 guesses or more. Requiring 3 is common practice, no source. Checking new passwords against
+// commonly used ones is what NIST SP 800-63B §5.1.1.2 asks of a verifier.
 const MIN_SCORE = 3;
 // Words every Keyloom password is likely to be built from (checked like dictionary words).
 const PRODUCT_WORDS = ['keyloom', 'willowmere', 'clinic'];
