@@ -97,3 +97,31 @@ describe('Choose a new password (a password change is due)', () => {
     expect(currentUrl(router)).toBe('/my-clients');
   });
 });
+
+describe('a password change that becomes due while signed in', () => {
+  it('takes the reader to "Choose a new password" when the API refuses a request with its code', async () => {
+    let due = false;
+    mockFetch({
+      'GET /api/auth/me': () => ({
+        body: due ? { ...sessionUser('clinician'), mustChangePassword: true } : sessionUser('clinician'),
+      }),
+      'GET /api/auth/csrf': { body: { token: CSRF_TOKEN } },
+      'GET /api/clients': () => {
+        due = true;
+        return {
+          status: 403,
+          body: {
+            statusCode: 403,
+            message: 'Choose a new password before you continue.',
+            code: 'password-change-required',
+          },
+        };
+      },
+    });
+    const { router } = renderApp('/caseload');
+    expect(
+      await screen.findByRole('heading', { level: 1, name: 'Choose a new password' }),
+    ).toBeInTheDocument();
+    expect(currentUrl(router)).toBe('/choose-password');
+  });
+});
