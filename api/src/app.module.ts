@@ -10,13 +10,11 @@ import { SamplesModule } from './samples/samples.module';
 import { ProfileVersionsModule } from './profile-versions/profile-versions.module';
 import { SummariesModule } from './summaries/summaries.module';
 import { TrialsModule } from './trials/trials.module';
-import { isSignInRoute, SIGN_IN_THROTTLER } from './auth/decorators/sign-in-rate-limit.decorator';
 import { CsrfGuard } from './auth/guards/csrf.guard';
 import { RolesGuard } from './auth/guards/roles.guard';
+import { PasswordChangeGuard } from './auth/guards/password-change.guard';
 import { SessionGuard } from './auth/guards/session.guard';
-import { SIGN_IN_THROTTLED_MESSAGE } from './auth/session-user';
 import { ApiExceptionFilter } from './common/filters/api-exception.filter';
-import { AppConfig } from './config/app-config';
 import { AppConfigModule } from './config/app-config.module';
 import { DatabaseModule } from './database/database.module';
 import { HealthModule } from './health/health.module';
@@ -24,30 +22,16 @@ import { UsersModule } from './users/users.module';
 
 const MINUTE_MS = 60_000;
 // Ceiling for all API calls per client address; far above what one person's browser does
-// (common practice, no source). Sign-in has its own, much lower limit.
+// (common practice, no source). Failed sign-ins have their own limits (auth/sign-in-limits).
 const API_REQUESTS_PER_MINUTE = 1_000;
 
 @Module({
   imports: [
     AppConfigModule,
     DatabaseModule,
-    ThrottlerModule.forRootAsync({
-      inject: [AppConfig],
-      useFactory: (config: AppConfig) => ({
-        throttlers: [
-          { name: 'default', ttl: MINUTE_MS, limit: API_REQUESTS_PER_MINUTE },
-          {
-            name: SIGN_IN_THROTTLER,
-            ttl: MINUTE_MS,
-            limit: config.loginRateLimit,
-            skipIf: (context) => !isSignInRoute(context),
-          },
-        ],
-        errorMessage: (context) =>
-          isSignInRoute(context)
-            ? SIGN_IN_THROTTLED_MESSAGE
-            : 'Too many requests. Wait a minute and try again.',
-      }),
+    ThrottlerModule.forRoot({
+      throttlers: [{ name: 'default', ttl: MINUTE_MS, limit: API_REQUESTS_PER_MINUTE }],
+      errorMessage: 'Too many requests. Wait a minute and try again.',
     }),
     AuditModule,
     UsersModule,
@@ -63,9 +47,10 @@ const API_REQUESTS_PER_MINUTE = 1_000;
   ],
   providers: [
     Reflector,
-    // Global guards run in this order: rate limit, session, role, CSRF token.
+    // Global guards run in this order: rate limit, session, pending password change, role, CSRF token.
     { provide: APP_GUARD, useClass: ThrottlerGuard },
     { provide: APP_GUARD, useClass: SessionGuard },
+    { provide: APP_GUARD, useClass: PasswordChangeGuard },
     { provide: APP_GUARD, useClass: RolesGuard },
     { provide: APP_GUARD, useClass: CsrfGuard },
     { provide: APP_FILTER, useClass: ApiExceptionFilter },

@@ -7,7 +7,7 @@ import session from 'express-session';
 import helmet from 'helmet';
 import passport from 'passport';
 import type { Pool } from 'pg';
-import { SESSION_COOKIE } from './auth/session-user';
+import { NO_SESSION_MESSAGE, SESSION_COOKIE } from './auth/session-user';
 import { serveClient } from './client/serve-client';
 import { INVALID_JSON_MESSAGE } from './common/filters/api-exception.filter';
 import { AppConfig } from './config/app-config';
@@ -24,8 +24,8 @@ export function configureApp(app: NestExpressApplication): Pool {
 
   // trust proxy: off by default, so req.ip is the socket address (the API listens on loopback and
   // nobody can spoof X-Forwarded-For). In production Keyloom is meant to sit behind a TLS proxy on the
-  // same machine: trusting the loopback hop gives the real client address (rate limit, audit log)
-  // and lets express-session see HTTPS for its Secure cookie.
+  // same machine: trusting the loopback hop gives the real client address (sign-in limits, audit log)
+  // and lets express-session see HTTPS (X-Forwarded-Proto) for its Secure cookie.
   app.set('trust proxy', config.isProduction ? 'loopback' : false);
   app.disable('x-powered-by');
 
@@ -80,6 +80,22 @@ export function configureApp(app: NestExpressApplication): Pool {
   );
   app.use('/api', passport.initialize());
   app.use('/api', passport.session());
+
+  // No API answer is kept by the browser's or a proxy's cache (they carry clients' data): every
+  // response says no-store unless its route sets its own Cache-Control (the model downloads, with an
+  // ETag). OWASP Session Management Cheat Sheet, "Web Content Caching".
+  app.use('/api', (_req: Request, res: Response, next: NextFunction) => {
+    res.setHeader('Cache-Control', 'no-store');
+    next();
+  });
+
+  // In production the API description is for signed-in staff only.
+  if (config.isProduction) {
+    app.use(['/api/docs', '/api/docs-json'], (req: Request, res: Response, next: NextFunction) => {
+      if (req.isAuthenticated() && req.user) return next();
+      res.status(401).json({ statusCode: 401, message: NO_SESSION_MESSAGE, error: 'Unauthorized' });
+    });
+  }
 
   // JSON bodies up to 2 MB (bigger: 413): the largest is a long test-keyboard trial's log (20,000
   // logged steps); file uploads use multipart with their own limits.

@@ -5,6 +5,7 @@ import type { Server } from 'node:http';
 import type { Pool } from 'pg';
 import { DataSource } from 'typeorm';
 import { AppModule } from '../src/app.module';
+import type { SignInLimitSettings } from '../src/auth/sign-in-limits/sign-in-limit-settings';
 import { AppConfig } from '../src/config/app-config';
 import { configureApp } from '../src/configure-app';
 import { dataSourceOptions } from '../src/database/data-source-options';
@@ -35,13 +36,28 @@ export async function resetDatabase(): Promise<void> {
 }
 
 /**
- * The real AppModule wired by the same configureApp() as main.ts. The sign-in limit is raised by
- * default because every test signs in from 127.0.0.1; the rate-limit test passes a small one.
+ * The real AppModule wired by the same configureApp() as main.ts. The per-address sign-in limit is
+ * raised by default because every test signs in from 127.0.0.1; the limit tests pass small ones.
+ * `nodeEnv: 'production'` builds the app as production mode would (Secure cookie, HSTS, docs).
  */
-export async function createTestApp({ loginRateLimit = 1_000 } = {}): Promise<TestApp> {
+export async function createTestApp({
+  loginRateLimit = 1_000,
+  signInLimits = {},
+  nodeEnv,
+}: {
+  loginRateLimit?: number;
+  signInLimits?: Partial<SignInLimitSettings>;
+  nodeEnv?: 'production';
+} = {}): Promise<TestApp> {
   class TestConfig extends AppConfig {
     override get loginRateLimit(): number {
       return loginRateLimit;
+    }
+    override get signInLimits(): SignInLimitSettings {
+      return { ...super.signInLimits, ...signInLimits };
+    }
+    override get nodeEnv(): 'development' | 'test' | 'production' {
+      return nodeEnv ?? super.nodeEnv;
     }
   }
   const moduleRef = await Test.createTestingModule({ imports: [AppModule] })

@@ -97,5 +97,63 @@ export const foundationSuite = {
         await signOut(page, 'Administrator');
       },
     ],
+    [
+      'a staff member changes their own password from the user menu, by keyboard; the account page is axe-clean',
+      async (t) => {
+        const page = await t.newPage();
+        await signIn(page, t.appUrl, 'admin@willowmere.example');
+        await page.waitForURL((url) => url.pathname === '/admin/staff');
+        const email = `own.password.${Date.now()}@willowmere.example`;
+        const first = 'Marigold-Quarry-Bellows-7';
+        const chosen = 'Tulip-Harbour-Lantern-42';
+        const created = await page.evaluate(
+          async ({ email, first }) => {
+            const { token } = await (await fetch('/api/auth/csrf')).json();
+            const res = await fetch('/api/users', {
+              method: 'POST',
+              headers: { 'Content-Type': 'application/json', 'X-CSRF-Token': token },
+              body: JSON.stringify({ email, name: 'Ivo Lindqvist', role: 'carer', password: first }),
+            });
+            return res.status;
+          },
+          { email, first },
+        );
+        assert.equal(created, 201);
+        await signOut(page, 'Administrator');
+
+        await signIn(page, t.appUrl, email, first);
+        await page.waitForURL((url) => url.pathname === '/my-clients');
+        const menuButton = page.getByRole('banner').getByRole('button', { name: /Carer/ });
+        await menuButton.focus();
+        await menuButton.press('Enter');
+        await page.getByRole('menuitem', { name: 'Change password' }).press('Enter');
+        await page.getByRole('heading', { level: 1, name: 'Your account' }).waitFor();
+        assert.deepEqual(await t.seriousViolations(page, 'account'), []);
+
+        const fill = async (current, next, again) => {
+          await page.getByLabel('Current password').fill(current);
+          await page.getByLabel('New password', { exact: true }).fill(next);
+          await page.getByLabel('New password again').fill(again);
+          await page.getByLabel('New password again').press('Enter');
+        };
+        await fill(first, 'password1234', 'password1234');
+        await page
+          .getByText(/too easy to guess/)
+          .first()
+          .waitFor();
+        await fill(first, chosen, chosen);
+        await page
+          .getByRole('status')
+          .filter({ hasText: /password is changed/i })
+          .waitFor();
+        await t.screenshot(page, 'account-password-changed');
+        assert.deepEqual(await t.seriousViolations(page, 'account after the change'), []);
+        await signOut(page, 'Carer');
+
+        await signIn(page, t.appUrl, email, chosen);
+        await page.waitForURL((url) => url.pathname === '/my-clients');
+        await signOut(page, 'Carer');
+      },
+    ],
   ],
 };

@@ -1,15 +1,23 @@
-import { Controller, Get, HttpCode, Ip, Post, Req, Res, UseGuards } from '@nestjs/common';
+import { Body, Controller, Get, HttpCode, Ip, Post, Req, Res, UseGuards } from '@nestjs/common';
 import { ApiBody, ApiOperation, ApiTags } from '@nestjs/swagger';
-import { type CsrfToken, loginSchema, type SessionUser } from '@keyloom/shared';
+import {
+  type ChangePasswordInput,
+  changePasswordSchema,
+  type CsrfToken,
+  loginSchema,
+  type SessionUser,
+} from '@keyloom/shared';
 import type { Request, Response } from 'express';
 import { zodSchemaObject } from '../common/openapi/zod-schema-object';
 import { AuthService } from './auth.service';
 import { CsrfService } from './csrf.service';
-import { CurrentUser } from './decorators/current-user.decorator';
+import { ZodValidationPipe } from '../common/pipes/zod-validation.pipe';
+import { UsersService } from '../users/users.service';
+import { AllowPendingPasswordChange } from './decorators/allow-pending-password-change.decorator';
+import { CurrentActor, CurrentUser } from './decorators/current-user.decorator';
 import { Public } from './decorators/public.decorator';
-import { SignInRateLimit } from './decorators/sign-in-rate-limit.decorator';
 import { LocalAuthGuard } from './guards/local-auth.guard';
-import { SESSION_COOKIE } from './session-user';
+import { type Actor, SESSION_COOKIE } from './session-user';
 
 @ApiTags('auth')
 @Controller('auth')
@@ -17,14 +25,18 @@ export class AuthController {
   constructor(
     private readonly auth: AuthService,
     private readonly csrf: CsrfService,
+    private readonly users: UsersService,
   ) {}
 
   @Post('login')
   @Public()
-  @SignInRateLimit()
   @UseGuards(LocalAuthGuard)
   @HttpCode(200)
-  @ApiOperation({ summary: 'Sign in (needs X-CSRF-Token from GET /api/auth/csrf); starts a new session' })
+  @ApiOperation({
+    summary:
+      'Sign in (needs X-CSRF-Token from GET /api/auth/csrf); starts a new session. Failed attempts are ' +
+      'limited per account and per address: 429 with Retry-After while held back',
+  })
   @ApiBody({ schema: zodSchemaObject(loginSchema) })
   async login(@CurrentUser() user: SessionUser, @Ip() ip: string): Promise<SessionUser> {
     await this.auth.signedIn({ ...user, ip });
@@ -46,8 +58,22 @@ export class AuthController {
     if (user) await this.auth.signedOut({ ...user, ip: req.ip ?? null });
   }
 
+  @Post('password')
+  @HttpCode(200)
+  @AllowPendingPasswordChange()
+  @ApiOperation({ summary: 'Change your own password (current one + new one twice); other sessions end' })
+  @ApiBody({ schema: zodSchemaObject(changePasswordSchema) })
+  changePassword(
+    @CurrentActor() actor: Actor,
+    @Body(new ZodValidationPipe(changePasswordSchema)) body: ChangePasswordInput,
+    @Req() req: Request,
+  ): Promise<SessionUser> {
+    return this.users.changeOwnPassword(actor, body, req.sessionID);
+  }
+
   @Get('me')
-  @ApiOperation({ summary: 'The signed-in user' })
+  @AllowPendingPasswordChange()
+  @ApiOperation({ summary: 'The signed-in user (mustChangePassword: true while a new password is due)' })
   me(@CurrentUser() user: SessionUser): SessionUser {
     return user;
   }

@@ -15,7 +15,7 @@ export type Actor = SessionUser & { ip: string | null };
 
 export const SESSION_COOKIE = 'keyloom.sid';
 export const SIGN_IN_FAILED_MESSAGE = 'E-mail or password is not right.';
-export const SIGN_IN_THROTTLED_MESSAGE = 'Too many sign-in attempts. Wait a minute and try again.';
 export const CSRF_FAILED_MESSAGE = 'Missing or invalid CSRF token. Reload the page and try again.';
 export const NO_SESSION_MESSAGE = 'Sign in to continue.';
 export const WRONG_ROLE_MESSAGE = 'Your role does not allow this.';
+export const PASSWORD_CHANGE_REQUIRED_MESSAGE = 'Choose a new password before you continue.';

@@ -1,6 +1,7 @@
 import { Injectable } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
 import { isAbsolute, resolve } from 'node:path';
+import { type SignInLimitSettings, signInLimitSettings } from '../auth/sign-in-limits/sign-in-limit-settings';
 import type { Env } from './env.schema';
 
 // api/src/config and api/dist/config are both three levels below the repository root.
@@ -42,9 +43,17 @@ export class AppConfig {
   get bcryptCost(): number {
     return this.get('BCRYPT_COST');
   }
-  /** Sign-in attempts allowed per minute per client address (1–10000). */
+  /** Failed sign-ins allowed per client address in 15 minutes (LOGIN_RATE_LIMIT, 1–10000). */
   get loginRateLimit(): number {
     return this.get('LOGIN_RATE_LIMIT');
+  }
+  /** The sign-in limits: per address (loginRateLimit) and per account (growing lock). */
+  get signInLimits(): SignInLimitSettings {
+    return signInLimitSettings(this.loginRateLimit, this.get('LOGIN_ACCOUNT_FAILURES'));
+  }
+  /** DEMO_MODE (default: not in production): seeded accounts keep the demo password. */
+  get demoMode(): boolean {
+    return this.get('DEMO_MODE');
   }
   get smtp(): { host: string; port: number; secure: boolean; user?: string; pass?: string } {
     return {

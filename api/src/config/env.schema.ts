@@ -46,7 +46,10 @@ export const envSchema = z
     SESSION_MAX_AGE_HOURS: wholeNumber(1, 24 * 30, 12),
     // bcrypt cost 12 is common practice for interactive sign-in (no source); tests use 4, the minimum.
     BCRYPT_COST: wholeNumber(4, 15, 12),
-    LOGIN_RATE_LIMIT: wholeNumber(1, 10_000, 5),
+    // Failed sign-ins allowed per client address in 15 minutes (successful ones are not counted), and
+    // per account before its growing lock starts (auth/sign-in-limits).
+    LOGIN_RATE_LIMIT: wholeNumber(1, 10_000, 100),
+    LOGIN_ACCOUNT_FAILURES: wholeNumber(1, 100, 5),
     SMTP_HOST: z.string().trim().min(1).default('127.0.0.1'),
     SMTP_PORT: port(1025),
     SMTP_SECURE: flag(false),
@@ -55,6 +58,12 @@ export const envSchema = z
     MAIL_FROM: z.string().trim().min(3).default('Keyloom at Willowmere <keyloom@willowmere.example>'),
     APP_URL: url('http://127.0.0.1:3000', /^https?$/, 'Expected an http:// or https:// URL.'),
     CLIENT_DIST: z.string().trim().min(1).default('client/dist'),
+    // Demo mode (default: on unless NODE_ENV=production): the seeded demo accounts keep the demo
+    // password; outside it they must choose a new one at their first sign-in.
+    DEMO_MODE: z
+      .enum(['true', 'false', '1', '0'], { error: 'Expected true or false.' })
+      .optional()
+      .transform((value) => (value === undefined ? undefined : value === 'true' || value === '1')),
     DEMO_PASSWORD: z.string().min(12, { error: 'Use at least 12 characters.' }).default('keyloom-demo'),
     // Language-sample upload limits (issue 4): MB per file, MB stored per client, files per upload.
     SAMPLE_MAX_FILE_MB: wholeNumber(1, 1_000, 20),
@@ -68,7 +77,11 @@ export const envSchema = z
     // (32 bytes); 32 characters is the floor here.
     EXPORT_SIGNING_KEY: z.string().min(32, { error: 'Use at least 32 random characters.' }).optional(),
   })
-  .transform((env) => ({ ...env, SESSION_SECRET: env.SESSION_SECRET ?? DEV_SESSION_SECRET }));
+  .transform((env) => ({
+    ...env,
+    SESSION_SECRET: env.SESSION_SECRET ?? DEV_SESSION_SECRET,
+    DEMO_MODE: env.DEMO_MODE ?? env.NODE_ENV !== 'production',
+  }));
 
 // Checked apart from the object schema so its message appears even when other variables are bad too.
 function sessionSecretProblem(raw: Record<string, unknown>): string | null {

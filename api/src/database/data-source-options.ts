@@ -15,6 +15,8 @@ import { CreateTrials1764800000000 } from '../migrations/1764800000000-create-tr
 import { ScrubClientTextFromAudit1764910000001 } from '../migrations/1764910000001-scrub-client-text-from-audit';
 import { CreateIdempotencyKeys1764930000001 } from '../migrations/1764930000001-create-idempotency-keys';
 import { CreateAppSettings1764930000002 } from '../migrations/1764930000002-create-app-settings';
+import { AddSignInLimitsAndPasswordChange1764940000001 } from '../migrations/1764940000001-add-sign-in-limits-and-password-change';
+import { SignInLimit } from '../auth/sign-in-limits/sign-in-limit.entity';
 import { ProfileVersion } from '../profile-versions/profile-version.entity';
 import { SampleFlag } from '../samples/sample-flag.entity';
 import { AppSetting } from '../settings/app-setting.entity';
@@ -43,6 +45,7 @@ export const entities = [
   PracticePhraseRow,
   IdempotencyKey,
   AppSetting,
+  SignInLimit,
 ];
 export const migrations = [
   CreateUsersAndSessions1764633600000,
@@ -55,6 +58,7 @@ export const migrations = [
   ScrubClientTextFromAudit1764910000001,
   CreateIdempotencyKeys1764930000001,
   CreateAppSettings1764930000002,
+  AddSignInLimitsAndPasswordChange1764940000001,
 ];
 
 /** TypeORM options for the app, the CLI, migrate.js, seed.js and the HTTP tests. Never synchronize. */

@@ -35,6 +35,10 @@ export class User {
   @Column({ type: 'boolean', default: true })
   active: boolean;
 
+  /** Set by the seed outside demo mode: the account may only change its password until it does. */
+  @Column({ name: 'must_change_password', type: 'boolean', default: false })
+  mustChangePassword: boolean;
+
   @CreateDateColumn({ name: 'created_at', type: 'timestamptz' })
   createdAt: Date;
 

@@ -7,6 +7,7 @@ import { AuditService } from '../audit/audit.service';
 import type { Actor } from '../auth/session-user';
 import { AppConfig } from '../config/app-config';
 import { User } from './user.entity';
+import { PasswordStrength } from './password-strength';
 import {
   DUPLICATE_EMAIL_MESSAGE,
   LAST_ADMIN_MESSAGE,
@@ -76,6 +77,7 @@ describe(UsersService.name, () => {
         { provide: getDataSourceToken(), useValue: dataSource },
         { provide: AuditService, useValue: audit },
         { provide: AppConfig, useValue: { bcryptCost: 4 } },
+        PasswordStrength,
       ],
     }).compile();
     sut = moduleRef.get(UsersService);

@@ -28,6 +28,21 @@ export const routes: RouteObject[] = [
             lazy: async () => ({ Component: (await import('./routes/sign-in')).SignInRoute }),
           },
           {
+            path: 'choose-password',
+            lazy: async () => ({
+              Component: (await import('./routes/choose-password')).ChoosePasswordRoute,
+            }),
+          },
+          {
+            element: <RequireRole roles={['admin', 'clinician', 'supervisor', 'carer']} />,
+            children: [
+              {
+                path: 'account',
+                lazy: async () => ({ Component: (await import('./routes/account')).AccountRoute }),
+              },
+            ],
+          },
+          {
             element: <RequireRole roles={['admin']} />,
             children: [
               {

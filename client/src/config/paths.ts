@@ -4,6 +4,8 @@ import type { Role } from '@keyloom/shared';
 export const paths = {
   home: '/',
   signIn: '/sign-in',
+  choosePassword: '/choose-password',
+  account: '/account',
   staff: '/admin/staff',
   caseload: '/caseload',
   reviews: '/reviews',

@@ -11,12 +11,15 @@ export type FieldIssue = { path: string; message: string };
 export class ApiError extends Error {
   readonly status: number;
   readonly issues: readonly FieldIssue[];
+  /** The API's machine-readable reason, where it gives one (e.g. a password change is due). */
+  readonly code: string | undefined;
 
-  constructor(status: number, message: string, issues: readonly FieldIssue[] = []) {
+  constructor(status: number, message: string, issues: readonly FieldIssue[] = [], code?: string) {
     super(message);
     this.name = 'ApiError';
     this.status = status;
     this.issues = issues;
+    this.code = code;
   }
 }
 
@@ -80,7 +83,8 @@ const readJson = async (response: Response): Promise<unknown> => {
 
 const toApiError = (status: number, body: unknown): ApiError => {
   const parsed = apiErrorSchema.safeParse(body);
-  if (parsed.success) return new ApiError(status, parsed.data.message, parsed.data.issues ?? []);
+  if (parsed.success)
+    return new ApiError(status, parsed.data.message, parsed.data.issues ?? [], parsed.data.code);
   return new ApiError(status, `The server answered with an error (HTTP ${status}). Try again in a moment.`);
 };
 

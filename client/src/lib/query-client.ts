@@ -1,9 +1,12 @@
+import { PASSWORD_CHANGE_REQUIRED_CODE } from '@keyloom/shared';
 import { MutationCache, QueryCache, QueryClient } from '@tanstack/react-query';
 import { isApiError } from './api-client';
 
 type QueryClientOptions = {
   /** Called when any request finds the session gone (HTTP 401). */
   onUnauthorized?: () => void;
+  /** Called when the API refuses a request because the account must change its password first. */
+  onPasswordChangeRequired?: () => void;
   /** Tests turn retries off so failures show at once. */
   retry?: boolean;
 };
@@ -12,9 +15,16 @@ type QueryClientOptions = {
 const shouldRetry = (failureCount: number, error: unknown): boolean =>
   failureCount < 2 && !(isApiError(error) && error.status >= 400 && error.status < 500);
 
-export const createQueryClient = ({ onUnauthorized, retry = true }: QueryClientOptions = {}): QueryClient => {
+export const createQueryClient = ({
+  onUnauthorized,
+  onPasswordChangeRequired,
+  retry = true,
+}: QueryClientOptions = {}): QueryClient => {
   const handleError = (error: unknown) => {
     if (isApiError(error) && error.status === 401) onUnauthorized?.();
+    if (isApiError(error) && error.status === 403 && error.code === PASSWORD_CHANGE_REQUIRED_CODE) {
+      onPasswordChangeRequired?.();
+    }
   };
   return new QueryClient({
     queryCache: new QueryCache({ onError: handleError }),

@@ -7,6 +7,8 @@ export const auditActionLabels = {
   'auth.sign-in': 'Signed in',
   'auth.sign-out': 'Signed out',
   'auth.sign-in-failed': 'Sign-in refused',
+  'auth.sign-in-locked': 'Sign-in held back after failed attempts',
+  'auth.password-change': 'Changed their own password',
   'user.create': 'Added a staff account',
   'user.update': 'Changed a staff account',
   'client.create': 'Opened a client record',

@@ -33,13 +33,18 @@ export function toApiError(exception: unknown): ApiError {
     const status = exception.getStatus();
     const body = exception.getResponse();
     if (typeof body === 'string') return build(status, body);
-    const { message, issues } = body as { message?: unknown; issues?: ApiError['issues'] };
+    const { message, issues, code } = body as {
+      message?: unknown;
+      issues?: ApiError['issues'];
+      code?: unknown;
+    };
     const text = Array.isArray(message)
       ? message.join(' ')
       : typeof message === 'string'
         ? message
         : exception.message;
-    return build(status, text, issues);
+    const built = build(status, text, issues);
+    return typeof code === 'string' ? { ...built, code } : built;
   }
   if (isDatabaseUnavailable(exception)) return build(HttpStatus.SERVICE_UNAVAILABLE, DATABASE_DOWN_MESSAGE);
   // The schemas refuse such values first; this is the last line of defence for one they missed.
@@ -62,6 +67,14 @@ function build(statusCode: number, message: string, issues?: ApiError['issues'])
   return issues ? { statusCode, message, error, issues } : { statusCode, message, error };
 }
 
+/** Whole seconds to wait, from an HttpException whose body carries `retryAfterSeconds`. */
+function retryAfterSeconds(exception: unknown): number | undefined {
+  if (!(exception instanceof HttpException)) return undefined;
+  const body = exception.getResponse() as { retryAfterSeconds?: unknown };
+  const value = typeof body === 'object' ? body.retryAfterSeconds : undefined;
+  return typeof value === 'number' && Number.isFinite(value) ? Math.ceil(value) : undefined;
+}
+
 /** Global filter: every error leaves the API as JSON `{statusCode, message, error, issues?}`. */
 @Catch()
 export class ApiExceptionFilter implements ExceptionFilter {
@@ -78,6 +91,8 @@ export class ApiExceptionFilter implements ExceptionFilter {
         );
     }
     if (res.headersSent) return;
+    const retryAfter = retryAfterSeconds(exception);
+    if (retryAfter !== undefined) res.setHeader('Retry-After', String(retryAfter));
     res.status(body.statusCode).json(body);
   }
 }

@@ -18,13 +18,20 @@ export const demoStaffStep: SeedStep = {
     const users = manager.getRepository(User);
     const audit = manager.getRepository(AuditEvent);
     const hash = () => bcrypt.hash(env.DEMO_PASSWORD, env.BCRYPT_COST);
+    // Outside demo mode the shared demo password is only a first key: each account must choose its own.
+    const mustChangePassword = !env.DEMO_MODE;
     for (const staff of DEMO_STAFF) {
       const existing = await users
         .createQueryBuilder('user')
         .where('lower(user.email) = lower(:email)', { email: staff.email })
         .getOne();
       if (!existing) {
-        const inserted = await users.insert({ ...staff, passwordHash: await hash(), active: true });
+        const inserted = await users.insert({
+          ...staff,
+          passwordHash: await hash(),
+          active: true,
+          mustChangePassword,
+        });
         const id = String(inserted.identifiers[0]?.id);
         await audit.insert({
           action: 'user.create',
@@ -32,10 +39,12 @@ export const demoStaffStep: SeedStep = {
           subjectId: id,
           details: { ...staff, by: 'seed' },
         });
-        log(`created ${staff.email} (${staff.role})`);
+        log(
+          `created ${staff.email} (${staff.role})${mustChangePassword ? ', password to be changed at sign-in' : ''}`,
+        );
       } else if (resetPasswords) {
-        await users.update({ id: existing.id }, { passwordHash: await hash() });
-        log(`reset the password of ${staff.email}`);
+        await users.update({ id: existing.id }, { passwordHash: await hash(), mustChangePassword });
+        log(`reset the password of ${staff.email}${mustChangePassword ? ' (to be changed at sign-in)' : ''}`);
       } else {
         log(`kept ${staff.email}`);
       }

@@ -17,6 +17,9 @@ export function toUserDto(user: User): UserDto {
 }
 
 /** Entity → what the session and GET /api/auth/me expose. */
-export function toSessionUser(user: Pick<User, 'id' | 'email' | 'name' | 'role'>): SessionUser {
-  return { id: user.id, email: user.email, name: user.name, role: user.role };
+export function toSessionUser(
+  user: Pick<User, 'id' | 'email' | 'name' | 'role'> & Partial<Pick<User, 'mustChangePassword'>>,
+): SessionUser {
+  const base = { id: user.id, email: user.email, name: user.name, role: user.role };
+  return user.mustChangePassword ? { ...base, mustChangePassword: true } : base;
 }

@@ -9,5 +9,6 @@ export const HomeRedirect = () => {
   const me = useMe();
   if (me.isPending) return <PageLoading />;
   if (me.isError) return <SessionCheckFailed error={me.error} onRetry={() => void me.refetch()} />;
+  if (me.data?.mustChangePassword) return <Navigate to={paths.choosePassword} replace />;
   return <Navigate to={me.data ? roleHome[me.data.role] : paths.signIn} replace />;
 };

@@ -1,7 +1,7 @@
 import { Navigate, useSearchParams } from 'react-router-dom';
 import { PageLoading } from '@/components/layout/page-loading';
 import { PageHeader } from '@/components/ui/page-header';
-import { roleHome, safeNextPath } from '@/config/paths';
+import { paths, roleHome, safeNextPath } from '@/config/paths';
 import { useMe } from '@/features/auth/api/get-me';
 import { SignInForm } from '@/features/auth/components/sign-in-form';
 
@@ -10,6 +10,7 @@ export const SignInRoute = () => {
   const [searchParams] = useSearchParams();
 
   // Signed in already, or just now: go where the reader was heading, else to the role's home.
+  if (me.data?.mustChangePassword) return <Navigate to={paths.choosePassword} replace />;
   if (me.data)
     return <Navigate to={safeNextPath(searchParams.get('next')) ?? roleHome[me.data.role]} replace />;
   if (me.isPending) return <PageLoading />;

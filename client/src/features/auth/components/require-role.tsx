@@ -2,7 +2,7 @@ import type { Role } from '@keyloom/shared';
 import type { ReactNode } from 'react';
 import { Navigate, Outlet, useLocation, useNavigation } from 'react-router-dom';
 import { PageLoading } from '@/components/layout/page-loading';
-import { signInPath } from '@/config/paths';
+import { paths, signInPath } from '@/config/paths';
 import { useMe } from '../api/get-me';
 import { NotAllowed } from './not-allowed';
 import { SessionCheckFailed } from './session-check-failed';
@@ -16,7 +16,8 @@ type RequireRoleProps = {
 
 /**
  * Guards a page by role: no session → the sign-in page (coming back here afterwards);
- * a role not listed → the "not allowed" page. The API enforces the same rules.
+ * a password change due → "Choose a new password"; a role not listed → the "not allowed" page.
+ * The API enforces the same rules.
  */
 export const RequireRole = ({ roles, children }: RequireRoleProps) => {
   const me = useMe();
@@ -30,6 +31,8 @@ export const RequireRole = ({ roles, children }: RequireRoleProps) => {
     if (navigation.state !== 'idle') return <PageLoading />;
     return <Navigate to={signInPath(`${location.pathname}${location.search}`)} replace />;
   }
+  // Until a due password change is done, the API answers nothing else: go and choose one.
+  if (me.data.mustChangePassword) return <Navigate to={paths.choosePassword} replace />;
   if (!roles.includes(me.data.role)) return <NotAllowed />;
   return children ?? <Outlet />;
 };

@@ -1,5 +1,7 @@
 import { Menu, MenuButton, MenuItem, MenuItems, MenuSeparator } from '@headlessui/react';
 import { roleLabels, type SessionUser } from '@keyloom/shared';
+import { Link } from 'react-router-dom';
+import { paths } from '@/config/paths';
 import { useLogout } from '../api/logout';
 
 const initialsOf = (name: string): string =>
@@ -10,7 +12,7 @@ const initialsOf = (name: string): string =>
     .map((part) => part[0]?.toUpperCase())
     .join('');
 
-/** The signed-in person's name and role, with "Sign out". */
+/** The signed-in person's name and role, with "Change password" and "Sign out". */
 export const UserMenu = ({ user }: { user: SessionUser }) => {
   const logout = useLogout();
   return (
@@ -40,6 +42,14 @@ export const UserMenu = ({ user }: { user: SessionUser }) => {
           <p className="text-ink-soft">{roleLabels[user.role]}</p>
         </div>
         <MenuSeparator className="my-1 h-0.5 bg-thread" />
+        <MenuItem>
+          <Link
+            to={paths.account}
+            className="flex min-h-11 w-full items-center rounded-lg px-3 text-left font-bold data-focus:bg-ink data-focus:text-paper data-focus:underline"
+          >
+            Change password
+          </Link>
+        </MenuItem>
         <MenuItem>
           <button
             type="button"
