@@ -88,7 +88,7 @@ describe('safeText', () => {
 
   it('is attached to every string field of every request schema (a NUL and a lone surrogate refused)', () => {
     const requestSchema =
-      /^(?!uploadResult)(create|update|paste|upload|withdraw|flagDecision|exclude|signOff|approve|sendBack|reportProblem|summaryPreviewRequest|auditQuery|setPassword)\w*Schema$/;
+      /^(?!uploadResult|withdrawalPreview)(create|update|paste|upload|withdraw|flagDecision|exclude|signOff|approve|sendBack|reportProblem|summaryPreviewRequest|auditQuery|setPassword)\w*Schema$/;
     const schemas = Object.entries(shared).filter(
       ([name, value]) => requestSchema.test(name) && value instanceof z.ZodType,
     ) as [string, z.ZodType][];
