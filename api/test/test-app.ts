@@ -36,12 +36,19 @@ export async function resetDatabase(): Promise<void> {
 
 /**
  * The real AppModule wired by the same configureApp() as main.ts. The sign-in limit is raised by
- * default because every test signs in from 127.0.0.1; the rate-limit test passes a small one.
+ * default because every test signs in from 127.0.0.1; the rate-limit test passes a small one. The
+ * worker-process test shortens the time after which a silent training counts as dead.
  */
-export async function createTestApp({ loginRateLimit = 1_000 } = {}): Promise<TestApp> {
+export async function createTestApp({
+  loginRateLimit = 1_000,
+  trainingStaleSeconds,
+}: { loginRateLimit?: number; trainingStaleSeconds?: number } = {}): Promise<TestApp> {
   class TestConfig extends AppConfig {
     override get loginRateLimit(): number {
       return loginRateLimit;
+    }
+    override get trainingStaleMs(): number {
+      return trainingStaleSeconds === undefined ? super.trainingStaleMs : trainingStaleSeconds * 1000;
     }
   }
   const moduleRef = await Test.createTestingModule({ imports: [AppModule] })

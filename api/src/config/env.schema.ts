@@ -63,6 +63,9 @@ export const envSchema = z
     // Profile training (issue 5): jobs one worker process runs at once, and cross-validation folds.
     WORKER_CONCURRENCY: wholeNumber(1, 8, 1),
     PROFILE_FOLDS: wholeNumber(2, 10, 5),
+    // A training whose worker wrote no heartbeat (every 0.5 s) for this long counts as dead: the
+    // worker re-queues it and "Train again" is allowed. Tests shorten it.
+    TRAINING_STALE_SECONDS: wholeNumber(2, 3_600, 30),
   })
   .transform((env) => ({ ...env, SESSION_SECRET: env.SESSION_SECRET ?? DEV_SESSION_SECRET }));
 

@@ -74,7 +74,15 @@ export const profileVersionStatusLabels: Record<ProfileVersionStatus, string> = 
   sent_back: 'Sent back',
 };
 
-export const profileStages = ['queued', 'preparing', 'training', 'cross-validating', 'simulating', 'saving'] as const;
+export const profileStages = [
+  'queued',
+  'interrupted',
+  'preparing',
+  'training',
+  'cross-validating',
+  'simulating',
+  'saving',
+] as const;
 
 // POST /api/profile-versions/:id/sign-off and /approve take a comment; /send-back a reason.
 const requiredText = (message: string) =>
@@ -106,7 +114,9 @@ export const profileVersionSchema = z.object({
   stage: z.string().nullable(),
   error: z.string().nullable(),
   settings: profileVersionSettingsSchema,
-  samples: z.array(z.object({ id: z.uuid(), title: z.string(), sha256: z.string(), characters: z.number().int() })),
+  samples: z.array(
+    z.object({ id: z.uuid(), title: z.string(), sha256: z.string(), characters: z.number().int() }),
+  ),
   // The engine's ProfileReport (same names as `model evaluate --json`), null until trained.
   metrics: z.record(z.string(), z.unknown()).nullable(),
   modelBytes: z.number().int().nullable(),
