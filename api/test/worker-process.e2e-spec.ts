@@ -5,7 +5,8 @@
 // The training sample is about 60,000 characters so the training lasts a few seconds.
 import { type ChildProcess, spawn } from 'node:child_process';
 import { randomUUID } from 'node:crypto';
-import { existsSync } from 'node:fs';
+import { existsSync, readFileSync, rmSync } from 'node:fs';
+import { createServer } from 'node:net';
 import { join } from 'node:path';
 import type PgBoss from 'pg-boss';
 import { createJobBoss, PROFILE_TRAINING_QUEUE, startJobBoss } from '../src/jobs/job-queue';
@@ -24,6 +25,8 @@ import { type Cast, newCast, newClient, newConsent, send } from './caseload-help
 import { createTestApp, resetDatabase, type TestApp, testDatabaseUrl } from './test-app';
 
 const WORKER_JS = join(__dirname, '..', 'dist', 'worker.js');
+const REPO = join(__dirname, '..', '..');
+const SUPERVISE = join(REPO, 'scripts', 'supervise.mjs');
 // The thread pool as built: its thread body is the compiled training-thread.js beside it.
 const THREADS_JS = join(__dirname, '..', 'dist', 'profile-versions', 'training-threads.js');
 /** Seconds without a heartbeat before a training counts as dead (30 in production). */
@@ -303,6 +306,67 @@ describe('job worker process', () => {
       expect(inThread.stall * 3).toBeLessThan(inProcess.stall);
     } finally {
       await threads.close();
+    }
+  }, 120_000);
+
+  it('the supervisor starts the worker again after it is killed, and stops app and worker on SIGTERM', async () => {
+    const prefix = `supervise-test-${process.pid}-`;
+    const file = (name: string) => join(REPO, '.run', `${prefix}${name}`);
+    const pidOf = (name: string): number | undefined => {
+      const path = file(`${name}.pid`);
+      return existsSync(path) ? Number(readFileSync(path, 'utf8')) : undefined;
+    };
+    const isRunning = (pid: number) => {
+      try {
+        process.kill(pid, 0);
+        return true;
+      } catch {
+        return false;
+      }
+    };
+    const logOf = (name: string) =>
+      existsSync(file(`${name}.log`)) ? readFileSync(file(`${name}.log`), 'utf8') : '';
+    const port = await new Promise<number>((resolve) => {
+      const server = createServer().listen(0, '127.0.0.1', () => {
+        const address = server.address();
+        server.close(() => resolve(typeof address === 'object' && address ? address.port : 0));
+      });
+    });
+    const supervisor = spawn(process.execPath, [SUPERVISE, `--prefix=${prefix}`], {
+      env: {
+        ...process.env,
+        NODE_ENV: 'test',
+        NO_COLOR: '1',
+        HOST: '127.0.0.1',
+        PORT: String(port),
+        PROFILE_FOLDS: '2',
+      },
+      stdio: 'ignore',
+    });
+    const exited = new Promise<number | null>((resolve) => supervisor.on('exit', (code) => resolve(code)));
+    try {
+      const first = await waitFor('the supervised worker to take jobs', 60_000, () =>
+        logOf('worker').split(READY).length === 2 ? pidOf('worker') : undefined,
+      );
+      const app = await waitFor('the supervised app', 60_000, () => pidOf('app'));
+      process.kill(first, 'SIGKILL');
+      const second = await waitFor('a new worker taking jobs', 60_000, () => {
+        const pid = pidOf('worker');
+        return pid !== undefined && pid !== first && logOf('worker').split(READY).length === 3
+          ? pid
+          : undefined;
+      });
+      expect(isRunning(second)).toBe(true);
+      expect(isRunning(first)).toBe(false);
+
+      supervisor.kill('SIGTERM');
+      expect(await exited).toBe(0);
+      expect(isRunning(second)).toBe(false);
+      expect(isRunning(app)).toBe(false);
+    } finally {
+      if (supervisor.exitCode === null && supervisor.signalCode === null) supervisor.kill('SIGKILL');
+      for (const name of ['app.pid', 'app.log', 'worker.pid', 'worker.log'])
+        rmSync(file(name), { force: true });
     }
   }, 120_000);
 });
