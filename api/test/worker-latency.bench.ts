@@ -8,7 +8,6 @@
 // Not part of the e2e suite (its name does not end in .e2e-spec.ts). Run after `npm run build`:
 //   DATABASE_URL=postgres://…/keyloom_…test… NODE_ENV=test BCRYPT_COST=4 PROFILE_FOLDS=2 \
 //   npx jest --config test/jest-e2e.config.js --testRegex 'test/worker-latency\.bench\.ts$' --runInBand
-import type { UploadResult } from '@keyloom/shared';
 import { type ChildProcess, spawn } from 'node:child_process';
 import { randomUUID } from 'node:crypto';
 import { readFileSync } from 'node:fs';
@@ -17,7 +16,8 @@ import type PgBoss from 'pg-boss';
 import { createJobBoss, startJobBoss } from '../src/jobs/job-queue';
 import type { ProfileVersionDto } from '../src/profile-versions/profile-version.mapper';
 import { SUMMARY_MAIL_QUEUE } from '../src/summaries/summary-delivery';
-import { newCast, newClient, newConsent, send } from './caseload-helpers';
+import { benchClient } from './bench-helpers';
+import { send } from './caseload-helpers';
 import { createTestApp, resetDatabase, type TestApp, testDatabaseUrl } from './test-app';
 
 const WORKER_JS = process.env.WORKER_JS ?? resolve(__dirname, '..', 'dist', 'worker.js');
@@ -59,24 +59,9 @@ describe('summary e-mail wait during a large training', () => {
   });
 
   it('prints how long e-mail jobs queued during the training waited', async () => {
-    const cast = await newCast(t.http, t.dataSource);
-    const client = await newClient(t.http, cast.owner, undefined, 'L. Atency');
-    await newConsent(t.http, cast.owner, client.id);
-    // One sample per Brown document, in batches so each request stays small.
-    for (const doc of brownText()) {
-      const res = await send(t.http, cast.owner, 'post', `/api/clients/${client.id}/samples`, {
-        title: `Brown ${doc.id}`,
-        text: doc.text,
-        sourceKind: 'other',
-      }).expect(201);
-      expect((res.body as UploadResult).samples).toHaveLength(1);
-    }
-    // Brown has dates and numbers the personal-data check flags; the bench takes every sample as is.
-    await t.dataSource.query(`UPDATE language_samples SET status = 'ready' WHERE client_id = $1`, [
-      client.id,
-    ]);
+    const { cast, clientId } = await benchClient(t, 'L. Atency', brownText());
     const version = (
-      await send(t.http, cast.owner, 'post', `/api/clients/${client.id}/profile-versions`, {
+      await send(t.http, cast.owner, 'post', `/api/clients/${clientId}/profile-versions`, {
         settings: { order: 5 },
       }).expect(201)
     ).body as ProfileVersionDto;

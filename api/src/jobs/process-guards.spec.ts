@@ -42,10 +42,12 @@ describe('installProcessGuards', () => {
     const errors: string[] = [];
     const exits: number[] = [];
     installProcessGuards({ error: (m) => errors.push(m) }, (code) => exits.push(code));
-    process.emit('unhandledRejection', new Error('Connection terminated unexpectedly'), Promise.resolve());
-    process.emit('uncaughtException', withCode('read ECONNRESET', 'ECONNRESET'), 'uncaughtException');
+    // What Node emits for a rejection nobody handled and an exception nobody caught.
+    const emit = process.emit.bind(process) as (event: string, ...args: unknown[]) => boolean;
+    emit('unhandledRejection', new Error('Connection terminated unexpectedly'), Promise.resolve());
+    emit('uncaughtException', withCode('read ECONNRESET', 'ECONNRESET'), 'uncaughtException');
     expect(exits).toEqual([]);
-    process.emit('uncaughtException', new TypeError('x is not a function'), 'uncaughtException');
+    emit('uncaughtException', new TypeError('x is not a function'), 'uncaughtException');
     expect(exits).toEqual([1]);
     expect(errors).toHaveLength(3);
     expect(errors[0]).toMatch(
