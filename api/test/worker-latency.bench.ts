@@ -112,6 +112,16 @@ describe('summary e-mail wait during a large training', () => {
         done.length
           ? `  median ${done[done.length >> 1]} ms, max ${done[done.length - 1]} ms`
           : '  none answered',
+        ...(worker.exitCode !== null || worker.signalCode !== null
+          ? [
+              '  the end of the worker log:',
+              ...log
+                .trim()
+                .split('\n')
+                .slice(-15)
+                .map((line) => `    ${line}`),
+            ]
+          : []),
       ].join('\n'),
     );
     expect(status).toBe('trained');
