@@ -94,8 +94,15 @@ describe('summary e-mail wait during a large training', () => {
       if (worker.exitCode !== null || worker.signalCode !== null) break;
     }
     const trainingMs = Date.now() - started;
-    // Let the last probes finish (the worker is free now, if it is still alive).
-    await new Promise((r) => setTimeout(r, 3_000));
+    // Let the probes still waiting finish (the worker is free now, if it is still alive): up to 60 s.
+    for (let i = 0; i < 240 && worker.exitCode === null && worker.signalCode === null; i++) {
+      const open: unknown[] = await t.dataSource.query(
+        `SELECT 1 FROM pgboss.job WHERE name = $1 AND id = ANY($2::uuid[]) AND completed_on IS NULL`,
+        [SUMMARY_MAIL_QUEUE, probes],
+      );
+      if (open.length === 0) break;
+      await new Promise((r) => setTimeout(r, 250));
+    }
     const waits: { waited: number | null }[] = await t.dataSource.query(
       `SELECT EXTRACT(EPOCH FROM (completed_on - created_on)) * 1000 AS waited
          FROM pgboss.job WHERE name = $1 AND id = ANY($2::uuid[]) ORDER BY created_on`,
