@@ -5,7 +5,7 @@ import { spawn } from 'node:child_process';
 import { existsSync } from 'node:fs';
 import { join } from 'node:path';
 import { createInterface } from 'node:readline';
-import { buildApi, migrateAndSeed, stopApp, stopWorker } from './lib/app.mjs';
+import { buildApi, migrateAndSeed, stopApp, stopSupervised, stopWorker } from './lib/app.mjs';
 import { apiEnvironment, ensureLocalServices } from './lib/local-services.mjs';
 import { bold, dim, done, step, warn } from './lib/output.mjs';
 import { repoRoot } from './lib/paths.mjs';
@@ -42,6 +42,9 @@ try {
   env = apiEnvironment(settings, databaseUrl);
   await step('build', buildApi);
   await step('migrate and seed', () => migrateAndSeed(env));
+  const supervisor = await stopSupervised();
+  if (supervisor !== null)
+    done(`stopped the supervisor npm start had running (pid ${supervisor}) with its app and worker`);
   const previous = await stopApp('app');
   if (previous !== null) done(`stopped the app npm start had running (pid ${previous}); dev runs its own`);
   const previousWorker = await stopWorker('worker');

@@ -1,7 +1,8 @@
 // npm start: install what is missing, start PostgreSQL and the fake mail server, build, migrate,
-// seed and (re)start the app in the background. Safe to run again at any time.
+// seed and (re)start the app and the job worker in the background under a supervisor that restarts
+// them when they exit (scripts/supervise.mjs). Safe to run again at any time.
 import { apiEnvironment, ensureLocalServices } from './lib/local-services.mjs';
-import { buildAll, buildCorpora, migrateAndSeed, startApp, startWorker } from './lib/app.mjs';
+import { buildAll, buildCorpora, migrateAndSeed, startSupervised } from './lib/app.mjs';
 import { bold, seconds, step } from './lib/output.mjs';
 import { livePid } from './lib/processes.mjs';
 import { appSettings, demoAccounts } from './lib/settings.mjs';
@@ -16,13 +17,12 @@ try {
   await step('build', buildAll);
   await step('base corpus', buildCorpora);
   await step('migrate and seed', () => migrateAndSeed(env));
-  await step('app', async () => {
-    const pid = await startApp({ name: 'app', env, host: settings.host, port: settings.port });
-    return `app started (pid ${pid}), health check answered`;
-  });
-  await step('worker', async () => {
-    const pid = await startWorker({ name: 'worker', env });
-    return `job worker started (pid ${pid}), training profile versions and sending summary e-mails`;
+  await step('app and worker', async () => {
+    const pids = await startSupervised({ env, host: settings.host, port: settings.port });
+    return (
+      `app (pid ${pids.app}) and job worker (pid ${pids.worker}) started under a supervisor ` +
+      `(pid ${pids.supervisor}) that restarts them if they stop; health check answered, worker taking jobs`
+    );
   });
 } catch {
   const previous = livePid('app', ['api/dist/main.js']);
@@ -41,4 +41,4 @@ ${bold(`Keyloom is running at ${settings.appUrl}`)}   (ready in ${seconds(Date.n
   Mail inbox:  http://127.0.0.1:${settings.mailWebPort}   (JSON: /api/email)
   Demo sign-ins, password ${bold(settings.demoPassword)}:
 ${demoAccounts.map(([email, role, name]) => `    ${email.padEnd(width)}  ${role.padEnd(10)} ${name}`).join('\n')}
-  Logs in .run/ (app.log, worker.log, maildev.log, postgres-app.log). Stop everything with: npm stop`);
+  Logs in .run/ (app.log, worker.log, supervisor.log, maildev.log, postgres-app.log). Stop everything with: npm stop`);

@@ -1,6 +1,6 @@
 // npm stop: stop the app, the fake mail server and the app's PostgreSQL cluster that npm start
 // started. Idempotent: when nothing runs it says so and exits 0.
-import { stopApp, stopWorker } from './lib/app.mjs';
+import { stopApp, stopSupervised, stopWorker } from './lib/app.mjs';
 import { appClusterKind, maildevName } from './lib/local-services.mjs';
 import { stopMaildev } from './lib/maildev.mjs';
 import { done, failed } from './lib/output.mjs';
@@ -25,6 +25,12 @@ async function attempt(label, fn) {
   }
 }
 
+// First the supervisor, so nothing starts the app or the worker again; it stops both.
+await attempt('supervisor', async () => {
+  const pid = await stopSupervised();
+  return pid === null ? '' : `supervisor stopped (pid ${pid}) with the app and the job worker`;
+});
+// An app or worker from before the supervisor (or left by a killed one).
 await attempt('worker', async () => {
   const pid = await stopWorker('worker');
   return pid === null ? '' : `job worker stopped (pid ${pid})`;

@@ -11,7 +11,14 @@ import {
   type ProfileTrainingJobData,
   startJobBoss,
 } from './jobs/job-queue';
-import { loadTrainingRuntime, runProfileTraining } from './profile-versions/profile-training';
+import { installProcessGuards } from './jobs/process-guards';
+import {
+  readBaseModelFile,
+  runProfileTraining,
+  type TrainingRuntime,
+} from './profile-versions/profile-training';
+import { requeueDeadTrainings } from './profile-versions/training-recovery';
+import { sharedBytes, TrainingThreads } from './profile-versions/training-threads';
 import {
   createSmtpSender,
   requeueWaitingRecipients,
@@ -21,12 +28,20 @@ import {
 /** How often the worker re-queues summary e-mails whose job was lost (e.g. queued while pg-boss was down). */
 const REQUEUE_EVERY_MS = 5 * 60_000;
 
+/** How often the worker looks for trainings whose worker died, at most (and half the stale time). */
+const RECOVERY_EVERY_MS = 10_000;
+
 // `node api/dist/worker.js`: the job process beside the web process. It trains and evaluates
 // profile versions from the pg-boss queue, WORKER_CONCURRENCY jobs at a time, with PROFILE_FOLDS
-// folds, and sends the progress-summary e-mails (one at a time, over SMTP_*). Several workers (on one machine or many) may share one database; pg-boss hands each job
-// to one of them. SIGTERM/SIGINT: stop taking jobs, let a running one finish (up to 60 s), exit.
+// folds, each in a worker thread (training-threads.ts) so this event loop stays free for
+// heartbeats, PostgreSQL and the progress-summary e-mails (one at a time, over SMTP_*). It also
+// re-queues trainings whose worker died (training-recovery.ts). Several workers (on one machine or
+// many) may share one database; pg-boss hands each job to one of them. Queue and database errors
+// are logged, never fatal (jobs/process-guards.ts). SIGTERM/SIGINT: stop taking jobs, let a
+// running one finish (up to 60 s), exit.
 async function main(): Promise<void> {
   const logger = new Logger('Worker');
+  installProcessGuards(logger);
   const env = validateEnv(process.env);
   const options = dataSourceOptions(env.DATABASE_URL);
   // Logging as the app's (no 'error': a failed save would log the model bytes and the report).
@@ -41,10 +56,16 @@ async function main(): Promise<void> {
   await dataSource.initialize();
   const audit = new AuditService(dataSource.getRepository(AuditEvent));
   const started = Date.now();
-  const runtime = loadTrainingRuntime(env.PROFILE_FOLDS);
-  logger.log(
-    `Base model loaded in ${Date.now() - started} ms (sha256 ${runtime.baseModelSha256?.slice(0, 12)}…)`,
-  );
+  // Read once; every training thread deserializes these same bytes, whose hash each version stores.
+  const baseModel = readBaseModelFile();
+  const threads = new TrainingThreads(sharedBytes(baseModel.bytes));
+  const runtime: TrainingRuntime = {
+    base: null,
+    baseModelSha256: baseModel.sha256,
+    folds: env.PROFILE_FOLDS,
+    trainer: threads.trainer,
+  };
+  logger.log(`Base model read in ${Date.now() - started} ms (sha256 ${baseModel.sha256.slice(0, 12)}…)`);
 
   const boss = createJobBoss(env.DATABASE_URL, { supervise: true });
   boss.on('error', (error) => logger.error(`pg-boss: ${error.message}`));
@@ -75,6 +96,28 @@ async function main(): Promise<void> {
     { from: env.MAIL_FROM, appUrl: env.APP_URL },
     logger,
   );
+  const staleMs = env.TRAINING_STALE_SECONDS * 1000;
+  let recovering = false;
+  const recover = () => {
+    if (recovering) return;
+    recovering = true;
+    requeueDeadTrainings(dataSource, boss, audit, staleMs)
+      .then(({ requeued, failed }) => {
+        for (const id of requeued) logger.log(`Version ${id}: its worker stopped; training queued again`);
+        for (const id of failed) logger.log(`Version ${id}: interrupted too often; marked failed`);
+      })
+      .catch((error: unknown) =>
+        logger.error(
+          `Re-queueing interrupted trainings: ${error instanceof Error ? error.message : String(error)}`,
+        ),
+      )
+      .finally(() => {
+        recovering = false;
+      });
+  };
+  recover();
+  const recovery = setInterval(recover, Math.min(RECOVERY_EVERY_MS, staleMs / 2));
+  recovery.unref();
   const requeue = setInterval(() => {
     requeueWaitingRecipients(boss, dataSource).catch((error: unknown) =>
       logger.error(`Re-queueing summary e-mails: ${error instanceof Error ? error.message : String(error)}`),
@@ -90,8 +133,10 @@ async function main(): Promise<void> {
     if (stopping) return;
     stopping = true;
     logger.log(`${signal}: finishing the running job, then stopping`);
+    clearInterval(recovery);
     boss
       .stop({ graceful: true, wait: true, timeout: 60_000 })
+      .then(() => threads.close())
       .then(() => dataSource.destroy())
       .then(
         () => process.exit(0),

@@ -8,14 +8,14 @@
 // Run after `npm run build -w @keyloom/api`:
 //   DATABASE_URL=postgres://…/keyloom_…test… NODE_ENV=test BCRYPT_COST=4 \
 //   npx jest --config test/jest-e2e.config.js --testRegex 'test/profile-training\.bench\.ts$' --runInBand
-import type { UploadResult } from '@keyloom/shared';
 import { readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
 import { performance } from 'node:perf_hooks';
 import { type ChildProcess, spawn } from 'node:child_process';
 import request from 'supertest';
 import type { ProfileVersionDto } from '../src/profile-versions/profile-version.mapper';
-import { newCast, newClient, newConsent, send } from './caseload-helpers';
+import { benchClient } from './bench-helpers';
+import { send } from './caseload-helpers';
 import { createTestApp, resetDatabase, type TestApp } from './test-app';
 
 const WORKER_JS = process.env.WORKER_JS ?? resolve(__dirname, '..', 'dist', 'worker.js');
@@ -57,22 +57,8 @@ describe('profile training benchmark (200,000 characters)', () => {
   });
 
   it('prints the time from POST train to a trained version, and what the worker adds', async () => {
-    const cast = await newCast(t.http, t.dataSource);
-    const client = await newClient(t.http, cast.owner, undefined, 'B. Enchmark');
-    await newConsent(t.http, cast.owner, client.id);
-    for (const doc of brownFiction()) {
-      const res = await send(t.http, cast.owner, 'post', `/api/clients/${client.id}/samples`, {
-        title: `Brown ${doc.id}`,
-        text: doc.text,
-        sourceKind: 'other',
-      }).expect(201);
-      expect((res.body as UploadResult).samples).toHaveLength(1);
-    }
-    // Brown has dates and numbers the personal-data check flags; the bench takes every sample as is.
-    await t.dataSource.query(`UPDATE language_samples SET status = 'ready' WHERE client_id = $1`, [
-      client.id,
-    ]);
-    const created = await send(t.http, cast.owner, 'post', `/api/clients/${client.id}/profile-versions`, {
+    const { cast, clientId } = await benchClient(t, 'B. Enchmark', brownFiction());
+    const created = await send(t.http, cast.owner, 'post', `/api/clients/${clientId}/profile-versions`, {
       settings: {},
     }).expect(201);
     const version = created.body as ProfileVersionDto;

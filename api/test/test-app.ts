@@ -38,16 +38,19 @@ export async function resetDatabase(): Promise<void> {
 /**
  * The real AppModule wired by the same configureApp() as main.ts. The per-address sign-in limit is
  * raised by default because every test signs in from 127.0.0.1; the limit tests pass small ones.
- * `nodeEnv: 'production'` builds the app as production mode would (Secure cookie, HSTS, docs).
+ * `nodeEnv: 'production'` builds the app as production mode would (Secure cookie, HSTS, docs). The
+ * worker-process test shortens the time after which a silent training counts as dead.
  */
 export async function createTestApp({
   loginRateLimit = 1_000,
   signInLimits = {},
   nodeEnv,
+  trainingStaleSeconds,
 }: {
   loginRateLimit?: number;
   signInLimits?: Partial<SignInLimitSettings>;
   nodeEnv?: 'production';
+  trainingStaleSeconds?: number;
 } = {}): Promise<TestApp> {
   class TestConfig extends AppConfig {
     override get loginRateLimit(): number {
@@ -58,6 +61,9 @@ export async function createTestApp({
     }
     override get nodeEnv(): 'development' | 'test' | 'production' {
       return nodeEnv ?? super.nodeEnv;
+    }
+    override get trainingStaleMs(): number {
+      return trainingStaleSeconds === undefined ? super.trainingStaleMs : trainingStaleSeconds * 1000;
     }
   }
   const moduleRef = await Test.createTestingModule({ imports: [AppModule] })

@@ -76,6 +76,10 @@ export class AppConfig {
       maxFiles: this.get('SAMPLE_MAX_FILES'),
     };
   }
+  /** No heartbeat for this long (TRAINING_STALE_SECONDS): a running training's worker is dead. */
+  get trainingStaleMs(): number {
+    return this.get('TRAINING_STALE_SECONDS') * 1000;
+  }
   get appUrl(): string {
     return this.get('APP_URL');
   }

@@ -76,6 +76,9 @@ export const envSchema = z
     // kept in the database (app_settings). RFC 2104 §3 asks for at least the hash's output length
     // (32 bytes); 32 characters is the floor here.
     EXPORT_SIGNING_KEY: z.string().min(32, { error: 'Use at least 32 random characters.' }).optional(),
+    // A training whose worker wrote no heartbeat (every 0.5 s) for this long counts as dead: the
+    // worker re-queues it and "Train again" is allowed. Tests shorten it.
+    TRAINING_STALE_SECONDS: wholeNumber(2, 3_600, 30),
   })
   .transform((env) => ({
     ...env,

@@ -9,14 +9,18 @@ export type ProfileTrainingJobData = { versionId: string };
 
 /**
  * Retry and expiry of training jobs. A job that throws (e.g. PostgreSQL restarted under it) is
- * retried once after 10 s; a worker killed mid-job leaves the job 'active' until it expires after
- * 5 minutes (a 200,000-character version takes well under one), then pg-boss retries it.
+ * retried once after 10 s. A worker killed mid-job is not left to expiry: the other workers (and
+ * the next one to start) find its version's heartbeat stale and queue it again
+ * (profile-versions/training-recovery.ts). pg-boss 10 fixes a job's expiry when it is sent and
+ * rejects the handler's promise when it passes (the running training would go on while a retry
+ * starts), and heartbeats do not extend it; so the expiry is only a last resort, far above the
+ * longest training (a 6 MB order-5 version, minutes): 12 hours (pg-boss allows less than 24).
  */
 export const PROFILE_TRAINING_QUEUE_OPTIONS: PgBoss.Queue = {
   name: PROFILE_TRAINING_QUEUE,
   retryLimit: 1,
   retryDelay: 10,
-  expireInSeconds: 300,
+  expireInSeconds: 12 * 3600,
   retentionDays: 7,
 };
 
@@ -42,6 +46,8 @@ export function createJobBoss(databaseUrl: string, { supervise }: { supervise: b
 export async function startJobBoss(boss: PgBoss): Promise<void> {
   await boss.start();
   // Idempotent (INSERT … ON CONFLICT DO NOTHING inside pg-boss), so every process may call it.
-  await boss.createQueue(PROFILE_TRAINING_QUEUE, PROFILE_TRAINING_QUEUE_OPTIONS);
+  await boss.createQueue(PROFILE_TRAINING_QUEUE, { ...PROFILE_TRAINING_QUEUE_OPTIONS });
+  // createQueue leaves an existing queue as it was: bring its retry/expiry up to date (new jobs only).
+  await boss.updateQueue(PROFILE_TRAINING_QUEUE, { ...PROFILE_TRAINING_QUEUE_OPTIONS });
   await boss.createQueue(SUMMARY_MAIL_QUEUE, SUMMARY_MAIL_QUEUE_OPTIONS);
 }

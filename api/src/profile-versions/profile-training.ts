@@ -2,8 +2,10 @@ import {
   CancelledError,
   deserializeModel,
   type PpmModel,
+  type ProfileInput,
   type ProfileProgress,
   ProfileInputError,
+  type ProfileResult,
   type ProfileSettings,
   trainAndEvaluateProfile,
 } from '@keyloom/shared';
@@ -18,8 +20,28 @@ import type { FrozenSample, StoredVersionEvent } from './profile-version.entity'
 // api/src/profile-versions and api/dist/profile-versions — found the way LexiconService finds the lexicon.
 export const BASE_MODEL_FILE = resolve(__dirname, '..', '..', '..', 'corpora', '.cache', 'base-model.bin');
 
+/** What one training run gets: the frozen samples and settings (the trainer adds its base model). */
+export type TrainerInput = Omit<ProfileInput, 'base'>;
+
+/**
+ * Runs the engine for one version. `isCancelled` turns true when the version stops waiting for the
+ * job (cancel, delete, re-queue); the trainer then rejects with CancelledError.
+ */
+export type Trainer = (
+  input: TrainerInput,
+  onProgress: (progress: ProfileProgress) => void,
+  isCancelled: () => boolean,
+) => Promise<ProfileResult>;
+
+/** The engine on the calling thread (the HTTP tests and the seed). */
+export function inProcessTrainer(base: PpmModel | null): Trainer {
+  return (input, onProgress, isCancelled) =>
+    trainAndEvaluateProfile({ ...input, base }, onProgress, isCancelled);
+}
+
 /** What the worker holds between jobs: the frozen base model and how to evaluate. */
 export type TrainingRuntime = {
+  /** The base model for the in-process trainer (unused when `trainer` is given). */
   base: PpmModel | null;
   /** SHA-256 (hex) of the base model file, stored with each version. */
   baseModelSha256: string | null;
@@ -29,19 +51,26 @@ export type TrainingRuntime = {
   ksSampleChars?: number | null;
   /** ms between progress writes (default 500). */
   progressIntervalMs?: number;
+  /**
+   * Where the engine runs; default: in-process with `base`. The worker passes the trainer of
+   * training-threads.ts, whose threads hold the base model whose hash is `baseModelSha256`.
+   */
+  trainer?: Trainer;
 };
 
-/** Loads the Brown base model from the corpus cache (about 0.5 s); throws a clear message when missing. */
-export function loadTrainingRuntime(folds: number, file = BASE_MODEL_FILE): TrainingRuntime {
+/** The base model file's bytes and SHA-256 (hex); throws a clear message when it is missing. */
+export function readBaseModelFile(file = BASE_MODEL_FILE): { bytes: Uint8Array; sha256: string } {
   if (!existsSync(file)) {
     throw new Error(`The base model ${file} is missing. Run \`npm run corpora\` to build it.`);
   }
   const bytes = readFileSync(file);
-  return {
-    base: deserializeModel(new Uint8Array(bytes)).freeze(),
-    baseModelSha256: createHash('sha256').update(bytes).digest('hex'),
-    folds,
-  };
+  return { bytes: new Uint8Array(bytes), sha256: createHash('sha256').update(bytes).digest('hex') };
+}
+
+/** Loads the Brown base model from the corpus cache (about 0.5 s) for the in-process trainer. */
+export function loadTrainingRuntime(folds: number, file = BASE_MODEL_FILE): TrainingRuntime {
+  const { bytes, sha256 } = readBaseModelFile(file);
+  return { base: deserializeModel(bytes).freeze(), baseModelSha256: sha256, folds };
 }
 
 /** How a training job ended. 'stale': the version no longer waits for this job (cancelled, deleted, re-queued). */
@@ -66,7 +95,7 @@ export function frozenDocuments(samples: FrozenSample[]): { id: string; text: st
 }
 
 // UPDATE … through TypeORM's raw query answers [rows, rowCount].
-async function updateCount(manager: EntityManager, sql: string, params: unknown[]): Promise<number> {
+export async function updateCount(manager: EntityManager, sql: string, params: unknown[]): Promise<number> {
   const raw: unknown = await manager.query(sql, params);
   if (Array.isArray(raw) && raw.length === 2 && typeof raw[1] === 'number') return raw[1];
   return Array.isArray(raw) ? raw.length : 0;
@@ -74,7 +103,8 @@ async function updateCount(manager: EntityManager, sql: string, params: unknown[
 
 const STILL_MINE = `id = $1 AND job_id = $2 AND status = 'training'`;
 
-function event(status: StoredVersionEvent['status'], comment: string | null): string {
+/** One history entry written by the worker (no person), as the jsonb array to append. */
+export function event(status: StoredVersionEvent['status'], comment: string | null): string {
   const e: StoredVersionEvent = { status, at: new Date().toISOString(), by: null, comment };
   return JSON.stringify([e]);
 }
@@ -138,12 +168,12 @@ export async function runProfileTraining(
   }, runtime.progressIntervalMs ?? 500);
   timer.unref();
 
+  const train = runtime.trainer ?? inProcessTrainer(runtime.base);
   try {
-    const result = await trainAndEvaluateProfile(
+    const result = await train(
       {
         documents: frozenDocuments(row.samples),
         settings: engineSettings(row.settings),
-        base: runtime.base,
         folds: runtime.folds,
         ...(runtime.ksSampleChars === undefined ? {} : { ksSampleChars: runtime.ksSampleChars }),
       },
@@ -168,7 +198,7 @@ export async function runProfileTraining(
           Buffer.from(result.modelBytes),
           result.modelBytes.length,
           result.blendWeight,
-          runtime.base ? runtime.baseModelSha256 : null,
+          runtime.base || runtime.trainer ? runtime.baseModelSha256 : null,
           event('trained', null),
         ],
       );

@@ -1,5 +1,6 @@
 import type { ProfileVersion as ProfileVersionShape } from '@keyloom/shared';
 import type { ProfileVersion } from './profile-version.entity';
+import { INTERRUPTED_STAGE } from './training-recovery';
 
 /**
  * The API shape: profileVersionSchema of shared/src/schemas/profile-versions.schema.ts, plus who
@@ -20,16 +21,28 @@ export type ProfileVersionDto = ProfileVersionShape & {
 
 const REMOVED = '(removed account)';
 
-/** Entity (with createdBy, signedOffBy, approvedBy loaded) → API shape. */
-export function toProfileVersionDto(v: ProfileVersion): ProfileVersionDto {
+/**
+ * A running stage whose heartbeat is older than `staleMs` belongs to a dead worker: it is shown as
+ * "interrupted" at 0 % (a worker queues it again from the start) rather than a frozen percentage.
+ */
+function liveProgress(v: ProfileVersion, staleMs: number): { stage: string | null; progress: number } {
+  const running =
+    v.status === 'training' && v.stage !== null && v.stage !== 'queued' && v.stage !== INTERRUPTED_STAGE;
+  const beat = v.heartbeatAt?.getTime() ?? 0;
+  return running && Date.now() - beat > staleMs
+    ? { stage: INTERRUPTED_STAGE, progress: 0 }
+    : { stage: v.stage, progress: v.progress };
+}
+
+/** Entity (with createdBy, signedOffBy, approvedBy loaded) → API shape; `staleMs`: TRAINING_STALE_SECONDS. */
+export function toProfileVersionDto(v: ProfileVersion, staleMs: number): ProfileVersionDto {
   return {
     id: v.id,
     clientId: v.clientId,
     number: v.number,
     note: v.note,
     status: v.status,
-    progress: v.progress,
-    stage: v.stage,
+    ...liveProgress(v, staleMs),
     error: v.error,
     settings: v.settings,
     samples: v.samples.map(({ id, title, sha256, characters }) => ({ id, title, sha256, characters })),

@@ -37,6 +37,7 @@ import type { Actor } from '../auth/session-user';
 import { WRONG_ROLE_MESSAGE } from '../auth/session-user';
 import { ClientAccessService } from '../clients/client-access.service';
 import type { Client } from '../clients/client.entity';
+import { AppConfig } from '../config/app-config';
 import { clientRowsHook, WithdrawalHooks } from '../consents/withdrawal-hooks';
 import { LIVE_JOB_STATES, PROFILE_TRAINING_QUEUE } from '../jobs/job-queue';
 import { JobQueueService } from '../jobs/job-queue.service';
@@ -65,9 +66,6 @@ export const TRIAL_FIRST_MESSAGE =
   'Try this version on the test keyboard at least once before signing it off.';
 export const ONLY_CARER_REPORTS_MESSAGE =
   'Only a carer assigned to this client reports a problem with a version.';
-
-/** A version whose job shows no sign of life for this long may be queued again (worker killed). */
-export const STALE_HEARTBEAT_MS = 90_000;
 
 /** Statuses whose version holds a trained model (it can be exported). */
 export const WITH_MODEL: readonly ProfileVersionStatus[] = [
@@ -224,6 +222,7 @@ export class ProfileVersionsService implements OnModuleInit {
     private readonly jobs: JobQueueService,
     private readonly withdrawalHooks: WithdrawalHooks,
     private readonly signing: ExportSigningService,
+    private readonly config: AppConfig,
   ) {}
 
   onModuleInit(): void {
@@ -249,7 +248,7 @@ export class ProfileVersionsService implements OnModuleInit {
       relations: { createdBy: true, signedOffBy: true, approvedBy: true },
       order: { number: 'DESC' },
     });
-    return rows.map(toProfileVersionDto);
+    return rows.map((row) => toProfileVersionDto(row, this.config.trainingStaleMs));
   }
 
   /** One version. */
@@ -304,8 +303,8 @@ export class ProfileVersionsService implements OnModuleInit {
 
   /**
    * Queues the training job (owning clinician). Allowed from draft and failed, and from training
-   * when its job is no longer alive (finished, cancelled, unknown, or no heartbeat for 90 s: the
-   * worker was killed), so every stuck version can be retried.
+   * when its job is no longer alive (finished, cancelled, unknown, or running with no heartbeat for
+   * TRAINING_STALE_SECONDS, 30 s: the worker was killed), so every stuck version can be retried.
    */
   async train(actor: Actor, id: string): Promise<ProfileVersionDto> {
     const { clientId } = await this.owned(actor, id);
@@ -393,7 +392,7 @@ export class ProfileVersionsService implements OnModuleInit {
     // Queued jobs wait their turn; a running one must keep its heartbeat.
     if (state !== 'active') return true;
     const beat = version.heartbeatAt?.getTime() ?? 0;
-    return Date.now() - beat < STALE_HEARTBEAT_MS;
+    return Date.now() - beat < this.config.trainingStaleMs;
   }
 
   /** Stops training (owning clinician): the version goes back to draft; the worker drops its work. */
@@ -691,7 +690,7 @@ export class ProfileVersionsService implements OnModuleInit {
       relations: { createdBy: true, signedOffBy: true, approvedBy: true },
     });
     if (!version) throw new NotFoundException(VERSION_NOT_FOUND_MESSAGE);
-    return toProfileVersionDto(version);
+    return toProfileVersionDto(version, this.config.trainingStaleMs);
   }
 }
 

@@ -72,6 +72,7 @@ export const profileVersionStatusLabels: Record<ProfileVersionStatus, string> = 
 
 export const profileStages = [
   'queued',
+  'interrupted',
   'preparing',
   'training',
   'cross-validating',

@@ -35,6 +35,29 @@ const cellText = (cell: HTMLElement) =>
     .join('');
 
 describe('Profile version page', () => {
+  it('says a training whose worker stopped is being retried, then moves on when the retry runs', async () => {
+    const answers = [
+      profileVersion({ status: 'training', progress: 0, stage: 'interrupted', metrics: null }),
+      profileVersion({ status: 'training', progress: 0.4, stage: 'training', metrics: null }),
+    ];
+    let asked = 0;
+    await openVersion('clinician', () => answers[Math.min(asked++, answers.length - 1)]!);
+
+    const bar = screen.getByRole('progressbar');
+    expect(bar).toHaveAccessibleName('Interrupted, retrying…');
+    expect(bar).toHaveAttribute('aria-valuetext', '0%: Interrupted, retrying');
+    expect(
+      screen.getByText(
+        'The job worker stopped during training. Keyloom is training this version again from the start.',
+      ),
+    ).toBeInTheDocument();
+
+    await waitFor(() => expect(screen.getByRole('progressbar')).toHaveAccessibleName('Training the model…'), {
+      timeout: 3000,
+    });
+    expect(screen.queryByText(/The job worker stopped during training/)).not.toBeInTheDocument();
+  }, 12_000);
+
   it('polls a version in training every second and moves the progress bar and the stage', async () => {
     const answers = [
       profileVersion({ status: 'training', progress: 0.2, stage: 'preparing', metrics: null }),

@@ -11,6 +11,7 @@ export const escapeExplanations: Record<(typeof escapeMethods)[number], string> 
 // Each stage of a training job in words (profileStages in the shared schema).
 export const stageWords: Record<string, string> = {
   queued: 'Waiting for a free worker',
+  interrupted: 'Interrupted, retrying',
   preparing: 'Preparing the text',
   training: 'Training the model',
   'cross-validating': 'Testing on text the model has not seen',

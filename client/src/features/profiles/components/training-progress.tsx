@@ -22,6 +22,9 @@ export const TrainingProgress = ({ version }: { version: Pick<ProfileVersion, 'p
       >
         <div className="h-full bg-saffron" style={{ width: `${value}%` }} />
       </div>
+      {version.stage === 'interrupted' && (
+        <p>The job worker stopped during training. Keyloom is training this version again from the start.</p>
+      )}
       <p className="text-ink-soft">
         You can leave this page: training goes on in the background, and the results appear here when it ends.
       </p>
