@@ -1,4 +1,4 @@
-import { accountLockSeconds, signInLimitSettings } from './sign-in-limit-settings';
+import { accountLockSeconds, signInLimitSettings, waitInWords } from './sign-in-limit-settings';
 
 describe('accountLockSeconds', () => {
   const settings = signInLimitSettings(100, 5);
@@ -28,5 +28,16 @@ describe('accountLockSeconds', () => {
     expect(strict.addressFailures).toBe(20);
     expect(accountLockSeconds(2, strict)).toBe(0);
     expect(accountLockSeconds(3, strict)).toBe(1);
+  });
+});
+
+describe('waitInWords', () => {
+  it('says seconds under a minute and whole minutes, rounded up, from a minute on', () => {
+    expect(waitInWords(0.2)).toBe('about 1 second');
+    expect(waitInWords(1)).toBe('about 1 second');
+    expect(waitInWords(59)).toBe('about 59 seconds');
+    expect(waitInWords(60)).toBe('about 1 minute');
+    expect(waitInWords(61)).toBe('about 2 minutes');
+    expect(waitInWords(15 * 60)).toBe('about 15 minutes');
   });
 });

@@ -48,3 +48,13 @@ export function accountLockSeconds(failures: number, settings: SignInLimitSettin
   const doublings = failures - settings.accountFreeFailures;
   return Math.min(settings.baseLockSeconds * 2 ** Math.min(doublings, 30), settings.maxLockSeconds);
 }
+
+/** How long to wait, in the words the sign-in page shows: "about 40 seconds", "about 15 minutes". */
+export function waitInWords(seconds: number): string {
+  if (seconds < 60) {
+    const whole = Math.max(1, Math.ceil(seconds));
+    return `about ${whole} second${whole === 1 ? '' : 's'}`;
+  }
+  const minutes = Math.ceil(seconds / 60);
+  return `about ${minutes} minute${minutes === 1 ? '' : 's'}`;
+}

@@ -3,9 +3,11 @@ import { InjectDataSource } from '@nestjs/typeorm';
 import { DataSource } from 'typeorm';
 import { AuditService } from '../../audit/audit.service';
 import { AppConfig } from '../../config/app-config';
-import { accountLockSeconds } from './sign-in-limit-settings';
+import { accountLockSeconds, waitInWords } from './sign-in-limit-settings';
 
-export const SIGN_IN_LOCKED_MESSAGE = 'Too many failed sign-in attempts. Wait a little and try again.';
+/** The message of a held-back sign-in, with the wait in words (the seconds are in Retry-After too). */
+export const signInLockedMessage = (seconds: number): string =>
+  `Too many failed sign-in attempts. Try again in ${waitInWords(seconds)}.`;
 export const SIGN_IN_LOCKED_FOR_GOOD_MESSAGE =
   'Too many failed sign-in attempts for this account. Ask an administrator to set a new password.';
 
@@ -19,7 +21,7 @@ const FORGET_AFTER = '1 day';
 export class SignInLockedException extends HttpException {
   constructor(
     readonly retryAfterSeconds: number,
-    message = SIGN_IN_LOCKED_MESSAGE,
+    message = signInLockedMessage(retryAfterSeconds),
   ) {
     super({ message, retryAfterSeconds }, HttpStatus.TOO_MANY_REQUESTS);
   }
