@@ -1,5 +1,5 @@
 // Flat config after the Vite react-ts starter, plus Prettier, a ban on `any` and the
-// import boundaries of STYLE rule 7: app → features → shared (components, lib, config).
+// import boundaries: app → features → shared (components, lib, config).
 import js from '@eslint/js';
 import prettier from 'eslint-config-prettier';
 import reactHooks from 'eslint-plugin-react-hooks';

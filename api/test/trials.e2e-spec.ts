@@ -210,7 +210,7 @@ describe('test keyboard (HTTP)', () => {
 
     it('stores what the API measured from the log, never the browser’s figures', async () => {
       // MacKenzie (2002), "A note on calculating text entry speed": 43 characters in 20 s →
-      // (43 − 1) / 20 × 60 / 5 = 25.2 wpm (REFERENCES.md #44). One key per character: KSPC 1 (MacKenzie 2002).
+      // (43 − 1) / 20 × 60 / 5 = 25.2 wpm (docs/references.md). One key per character: KSPC 1 (MacKenzie 2002).
       const phrase = 'the quick brown fox jumps over the lazy dog';
       const events = typedEvents(phrase, 20_000);
       const body = {

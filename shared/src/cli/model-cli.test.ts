@@ -23,7 +23,7 @@ function model(...args: string[]): { status: number | null; stdout: string; stde
 }
 
 beforeAll(() => {
-  // Invented demo text (BRIEF.md scenario), not from any corpus.
+  // Invented demo text (the Willowmere demo scenario), not from any corpus.
   const lines = [
     'Pepper and I went down to the harbour this morning.',
     'The wind was good so we took the boat out past the point.',

@@ -1,8 +1,8 @@
 // The range coder and whole-text coding: coded length against the ideal
-// -log2 P (Witten, Neal & Cleary 1987; REFERENCES.md §3 test idea and check
+// -log2 P (Witten, Neal & Cleary 1987; docs/references.md test idea and check
 // value #11: actual <= ceil(ideal) + 2 + slack and >= ideal - 1), and exact
-// round trips (the test set follows the reference coder's tests described in
-// STYLE.md §6: empty, one symbol, every symbol, runs, random inputs).
+// round trips (the test set follows the reference coder's tests commonly used for
+// coders: empty, one symbol, every symbol, runs, random inputs).
 import { readFileSync, readdirSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';

@@ -1,6 +1,6 @@
 import { z } from 'zod';
 
-// The four staff roles. Family contacts have no account (BRIEF.md, roles).
+// The four staff roles. Family contacts have no account (README, roles).
 export const roles = ['admin', 'clinician', 'supervisor', 'carer'] as const;
 export const roleSchema = z.enum(roles);
 export type Role = z.infer<typeof roleSchema>;

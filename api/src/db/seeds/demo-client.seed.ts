@@ -7,7 +7,7 @@ import { FamilyContact } from '../../contacts/family-contact.entity';
 import { User } from '../../users/user.entity';
 import type { SeedStep } from './seed-step';
 
-// The demo client of BRIEF.md's scenario (invented): found again by pseudonym and clinician.
+// The demo client of the Willowmere demo scenario (invented): found again by pseudonym and clinician.
 export const DEMO_CLIENT_PSEUDONYM = 'R. Ashby';
 const CLINICIAN_EMAIL = 'clinician@willowmere.example';
 const CARER_EMAIL = 'carer@willowmere.example';

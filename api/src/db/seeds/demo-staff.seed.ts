@@ -4,7 +4,7 @@ import { AuditEvent } from '../../audit/audit-event.entity';
 import { User } from '../../users/user.entity';
 import type { SeedStep } from './seed-step';
 
-// The demo clinic's staff (foundation contract; invented for the demo scenario in BRIEF.md).
+// The demo clinic's staff (foundation contract; invented for the Willowmere demo scenario).
 export const DEMO_STAFF: ReadonlyArray<{ email: string; name: string; role: Role }> = [
   { email: 'admin@willowmere.example', name: 'Imogen Hale', role: 'admin' },
   { email: 'clinician@willowmere.example', name: 'Dr. Tomasz Reyes', role: 'clinician' },

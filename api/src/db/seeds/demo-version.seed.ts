@@ -8,7 +8,7 @@ import { PracticePhraseRow } from '../../trials/practice-phrase.entity';
 import { demoClinicianActor, findDemoClient } from './demo-client.seed';
 import type { SeedStep } from './seed-step';
 
-// Invented for the demo scenario (his dog Pepper and the sailing club of BRIEF.md's client).
+// Invented for the demo scenario (his dog Pepper and his sailing club).
 export const DEMO_PRACTICE_PHRASE = 'can pepper come sailing with us on sunday?';
 
 /**

@@ -71,7 +71,7 @@ describe('simulateKeystrokes', () => {
   });
 
   it('agrees with a naive per-W simulator built on suggest()', () => {
-    // Oracle test (STYLE rule 13): one pass for all W must equal W separate walks.
+    // Oracle test: one pass for all W must equal W separate walks.
     for (const adaptive of [false, true]) {
       const train = toCodePoints(randomText(11, 3000));
       const text = toCodePoints(randomText(12, 400));

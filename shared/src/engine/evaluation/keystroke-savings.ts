@@ -1,5 +1,5 @@
 // Keystroke savings (KS) and keystrokes per character (KSPC) of a word
-// suggestion list, simulated with the "ideal user" of BRIEF.md and
+// suggestion list, simulated with the "ideal user" convention (docs/references.md) and
 // REFERENCES §5. Conventions, fixed here for every figure Keyloom reports:
 //
 // 1. Keystrokes without suggestions: one key per character (code point),

@@ -22,7 +22,7 @@ import {
   type ProfileSettings,
 } from './index';
 
-// Invented for the demo scenario of BRIEF.md (R. Ashby: sails, plays jazz
+// Invented for the Willowmere demo scenario (R. Ashby: sails, plays jazz
 // piano, has a dog called Pepper; his sister is his carer). Not from any corpus.
 const entries = [
   'Pepper woke me at six again. She knows when the tide is right. My sister came over with coffee and we ' +

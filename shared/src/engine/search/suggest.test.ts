@@ -79,7 +79,7 @@ describe('word characters', () => {
 });
 
 describe('suggest', () => {
-  // Oracle test (STYLE rule 13): best-first search must equal exhaustive
+  // Oracle test: best-first search must equal exhaustive
   // enumeration when its budget is not binding.
   const limits = { nodeBudget: 1_000_000, maxCompletionLength: 6 };
   for (const seed of [1, 2, 3]) {

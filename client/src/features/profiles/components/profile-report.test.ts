@@ -3,7 +3,7 @@ import { describe, expect, it } from 'vitest';
 import { reportFixture } from '../testing/profile-data';
 import { atSlots, learningCurveVerdict, percent, readReport } from './profile-report';
 
-// Invented writing in the demo client's voice (BRIEF.md demo scenario).
+// Invented writing in the demo client's voice (the Willowmere demo scenario).
 const entries = [
   'Pepper and I went down to the harbour this morning. The wind was up and the boats were rocking. ',
   'Tell the sailing club I can crew on Saturday if Hannah drives me down to the harbour early. ',
