@@ -1,7 +1,8 @@
 // `npm run corpora`: builds the base-model cache in corpora/.cache/ (Brown
-// running text, SUBTLEX lexicon, serialised base PPM model). Idempotent:
+// running text, SUBTLEX lexicon, serialised base PPM model, base vocabulary). Idempotent:
 // each part is skipped when its cache is up to date.
 import { baseModelCacheIsFresh, loadBaseModel } from './base-model';
+import { baseWordsCacheIsFresh, loadBaseWords } from './base-words';
 import { brownCacheIsFresh, loadBrown } from './brown';
 import { lexiconCacheIsFresh, loadLexicon } from './lexicon';
 
@@ -26,4 +27,8 @@ step('SUBTLEX lexicon', lexiconCacheIsFresh, () => `${loadLexicon().size} words`
 step('base model', baseModelCacheIsFresh, () => {
   const model = loadBaseModel();
   return `order ${model.order}, ${model.contextCount} contexts`;
+});
+step('base vocabulary', baseWordsCacheIsFresh, () => {
+  const words = loadBaseWords();
+  return `${words.ngram.vocabularySize} corpus words, ${words.lexicon?.size ?? 0} list words`;
 });

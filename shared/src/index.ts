@@ -12,6 +12,7 @@ export * from './schemas/audit.schema';
 export * from './engine/index';
 export * from './engine/search/index';
 export * from './engine/evaluation/index';
+export * from './engine/words/index';
 export * from './engine/profile/index';
 export * from './samples/index';
 export * from './schemas/profile-versions.schema';

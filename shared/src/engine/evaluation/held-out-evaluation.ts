@@ -39,17 +39,32 @@ export function tuneBlendWeightOnTail(
 ): number {
   const total = texts.reduce((n, t) => n + t.length, 0);
   if (total === 0) return 1;
-  const cut = Math.floor(total * (1 - TUNING_SHARE));
+  const { head, tail } = splitTail(texts);
   const tuningModel = new PpmModel({ ...settings, adaptive: false });
+  for (const t of head) tuningModel.learnText(t);
   const held: number[] = [];
+  for (const t of tail) for (let i = 0; i < t.length; i++) held.push(t[i]);
+  return tuneBlendWeight(tuningModel, base, Uint32Array.from(held));
+}
+
+/**
+ * The training texts cut where the last TUNING_SHARE (10%) of their characters begins: `head`
+ * (what a tuning model learns) and `tail` (what its weights are tuned on), each a list of the
+ * texts' parts in order (a text cut in two gives its first part to head, its second to tail).
+ */
+export function splitTail(texts: readonly Uint32Array[]): { head: Uint32Array[]; tail: Uint32Array[] } {
+  const total = texts.reduce((n, t) => n + t.length, 0);
+  const cut = Math.floor(total * (1 - TUNING_SHARE));
+  const head: Uint32Array[] = [];
+  const tail: Uint32Array[] = [];
   let seen = 0;
   for (const t of texts) {
-    const inTrain = Math.max(0, Math.min(t.length, cut - seen));
-    if (inTrain > 0) tuningModel.learnText(t.subarray(0, inTrain));
-    for (let i = inTrain; i < t.length; i++) held.push(t[i]);
+    const inHead = Math.max(0, Math.min(t.length, cut - seen));
+    if (inHead > 0) head.push(t.subarray(0, inHead));
+    if (inHead < t.length) tail.push(t.subarray(inHead));
     seen += t.length;
   }
-  return tuneBlendWeight(tuningModel, base, Uint32Array.from(held));
+  return { head, tail };
 }
 
 /**

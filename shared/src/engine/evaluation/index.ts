@@ -29,6 +29,7 @@ export {
   freshModel,
   trainPersonalModel,
   tuneBlendWeightOnTail,
+  splitTail,
   TUNING_SHARE,
 } from './held-out-evaluation';
 export type { HeldOutOptions, HeldOutResult } from './held-out-evaluation';

@@ -28,9 +28,10 @@
 // its length, s = 1 if a space follows, and m_W the first prefix length at
 // which its rank is ≤ W.
 import type { NextSymbolModel } from '../model-types';
-import { completionRank, type SuggestOptions } from '../search/suggest';
+import type { SuggestOptions } from '../search/suggest';
 import { CharClass, charClass as classOfImported } from '../search/word-chars';
-import { DistributionMemo } from './distribution-memo';
+import { CharListPredictor } from '../words/char-list-predictor';
+import type { ListPredictor } from '../words/word-predictor';
 
 // Local copies avoid CommonJS getter calls in the per-character loop.
 const charClass = classOfImported;
@@ -83,17 +84,16 @@ export function wordEnd(text: ArrayLike<number>, i: number): number {
 
 /**
  * Simulates the ideal user typing `text` (code points) with lists of 1..maxSlots words.
- * @param model the predictor; it learns the text only when `adaptive` is true
+ * @param predictor the list (a word predictor), or a character model whose own search makes the
+ *   list (the character-only list); it learns the text only when `adaptive` is true
  */
 export function simulateKeystrokes(
-  predictor: NextSymbolModel,
+  predictor: ListPredictor | NextSymbolModel,
   text: ArrayLike<number>,
   options: KeystrokeOptions = {},
 ): KeystrokeResult {
-  // A static model gives the same list for the same context every time, so a
-  // memo of its distributions saves work across words. An adaptive model
-  // changes after every character; there the memo costs more than it saves.
-  const model: NextSymbolModel = options.adaptive ? predictor : new DistributionMemo(predictor);
+  const model: ListPredictor =
+    'completionRank' in predictor ? predictor : new CharListPredictor(predictor, options.adaptive ?? false, options);
   const maxSlots = options.maxSlots ?? 10;
   if (!Number.isInteger(maxSlots) || maxSlots < 1 || maxSlots > 100)
     throw new RangeError(`maxSlots must be 1..100, got ${maxSlots}`);
@@ -126,7 +126,7 @@ export function simulateKeystrokes(
     for (let m = 0; m <= len; m++) {
       if (bestRank > 1) {
         const target = sub(text, i + m, j);
-        const r = completionRank(model, text, i + m, target, maxSlots, options);
+        const r = model.completionRank(text, i + m, target, maxSlots);
         if (r > 0 && r < bestRank) {
           // Every W in [r, bestRank) first sees the word at this prefix.
           for (let w = r; w < bestRank; w++) firstAt[w] = m;
