@@ -33,3 +33,5 @@ export {
   TUNING_SHARE,
 } from './held-out-evaluation';
 export type { HeldOutOptions, HeldOutResult } from './held-out-evaluation';
+export { offeredNonWords } from './offered-words';
+export type { OfferedWordsResult } from './offered-words';

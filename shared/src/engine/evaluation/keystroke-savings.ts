@@ -93,7 +93,9 @@ export function simulateKeystrokes(
   options: KeystrokeOptions = {},
 ): KeystrokeResult {
   const model: ListPredictor =
-    'completionRank' in predictor ? predictor : new CharListPredictor(predictor, options.adaptive ?? false, options);
+    'completionRank' in predictor
+      ? predictor
+      : new CharListPredictor(predictor, options.adaptive ?? false, options);
   const maxSlots = options.maxSlots ?? 10;
   if (!Number.isInteger(maxSlots) || maxSlots < 1 || maxSlots > 100)
     throw new RangeError(`maxSlots must be 1..100, got ${maxSlots}`);

@@ -15,18 +15,30 @@
 //   14+H+M  32    signature: HMAC-SHA-256 (RFC 2104, FIPS 198-1) of bytes 0 .. 14+H+M−1 under the
 //                 clinic's export key (computed by the API; this module only carries the bytes)
 //   46+H+M  4     CRC-32 of every byte before it (the signature included), u32 LE
-// The CRC tells damage; only the signature tells who made the file. An unsigned file is written as
-// version 1, byte for byte as before.
+// The CRC tells damage; only the signature tells who made the file.
+//
+// Layout versions 3 (unsigned) and 4 (signed) add the client's word model (the vocabulary and the
+// word counts of the word-aware list) after the PPM model:
+//   14+H+M  4     word model length W, u32 LE
+//   18+H+M  W     word model: WordNgramModel bytes (words/word-ngram-model.ts)
+// then, in version 4, the 32-byte signature of everything before it, then the CRC-32. A profile
+// trained with words is written as 3 or 4; one without (made before the word-aware list) as 1 or 2,
+// byte for byte as before. Versions 1 and 2 are still read: their `words` is null.
 import { crc32 } from '../crc32';
 import { deserializeModel } from '../model-serialization';
 import { codePointsOf, stringFromCodePoints } from '../text-preparation';
 import { decodeUtf8, encodeUtf8 } from '../utf8-codec';
+import { WordNgramModel } from '../words/word-ngram-model';
 
 export const PROFILE_FILE_MAGIC = 'KLPF';
 /** The unsigned layout (written when there is no signer). */
 export const PROFILE_FILE_VERSION = 1;
 /** The signed layout: a 32-byte signature between the model and the CRC. */
 export const PROFILE_FILE_SIGNED_VERSION = 2;
+/** The unsigned layout carrying the client's word model. */
+export const PROFILE_FILE_WORDS_VERSION = 3;
+/** The signed layout carrying the client's word model. */
+export const PROFILE_FILE_SIGNED_WORDS_VERSION = 4;
 /** Bytes of the signature in a signed file (HMAC-SHA-256). */
 export const PROFILE_SIGNATURE_BYTES = 32;
 export const PROFILE_FILE_FORMAT = 'keyloom-profile';
@@ -43,6 +55,8 @@ export type ProfileFileHeader = {
   settings: Record<string, unknown>;
   /** λ: weight of the base model when blending (0..1). */
   blendWeight: number;
+  /** Weights of the word-aware list's mixture (layouts 3 and 4; absent in older files). */
+  wordWeights?: { personal: number; base: number; lexicon: number; cache: number };
   /** SHA-256 (hex) of the base model file the profile was trained beside, or null. */
   baseModelSha256: string | null;
   engineVersion: string;
@@ -74,7 +88,11 @@ export type ProfileFileContents = {
   modelOrder: number;
   modelContexts: number;
   checksum: string;
-  /** The signature bytes of a signed (version 2) file; null for an unsigned one. */
+  /** The client's word model bytes (layouts 3 and 4), null in older files. */
+  words: Uint8Array | null;
+  /** Words in the client's vocabulary (0 without a word model). */
+  vocabularyWords: number;
+  /** The signature bytes of a signed (version 2 or 4) file; null for an unsigned one. */
   signature: Uint8Array | null;
   /** The bytes the signature covers: everything before it. */
   signedBytes: Uint8Array;
@@ -88,26 +106,41 @@ function utf8Bytes(text: string): Uint8Array {
 }
 
 /**
- * Writes a profile file from its header and the serialised personal model: layout version 1, or
- * version 2 signed by `sign` when given (it must return PROFILE_SIGNATURE_BYTES bytes).
+ * Writes a profile file from its header, the serialised personal model and, when the profile has
+ * one, the client's word model: layout version 1 or 3 (with words), or 2 or 4 signed by `sign`
+ * when given (it must return PROFILE_SIGNATURE_BYTES bytes).
  */
 export function writeProfileFile(
   header: ProfileFileHeader,
   model: Uint8Array,
   sign?: ProfileFileSigner,
+  words?: Uint8Array | null,
 ): Uint8Array {
   const headerBytes = utf8Bytes(JSON.stringify(header));
   const signatureBytes = sign ? PROFILE_SIGNATURE_BYTES : 0;
-  const out = new Uint8Array(FIXED_BYTES + headerBytes.length + model.length + signatureBytes);
+  const wordBytes = words ? 4 + words.length : 0;
+  const out = new Uint8Array(FIXED_BYTES + headerBytes.length + model.length + wordBytes + signatureBytes);
   const view = new DataView(out.buffer);
   for (let i = 0; i < 4; i++) out[i] = PROFILE_FILE_MAGIC.charCodeAt(i);
-  view.setUint16(4, sign ? PROFILE_FILE_SIGNED_VERSION : PROFILE_FILE_VERSION, true);
+  const layout = words
+    ? sign
+      ? PROFILE_FILE_SIGNED_WORDS_VERSION
+      : PROFILE_FILE_WORDS_VERSION
+    : sign
+      ? PROFILE_FILE_SIGNED_VERSION
+      : PROFILE_FILE_VERSION;
+  view.setUint16(4, layout, true);
   view.setUint32(6, headerBytes.length, true);
   out.set(headerBytes, 10);
   const modelAt = 10 + headerBytes.length;
   view.setUint32(modelAt, model.length, true);
   out.set(model, modelAt + 4);
-  const signatureAt = modelAt + 4 + model.length;
+  let signatureAt = modelAt + 4 + model.length;
+  if (words) {
+    view.setUint32(signatureAt, words.length, true);
+    out.set(words, signatureAt + 4);
+    signatureAt += 4 + words.length;
+  }
   if (sign) {
     const signature = sign(out.subarray(0, signatureAt));
     if (signature.length !== PROFILE_SIGNATURE_BYTES) {
@@ -131,6 +164,7 @@ const hex8 = (n: number) => n.toString(16).padStart(8, '0');
 export function readProfileFile(bytes: Uint8Array): {
   header: ProfileFileHeader;
   model: Uint8Array;
+  words: Uint8Array | null;
   checksum: string;
   signature: Uint8Array | null;
   signedBytes: Uint8Array;
@@ -146,13 +180,15 @@ export function readProfileFile(bytes: Uint8Array): {
   }
   const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);
   const layout = view.getUint16(4, true);
-  if (layout !== PROFILE_FILE_VERSION && layout !== PROFILE_FILE_SIGNED_VERSION) {
+  if (layout < PROFILE_FILE_VERSION || layout > PROFILE_FILE_SIGNED_WORDS_VERSION) {
     throw new ProfileFileError(
       `The file uses layout version ${layout}; this Keyloom reads versions ${PROFILE_FILE_VERSION} ` +
-        `and ${PROFILE_FILE_SIGNED_VERSION}.`,
+        `to ${PROFILE_FILE_SIGNED_WORDS_VERSION}.`,
     );
   }
-  const signatureBytes = layout === PROFILE_FILE_SIGNED_VERSION ? PROFILE_SIGNATURE_BYTES : 0;
+  const signed = layout === PROFILE_FILE_SIGNED_VERSION || layout === PROFILE_FILE_SIGNED_WORDS_VERSION;
+  const hasWords = layout >= PROFILE_FILE_WORDS_VERSION;
+  const signatureBytes = signed ? PROFILE_SIGNATURE_BYTES : 0;
   const headerLength = view.getUint32(6, true);
   const expectedAtLeast = FIXED_BYTES + headerLength;
   if (headerLength > MAX_HEADER_BYTES || bytes.length < expectedAtLeast) {
@@ -163,7 +199,12 @@ export function readProfileFile(bytes: Uint8Array): {
   }
   const modelAt = 10 + headerLength;
   const modelLength = view.getUint32(modelAt, true);
-  const total = FIXED_BYTES + headerLength + modelLength + signatureBytes;
+  const wordsAt = modelAt + 4 + modelLength;
+  if (hasWords && bytes.length < wordsAt + 4) {
+    throw new ProfileFileError(`The file is cut short: it ends before its word model.`);
+  }
+  const wordsLength = hasWords ? view.getUint32(wordsAt, true) : 0;
+  const total = FIXED_BYTES + headerLength + modelLength + (hasWords ? 4 + wordsLength : 0) + signatureBytes;
   if (bytes.length < total) {
     throw new ProfileFileError(
       `The file is cut short: it should be ${total} bytes long but has ${bytes.length}.`,
@@ -201,7 +242,8 @@ export function readProfileFile(bytes: Uint8Array): {
   const signatureAt = crcAt - signatureBytes;
   return {
     header: header as ProfileFileHeader,
-    model: bytes.slice(modelAt + 4, signatureAt),
+    model: bytes.slice(modelAt + 4, wordsAt),
+    words: hasWords ? bytes.slice(wordsAt + 4, wordsAt + 4 + wordsLength) : null,
     checksum: hex8(stored),
     signature: signatureBytes > 0 ? bytes.slice(signatureAt, crcAt) : null,
     signedBytes: bytes.subarray(0, signatureAt),
@@ -210,7 +252,7 @@ export function readProfileFile(bytes: Uint8Array): {
 
 /** readProfileFile, then loads the model to be sure it deserialises (ProfileFileError when it does not). */
 export function verifyProfileFile(bytes: Uint8Array): ProfileFileContents {
-  const { header, model, checksum, signature, signedBytes } = readProfileFile(bytes);
+  const { header, model, words, checksum, signature, signedBytes } = readProfileFile(bytes);
   let loaded;
   try {
     loaded = deserializeModel(model);
@@ -218,12 +260,23 @@ export function verifyProfileFile(bytes: Uint8Array): ProfileFileContents {
     const why = error instanceof Error ? error.message : String(error);
     throw new ProfileFileError(`The checksum matches but the model inside cannot be read: ${why}`);
   }
+  let vocabularyWords = 0;
+  if (words) {
+    try {
+      vocabularyWords = WordNgramModel.fromBytes(words).vocabularySize;
+    } catch (error) {
+      const why = error instanceof Error ? error.message : String(error);
+      throw new ProfileFileError(`The checksum matches but the word model inside cannot be read: ${why}`);
+    }
+  }
   return {
     header,
     model,
     modelBytes: model.length,
     modelOrder: loaded.settings.order,
     modelContexts: loaded.contextCount,
+    words,
+    vocabularyWords,
     checksum,
     signature,
     signedBytes,
