@@ -93,7 +93,7 @@ export type BuiltModel = {
   base?: PpmModel;
   /** λ actually used (0 without a base model). */
   baseWeight: number;
-  /** The client's word model (null without training text or with the character-only list). */
+  /** The client's word model (null for the character-only list, and without training text unless adaptive). */
   words: WordNgramModel | null;
   baseWords: BaseWords | null;
   /** The word mixture's weights (null for the character-only list). */
@@ -137,7 +137,8 @@ export function buildModel(
     weight = choice.baseWeight === 'auto' ? tuneBlendWeightOnTail(settings, texts, base) : choice.baseWeight;
   const baseWords = baseModels?.words ?? null;
   const hasText = texts.some((t) => t.length > 0);
-  const allWords = hasText ? trainWordModel(texts) : null;
+  // A list that learns gets a word model even without training text (it starts empty).
+  const allWords = hasText || adaptive ? trainWordModel(texts) : null;
   const fresh = (adaptive: boolean): NextSymbolModel => freshModel(personal, base, weight, adaptive);
   const vocabulary = new WordPredictor({
     personal: allWords,
