@@ -233,6 +233,13 @@ describe('model suggest --predictor', () => {
       expect(r.stderr.trim().split('\n')).toHaveLength(1);
       expect(r.stderr).toMatch(message);
     }
+    // An empty training file and no base: nothing to offer words from.
+    const empty = join(dir, 'empty.txt');
+    writeFileSync(empty, '');
+    const none = model('suggest', '--train', empty, '--context', 'the');
+    expect(none.status).toBe(2);
+    expect(none.stderr.trim().split('\n')).toHaveLength(1);
+    expect(none.stderr).toMatch(/training text or a base/);
     const e = model('evaluate', '--train', train, '--test', test, '--predictor', 'both');
     expect(e.status).toBe(2);
     expect(e.stderr.trim().split('\n')).toHaveLength(1);

@@ -140,15 +140,18 @@ export function buildModel(
   // A list that learns gets a word model even without training text (it starts empty).
   const allWords = hasText || adaptive ? trainWordModel(texts) : null;
   const fresh = (adaptive: boolean): NextSymbolModel => freshModel(personal, base, weight, adaptive);
-  const vocabulary = new WordPredictor({
-    personal: allWords,
-    base: baseWords,
-    char: null,
-    weights: { personal: 1, base: 1, lexicon: 1, cache: 0 },
-    capitalize: true,
-    adaptive: false,
-  });
-  const isWord = (word: string): boolean => vocabulary.inVocabulary(word);
+  const vocabulary =
+    allWords || baseWords
+      ? new WordPredictor({
+          personal: allWords,
+          base: baseWords,
+          char: null,
+          weights: { personal: 1, base: 1, lexicon: 1, cache: 0 },
+          capitalize: true,
+          adaptive: false,
+        })
+      : null;
+  const isWord = (word: string): boolean => vocabulary?.inVocabulary(word) ?? false;
   if (choice.predictor === 'char') {
     return {
       personal,
@@ -162,7 +165,8 @@ export function buildModel(
       isWord,
     };
   }
-  if (!allWords && !baseWords) throw new UsageError('the word list needs --train <file>... or a base');
+  if (!vocabulary)
+    throw new UsageError('the word list needs training text or a base (--base brown or --base-corpus)');
   const wordWeights = effectiveWeights({
     personal: allWords,
     base: baseWords,
