@@ -115,8 +115,8 @@ export type BuiltModel = {
  *
  * The word list: the client's word model (modified Kneser–Ney trigrams, Chen & Goodman 1998) of
  * the training texts, the base vocabulary, and the mixture's weights tuned on the same 10% tail
- * (`adaptive`: whether the list will learn, so the recency cache takes part); the blended character model rescores it;
- * capitals at sentence starts.
+ * (`adaptive`: whether the list will learn, so the recency cache takes part); the blended
+ * character model rescores it; capitals at sentence starts.
  */
 export function buildModel(
   choice: ModelChoice,
