@@ -77,7 +77,7 @@ export async function runBench(args: string[]): Promise<void> {
   };
   const timer = setInterval(sampleRss, 50);
   try {
-    // --profile-only: just the profile pipeline section (about a minute instead of several).
+    // --profile-only: just the profile pipeline section, word and character lists (under two minutes).
     // --keyboard-only: just the test keyboard section (about 20 s).
     // --suggestions-only: just the word and character lists side by side (about two minutes).
     const report = parsed.flags.has('profile-only')
