@@ -11,6 +11,14 @@ export class TopList {
     return this.ids.length < this.limit ? -Infinity : this.scores[this.scores.length - 1];
   }
 
+  /** Takes `id` out of the list (no-op when absent). */
+  remove(id: number): void {
+    const at = this.ids.indexOf(id);
+    if (at < 0) return;
+    this.ids.splice(at, 1);
+    this.scores.splice(at, 1);
+  }
+
   offer(id: number, score: number): void {
     if (this.ids.length === this.limit && !(score > this.scores[this.scores.length - 1])) return;
     let i = this.ids.length;

@@ -23,19 +23,17 @@
 // it may reorder but not add to. `p` is the score renormalised over the words it scored.
 import type { NextSymbolModel } from '../model-types';
 import { Distribution } from '../model-types';
-import { CharClass, charClass, toCodePoints, wordStart } from '../search/word-chars';
+import * as wordChars from '../search/word-chars';
 import { PrefixIndex, TopList } from './prefix-index';
 import { RecencyCache } from './recency-cache';
 import type { WordLexicon } from './word-lexicon';
 import type { WordNgramModel } from './word-ngram-model';
-import {
-  atSentenceStart,
-  caseForOffer,
-  isOfferable,
-  precedingKeys,
-  UNKNOWN_WORD,
-  wordKey,
-} from './word-tokens';
+import * as tokens from './word-tokens';
+
+// Local copies: under CommonJS interop every access to an imported binding goes through a getter,
+// which showed up in the keystroke simulation's profile.
+const { CharClass, charClass, toCodePoints, wordStart } = wordChars;
+const { atSentenceStart, caseForOffer, isOfferable, precedingKeys, UNKNOWN_WORD, wordKey } = tokens;
 
 /** One suggested word and its share of the mixture among the candidates considered (0 < p ≤ 1). */
 export type WordSuggestion = { word: string; p: number };
@@ -149,6 +147,11 @@ export class WordPredictor implements ListPredictor {
   private readonly personalIndex: PrefixIndex;
   private readonly baseIndex: BaseIndex | null;
   private readonly baseMemo = new Map<string, string[]>();
+  /**
+   * The client's commonest words per short prefix (up to MEMO_PREFIX letters), kept up to date as
+   * words are learned (counts only grow, so a learned word can only move up or enter a list).
+   */
+  private readonly personalMemo = new Map<string, TopList>();
 
   constructor(parts: WordPredictorParts) {
     this.personal = parts.personal;
@@ -201,6 +204,18 @@ export class WordPredictor implements ListPredictor {
     if (p && pid > 1) return p.startForm(pid);
     if (b && bid > 1) return b.startForm(bid);
     return key;
+  }
+
+  /** After `key` was learned: its count grew, so it may move up in, or enter, the memoised lists of its prefixes. */
+  private refreshPersonalMemo(key: string): void {
+    const p = this.personal as WordNgramModel;
+    const id = p.idOf(key);
+    for (let n = 0; n <= Math.min(MEMO_PREFIX, key.length); n++) {
+      const top = this.personalMemo.get(key.slice(0, n));
+      if (!top) continue;
+      top.remove(id);
+      top.offer(id, p.counts[id]);
+    }
   }
 
   /** The four word components' mixture for one key in context. */
@@ -260,8 +275,12 @@ export class WordPredictor implements ListPredictor {
     if (p && this.weights.personal > 0) {
       fromTables(p, pu, pv);
       const counts = p.counts;
-      for (const id of this.personalIndex.top(prefixKey, PER_SOURCE, (id) => counts[id]).ids)
-        candidates.add(p.keys[id]);
+      let top = prefixKey.length <= MEMO_PREFIX ? this.personalMemo.get(prefixKey) : undefined;
+      if (!top) {
+        top = this.personalIndex.top(prefixKey, PER_SOURCE, (id) => counts[id]);
+        if (prefixKey.length <= MEMO_PREFIX) this.personalMemo.set(prefixKey, top);
+      }
+      for (const id of top.ids) candidates.add(p.keys[id]);
     }
     if (this.base && (this.weights.base > 0 || this.weights.lexicon > 0)) {
       if (b && this.weights.base > 0) fromTables(b, bu, bv);
@@ -395,6 +414,7 @@ export class WordPredictor implements ListPredictor {
       const known = this.personal.has(key);
       this.personal.learnWord(u, v, key, form, atSentenceStart(history, begin));
       if (!known && isOfferable(key)) this.personalIndex.insert(key, this.personal.idOf(key));
+      if (isOfferable(key)) this.refreshPersonalMemo(key);
     }
     if (isOfferable(key)) this.cache.add(key);
   }

@@ -2,7 +2,10 @@
 // character search (search/word-chars.ts), a key for counting (lower case,
 // typographic apostrophe and hyphen mapped to the plain ones), sentence
 // breaks, and redaction placeholders kept out of the vocabulary.
-import { CharClass, charClass, wordStart } from '../search/word-chars';
+import * as wordChars from '../search/word-chars';
+
+// Local copies: under CommonJS interop every access to an imported binding goes through a getter.
+const { CharClass, charClass, wordStart } = wordChars;
 
 /** Key of the sentence-start pad (never offered, never a display form). */
 export const SENTENCE_START = '<s>';
