@@ -34,6 +34,7 @@ import {
   isOfferable,
   precedingKeys,
   UNKNOWN_WORD,
+  wordEndAt,
   wordKey,
 } from './word-tokens';
 
@@ -384,8 +385,10 @@ export class WordPredictor implements ListPredictor {
     if (end >= history.length || charClass(history[end]) !== CharClass.Boundary) return;
     const begin = wordStart(history, end);
     if (begin === end) return;
+    // A joiner typed after the word (a closing quote: 'no') is not part of it, as in sentencesOf.
+    const last = wordEndAt(history, begin, end);
     let form = '';
-    for (let i = begin; i < end; i++) form += String.fromCodePoint(history[i]);
+    for (let i = begin; i < last; i++) form += String.fromCodePoint(history[i]);
     const [u, v] = precedingKeys(history, begin);
     const placeholder =
       begin > 0 && history[begin - 1] === PLACEHOLDER_OPEN && history[end] === PLACEHOLDER_CLOSE;
