@@ -2,7 +2,8 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { baseWordsFile, loadBaseWords } from '../../../../corpora/base-words';
-import { FormatError } from '../byte-io';
+import { ByteWriter, FormatError } from '../byte-io';
+import { crc32 } from '../crc32';
 import { prepareText } from '../text-preparation';
 import { deserializeBaseWords, serializeBaseWords } from './base-words-file';
 import { WordLexicon } from './word-lexicon';
@@ -59,6 +60,15 @@ describe('WordLexicon', () => {
     for (let n = 0; n < bytes.length; n++)
       expect(() => WordLexicon.fromBytes(bytes.subarray(0, n)), `first ${n} bytes`).toThrow(FormatError);
   });
+
+  it('refuses a forged word count with a good CRC before allocating for it', () => {
+    const w = new ByteWriter();
+    for (const b of [0x8b, 0x4b, 0x4c, 0x4c, 1]) w.u8(b);
+    w.varint(2 ** 35); // "34 billion words" in a 20-byte file
+    for (let i = 0; i < 6; i++) w.u8(0);
+    w.u32(crc32(w.result()));
+    expect(() => WordLexicon.fromBytes(w.result())).toThrow(/declares 34359738368 words/);
+  });
 });
 
 describe('base vocabulary file', () => {
@@ -100,6 +110,15 @@ describe('base vocabulary file', () => {
     }
     for (let n = 0; n < bytes.length; n++)
       expect(() => deserializeBaseWords(bytes.subarray(0, n)), `first ${n} bytes`).toThrow(FormatError);
+  });
+
+  it('refuses a part whose declared length runs past the end, with a good CRC', () => {
+    const w = new ByteWriter();
+    for (const b of [0x8b, 0x4b, 0x4c, 0x42, 1]) w.u8(b);
+    w.u32(0xfffffff0);
+    for (let i = 0; i < 12; i++) w.u8(0);
+    w.u32(crc32(w.result()));
+    expect(() => deserializeBaseWords(w.result())).toThrow(/a part runs past the end/);
   });
 
   it('the cached base vocabulary (Brown corpus and SUBTLEX-US) writes back byte for byte', () => {
