@@ -7,6 +7,7 @@ import { BlendedModel } from '../blended-model';
 import { trainPersonalModel } from '../evaluation/held-out-evaluation';
 import { prepareText } from '../text-preparation';
 import { DEFAULT_WORD_WEIGHTS } from './mixture-weights';
+import type { WordNgramModel } from './word-ngram-model';
 import { WordPredictor, type WordPredictorParts } from './word-predictor';
 import { isOfferable, wordKey } from './word-tokens';
 import { trainWordModel } from './word-training';
@@ -134,6 +135,42 @@ describe('WordPredictor: learning what is typed', () => {
     type(p, 'We found a zorbleck on the beach. ');
     expect(p.inVocabulary('zorbleck')).toBe(false);
     expect(listAfter(p, 'We found a zorbleck on the beach. Then z', 5)).not.toContain('zorbleck');
+  });
+
+  it('learns typed text exactly as training learns the same text, punctuation tokens included', () => {
+    // Invented text with every context mark, a run of commas, a placeholder and sentence ends.
+    const first = 'We sail at dawn. The boat is ready! We sail to the island, and back.\n';
+    const later =
+      'He said, "Go (now)." Then we wait; the tide turns: slowly, , surely. ' +
+      '“Yes” she said: (fine) ok, ⟪person-name⟫, “done”. Bertram’s boat is x-ray clear. ';
+    const p = new WordPredictor({
+      personal: trainWordModel([prepareText(first)]),
+      base: null,
+      char: null,
+      weights: DEFAULT_WORD_WEIGHTS,
+      capitalize: true,
+      adaptive: true,
+    });
+    const h = prepareText(first + later);
+    for (let i = prepareText(first).length; i < h.length; i++) p.learn(h, i);
+    const typed = p.personal as WordNgramModel;
+    const trained = trainWordModel([h]);
+    trained.discounts = typed.discounts;
+    expect(typed.vocabularySize).toBe(trained.vocabularySize);
+    let compared = 0;
+    for (const u of trained.keys)
+      for (const v of trained.keys)
+        for (let id = 2; id < trained.keys.length; id++) {
+          const w = trained.keys[id];
+          expect(typed.probability(u, v, w), `${u} ${v} ${w}`).toBeCloseTo(trained.probability(u, v, w), 12);
+          compared++;
+        }
+    expect(compared).toBeGreaterThan(30_000);
+    for (let id = 2; id < trained.keys.length; id++) {
+      const k = trained.keys[id];
+      expect(typed.midForm(typed.idOf(k)), k).toBe(trained.midForm(id));
+      expect(typed.startForm(typed.idOf(k)), k).toBe(trained.startForm(id));
+    }
   });
 
   it('learns a word closed by a quote without the quote', () => {

@@ -20,6 +20,11 @@ const LETTER = /\p{L}/u;
  */
 const CONTEXT_PUNCTUATION = new Set([0x2c, 0x3b, 0x3a, 0x22, 0x28, 0x29, 0x201c, 0x201d]);
 
+/** True for a mark that is a token of the word context (a comma, colon, semicolon, quote or bracket). */
+export function isContextMark(codePoint: number): boolean {
+  return CONTEXT_PUNCTUATION.has(codePoint);
+}
+
 /** Sentence ends: . ! ? and line breaks (a new line starts a new message or paragraph). */
 export function isSentenceEnd(codePoint: number): boolean {
   return codePoint === 0x2e || codePoint === 0x21 || codePoint === 0x3f || codePoint === 0x0a;
