@@ -142,7 +142,8 @@ describe('WordPredictor: learning what is typed', () => {
     const first = 'We sail at dawn. The boat is ready! We sail to the island, and back.\n';
     const later =
       'He said, "Go (now)." Then we wait; the tide turns: slowly, , surely. ' +
-      '“Yes” she said: (fine) ok, ⟪person-name⟫, “done”. Bertram’s boat is x-ray clear. ';
+      '“Yes” she said: (fine) ok, ⟪person-name⟫, “done”. Bertram’s boat is x-ray clear.\n' +
+      'Shopping:\n- Milk\n- Bread for Bertram\n';
     const p = new WordPredictor({
       personal: trainWordModel([prepareText(first)]),
       base: null,
@@ -171,6 +172,19 @@ describe('WordPredictor: learning what is typed', () => {
       expect(typed.midForm(typed.idOf(k)), k).toBe(trained.midForm(id));
       expect(typed.startForm(typed.idOf(k)), k).toBe(trained.startForm(id));
     }
+  });
+
+  it('takes the first word of a line typed as a list item ("- Milk") as a sentence start', () => {
+    const p = predictor();
+    type(p, 'Shopping:\n- Milk\n- Bread\n- Milk for Pepper\n');
+    // Learned as written at sentence starts, so offered in lower case inside a sentence …
+    const mid = listAfter(p, 'Shopping:\n- Milk\n- Bread\n- Milk for Pepper\nI need more mi');
+    expect(mid).toContain('milk');
+    expect(mid).not.toContain('Milk');
+    // … and with a capital after a list's "- ".
+    const item = listAfter(p, 'Shopping:\n- Milk\n- Bread\n- Milk for Pepper\n- ', 10);
+    expect(item).toContain('Milk');
+    expect(item).not.toContain('milk');
   });
 
   it('learns a word closed by a quote without the quote', () => {

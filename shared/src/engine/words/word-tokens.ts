@@ -148,14 +148,15 @@ export function precedingKeys(history: ArrayLike<number>, end: number): [string,
 }
 
 /**
- * True when a word starting at `wordBegin` would begin a sentence: nothing but spaces, quotes
- * and brackets since the start of the text or the last sentence end.
+ * True when a word starting at `wordBegin` would begin a sentence: nothing but spaces, quotes,
+ * brackets and hyphens or apostrophes outside words (a list's "- ") since the start of the text or
+ * the last sentence end, as in sentencesOf.
  */
 export function atSentenceStart(history: ArrayLike<number>, wordBegin: number): boolean {
   for (let i = wordBegin - 1; i >= 0; i--) {
     const c = history[i];
     if (isSentenceEnd(c)) return true;
-    if (charClass(c) !== CharClass.Boundary) return false;
+    if (charClass(c) === CharClass.Word) return false;
     // Commas, colons, semicolons and dashes continue a sentence.
     if (c === 0x2c || c === 0x3a || c === 0x3b) return false;
   }
