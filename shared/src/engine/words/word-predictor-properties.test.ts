@@ -11,6 +11,8 @@ import { BlendedModel } from '../blended-model';
 import { trainPersonalModel } from '../evaluation/held-out-evaluation';
 import { wordStart } from '../search/word-chars';
 import { seededRandom } from '../seeded-random';
+import { offeredNonWords } from '../evaluation/offered-words';
+import { CharListPredictor } from './char-list-predictor';
 import { DEFAULT_WORD_WEIGHTS } from './mixture-weights';
 import { WordPredictor, type WordPredictorParts, type WordSuggestion } from './word-predictor';
 import { wordKey } from './word-tokens';
@@ -112,6 +114,24 @@ describe('WordPredictor: properties over random places (Brown corpus and demo sa
       offered += words.length;
     }
     expect(offered).toBeGreaterThan(600);
+  });
+
+  it('offers no non-word where the character-only list offers fragments (offeredNonWords)', () => {
+    const p = predictor();
+    const isWord = (w: string): boolean => p.inVocabulary(w);
+    const text = testTexts[3];
+    const words = offeredNonWords(p, isWord, text, 5, 200);
+    expect(words.slots).toBeGreaterThan(1500);
+    expect(words.nonWordSlots).toBe(0);
+    const chars = offeredNonWords(
+      new CharListPredictor(new BlendedModel(personalChar, baseChar, 0.5), false),
+      isWord,
+      text,
+      5,
+      200,
+    );
+    // Measured on this text: the character list offered 20 non-words in 2,740 slots ("ourse", "Eur", "tw" …).
+    expect(chars.nonWordSlots).toBeGreaterThan(0);
   });
 
   it('keeps the properties while learning a demo sample as it is typed', () => {
