@@ -1,5 +1,11 @@
 import { beforeAll, describe, expect, it } from 'vitest';
 import { loadBaseModel } from '../../../../corpora/base-model';
+import { loadBaseWords } from '../../../../corpora/base-words';
+import type { BaseWords } from '../words/word-predictor';
+import { WordPredictor } from '../words/word-predictor';
+import { trainWordModel, tuneWordWeightsOnTail } from '../words/word-training';
+import { WordNgramModel } from '../words/word-ngram-model';
+import { redactionToken } from '../../schemas/samples.schema';
 import { BlendedModel, type NextSymbolModel } from '../index';
 import { PpmModel } from '../ppm-model';
 import { accessTiming } from './profile-rates';
@@ -66,6 +72,7 @@ const settings: ProfileSettings = {
 };
 
 let base: PpmModel;
+let baseWords: BaseWords;
 let report: ProfileReport;
 let modelBytes: Uint8Array;
 let blendWeight: number;
@@ -73,7 +80,8 @@ const progress: ProfileProgress[] = [];
 
 beforeAll(async () => {
   base = loadBaseModel();
-  const result = await trainAndEvaluateProfile({ documents, settings, base, folds: 5 }, (p) =>
+  baseWords = loadBaseWords();
+  const result = await trainAndEvaluateProfile({ documents, settings, base, baseWords, folds: 5 }, (p) =>
     progress.push(p),
   );
   ({ report, modelBytes, blendWeight } = result);
@@ -119,7 +127,17 @@ describe('trainAndEvaluateProfile on an invented corpus', () => {
     const coded = encodeText(fresh(), test);
     expect(fold.codedBytes).toBe(coded.length);
     expect(Array.from(decodeText(fresh(), coded, test.length))).toEqual(Array.from(test));
-    const ks = simulateKeystrokes(fresh(), test, { maxSlots: 10, adaptive: true });
+    // The list: the fold's word model and weights tuned on its training text's tail, with the base
+    // vocabulary and the blended character model, learning as it types.
+    const list = new WordPredictor({
+      personal: trainWordModel(train),
+      base: baseWords,
+      char: fresh(),
+      weights: tuneWordWeightsOnTail(train, baseWords, true),
+      capitalize: true,
+      adaptive: true,
+    });
+    const ks = simulateKeystrokes(list, test, { maxSlots: 10, adaptive: true });
     for (let w = 1; w <= 10; w++) expect(fold.keystrokeSavings[String(w)]).toBeCloseTo(ks.savings[w], 6);
     const scan = scanCosts(fresh(), test, { adaptive: true });
     expect(fold.scanStepsPerChar.rowColumn).toBeCloseTo(scan.rowColumn, 6);
@@ -224,7 +242,7 @@ describe('trainAndEvaluateProfile on an invented corpus', () => {
   });
 
   it('is deterministic: the same input gives the same report apart from timings', async () => {
-    const again = await trainAndEvaluateProfile({ documents, settings, base, folds: 5 });
+    const again = await trainAndEvaluateProfile({ documents, settings, base, baseWords, folds: 5 });
     expect(withoutTimings(again.report)).toEqual(withoutTimings(report));
     expect(Array.from(again.modelBytes)).toEqual(Array.from(modelBytes));
   });
@@ -290,6 +308,52 @@ describe('trainAndEvaluateProfile edge cases', () => {
     expect(r.ksNote).toMatch(/first 300 characters/);
     expect(r.baseWeight).toBe(0.25);
     for (const f of r.perFold) expect(f.baseWeight).toBe(0.25);
+  });
+});
+
+describe('trainAndEvaluateProfile and the word list', () => {
+  it('keeps redacted personal data out of the vocabulary and offers only words', async () => {
+    // Samples as the API hands them over after a redaction: the name replaced by the placeholder.
+    const token = redactionToken('person_name');
+    const redacted = documents.map((d) => ({ id: d.id, text: d.text.replaceAll('Tom', token) }));
+    const {
+      report: r,
+      wordModelBytes,
+      wordWeights,
+    } = await trainAndEvaluateProfile({
+      documents: redacted,
+      settings,
+      base,
+      baseWords,
+      folds: 2,
+      ksSampleChars: 400,
+    });
+    expect(r.predictor).toBe('word');
+    const words = WordNgramModel.fromBytes(wordModelBytes as Uint8Array);
+    expect(words.has('pepper')).toBe(true);
+    for (const key of ['tom', 'person-name', 'person', 'name']) expect(words.has(key)).toBe(false);
+    // Checked from outside the list: every offered slot is a word of the vocabulary.
+    expect(r.nonWordSlots.slots).toBeGreaterThan(100);
+    expect(r.nonWordSlots.nonWordSlots).toBe(0);
+    expect(wordWeights).not.toBeNull();
+    const sum = Object.values(wordWeights ?? {}).reduce((a, b) => a + b, 0);
+    expect(sum).toBeCloseTo(1, 5);
+  });
+
+  it('measures the character-only list for comparison, which offers fragments', async () => {
+    const { report: r, wordModelBytes } = await trainAndEvaluateProfile({
+      documents,
+      settings,
+      base,
+      baseWords,
+      folds: 2,
+      ksSampleChars: 400,
+      predictor: 'char',
+    });
+    expect(r.predictor).toBe('char');
+    expect(wordModelBytes).toBeNull();
+    expect(r.wordWeights).toBeNull();
+    expect(r.nonWordSlots.nonWordSlots).toBeGreaterThan(0);
   });
 });
 
