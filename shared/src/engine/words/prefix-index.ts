@@ -72,7 +72,6 @@ export class PrefixIndex {
   /** [from, to) of the keys that start with `prefix`. */
   range(prefix: string): [number, number] {
     const from = this.lowerBound(prefix);
-    let to = from;
     if (prefix === '') return [0, this.keys.length];
     // Keys starting with the prefix are contiguous; the range ends before the first that does not.
     let lo = from;
@@ -82,8 +81,7 @@ export class PrefixIndex {
       if (this.keys[mid].startsWith(prefix)) lo = mid + 1;
       else hi = mid;
     }
-    to = lo;
-    return [from, to];
+    return [from, lo];
   }
 
   /** The `limit` best ids among keys starting with `prefix`, by `score(id)`. */

@@ -155,6 +155,8 @@ export class WordNgramModel {
     let t2 = this.order2.get(v);
     if (!t2) this.order2.set(v, (t2 = new FollowerTable()));
     if (!t2.add(w)) return;
+    // The placeholder is outside the vocabulary: no unigram (its count is not in the file either).
+    if (w === UNKNOWN_ID) return;
     this.noteContinuation(this.continuation[w], 1);
     if (this.continuation[w]++ === 0) this.continuationDistinct++;
     this.continuationTotal++;

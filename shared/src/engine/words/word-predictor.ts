@@ -33,7 +33,16 @@ import * as tokens from './word-tokens';
 // Local copies: under CommonJS interop every access to an imported binding goes through a getter,
 // which showed up in the keystroke simulation's profile.
 const { CharClass, charClass, toCodePoints, wordStart } = wordChars;
-const { atSentenceStart, caseForOffer, isOfferable, precedingKeys, UNKNOWN_WORD, wordKey } = tokens;
+const {
+  atSentenceStart,
+  caseForOffer,
+  isContextMark,
+  isOfferable,
+  precedingKeys,
+  UNKNOWN_WORD,
+  wordEndAt,
+  wordKey,
+} = tokens;
 
 /** One suggested word and its share of the mixture among the candidates considered (0 < p ≤ 1). */
 export type WordSuggestion = { word: string; p: number };
@@ -396,16 +405,30 @@ export class WordPredictor implements ListPredictor {
   /**
    * Learns `history[end]`: the character model learns it; when it ends a word (a boundary after
    * word characters), the word enters the client's word model (so it can be offered from the next
-   * list on) and the recency cache. Only when adaptive.
+   * list on) and the recency cache; a context mark (comma, colon, semicolon, quote, bracket)
+   * enters the word model as a token, as training counts it. Only when adaptive.
    */
   learn(history: ArrayLike<number>, end: number): void {
     if (!this.adaptive) return;
     this.char?.learn(history, end);
     if (end >= history.length || charClass(history[end]) !== CharClass.Boundary) return;
     const begin = wordStart(history, end);
-    if (begin === end) return;
+    if (begin < end) this.learnWordBefore(history, begin, end);
+    // A comma, colon, semicolon, quote or bracket is a token of the word model, as in sentencesOf
+    // (a run of the same mark is one token).
+    if (this.personal && isContextMark(history[end])) {
+      const [u, v] = precedingKeys(history, end);
+      const mark = String.fromCodePoint(history[end]);
+      if (v !== mark) this.personal.learnWord(u, v, mark, mark, false);
+    }
+  }
+
+  /** Learns the word history[begin..end), ended by the boundary at `end`. */
+  private learnWordBefore(history: ArrayLike<number>, begin: number, end: number): void {
+    // A joiner typed after the word (a closing quote: 'no') is not part of it, as in sentencesOf.
+    const last = wordEndAt(history, begin, end);
     let form = '';
-    for (let i = begin; i < end; i++) form += String.fromCodePoint(history[i]);
+    for (let i = begin; i < last; i++) form += String.fromCodePoint(history[i]);
     const [u, v] = precedingKeys(history, begin);
     const placeholder =
       begin > 0 && history[begin - 1] === PLACEHOLDER_OPEN && history[end] === PLACEHOLDER_CLOSE;
