@@ -263,11 +263,13 @@ describe('WordNgramModel: file layout', () => {
       expect(back.midForm(id)).toBe(m.midForm(id));
       expect(back.startForm(id)).toBe(m.startForm(id));
     }
-    // Discounts are stored to 1e-6; a second round trip gives the same bytes.
-    expect([...WordNgramModel.fromBytes(back.toBytes()).toBytes()]).toEqual([...back.toBytes()]);
+    // Discounts are stored as doubles: the file gives the same bytes back and exactly the same
+    // probabilities (a clone is a round trip).
+    expect([...back.toBytes()]).toEqual([...m.toBytes()]);
+    expect(back.discounts).toEqual(m.discounts);
     for (const [u, v] of contextsOf(m))
       for (let id = 2; id < m.keys.length; id++)
-        expect(back.probability(u, v, m.keys[id])).toBeCloseTo(m.probability(u, v, m.keys[id]), 6);
+        expect(back.probability(u, v, m.keys[id])).toBe(m.probability(u, v, m.keys[id]));
   });
 
   it('round-trips a model trained on text with redaction placeholders to the same probabilities', () => {
@@ -301,11 +303,11 @@ describe('WordNgramModel: file layout', () => {
       expect(() => WordNgramModel.fromBytes(bytes.subarray(0, n)), `first ${n} bytes`).toThrow(FormatError);
   });
 
-  /** A layout-1 header (magic, version, nine discounts ×1e6) for hand-made files. */
+  /** A layout-2 header (magic, version, nine discounts as doubles) for hand-made files. */
   function header(): ByteWriter {
     const w = new ByteWriter();
-    for (const b of [0x8b, 0x4b, 0x4c, 0x57, 1]) w.u8(b);
-    for (let i = 0; i < 9; i++) w.u32(500_000);
+    for (const b of [0x8b, 0x4b, 0x4c, 0x57, 2]) w.u8(b);
+    for (let i = 0; i < 9; i++) w.f64(0.5);
     return w;
   }
 
