@@ -1,20 +1,21 @@
-import { CancelledError, type ProfileProgress, ProfileInputError, type ProfileResult } from '@keyloom/shared';
+import { CancelledError, type ProfileProgress, ProfileInputError } from '@keyloom/shared';
 import { existsSync } from 'node:fs';
 import { join } from 'node:path';
 import { Worker } from 'node:worker_threads';
-import type { Trainer, TrainerInput } from './profile-training';
+import type { Trainer, TrainerInput, TrainerResult } from './profile-training';
 
 // Training off the worker's event loop: each run goes to a node:worker_threads thread, so the
 // worker keeps writing heartbeats, answering PostgreSQL and sending e-mails while a large version
-// trains. Threads are kept between jobs (each holds the deserialized base model); the base-model
-// file is read once and shared with every thread as a SharedArrayBuffer (no copy per thread).
+// trains. Threads are kept between jobs (each holds the deserialized base model and base
+// vocabulary); the two base files are read once and shared with every thread as SharedArrayBuffers
+// (no copy per thread).
 
 /** What a training thread starts with. */
-export type TrainingThreadData = { baseModel: SharedArrayBuffer | null };
+export type TrainingThreadData = { baseModel: SharedArrayBuffer | null; baseWords: SharedArrayBuffer | null };
 export type ToTrainingThread = { type: 'train'; input: TrainerInput };
 export type FromTrainingThread =
   | { type: 'progress'; progress: ProfileProgress }
-  | { type: 'done'; result: ProfileResult }
+  | { type: 'done'; result: TrainerResult }
   | { type: 'error'; kind: 'input' | 'fault'; message: string };
 
 /** The compiled thread body beside this file (api/dist/profile-versions/training-thread.js). */
@@ -36,6 +37,7 @@ export class TrainingThreads {
 
   constructor(
     private readonly baseModel: SharedArrayBuffer | null,
+    private readonly baseWords: SharedArrayBuffer | null = null,
     private readonly file = TRAINING_THREAD_FILE,
   ) {
     if (!existsSync(file)) throw new Error(`The training thread ${file} is missing. Run \`npm run build\`.`);
@@ -60,7 +62,9 @@ export class TrainingThreads {
   private take(): Worker {
     const thread =
       this.idle.pop() ??
-      new Worker(this.file, { workerData: { baseModel: this.baseModel } satisfies TrainingThreadData });
+      new Worker(this.file, {
+        workerData: { baseModel: this.baseModel, baseWords: this.baseWords } satisfies TrainingThreadData,
+      });
     this.busy.add(thread);
     return thread;
   }
@@ -69,9 +73,9 @@ export class TrainingThreads {
     input: TrainerInput,
     onProgress: (progress: ProfileProgress) => void,
     isCancelled: () => boolean,
-  ): Promise<ProfileResult> {
+  ): Promise<TrainerResult> {
     const thread = this.take();
-    return new Promise<ProfileResult>((resolve, reject) => {
+    return new Promise<TrainerResult>((resolve, reject) => {
       let ended = false;
       const end = (keep: boolean) => {
         ended = true;
