@@ -1,5 +1,9 @@
 import { beforeAll, describe, expect, it } from 'vitest';
 import { loadBaseModel } from '../../../../corpora/base-model';
+import { loadBaseWords } from '../../../../corpora/base-words';
+import type { BaseWords } from '../words/word-predictor';
+import { WordPredictor } from '../words/word-predictor';
+import { trainWordModel, tuneWordWeightsOnTail } from '../words/word-training';
 import { BlendedModel, type NextSymbolModel } from '../index';
 import { PpmModel } from '../ppm-model';
 import { accessTiming } from './profile-rates';
@@ -66,6 +70,7 @@ const settings: ProfileSettings = {
 };
 
 let base: PpmModel;
+let baseWords: BaseWords;
 let report: ProfileReport;
 let modelBytes: Uint8Array;
 let blendWeight: number;
@@ -73,7 +78,8 @@ const progress: ProfileProgress[] = [];
 
 beforeAll(async () => {
   base = loadBaseModel();
-  const result = await trainAndEvaluateProfile({ documents, settings, base, folds: 5 }, (p) =>
+  baseWords = loadBaseWords();
+  const result = await trainAndEvaluateProfile({ documents, settings, base, baseWords, folds: 5 }, (p) =>
     progress.push(p),
   );
   ({ report, modelBytes, blendWeight } = result);
@@ -119,7 +125,17 @@ describe('trainAndEvaluateProfile on an invented corpus', () => {
     const coded = encodeText(fresh(), test);
     expect(fold.codedBytes).toBe(coded.length);
     expect(Array.from(decodeText(fresh(), coded, test.length))).toEqual(Array.from(test));
-    const ks = simulateKeystrokes(fresh(), test, { maxSlots: 10, adaptive: true });
+    // The list: the fold's word model and weights tuned on its training text's tail, with the base
+    // vocabulary and the blended character model, learning as it types.
+    const list = new WordPredictor({
+      personal: trainWordModel(train),
+      base: baseWords,
+      char: fresh(),
+      weights: tuneWordWeightsOnTail(train, baseWords, true),
+      capitalize: true,
+      adaptive: true,
+    });
+    const ks = simulateKeystrokes(list, test, { maxSlots: 10, adaptive: true });
     for (let w = 1; w <= 10; w++) expect(fold.keystrokeSavings[String(w)]).toBeCloseTo(ks.savings[w], 6);
     const scan = scanCosts(fresh(), test, { adaptive: true });
     expect(fold.scanStepsPerChar.rowColumn).toBeCloseTo(scan.rowColumn, 6);
@@ -224,7 +240,7 @@ describe('trainAndEvaluateProfile on an invented corpus', () => {
   });
 
   it('is deterministic: the same input gives the same report apart from timings', async () => {
-    const again = await trainAndEvaluateProfile({ documents, settings, base, folds: 5 });
+    const again = await trainAndEvaluateProfile({ documents, settings, base, baseWords, folds: 5 });
     expect(withoutTimings(again.report)).toEqual(withoutTimings(report));
     expect(Array.from(again.modelBytes)).toEqual(Array.from(modelBytes));
   });

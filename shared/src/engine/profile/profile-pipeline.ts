@@ -22,7 +22,12 @@ import {
   tuneBlendWeightOnTail,
 } from '../evaluation/held-out-evaluation';
 import { simulateKeystrokes, type KeystrokeResult } from '../evaluation/keystroke-savings';
+import { offeredNonWords } from '../evaluation/offered-words';
+import type { WordNgramModel } from '../words/word-ngram-model';
+import { type BaseWords, type ListPredictor, WordPredictor, type WordWeights } from '../words/word-predictor';
+import { trainWordModel, tuneWordWeightsOnTail } from '../words/word-training';
 import { scanCosts, type ScanCostResult } from '../evaluation/scan-cost';
+import { CharListPredictor } from '../words/char-list-predictor';
 import { countEarlyWords, EarlyWordRecorder, topEarlyWords, type EarlyWord } from './early-words';
 import { ProfileInputError } from './profile-errors';
 import { keystrokeSample, planFolds, type PreparedDocument } from './profile-folds';
@@ -31,7 +36,7 @@ import { DEFAULT_LIST_READ_MS, profileRates, type RateReport } from './profile-r
 import { checkProfileSettings, type ProfileSettings } from './profile-settings';
 
 /** Version of the engine that made a report; stored with each profile version. */
-export const ENGINE_VERSION = 'keyloom-engine/1 (model layout 1, profile report 1)';
+export const ENGINE_VERSION = 'keyloom-engine/2 (model layout 1, word model layout 1, profile report 2)';
 /** Fewest characters (after preparation, all samples together) a profile is trained on. */
 export const MIN_PROFILE_CHARS = 500;
 /** Largest suggestion list measured. */
@@ -62,6 +67,22 @@ export type ProfileInput = {
   ksSampleChars?: number | null;
   /** ms to read the suggestion list once, for the rates (default 500, an assumption). */
   listReadMs?: number;
+  /** The base vocabulary (frozen), or null: the word-aware list then knows only the client's words. */
+  baseWords?: BaseWords | null;
+  /**
+   * The list measured: `word` (default) offers only vocabulary words, ranked by word context, recency
+   * and the character model; `char` is the character-only list, kept for comparison.
+   */
+  predictor?: 'word' | 'char';
+};
+
+/** Offered slots that were not words of the vocabulary (lists at word starts and after 1–2 letters). */
+export type NonWordSlotsReport = {
+  share: number;
+  nonWordSlots: number;
+  slots: number;
+  lists: number;
+  examples: string[];
 };
 
 /** Spread of a metric over folds (sample standard deviation). */
@@ -103,8 +124,20 @@ export type LearningCurveReport = {
 
 export type BaseOnlyReport = { bpcIdeal: number; keystrokeSavings: PerSlot; kspc: PerSlot };
 
+/** Words offered per list position checked for the non-word share, per fold (three lists per word). */
+const NON_WORD_CHECK_WORDS = 150;
+
 export type ProfileReport = {
   engineVersion: string;
+  /** The list measured (see ProfileInput.predictor). */
+  predictor: 'word' | 'char';
+  /**
+   * Weights of the word-aware list's mixture for the final profile (tuned on the last 10% of all
+   * samples; each fold tunes its own on its training text), null for the character-only list.
+   */
+  wordWeights: WordWeights | null;
+  /** The share of offered slots that were not words, over all folds. */
+  nonWordSlots: NonWordSlotsReport;
   /** Characters of all samples after preparation. */
   chars: number;
   documents: number;
@@ -157,6 +190,9 @@ export type ProfileResult = {
   modelBytes: Uint8Array;
   /** λ to blend it with the base model (0 without a base model). */
   blendWeight: number;
+  /** The client's word model trained on every sample (WordNgramModel bytes), null for the character-only list. */
+  wordModelBytes: Uint8Array | null;
+  wordWeights: WordWeights | null;
 };
 
 /** Cost estimates per character, roughly µs on a 2-core machine (they only shape the progress bar). */
@@ -170,6 +206,7 @@ const COST = {
   ks: 260,
   ksBase: 100,
   save: 0.3,
+  words: 4,
 };
 
 function round(x: number): number {
@@ -197,6 +234,8 @@ type FoldWork = {
   ks?: KeystrokeResult;
   baseBits: number;
   baseKs?: KeystrokeResult;
+  words?: WordNgramModel;
+  wordWeights?: WordWeights;
 };
 
 /**
@@ -220,6 +259,9 @@ export async function trainAndEvaluateProfile(
     throw new ProfileInputError(`ksSampleChars must be an integer ≥ 100 or null, got ${cap}`);
   const listReadMs = input.listReadMs ?? DEFAULT_LIST_READ_MS;
   const base = input.base;
+  const baseWords = base ? (input.baseWords ?? null) : null;
+  const useWords = (input.predictor ?? 'word') === 'word';
+  const capitalize = !settings.caseFold;
   const slots = settings.slots;
   const ppm: Partial<PpmSettings> = {
     order: settings.order,
@@ -262,6 +304,7 @@ export async function trainAndEvaluateProfile(
   const curveFold = folds[0];
   const curveFractions = LEARNING_CURVE_FRACTIONS.filter((f) => f < 1);
   const slotShare = slots / MAX_SLOTS;
+  const wordCost = useWords ? COST.words : 0;
   let total = chars * COST.prepare + chars * (COST.train + (tuned ? COST.tune : 0)) + chars * COST.save;
   for (const f of folds) {
     total += f.trainChars * (COST.train + (tuned ? COST.tune : 0));
@@ -269,7 +312,7 @@ export async function trainAndEvaluateProfile(
     total += f.ksText.length * (COST.ks + (base ? COST.ksBase : 0));
   }
   const curveCost = (fraction: number): number =>
-    curveFold.trainChars * fraction * (COST.train + (tuned ? COST.tune : 0)) +
+    curveFold.trainChars * fraction * (COST.train + (tuned ? COST.tune : 0) + wordCost) +
     curveFold.test.length * COST.bits +
     curveFold.ksText.length * COST.ks * slotShare;
   for (const fraction of curveFractions) total += curveCost(fraction);
@@ -278,20 +321,54 @@ export async function trainAndEvaluateProfile(
 
   // Training: one model per fold, and the final model on every sample.
   for (const f of folds) {
-    await progress.step('training', f.trainChars * (COST.train + (tuned ? COST.tune : 0)), () => {
+    await progress.step('training', f.trainChars * (COST.train + (tuned ? COST.tune : 0) + wordCost), () => {
       f.personal = trainPersonalModel(ppm, f.train);
       f.weight = weightFor(f.train);
+      if (useWords) {
+        f.words = trainWordModel(f.train);
+        f.wordWeights = tuneWordWeightsOnTail(f.train, baseWords, true);
+      }
     });
   }
   const allTexts = documents.map((d) => d.text);
-  const final = await progress.step('training', chars * (COST.train + (tuned ? COST.tune : 0)), () =>
-    trainPersonalModel(ppm, allTexts),
+  const final = await progress.step(
+    'training',
+    chars * (COST.train + (tuned ? COST.tune : 0) + wordCost),
+    () => ({
+      model: trainPersonalModel(ppm, allTexts),
+      words: useWords ? trainWordModel(allTexts) : null,
+      wordWeights: useWords ? tuneWordWeightsOnTail(allTexts, baseWords, true) : null,
+    }),
   );
   const meanWeight = folds.reduce((s, f) => s + f.weight, 0) / folds.length;
   const blendWeight = base === null ? 0 : settings.baseWeight === 'auto' ? meanWeight : settings.baseWeight;
 
   // Cross-validating: bits per character, ideal and coded, and scan cost.
   const fresh = (f: FoldWork): NextSymbolModel => freshModel(need(f.personal), base, f.weight, true);
+  /** The list a fold measures, learning as it is typed (the word model and the character model). */
+  const freshList = (f: FoldWork): ListPredictor | NextSymbolModel =>
+    useWords
+      ? new WordPredictor({
+          personal: need(f.words).clone(),
+          base: baseWords,
+          char: fresh(f),
+          weights: need(f.wordWeights),
+          capitalize,
+          adaptive: true,
+        })
+      : fresh(f);
+  /** The base alone as shipped (frozen): base vocabulary and base character model, or the base's character list. */
+  const baseList = (f: FoldWork): ListPredictor | NextSymbolModel =>
+    useWords && baseWords && base
+      ? new WordPredictor({
+          personal: null,
+          base: baseWords,
+          char: base,
+          weights: need(f.wordWeights),
+          capitalize,
+          adaptive: false,
+        })
+      : (base as NextSymbolModel);
   for (const f of folds) {
     await progress.step('cross-validating', f.test.length * COST.bits, () => {
       f.bits = codeLengthBits(fresh(f), f.test, { adaptive: true });
@@ -315,7 +392,7 @@ export async function trainAndEvaluateProfile(
   for (const f of folds) {
     const profileWords = new EarlyWordRecorder(slots);
     await progress.step('simulating', f.ksText.length * COST.ks, (inside) => {
-      f.ks = simulateKeystrokes(fresh(f), f.ksText, {
+      f.ks = simulateKeystrokes(freshList(f), f.ksText, {
         maxSlots: MAX_SLOTS,
         adaptive: true,
         onWord: (visit) => {
@@ -325,19 +402,61 @@ export async function trainAndEvaluateProfile(
       });
     });
     if (base) {
-      const baseWords = new EarlyWordRecorder(slots);
+      const baseRecorder = new EarlyWordRecorder(slots);
       await progress.step('simulating', f.ksText.length * COST.ksBase, (inside) => {
-        f.baseKs = simulateKeystrokes(base, f.ksText, {
+        f.baseKs = simulateKeystrokes(baseList(f), f.ksText, {
           maxSlots: MAX_SLOTS,
           adaptive: false,
           onWord: (visit) => {
-            baseWords.record(visit);
+            baseRecorder.record(visit);
             inside(visit.end / f.ksText.length);
           },
         });
       });
-      countEarlyWords(f.ksText, profileWords, baseWords, earlyCounts);
+      countEarlyWords(f.ksText, profileWords, baseRecorder, earlyCounts);
     }
+  }
+
+  // Offered non-words: lists of a static copy of each fold's list, checked against the fold's
+  // vocabulary (its training words and the base vocabulary), whichever list is measured.
+  const nonWord = { nonWordSlots: 0, slots: 0, lists: 0, examples: [] as string[] };
+  for (const f of folds) {
+    await progress.step(
+      'simulating',
+      Math.min(f.ksText.length, NON_WORD_CHECK_WORDS * 6) * COST.ks * 0.3,
+      () => {
+        const vocabulary = new WordPredictor({
+          personal: f.words ?? trainWordModel(f.train),
+          base: baseWords,
+          char: null,
+          weights: { personal: 1, base: 1, lexicon: 1, cache: 0 },
+          capitalize,
+          adaptive: false,
+        });
+        const list = useWords
+          ? new WordPredictor({
+              personal: need(f.words),
+              base: baseWords,
+              char: freshModel(need(f.personal), base, f.weight, false),
+              weights: need(f.wordWeights),
+              capitalize,
+              adaptive: false,
+            })
+          : new CharListPredictor(freshModel(need(f.personal), base, f.weight, false), false);
+        const r = offeredNonWords(
+          list,
+          (w) => vocabulary.inVocabulary(w),
+          f.ksText,
+          slots,
+          NON_WORD_CHECK_WORDS,
+        );
+        nonWord.nonWordSlots += r.nonWordSlots;
+        nonWord.slots += r.slots;
+        nonWord.lists += r.lists;
+        for (const e of r.examples)
+          if (nonWord.examples.length < 10 && !nonWord.examples.includes(e)) nonWord.examples.push(e);
+      },
+    );
   }
 
   // Learning curve on the first fold; its 100% point is that fold's result.
@@ -364,7 +483,17 @@ export async function trainAndEvaluateProfile(
           const bits = codeLengthBits(freshModel(personal, base, weight, true), curveFold.test, {
             adaptive: true,
           });
-          const ks = simulateKeystrokes(freshModel(personal, base, weight, true), curveFold.ksText, {
+          const list = useWords
+            ? new WordPredictor({
+                personal: trainWordModel(texts),
+                base: baseWords,
+                char: freshModel(personal, base, weight, true),
+                weights: tuneWordWeightsOnTail(texts, baseWords, true),
+                capitalize,
+                adaptive: true,
+              })
+            : freshModel(personal, base, weight, true);
+          const ks = simulateKeystrokes(list, curveFold.ksText, {
             maxSlots: slots,
             adaptive: true,
             onWord: (visit) => inside(visit.end / curveFold.ksText.length),
@@ -385,7 +514,8 @@ export async function trainAndEvaluateProfile(
   }
 
   // Saving: the final personal model, serialised.
-  const modelBytes = await progress.step('saving', chars * COST.save, () => serializeModel(final));
+  const modelBytes = await progress.step('saving', chars * COST.save, () => serializeModel(final.model));
+  const wordModelBytes = final.words ? final.words.toBytes() : null;
   progress.finish();
 
   // Summaries: bpc as a mean over folds with its spread; keystrokes and scan
@@ -432,6 +562,15 @@ export async function trainAndEvaluateProfile(
   const timings = { ...progress.timings, total: Date.now() - started };
   const report: ProfileReport = {
     engineVersion: ENGINE_VERSION,
+    predictor: useWords ? 'word' : 'char',
+    wordWeights: final.wordWeights,
+    nonWordSlots: {
+      share: round(nonWord.slots === 0 ? 0 : nonWord.nonWordSlots / nonWord.slots),
+      nonWordSlots: nonWord.nonWordSlots,
+      slots: nonWord.slots,
+      lists: nonWord.lists,
+      examples: nonWord.examples,
+    },
     chars,
     documents: documents.length,
     settings: structuredCopy(settings),
@@ -492,7 +631,7 @@ export async function trainAndEvaluateProfile(
     })),
     timings,
   };
-  return { report, modelBytes, blendWeight };
+  return { report, modelBytes, blendWeight, wordModelBytes, wordWeights: final.wordWeights };
 }
 
 function roundedRates(r: RateReport): RateReport {

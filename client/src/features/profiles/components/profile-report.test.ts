@@ -1,7 +1,7 @@
 import { defaultProfileSettings, trainAndEvaluateProfile } from '@keyloom/shared';
 import { describe, expect, it } from 'vitest';
 import { reportFixture } from '../testing/profile-data';
-import { atSlots, learningCurveVerdict, percent, readReport } from './profile-report';
+import { atSlots, learningCurveVerdict, listDescription, percent, readReport } from './profile-report';
 
 // Invented writing in the demo client's voice (the Willowmere demo scenario).
 const entries = [
@@ -29,6 +29,25 @@ describe('readReport', () => {
     expect(view?.bpcIdeal).toBe(report.bpcIdeal);
     expect(Object.keys(view?.keystrokeSavings ?? {})).toHaveLength(10);
     expect(view?.baseOnly).toBeNull();
+    // The word list's own fields reach the page: whole words only, checked from outside.
+    expect(view?.predictor).toBe('word');
+    expect(view?.nonWordSlots?.slots).toBeGreaterThan(0);
+    expect(view?.nonWordSlots?.nonWordSlots).toBe(0);
+    expect(listDescription(view as NonNullable<typeof view>).join(' ')).toMatch(/were real words/);
+  });
+
+  it('says when a version was trained with the earlier list, and names non-words when there were some', () => {
+    const old = readReport(reportFixture());
+    expect(listDescription(old as NonNullable<typeof old>)[0]).toMatch(/earlier list/);
+    const charList = readReport(
+      reportFixture({
+        predictor: 'char',
+        nonWordSlots: { share: 0.19, nonWordSlots: 19, slots: 100, lists: 20, examples: ['Teod', 'firsty'] },
+      }),
+    );
+    expect(listDescription(charList as NonNullable<typeof charList>).join(' ')).toContain(
+      '19 of 100 offered slots (19.0%) were not words, for example “Teod”, “firsty”.',
+    );
   });
 
   it('returns null for no metrics and for a report missing its figures', () => {

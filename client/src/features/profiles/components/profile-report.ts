@@ -54,6 +54,20 @@ export const profileReportSchema = z.object({
     .object({ bpcIdeal: z.number(), keystrokeSavings: perSlotSchema, kspc: perSlotSchema })
     .nullable(),
   earlyWords: z.array(z.object({ word: z.string(), count: z.number() })).nullable(),
+  predictor: z.enum(['word', 'char']).optional(),
+  wordWeights: z
+    .object({ personal: z.number(), base: z.number(), lexicon: z.number(), cache: z.number() })
+    .nullable()
+    .optional(),
+  nonWordSlots: z
+    .object({
+      share: z.number(),
+      nonWordSlots: z.number(),
+      slots: z.number(),
+      lists: z.number(),
+      examples: z.array(z.string()),
+    })
+    .optional(),
 });
 export type ProfileReportView = z.infer<typeof profileReportSchema>;
 
@@ -116,4 +130,44 @@ export const slotSeries = (report: ProfileReportView, name = 'This version') => 
     kspc.push({ name: BASE_NAME, values: report.baseOnly.kspc });
   }
   return { savings, kspc };
+};
+
+/**
+ * What the suggestion list offers, in plain words: whether it offers only whole words (and how that
+ * was checked), and how it ranks them. Reports made before the word list say so.
+ */
+export const listDescription = (report: ProfileReportView): string[] => {
+  const lines: string[] = [];
+  if (report.predictor !== 'word') {
+    lines.push(
+      'This version was trained with the earlier list, which could offer parts of words. Train a new version to get a list of whole words only.',
+    );
+  } else {
+    lines.push(
+      "The list offers whole words only: the client's own words, a general English vocabulary, and words the client finishes while typing.",
+    );
+    const w = report.wordWeights;
+    if (w) {
+      const parts = [
+        `the client's own writing ${percent(w.personal, 0)}`,
+        `general English ${percent(w.base + w.lexicon, 0)}`,
+        `words used in the last few hundred ${percent(w.cache, 0)}`,
+      ];
+      lines.push(
+        `It ranks words by the two words before them and by spelling, weighing ${parts.join(', ')}.`,
+      );
+    }
+  }
+  const n = report.nonWordSlots;
+  if (n && n.slots > 0) {
+    lines.push(
+      n.nonWordSlots === 0
+        ? `Checked: all ${count(n.slots)} words offered in ${count(n.lists)} lists were real words.`
+        : `Checked: ${count(n.nonWordSlots)} of ${count(n.slots)} offered slots (${percent(n.share)}) were not words, for example ${n.examples
+            .slice(0, 4)
+            .map((e) => `“${e}”`)
+            .join(', ')}.`,
+    );
+  }
+  return lines;
 };

@@ -14,6 +14,7 @@ import {
   count,
   fixed,
   learningCurveVerdict,
+  listDescription,
   percent,
   type ProfileReportView,
   slotSeries,
@@ -97,6 +98,11 @@ export const VersionResults = ({ report }: { report: ProfileReportView }) => {
             : '.'}{' '}
           {report.ksNote}
         </p>
+        {listDescription(report).map((line) => (
+          <p key={line} className="max-w-3xl">
+            {line}
+          </p>
+        ))}
         <SlotsChart
           title="Keystroke savings for 1 to 10 suggestion slots"
           series={series.savings}
