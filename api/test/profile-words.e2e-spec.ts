@@ -51,7 +51,12 @@ const sha256 = (bytes: Uint8Array) => createHash('sha256').update(bytes).digest(
 /** The layout version, read by hand: u16 little-endian at offset 4 (shared/src/engine/README.md). */
 const layoutOf = (file: Uint8Array) => Buffer.from(file).readUInt16LE(4);
 
-type VerifyAnswer = { valid: boolean; vocabularyWords: number; modelBytes: number; header: Record<string, unknown> };
+type VerifyAnswer = {
+  valid: boolean;
+  vocabularyWords: number;
+  modelBytes: number;
+  header: Record<string, unknown>;
+};
 
 describe('word-aware list (HTTP)', () => {
   let t: TestApp;
@@ -73,8 +78,9 @@ describe('word-aware list (HTTP)', () => {
     ).body as VerifyAnswer;
 
   async function trained(): Promise<ProfileVersionDto> {
-    const draft = (await post(cast.owner, `/api/clients/${clientId}/profile-versions`, { settings: {} }).expect(201))
-      .body as ProfileVersionDto;
+    const draft = (
+      await post(cast.owner, `/api/clients/${clientId}/profile-versions`, { settings: {} }).expect(201)
+    ).body as ProfileVersionDto;
     await post(cast.owner, `/api/profile-versions/${draft.id}/train`).expect(200);
     const rows: { job_id: string }[] = await t.dataSource.query(
       'SELECT job_id FROM profile_versions WHERE id = $1',
@@ -106,11 +112,14 @@ describe('word-aware list (HTTP)', () => {
   });
 
   it('stores the client’s word model, its weights and the base vocabulary’s hash with the version', async () => {
-    const rows: { word_model: Buffer | null; word_weights: Record<string, number> | null; base_words_sha256: string | null }[] =
-      await t.dataSource.query(
-        'SELECT word_model, word_weights, base_words_sha256 FROM profile_versions WHERE id = $1',
-        [version.id],
-      );
+    const rows: {
+      word_model: Buffer | null;
+      word_weights: Record<string, number> | null;
+      base_words_sha256: string | null;
+    }[] = await t.dataSource.query(
+      'SELECT word_model, word_weights, base_words_sha256 FROM profile_versions WHERE id = $1',
+      [version.id],
+    );
     const row = rows[0];
     expect(row.word_model).not.toBeNull();
     expect(WordNgramModel.fromBytes(new Uint8Array(row.word_model as Buffer)).has('slipway')).toBe(true);
@@ -184,7 +193,8 @@ describe('word-aware list (HTTP)', () => {
       'UPDATE profile_versions SET word_model = NULL, word_weights = NULL, base_words_sha256 = NULL WHERE id = $1',
       [old.id],
     );
-    const file = (await bytesOf(cast.owner, `/api/profile-versions/${old.id}/export`).expect(200)).body as Buffer;
+    const file = (await bytesOf(cast.owner, `/api/profile-versions/${old.id}/export`).expect(200))
+      .body as Buffer;
     expect(layoutOf(file)).toBe(PROFILE_FILE_SIGNED_VERSION);
     const answer = await verify(file);
     expect(answer.valid).toBe(true);

@@ -10,7 +10,6 @@ import {
   type ProfileResult,
   type ProfileSettings,
   trainAndEvaluateProfile,
-  type WordWeights,
 } from '@keyloom/shared';
 import { createHash } from 'node:crypto';
 import { existsSync, readFileSync } from 'node:fs';
@@ -28,24 +27,12 @@ export const BASE_WORDS_FILE = resolve(BASE_MODEL_FILE, '..', 'base-words.bin');
 /** What one training run gets: the frozen samples and settings (the trainer adds its base model and vocabulary). */
 export type TrainerInput = Omit<ProfileInput, 'base' | 'baseWords'>;
 
-/** The engine's input with the base vocabulary (null: the version is trained without the base). */
-type WordsInput = ProfileInput & { baseWords?: BaseWords | null };
-
-/**
- * What training gives back, with the word-aware list's parts: the client's word model and the
- * mixture weights tuned for it (null or absent when the engine trained no word model).
- */
-export type TrainerResult = ProfileResult & {
-  wordModelBytes?: Uint8Array | null;
-  wordWeights?: WordWeights | null;
-};
-
 /** The engine's input for one run: the base vocabulary goes only with the base model. */
 export function engineInput(
   input: TrainerInput,
   base: PpmModel | null,
   baseWords: BaseWords | null,
-): WordsInput {
+): ProfileInput {
   return { ...input, base, baseWords: base ? baseWords : null };
 }
 
@@ -57,7 +44,7 @@ export type Trainer = (
   input: TrainerInput,
   onProgress: (progress: ProfileProgress) => void,
   isCancelled: () => boolean,
-) => Promise<TrainerResult>;
+) => Promise<ProfileResult>;
 
 /** The engine on the calling thread (the HTTP tests and the seed). */
 export function inProcessTrainer(base: PpmModel | null, baseWords: BaseWords | null = null): Trainer {
@@ -239,7 +226,7 @@ export async function runProfileTraining(
     );
     clearInterval(timer);
     await settled();
-    const wordModel = result.wordModelBytes ?? null;
+    const wordModel = result.wordModelBytes;
     const saved = await dataSource.transaction(async (tx) => {
       const count = await updateCount(
         tx,

@@ -18,7 +18,9 @@ const port = parentPort;
 if (!port) throw new Error('training-thread runs only as a worker thread');
 const { baseModel, baseWords: baseWordsBytes } = workerData as TrainingThreadData;
 const base: PpmModel | null = baseModel ? deserializeModel(new Uint8Array(baseModel)).freeze() : null;
-const baseWords: BaseWords | null = baseWordsBytes ? deserializeBaseWords(new Uint8Array(baseWordsBytes)) : null;
+const baseWords: BaseWords | null = baseWordsBytes
+  ? deserializeBaseWords(new Uint8Array(baseWordsBytes))
+  : null;
 const post = (message: FromTrainingThread, transfer: ArrayBuffer[] = []) =>
   port.postMessage(message, transfer);
 
@@ -33,8 +35,7 @@ port.on('message', (message: ToTrainingThread) => {
   )
     .then((result) => {
       const modelBytes = owned(result.modelBytes);
-      const words = (result as { wordModelBytes?: Uint8Array | null }).wordModelBytes;
-      const wordModelBytes = words ? owned(words) : null;
+      const wordModelBytes = result.wordModelBytes ? owned(result.wordModelBytes) : null;
       const transfer = [modelBytes.buffer as ArrayBuffer];
       if (wordModelBytes && wordModelBytes.buffer !== modelBytes.buffer)
         transfer.push(wordModelBytes.buffer as ArrayBuffer);

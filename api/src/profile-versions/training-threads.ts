@@ -1,8 +1,8 @@
-import { CancelledError, type ProfileProgress, ProfileInputError } from '@keyloom/shared';
+import { CancelledError, type ProfileProgress, ProfileInputError, type ProfileResult } from '@keyloom/shared';
 import { existsSync } from 'node:fs';
 import { join } from 'node:path';
 import { Worker } from 'node:worker_threads';
-import type { Trainer, TrainerInput, TrainerResult } from './profile-training';
+import type { Trainer, TrainerInput } from './profile-training';
 
 // Training off the worker's event loop: each run goes to a node:worker_threads thread, so the
 // worker keeps writing heartbeats, answering PostgreSQL and sending e-mails while a large version
@@ -15,7 +15,7 @@ export type TrainingThreadData = { baseModel: SharedArrayBuffer | null; baseWord
 export type ToTrainingThread = { type: 'train'; input: TrainerInput };
 export type FromTrainingThread =
   | { type: 'progress'; progress: ProfileProgress }
-  | { type: 'done'; result: TrainerResult }
+  | { type: 'done'; result: ProfileResult }
   | { type: 'error'; kind: 'input' | 'fault'; message: string };
 
 /** The compiled thread body beside this file (api/dist/profile-versions/training-thread.js). */
@@ -73,9 +73,9 @@ export class TrainingThreads {
     input: TrainerInput,
     onProgress: (progress: ProfileProgress) => void,
     isCancelled: () => boolean,
-  ): Promise<TrainerResult> {
+  ): Promise<ProfileResult> {
     const thread = this.take();
-    return new Promise<TrainerResult>((resolve, reject) => {
+    return new Promise<ProfileResult>((resolve, reject) => {
       let ended = false;
       const end = (keep: boolean) => {
         ended = true;

@@ -3,7 +3,12 @@ import { ApiOkResponse, ApiOperation, ApiProduces, ApiTags } from '@nestjs/swagg
 import type { Response } from 'express';
 import { CurrentActor } from '../auth/decorators/current-user.decorator';
 import type { Actor } from '../auth/session-user';
-import { type BaseDownload, type GzipDownload, etagMatches, ModelDownloadService } from './model-download.service';
+import {
+  type BaseDownload,
+  type GzipDownload,
+  etagMatches,
+  ModelDownloadService,
+} from './model-download.service';
 
 /** Header with the size of the download once gunzipped (the browser reports it). */
 export const UNCOMPRESSED_BYTES_HEADER = 'X-Keyloom-Uncompressed-Bytes';
@@ -107,7 +112,12 @@ export class ModelDownloadController {
 }
 
 /** A base file's answer: 304 when the browser has it, else the gzip, cached for a year. */
-function sendBase(res: Response, download: BaseDownload, ifNoneMatch: string | undefined, header: string): void {
+function sendBase(
+  res: Response,
+  download: BaseDownload,
+  ifNoneMatch: string | undefined,
+  header: string,
+): void {
   if (etagMatches(ifNoneMatch, download.etag)) {
     notModified(res, download.etag, BASE_CACHE);
     return;
