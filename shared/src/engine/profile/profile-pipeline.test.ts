@@ -4,6 +4,8 @@ import { loadBaseWords } from '../../../../corpora/base-words';
 import type { BaseWords } from '../words/word-predictor';
 import { WordPredictor } from '../words/word-predictor';
 import { trainWordModel, tuneWordWeightsOnTail } from '../words/word-training';
+import { WordNgramModel } from '../words/word-ngram-model';
+import { redactionToken } from '../../schemas/samples.schema';
 import { BlendedModel, type NextSymbolModel } from '../index';
 import { PpmModel } from '../ppm-model';
 import { accessTiming } from './profile-rates';
@@ -306,6 +308,52 @@ describe('trainAndEvaluateProfile edge cases', () => {
     expect(r.ksNote).toMatch(/first 300 characters/);
     expect(r.baseWeight).toBe(0.25);
     for (const f of r.perFold) expect(f.baseWeight).toBe(0.25);
+  });
+});
+
+describe('trainAndEvaluateProfile and the word list', () => {
+  it('keeps redacted personal data out of the vocabulary and offers only words', async () => {
+    // Samples as the API hands them over after a redaction: the name replaced by the placeholder.
+    const token = redactionToken('person_name');
+    const redacted = documents.map((d) => ({ id: d.id, text: d.text.replaceAll('Tom', token) }));
+    const {
+      report: r,
+      wordModelBytes,
+      wordWeights,
+    } = await trainAndEvaluateProfile({
+      documents: redacted,
+      settings,
+      base,
+      baseWords,
+      folds: 2,
+      ksSampleChars: 400,
+    });
+    expect(r.predictor).toBe('word');
+    const words = WordNgramModel.fromBytes(wordModelBytes as Uint8Array);
+    expect(words.has('pepper')).toBe(true);
+    for (const key of ['tom', 'person-name', 'person', 'name']) expect(words.has(key)).toBe(false);
+    // Checked from outside the list: every offered slot is a word of the vocabulary.
+    expect(r.nonWordSlots.slots).toBeGreaterThan(100);
+    expect(r.nonWordSlots.nonWordSlots).toBe(0);
+    expect(wordWeights).not.toBeNull();
+    const sum = Object.values(wordWeights ?? {}).reduce((a, b) => a + b, 0);
+    expect(sum).toBeCloseTo(1, 5);
+  });
+
+  it('measures the character-only list for comparison, which offers fragments', async () => {
+    const { report: r, wordModelBytes } = await trainAndEvaluateProfile({
+      documents,
+      settings,
+      base,
+      baseWords,
+      folds: 2,
+      ksSampleChars: 400,
+      predictor: 'char',
+    });
+    expect(r.predictor).toBe('char');
+    expect(wordModelBytes).toBeNull();
+    expect(r.wordWeights).toBeNull();
+    expect(r.nonWordSlots.nonWordSlots).toBeGreaterThan(0);
   });
 });
 

@@ -38,6 +38,11 @@ function readUtf8(b: Uint8Array): string {
 }
 
 const MAGIC = [0x8b, 0x4b, 0x4c, 0x57]; // 0x8B "KLW"
+/**
+ * Share of mid-sentence uses in lower case that makes the lower-case form the one offered (common
+ * practice, no source: a word that is also a name, like "park" or "bill", is offered as the word).
+ */
+export const LOWER_CASE_SHARE = 0.25;
 const LAYOUT_VERSION = 1;
 
 /** The three discounts of one order: for a count of 1, of 2, of 3 or more. */
@@ -251,15 +256,23 @@ export class WordNgramModel {
     return out;
   }
 
-  /** The form to show for a word: its commonest mid-sentence form, else its sentence-start form, else the key. */
+  /**
+   * The form to show for a word seen inside sentences: the lower-case key when at least
+   * LOWER_CASE_SHARE of its mid-sentence uses were written that way ("park", though "Park" is a
+   * name in some of them), else its commonest mid-sentence form ("Bertram", "I"); undefined for a
+   * word never seen inside a sentence.
+   */
   midForm(id: number): string | undefined {
-    if (this.midCounts[id] === 0) return undefined;
+    const mid = this.midCounts[id];
+    if (mid === 0) return undefined;
     const key = this.keys[id];
     const others = this.otherForms.get(id);
     if (!others) return key;
+    let keyCount = mid;
+    for (const c of others.values()) keyCount -= c;
+    if (keyCount >= LOWER_CASE_SHARE * mid) return key;
     let best = key;
-    let bestCount = this.midCounts[id];
-    for (const c of others.values()) bestCount -= c;
+    let bestCount = keyCount;
     for (const [form, c] of others) {
       if (c > bestCount) {
         best = form;

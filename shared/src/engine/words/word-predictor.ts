@@ -300,7 +300,8 @@ export class WordPredictor implements ListPredictor {
     for (const c of scored) {
       if (out.length >= limit) break;
       const word = offer(c.key);
-      if (seen.has(word)) continue;
+      // The letters already typed, offered as they are, would add nothing a space does not.
+      if (seen.has(word) || word === prefix) continue;
       seen.add(word);
       out.push({ word, p: c.s / total });
     }

@@ -33,9 +33,16 @@ export function wordKey(form: string): string {
   return key;
 }
 
-/** True when a key may be offered: it holds a letter and is not a pad or placeholder. */
+/**
+ * Single letters offered as words: "a" and "I". Other single letters in a corpus are initials or
+ * letters named in the text ("R. Ashby", "plan B"), not words to offer (common practice, no source).
+ */
+const ONE_LETTER_WORDS = new Set(['a', 'i']);
+
+/** True when a key may be offered: it holds a letter, is not a pad or placeholder, and is not a stray single letter. */
 export function isOfferable(key: string): boolean {
-  return key !== SENTENCE_START && key !== UNKNOWN_WORD && LETTER.test(key);
+  if (key === SENTENCE_START || key === UNKNOWN_WORD || !LETTER.test(key)) return false;
+  return key.length > 1 || ONE_LETTER_WORDS.has(key);
 }
 
 /** End (exclusive) of the word starting at `i`: word characters, joiners only between them. */
