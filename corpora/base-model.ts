@@ -30,6 +30,16 @@ export function trainBaseModel(): PpmModel {
   return PpmModel.train(prepareText(joinDocuments(loadBrown().documents)), baseModelSettings);
 }
 
+/**
+ * A base model trained on other texts than Brown (`model --base-corpus`): the same settings, each
+ * text learned as its own text (no context across files). Frozen.
+ */
+export function trainBaseModelOn(texts: readonly Uint32Array[]): PpmModel {
+  const model = new PpmModel({ ...baseModelSettings, adaptive: true });
+  for (const t of texts) model.learnText(t);
+  return model.freeze();
+}
+
 function matchesSettings(model: PpmModel): boolean {
   const s = model.settings;
   return (Object.keys(baseModelSettings) as (keyof PpmSettings)[]).every(

@@ -10,6 +10,7 @@ import { join } from 'node:path';
 import { gzipSync } from 'node:zlib';
 import { joinDocuments, loadBrown } from '../../../corpora/brown';
 import { loadBaseModel } from '../../../corpora/base-model';
+import { baseWordsFile, loadBaseWords } from '../../../corpora/base-words';
 import {
   BlendedModel,
   codeLengthBits,
@@ -23,11 +24,18 @@ import {
 import type { NextSymbolModel } from '../engine/index';
 import { simulateKeystrokes } from '../engine/evaluation/index';
 import { seededRandom } from '../engine/seeded-random';
-import { defaultProfileSettings, trainAndEvaluateProfile, writeProfileFile } from '../engine/profile/index';
+import {
+  defaultProfileSettings,
+  trainAndEvaluateProfile,
+  writeProfileFile,
+  type ProfileResult,
+} from '../engine/profile/index';
 import { nextLetterProbabilities, suggest } from '../engine/search/index';
+import { WordNgramModel, WordPredictor } from '../engine/words/index';
 import { builtInPracticePhrases } from '../trials/practice-phrases';
 import { UsageError } from './cli-errors';
 import { parseArgs } from './args';
+import { latencyFigures, measureSuggestions } from './bench-suggestions';
 
 const SETTINGS = { order: 5, escape: 'C' as const, exclusion: true, updateExclusion: true };
 const TRAIN_CHARS = 1_000_000;
@@ -60,7 +68,7 @@ function sampleRss(): void {
 const mb = (bytes: number): number => Math.round((bytes / 2 ** 20) * 10) / 10;
 
 export async function runBench(args: string[]): Promise<void> {
-  const parsed = parseArgs(args, { flags: ['json', 'profile-only', 'keyboard-only'] });
+  const parsed = parseArgs(args, { flags: ['json', 'profile-only', 'keyboard-only', 'suggestions-only'] });
   if (parsed.positional.length > 0)
     throw new UsageError(`unexpected argument ${JSON.stringify(parsed.positional[0])}`);
   const json = parsed.flags.has('json');
@@ -69,13 +77,16 @@ export async function runBench(args: string[]): Promise<void> {
   };
   const timer = setInterval(sampleRss, 50);
   try {
-    // --profile-only: just the profile pipeline section (about a minute instead of several).
+    // --profile-only: just the profile pipeline section, word and character lists (under two minutes).
     // --keyboard-only: just the test keyboard section (about 20 s).
+    // --suggestions-only: just the word and character lists side by side (about two minutes).
     const report = parsed.flags.has('profile-only')
       ? { profilePipeline: await measureProfile(log) }
       : parsed.flags.has('keyboard-only')
-        ? { testKeyboard: await measureKeyboard(log) }
-        : await measure(log);
+        ? { testKeyboard: await measureKeyboard(log, await demoProfiles(log)) }
+        : parsed.flags.has('suggestions-only')
+          ? { suggestions: measureSuggestions(log, await demoProfiles(log)) }
+          : await measure(log);
     if (json) process.stdout.write(`${JSON.stringify(report)}\n`);
     else process.stdout.write(`${JSON.stringify(report, null, 2)}\n`);
   } finally {
@@ -196,7 +207,10 @@ async function measure(log: (msg: string) => void): Promise<Record<string, unkno
   // counted in its peak, so the profile run's memory must not be there yet.
   const profilePipeline = await measureProfile(log);
   sampleRss();
-  const testKeyboard = await measureKeyboard(log);
+  const demo = await demoProfiles(log);
+  const testKeyboard = await measureKeyboard(log, demo);
+  const suggestions = measureSuggestions(log, demo);
+  sampleRss();
 
   const bpc = qualityBits / testAll.length;
   return {
@@ -263,6 +277,7 @@ async function measure(log: (msg: string) => void): Promise<Record<string, unkno
     },
     profilePipeline,
     testKeyboard,
+    suggestions,
     targets: {
       trainingOrder5AtLeast2MCharsPerSecond: training.order5.mean >= 2_000_000,
       encodeAtLeast1MCharsPerSecond: encode.mean >= 1_000_000,
@@ -273,6 +288,13 @@ async function measure(log: (msg: string) => void): Promise<Record<string, unkno
       qualityAtMost2_10Bpc: bpc <= 2.1,
       profile200kAtMost60s: profilePipeline.seconds <= 60,
       keyboardEngineP95AtMost16Ms: testKeyboard.perKeyPressMs.p95 <= 16,
+      keyboardWordListP95AtMost16Ms: testKeyboard.wordList.perKeyPressMs.p95 <= 16,
+      versionFileWithWordsAtMost2x: testKeyboard.wordList.versionFileRatio <= 2,
+      wordSuggestionP95AtMost5Ms: suggestions.latencyMs.p95 <= 5,
+      wordListKs5AtLeastCharPlus0_03: suggestions.brownSplitA.staticNoBase.ks5WordMinusChar >= 0.03,
+      wordListOffersNoNonWords:
+        suggestions.brownSplitA.nonWordSlots.word.nonWordSlots === 0 &&
+        suggestions.demoSamples.word.nonWordShare === 0,
     },
     sink: sink % 7,
   };
@@ -303,8 +325,10 @@ const PROFILE_CATEGORY = 'fiction';
 /**
  * Trains and evaluates a profile version (engine/profile) on 200,000
  * characters of Brown fiction documents standing in for a client's samples,
- * with the Brown base model: order 5, method C, 5-fold, 1..10 slots, the
- * default keystroke sample cap. Target: under a minute on this machine.
+ * with the Brown base model and vocabulary: order 5, method C, 5-fold, 1..10
+ * slots, the default keystroke sample cap, the word-aware list (timed; target:
+ * under a minute on this machine); then the same with the character-only list
+ * for comparison (its keystroke savings and non-word share beside).
  */
 async function measureProfile(log: (msg: string) => void): Promise<{
   chars: number;
@@ -320,6 +344,8 @@ async function measureProfile(log: (msg: string) => void): Promise<{
   peakRssMbSoFar: number;
   bpcIdeal: number;
   keystrokeSavings5: number;
+  nonWordShare: number;
+  charList: { keystrokeSavings5: number; nonWordShare: number; seconds: number };
   baseWeight: number;
   note: string;
 }> {
@@ -333,17 +359,29 @@ async function measureProfile(log: (msg: string) => void): Promise<{
     chars += text.length;
   }
   const base = loadBaseModel();
+  const baseWords = loadBaseWords();
   let progressCalls = 0;
   const start = performance.now();
   const cpu = process.cpuUsage();
   const { report } = await trainAndEvaluateProfile(
-    { documents: docs, settings: defaultProfileSettings, base, folds: 5 },
+    { documents: docs, settings: defaultProfileSettings, base, baseWords, folds: 5 },
     () => progressCalls++,
   );
   const seconds = (performance.now() - start) / 1000;
   const cpuSeconds = process.cpuUsage(cpu).user / 1e6;
   const stagesMs: Record<string, number> = { ...report.timings };
   delete stagesMs.total;
+  log('profile pipeline: the same with the character-only list');
+  const charStart = performance.now();
+  const { report: charReport } = await trainAndEvaluateProfile({
+    documents: docs,
+    settings: defaultProfileSettings,
+    base,
+    baseWords,
+    folds: 5,
+    predictor: 'char',
+  });
+  const charSeconds = (performance.now() - charStart) / 1000;
   return {
     chars: report.chars,
     documents: report.documents,
@@ -359,6 +397,12 @@ async function measureProfile(log: (msg: string) => void): Promise<{
     peakRssMbSoFar: mb(process.resourceUsage().maxRSS * 1024),
     bpcIdeal: report.bpcIdeal,
     keystrokeSavings5: report.keystrokeSavings['5'],
+    nonWordShare: report.nonWordSlots.share,
+    charList: {
+      keystrokeSavings5: charReport.keystrokeSavings['5'],
+      nonWordShare: charReport.nonWordSlots.share,
+      seconds: Math.round(charSeconds * 10) / 10,
+    },
     baseWeight: report.baseWeight,
     note:
       'The base model was trained on all of Brown, these documents included, so the tuned weight of the base ' +
@@ -370,56 +414,109 @@ const percentile = (sorted: number[], q: number): number =>
   sorted.length === 0 ? 0 : sorted[Math.min(sorted.length - 1, Math.floor(q * sorted.length))];
 const ms3 = (x: number): number => Math.round(x * 1000) / 1000;
 
+/** Times `step` at every position of every built-in practice phrase, typed letter by letter (ms each). */
+function timePerKeyPress(step: (cps: Uint32Array, end: number) => number): number[] {
+  const times: number[] = [];
+  for (const { text } of builtInPracticePhrases) {
+    const cps = prepareText(text);
+    for (let end = 0; end <= cps.length; end++) {
+      const start = performance.now();
+      sink += step(cps, end);
+      times.push(performance.now() - start);
+    }
+  }
+  return times;
+}
+
+/** The demo samples (corpora/demo) as profile documents. */
+function demoDocuments(): { id: string; text: string }[] {
+  const demoDir = join(__dirname, '../../../corpora/demo');
+  return readdirSync(demoDir)
+    .filter((name) => name.endsWith('.txt'))
+    .map((name) => ({ id: name, text: readFileSync(join(demoDir, name), 'utf8') }));
+}
+
 /**
- * What the test keyboard downloads and computes for the demo client: a version trained like the
- * seeded one (the invented demo samples in corpora/demo, default settings, the Brown base), its
- * model file and the base model as raw and gzip -9 bytes (what the browser fetches), the time to
- * load both, and the engine's work per key press (word suggestions for 5 slots plus next-letter
- * probabilities for key tinting) while typing Keyloom's practice phrases letter by letter. The
+ * A version trained like the seeded one (the invented demo samples, default settings, the Brown
+ * base model and vocabulary), once with the word-aware list and once with the character-only list.
+ */
+async function demoProfiles(
+  log: (msg: string) => void,
+): Promise<{ word: ProfileResult; char: ProfileResult }> {
+  log('demo samples: profile pipeline with the word and the character list');
+  const documents = demoDocuments();
+  const input = {
+    documents,
+    settings: defaultProfileSettings,
+    base: loadBaseModel(),
+    baseWords: loadBaseWords(),
+    folds: 5,
+  };
+  return {
+    word: await trainAndEvaluateProfile({ ...input, predictor: 'word' }),
+    char: await trainAndEvaluateProfile({ ...input, predictor: 'char' }),
+  };
+}
+
+/**
+ * What the test keyboard downloads and computes for the demo client (the demo version, word-aware
+ * list): its model file with and without the word model, the base model and the base vocabulary as
+ * raw and gzip -9 bytes (what the browser fetches), the time to load them, and the engine's work
+ * per key press while typing Keyloom's practice phrases letter by letter: with the word-aware list
+ * as the keyboard runs it (the client's word model from the version, the base vocabulary, the
+ * blended character model, learning what is typed: 5 suggestions, next-letter probabilities for
+ * key tinting, then learning the key), and, for comparison, the character-only list (static). The
  * browser test reports the end-to-end figure (key press to updated suggestion row).
  */
-async function measureKeyboard(log: (msg: string) => void): Promise<{
+async function measureKeyboard(
+  log: (msg: string) => void,
+  demo: { word: ProfileResult; char: ProfileResult },
+): Promise<{
   sampleChars: number;
   versionFile: { bytes: number; gzipBytes: number };
   baseModel: { bytes: number; gzipBytes: number };
   loadMs: number;
   blendWeight: number;
   perKeyPressMs: { p50: number; p95: number; max: number; keyPresses: number };
+  wordList: {
+    versionFile: { bytes: number; gzipBytes: number };
+    versionFileRatio: number;
+    baseVocabulary: { bytes: number; gzipBytes: number };
+    loadMs: number;
+    wordWeights: ProfileResult['wordWeights'];
+    perKeyPressMs: { p50: number; p95: number; max: number; keyPresses: number };
+  };
   note: string;
 }> {
   log('test keyboard: demo version sizes and engine time per key press');
-  const demoDir = join(__dirname, '../../../corpora/demo');
-  const documents = readdirSync(demoDir)
-    .filter((name) => name.endsWith('.txt'))
-    .map((name) => ({ id: name, text: readFileSync(join(demoDir, name), 'utf8') }));
-  const base = loadBaseModel();
-  const { modelBytes, blendWeight, report } = await trainAndEvaluateProfile({
-    documents,
-    settings: defaultProfileSettings,
-    base,
-    folds: 5,
-  });
-  const file = writeProfileFile(
-    {
-      format: 'keyloom-profile',
-      client: { pseudonym: 'bench' },
-      version: { id: 'bench', number: 1, status: 'trained', note: null },
-      settings: { ...defaultProfileSettings },
-      blendWeight,
-      baseModelSha256: null,
-      engineVersion: String(report.engineVersion),
-      metrics: {},
-      samples: [],
-      createdAt: new Date(0).toISOString(),
-      trainedAt: null,
-      approvedBy: null,
-      approvedAt: null,
-      exportedAt: new Date(0).toISOString(),
-      exportedBy: 'bench',
-    },
+  const { modelBytes, blendWeight, report, wordModelBytes, wordWeights } = demo.word;
+  const header = {
+    format: 'keyloom-profile' as const,
+    client: { pseudonym: 'bench' },
+    version: { id: 'bench', number: 1, status: 'trained' as const, note: null },
+    settings: { ...defaultProfileSettings },
+    blendWeight,
+    baseModelSha256: null,
+    engineVersion: String(report.engineVersion),
+    metrics: {},
+    samples: [],
+    createdAt: new Date(0).toISOString(),
+    trainedAt: null,
+    approvedBy: null,
+    approvedAt: null,
+    exportedAt: new Date(0).toISOString(),
+    exportedBy: 'bench',
+  };
+  const file = writeProfileFile(header, modelBytes);
+  const fileWithWords = writeProfileFile(
+    { ...header, ...(wordWeights ? { wordWeights } : {}) },
     modelBytes,
+    undefined,
+    wordModelBytes,
   );
+  const base = loadBaseModel();
   const baseBytes = serializeModel(base);
+  const baseWordBytes = readFileSync(baseWordsFile());
   const t0 = performance.now();
   const model = new BlendedModel(
     deserializeModel(modelBytes).freeze(),
@@ -427,21 +524,43 @@ async function measureKeyboard(log: (msg: string) => void): Promise<{
     blendWeight,
   );
   const loadMs = performance.now() - t0;
-  const times: number[] = [];
-  for (const { text } of builtInPracticePhrases) {
-    const cps = prepareText(text);
-    for (let end = 0; end <= cps.length; end++) {
-      const start = performance.now();
-      sink += suggest(model, cps, end, 5).length;
-      sink += nextLetterProbabilities(model, cps, end, { foldCase: true }).length;
-      times.push(performance.now() - start);
-    }
-  }
+  const times = timePerKeyPress(
+    (cps, end) =>
+      suggest(model, cps, end, 5).length +
+      nextLetterProbabilities(model, cps, end, { foldCase: true }).length,
+  );
   times.sort((a, b) => a - b);
+
+  // The word-aware list as the keyboard runs it (it learns what is typed).
+  const t1 = performance.now();
+  const baseWords = loadBaseWords();
+  const personalChar = deserializeModel(modelBytes);
+  personalChar.adaptive = true;
+  const charModel = new BlendedModel(personalChar, deserializeModel(baseBytes).freeze(), blendWeight);
+  const wordModel = wordModelBytes ? WordNgramModel.fromBytes(wordModelBytes) : null;
+  if (wordModel) wordModel.adaptive = true;
+  const list = new WordPredictor({
+    personal: wordModel,
+    base: baseWords,
+    char: charModel,
+    weights: wordWeights ?? { personal: 1, base: 0, lexicon: 0, cache: 0 },
+    capitalize: !defaultProfileSettings.caseFold,
+    adaptive: true,
+  });
+  const wordLoadMs = performance.now() - t1;
+  const wordTimes = timePerKeyPress((cps, end) => {
+    const n =
+      list.suggest(cps, end, 5).length +
+      nextLetterProbabilities(charModel, cps, end, { foldCase: true }).length;
+    if (end < cps.length) list.learn(cps, end);
+    return n;
+  });
+  const wordLatency = latencyFigures(wordTimes);
+  const gz = (bytes: Uint8Array): number => gzipSync(bytes, { level: 9 }).length;
   return {
     sampleChars: report.chars,
-    versionFile: { bytes: file.length, gzipBytes: gzipSync(file, { level: 9 }).length },
-    baseModel: { bytes: baseBytes.length, gzipBytes: gzipSync(baseBytes, { level: 9 }).length },
+    versionFile: { bytes: file.length, gzipBytes: gz(file) },
+    baseModel: { bytes: baseBytes.length, gzipBytes: gz(baseBytes) },
     loadMs: Math.round(loadMs),
     blendWeight,
     perKeyPressMs: {
@@ -450,8 +569,22 @@ async function measureKeyboard(log: (msg: string) => void): Promise<{
       max: ms3(times[times.length - 1] ?? 0),
       keyPresses: times.length,
     },
+    wordList: {
+      versionFile: { bytes: fileWithWords.length, gzipBytes: gz(fileWithWords) },
+      versionFileRatio: Math.round((fileWithWords.length / file.length) * 100) / 100,
+      baseVocabulary: { bytes: baseWordBytes.length, gzipBytes: gz(baseWordBytes) },
+      loadMs: Math.round(wordLoadMs),
+      wordWeights,
+      perKeyPressMs: {
+        p50: wordLatency.p50,
+        p95: wordLatency.p95,
+        max: ms3(Math.max(...wordTimes)),
+        keyPresses: wordTimes.length,
+      },
+    },
     note:
-      'Node, engine only (no worker message, no rendering). The base model is downloaded once per browser ' +
-      'and shared by every version; a version alone is the small file.',
+      'Node, engine only (no worker message, no rendering). The base model and the base vocabulary are ' +
+      'downloaded once per browser and shared by every version; a version alone is the small file. ' +
+      'perKeyPressMs is the character-only list (static); wordList.perKeyPressMs the word-aware list, learning.',
   };
 }

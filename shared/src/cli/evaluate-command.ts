@@ -1,16 +1,20 @@
 // `model evaluate --train <file>... --test <file> [--order 5] [--escape A|B|C|D]
-//   [--exclusion on|off] [--base none|brown] [--base-weight auto|<0..1>]
-//   [--adaptive on|off] [--json]`
+//   [--exclusion on|off] [--base none|brown | --base-corpus <file>...]
+//   [--base-weight auto|<0..1>] [--predictor word|char] [--adaptive on|off] [--json]`
 // Trains on the training files, then measures the test file: ideal and coded
 // bits per character (the coded stream is decoded back and compared),
-// keystroke savings and KSPC for 1..10 slots, scan steps per character.
-// Each measurement starts from its own copy of the trained model, so an
-// adaptive run learns the test text once per measurement, as a device would.
+// keystroke savings and KSPC for 1..10 slots of the chosen list (word-aware
+// by default, or the character-only list), scan steps per character, and how
+// many offered slots are not words of the vocabulary (the training texts'
+// words and the base's). Each measurement starts from its own copy of the
+// trained models, so an adaptive run learns the test text once per
+// measurement, as a device would.
 import { prepareText } from '../engine/index';
-import { evaluateHeldOut } from '../engine/evaluation/index';
+import { evaluateHeldOut, offeredNonWords, type OfferedWordsResult } from '../engine/evaluation/index';
+import type { WordWeights } from '../engine/words/index';
 import { UsageError } from './cli-errors';
 import { onOff, optionValue, parseArgs, readTextFile } from './args';
-import { buildModel, modelChoice, modelOptionNames, readTrainingTexts } from './model-setup';
+import { buildFromArgs, modelFileOptionNames, modelOptionNames, type PredictorKind } from './model-setup';
 
 /** The JSON the command prints (contract: keep these keys). */
 export type EvaluateReport = {
@@ -26,29 +30,40 @@ export type EvaluateReport = {
   scanStepsPerChar: { rowColumn: number; modelOrdered: number };
   adaptive: boolean;
   baseWeight: number;
+  predictor: PredictorKind;
+  /** The word mixture's weights as used (null for the character-only list). */
+  wordWeights: WordWeights | null;
+  /** Offered slots that are not vocabulary words, on the lists of NON_WORD_SLOTS slots. */
+  nonWordSlots: OfferedWordsResult;
   ms: number;
 };
 
 const SLOTS = 10;
+/** List size the offered non-words are counted on (the test keyboard's row). */
+const NON_WORD_SLOTS = 5;
 
 export async function runEvaluate(args: string[]): Promise<void> {
   const parsed = parseArgs(args, {
     single: ['test', 'adaptive', ...modelOptionNames],
-    multi: ['train'],
+    multi: modelFileOptionNames,
     flags: ['json'],
   });
   if (parsed.positional.length > 0)
     throw new UsageError(`unexpected argument ${JSON.stringify(parsed.positional[0])}`);
   const testFile = optionValue(parsed, 'test');
   if (testFile === undefined) throw new UsageError('missing --test <file>');
-  const choice = modelChoice(parsed);
   const adaptive = onOff('adaptive', optionValue(parsed, 'adaptive', 'on'));
   const start = performance.now();
-  const texts = readTrainingTexts(parsed, true);
   const test = prepareText(readTextFile(testFile));
-  const built = buildModel(choice, texts);
+  const { choice, built } = buildFromArgs(parsed, { trainRequired: true, adaptive });
 
-  const measured = evaluateHeldOut((a) => built.fresh(a), test, { adaptive, maxSlots: SLOTS });
+  const measured = evaluateHeldOut((a) => built.fresh(a), test, {
+    adaptive,
+    maxSlots: SLOTS,
+    predictor: built.predictor,
+  });
+  // A list that does not learn while it is read: what it offers stays within the vocabulary.
+  const nonWordSlots = offeredNonWords(built.predictor(false), built.isWord, test, NON_WORD_SLOTS);
   const { bits, codedBytes, roundTrip, keystrokes: ks, scan } = measured;
 
   const perSlot = (values: number[]): Record<string, number> => {
@@ -70,6 +85,9 @@ export async function runEvaluate(args: string[]): Promise<void> {
     scanStepsPerChar: { rowColumn: round(scan.rowColumn), modelOrdered: round(scan.modelOrdered) },
     adaptive,
     baseWeight: round(built.baseWeight),
+    predictor: choice.predictor,
+    wordWeights: built.wordWeights,
+    nonWordSlots,
     ms: Math.round(performance.now() - start),
   };
   if (parsed.flags.has('json')) {
@@ -87,9 +105,18 @@ function humanSummary(r: EvaluateReport, base: string): string {
   const pct = (x: number): string => `${(x * 100).toFixed(1)}%`;
   const lines = [
     `Test text: ${r.chars} characters; order ${r.order}, escape ${r.escape}, ${r.adaptive ? 'adaptive' : 'static'}` +
-      (base === 'none' ? ', no base model' : `, base model weight ${r.baseWeight.toFixed(3)}`),
+      (base === 'none' ? ', no base model' : `, base model weight ${r.baseWeight.toFixed(3)}`) +
+      `, ${r.predictor === 'word' ? 'word-aware' : 'character-only'} list`,
     `Bits per character: ${r.bpcIdeal.toFixed(3)} ideal, ${r.bpcCoded.toFixed(3)} coded (${r.codedBytes} bytes; ` +
       `${r.roundTrip ? 'decodes back exactly' : 'DID NOT DECODE BACK'})`,
+    r.wordWeights
+      ? `Suggestions: vocabulary words only; mixture weights ${Object.entries(r.wordWeights)
+          .map(([k, v]) => `${k} ${v.toFixed(3)}`)
+          .join(', ')}`
+      : 'Suggestions: character-only list (may offer parts of words)',
+    `Offered non-words (${NON_WORD_SLOTS} slots): ${r.nonWordSlots.nonWordSlots} of ${r.nonWordSlots.slots} slots ` +
+      `(${pct(r.nonWordSlots.nonWordShare)}) in ${r.nonWordSlots.lists} lists` +
+      (r.nonWordSlots.examples.length > 0 ? `, e.g. ${r.nonWordSlots.examples.slice(0, 5).join(', ')}` : ''),
     'Slots  keystroke savings  keystrokes per character',
     ...Object.keys(r.keystrokeSavings).map(
       (w) =>

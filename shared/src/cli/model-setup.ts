@@ -1,61 +1,129 @@
-// Building the model the evaluate and suggest commands run: a personal PPM
-// model trained on --train files, optionally blended with the Brown base model.
-import { loadBaseModel } from '../../../corpora/base-model';
+// Building what the evaluate and suggest commands run: a personal PPM model
+// trained on --train files, optionally blended with a base model (Brown, or
+// one trained on --base-corpus files), and the suggestion list on top of it:
+// the word-aware list (default) or the character-only list (--predictor char).
+import { loadBaseModel, trainBaseModelOn } from '../../../corpora/base-model';
+import { buildBaseWords, loadBaseWords } from '../../../corpora/base-words';
 import { type PpmModel, prepareText } from '../engine/index';
 import { freshModel, trainPersonalModel, tuneBlendWeightOnTail } from '../engine/evaluation/index';
 import type { EscapeMethod, NextSymbolModel } from '../engine/index';
+import {
+  CharListPredictor,
+  effectiveWeights,
+  trainWordModel,
+  tuneWordWeightsOnTail,
+  WordPredictor,
+  type BaseWords,
+  type ListPredictor,
+  type WordNgramModel,
+  type WordWeights,
+} from '../engine/words/index';
 import { UsageError } from './cli-errors';
 import { integerIn, numberIn, oneOf, onOff, optionValue, readTextFile, type ParsedArgs } from './args';
 
-/** Options shared by evaluate and suggest. */
-export const modelOptionNames = ['order', 'escape', 'exclusion', 'base', 'base-weight'] as const;
+/** Single-valued options shared by evaluate and suggest. */
+export const modelOptionNames = ['order', 'escape', 'exclusion', 'base', 'base-weight', 'predictor'] as const;
+/** Options taking one or more files, shared by evaluate and suggest. */
+export const modelFileOptionNames = ['train', 'base-corpus'] as const;
+
+export type PredictorKind = 'word' | 'char';
 
 export type ModelChoice = {
   order: number;
   escape: EscapeMethod;
   exclusion: boolean;
-  base: 'none' | 'brown';
+  /** 'corpus': the base character and word models are built from `baseCorpus`. */
+  base: 'none' | 'brown' | 'corpus';
   /** 'auto' or λ in 0..1 (weight of the base model). */
   baseWeight: 'auto' | number;
+  /** The suggestion list: word-aware (only vocabulary words) or character-only. */
+  predictor: PredictorKind;
+  /** --base-corpus files (empty unless base is 'corpus'). */
+  baseCorpus: string[];
 };
 
-/** Reads and checks --order, --escape, --exclusion, --base, --base-weight. */
+/** Reads and checks --order, --escape, --exclusion, --base, --base-corpus, --base-weight, --predictor. */
 export function modelChoice(parsed: ParsedArgs): ModelChoice {
   const weight = optionValue(parsed, 'base-weight', 'auto');
+  const baseCorpus = parsed.values.get('base-corpus') ?? [];
+  const baseOption = optionValue(parsed, 'base');
+  if (baseCorpus.length > 0 && baseOption !== undefined)
+    throw new UsageError('give either --base or --base-corpus, not both (--base-corpus implies a base)');
   return {
     order: integerIn('order', optionValue(parsed, 'order', '5'), 0, 12),
     escape: oneOf('escape', optionValue(parsed, 'escape', 'C'), ['A', 'B', 'C', 'D'] as const),
     exclusion: onOff('exclusion', optionValue(parsed, 'exclusion', 'on')),
-    base: oneOf('base', optionValue(parsed, 'base', 'none'), ['none', 'brown'] as const),
+    base: baseCorpus.length > 0 ? 'corpus' : oneOf('base', baseOption ?? 'none', ['none', 'brown'] as const),
     baseWeight: weight === 'auto' ? 'auto' : numberIn('base-weight', weight, 0, 1),
+    predictor: oneOf('predictor', optionValue(parsed, 'predictor', 'word'), ['word', 'char'] as const),
+    baseCorpus,
   };
 }
 
 /** Reads every --train file (text only) and prepares it (NFC, line endings). */
 export function readTrainingTexts(parsed: ParsedArgs, required: boolean): Uint32Array[] {
   const files = parsed.values.get('train') ?? [];
-  if (required && files.length === 0) throw new UsageError('missing --train <file>... (or use --base brown)');
+  if (required && files.length === 0)
+    throw new UsageError('missing --train <file>... (or use --base brown or --base-corpus <file>...)');
   return files.map((f) => prepareText(readTextFile(f)));
 }
 
-/** A trained personal model plus, when asked, the base model and λ. */
+/** Reads every --base-corpus file (text only), prepared like training text. */
+export function readBaseCorpus(choice: ModelChoice): Uint32Array[] {
+  return choice.baseCorpus.map((f) => prepareText(readTextFile(f)));
+}
+
+/** The base models: character (frozen) and word (frozen), or none. */
+export type BaseModels = { char: PpmModel; words: BaseWords } | null;
+
+/**
+ * The base for a choice: Brown's (cached), one trained on the given texts (the SUBTLEX-US word
+ * list stays in its vocabulary), or none.
+ */
+export function baseModelsFor(choice: ModelChoice, baseTexts: readonly Uint32Array[]): BaseModels {
+  if (choice.base === 'brown') return { char: loadBaseModel(), words: loadBaseWords() };
+  if (choice.base === 'corpus')
+    return { char: trainBaseModelOn(baseTexts), words: buildBaseWords(baseTexts) };
+  return null;
+}
+
+/** A trained personal model plus, when asked, the base model and λ, and the list built on them. */
 export type BuiltModel = {
   personal: PpmModel;
   base?: PpmModel;
   /** λ actually used (0 without a base model). */
   baseWeight: number;
+  /** The client's word model (null for the character-only list, and without training text unless adaptive). */
+  words: WordNgramModel | null;
+  baseWords: BaseWords | null;
+  /** The word mixture's weights (null for the character-only list). */
+  wordWeights: WordWeights | null;
   /** A fresh model to run: clones the personal model, shares the frozen base. */
   fresh(adaptive: boolean): NextSymbolModel;
+  /** A fresh suggestion list of the chosen kind on a fresh model (the word model copied too). */
+  predictor(adaptive: boolean): ListPredictor;
+  /** True for a word of the vocabulary: the training texts' words and the base vocabulary. */
+  isWord(word: string): boolean;
 };
 
 /**
  * Trains the personal model on the training texts (each learned as its own
- * text, no context across files). With the base model and `auto`, λ is tuned
+ * text, no context across files). With a base model and `auto`, λ is tuned
  * on the last 10% of the training text: a personal model trained on the
  * other 90% and the base model are mixed on it (Keyloom never tunes on the
  * test text). Without training text, `auto` means the base model alone.
+ *
+ * The word list: the client's word model (modified Kneser–Ney trigrams, Chen & Goodman 1998) of
+ * the training texts, the base vocabulary, and the mixture's weights tuned on the same 10% tail
+ * (`adaptive`: whether the list will learn, so the recency cache takes part); the blended
+ * character model rescores it; capitals at sentence starts.
  */
-export function buildModel(choice: ModelChoice, texts: readonly Uint32Array[]): BuiltModel {
+export function buildModel(
+  choice: ModelChoice,
+  texts: readonly Uint32Array[],
+  baseModels: BaseModels,
+  adaptive = false,
+): BuiltModel {
   const settings = {
     order: choice.order,
     escape: choice.escape,
@@ -63,18 +131,79 @@ export function buildModel(choice: ModelChoice, texts: readonly Uint32Array[]): 
     adaptive: true,
   };
   const personal = trainPersonalModel(settings, texts);
-  let base: PpmModel | undefined;
+  const base = baseModels?.char;
   let weight = 0;
-  if (choice.base === 'brown') {
-    base = loadBaseModel();
+  if (base)
     weight = choice.baseWeight === 'auto' ? tuneBlendWeightOnTail(settings, texts, base) : choice.baseWeight;
+  const baseWords = baseModels?.words ?? null;
+  const hasText = texts.some((t) => t.length > 0);
+  // A list that learns gets a word model even without training text (it starts empty).
+  const allWords = hasText || adaptive ? trainWordModel(texts) : null;
+  const fresh = (adaptive: boolean): NextSymbolModel => freshModel(personal, base, weight, adaptive);
+  const vocabulary =
+    allWords || baseWords
+      ? new WordPredictor({
+          personal: allWords,
+          base: baseWords,
+          char: null,
+          weights: { personal: 1, base: 1, lexicon: 1, cache: 0 },
+          capitalize: true,
+          adaptive: false,
+        })
+      : null;
+  const isWord = (word: string): boolean => vocabulary?.inVocabulary(word) ?? false;
+  if (choice.predictor === 'char') {
+    return {
+      personal,
+      base,
+      baseWeight: weight,
+      words: null,
+      baseWords,
+      wordWeights: null,
+      fresh,
+      predictor: (adaptive) => new CharListPredictor(fresh(adaptive), adaptive),
+      isWord,
+    };
   }
+  if (!vocabulary)
+    throw new UsageError('the word list needs training text or a base (--base brown or --base-corpus)');
+  const wordWeights = effectiveWeights({
+    personal: allWords,
+    base: baseWords,
+    adaptive,
+    weights: tuneWordWeightsOnTail(texts, baseWords, adaptive),
+  });
   return {
     personal,
     base,
     baseWeight: weight,
-    fresh(adaptive: boolean): NextSymbolModel {
-      return freshModel(personal, base, weight, adaptive);
-    },
+    words: allWords,
+    baseWords,
+    wordWeights,
+    fresh,
+    predictor: (adaptive) =>
+      new WordPredictor({
+        personal: allWords ? allWords.clone() : null,
+        base: baseWords,
+        char: fresh(adaptive),
+        weights: wordWeights,
+        capitalize: true,
+        adaptive,
+      }),
+    isWord,
   };
+}
+
+/**
+ * What evaluate and suggest both do with their arguments: read the model options, the --train
+ * files (required unless a base is given or `trainRequired`), the base, and build.
+ */
+export function buildFromArgs(
+  parsed: ParsedArgs,
+  options: { trainRequired: boolean; adaptive: boolean },
+): { choice: ModelChoice; built: BuiltModel } {
+  const choice = modelChoice(parsed);
+  const texts = readTrainingTexts(parsed, options.trainRequired || choice.base === 'none');
+  const base = baseModelsFor(choice, readBaseCorpus(choice));
+  return { choice, built: buildModel(choice, texts, base, options.adaptive) };
 }

@@ -1,18 +1,19 @@
-// `model suggest --train <file>... [--base none|brown] --context "<text>"
-//   [--slots 5] [--json]`
+// `model suggest --train <file>... [--base none|brown | --base-corpus <file>...]
+//   [--predictor word|char] --context "<text>" [--slots 5] [--json]`
 // Prints the suggestion list for the end of the context: a JSON array of
-// {"word", "p"} with --json. Without --train, --base brown is required and
-// the base model is used alone.
+// {"word", "p"} with --json. Without --train, a base (--base brown or
+// --base-corpus) is required and is used alone. --predictor word (default)
+// offers only words of the vocabulary (the training texts' words and the
+// base's); char is the character-only list, kept for comparison.
 import { prepareText } from '../engine/index';
-import { suggest } from '../engine/search/index';
 import { UsageError } from './cli-errors';
 import { integerIn, optionValue, parseArgs } from './args';
-import { buildModel, modelChoice, modelOptionNames, readTrainingTexts } from './model-setup';
+import { buildFromArgs, modelFileOptionNames, modelOptionNames } from './model-setup';
 
 export async function runSuggest(args: string[]): Promise<void> {
   const parsed = parseArgs(args, {
     single: ['context', 'slots', ...modelOptionNames],
-    multi: ['train'],
+    multi: modelFileOptionNames,
     flags: ['json'],
   });
   if (parsed.positional.length > 0)
@@ -20,11 +21,9 @@ export async function runSuggest(args: string[]): Promise<void> {
   const context = optionValue(parsed, 'context');
   if (context === undefined) throw new UsageError('missing --context "<text>"');
   const slots = integerIn('slots', optionValue(parsed, 'slots', '5'), 1, 100);
-  const choice = modelChoice(parsed);
-  const texts = readTrainingTexts(parsed, choice.base === 'none');
-  const model = buildModel(choice, texts).fresh(false);
+  const predictor = buildFromArgs(parsed, { trainRequired: false, adaptive: false }).built.predictor(false);
   const history = prepareText(context);
-  const list = suggest(model, history, history.length, slots);
+  const list = predictor.suggest(history, history.length, slots);
   if (parsed.flags.has('json')) {
     process.stdout.write(
       `${JSON.stringify(list.map((s) => ({ word: s.word, p: Number(s.p.toPrecision(6)) })))}\n`,

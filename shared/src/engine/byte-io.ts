@@ -47,6 +47,13 @@ export class ByteWriter {
     for (let i = 0; i < 4; i++) this.bytes[this.length++] = (v >>> (8 * i)) & 0xff;
   }
 
+  /** IEEE 754 double, little-endian (8 bytes). */
+  f64(v: number): void {
+    this.room(8);
+    new DataView(this.bytes.buffer).setFloat64(this.length, v, true);
+    this.length += 8;
+  }
+
   /** Unsigned integer 0..2^53, 7 bits per byte, low bits first. */
   varint(v: number): void {
     this.room(8);
@@ -89,6 +96,16 @@ export class ByteReader {
     this.need(4);
     let v = 0;
     for (let i = 0; i < 4; i++) v += this.bytes[this.position++] * 2 ** (8 * i);
+    return v;
+  }
+
+  f64(): number {
+    this.need(8);
+    const v = new DataView(this.bytes.buffer, this.bytes.byteOffset, this.bytes.byteLength).getFloat64(
+      this.position,
+      true,
+    );
+    this.position += 8;
     return v;
   }
 

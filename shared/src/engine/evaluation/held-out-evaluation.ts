@@ -14,6 +14,7 @@ import type { NextSymbolModel } from '../model-types';
 import { PpmModel } from '../ppm-model';
 import type { PpmSettings } from '../ppm-settings';
 import { codeLengthBits, decodeText, encodeText } from '../text-coding';
+import type { ListPredictor } from '../words/word-predictor';
 import { simulateKeystrokes, type KeystrokeResult, type WordVisit } from './keystroke-savings';
 import { scanCosts, type ScanCostResult } from './scan-cost';
 
@@ -95,6 +96,11 @@ export type HeldOutOptions = {
   keystrokeText?: Uint32Array;
   /** Called after each word of the keystroke simulation (see simulateKeystrokes). */
   onWord?: (visit: WordVisit) => void;
+  /**
+   * A fresh suggestion list for the keystroke simulation (e.g. the word-aware list); default: the
+   * character-only list on `fresh(adaptive)`. Bits and scan steps always use `fresh`.
+   */
+  predictor?: (adaptive: boolean) => ListPredictor;
 };
 
 export type HeldOutResult = {
@@ -120,7 +126,8 @@ export function evaluateHeldOut(
   const { adaptive } = options;
   const bits = codeLengthBits(fresh(adaptive), test, { adaptive });
   const coding = codeAndCheck(fresh(adaptive), fresh(adaptive), test);
-  const keystrokes = simulateKeystrokes(fresh(adaptive), options.keystrokeText ?? test, {
+  const list = options.predictor ? options.predictor(adaptive) : fresh(adaptive);
+  const keystrokes = simulateKeystrokes(list, options.keystrokeText ?? test, {
     maxSlots: options.maxSlots,
     adaptive,
     onWord: options.onWord,

@@ -4,7 +4,11 @@ import { describe, expect, it } from 'vitest';
 import { PpmModel } from '../ppm-model';
 import { serializeModel } from '../model-serialization';
 import { prepareText } from '../text-preparation';
+import { WordNgramModel } from '../words/word-ngram-model';
+import { trainWordModel } from '../words/word-training';
 import {
+  PROFILE_FILE_SIGNED_WORDS_VERSION,
+  PROFILE_FILE_WORDS_VERSION,
   type ProfileFileHeader,
   ProfileFileError,
   readProfileFile,
@@ -119,6 +123,82 @@ describe('profile file (.klprofile)', () => {
       expect(() => readProfileFile(damaged)).toThrow(/checksum does not match/);
       expect(() => readProfileFile(bytes.subarray(0, bytes.length - 32))).toThrow(/cut short/);
       expect(() => writeProfileFile(header(), model(), () => new Uint8Array(20))).toThrow(/32 bytes/);
+    });
+  });
+
+  describe('layouts 3 and 4: the client’s word model after the PPM model', () => {
+    const key = Buffer.from('another invented test key, 32 bytes or more', 'utf8');
+    const sign = (bytes: Uint8Array) => new Uint8Array(createHmac('sha256', key).update(bytes).digest());
+    const wordModel = trainWordModel([prepareText(text)]);
+    const words = wordModel.toBytes();
+    const withWeights = (): ProfileFileHeader => ({
+      ...header(),
+      wordWeights: { personal: 0.55, base: 0.3, lexicon: 0.05, cache: 0.1 },
+    });
+
+    it('round-trips the word model unsigned (layout 3) and signed (layout 4)', () => {
+      for (const signer of [undefined, sign]) {
+        const bytes = writeProfileFile(withWeights(), model(), signer, words);
+        const view = new DataView(bytes.buffer);
+        expect(view.getUint16(4, true)).toBe(
+          signer ? PROFILE_FILE_SIGNED_WORDS_VERSION : PROFILE_FILE_WORDS_VERSION,
+        );
+        const read = verifyProfileFile(bytes);
+        expect(read.header).toEqual(withWeights());
+        expect([...read.model]).toEqual([...model()]);
+        expect(read.words && [...read.words]).toEqual([...words]);
+        expect(read.vocabularyWords).toBe(wordModel.vocabularySize);
+        expect(read.vocabularyWords).toBeGreaterThan(30);
+        const back = WordNgramModel.fromBytes(read.words as Uint8Array);
+        expect(back.probability('<s>', '<s>', 'pepper')).toBe(wordModel.probability('<s>', '<s>', 'pepper'));
+        expect(view.getUint32(bytes.length - 4, true)).toBe(
+          zlibCrc32(Buffer.from(bytes.subarray(0, bytes.length - 4))),
+        );
+        if (signer) {
+          // The signature covers the word model too: everything before it.
+          expect(read.signedBytes.length).toBe(bytes.length - 4 - 32);
+          expect(read.signature && [...read.signature]).toEqual([...sign(read.signedBytes)]);
+        } else expect(read.signature).toBeNull();
+      }
+    });
+
+    it('still reads layouts 1 and 2 written without words (words null)', () => {
+      for (const signer of [undefined, sign]) {
+        const read = verifyProfileFile(writeProfileFile(header(), model(), signer, null));
+        expect(read.words).toBeNull();
+        expect(read.vocabularyWords).toBe(0);
+        expect(read.header.wordWeights).toBeUndefined();
+      }
+      expect(
+        new DataView(writeProfileFile(header(), model(), undefined, null).buffer).getUint16(4, true),
+      ).toBe(1);
+    });
+
+    it('refuses a word section cut short, with a clear message', () => {
+      const bytes = writeProfileFile(withWeights(), model(), undefined, words);
+      const wordsAt = bytes.length - 4 - words.length - 4;
+      // Cut inside the word model's length field, then inside the word model.
+      expect(() => readProfileFile(bytes.subarray(0, wordsAt + 2))).toThrow(/ends before its word model/);
+      expect(() => readProfileFile(bytes.subarray(0, wordsAt + 4 + 10))).toThrow(
+        /cut short: it should be \d+ bytes long/,
+      );
+      for (let cut = wordsAt; cut < bytes.length; cut += 13)
+        expect(() => verifyProfileFile(bytes.subarray(0, cut)), `${cut} bytes`).toThrow(ProfileFileError);
+    });
+
+    it('refuses a good checksum over a word model that does not load', () => {
+      const junk = writeProfileFile(withWeights(), model(), undefined, words.subarray(0, words.length - 1));
+      expect(() => readProfileFile(junk)).not.toThrow();
+      expect(() => verifyProfileFile(junk)).toThrow(/word model inside cannot be read/);
+    });
+
+    it('refuses any single changed byte of a file with words', () => {
+      const bytes = writeProfileFile(withWeights(), model(), sign, words);
+      for (let i = 0; i < bytes.length; i += 5) {
+        const damaged = bytes.slice();
+        damaged[i] ^= 0x10;
+        expect(() => verifyProfileFile(damaged), `byte ${i}`).toThrow(ProfileFileError);
+      }
     });
   });
 

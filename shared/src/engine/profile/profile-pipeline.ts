@@ -36,7 +36,7 @@ import { DEFAULT_LIST_READ_MS, profileRates, type RateReport } from './profile-r
 import { checkProfileSettings, type ProfileSettings } from './profile-settings';
 
 /** Version of the engine that made a report; stored with each profile version. */
-export const ENGINE_VERSION = 'keyloom-engine/2 (model layout 1, word model layout 1, profile report 2)';
+export const ENGINE_VERSION = 'keyloom-engine/2 (model layout 1, word model layout 2, profile report 2)';
 /** Fewest characters (after preparation, all samples together) a profile is trained on. */
 export const MIN_PROFILE_CHARS = 500;
 /** Largest suggestion list measured. */

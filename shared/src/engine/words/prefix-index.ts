@@ -11,6 +11,14 @@ export class TopList {
     return this.ids.length < this.limit ? -Infinity : this.scores[this.scores.length - 1];
   }
 
+  /** Takes `id` out of the list (no-op when absent). */
+  remove(id: number): void {
+    const at = this.ids.indexOf(id);
+    if (at < 0) return;
+    this.ids.splice(at, 1);
+    this.scores.splice(at, 1);
+  }
+
   offer(id: number, score: number): void {
     if (this.ids.length === this.limit && !(score > this.scores[this.scores.length - 1])) return;
     let i = this.ids.length;
@@ -64,7 +72,6 @@ export class PrefixIndex {
   /** [from, to) of the keys that start with `prefix`. */
   range(prefix: string): [number, number] {
     const from = this.lowerBound(prefix);
-    let to = from;
     if (prefix === '') return [0, this.keys.length];
     // Keys starting with the prefix are contiguous; the range ends before the first that does not.
     let lo = from;
@@ -74,8 +81,7 @@ export class PrefixIndex {
       if (this.keys[mid].startsWith(prefix)) lo = mid + 1;
       else hi = mid;
     }
-    to = lo;
-    return [from, to];
+    return [from, lo];
   }
 
   /** The `limit` best ids among keys starting with `prefix`, by `score(id)`. */

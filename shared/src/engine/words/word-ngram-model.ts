@@ -43,7 +43,7 @@ const MAGIC = [0x8b, 0x4b, 0x4c, 0x57]; // 0x8B "KLW"
  * practice, no source: a word that is also a name, like "park" or "bill", is offered as the word).
  */
 export const LOWER_CASE_SHARE = 0.25;
-const LAYOUT_VERSION = 1;
+const LAYOUT_VERSION = 2;
 
 /** The three discounts of one order: for a count of 1, of 2, of 3 or more. */
 export type OrderDiscounts = [number, number, number];
@@ -155,6 +155,8 @@ export class WordNgramModel {
     let t2 = this.order2.get(v);
     if (!t2) this.order2.set(v, (t2 = new FollowerTable()));
     if (!t2.add(w)) return;
+    // The placeholder is outside the vocabulary: no unigram (its count is not in the file either).
+    if (w === UNKNOWN_ID) return;
     this.noteContinuation(this.continuation[w], 1);
     if (this.continuation[w]++ === 0) this.continuationDistinct++;
     this.continuationTotal++;
@@ -187,7 +189,10 @@ export class WordNgramModel {
     if (!this.adaptive) return;
     const w = this.intern(key);
     this.noteForm(w, form, sentenceStart);
-    this.addTrigram(this.intern(u), this.intern(v), w);
+    // A context word the model never learned as a word (a list that starts on text it did not
+    // type) is context only: it reads as the placeholder and does not join the vocabulary.
+    const ctx = (k: string): number => this.ids.get(k) ?? UNKNOWN_ID;
+    this.addTrigram(ctx(u), ctx(v), w);
   }
 
   /** Sets the discounts from the counts of counts (call when training ends). */
@@ -321,8 +326,8 @@ export class WordNgramModel {
   }
 
   /**
-   * Layout 1 (little-endian, varints as in model-serialization.ts): magic 8B 4B 4C 57, version,
-   * discounts ×1e6 (9 × u32: orders 1..3, each for counts 1, 2, 3+), V words (varint), per word from id 2: key (varint length + UTF-8),
+   * Layout 2 (little-endian, varints as in model-serialization.ts): magic 8B 4B 4C 57, version,
+   * discounts (9 × f64: orders 1..3, each for counts 1, 2, 3+), V words (varint), per word from id 2: key (varint length + UTF-8),
    * count, mid count, continuation count, n other forms × (form, count), start form (length 0 =
    * none); then order 2: tables (varint), per table v, size, size × (id delta, count); then order 3:
    * tables, per table u, v, size, size × (id delta, count); CRC-32 of all bytes before it.
@@ -331,7 +336,7 @@ export class WordNgramModel {
     const w = new ByteWriter();
     for (const b of MAGIC) w.u8(b);
     w.u8(LAYOUT_VERSION);
-    for (const order of this.discounts) for (const d of order) w.u32(Math.round(d * 1e6));
+    for (const order of this.discounts) for (const d of order) w.f64(d);
     const str = (s: string): void => {
       const b = encodeUtf8(codePointsOf(s));
       w.varint(b.length);
@@ -376,9 +381,9 @@ export class WordNgramModel {
     return w.result();
   }
 
-  /** Reads layout 1. @throws FormatError naming what is wrong */
+  /** Reads layout 2 (layout 1, with discounts rounded to 1e-6, was never released). @throws FormatError naming what is wrong */
   static fromBytes(bytes: Uint8Array): WordNgramModel {
-    if (bytes.length < 46) throw new FormatError('word model: too short');
+    if (bytes.length < 84) throw new FormatError('word model: too short');
     for (let i = 0; i < 4; i++)
       if (bytes[i] !== MAGIC[i]) throw new FormatError('word model: not a Keyloom word model (wrong magic)');
     const stored = new ByteReader(bytes.subarray(bytes.length - 4)).u32();
@@ -389,7 +394,12 @@ export class WordNgramModel {
     const version = r.u8();
     if (version !== LAYOUT_VERSION) throw new FormatError(`word model: layout ${version} is not supported`);
     const m = new WordNgramModel();
-    const d = (): OrderDiscounts => [r.u32() / 1e6, r.u32() / 1e6, r.u32() / 1e6];
+    const d = (): OrderDiscounts => {
+      const read = [r.f64(), r.f64(), r.f64()];
+      if (!read.every((x, k) => Number.isFinite(x) && x >= 0 && x <= k + 1))
+        throw new FormatError('word model: damaged (a discount out of range)');
+      return read as OrderDiscounts;
+    };
     m.discounts = [d(), d(), d()];
     const str = (): string => {
       const n = r.varint();

@@ -23,19 +23,26 @@
 // it may reorder but not add to. `p` is the score renormalised over the words it scored.
 import type { NextSymbolModel } from '../model-types';
 import { Distribution } from '../model-types';
-import { CharClass, charClass, toCodePoints, wordStart } from '../search/word-chars';
+import * as wordChars from '../search/word-chars';
 import { PrefixIndex, TopList } from './prefix-index';
 import { RecencyCache } from './recency-cache';
 import type { WordLexicon } from './word-lexicon';
 import type { WordNgramModel } from './word-ngram-model';
-import {
+import * as tokens from './word-tokens';
+
+// Local copies: under CommonJS interop every access to an imported binding goes through a getter,
+// which showed up in the keystroke simulation's profile.
+const { CharClass, charClass, toCodePoints, wordStart } = wordChars;
+const {
   atSentenceStart,
   caseForOffer,
+  isContextMark,
   isOfferable,
   precedingKeys,
   UNKNOWN_WORD,
+  wordEndAt,
   wordKey,
-} from './word-tokens';
+} = tokens;
 
 /** One suggested word and its share of the mixture among the candidates considered (0 < p ≤ 1). */
 export type WordSuggestion = { word: string; p: number };
@@ -149,6 +156,11 @@ export class WordPredictor implements ListPredictor {
   private readonly personalIndex: PrefixIndex;
   private readonly baseIndex: BaseIndex | null;
   private readonly baseMemo = new Map<string, string[]>();
+  /**
+   * The client's commonest words per short prefix (up to MEMO_PREFIX letters), kept up to date as
+   * words are learned (counts only grow, so a learned word can only move up or enter a list).
+   */
+  private readonly personalMemo = new Map<string, TopList>();
 
   constructor(parts: WordPredictorParts) {
     this.personal = parts.personal;
@@ -201,6 +213,18 @@ export class WordPredictor implements ListPredictor {
     if (p && pid > 1) return p.startForm(pid);
     if (b && bid > 1) return b.startForm(bid);
     return key;
+  }
+
+  /** After `key` was learned: its count grew, so it may move up in, or enter, the memoised lists of its prefixes. */
+  private refreshPersonalMemo(key: string): void {
+    const p = this.personal as WordNgramModel;
+    const id = p.idOf(key);
+    for (let n = 0; n <= Math.min(MEMO_PREFIX, key.length); n++) {
+      const top = this.personalMemo.get(key.slice(0, n));
+      if (!top) continue;
+      top.remove(id);
+      top.offer(id, p.counts[id]);
+    }
   }
 
   /** The four word components' mixture for one key in context. */
@@ -260,8 +284,12 @@ export class WordPredictor implements ListPredictor {
     if (p && this.weights.personal > 0) {
       fromTables(p, pu, pv);
       const counts = p.counts;
-      for (const id of this.personalIndex.top(prefixKey, PER_SOURCE, (id) => counts[id]).ids)
-        candidates.add(p.keys[id]);
+      let top = prefixKey.length <= MEMO_PREFIX ? this.personalMemo.get(prefixKey) : undefined;
+      if (!top) {
+        top = this.personalIndex.top(prefixKey, PER_SOURCE, (id) => counts[id]);
+        if (prefixKey.length <= MEMO_PREFIX) this.personalMemo.set(prefixKey, top);
+      }
+      for (const id of top.ids) candidates.add(p.keys[id]);
     }
     if (this.base && (this.weights.base > 0 || this.weights.lexicon > 0)) {
       if (b && this.weights.base > 0) fromTables(b, bu, bv);
@@ -377,16 +405,30 @@ export class WordPredictor implements ListPredictor {
   /**
    * Learns `history[end]`: the character model learns it; when it ends a word (a boundary after
    * word characters), the word enters the client's word model (so it can be offered from the next
-   * list on) and the recency cache. Only when adaptive.
+   * list on) and the recency cache; a context mark (comma, colon, semicolon, quote, bracket)
+   * enters the word model as a token, as training counts it. Only when adaptive.
    */
   learn(history: ArrayLike<number>, end: number): void {
     if (!this.adaptive) return;
     this.char?.learn(history, end);
     if (end >= history.length || charClass(history[end]) !== CharClass.Boundary) return;
     const begin = wordStart(history, end);
-    if (begin === end) return;
+    if (begin < end) this.learnWordBefore(history, begin, end);
+    // A comma, colon, semicolon, quote or bracket is a token of the word model, as in sentencesOf
+    // (a run of the same mark is one token).
+    if (this.personal && isContextMark(history[end])) {
+      const [u, v] = precedingKeys(history, end);
+      const mark = String.fromCodePoint(history[end]);
+      if (v !== mark) this.personal.learnWord(u, v, mark, mark, false);
+    }
+  }
+
+  /** Learns the word history[begin..end), ended by the boundary at `end`. */
+  private learnWordBefore(history: ArrayLike<number>, begin: number, end: number): void {
+    // A joiner typed after the word (a closing quote: 'no') is not part of it, as in sentencesOf.
+    const last = wordEndAt(history, begin, end);
     let form = '';
-    for (let i = begin; i < end; i++) form += String.fromCodePoint(history[i]);
+    for (let i = begin; i < last; i++) form += String.fromCodePoint(history[i]);
     const [u, v] = precedingKeys(history, begin);
     const placeholder =
       begin > 0 && history[begin - 1] === PLACEHOLDER_OPEN && history[end] === PLACEHOLDER_CLOSE;
@@ -395,6 +437,7 @@ export class WordPredictor implements ListPredictor {
       const known = this.personal.has(key);
       this.personal.learnWord(u, v, key, form, atSentenceStart(history, begin));
       if (!known && isOfferable(key)) this.personalIndex.insert(key, this.personal.idOf(key));
+      if (isOfferable(key)) this.refreshPersonalMemo(key);
     }
     if (isOfferable(key)) this.cache.add(key);
   }

@@ -2,7 +2,10 @@
 // character search (search/word-chars.ts), a key for counting (lower case,
 // typographic apostrophe and hyphen mapped to the plain ones), sentence
 // breaks, and redaction placeholders kept out of the vocabulary.
-import { CharClass, charClass, wordStart } from '../search/word-chars';
+import * as wordChars from '../search/word-chars';
+
+// Local copies: under CommonJS interop every access to an imported binding goes through a getter.
+const { CharClass, charClass, wordStart } = wordChars;
 
 /** Key of the sentence-start pad (never offered, never a display form). */
 export const SENTENCE_START = '<s>';
@@ -19,6 +22,11 @@ const LETTER = /\p{L}/u;
  * the word after the same word without it). Never offered: their keys hold no letter.
  */
 const CONTEXT_PUNCTUATION = new Set([0x2c, 0x3b, 0x3a, 0x22, 0x28, 0x29, 0x201c, 0x201d]);
+
+/** True for a mark that is a token of the word context (a comma, colon, semicolon, quote or bracket). */
+export function isContextMark(codePoint: number): boolean {
+  return CONTEXT_PUNCTUATION.has(codePoint);
+}
 
 /** Sentence ends: . ! ? and line breaks (a new line starts a new message or paragraph). */
 export function isSentenceEnd(codePoint: number): boolean {
@@ -150,14 +158,15 @@ export function precedingKeys(history: ArrayLike<number>, end: number): [string,
 }
 
 /**
- * True when a word starting at `wordBegin` would begin a sentence: nothing but spaces, quotes
- * and brackets since the start of the text or the last sentence end.
+ * True when a word starting at `wordBegin` would begin a sentence: nothing but spaces, quotes,
+ * brackets and hyphens or apostrophes outside words (a list's "- ") since the start of the text or
+ * the last sentence end, as in sentencesOf.
  */
 export function atSentenceStart(history: ArrayLike<number>, wordBegin: number): boolean {
   for (let i = wordBegin - 1; i >= 0; i--) {
     const c = history[i];
     if (isSentenceEnd(c)) return true;
-    if (charClass(c) !== CharClass.Boundary) return false;
+    if (charClass(c) === CharClass.Word) return false;
     // Commas, colons, semicolons and dashes continue a sentence.
     if (c === 0x2c || c === 0x3a || c === 0x3b) return false;
   }

@@ -1,0 +1,15 @@
+// The invented demo samples of the Willowmere demo clinic (corpora/demo/*.txt), prepared as the
+// engine prepares any text. Node only (tests and checks).
+import { readdirSync, readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { prepareText } from '../shared/src/engine/index';
+
+const demoDir = join(__dirname, 'demo');
+
+/** The demo samples' names (*.txt, sorted) and texts. */
+export function demoSamples(): { name: string; text: Uint32Array }[] {
+  return readdirSync(demoDir)
+    .filter((name) => name.endsWith('.txt'))
+    .sort()
+    .map((name) => ({ name, text: prepareText(readFileSync(join(demoDir, name), 'utf8')) }));
+}
