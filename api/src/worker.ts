@@ -14,6 +14,7 @@ import {
 import { installProcessGuards } from './jobs/process-guards';
 import {
   readBaseModelFile,
+  readBaseWordsFile,
   runProfileTraining,
   type TrainingRuntime,
 } from './profile-versions/profile-training';
@@ -58,14 +59,19 @@ async function main(): Promise<void> {
   const started = Date.now();
   // Read once; every training thread deserializes these same bytes, whose hash each version stores.
   const baseModel = readBaseModelFile();
-  const threads = new TrainingThreads(sharedBytes(baseModel.bytes));
+  const baseWords = readBaseWordsFile();
+  const threads = new TrainingThreads(sharedBytes(baseModel.bytes), sharedBytes(baseWords.bytes));
   const runtime: TrainingRuntime = {
     base: null,
     baseModelSha256: baseModel.sha256,
+    baseWordsSha256: baseWords.sha256,
     folds: env.PROFILE_FOLDS,
     trainer: threads.trainer,
   };
-  logger.log(`Base model read in ${Date.now() - started} ms (sha256 ${baseModel.sha256.slice(0, 12)}…)`);
+  logger.log(
+    `Base model and vocabulary read in ${Date.now() - started} ms (sha256 ${baseModel.sha256.slice(0, 12)}…, ` +
+      `${baseWords.sha256.slice(0, 12)}…)`,
+  );
 
   const boss = createJobBoss(env.DATABASE_URL, { supervise: true });
   boss.on('error', (error) => logger.error(`pg-boss: ${error.message}`));

@@ -239,6 +239,7 @@ describe('profile versions (HTTP)', () => {
         documents: rows[0].samples.map((s) => ({ id: s.id, text: s.text })),
         settings: rows[0].settings,
         base: runtime.base,
+        baseWords: runtime.baseWords,
         folds: stored.folds,
         ksSampleChars: stored.ksSampleChars,
       });
@@ -619,13 +620,16 @@ describe('profile versions (HTTP)', () => {
     // The file's parts, read by hand from the layout documented in shared/src/engine/README.md (not with
     // the engine's reader), as someone editing the file with a hex editor would.
     function parts(file: Buffer) {
+      const layout = file.readUInt16LE(4);
       const headerLength = file.readUInt32LE(6);
       const modelAt = 10 + headerLength;
-      const modelEnd = modelAt + 4 + file.readUInt32LE(modelAt);
+      let modelEnd = modelAt + 4 + file.readUInt32LE(modelAt);
+      // Layouts 3 and 4: the word model's length and bytes follow the model.
+      if (layout === 3 || layout === 4) modelEnd += 4 + file.readUInt32LE(modelEnd);
       return {
-        layout: file.readUInt16LE(4),
+        layout,
         header: JSON.parse(file.subarray(10, modelAt).toString('utf8')) as Record<string, unknown>,
-        modelPart: file.subarray(modelAt, modelEnd), // the model length and the model
+        modelPart: file.subarray(modelAt, modelEnd), // the model (and word model), each after its length
         signature: file.subarray(modelEnd, file.length - 4),
       };
     }
@@ -663,7 +667,7 @@ describe('profile versions (HTTP)', () => {
         );
         const key = Buffer.from(value, 'base64');
         expect(key).toHaveLength(32);
-        expect(pieces.layout).toBe(2);
+        expect(pieces.layout).toBe(4); // signed, with the client's word model
         const expected = createHmac('sha256', key).update(file.subarray(0, signedEnd())).digest();
         expect(pieces.signature.equals(expected)).toBe(true);
       });
@@ -690,7 +694,8 @@ describe('profile versions (HTTP)', () => {
       });
 
       it('reads a file in the unsigned layout (exported before signing) and says it is not signed', async () => {
-        const unsigned = await check(assemble(1, pieces.header, pieces.modelPart, Buffer.alloc(0)));
+        // Layout 3: the unsigned layout of a file with a word model (as 1 is of one without).
+        const unsigned = await check(assemble(3, pieces.header, pieces.modelPart, Buffer.alloc(0)));
         expect(unsigned.valid).toBe(false);
         expect([unsigned.intact, unsigned.authenticity]).toEqual([true, 'unsigned']);
       });

@@ -18,6 +18,7 @@ import {
   inProcessTrainer,
   loadTrainingRuntime,
   readBaseModelFile,
+  readBaseWordsFile,
   type Trainer,
   type TrainerInput,
 } from '../src/profile-versions/profile-training';
@@ -267,9 +268,10 @@ describe('job worker process', () => {
 
   it('training in a thread leaves the event loop free; the same training in-process stalls it', async () => {
     const { bytes } = readBaseModelFile();
+    const words = readBaseWordsFile();
     // eslint-disable-next-line @typescript-eslint/no-require-imports -- the built module, so its thread file exists
     const { TrainingThreads, sharedBytes } = require(THREADS_JS) as typeof TrainingThreadsModule;
-    const threads = new TrainingThreads(sharedBytes(bytes));
+    const threads = new TrainingThreads(sharedBytes(bytes), sharedBytes(words.bytes));
     const input: TrainerInput = {
       documents: [
         { id: 'a', text: inventedText(20_000, 5) },
@@ -296,11 +298,20 @@ describe('job worker process', () => {
       );
     try {
       const inThread = await run(threads.trainer);
-      const inProcess = await run(inProcessTrainer(loadTrainingRuntime(2).base));
+      const runtime = loadTrainingRuntime(2);
+      const inProcess = await run(inProcessTrainer(runtime.base, runtime.baseWords ?? null));
       // Same input, same engine: the same model either way.
       expect(Buffer.from(inThread.value.modelBytes).equals(Buffer.from(inProcess.value.modelBytes))).toBe(
         true,
       );
+      // The thread had the base vocabulary too: the same word model and mixture weights.
+      expect(inThread.value.wordModelBytes).not.toBeNull();
+      expect(
+        Buffer.from(inThread.value.wordModelBytes ?? []).equals(
+          Buffer.from(inProcess.value.wordModelBytes ?? []),
+        ),
+      ).toBe(true);
+      expect(inThread.value.wordWeights).toEqual(inProcess.value.wordWeights);
       console.log(
         `Longest event-loop stall while training 40,000 characters: in a thread ${inThread.stall} ms, in-process ${inProcess.stall} ms`,
       );

@@ -4,7 +4,14 @@
 // driven by the Space switch at 150 ms; dwell by hovering; axe in every mode with screenshots;
 // the key-press → suggestion-row latency (p50/p95) and the download sizes are printed for the
 // note; then sign-off is accepted, the supervisor approves, and the keyboard opens the active version.
+// Every suggestion shown while typing is a word of the vocabulary: the base vocabulary (downloaded
+// here as the keyboard does) or a word of the demo client's samples (corpora/demo, read here).
+import { deserializeBaseWords, prepareText, sentencesOf, wordKey } from '@keyloom/shared';
 import assert from 'node:assert/strict';
+import { readdirSync, readFileSync } from 'node:fs';
+import { dirname, join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { gunzipSync } from 'node:zlib';
 import { signIn, signOut } from './accounts.mjs';
 import { csrfHeaders } from './api-helpers.mjs';
 import { assertNoSidewaysScroll } from './page-checks.mjs';
@@ -46,6 +53,33 @@ async function openKeyboard(t, query = `?version=${versionId}`) {
   await page.getByRole('heading', { level: 1, name: 'Test keyboard' }).waitFor();
   await page.locator('[data-engine-status="ready"]').waitFor({ timeout: 60_000 });
   return page;
+}
+
+const demoDir = join(dirname(fileURLToPath(import.meta.url)), '..', '..', 'corpora', 'demo');
+
+/**
+ * The vocabulary the version's suggestion row may offer, built in this process: the base vocabulary
+ * the version's download names (X-Keyloom-Base-Words), fetched and unpacked with node:zlib, and the
+ * words of the demo client's samples (the engine's own tokeniser over corpora/demo).
+ */
+async function vocabularyOf(page, appUrl) {
+  const model = await page.request.get(`${appUrl}/api/profile-versions/${versionId}/model`);
+  assert.equal(model.status(), 200, 'the version model downloads');
+  const sha = model.headers()['x-keyloom-base-words'];
+  assert.match(sha ?? '', /^[0-9a-f]{64}$/, 'the version names its base vocabulary');
+  const res = await page.request.get(`${appUrl}/api/base-words/${sha}`);
+  assert.equal(res.status(), 200, 'the base vocabulary downloads');
+  const base = deserializeBaseWords(new Uint8Array(gunzipSync(await res.body())));
+  const own = new Set();
+  for (const file of readdirSync(demoDir).filter((f) => /\.(txt|csv)$/.test(f))) {
+    for (const sentence of sentencesOf(prepareText(readFileSync(join(demoDir, file), 'utf8')))) {
+      for (const token of sentence) own.add(token.key);
+    }
+  }
+  return (word) => {
+    const key = wordKey(word);
+    return own.has(key) || base.ngram.has(key) || (base.lexicon ? base.lexicon.idOf(key) >= 0 : false);
+  };
 }
 
 const suggestionRow = (page) => page.getByRole('group', { name: 'Suggestions' });
@@ -145,9 +179,11 @@ export const keyboardSuite = {
           .evaluate((dl) => ({ ...dl.dataset }));
         console.log(
           `    model download: version ${sizes.versionCompressedBytes} bytes gzip (${sizes.versionBytes} unpacked), ` +
-            `base ${sizes.baseCompressedBytes} bytes gzip (${sizes.baseBytes} unpacked), loaded in ${sizes.loadMs} ms`,
+            `base ${sizes.baseCompressedBytes} bytes gzip (${sizes.baseBytes} unpacked), ` +
+            `base vocabulary ${sizes.baseWordsCompressedBytes} bytes gzip (${sizes.baseWordsBytes} unpacked), loaded in ${sizes.loadMs} ms`,
         );
         assert.ok(Number(sizes.versionCompressedBytes) > 0, 'the version model was downloaded');
+        assert.ok(Number(sizes.baseWordsCompressedBytes) > 0, 'the base vocabulary was downloaded');
 
         const phrase = page.getByLabel('Practice phrase');
         const option = phrase.locator('option', { hasText: OWN_PHRASE });
@@ -158,6 +194,7 @@ export const keyboardSuite = {
 
         let clicks = 0;
         let picked = 0;
+        const rows = []; // every row shown: the text it answered and its slots
         for (let guard = 0; guard < 200; guard++) {
           const text = await outputText(page);
           if (text === OWN_PHRASE) break;
@@ -167,9 +204,17 @@ export const keyboardSuite = {
           const start = text.length - (text.match(/[\p{L}\p{N}']*$/u)?.[0].length ?? 0);
           const word = OWN_PHRASE.slice(start).match(WORD)?.[0] ?? null;
           const after = word ? OWN_PHRASE[start + word.length] : undefined;
-          const words = await suggestionRow(page)
+          const slots = await suggestionRow(page)
             .getByRole('button')
-            .evaluateAll((buttons) => buttons.map((b) => b.textContent?.trim() ?? ''));
+            .evaluateAll((buttons) =>
+              buttons.map((b) => ({
+                word: b.textContent?.trim() ?? '',
+                label: b.getAttribute('aria-label') ?? '',
+                enabled: !b.disabled,
+              })),
+            );
+          rows.push({ text, slots });
+          const words = slots.map((s) => (s.enabled ? s.word : ''));
           const slot = word && after === ' ' && WORD.test(next) ? words.indexOf(word) : -1;
           if (slot >= 0) {
             await selectAndSettle(
@@ -186,6 +231,29 @@ export const keyboardSuite = {
           clicks++;
         }
         assert.equal(await outputText(page), OWN_PHRASE);
+
+        // Every suggestion shown is a whole word of the vocabulary (or one typed in this trial,
+        // which the keyboard learns), never empty; an empty slot is disabled and says so.
+        const inVocabulary = await vocabularyOf(page, t.appUrl);
+        const typedWords = new Set((OWN_PHRASE.match(/[\p{L}']+/gu) ?? []).map(wordKey));
+        let shown = 0;
+        for (const { text, slots } of rows) {
+          for (const [i, slot] of slots.entries()) {
+            if (!slot.enabled) {
+              assert.equal(slot.label, `Suggestion ${i + 1}: empty`, `an empty slot after "${text}" says so`);
+              continue;
+            }
+            shown++;
+            assert.notEqual(slot.word, '', `no empty suggestion after "${text}"`);
+            assert.equal(slot.label, `Suggestion ${i + 1}: ${slot.word}`);
+            assert.ok(
+              inVocabulary(slot.word) || typedWords.has(wordKey(slot.word)),
+              `"${slot.word}" offered after "${text}" is a word of the vocabulary`,
+            );
+          }
+        }
+        assert.ok(shown >= rows.length, `suggestions were shown (${shown} over ${rows.length} rows)`);
+        console.log(`    ${shown} suggestions over ${rows.length} rows, each a word of the vocabulary`);
         const characters = [...OWN_PHRASE].length;
         console.log(
           `    typed "${OWN_PHRASE}" (${characters} characters) with ${clicks} clicks, ${picked} of them suggestions`,

@@ -13,6 +13,7 @@ import { CreateProfileVersions1764721000000 } from '../migrations/1764721000000-
 import { CreateSummaries1764722000000 } from '../migrations/1764722000000-create-summaries';
 import { CreateTrials1764800000000 } from '../migrations/1764800000000-create-trials';
 import { ScrubClientTextFromAudit1764910000001 } from '../migrations/1764910000001-scrub-client-text-from-audit';
+import { AddProfileVersionWords1764920000001 } from '../migrations/1764920000001-add-profile-version-words';
 import { CreateIdempotencyKeys1764930000001 } from '../migrations/1764930000001-create-idempotency-keys';
 import { CreateAppSettings1764930000002 } from '../migrations/1764930000002-create-app-settings';
 import { AddSignInLimitsAndPasswordChange1764940000001 } from '../migrations/1764940000001-add-sign-in-limits-and-password-change';
@@ -56,6 +57,7 @@ export const migrations = [
   CreateSummaries1764722000000,
   CreateTrials1764800000000,
   ScrubClientTextFromAudit1764910000001,
+  AddProfileVersionWords1764920000001,
   CreateIdempotencyKeys1764930000001,
   CreateAppSettings1764930000002,
   AddSignInLimitsAndPasswordChange1764940000001,

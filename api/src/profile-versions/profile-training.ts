@@ -1,5 +1,7 @@
 import {
+  type BaseWords,
   CancelledError,
+  deserializeBaseWords,
   deserializeModel,
   type PpmModel,
   type ProfileInput,
@@ -19,9 +21,20 @@ import type { FrozenSample, StoredVersionEvent } from './profile-version.entity'
 // corpora/.cache/base-model.bin (built by `npm run corpora`), three levels above both
 // api/src/profile-versions and api/dist/profile-versions — found the way LexiconService finds the lexicon.
 export const BASE_MODEL_FILE = resolve(__dirname, '..', '..', '..', 'corpora', '.cache', 'base-model.bin');
+/** The base vocabulary (corpora/.cache/base-words.bin), beside the base model. */
+export const BASE_WORDS_FILE = resolve(BASE_MODEL_FILE, '..', 'base-words.bin');
 
-/** What one training run gets: the frozen samples and settings (the trainer adds its base model). */
-export type TrainerInput = Omit<ProfileInput, 'base'>;
+/** What one training run gets: the frozen samples and settings (the trainer adds its base model and vocabulary). */
+export type TrainerInput = Omit<ProfileInput, 'base' | 'baseWords'>;
+
+/** The engine's input for one run: the base vocabulary goes only with the base model. */
+export function engineInput(
+  input: TrainerInput,
+  base: PpmModel | null,
+  baseWords: BaseWords | null,
+): ProfileInput {
+  return { ...input, base, baseWords: base ? baseWords : null };
+}
 
 /**
  * Runs the engine for one version. `isCancelled` turns true when the version stops waiting for the
@@ -34,17 +47,21 @@ export type Trainer = (
 ) => Promise<ProfileResult>;
 
 /** The engine on the calling thread (the HTTP tests and the seed). */
-export function inProcessTrainer(base: PpmModel | null): Trainer {
+export function inProcessTrainer(base: PpmModel | null, baseWords: BaseWords | null = null): Trainer {
   return (input, onProgress, isCancelled) =>
-    trainAndEvaluateProfile({ ...input, base }, onProgress, isCancelled);
+    trainAndEvaluateProfile(engineInput(input, base, baseWords), onProgress, isCancelled);
 }
 
-/** What the worker holds between jobs: the frozen base model and how to evaluate. */
+/** What the worker holds between jobs: the frozen base model and vocabulary, and how to evaluate. */
 export type TrainingRuntime = {
   /** The base model for the in-process trainer (unused when `trainer` is given). */
   base: PpmModel | null;
   /** SHA-256 (hex) of the base model file, stored with each version. */
   baseModelSha256: string | null;
+  /** The base vocabulary for the in-process trainer (unused when `trainer` is given). */
+  baseWords?: BaseWords | null;
+  /** SHA-256 (hex) of the base vocabulary file, stored with each version trained with words. */
+  baseWordsSha256?: string | null;
   /** Cross-validation folds, 2..10 (PROFILE_FOLDS; tests use 2–3). */
   folds: number;
   /** Keystroke-simulation cap per fold (engine default when undefined). */
@@ -58,19 +75,43 @@ export type TrainingRuntime = {
   trainer?: Trainer;
 };
 
-/** The base model file's bytes and SHA-256 (hex); throws a clear message when it is missing. */
-export function readBaseModelFile(file = BASE_MODEL_FILE): { bytes: Uint8Array; sha256: string } {
+/** A base file's bytes and SHA-256 (hex); throws a clear message when it is missing. */
+function readBaseFile(file: string, what: string): { bytes: Uint8Array; sha256: string } {
   if (!existsSync(file)) {
-    throw new Error(`The base model ${file} is missing. Run \`npm run corpora\` to build it.`);
+    throw new Error(`The ${what} ${file} is missing. Run \`npm run corpora\` to build it.`);
   }
   const bytes = readFileSync(file);
   return { bytes: new Uint8Array(bytes), sha256: createHash('sha256').update(bytes).digest('hex') };
 }
 
-/** Loads the Brown base model from the corpus cache (about 0.5 s) for the in-process trainer. */
-export function loadTrainingRuntime(folds: number, file = BASE_MODEL_FILE): TrainingRuntime {
+/** The base model file's bytes and SHA-256 (hex); throws a clear message when it is missing. */
+export function readBaseModelFile(file = BASE_MODEL_FILE): { bytes: Uint8Array; sha256: string } {
+  return readBaseFile(file, 'base model');
+}
+
+/** The base vocabulary file's bytes and SHA-256 (hex); throws a clear message when it is missing. */
+export function readBaseWordsFile(file = BASE_WORDS_FILE): { bytes: Uint8Array; sha256: string } {
+  return readBaseFile(file, 'base vocabulary');
+}
+
+/**
+ * Loads the Brown base model and the base vocabulary from the corpus cache (about 1 s) for the
+ * in-process trainer.
+ */
+export function loadTrainingRuntime(
+  folds: number,
+  file = BASE_MODEL_FILE,
+  wordsFile = BASE_WORDS_FILE,
+): TrainingRuntime {
   const { bytes, sha256 } = readBaseModelFile(file);
-  return { base: deserializeModel(bytes).freeze(), baseModelSha256: sha256, folds };
+  const words = readBaseWordsFile(wordsFile);
+  return {
+    base: deserializeModel(bytes).freeze(),
+    baseModelSha256: sha256,
+    baseWords: deserializeBaseWords(words.bytes),
+    baseWordsSha256: words.sha256,
+    folds,
+  };
 }
 
 /** How a training job ended. 'stale': the version no longer waits for this job (cancelled, deleted, re-queued). */
@@ -168,7 +209,8 @@ export async function runProfileTraining(
   }, runtime.progressIntervalMs ?? 500);
   timer.unref();
 
-  const train = runtime.trainer ?? inProcessTrainer(runtime.base);
+  const train = runtime.trainer ?? inProcessTrainer(runtime.base, runtime.baseWords ?? null);
+  const withBase = runtime.base !== null || runtime.trainer !== undefined;
   try {
     const result = await train(
       {
@@ -184,11 +226,13 @@ export async function runProfileTraining(
     );
     clearInterval(timer);
     await settled();
+    const wordModel = result.wordModelBytes;
     const saved = await dataSource.transaction(async (tx) => {
       const count = await updateCount(
         tx,
         `UPDATE profile_versions SET status = 'trained', progress = 1, stage = NULL, error = NULL,
            metrics = $3::jsonb, model = $4, model_size = $5, blend_weight = $6, base_model_sha256 = $7,
+           word_model = $9, word_weights = $10::jsonb, base_words_sha256 = $11,
            trained_at = now(), heartbeat_at = now(), updated_at = now(), history = history || $8::jsonb
          WHERE ${STILL_MINE}`,
         [
@@ -198,8 +242,11 @@ export async function runProfileTraining(
           Buffer.from(result.modelBytes),
           result.modelBytes.length,
           result.blendWeight,
-          runtime.base || runtime.trainer ? runtime.baseModelSha256 : null,
+          withBase ? runtime.baseModelSha256 : null,
           event('trained', null),
+          wordModel ? Buffer.from(wordModel) : null,
+          wordModel && result.wordWeights ? JSON.stringify(result.wordWeights) : null,
+          wordModel && withBase ? (runtime.baseWordsSha256 ?? null) : null,
         ],
       );
       if (count === 0) return false;
@@ -212,6 +259,7 @@ export async function runProfileTraining(
           chars: result.report.chars,
           bpcIdeal: result.report.bpcIdeal,
           modelBytes: result.modelBytes.length,
+          wordModelBytes: wordModel?.length ?? 0,
           ms: result.report.timings.total,
         },
         tx,

@@ -1,4 +1,4 @@
-import type { ProfileVersionSettings, ProfileVersionStatus } from '@keyloom/shared';
+import type { ProfileVersionSettings, ProfileVersionStatus, WordWeights } from '@keyloom/shared';
 import {
   Check,
   Column,
@@ -92,6 +92,19 @@ export class ProfileVersion {
 
   @Column({ name: 'base_model_sha256', type: 'text', nullable: true })
   baseModelSha256: string | null;
+
+  // The client's word model for the word-aware list (null: trained before it). Not loaded with the
+  // row: only the export and the test keyboard's download read it.
+  @Column({ name: 'word_model', type: 'bytea', nullable: true, select: false })
+  wordModel: Buffer | null;
+
+  /** The word mixture's weights tuned at training (null without a word model). */
+  @Column({ name: 'word_weights', type: 'jsonb', nullable: true })
+  wordWeights: WordWeights | null;
+
+  /** SHA-256 (hex) of the base vocabulary file trained beside, or null. */
+  @Column({ name: 'base_words_sha256', type: 'text', nullable: true })
+  baseWordsSha256: string | null;
 
   @Column({ type: 'jsonb', default: () => `'[]'` })
   history: StoredVersionEvent[];

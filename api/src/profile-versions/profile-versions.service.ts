@@ -108,6 +108,8 @@ export function profileFileHeader(
     },
     settings: version.settings,
     blendWeight: version.blendWeight ?? 0,
+    // Only with the word model it was tuned for (a file without words has no word list to weigh).
+    ...(version.wordWeights && version.wordModel ? { wordWeights: version.wordWeights } : {}),
     baseModelSha256: version.baseModelSha256,
     engineVersion: typeof metrics.engineVersion === 'string' ? metrics.engineVersion : 'unknown',
     metrics: pick([
@@ -595,6 +597,7 @@ export class ProfileVersionsService implements OnModuleInit {
       .getRepository(ProfileVersion)
       .createQueryBuilder('v')
       .addSelect('v.model')
+      .addSelect('v.wordModel')
       .leftJoinAndSelect('v.client', 'client')
       .leftJoinAndSelect('v.approvedBy', 'approver')
       .where('v.id = :id', { id })
@@ -606,7 +609,12 @@ export class ProfileVersionsService implements OnModuleInit {
       exportedBy: actor.name,
     });
     const bytes = Buffer.from(
-      writeProfileFile(header, new Uint8Array(version.model), await this.signing.signer()),
+      writeProfileFile(
+        header,
+        new Uint8Array(version.model),
+        await this.signing.signer(),
+        version.wordModel ? new Uint8Array(version.wordModel) : null,
+      ),
     );
     await this.audit.record(
       actor,
@@ -640,6 +648,7 @@ export class ProfileVersionsService implements OnModuleInit {
       modelBytes: contents.modelBytes,
       modelOrder: contents.modelOrder,
       modelContexts: contents.modelContexts,
+      vocabularyWords: contents.vocabularyWords,
       header: contents.header,
     };
   }

@@ -1,26 +1,45 @@
-import { deserializeModel, type PpmModel, ProfileInputError, trainAndEvaluateProfile } from '@keyloom/shared';
+import {
+  type BaseWords,
+  deserializeBaseWords,
+  deserializeModel,
+  type PpmModel,
+  ProfileInputError,
+  trainAndEvaluateProfile,
+} from '@keyloom/shared';
 import { parentPort, workerData } from 'node:worker_threads';
+import { engineInput } from './profile-training';
 import type { FromTrainingThread, ToTrainingThread, TrainingThreadData } from './training-threads';
 
 // The body of one training thread (started by training-threads.ts from api/dist). It turns the
-// shared base-model bytes into a model once, then trains one version per 'train' message, posting
-// progress and the result back. The worker's own event loop never runs the engine.
+// shared base-model and base-vocabulary bytes into models once, then trains one version per 'train'
+// message, posting progress and the result back. The worker's own event loop never runs the engine.
 
 const port = parentPort;
 if (!port) throw new Error('training-thread runs only as a worker thread');
-const { baseModel } = workerData as TrainingThreadData;
+const { baseModel, baseWords: baseWordsBytes } = workerData as TrainingThreadData;
 const base: PpmModel | null = baseModel ? deserializeModel(new Uint8Array(baseModel)).freeze() : null;
+const baseWords: BaseWords | null = baseWordsBytes
+  ? deserializeBaseWords(new Uint8Array(baseWordsBytes))
+  : null;
 const post = (message: FromTrainingThread, transfer: ArrayBuffer[] = []) =>
   port.postMessage(message, transfer);
 
+/** Bytes that own their whole buffer, so it can move to the main thread without a copy. */
+function owned(bytes: Uint8Array): Uint8Array {
+  return bytes.byteOffset === 0 && bytes.byteLength === bytes.buffer.byteLength ? bytes : bytes.slice();
+}
+
 port.on('message', (message: ToTrainingThread) => {
-  trainAndEvaluateProfile({ ...message.input, base }, (progress) => post({ type: 'progress', progress }))
+  trainAndEvaluateProfile(engineInput(message.input, base, baseWords), (progress) =>
+    post({ type: 'progress', progress }),
+  )
     .then((result) => {
-      // The model bytes move to the main thread without a copy.
-      const bytes = result.modelBytes;
-      const owned = bytes.byteOffset === 0 && bytes.byteLength === bytes.buffer.byteLength;
-      const modelBytes = owned ? bytes : bytes.slice();
-      post({ type: 'done', result: { ...result, modelBytes } }, [modelBytes.buffer as ArrayBuffer]);
+      const modelBytes = owned(result.modelBytes);
+      const wordModelBytes = result.wordModelBytes ? owned(result.wordModelBytes) : null;
+      const transfer = [modelBytes.buffer as ArrayBuffer];
+      if (wordModelBytes && wordModelBytes.buffer !== modelBytes.buffer)
+        transfer.push(wordModelBytes.buffer as ArrayBuffer);
+      post({ type: 'done', result: { ...result, modelBytes, wordModelBytes } }, transfer);
     })
     .catch((error: unknown) => {
       post({

@@ -6,11 +6,12 @@ import type { Trainer, TrainerInput } from './profile-training';
 
 // Training off the worker's event loop: each run goes to a node:worker_threads thread, so the
 // worker keeps writing heartbeats, answering PostgreSQL and sending e-mails while a large version
-// trains. Threads are kept between jobs (each holds the deserialized base model); the base-model
-// file is read once and shared with every thread as a SharedArrayBuffer (no copy per thread).
+// trains. Threads are kept between jobs (each holds the deserialized base model and base
+// vocabulary); the two base files are read once and shared with every thread as SharedArrayBuffers
+// (no copy per thread).
 
 /** What a training thread starts with. */
-export type TrainingThreadData = { baseModel: SharedArrayBuffer | null };
+export type TrainingThreadData = { baseModel: SharedArrayBuffer | null; baseWords: SharedArrayBuffer | null };
 export type ToTrainingThread = { type: 'train'; input: TrainerInput };
 export type FromTrainingThread =
   | { type: 'progress'; progress: ProfileProgress }
@@ -36,6 +37,7 @@ export class TrainingThreads {
 
   constructor(
     private readonly baseModel: SharedArrayBuffer | null,
+    private readonly baseWords: SharedArrayBuffer | null = null,
     private readonly file = TRAINING_THREAD_FILE,
   ) {
     if (!existsSync(file)) throw new Error(`The training thread ${file} is missing. Run \`npm run build\`.`);
@@ -60,7 +62,9 @@ export class TrainingThreads {
   private take(): Worker {
     const thread =
       this.idle.pop() ??
-      new Worker(this.file, { workerData: { baseModel: this.baseModel } satisfies TrainingThreadData });
+      new Worker(this.file, {
+        workerData: { baseModel: this.baseModel, baseWords: this.baseWords } satisfies TrainingThreadData,
+      });
     this.busy.add(thread);
     return thread;
   }

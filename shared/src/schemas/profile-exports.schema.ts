@@ -36,6 +36,8 @@ export const profileFileCheckSchema = z.object({
   modelBytes: z.number().int().nonnegative(),
   modelOrder: z.number().int().nonnegative(),
   modelContexts: z.number().int().nonnegative(),
+  /** Words in the client's vocabulary carried by the file (0 in files made before the word-aware list). */
+  vocabularyWords: z.number().int().nonnegative(),
   /** The file's own header, as written (free-form JSON). */
   header: z.record(z.string(), z.unknown()),
 });

@@ -46,6 +46,8 @@ vi.mock('@/features/keyboard/engine/use-keyboard-engine', async () => {
               versionCompressedBytes: 30_000,
               baseBytes: 0,
               baseCompressedBytes: 0,
+              baseWordsBytes: 0,
+              baseWordsCompressedBytes: 0,
               loadMs: 12,
               order: 5,
               contexts: 1234,

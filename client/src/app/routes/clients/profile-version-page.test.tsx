@@ -313,6 +313,7 @@ describe('Profile version page', () => {
     modelBytes: 4000,
     modelOrder: 5,
     modelContexts: 812,
+    vocabularyWords: 1234,
     header: { client: { pseudonym: 'R. Ashby' }, version: { number: 1, status: 'active' } },
   });
 
@@ -341,6 +342,8 @@ describe('Profile version page', () => {
     );
     expect(screen.getByText('Client pseudonym').nextSibling).toHaveTextContent('R. Ashby');
     expect(screen.getByText('Version number').nextSibling).toHaveTextContent('1');
+    // The client's vocabulary carried by the file (its word model), in words.
+    expect(screen.getByText('Vocabulary words').nextSibling).toHaveTextContent('1234');
     const sent = api.requestsTo('POST /api/profile-exports/verify')[0]?.formData?.get('file');
     expect(sent instanceof File ? sent.name : null).toBe('ashby-v1.klp');
   });

@@ -12,6 +12,12 @@ const statusWords: Record<EngineStatus, string> = {
 
 type ModelStatusProps = { status: EngineStatus; error: string | null; info: ModelDownloadInfo | null };
 
+/** A base file's line: its sizes, or that the version does without it. */
+const baseLine = (bytes: number, compressedBytes: number): string =>
+  bytes === 0
+    ? 'Not used by this version.'
+    : `${kilobytes(compressedBytes)} downloaded (${kilobytes(bytes)} unpacked); fetched once per browser session`;
+
 /** Where the model download stands, what it weighed, and any error in words. */
 export const ModelStatus = ({ status, error, info }: ModelStatusProps) => (
   <div className="flex flex-col gap-2">
@@ -34,6 +40,8 @@ export const ModelStatus = ({ status, error, info }: ModelStatusProps) => (
         data-version-compressed-bytes={info.versionCompressedBytes}
         data-base-bytes={info.baseBytes}
         data-base-compressed-bytes={info.baseCompressedBytes}
+        data-base-words-bytes={info.baseWordsBytes}
+        data-base-words-compressed-bytes={info.baseWordsCompressedBytes}
         data-load-ms={Math.round(info.loadMs)}
       >
         <dt className="font-bold">This version</dt>
@@ -41,11 +49,9 @@ export const ModelStatus = ({ status, error, info }: ModelStatusProps) => (
           {kilobytes(info.versionCompressedBytes)} downloaded ({kilobytes(info.versionBytes)} unpacked)
         </dd>
         <dt className="font-bold">General English model</dt>
-        <dd>
-          {info.baseBytes === 0
-            ? 'Not used by this version.'
-            : `${kilobytes(info.baseCompressedBytes)} downloaded (${kilobytes(info.baseBytes)} unpacked); fetched once per browser session`}
-        </dd>
+        <dd>{baseLine(info.baseBytes, info.baseCompressedBytes)}</dd>
+        <dt className="font-bold">General English words</dt>
+        <dd>{baseLine(info.baseWordsBytes, info.baseWordsCompressedBytes)}</dd>
         <dt className="font-bold">Loaded in</dt>
         <dd>
           {Math.round(info.loadMs)} ms (context order {info.order}, {info.contexts.toLocaleString('en-GB')}{' '}

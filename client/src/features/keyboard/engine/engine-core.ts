@@ -1,8 +1,11 @@
 // The keyboard's model engine, free of React and of the worker: load a profile file (+ the
-// base model) and answer suggestions. It runs inside engine.worker.ts in the browser and
-// directly in node for the tests and the latency measurement.
+// base model and the base vocabulary) and answer suggestions. It runs inside engine.worker.ts in
+// the browser and directly in node for the tests and the latency measurement.
 import {
+  type BaseWords,
   BlendedModel,
+  DEFAULT_WORD_WEIGHTS,
+  deserializeBaseWords,
   deserializeModel,
   nextLetterProbabilities,
   type NextSymbolModel,
@@ -11,14 +14,21 @@ import {
   prepareText,
   type ProfileFileHeader,
   readProfileFile,
-  suggest,
   suggestionContext,
+  WordNgramModel,
+  WordPredictor,
+  type WordWeights,
 } from '@keyloom/shared';
 
 /** A loaded profile version, ready to answer. */
 export type LoadedEngine = {
-  /** The model answering: the personal model (learning when adaptive) blended with the frozen base. */
+  /** The character model: the personal model (learning when adaptive) blended with the frozen base. */
   model: NextSymbolModel;
+  /**
+   * The suggestion row: the word-aware list over the client's words (the file's word model), the
+   * base vocabulary and the recency cache, combined with `model`. It learns what is typed.
+   */
+  predictor: WordPredictor;
   header: ProfileFileHeader;
   /** Suggestion slots from the header's settings (1..10; 5 when the header does not say). */
   slots: number;
@@ -34,6 +44,12 @@ export type LoadedEngine = {
   personalBytes: Uint8Array;
   /** The frozen base model and its weight, or null without a base. */
   base: { model: PpmModel; weight: number } | null;
+  /** The client's word model bytes as trained (layouts 3 and 4), null in older files. */
+  wordBytes: Uint8Array | null;
+  /** The frozen base vocabulary, or null when none was loaded. */
+  baseWords: BaseWords | null;
+  /** The word mixture's weights: the header's, else DEFAULT_WORD_WEIGHTS. */
+  wordWeights: WordWeights;
   /** The text whose finished words the personal model has learned since loading or the last reset. */
   learnedText: string;
 };
@@ -60,16 +76,31 @@ function slotsOf(settings: Record<string, unknown>): number {
   return typeof s === 'number' && Number.isInteger(s) && s >= 1 && s <= 10 ? s : DEFAULT_SLOTS;
 }
 
+function isWordWeights(value: unknown): value is WordWeights {
+  if (typeof value !== 'object' || value === null) return false;
+  const w = value as Record<string, unknown>;
+  return (['personal', 'base', 'lexicon', 'cache'] as const).every(
+    (k) => typeof w[k] === 'number' && Number.isFinite(w[k]) && w[k] >= 0 && w[k] <= 1,
+  );
+}
+
 /**
  * Loads a profile version as the profile pipeline uses it: the personal model blended with the
  * frozen base model at the header's λ (`new BlendedModel(personal, base, blendWeight)`), or the
- * personal model alone when the profile has no base model. The base never learns; the personal
- * model learns only through engineLearn (the worker calls it when asked to adapt).
+ * personal model alone when the profile has no base model; and the word-aware list over the
+ * file's word model (none in files made before it: then only the base vocabulary's words are
+ * offered), the base vocabulary and that character model. The bases never learn; the personal
+ * models learn only through engineLearn (the worker calls it when asked to adapt).
  * @param profile the uncompressed `.klprofile` bytes
  * @param baseBytes the uncompressed base model bytes (serializeModel layout), or null
+ * @param baseWordsBytes the uncompressed base vocabulary (serializeBaseWords layout), or null
  * @throws EngineLoadError with a readable message when a file is damaged or the base is missing
  */
-export function loadEngine(profile: Uint8Array, baseBytes: Uint8Array | null): LoadedEngine {
+export function loadEngine(
+  profile: Uint8Array,
+  baseBytes: Uint8Array | null,
+  baseWordsBytes: Uint8Array | null = null,
+): LoadedEngine {
   let file;
   try {
     file = readProfileFile(profile);
@@ -101,31 +132,71 @@ export function loadEngine(profile: Uint8Array, baseBytes: Uint8Array | null): L
     }
     base = { model: baseModel, weight };
   }
-  const model = blendWith(personal, base);
+  let baseWords: BaseWords | null = null;
+  if (baseWordsBytes) {
+    try {
+      baseWords = deserializeBaseWords(baseWordsBytes);
+    } catch (error) {
+      throw new EngineLoadError(`The base vocabulary cannot be read: ${messageOf(error)}`);
+    }
+  }
+  const wordWeights = header.wordWeights === undefined ? DEFAULT_WORD_WEIGHTS : header.wordWeights;
+  if (!isWordWeights(wordWeights)) {
+    throw new EngineLoadError('The profile file’s word weights must be four numbers 0..1.');
+  }
   const settings = typeof header.settings === 'object' && header.settings !== null ? header.settings : {};
+  const caseFold = settings.caseFold === true;
+  const parts = { wordBytes: file.words, baseWords, wordWeights, caseFold };
+  let models;
+  try {
+    models = engineModels(personal, base, parts);
+  } catch (error) {
+    throw new EngineLoadError(`The word model inside the profile file cannot be read: ${messageOf(error)}`);
+  }
   return {
-    model,
+    ...models,
     header,
     slots: slotsOf(settings),
-    caseFold: settings.caseFold === true,
-    order: model.order,
+    order: models.model.order,
     contexts: personal.contextCount,
     cache: new Map(),
     personalBytes: file.model,
     base,
+    ...parts,
     learnedText: '',
   };
 }
 
-/** The personal model blended with the base at its weight, or alone without a base. */
-function blendWith(personal: PpmModel, base: LoadedEngine['base']): NextSymbolModel {
-  return base ? new BlendedModel(personal, base.model, base.weight) : personal;
+/**
+ * The character model (the personal model blended with the base at its weight, or alone without
+ * a base) and the word-aware list over it: a fresh copy of the client's word model from its
+ * bytes (it learns; null without one), adaptive, capitalising unless the profile is case-folded.
+ */
+function engineModels(
+  personal: PpmModel,
+  base: LoadedEngine['base'],
+  o: Pick<LoadedEngine, 'wordBytes' | 'baseWords' | 'wordWeights' | 'caseFold'>,
+): Pick<LoadedEngine, 'model' | 'predictor'> {
+  const model = base ? new BlendedModel(personal, base.model, base.weight) : personal;
+  const words = o.wordBytes ? WordNgramModel.fromBytes(o.wordBytes) : null;
+  if (words) words.adaptive = true;
+  const predictor = new WordPredictor({
+    personal: words,
+    base: o.baseWords,
+    char: model,
+    weights: o.wordWeights,
+    capitalize: !o.caseFold,
+    adaptive: true,
+  });
+  return { model, predictor };
 }
 
 /**
- * Lets the personal model learn the words finished in `text` since it last learned, as the
+ * Lets the personal models learn the words finished in `text` since they last learned, as the
  * client's device does and as the profile's keystroke simulation does (adaptive, a word's letters
- * learned once the word is finished, with the boundary after it). Only what is new is learned: text
+ * learned once the word is finished, with the boundary after it): each new position goes to the
+ * list's `learn`, which teaches the character model and, at a word's end, the client's word model
+ * and the recency cache. Only what is new is learned: text
  * deleted after it was learned stays learned (counts are never taken back), and the learning
  * goes on from where the two texts agree. Clears the answer cache when anything was learned.
  */
@@ -138,16 +209,16 @@ export function engineLearn(engine: LoadedEngine, text: string): void {
   while (agree < known.length && agree < finished.length && known[agree] === finished[agree]) agree++;
   const from = historyOf(engine, finished.slice(0, agree)).length;
   const history = historyOf(engine, finished);
-  for (let at = from; at < history.length; at++) engine.model.learn(history, at);
+  for (let at = from; at < history.length; at++) engine.predictor.learn(history, at);
   if (history.length > from) engine.cache.clear();
   engine.learnedText = finished;
 }
 
-/** Starts again from the version as trained: what was learned since loading is forgotten. */
+/** Starts again from the version as trained (characters and words): what was learned since loading is forgotten. */
 export function resetEngineLearning(engine: LoadedEngine): void {
   const personal = deserializeModel(engine.personalBytes);
   personal.adaptive = true;
-  engine.model = blendWith(personal, engine.base);
+  Object.assign(engine, engineModels(personal, engine.base, engine));
   engine.cache.clear();
   engine.learnedText = '';
 }
@@ -161,9 +232,10 @@ export function historyOf(engine: Pick<LoadedEngine, 'caseFold'>, text: string):
 }
 
 /**
- * Suggestions at the end of `text`: the `slots` words of the engine's `suggest` (completions of
- * the word being typed, or the next word after a boundary) and the probability of each next
- * letter (letters only, upper and lower case merged) for tinting keys. Words are asked for at
+ * Suggestions at the end of `text`: the `slots` words of the word-aware list (completions of the
+ * word being typed, or the next word after a boundary; only words of the vocabulary) and the
+ * character model's probability of each next letter (letters only, upper and lower case merged)
+ * for tinting keys. Words are asked for at
  * `suggestionContext(text)` (a new message reads as a line start; after sentence punctuation the
  * space that picking a word adds is assumed), the letters at the text as it is.
  * @param slots list length, 1..10
@@ -179,7 +251,7 @@ export function engineSuggest(engine: LoadedEngine, text: string, slots: number)
   }
   const contextText = suggestionContext(text);
   const context = historyOf(engine, contextText);
-  const words = suggest(engine.model, context, context.length, slots).map((s) => s.word);
+  const words = engine.predictor.suggest(context, context.length, slots).map((s) => s.word);
   const history = text === '' || contextText === text ? context : historyOf(engine, text);
   const letters = nextLetterProbabilities(engine.model, history, history.length, { foldCase: true }).filter(
     (l) => LETTER.test(l.char),

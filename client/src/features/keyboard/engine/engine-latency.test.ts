@@ -2,14 +2,18 @@
 // Latency figures of the engine on a demo-sized model, printed, not asserted (speed is checked
 // by figures, not timed tests). Skipped unless KEYLOOM_ENGINE_BENCH=1:
 //   cd client && KEYLOOM_ENGINE_BENCH=1 npx vitest run src/features/keyboard/engine/engine-latency
-// The model: the demo client's invented samples (corpora/demo/*.txt) as the personal model, the
-// Brown base model (corpora/.cache/base-model.bin, `npm run corpora`), λ tuned on the last 10%.
+// The model: the demo client's invented samples (corpora/demo/*.txt) as the personal model and
+// word model, the Brown base model and the base vocabulary (corpora/.cache/base-model.bin and
+// base-words.bin, `npm run corpora`), λ and the word weights tuned on the last 10%.
 import {
+  deserializeBaseWords,
   deserializeModel,
   prepareText,
   serializeModel,
   trainPersonalModel,
+  trainWordModel,
   tuneBlendWeightOnTail,
+  tuneWordWeightsOnTail,
   writeProfileFile,
 } from '@keyloom/shared';
 import { existsSync, readdirSync, readFileSync } from 'node:fs';
@@ -22,7 +26,9 @@ import { engineSuggest, loadEngine, warmUpEngine } from './engine-core';
 const root = fileURLToPath(new URL('../../../../../', import.meta.url));
 const demoDir = join(root, 'corpora', 'demo');
 const baseFile = join(root, 'corpora', '.cache', 'base-model.bin');
-const enabled = import.meta.env.KEYLOOM_ENGINE_BENCH === '1' && existsSync(baseFile);
+const baseWordsFile = join(root, 'corpora', '.cache', 'base-words.bin');
+const enabled =
+  import.meta.env.KEYLOOM_ENGINE_BENCH === '1' && existsSync(baseFile) && existsSync(baseWordsFile);
 
 const quantile = (sorted: number[], q: number) =>
   sorted[Math.min(sorted.length - 1, Math.floor(q * sorted.length))];
@@ -41,18 +47,23 @@ describe.skipIf(!enabled)('engine latency on a demo-sized model', () => {
     const base = deserializeModel(baseBytes).freeze();
     const personal = trainPersonalModel(testModelSettings, texts);
     const weight = tuneBlendWeightOnTail(testModelSettings, texts, base);
+    const baseWordsBytes = new Uint8Array(readFileSync(baseWordsFile));
+    const wordWeights = tuneWordWeightsOnTail(texts, deserializeBaseWords(baseWordsBytes), true);
     const profile = writeProfileFile(
-      testProfileHeader({ blendWeight: weight, baseModelSha256: sha256Hex(baseBytes) }),
+      testProfileHeader({ blendWeight: weight, baseModelSha256: sha256Hex(baseBytes), wordWeights }),
       serializeModel(personal),
+      undefined,
+      trainWordModel(texts).toBytes(),
     );
     const chars = texts.reduce((n, t) => n + t.length, 0);
     console.log(`personal: ${chars} characters, λ ${weight.toFixed(3)}`);
     console.log(
-      `profile ${profile.length} B (gzip -9 ${gzip9(profile).length} B); base ${baseBytes.length} B (gzip -9 ${gzip9(baseBytes).length} B)`,
+      `profile ${profile.length} B (gzip -9 ${gzip9(profile).length} B); base ${baseBytes.length} B (gzip -9 ${gzip9(baseBytes).length} B); ` +
+        `base vocabulary ${baseWordsBytes.length} B (gzip -9 ${gzip9(baseWordsBytes).length} B)`,
     );
 
     let t = performance.now();
-    const engine = loadEngine(profile, baseBytes);
+    const engine = loadEngine(profile, baseBytes, baseWordsBytes);
     const loadMs = performance.now() - t;
     t = performance.now();
     warmUpEngine(engine);

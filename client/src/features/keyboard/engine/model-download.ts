@@ -1,22 +1,40 @@
-// Downloads a version's model and the base model it was trained beside, once per browser
-// session: the gunzipped bytes stay in module-level maps (by version id and by base sha), so
-// switching versions back and forth downloads nothing twice; the HTTP cache revalidates by ETag
-// across sessions.
+// Downloads a version's model, the base model it was trained beside and the base vocabulary its
+// suggestion row offers words from, once per browser session: the gunzipped bytes stay in
+// module-level maps (by version id and by sha), so switching versions back and forth downloads
+// nothing twice; the HTTP cache revalidates by ETag across sessions (the bases are immutable).
 import { apiErrorSchema, readProfileFile } from '@keyloom/shared';
 import { env } from '@/config/env';
 import { ApiError } from '@/lib/api-client';
 import { gunzipBytes, isGzip } from './gunzip';
 
 /** One downloaded file: its bytes after gunzip and both sizes. */
-export type DownloadedModel = { bytes: Uint8Array; compressedBytes: number; etag: string | null };
+export type DownloadedModel = {
+  bytes: Uint8Array;
+  compressedBytes: number;
+  etag: string | null;
+  /** The sha256 the API names in X-Keyloom-Base-Words (a version's model download only), or null. */
+  baseWordsSha256: string | null;
+};
 
-/** A version's model and, when it was trained beside one, the base model. */
-export type VersionModels = { version: DownloadedModel; base: DownloadedModel | null };
+/**
+ * A version's model and, when it was trained beside them, the base model and the base
+ * vocabulary (a version trained before the word-aware list gets the server's base vocabulary).
+ */
+export type VersionModels = {
+  version: DownloadedModel;
+  base: DownloadedModel | null;
+  baseWords: DownloadedModel | null;
+};
+
+/** Header of the version's model download naming the base vocabulary (sha256 or "none"). */
+export const BASE_WORDS_HEADER = 'X-Keyloom-Base-Words';
+const SHA256 = /^[0-9a-f]{64}$/;
 
 const UNREACHABLE_MESSAGE = 'Keyloom could not download the model. Check your connection and try again.';
 
 const versionCache = new Map<string, Promise<DownloadedModel>>();
 const baseCache = new Map<string, Promise<DownloadedModel>>();
+const baseWordsCache = new Map<string, Promise<DownloadedModel>>();
 
 async function errorOf(response: Response): Promise<ApiError> {
   let body: unknown;
@@ -49,7 +67,13 @@ async function downloadGzip(path: string, signal?: AbortSignal): Promise<Downloa
   const compressed = new Uint8Array(await response.arrayBuffer());
   // A proxy that sent it with Content-Encoding: gzip has had the browser unpack it already.
   const bytes = isGzip(compressed) ? await gunzipBytes(compressed) : compressed;
-  return { bytes, compressedBytes: compressed.length, etag: response.headers.get('ETag') };
+  const named = response.headers.get(BASE_WORDS_HEADER)?.toLowerCase() ?? '';
+  return {
+    bytes,
+    compressedBytes: compressed.length,
+    etag: response.headers.get('ETag'),
+    baseWordsSha256: SHA256.test(named) ? named : null,
+  };
 }
 
 // A failed download must not stay in the cache: the next attempt tries again.
@@ -79,19 +103,28 @@ export const downloadVersionModel = (versionId: string): Promise<DownloadedModel
 export const downloadBaseModel = (sha256: string): Promise<DownloadedModel> =>
   cached(baseCache, sha256, () => downloadGzip(`/base-models/${encodeURIComponent(sha256)}`));
 
+/** GET /api/base-words/:sha256, gunzipped (once per session). */
+export const downloadBaseWords = (sha256: string): Promise<DownloadedModel> =>
+  cached(baseWordsCache, sha256, () => downloadGzip(`/base-words/${encodeURIComponent(sha256)}`));
+
 /**
- * The version's model, then the base model its header names (`baseModelSha256`), if any.
+ * The version's model, then the base model its header names (`baseModelSha256`) and the base
+ * vocabulary the download names (X-Keyloom-Base-Words), if any, both at once.
  * @throws ApiError with the API's message (404, 409…) or ProfileFileError / GunzipError for damaged bytes
  */
 export async function downloadVersionModels(versionId: string): Promise<VersionModels> {
   const version = await downloadVersionModel(versionId);
   const { header } = readProfileFile(version.bytes);
-  const base = header.baseModelSha256 ? await downloadBaseModel(header.baseModelSha256) : null;
-  return { version, base };
+  const [base, baseWords] = await Promise.all([
+    header.baseModelSha256 ? downloadBaseModel(header.baseModelSha256) : null,
+    version.baseWordsSha256 ? downloadBaseWords(version.baseWordsSha256) : null,
+  ]);
+  return { version, base, baseWords };
 }
 
 /** Forgets every downloaded model (tests; a sign-out could call it too). */
 export function clearModelDownloads(): void {
   versionCache.clear();
   baseCache.clear();
+  baseWordsCache.clear();
 }

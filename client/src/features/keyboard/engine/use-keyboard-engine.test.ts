@@ -1,7 +1,8 @@
 // The hook end to end in jsdom: download (fetch stubbed with real gzip bytes from node:zlib),
 // gunzip, load in the engine (on this thread: jsdom has no Worker; same protocol handler),
-// suggestions equal to the engine's own suggest() on the same BlendedModel.
-import { BlendedModel, prepareText, suggest } from '@keyloom/shared';
+// suggestions equal to the shared WordPredictor over the same client words, base vocabulary and
+// BlendedModel.
+import { BlendedModel, prepareText, WordNgramModel, WordPredictor } from '@keyloom/shared';
 import { act, renderHook, waitFor } from '@testing-library/react';
 import { afterEach, beforeAll, describe, expect, it, vi } from 'vitest';
 import { buildTestProfile, gzip9, sha256Hex } from './testing/brown-models';
@@ -15,6 +16,7 @@ describe('useKeyboardEngine', () => {
   let built: ReturnType<typeof buildTestProfile>;
   let profileGz: Uint8Array;
   let baseGz: Uint8Array;
+  let wordsGz: Uint8Array;
   let calls: string[];
 
   beforeAll(() => {
@@ -26,7 +28,9 @@ describe('useKeyboardEngine', () => {
     });
     profileGz = gzip9(built.profileBytes);
     baseGz = gzip9(built.baseBytes ?? new Uint8Array());
+    wordsGz = gzip9(built.baseWordsBytes ?? new Uint8Array());
   });
+  const wordsSha = () => sha256Hex(built.baseWordsBytes ?? new Uint8Array());
 
   afterEach(() => clearModelDownloads());
 
@@ -49,16 +53,17 @@ describe('useKeyboardEngine', () => {
           // `plain`: as if a proxy had sent it with Content-Encoding: gzip and the browser unpacked it.
           return new Response(plain ? built.profileBytes.slice() : profileGz.slice(), {
             status: 200,
-            headers: { ETag: `"${sha256Hex(profileGz)}"` },
+            headers: { ETag: `"${sha256Hex(profileGz)}"`, 'X-Keyloom-Base-Words': wordsSha() },
           });
         }
         if (path === `/api/base-models/${sha}`) return new Response(baseGz.slice(), { status: 200 });
+        if (path === `/api/base-words/${wordsSha()}`) return new Response(wordsGz.slice(), { status: 200 });
         return new Response(JSON.stringify({ statusCode: 404, message: 'Not found.' }), { status: 404 });
       }),
     );
   };
 
-  it('downloads, loads and answers like suggest() on the same BlendedModel', async () => {
+  it('downloads, loads and answers like the shared word list on the same models', async () => {
     stubServer();
     const { result } = renderHook(() => useKeyboardEngine(V1));
     expect(result.current.status).toBe('downloading');
@@ -66,6 +71,7 @@ describe('useKeyboardEngine', () => {
     expect(calls).toEqual([
       `/api/profile-versions/${V1}/model`,
       `/api/base-models/${built.header.baseModelSha256}`,
+      `/api/base-words/${wordsSha()}`,
     ]);
     expect(result.current.slots).toBe(3);
     expect(result.current.caseFold).toBe(false);
@@ -74,6 +80,8 @@ describe('useKeyboardEngine', () => {
       versionCompressedBytes: profileGz.length,
       baseBytes: built.baseBytes?.length,
       baseCompressedBytes: baseGz.length,
+      baseWordsBytes: built.baseWordsBytes?.length,
+      baseWordsCompressedBytes: wordsGz.length,
       order: 5,
       contexts: built.personal.contextCount,
     });
@@ -85,10 +93,21 @@ describe('useKeyboardEngine', () => {
       result.current.request('the ', 3);
     });
     await waitFor(() => expect(result.current.suggestions?.seq).toBe(3));
-    const reference = new BlendedModel(built.personal, built.base ?? built.personal, 0.5);
+    // The reference learns "the " as the adaptive engine does before answering.
+    const personal = built.personal.clone();
+    personal.adaptive = true;
+    const list = new WordPredictor({
+      personal: WordNgramModel.fromBytes(built.wordBytes ?? new Uint8Array()),
+      base: built.baseWords,
+      char: new BlendedModel(personal, built.base ?? built.personal, 0.5),
+      weights: built.header.wordWeights ?? { personal: 0.5, base: 0.3, lexicon: 0.05, cache: 0.15 },
+      capitalize: true,
+      adaptive: true,
+    });
     const history = prepareText('the ');
+    for (let at = 0; at < history.length; at++) list.learn(history, at);
     expect(result.current.suggestions?.words).toEqual(
-      suggest(reference, history, history.length, 3).map((s) => s.word),
+      list.suggest(history, history.length, 3).map((s) => s.word),
     );
     expect(result.current.suggestions?.text).toBe('the ');
   });
@@ -117,6 +136,7 @@ describe('useKeyboardEngine', () => {
       `/api/profile-versions/${V2}/model`,
     ]);
     expect(calls.filter((c) => c.includes('/base-models/'))).toHaveLength(1);
+    expect(calls.filter((c) => c.includes('/base-words/'))).toHaveLength(1);
     rerender({ id: null });
     expect(result.current.status).toBe('idle');
   });

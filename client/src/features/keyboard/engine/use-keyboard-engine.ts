@@ -1,5 +1,5 @@
-// The keyboard's engine as a React hook: downloads the version's model (+ its base model, once per
-// browser session), gunzips it and loads it in a Web Worker, then answers suggestion requests.
+// The keyboard's engine as a React hook: downloads the version's model (+ its base model and the
+// base vocabulary, once per browser session), gunzips it and loads it in a Web Worker, then answers suggestion requests.
 // Once loaded, everything runs in memory: the keyboard keeps working if the network drops.
 import { useCallback, useEffect, useRef, useState } from 'react';
 import type { EngineReply, EngineRequest } from './engine-protocol';
@@ -14,6 +14,9 @@ export type ModelDownloadInfo = {
   versionCompressedBytes: number;
   baseBytes: number;
   baseCompressedBytes: number;
+  /** The base vocabulary's sizes (0 when none was loaded). */
+  baseWordsBytes: number;
+  baseWordsCompressedBytes: number;
   /** Time the worker took to read and load the models, ms. */
   loadMs: number;
   order: number;
@@ -53,12 +56,7 @@ export type KeyboardEngine = {
   resetLearning: () => void;
 };
 
-type Download = {
-  versionBytes: number;
-  versionCompressedBytes: number;
-  baseBytes: number;
-  baseCompressedBytes: number;
-};
+type Download = Omit<ModelDownloadInfo, 'loadMs' | 'order' | 'contexts'>;
 type SuggestRequest = Extract<EngineRequest, { type: 'suggest' }>;
 
 const messageOf = (error: unknown): string => (error instanceof Error ? error.message : String(error));
@@ -139,6 +137,8 @@ export function useKeyboardEngine(versionId: string | null): KeyboardEngine {
               versionCompressedBytes: 0,
               baseBytes: 0,
               baseCompressedBytes: 0,
+              baseWordsBytes: 0,
+              baseWordsCompressedBytes: 0,
             }),
             loadMs: reply.loadMs,
             order: reply.order,
@@ -168,20 +168,24 @@ export function useKeyboardEngine(versionId: string | null): KeyboardEngine {
     };
 
     downloadVersionModels(versionId)
-      .then(({ version, base }) => {
+      .then(({ version, base, baseWords }) => {
         if (!live) return;
         download = {
           versionBytes: version.bytes.length,
           versionCompressedBytes: version.compressedBytes,
           baseBytes: base?.bytes.length ?? 0,
           baseCompressedBytes: base?.compressedBytes ?? 0,
+          baseWordsBytes: baseWords?.bytes.length ?? 0,
+          baseWordsCompressedBytes: baseWords?.compressedBytes ?? 0,
         };
         patch({ status: 'loading' });
         const profile = ownBuffer(version.bytes);
         const baseBuffer = base ? ownBuffer(base.bytes) : null;
+        const wordsBuffer = baseWords ? ownBuffer(baseWords.bytes) : null;
+        const transfer = [profile, baseBuffer, wordsBuffer].filter((b): b is ArrayBuffer => b !== null);
         worker.postMessage(
-          { type: 'load', profile, base: baseBuffer, adaptive: true },
-          baseBuffer ? [profile, baseBuffer] : [profile],
+          { type: 'load', profile, base: baseBuffer, baseWords: wordsBuffer, adaptive: true },
+          transfer,
         );
       })
       .catch((reason: unknown) => fail(messageOf(reason)));
