@@ -130,6 +130,17 @@ describe('WordPredictor: learning what is typed', () => {
     expect(listAfter(p, 'We found a zorbleck on the beach. Then z', 5)).toContain('zorbleck');
   });
 
+  it('counts a word learned without a client word model (an older profile) as vocabulary', () => {
+    // An older profile file has no client words: what is typed lives in the cache only, and the
+    // word it offers from there must count as a word of the vocabulary.
+    const p = predictor({ personal: null });
+    expect(p.inVocabulary('zorbleck')).toBe(false);
+    type(p, 'We found a zorbleck and a zorbleck. ');
+    const list = listAfter(p, 'We found a zorbleck and a zorbleck. Then z', 5);
+    expect(list).toContain('zorbleck');
+    for (const w of list) expect(p.inVocabulary(w), w).toBe(true);
+  });
+
   it('learns nothing when static', () => {
     const p = predictor({ adaptive: false });
     type(p, 'We found a zorbleck on the beach. ');

@@ -182,12 +182,16 @@ export class WordPredictor implements ListPredictor {
     this.baseIndex = this.base ? baseIndexOf(this.base) : null;
   }
 
-  /** True when a word (as typed or offered) is in the vocabulary: the client's words or the base's. */
+  /**
+   * True when a word (as typed or offered) is in the vocabulary: the client's words, the base's, or
+   * a word learned while typing (held by the cache when there is no client word model).
+   */
   inVocabulary(word: string): boolean {
     const key = wordKey(word);
     if (!isOfferable(key)) return false;
     return (
       (this.personal?.has(key) ?? false) ||
+      this.cache.probability(key) > 0 ||
       (this.base?.ngram.has(key) ?? false) ||
       (this.base?.lexicon ? this.base.lexicon.idOf(key) >= 0 : false)
     );
