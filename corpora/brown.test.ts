@@ -7,7 +7,7 @@ describe('Brown reconstruction', () => {
   const corpus = loadBrown();
 
   it('has 500 samples in 15 categories', () => {
-    // Francis & Kučera manual: 500 samples in 15 genre categories (REFERENCES §8, [V]).
+    // Francis & Kučera manual: 500 samples in 15 genre categories (docs/references.md §5).
     expect(corpus.documents).toHaveLength(500);
     expect(new Set(corpus.documents.map((d) => d.section)).size).toBe(15);
     expect(new Set(corpus.documents.map((d) => d.category)).size).toBe(15);
@@ -15,7 +15,7 @@ describe('Brown reconstruction', () => {
   });
 
   it('has about 5.96 million characters of running text', () => {
-    // Brown et al. 1992 report 5.96 M characters for the corpus (REFERENCES §8, [V]).
+    // Brown et al. 1992 report 5.96 M characters for the corpus (docs/references.md §5).
     // Tolerance ±1% (±59,600): the figure is rounded to 3 digits (±5,000), and
     // our rebuild fixes conventions the original character stream may not share:
     // one space between sentences (~57,000 of them), closed-up "--" dashes
@@ -26,7 +26,7 @@ describe('Brown reconstruction', () => {
   });
 
   it('has about 1,014,312 words', () => {
-    // Francis & Kučera manual count 1,014,312 words (REFERENCES §8, [S] via the NLTK README).
+    // Francis & Kučera manual count 1,014,312 words (docs/references.md §5 via the NLTK README).
     // Tolerance ±0.5% (±5,072): we count tagged tokens containing a letter or
     // digit; the manual's rules for symbols (&, $), split numerals and
     // formulas are not stated in the package, and those tokens number a few thousand.
@@ -63,7 +63,7 @@ describe('detokenize', () => {
 
 describe('SUBTLEX lexicon', () => {
   it('has the 74,286 word types of SUBTLEX-US', () => {
-    // Brysbaert & New 2009: 74,286 word types (REFERENCES §8, [V]). The npm
+    // Brysbaert & New 2009: 74,286 word types (docs/references.md §5). The npm
     // list may fold a few spellings together, so allow 0.1%.
     const lexicon = loadLexicon();
     expect(Math.abs(lexicon.size - 74_286)).toBeLessThan(75);

@@ -1,4 +1,4 @@
-// Profile versions over HTTP against real PostgreSQL (issue 5): configure, train through the same
+// Profile versions over HTTP against real PostgreSQL: configure, train through the same
 // job handler the worker runs (called in-process here), progress, failure, cancel, retry, the
 // sign-off → approval path for every role, concurrent approval, export + verify, withdrawal.
 // One test lets pg-boss itself deliver a job to a handler. Training inputs are kept small
@@ -422,7 +422,7 @@ describe('profile versions (HTTP)', () => {
       for (const k of notCarer) got.push((await post(cast[k], path, { comment: 'ok' })).status);
       expect(got).toEqual([403, 403, 403, 404, 403, 401]);
       await post(cast.assignedCarer, path, { comment: ' ' }).expect(400);
-      // Issue 6: not before the version was tried on the test keyboard.
+      // Not before the version was tried on the test keyboard.
       const untried = await post(cast.assignedCarer, path, { comment: 'Looks fine.' }).expect(409);
       expect(untried.body.message).toBe(
         'Try this version on the test keyboard at least once before signing it off.',

@@ -1,5 +1,5 @@
-// Language samples over HTTP against real PostgreSQL: uploads (multipart and paste), every bad input
-// of issue 4, roles × routes, flag decisions and consent withdrawal. Phone numbers are from Ofcom's
+// Language samples over HTTP against real PostgreSQL: uploads (multipart and paste), every kind of bad
+// input, roles × routes, flag decisions and consent withdrawal. Phone numbers are from Ofcom's
 // drama range (07700 900xxx); e-mail domains example.org (RFC 2606). Byte encodings are made with
 // Node's Buffer (a general-purpose reference), gzip/PNG/PDF by their published signatures.
 import type { Role, SampleDetail, SampleSummary, UploadResult } from '@keyloom/shared';

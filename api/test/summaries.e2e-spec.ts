@@ -1,4 +1,4 @@
-// Progress summaries against real PostgreSQL and the fake mail server (issue 7): the mail job's
+// Progress summaries against real PostgreSQL and the fake mail server: the mail job's
 // delivery step, called in-process as the worker calls it — sent and read back from the fake server's
 // API, SMTP down then up → delivered once, two jobs at once → one e-mail, a permanent SMTP refusal →
 // failed, consent gone while queued → withheld; then the routes (summaries, preview, resend, stop link).

@@ -1,4 +1,4 @@
-// The test keyboard's API over HTTP against real PostgreSQL (issue 6): the version's model download
+// The test keyboard's API over HTTP against real PostgreSQL: the version's model download
 // (byte-identical, ETag, 304), the base model download, trials (replayed and measured by the API,
 // idempotent re-uploads), practice phrases, the sign-off gate and report-problem, consent withdrawal.
 // Training is kept small (2 folds, a 400-character keystroke sample) so the suite stays fast.
@@ -210,7 +210,7 @@ describe('test keyboard (HTTP)', () => {
 
     it('stores what the API measured from the log, never the browser’s figures', async () => {
       // MacKenzie (2002), "A note on calculating text entry speed": 43 characters in 20 s →
-      // (43 − 1) / 20 × 60 / 5 = 25.2 wpm (docs/references.md). One key per character: KSPC 1 (MacKenzie 2002).
+      // (43 − 1) / 20 × 60 / 5 = 25.2 wpm (docs/references.md §2). One key per character: KSPC 1 (MacKenzie 2002).
       const phrase = 'the quick brown fox jumps over the lazy dog';
       const events = typedEvents(phrase, 20_000);
       const body = {

@@ -1,4 +1,4 @@
-// Caseload (issue 4): the clinician opens a client, records consent, uploads two demo samples,
+// Caseload: the clinician opens a client, records consent, uploads two demo samples,
 // redacts a flagged phone number and reads the statistics; the supervisor reads the audit log.
 // Axe scan (no serious or critical violations) of each page on the way; screenshots in e2e/out.
 import assert from 'node:assert/strict';

@@ -1,4 +1,4 @@
-// Test keyboard (issue 6): the carer tries the seeded version 1 of the demo client. Sign-off is
+// Test keyboard: the carer tries the seeded version 1 of the demo client. Sign-off is
 // refused before any trial (button and API); a direct-mode trial types a practice phrase by
 // clicking keys and picking suggestions, and the logged keystrokes equal the clicks; scanning
 // driven by the Space switch at 150 ms; dwell by hovering; axe in every mode with screenshots;

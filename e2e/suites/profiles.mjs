@@ -1,4 +1,4 @@
-// Profile versions (issue 5): the clinician configures and trains a version of the demo client,
+// Profile versions: the clinician configures and trains a version of the demo client,
 // watches the progress bar and reads the results and charts; the assigned carer tries it and signs it off; the
 // supervisor approves it and it becomes the active profile. Axe scan (no serious or critical
 // violations) of each page on the way; screenshots in e2e/out.

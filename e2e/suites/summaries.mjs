@@ -1,4 +1,4 @@
-// Family updates (issue 7): the demo clinician composes a progress summary for the demo client with
+// Family updates: the demo clinician composes a progress summary for the demo client with
 // the keyboard, previews it (text and the two chart images with their alt text), sends it; the
 // worker delivers it through SMTP to the fake mail server, whose API shows one message for the
 // consenting contact and none for the contact who never agreed. Then the family member's stop link:

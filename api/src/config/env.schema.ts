@@ -65,11 +65,11 @@ export const envSchema = z
       .optional()
       .transform((value) => (value === undefined ? undefined : value === 'true' || value === '1')),
     DEMO_PASSWORD: z.string().min(12, { error: 'Use at least 12 characters.' }).default('keyloom-demo'),
-    // Language-sample upload limits (issue 4): MB per file, MB stored per client, files per upload.
+    // Language-sample upload limits: MB per file, MB stored per client, files per upload.
     SAMPLE_MAX_FILE_MB: wholeNumber(1, 1_000, 20),
     SAMPLE_MAX_CLIENT_MB: wholeNumber(1, 100_000, 200),
     SAMPLE_MAX_FILES: wholeNumber(1, 1_000, 50),
-    // Profile training (issue 5): jobs one worker process runs at once, and cross-validation folds.
+    // Profile training: jobs one worker process runs at once, and cross-validation folds.
     WORKER_CONCURRENCY: wholeNumber(1, 8, 1),
     PROFILE_FOLDS: wholeNumber(2, 10, 5),
     // Key of the HMAC-SHA-256 signature on exported profile files. Unset: a random key is made once and

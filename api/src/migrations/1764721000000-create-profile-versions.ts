@@ -1,6 +1,6 @@
 import type { MigrationInterface, QueryRunner } from 'typeorm';
 
-// Profile versions (issue 5): frozen settings and samples (with their text as it was when the
+// Profile versions: frozen settings and samples (with their text as it was when the
 // version was configured), training state, the engine's report and the serialised personal model.
 // They go with their client (ON DELETE CASCADE); consent withdrawal deletes them through the
 // 'profileVersions' withdrawal hook.

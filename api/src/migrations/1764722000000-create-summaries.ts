@@ -1,6 +1,6 @@
 import type { MigrationInterface, QueryRunner } from 'typeorm';
 
-// Progress summaries (issue 7): what was sent (period, versions, note, content) and one row per
+// Progress summaries: what was sent (period, versions, note, content) and one row per
 // recipient and send round with its idempotency key, delivery state and stop-link token. They go with
 // their client (ON DELETE CASCADE); a deleted contact leaves the record of what was sent (SET NULL).
 export class CreateSummaries1764722000000 implements MigrationInterface {

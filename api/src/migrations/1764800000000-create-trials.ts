@@ -1,6 +1,6 @@
 import type { MigrationInterface, QueryRunner } from 'typeorm';
 
-// Test-keyboard trials (issue 6): one row per finished trial of a profile version, with the log the
+// Test-keyboard trials: one row per finished trial of a profile version, with the log the
 // API replayed and the measures it computed from it; and the practice phrases a clinician adds for a
 // client. Both go with their client (and a trial with its version); a removed account leaves the
 // record of who did it by name (SET NULL).

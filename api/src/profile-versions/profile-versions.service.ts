@@ -703,7 +703,7 @@ export class ProfileVersionsService implements OnModuleInit {
   }
 }
 
-// Whether the version was tried at least once on the test keyboard (the trials table is issue 6's).
+// Whether the version was tried at least once on the test keyboard (the trials table is the test keyboard's).
 async function hasTrial(manager: EntityManager, versionId: string): Promise<boolean> {
   const rows: unknown[] = await manager.query('SELECT 1 FROM trials WHERE profile_version_id = $1 LIMIT 1', [
     versionId,

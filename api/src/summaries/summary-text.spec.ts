@@ -30,10 +30,10 @@ describe('savingsPhrase', () => {
 describe('ratePhrase', () => {
   it.each([
     // Koester & Simpson 2014, switch users before/after settings optimisation: 1.42 and 2.72 wpm
-    // (docs/references.md); the wording is derived.
+    // (docs/references.md §2); the wording is derived.
     [1.42, 'roughly 1 word a minute'],
     [2.72, 'roughly 3 words a minute'],
-    // MacKenzie 2002 worked example: 42 characters in 20 s = 2.10 cps → 25.2 wpm (docs/references.md).
+    // MacKenzie 2002 worked example: 42 characters in 20 s = 2.10 cps → 25.2 wpm (docs/references.md §2).
     [((42 / 20) * 60) / 5, 'roughly 25 words a minute'],
     [0.3, 'less than 1 word a minute'],
     [Number.NaN, 'less than 1 word a minute'],
@@ -123,8 +123,8 @@ describe('summaryText', () => {
 
 describe('trialsSentence', () => {
   it('puts the measured trial means in words, or nothing without trials', () => {
-    // 1 − keystrokes / characters (the brief's KS definition): 10 selections for 14 characters → 0.286
-    // (derived); Koester & Simpson 2014 2.72 wpm (docs/references.md).
+    // 1 − keystrokes / characters (the keystroke-savings definition, docs/references.md §2): 10 selections for 14 characters → 0.286
+    // (derived); Koester & Simpson 2014 2.72 wpm (docs/references.md §2).
     expect(trialsSentence({ count: 3, keystrokeSavings: 1 - 10 / 14, wpm: 2.72 })).toBe(
       'In 3 tries on the test keyboard, about 3 in 10 key presses were saved, at roughly 3 words a minute.',
     );

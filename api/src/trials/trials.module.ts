@@ -13,7 +13,7 @@ import { Trial } from './trial.entity';
 import { TrialsController } from './trials.controller';
 import { TrialsService } from './trials.service';
 
-// Issue 6, the test keyboard's API: model downloads, trials, practice phrases.
+// The test keyboard's API: model downloads, trials, practice phrases.
 @Module({
   imports: [
     TypeOrmModule.forFeature([Trial, PracticePhraseRow]),

@@ -34,7 +34,7 @@ export const staffUser = (role: Role, overrides: Partial<User> = {}): User => ({
   ...overrides,
 });
 
-// ---- Caseload fixtures (issue 4), invented for the Willowmere demo ----------------------
+// ---- Caseload fixtures, invented for the Willowmere demo ----------------------
 
 export const ASHBY_ID = '5d1f3a7c-2b4e-4c6d-8e9f-0a1b2c3d4e51';
 

@@ -1,5 +1,5 @@
 // `model compress` / `model decompress` spawned exactly as users run them
-// (issue 3 command-line contract): byte-exact round trip, exit code 2 with
+// (the command-line contract): byte-exact round trip, exit code 2 with
 // one line for bad input. The round trip is checked with cmp-like byte
 // equality; node:zlib's crc32 (reference library) confirms the stored CRC.
 import { spawnSync } from 'node:child_process';

@@ -8,7 +8,7 @@ import { prepareText } from '../engine/index';
 import { freshModel, trainPersonalModel, tuneBlendWeightOnTail } from '../engine/evaluation/index';
 import { suggest } from '../engine/search/index';
 
-// The command line is a contract (issue 3): spawn it exactly as users do.
+// The command line is a contract: spawn it exactly as users do.
 const root = join(__dirname, '..', '..', '..');
 const dir = mkdtempSync(join(tmpdir(), 'keyloom-cli-'));
 const train = join(dir, 'train.txt');
@@ -85,7 +85,7 @@ describe('model evaluate', () => {
     for (let w = 1; w <= 10; w++) expect(ks[w] + kspc[w]).toBeCloseTo(1, 5);
     expect(ks['10']).toBeGreaterThan(0.3); // the test text repeats the training phrases
     expect(Object.keys(out.scanStepsPerChar as object).sort()).toEqual(['modelOrdered', 'rowColumn']);
-    // Real coded stream: within a few bytes of the ideal length (WNC87 bound, REFERENCES §3).
+    // Real coded stream: within a few bytes of the ideal length (WNC87 bound, docs/references.md §1).
     expect(Math.abs((out.bpcCoded as number) - (out.bpcIdeal as number)) * testText.length).toBeLessThan(40);
   });
 

@@ -1,7 +1,7 @@
-// The PPM model against docs/references.md ("abracadabra", max order 2), via a
+// The PPM model against docs/references.md §1 ("abracadabra", max order 2), via a
 // tiny exact-fraction reference PPM written here from the published
-// definitions (docs/references.md). Every expected value below is "derived"
-// (marked "derived" in docs/references.md): recomputed from the definitions, not copied
+// definitions (docs/references.md §1). Every expected value below is "derived"
+// (marked "derived" in docs/references.md §1): recomputed from the definitions, not copied
 // from a published table.
 import { describe, expect, it } from 'vitest';
 import { PpmModel } from './ppm-model';
@@ -109,10 +109,10 @@ const asObject = (m: Map<number, number> | Map<string, number> | undefined): Rec
   return o;
 };
 
-describe('PpmModel on the abracadabra example (docs/references.md, derived)', () => {
+describe('PpmModel on the abracadabra example (docs/references.md §1, derived)', () => {
   it('holds the §2 counts after the string, full updating', () => {
     const [ref, model] = trainBoth('C', true, false);
-    // Count table after "abracadabra" (derived; sources in docs/references.md).
+    // Count table after "abracadabra" (derived; sources in docs/references.md §1).
     const expected: Record<string, Record<string, number>> = {
       ab: { r: 2 },
       ac: { a: 1 },
@@ -136,7 +136,7 @@ describe('PpmModel on the abracadabra example (docs/references.md, derived)', ()
 
   it('holds the §2 counts with update exclusion', () => {
     const [ref, model] = trainBoth('C', true, true);
-    // After one more symbol (derived; sources in docs/references.md): b→{r:1}, r→{a:1}, order 0 {a:4,b:1,c:1,d:1,r:1}; a and order 2 unchanged.
+    // After one more symbol (derived; sources in docs/references.md §1): b→{r:1}, r→{a:1}, order 0 {a:4,b:1,c:1,d:1,r:1}; a and order 2 unchanged.
     const expected: Record<string, Record<string, number>> = {
       b: { r: 1 },
       r: { a: 1 },
@@ -152,7 +152,7 @@ describe('PpmModel on the abracadabra example (docs/references.md, derived)', ()
     }
   });
 
-  // Next-symbol probabilities after "abracadabra", |A| = 256, q retained (docs/references.md, derived).
+  // Next-symbol probabilities after "abracadabra", |A| = 256, q retained (docs/references.md §1, derived).
   const nextCases: Array<{ method: EscapeMethod; exclusion: boolean; expected: Record<string, string> }> = [
     {
       method: 'C',
@@ -201,7 +201,7 @@ describe('PpmModel on the abracadabra example (docs/references.md, derived)', ()
     });
   }
 
-  // Whole-string code length from an empty model (derived; sources in docs/references.md).
+  // Whole-string code length from an empty model (derived; sources in docs/references.md §1).
   const wholeCases: Array<{ method: EscapeMethod; exclusion: boolean; perSymbol: string[]; bits: number }> = [
     {
       method: 'C',
@@ -259,7 +259,7 @@ describe('PpmModel distributions', () => {
     text[i] = i % 97 === 50 ? 0x1f600 + (i % 5) : letters.charCodeAt(Math.floor(random() * letters.length));
 
   for (const method of ['A', 'C', 'D'] as const) {
-    it(`sums to 1 over the alphabet at every position (method ${method}, exclusion; sources in docs/references.md)`, () => {
+    it(`sums to 1 over the alphabet at every position (method ${method}, exclusion; sources in docs/references.md §1)`, () => {
       const model = new PpmModel({ order: 3, escape: method, exclusion: true, adaptive: true });
       const out = new Distribution();
       for (let i = 0; i < text.length; i++) {
@@ -285,10 +285,10 @@ describe('PpmModel distributions', () => {
     model.distribution(h, h.length, out);
     let sum = out.rest;
     for (let j = 0; j < out.size; j++) sum += out.probs[j];
-    expect(sum).toBeCloseTo(50101 / 57344, 12); // docs/references.md, derived
+    expect(sum).toBeCloseTo(50101 / 57344, 12); // docs/references.md §1, derived
     for (let j = 0; j < out.size; j++)
       expect(out.probs[j]).toBeCloseTo(model.probability(h, h.length, out.symbols[j]), 14);
-    expect(out.unnamed(0x74)).toBeCloseTo(15 / 57344, 14); // P(t), docs/references.md, derived
+    expect(out.unnamed(0x74)).toBeCloseTo(15 / 57344, 14); // P(t), docs/references.md §1, derived
   });
 
   it('gives every code point a positive probability with literals on', () => {

@@ -1,6 +1,6 @@
 // Prediction by Partial Matching over Unicode code points.
 //
-// Coding a symbol x after a context (docs/references.md): start at the longest
+// Coding a symbol x after a context (docs/references.md §1): start at the longest
 // context of order <= k that has been seen; if x has a positive weight there,
 // code it; otherwise code an escape and drop one order. Unseen (or empty)
 // contexts are skipped at no cost. Below order 0 sits order -1: a uniform
@@ -282,7 +282,7 @@ export class PpmModel implements NextSymbolModel {
       for (let i = start; i < end2; i++) {
         const s = trie.symbolAt(i);
         // A symbol named by a longer context is coded there; without
-        // exclusion its share here is wasted (docs/references.md).
+        // exclusion its share here is wasted (docs/references.md §1).
         if (mark[s] === token) continue;
         const w = symbolWeight(m, trie.countAt(i));
         if (w <= 0) continue;

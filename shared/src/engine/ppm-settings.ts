@@ -1,6 +1,6 @@
 // Settings of a PPM model and their validation.
 
-/** Escape methods (docs/references.md): A and B (Cleary & Witten 1984; B is the reduced-count definition), C (Moffat 1990), D (Howard 1993). */
+/** Escape methods (docs/references.md §1): A and B (Cleary & Witten 1984; B is the reduced-count definition), C (Moffat 1990), D (Howard 1993). */
 export type EscapeMethod = 'A' | 'B' | 'C' | 'D';
 
 /** Number of Unicode code points (0..0x10FFFF). */
@@ -26,7 +26,7 @@ export type PpmSettings = {
    * Order -1 holds one extra "literal" index (weight 1) that leads to a
    * uniform choice among the code points alphabetSize..0x10FFFF not yet
    * excluded. Default true. False gives the textbook order -1 (uniform over
-   * the base alphabet only; docs/references.md uses |A| = 256 this way); then
+   * the base alphabet only; docs/references.md §1 uses |A| = 256 this way); then
    * code points >= alphabetSize cannot be coded.
    */
   literals?: boolean;

@@ -1,5 +1,5 @@
 // The range coder and whole-text coding: coded length against the ideal
-// -log2 P (Witten, Neal & Cleary 1987; docs/references.md test idea and check
+// -log2 P (Witten, Neal & Cleary 1987; docs/references.md §1 test idea and check
 // value #11: actual <= ceil(ideal) + 2 + slack and >= ideal - 1), and exact
 // round trips (the test set follows the reference coder's tests commonly used for
 // coders: empty, one symbol, every symbol, runs, random inputs).

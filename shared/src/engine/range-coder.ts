@@ -11,7 +11,7 @@
 // Each step takes r = floor(range / total), moves low by r * low(i) and sets
 // range = r * (high(i) - low(i)). With total <= 2^24 and range >= 2^40 the
 // truncation loses at most -log2(1 - 2^-16) ~ 2.2e-5 bits per step
-// (docs/references.md gives the same argument for a 32-bit coder).
+// (docs/references.md §1 gives the same argument for a 32-bit coder).
 import { type FrequencyTable, MAX_TABLE_TOTAL } from './frequency-table';
 
 const WINDOW = 2 ** 48;

@@ -39,7 +39,7 @@ export const accessTimingLabels: Record<AccessTimingField, string> = {
 };
 
 // Starting values when the clinician has not measured the client's own timing yet
-// (common practice, no source: scan 0.5–2 s per step, gaze dwell 0.45–1 s; see REFERENCES §7).
+// (common practice, no source: scan 0.5–2 s per step, gaze dwell 0.45–1 s; see docs/references.md §3).
 export const defaultAccessTiming = { scanIntervalMs: 1000, dwellMs: 800, keyTimeMs: 1500 } as const;
 
 const msField = (min: number, max: number, what: string) =>

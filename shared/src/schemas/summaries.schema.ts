@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import { isoDateField, safeText } from './common';
 
-// Progress summaries e-mailed to the client's family contacts (issue 7).
+// Progress summaries e-mailed to the client's family contacts.
 
 const summaryFields = {
   from: isoDateField,

@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import { isoDateTimeField, safeText } from './common';
 
-// Trials on the test keyboard (issue 6): what the browser logs and posts, what the API stores and returns.
+// Trials on the test keyboard: what the browser logs and posts, what the API stores and returns.
 
 /** How the person selects on the test keyboard during a trial. */
 export const trialAccessMethods = ['direct', 'dwell', 'scanning'] as const;

@@ -42,7 +42,7 @@ export function msdErrorRate(target: string, text: string): number {
  * - keystroke savings = 1 − keystrokes / characters, KSPC = keystrokes / characters, where a
  *   keystroke is one selection (letter, punctuation, space, backspace or picked suggestion) and
  *   characters are the code points of the final text (MacKenzie 2002, KSPC; KS = 1 − KSPC when the
- *   baseline is one key per character — docs/references.md, derived);
+ *   baseline is one key per character — docs/references.md §2, derived);
  * - words per minute = ((characters − 1) / seconds) × 60 / 5, timed from the first selection to the
  *   last (MacKenzie 2002, "A note on calculating text entry speed");
  * - error rate: msdErrorRate against the target phrase, when there is one.

@@ -75,7 +75,7 @@ describe('trial replay', () => {
 describe('trial measures', () => {
   it('words per minute: 43 characters in 20 s give 25.2 wpm', () => {
     // MacKenzie (2002), "A note on calculating text entry speed": (43 − 1) / 20 s = 2.10 cps;
-    // × 60 / 5 = 25.2 wpm (docs/references.md, the wpm step derived).
+    // × 60 / 5 = 25.2 wpm (docs/references.md §2, the wpm step derived).
     const phrase = 'the quick brown fox jumps over the lazy dog';
     expect([...phrase].length).toBe(43);
     const m = computeTrialMeasures(typed(phrase, 20_000), phrase);

@@ -50,7 +50,7 @@ function randomText(seed: number, length: number): string {
 
 describe('simulateKeystrokes', () => {
   it('equals the hand-worked toy example', () => {
-    // REFERENCES §5 toy check (derived): lexicon the 5, cat 4, then 3, there 2,
+    // A hand-made toy example, worked by hand from the ideal-user rules (derived; docs/references.md §2): lexicon the 5, cat 4, then 3, there 2,
     // car 1; text "then car " = 9 keys; W = 1 → 9 keys (KS 0%); W = 2 → 4 keys (KS 5/9).
     const model = new LexiconModel(
       new Map([

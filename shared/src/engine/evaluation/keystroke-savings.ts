@@ -1,6 +1,6 @@
 // Keystroke savings (KS) and keystrokes per character (KSPC) of a word
-// suggestion list, simulated with the "ideal user" convention (docs/references.md) and
-// REFERENCES §5. Conventions, fixed here for every figure Keyloom reports:
+// suggestion list, simulated with the "ideal user" convention (docs/references.md §2).
+// Conventions, fixed here for every figure Keyloom reports:
 //
 // 1. Keystrokes without suggestions: one key per character (code point),
 //    letters, spaces, punctuation and newlines alike (KSPC = 1.00).

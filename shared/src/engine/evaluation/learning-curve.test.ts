@@ -18,7 +18,7 @@ function bpc(train: string[], test: string): number {
 describe('learning curve on Brown press reportage', () => {
   it('improves with more training text, in bits and in keystrokes', () => {
     // More training text helps prediction (Lesher, Moulton & Higginbotham 1999:
-    // larger training text raises keystroke savings; REFERENCES §5 [V]).
+    // larger training text raises keystroke savings; docs/references.md §2).
     const test = news[11].text.slice(0, 4000);
     const curve = learningCurve(
       news.slice(0, 11).map((d) => d.text),
@@ -46,7 +46,7 @@ describe('learning curve on Brown press reportage', () => {
       ),
     }));
     expect(folds).toHaveLength(4);
-    // PPM on English text: about 2.2–2.5 bpc with ample training (REFERENCES §4);
+    // PPM on English text: about 2.2–2.5 bpc with ample training (docs/references.md §1);
     // with ~60k characters of training, somewhat worse.
     expect(summary.bpc.mean).toBeGreaterThan(2);
     expect(summary.bpc.mean).toBeLessThan(3.5);

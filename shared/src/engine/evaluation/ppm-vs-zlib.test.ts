@@ -47,14 +47,14 @@ describe('order-5 PPM against general-purpose compressors on held-out Brown text
   });
 
   it('lands in the published range for PPM on English text', () => {
-    // PPM on English: about 2.2 bpc (Cleary & Witten 1984, via Moffat 1990 abstract, REFERENCES §4 [V]);
+    // PPM on English: about 2.2 bpc (Cleary & Witten 1984, via Moffat 1990 abstract, docs/references.md §1);
     // PPMC on Calgary book1/book2 2.48/2.26 ([S]). With 1 MB of priming text we allow 1.9..2.6.
     expect(ppmBpc).toBeGreaterThan(1.9);
     expect(ppmBpc).toBeLessThan(2.6);
   });
 
   it('needs fewer than bpc + 1 model-ordered binary selections per character', () => {
-    // REFERENCES §7 [D]: a model at ~2 bpc needs < 3 binary selections per character,
+    // docs/references.md §3, derived: a model at ~2 bpc needs < 3 binary selections per character,
     // against 7 steps for a uniform 6×6 grid. Measured on a 5,000-character slice.
     const slice = test.subarray(0, 5_000);
     const r = scanCosts(model.clone(), slice, { adaptive: true });

@@ -15,7 +15,7 @@ describe('huffmanLengths', () => {
   });
 
   it('lies in [H, H + 1) and satisfies Kraft with equality on random distributions', () => {
-    // Huffman (1952); bound H ≤ L < H + 1 as in Cover & Thomas (REFERENCES §7, [M]).
+    // Huffman (1952); bound H ≤ L < H + 1 as in Cover & Thomas (docs/references.md §3, from memory).
     const rnd = seededRandom(3);
     for (let t = 0; t < 300; t++) {
       const n = 1 + Math.floor(rnd() * 80);
@@ -35,7 +35,7 @@ describe('huffmanLengths', () => {
 
 describe('scanCosts', () => {
   it('gives 7.0 row–column steps for a uniform 6×6 grid', () => {
-    // REFERENCES §7 (derived): uniform R×C grid costs (R+1)/2 + (C+1)/2 = 7.0 for 6×6.
+    // docs/references.md §3 (derived): uniform R×C grid costs (R+1)/2 + (C+1)/2 = 7.0 for 6×6.
     const grid = uniformGrid(6, 6);
     const model = new AddOneModel(0, grid.rows.flat().join(''));
     const text = toCodePoints(grid.rows.flat().join('').repeat(3));

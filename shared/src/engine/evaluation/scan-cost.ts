@@ -1,7 +1,7 @@
 // Expected scan steps per character, position by position over a test text:
 //
 // - Row–column scanning of a fixed layout: at each position the expected
-//   steps under the model's distribution, Σ p_i (r_i + c_i) (REFERENCES §7),
+//   steps under the model's distribution, Σ p_i (r_i + c_i) (docs/references.md §3),
 //   averaged over positions. Mass the model leaves unnamed (`rest`) is charged
 //   the off-layout cost.
 // - Binary selection ordered by the model: a Huffman code over the model's

@@ -1,6 +1,6 @@
 // Key layouts for row–column scanning and their expected cost.
 //
-// Row–column scanning (REFERENCES §7): the highlight steps down the rows; a
+// Row–column scanning (docs/references.md §3): the highlight steps down the rows; a
 // switch press picks the row; it then steps along the row; a second press
 // picks the key. The key at row r, column c (1-based) costs r + c scan steps,
 // and the expected cost over a distribution p is Σ p_i (r_i + c_i).

@@ -4,7 +4,7 @@ import { crossValidate, kFoldSplits, learningCurve, summarize } from './cross-va
 
 describe('text entry rates', () => {
   it('reproduces the worked example: 43 chars in 20 s → 2.10 cps → 25.2 wpm', () => {
-    // MacKenzie 2002, "A note on calculating text entry speed" (REFERENCES §9, [V]);
+    // MacKenzie 2002, "A note on calculating text entry speed" (docs/references.md §2);
     // 25.2 wpm derived with 5 characters per word.
     const cps = charsPerSecond(43, 20);
     expect(cps).toBeCloseTo(2.1, 12);
@@ -12,14 +12,14 @@ describe('text entry rates', () => {
   });
 
   it('gives 1.71 wpm for 7 scan steps at 1.0 s', () => {
-    // REFERENCES §7 (derived): 7 s per character = 8.57 char/min = 1.71 wpm.
+    // docs/references.md §2 (derived): 7 s per character = 8.57 char/min = 1.71 wpm.
     const r = estimateRates({ kind: 'scanning', scanIntervalMs: 1000 }, 1, 7, 0);
     expect(r.wpmWithout).toBeCloseTo(12 / 7, 12);
     expect(r.wpmWithout.toFixed(2)).toBe('1.71');
   });
 
   it('charges list reading, so savings need not speed typing up', () => {
-    // Koester & Levine 1994/1996 (REFERENCES §5): reading the list can cancel the savings.
+    // Koester & Levine 1994/1996 (docs/references.md §2): reading the list can cancel the savings.
     // Break-even when KS = t_read / (t_key + t_read) (derived from the time model).
     const slow = estimateRates({ kind: 'direct', keyMs: 1000 }, 0.6, 0, 1000);
     expect(slow.wpmWith).toBeLessThan(slow.wpmWithout);

@@ -1,7 +1,7 @@
-// Words per minute from access-method timings (REFERENCES §9): one "word" is
+// Words per minute from access-method timings (docs/references.md §2): one "word" is
 // 5 characters including spaces. These are model estimates, not measurements;
 // the product shows them beside the caution that keystroke savings are not
-// time savings (reading the list costs time, REFERENCES §5).
+// time savings (reading the list costs time, docs/references.md §2).
 
 /** Characters per word in text-entry rates (5, spaces included). */
 export const CHARS_PER_WORD = 5;

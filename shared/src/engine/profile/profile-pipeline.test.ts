@@ -167,7 +167,7 @@ describe('trainAndEvaluateProfile on an invented corpus', () => {
     // KS over all folds = 1 − total keystrokes / total characters (weighted by characters).
     const ks5 = report.perFold.reduce((s, f) => s + f.keystrokeSavings['5'] * f.ksChars, 0) / report.ksChars;
     expect(report.keystrokeSavings['5']).toBeCloseTo(ks5, 5);
-    // KS = 1 − KSPC when the baseline is one key per character (REFERENCES #31, derived).
+    // KS = 1 − KSPC when the baseline is one key per character (docs/references.md §2, derived).
     for (let w = 1; w <= 10; w++)
       expect(report.keystrokeSavings[String(w)] + report.kspc[String(w)]).toBeCloseTo(1, 6);
   });
@@ -203,7 +203,7 @@ describe('trainAndEvaluateProfile on an invented corpus', () => {
     const r = report.rates;
     expect(r.assumptions.timing).toEqual({ kind: 'dwell', dwellMs: 900 });
     expect(r.assumptions.defaultTiming).toBe(false);
-    // wpm = characters per second × 60 / 5 (REFERENCES §9 [V]): 900 ms per character → 13.33 wpm.
+    // wpm = characters per second × 60 / 5 (docs/references.md §2): 900 ms per character → 13.33 wpm.
     expect(r.wpmWithout).toBeCloseTo(60 / 0.9 / 5, 5);
     const again = estimateRates(r.assumptions.timing, report.kspc['5'], 0, r.assumptions.listReadMs);
     expect(r.wpmWith).toBeCloseTo(again.wpmWith, 5);

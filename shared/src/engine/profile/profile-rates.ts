@@ -8,9 +8,9 @@ import type { AccessSettings } from './profile-settings';
 // client record's defaults (schemas/clients.schema.ts defaultAccessTiming;
 // common practice, no source), so a record left at its defaults and a
 // profile without timings give the same estimate.
-/** Scan interval, ms (published intervals of 700–1000 ms: REFERENCES #36). */
+/** Scan interval, ms (intervals of 0.5–2 s per step are common practice, no source: docs/references.md §3). */
 export const DEFAULT_SCAN_INTERVAL_MS = 1000;
-/** Dwell, ms (typical 450–1000 ms: REFERENCES #37). */
+/** Dwell, ms (typical 450–1000 ms, Majaranta et al. 2009: docs/references.md §3). */
 export const DEFAULT_DWELL_MS = 800;
 /** Time per key for direct selection, ms. */
 export const DEFAULT_KEY_TIME_MS = 1500;

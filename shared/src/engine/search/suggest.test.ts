@@ -103,7 +103,7 @@ describe('suggest', () => {
   });
 
   it('returns the lexicon ranking of the hand-worked example', () => {
-    // REFERENCES §5 toy lexicon (derived): the 5, cat 4, then 3, there 2, car 1.
+    // A hand-made toy lexicon (derived by hand; docs/references.md §2): the 5, cat 4, then 3, there 2, car 1.
     const model = new LexiconModel(
       new Map([
         ['the', 5],

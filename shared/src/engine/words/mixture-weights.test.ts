@@ -1,5 +1,5 @@
 // Fitting the word mixture's weights by EM (Jelinek & Mercer 1980; Dempster, Laird & Rubin 1977:
-// an EM step never lowers the likelihood; docs/references.md).
+// an EM step never lowers the likelihood; docs/references.md §4).
 import { describe, expect, it } from 'vitest';
 import { loadBaseWords } from '../../../../corpora/base-words';
 import { demoSamples } from '../../../../corpora/demo-texts';

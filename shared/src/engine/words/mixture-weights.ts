@@ -1,6 +1,6 @@
 // Tuning the word mixture's weights (word-predictor.ts) on held-out text by
 // expectation–maximisation, the standard way to fit the weights of a linear
-// interpolation (Jelinek & Mercer 1980; docs/references.md): each step sets
+// interpolation (Jelinek & Mercer 1980; docs/references.md §4): each step sets
 // λ_i to the average share component i has in the probability of each word.
 // The log-likelihood never decreases from one step to the next.
 import { RecencyCache } from './recency-cache';

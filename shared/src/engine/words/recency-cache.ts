@@ -1,4 +1,4 @@
-// The cache component (Kuhn & De Mori 1990, docs/references.md): the last N
+// The cache component (Kuhn & De Mori 1990, docs/references.md §4): the last N
 // words typed, and P_cache(w) = (times w is among them) / (words held).
 // It is what lets a list learn within one session: a word just used is
 // likely again soon.

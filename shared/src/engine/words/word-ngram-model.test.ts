@@ -1,7 +1,7 @@
 // The word trigram model against the published definition of interpolated modified Kneser–Ney
 // smoothing (S. F. Chen, J. Goodman, 1998, "An empirical study of smoothing techniques for
 // language modeling", Harvard University TR-10-98, section 3.5 and the modified discounts D1, D2,
-// D3+ with Y = n1 / (n1 + 2 n2); docs/references.md). The corpus below is invented for this test;
+// D3+ with Y = n1 / (n1 + 2 n2); docs/references.md §4). The corpus below is invented for this test;
 // every expected value is derived by hand from those definitions, step by step in the comments.
 import { describe, expect, it } from 'vitest';
 import { ByteWriter, FormatError } from '../byte-io';

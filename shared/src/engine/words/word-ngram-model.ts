@@ -1,6 +1,6 @@
 // A word trigram model with interpolated Kneser–Ney smoothing (Kneser & Ney
 // 1995, in the interpolated form of Chen & Goodman 1998, one discount per
-// order; docs/references.md), over its own vocabulary with the written forms
+// order; docs/references.md §4), over its own vocabulary with the written forms
 // of each word. Used twice: the client's words (learning what is typed) and
 // the base corpus's words (frozen, rare n-grams pruned).
 //

