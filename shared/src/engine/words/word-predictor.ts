@@ -131,7 +131,10 @@ const PLACEHOLDER_CLOSE = 0x27eb;
 const scratch = new Distribution(512);
 let contextBuffer = new Int32Array(256);
 
-type Scored = { key: string; s: number };
+type Scored = { key: string; s: number; word?: string };
+type KeyInfo = { pid: number; bid: number; lex: number };
+/** Keys whose lookups are kept (bounds memory; common practice, no source). */
+const KEY_INFO_LIMIT = 100_000;
 
 function byScore(x: Scored, y: Scored): number {
   return y.s - x.s || (x.key < y.key ? -1 : x.key > y.key ? 1 : 0);
@@ -156,6 +159,7 @@ export class WordPredictor implements ListPredictor {
   private readonly personalIndex: PrefixIndex;
   private readonly baseIndex: BaseIndex | null;
   private readonly baseMemo = new Map<string, string[]>();
+  private readonly keyInfos = new Map<string, KeyInfo>();
   /**
    * The client's commonest words per short prefix (up to MEMO_PREFIX letters), kept up to date as
    * words are learned (counts only grow, so a learned word can only move up or enter a list).
@@ -232,18 +236,36 @@ export class WordPredictor implements ListPredictor {
   }
 
   /** The four word components' mixture for one key in context. */
+  /**
+   * What never changes about a key in this predictor, looked up once: its base id and word-list
+   * probability (the base is frozen), and its client id once it has one (ids never change).
+   */
+  private keyInfo(key: string): KeyInfo {
+    let info = this.keyInfos.get(key);
+    if (!info) {
+      const b = this.base;
+      info = {
+        pid: this.personal ? this.personal.idOf(key) : -1,
+        bid: b ? b.ngram.idOf(key) : -1,
+        lex: b?.lexicon ? b.lexicon.probability(key) : 0,
+      };
+      if (this.keyInfos.size >= KEY_INFO_LIMIT) this.keyInfos.clear();
+      this.keyInfos.set(key, info);
+    } else if (info.pid < 0 && this.personal) {
+      info.pid = this.personal.idOf(key); // learned since
+    }
+    return info;
+  }
+
   private wordScore(key: string, pu: number, pv: number, bu: number, bv: number): number {
     const w = this.weights;
+    const info = this.keyInfo(key);
     let s = 0;
-    if (w.personal > 0 && this.personal) {
-      const id = this.personal.idOf(key);
-      if (id > 1) s += w.personal * this.personal.probabilityOfIds(pu, pv, id);
-    }
-    if (w.base > 0 && this.base) {
-      const id = this.base.ngram.idOf(key);
-      if (id > 1) s += w.base * this.base.ngram.probabilityOfIds(bu, bv, id);
-    }
-    if (w.lexicon > 0 && this.base?.lexicon) s += w.lexicon * this.base.lexicon.probability(key);
+    if (w.personal > 0 && info.pid > 1)
+      s += w.personal * (this.personal as WordNgramModel).probabilityOfIds(pu, pv, info.pid);
+    if (w.base > 0 && info.bid > 1)
+      s += w.base * (this.base as BaseWords).ngram.probabilityOfIds(bu, bv, info.bid);
+    s += w.lexicon * info.lex;
     if (w.cache > 0) s += w.cache * this.cache.probability(key);
     return s;
   }
@@ -316,7 +338,7 @@ export class WordPredictor implements ListPredictor {
     if (this.char && this.charExponent > 0 && scored.length > 0) {
       // Only the words the character model scored stay: their scores are on another scale.
       scored.length = Math.min(scored.length, limit + CHAR_EXTRA);
-      const rests = scored.map((c) => toCodePoints(offer(c.key)).slice(end - begin));
+      const rests = scored.map((c) => toCodePoints((c.word = offer(c.key))).slice(end - begin));
       const probs = this.charWordProbabilities(history, begin, end, rests);
       const beta = this.charExponent;
       for (let i = 0; i < scored.length; i++)
@@ -331,7 +353,7 @@ export class WordPredictor implements ListPredictor {
     const seen = new Set<string>();
     for (const c of scored) {
       if (out.length >= limit) break;
-      const word = offer(c.key);
+      const word = c.word ?? offer(c.key);
       // The letters already typed, offered as they are, would add nothing a space does not.
       if (seen.has(word) || word === prefix) continue;
       seen.add(word);
