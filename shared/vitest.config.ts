@@ -6,5 +6,8 @@ export default defineConfig({
     include: ['src/**/*.test.ts', '../corpora/**/*.test.ts'],
     environment: 'node',
     testTimeout: 60_000,
+    // Hooks build models too (a profile trained once for a whole file): same headroom as a test on
+    // a 2-core machine shared with other work.
+    hookTimeout: 60_000,
   },
 });
