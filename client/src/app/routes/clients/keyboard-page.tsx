@@ -13,15 +13,11 @@ import { useMe } from '@/features/auth/api/get-me';
 import { useClient } from '@/features/clients/api/get-client';
 import { usePracticePhrases } from '@/features/keyboard/api/get-practice-phrases';
 import { KeyboardCautions } from '@/features/keyboard/components/keyboard-cautions';
-import {
-  defaultKeyboardVersion,
-  hasModel,
-  takesTrials,
-} from '@/features/keyboard/components/keyboard-versions';
+import { defaultKeyboardVersion, hasModel, takesTrials } from '@/features/keyboard/logic/keyboard-versions';
 import { PhraseAddForm } from '@/features/keyboard/components/phrase-add-form';
 import { type SimulatedFigures, TestKeyboard } from '@/features/keyboard/components/test-keyboard';
 import { useProfileVersions } from '@/features/profiles/api/get-profile-versions';
-import { atSlots, readReport } from '@/features/profiles/components/profile-report';
+import { atSlots, readReport } from '@/features/profiles/lib/profile-report';
 
 /** The version's simulated keystroke savings at a slot count and its estimated words per minute. */
 const simulatedOf =

@@ -20,12 +20,12 @@ import { keyboardPath, profileVersionPath } from '@/config/paths';
 import { useDeletePracticePhrase } from '@/features/keyboard/api/delete-practice-phrase';
 import { usePracticePhrases } from '@/features/keyboard/api/get-practice-phrases';
 import { trialsQueryOptions } from '@/features/keyboard/api/get-trials';
-import { defaultKeyboardVersion, hasModel } from '@/features/keyboard/components/keyboard-versions';
+import { defaultKeyboardVersion, hasModel } from '@/features/keyboard/logic/keyboard-versions';
 import { PhraseAddForm } from '@/features/keyboard/components/phrase-add-form';
-import { percentOrDash } from '@/features/keyboard/components/trial-figures';
+import { percentOrDash } from '@/features/keyboard/logic/trial-figures';
 import { TrialHistory } from '@/features/keyboard/components/trial-history';
 import { useProfileVersions } from '@/features/profiles/api/get-profile-versions';
-import { atSlots, readReport } from '@/features/profiles/components/profile-report';
+import { atSlots, readReport } from '@/features/profiles/lib/profile-report';
 import { ProfileStatusBadge } from '@/features/profiles/components/profile-status-badge';
 
 type Announce = (tone: 'success' | 'error', text: string) => void;

@@ -1,6 +1,7 @@
 import { type AuditPage, auditPageSchema } from '@keyloom/shared';
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
 import { apiRequest, toQueryString } from '@/lib/api-client';
+import { auditKeys } from './keys';
 
 /** The audit filters as they appear in the page's address; empty strings mean "any". */
 export type AuditFilters = {
@@ -29,7 +30,7 @@ export const getAudit = (filters: AuditFilters, signal?: AbortSignal): Promise<A
 
 export const auditQueryOptions = (filters: AuditFilters) =>
   queryOptions({
-    queryKey: ['audit', filters],
+    queryKey: auditKeys.list(filters),
     queryFn: ({ signal }) => getAudit(filters, signal),
     placeholderData: keepPreviousData,
   });

@@ -3,7 +3,7 @@ import { Button } from '@/components/ui/button';
 import { fieldClasses } from '@/components/ui/field-classes';
 import type { SelectOption } from '@/components/ui/select-field';
 import type { AuditFilters } from '../api/get-audit';
-import { auditActionOptions } from './audit-actions';
+import { auditActionOptions } from '../lib/audit-actions';
 
 type AuditFilterFormProps = {
   filters: AuditFilters;

@@ -9,7 +9,7 @@ import {
   TableRow,
 } from '@/components/ui/table';
 import { formatDateTime } from '@/lib/format';
-import { describeAction, summariseDetails } from './audit-actions';
+import { describeAction, summariseDetails } from '../lib/audit-actions';
 
 // Long addresses may wrap after the "@", never in the middle of a word.
 const EmailAddress = ({ email }: { email: string }) => {

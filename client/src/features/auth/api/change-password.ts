@@ -1,7 +1,7 @@
 import { type ChangePasswordInput, type SessionUser, sessionUserSchema } from '@keyloom/shared';
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { apiRequest } from '@/lib/api-client';
-import { meQueryOptions } from './get-me';
+import { authKeys } from './keys';
 
 export const changePassword = (input: ChangePasswordInput): Promise<SessionUser> =>
   apiRequest('/auth/password', { method: 'POST', body: input, schema: sessionUserSchema });
@@ -12,7 +12,7 @@ export const useChangePassword = () => {
   return useMutation({
     mutationFn: changePassword,
     onSuccess: (user) => {
-      queryClient.setQueryData(meQueryOptions().queryKey, user);
+      queryClient.setQueryData(authKeys.me(), user);
     },
   });
 };

@@ -1,7 +1,7 @@
 import { type LoginInput, type SessionUser, sessionUserSchema } from '@keyloom/shared';
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { apiRequest, resetCsrfToken } from '@/lib/api-client';
-import { meQueryOptions } from './get-me';
+import { authKeys } from './keys';
 
 export const login = (input: LoginInput): Promise<SessionUser> =>
   apiRequest('/auth/login', { method: 'POST', body: input, schema: sessionUserSchema });
@@ -14,8 +14,8 @@ export const useLogin = () => {
       // The API regenerated the session: the old token is void, and nothing cached for a
       // previous user may leak into this one's screens.
       resetCsrfToken();
-      queryClient.removeQueries({ predicate: (query) => query.queryKey[0] !== 'auth' });
-      queryClient.setQueryData(meQueryOptions().queryKey, user);
+      queryClient.removeQueries({ predicate: (query) => query.queryKey[0] !== authKeys.all[0] });
+      queryClient.setQueryData(authKeys.me(), user);
     },
   });
 };

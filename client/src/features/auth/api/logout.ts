@@ -2,7 +2,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { useNavigate } from 'react-router-dom';
 import { paths } from '@/config/paths';
 import { apiRequest, resetCsrfToken } from '@/lib/api-client';
-import { meQueryOptions } from './get-me';
+import { authKeys } from './keys';
 
 export const logout = (): Promise<void> => apiRequest<void>('/auth/logout', { method: 'POST' });
 
@@ -14,8 +14,8 @@ export const useLogout = () => {
     onSuccess: async () => {
       resetCsrfToken();
       // Drop every cached answer (they may hold client data), then leave for the sign-in page.
-      queryClient.removeQueries({ predicate: (query) => query.queryKey[0] !== 'auth' });
-      queryClient.setQueryData(meQueryOptions().queryKey, null);
+      queryClient.removeQueries({ predicate: (query) => query.queryKey[0] !== authKeys.all[0] });
+      queryClient.setQueryData(authKeys.me(), null);
       // flushSync commits the pending navigation at once, so the page guards see it and do not
       // send the reader to sign in with a `next` back to the page they just left.
       await navigate(paths.signIn, { replace: true, flushSync: true });

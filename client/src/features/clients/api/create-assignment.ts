@@ -1,5 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { apiRequest } from '@/lib/api-client';
+import { clientKeys } from './keys';
 
 export type AssignmentVariables = { clientId: string; userId: string };
 
@@ -11,6 +12,6 @@ export const useCreateAssignment = () => {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: createAssignment,
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: ['clients'] }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: clientKeys.all }),
   });
 };

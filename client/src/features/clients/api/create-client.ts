@@ -1,6 +1,7 @@
 import { type Client, type CreateClientInput, clientSchema } from '@keyloom/shared';
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { apiRequest } from '@/lib/api-client';
+import { clientKeys } from './keys';
 
 /** Opens a client record in the signed-in clinician's caseload. */
 export const createClient = (input: CreateClientInput): Promise<Client> =>
@@ -10,6 +11,6 @@ export const useCreateClient = () => {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: createClient,
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: ['clients'] }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: clientKeys.all }),
   });
 };

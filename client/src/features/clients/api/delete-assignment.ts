@@ -1,6 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { apiRequest } from '@/lib/api-client';
 import type { AssignmentVariables } from './create-assignment';
+import { clientKeys } from './keys';
 
 /** Takes a carer off a client (owning clinician or admin). */
 export const deleteAssignment = ({ clientId, userId }: AssignmentVariables): Promise<unknown> =>
@@ -12,6 +13,6 @@ export const useDeleteAssignment = () => {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: deleteAssignment,
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: ['clients'] }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: clientKeys.all }),
   });
 };

@@ -2,6 +2,7 @@ import { type PersonRef, personRefSchema } from '@keyloom/shared';
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { z } from 'zod';
 import { apiRequest } from '@/lib/api-client';
+import { clientKeys } from './keys';
 
 const carerListSchema = z.array(personRefSchema);
 
@@ -14,7 +15,7 @@ export const getCarersAvailable = (clientId: string, signal?: AbortSignal): Prom
 
 export const carersAvailableQueryOptions = (clientId: string) =>
   queryOptions({
-    queryKey: ['clients', 'carers-available', clientId],
+    queryKey: clientKeys.carersAvailable(clientId),
     queryFn: ({ signal }) => getCarersAvailable(clientId, signal),
   });
 

@@ -1,6 +1,7 @@
 import { type Client, clientSchema } from '@keyloom/shared';
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { apiRequest } from '@/lib/api-client';
+import { clientKeys } from './keys';
 
 /** One client's record; 404 for a client outside the reader's caseload or assignments. */
 export const getClient = (clientId: string, signal?: AbortSignal): Promise<Client> =>
@@ -8,7 +9,7 @@ export const getClient = (clientId: string, signal?: AbortSignal): Promise<Clien
 
 export const clientQueryOptions = (clientId: string) =>
   queryOptions({
-    queryKey: ['clients', 'detail', clientId],
+    queryKey: clientKeys.detail(clientId),
     queryFn: ({ signal }) => getClient(clientId, signal),
   });
 

@@ -2,6 +2,7 @@ import { type ClientSummary, clientSummarySchema } from '@keyloom/shared';
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { z } from 'zod';
 import { apiRequest } from '@/lib/api-client';
+import { clientKeys } from './keys';
 
 const clientListSchema = z.array(clientSummarySchema);
 
@@ -11,7 +12,7 @@ export const getClients = (signal?: AbortSignal): Promise<ClientSummary[]> =>
 
 export const clientsQueryOptions = () =>
   queryOptions({
-    queryKey: ['clients', 'list'],
+    queryKey: clientKeys.list(),
     queryFn: ({ signal }) => getClients(signal),
   });
 

@@ -1,6 +1,7 @@
 import { type Client, type UpdateClientInput, clientSchema } from '@keyloom/shared';
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { apiRequest } from '@/lib/api-client';
+import { clientKeys } from './keys';
 
 export type UpdateClientVariables = { clientId: string; changes: UpdateClientInput };
 
@@ -16,6 +17,6 @@ export const useUpdateClient = () => {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: updateClient,
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: ['clients'] }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: clientKeys.all }),
   });
 };

@@ -15,7 +15,7 @@ import {
 } from '@/components/ui/table';
 import { clientPath } from '@/config/paths';
 import { formatDateTime } from '@/lib/format';
-import { type CaseloadSortKey, filterAndSortClients } from './caseload-sort';
+import { type CaseloadSortKey, filterAndSortClients } from '../lib/caseload-sort';
 import { ConsentStatusBadge } from './consent-status-badge';
 
 type CaseloadTableProps = {

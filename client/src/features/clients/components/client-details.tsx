@@ -2,7 +2,7 @@ import { accessMethodLabels, type Client } from '@keyloom/shared';
 import type { ReactNode } from 'react';
 import { formatDateTime } from '@/lib/format';
 import { ConsentStatusBadge } from './consent-status-badge';
-import { timingFor } from './access-timing';
+import { timingFor } from '../lib/access-timing';
 
 const Detail = ({ term, children }: { term: string; children: ReactNode }) => (
   <div className="flex flex-col gap-1 border-b border-thread py-3 sm:flex-row sm:gap-6">

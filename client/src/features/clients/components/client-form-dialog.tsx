@@ -14,7 +14,7 @@ import { TextAreaField } from '@/components/ui/text-area-field';
 import { TextField } from '@/components/ui/text-field';
 import { useCreateClient } from '../api/create-client';
 import { useUpdateClient } from '../api/update-client';
-import { keepMatchingTiming, timingFor } from './access-timing';
+import { keepMatchingTiming, timingFor } from '../lib/access-timing';
 
 const methodOptions = accessMethods.map((method) => ({ value: method, label: accessMethodLabels[method] }));
 

@@ -1,6 +1,6 @@
 import type { ConsentStatus } from '@keyloom/shared';
 import { Badge, type BadgeTone } from '@/components/ui/badge';
-import { consentStatusLabels } from './consent-status';
+import { consentStatusLabels } from '../lib/consent-status';
 
 const tones: Record<ConsentStatus, BadgeTone> = {
   none: 'neutral',

@@ -1,6 +1,7 @@
 import { type Consent, type CreateConsentInput, consentSchema } from '@keyloom/shared';
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { apiRequest } from '@/lib/api-client';
+import { queryRoots } from '@/lib/query-keys';
 
 export type CreateConsentVariables = { clientId: string; input: CreateConsentInput };
 
@@ -17,6 +18,6 @@ export const useCreateConsent = () => {
   return useMutation({
     mutationFn: createConsent,
     // The client's consent status and the caseload row change with it.
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: ['clients'] }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: queryRoots.clients }),
   });
 };

@@ -1,6 +1,7 @@
 import { type Contact, type CreateContactInput, contactSchema } from '@keyloom/shared';
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { apiRequest } from '@/lib/api-client';
+import { contactKeys } from './keys';
 
 export type CreateContactVariables = { clientId: string; input: CreateContactInput };
 
@@ -16,6 +17,6 @@ export const useCreateContact = () => {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: createContact,
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: ['clients', 'contacts'] }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: contactKeys.all }),
   });
 };

@@ -2,6 +2,7 @@ import { type Consent, consentSchema } from '@keyloom/shared';
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { z } from 'zod';
 import { apiRequest } from '@/lib/api-client';
+import { consentKeys } from './keys';
 
 const consentListSchema = z.array(consentSchema);
 
@@ -11,7 +12,7 @@ export const getConsents = (clientId: string, signal?: AbortSignal): Promise<Con
 
 export const consentsQueryOptions = (clientId: string) =>
   queryOptions({
-    queryKey: ['clients', 'consents', clientId],
+    queryKey: consentKeys.list(clientId),
     queryFn: ({ signal }) => getConsents(clientId, signal),
   });
 

@@ -2,6 +2,7 @@ import { type Contact, contactSchema } from '@keyloom/shared';
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { z } from 'zod';
 import { apiRequest } from '@/lib/api-client';
+import { contactKeys } from './keys';
 
 const contactListSchema = z.array(contactSchema);
 
@@ -11,7 +12,7 @@ export const getContacts = (clientId: string, signal?: AbortSignal): Promise<Con
 
 export const contactsQueryOptions = (clientId: string) =>
   queryOptions({
-    queryKey: ['clients', 'contacts', clientId],
+    queryKey: contactKeys.list(clientId),
     queryFn: ({ signal }) => getContacts(clientId, signal),
   });
 

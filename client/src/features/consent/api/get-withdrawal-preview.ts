@@ -1,6 +1,7 @@
 import { type WithdrawalPreview, withdrawalPreviewSchema } from '@keyloom/shared';
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { apiRequest } from '@/lib/api-client';
+import { consentKeys } from './keys';
 
 /** What withdrawing the consent would delete now, and which other consents keep a scope covered. */
 export const getWithdrawalPreview = (
@@ -15,7 +16,7 @@ export const getWithdrawalPreview = (
 
 export const withdrawalPreviewQueryOptions = (clientId: string, consentId: string) =>
   queryOptions({
-    queryKey: ['clients', 'consents', clientId, 'withdrawal-preview', consentId],
+    queryKey: consentKeys.withdrawalPreview(clientId, consentId),
     queryFn: ({ signal }) => getWithdrawalPreview(clientId, consentId, signal),
     // Always asked afresh when the dialog opens: the counts must be those of now.
     staleTime: 0,

@@ -1,6 +1,7 @@
 import { type Contact, type UpdateContactInput, contactSchema } from '@keyloom/shared';
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { apiRequest } from '@/lib/api-client';
+import { contactKeys } from './keys';
 
 export type UpdateContactVariables = { clientId: string; contactId: string; changes: UpdateContactInput };
 
@@ -16,6 +17,6 @@ export const useUpdateContact = () => {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: updateContact,
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: ['clients', 'contacts'] }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: contactKeys.all }),
   });
 };

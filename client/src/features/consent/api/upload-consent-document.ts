@@ -1,6 +1,7 @@
 import { type Consent, consentSchema } from '@keyloom/shared';
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { apiRequest } from '@/lib/api-client';
+import { consentKeys } from './keys';
 
 export type ConsentDocumentVariables = { clientId: string; consentId: string; file: File };
 
@@ -23,6 +24,6 @@ export const useUploadConsentDocument = () => {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: uploadConsentDocument,
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: ['clients', 'consents'] }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: consentKeys.all }),
   });
 };

@@ -1,6 +1,7 @@
 import { type Consent, type WithdrawConsentInput, consentSchema } from '@keyloom/shared';
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { apiRequest } from '@/lib/api-client';
+import { queryRoots } from '@/lib/query-keys';
 
 export type WithdrawConsentVariables = { clientId: string; consentId: string; input: WithdrawConsentInput };
 
@@ -18,8 +19,8 @@ export const useWithdrawConsent = () => {
     mutationFn: withdrawConsent,
     onSuccess: () =>
       Promise.all([
-        queryClient.invalidateQueries({ queryKey: ['clients'] }),
-        queryClient.invalidateQueries({ queryKey: ['samples'] }),
+        queryClient.invalidateQueries({ queryKey: queryRoots.clients }),
+        queryClient.invalidateQueries({ queryKey: queryRoots.samples }),
       ]),
   });
 };

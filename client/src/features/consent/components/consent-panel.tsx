@@ -11,7 +11,7 @@ import { ContactDialog } from './contact-dialog';
 import { ContactsTable } from './contacts-table';
 import { RecordConsentDialog } from './record-consent-dialog';
 import { WithdrawConsentDialog } from './withdraw-consent-dialog';
-import { reportSentence } from './withdrawal-words';
+import { reportSentence } from '../lib/withdrawal-words';
 
 type ConsentPanelProps = {
   clientId: string;

@@ -6,7 +6,7 @@ import { Button } from '@/components/ui/button';
 import { env } from '@/config/env';
 import { formatDateTime } from '@/lib/format';
 import { consentDocumentPath, useUploadConsentDocument } from '../api/upload-consent-document';
-import { reportSentence } from './withdrawal-words';
+import { reportSentence } from '../lib/withdrawal-words';
 
 const statusWords: Record<Consent['status'], { label: string; tone: BadgeTone }> = {
   active: { label: 'Active', tone: 'good' },

@@ -9,7 +9,7 @@ import { LoadError } from '@/components/ui/load-error';
 import { ReasonForm } from '@/components/ui/reason-form';
 import { useWithdrawalPreview } from '../api/get-withdrawal-preview';
 import { useWithdrawConsent } from '../api/withdraw-consent';
-import { cancelledItems, countWords, deletedItems } from './withdrawal-words';
+import { cancelledItems, countWords, deletedItems } from '../lib/withdrawal-words';
 
 type WithdrawConsentDialogProps = {
   clientId: string;

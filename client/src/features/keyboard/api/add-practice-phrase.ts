@@ -1,7 +1,7 @@
 import { type CreatePracticePhraseInput, type PracticePhrase, practicePhraseSchema } from '@keyloom/shared';
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { apiRequest } from '@/lib/api-client';
-import { practicePhrasesQueryKey } from './query-keys';
+import { practicePhraseKeys } from './keys';
 
 export type AddPracticePhraseVariables = { clientId: string; input: CreatePracticePhraseInput };
 
@@ -18,6 +18,6 @@ export const useAddPracticePhrase = () => {
   return useMutation({
     mutationFn: addPracticePhrase,
     onSuccess: (_phrase, { clientId }) =>
-      queryClient.invalidateQueries({ queryKey: practicePhrasesQueryKey(clientId) }),
+      queryClient.invalidateQueries({ queryKey: practicePhraseKeys.list(clientId) }),
   });
 };

@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { apiRequest } from '@/lib/api-client';
-import { practicePhrasesQueryKey } from './query-keys';
+import { practicePhraseKeys } from './keys';
 
 export type DeletePracticePhraseVariables = { clientId: string; phraseId: string };
 
@@ -15,6 +15,6 @@ export const useDeletePracticePhrase = () => {
   return useMutation({
     mutationFn: deletePracticePhrase,
     onSuccess: (_nothing, { clientId }) =>
-      queryClient.invalidateQueries({ queryKey: practicePhrasesQueryKey(clientId) }),
+      queryClient.invalidateQueries({ queryKey: practicePhraseKeys.list(clientId) }),
   });
 };

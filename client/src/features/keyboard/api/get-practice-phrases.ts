@@ -2,7 +2,7 @@ import { type PracticePhrase, practicePhraseSchema } from '@keyloom/shared';
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { z } from 'zod';
 import { apiRequest } from '@/lib/api-client';
-import { practicePhrasesQueryKey } from './query-keys';
+import { practicePhraseKeys } from './keys';
 
 const phraseListSchema = z.array(practicePhraseSchema);
 
@@ -15,7 +15,7 @@ export const getPracticePhrases = (clientId: string, signal?: AbortSignal): Prom
 
 export const practicePhrasesQueryOptions = (clientId: string) =>
   queryOptions({
-    queryKey: practicePhrasesQueryKey(clientId),
+    queryKey: practicePhraseKeys.list(clientId),
     queryFn: ({ signal }) => getPracticePhrases(clientId, signal),
   });
 

@@ -2,7 +2,7 @@ import { type Trial, trialSchema } from '@keyloom/shared';
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { z } from 'zod';
 import { apiRequest } from '@/lib/api-client';
-import { trialsQueryKey } from './query-keys';
+import { trialKeys } from './keys';
 
 const trialListSchema = z.array(trialSchema);
 
@@ -15,7 +15,7 @@ export const getTrials = (versionId: string, signal?: AbortSignal): Promise<Tria
 
 export const trialsQueryOptions = (versionId: string) =>
   queryOptions({
-    queryKey: trialsQueryKey(versionId),
+    queryKey: trialKeys.list(versionId),
     queryFn: ({ signal }) => getTrials(versionId, signal),
   });
 

@@ -1,7 +1,7 @@
 import { memo, type KeyboardEvent, useRef, useState } from 'react';
 import type { KeyDef } from '../logic/layouts';
 import { DwellFill } from './dwell-fill';
-import { targetClasses, tintStyle } from './keyboard-styles';
+import { targetClasses, tintStyle } from '../logic/keyboard-styles';
 import { cn } from '@/lib/cn';
 
 /** Where the scanner is inside the key grid (rows counted from the first key row). */

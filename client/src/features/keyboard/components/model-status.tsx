@@ -1,5 +1,5 @@
 import { Alert } from '@/components/ui/alert';
-import { kilobytes } from './trial-figures';
+import { kilobytes } from '../logic/trial-figures';
 import type { EngineStatus, ModelDownloadInfo } from '../engine/use-keyboard-engine';
 
 const statusWords: Record<EngineStatus, string> = {

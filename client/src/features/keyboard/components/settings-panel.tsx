@@ -8,7 +8,7 @@ import {
 } from '@keyloom/shared';
 import { memo, type ReactNode, useId, useState } from 'react';
 import { fieldClasses } from '@/components/ui/field-classes';
-import { clampMs, type KeyboardViewSettings, textScales } from './keyboard-settings';
+import { clampMs, type KeyboardViewSettings, textScales } from '../logic/keyboard-settings';
 
 type SettingsPanelProps = {
   settings: KeyboardViewSettings;

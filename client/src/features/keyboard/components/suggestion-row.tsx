@@ -2,9 +2,9 @@ import { useEffect, useLayoutEffect, useRef, useState } from 'react';
 import { measureRowUpdate } from '../engine/latency-marks';
 import { DwellFill } from './dwell-fill';
 import type { DwellView } from './key-grid';
-import { targetClasses } from './keyboard-styles';
+import { targetClasses } from '../logic/keyboard-styles';
 import { cn } from '@/lib/cn';
-import { ANNOUNCE_DELAY_MS, describeRow, slotTargetId } from './trial-figures';
+import { ANNOUNCE_DELAY_MS, describeRow, slotTargetId } from '../logic/trial-figures';
 
 type SuggestionRowProps = {
   slots: number;

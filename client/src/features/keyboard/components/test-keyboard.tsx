@@ -18,15 +18,19 @@ import { useScanner } from '../hooks/use-scanner';
 import { useTrialSession } from '../hooks/use-trial-session';
 import { type KeyDef, keyRows } from '../logic/layouts';
 import { KeyGrid } from './key-grid';
-import { defaultKeyboardSettings, type KeyboardViewSettings, trialSettingsOf } from './keyboard-settings';
+import {
+  defaultKeyboardSettings,
+  type KeyboardViewSettings,
+  trialSettingsOf,
+} from '../logic/keyboard-settings';
 import { ModelStatus } from './model-status';
 import { PhrasePicker } from './phrase-picker';
 import { SettingsPanel } from './settings-panel';
 import { SuggestionRow } from './suggestion-row';
-import { slotTargetId } from './trial-figures';
+import { slotTargetId } from '../logic/trial-figures';
 import { TrialOutput } from './trial-output';
 import { TrialResults, type UploadState } from './trial-results';
-import { useOsReducedMotion } from './use-os-reduced-motion';
+import { useOsReducedMotion } from '../hooks/use-os-reduced-motion';
 
 /** The version's simulated figures at a slot count (from its report), for comparison with a trial. */
 export type SimulatedFigures = (slots: number) => { keystrokeSavings: number | null; wpm: number | null };

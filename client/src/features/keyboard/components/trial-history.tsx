@@ -12,7 +12,7 @@ import {
 } from '@/components/ui/table';
 import { formatDateTime } from '@/lib/format';
 import { useTrials } from '../api/get-trials';
-import { methodShort, percentOrDash, wpmOrDash } from './trial-figures';
+import { methodShort, percentOrDash, wpmOrDash } from '../logic/trial-figures';
 
 const roleWords: Record<string, string> = { carer: 'carer', clinician: 'clinician' };
 

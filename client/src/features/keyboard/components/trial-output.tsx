@@ -1,7 +1,7 @@
 import type { Ref } from 'react';
 import { Button } from '@/components/ui/button';
 import { cn } from '@/lib/cn';
-import { canSpeak } from './trial-figures';
+import { canSpeak } from '../logic/trial-figures';
 
 type TrialOutputProps = {
   /** The output box (scanning moves focus here so the switch presses no button). */

@@ -1,6 +1,6 @@
 import type { TrialMeasures } from '@keyloom/shared';
 import { Alert } from '@/components/ui/alert';
-import { duration, percentOrDash, wpmOrDash } from './trial-figures';
+import { duration, percentOrDash, wpmOrDash } from '../logic/trial-figures';
 
 /** Where the finished trial's upload stands. */
 export type UploadState = 'sending' | 'sent' | 'queued' | { failed: string };

@@ -4,7 +4,7 @@ import { act, renderHook, waitFor } from '@testing-library/react';
 import type { ReactNode } from 'react';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import { type MockResponse, mockFetch, sessionRoutes } from '@/testing/mock-fetch';
-import { trialsQueryKey } from '../api/query-keys';
+import { trialKeys } from '../api/keys';
 import { directTrialSettings } from '../testing/trial-data';
 import {
   PENDING_RETRY_MS,
@@ -128,7 +128,7 @@ describe('usePendingTrials', () => {
     });
     expect(result.current.pending).toBe(0);
     expect(localStorage.getItem(PENDING_TRIALS_KEY)).toBeNull();
-    expect(invalidate).toHaveBeenCalledWith({ queryKey: trialsQueryKey(VERSION) });
+    expect(invalidate).toHaveBeenCalledWith({ queryKey: trialKeys.list(VERSION) });
     expect(s.fetch.requestsTo(POST_KEY)[0].headers.get('X-CSRF-Token')).toBe('csrf-token-for-tests-0001');
   });
 
@@ -158,7 +158,7 @@ describe('usePendingTrials', () => {
     expect(
       s.fetch.requestsTo(POST_KEY).filter((r) => (r.body as CreateTrialInput).clientTrialId === id),
     ).toHaveLength(1);
-    expect(invalidate).toHaveBeenCalledWith({ queryKey: trialsQueryKey(VERSION) });
+    expect(invalidate).toHaveBeenCalledWith({ queryKey: trialKeys.list(VERSION) });
     expect(localStorage.getItem(PENDING_TRIALS_KEY)).toBeNull();
   });
 

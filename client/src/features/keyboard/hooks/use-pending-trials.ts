@@ -8,7 +8,7 @@ import { useCallback, useEffect, useSyncExternalStore } from 'react';
 import { z } from 'zod';
 import { isApiError } from '@/lib/api-client';
 import { postTrial } from '../api/post-trial';
-import { trialsQueryKey } from '../api/query-keys';
+import { trialKeys } from '../api/keys';
 
 /** Where queued trials wait (survives a reload or a closed tab). */
 export const PENDING_TRIALS_KEY = 'keyloom.pending-trials.v1';
@@ -108,7 +108,7 @@ export type SubmitOutcome = { outcome: 'sent'; trial: Trial } | { outcome: 'queu
  *   message is the API's) and the trial is not kept.
  * - `pending` / `waitingIds`: trials waiting to be sent; `failed`: queued trials the API later refused.
  * - `dismiss` forgets a failed trial.
- * On success the version's trial list (trialsQueryKey) is refreshed.
+ * On success the version's trial list (trialKeys.list) is refreshed.
  */
 export function usePendingTrials(): {
   pending: number;
@@ -123,7 +123,7 @@ export function usePendingTrials(): {
 
   const onSent = useCallback(
     (versionId: string) => {
-      void queryClient.invalidateQueries({ queryKey: trialsQueryKey(versionId) });
+      void queryClient.invalidateQueries({ queryKey: trialKeys.list(versionId) });
     },
     [queryClient],
   );

@@ -1,6 +1,7 @@
 import { type ProfileVersion, profileVersionSchema } from '@keyloom/shared';
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { apiRequest } from '@/lib/api-client';
+import { profileVersionKeys } from './keys';
 
 /** Asks the running training job to stop; nothing half-made is kept. */
 export const cancelProfileVersion = (versionId: string): Promise<ProfileVersion> =>
@@ -14,8 +15,8 @@ export const useCancelProfileVersion = () => {
   return useMutation({
     mutationFn: cancelProfileVersion,
     onSuccess: (version) => {
-      queryClient.setQueryData(['profile-versions', 'detail', version.id], version);
-      return queryClient.invalidateQueries({ queryKey: ['profile-versions'] });
+      queryClient.setQueryData(profileVersionKeys.detail(version.id), version);
+      return queryClient.invalidateQueries({ queryKey: profileVersionKeys.all });
     },
   });
 };

@@ -1,6 +1,7 @@
 import { type CreateProfileVersionInput, type ProfileVersion, profileVersionSchema } from '@keyloom/shared';
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { apiRequest } from '@/lib/api-client';
+import { profileVersionKeys } from './keys';
 
 export type CreateProfileVersionVariables = { clientId: string; input: CreateProfileVersionInput };
 
@@ -19,6 +20,6 @@ export const useCreateProfileVersion = () => {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: createProfileVersion,
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: ['profile-versions'] }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: profileVersionKeys.all }),
   });
 };

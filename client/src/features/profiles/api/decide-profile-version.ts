@@ -8,6 +8,7 @@ import type {
 import { profileVersionSchema } from '@keyloom/shared';
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { apiRequest } from '@/lib/api-client';
+import { profileVersionKeys } from './keys';
 
 /**
  * The decisions on a trained version, each a POST to /api/profile-versions/:id/<decision>:
@@ -40,8 +41,8 @@ export const useDecideProfileVersion = <D extends Decision>(decision: D) => {
   return useMutation({
     mutationFn: (variables: DecisionVariables<D>) => decideProfileVersion(decision, variables),
     onSuccess: (version) => {
-      queryClient.setQueryData(['profile-versions', 'detail', version.id], version);
-      return queryClient.invalidateQueries({ queryKey: ['profile-versions'] });
+      queryClient.setQueryData(profileVersionKeys.detail(version.id), version);
+      return queryClient.invalidateQueries({ queryKey: profileVersionKeys.all });
     },
   });
 };

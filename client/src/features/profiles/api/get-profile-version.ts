@@ -1,6 +1,7 @@
 import { type ProfileVersion, profileVersionSchema } from '@keyloom/shared';
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { apiRequest } from '@/lib/api-client';
+import { profileVersionKeys } from './keys';
 
 /** How often a version in training is asked for its progress, ms. */
 export const PROGRESS_POLL_MS = 1000;
@@ -11,7 +12,7 @@ export const getProfileVersion = (versionId: string, signal?: AbortSignal): Prom
 
 export const profileVersionQueryOptions = (versionId: string) =>
   queryOptions({
-    queryKey: ['profile-versions', 'detail', versionId],
+    queryKey: profileVersionKeys.detail(versionId),
     queryFn: ({ signal }) => getProfileVersion(versionId, signal),
     // Poll every second while the job runs; stop as soon as it has ended one way or another.
     refetchInterval: (query) => (query.state.data?.status === 'training' ? PROGRESS_POLL_MS : false),

@@ -2,6 +2,7 @@ import { type ProfileVersion, profileVersionSchema } from '@keyloom/shared';
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { z } from 'zod';
 import { apiRequest } from '@/lib/api-client';
+import { profileVersionKeys } from './keys';
 
 const profileVersionListSchema = z.array(profileVersionSchema);
 
@@ -14,7 +15,7 @@ export const getProfileVersions = (clientId: string, signal?: AbortSignal): Prom
 
 export const profileVersionsQueryOptions = (clientId: string) =>
   queryOptions({
-    queryKey: ['profile-versions', 'list', clientId],
+    queryKey: profileVersionKeys.list(clientId),
     queryFn: ({ signal }) => getProfileVersions(clientId, signal),
     // A version in training moves on by itself: look again every few seconds while one does.
     refetchInterval: (query) =>

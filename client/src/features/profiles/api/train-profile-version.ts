@@ -1,6 +1,7 @@
 import { type ProfileVersion, profileVersionSchema } from '@keyloom/shared';
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { apiRequest } from '@/lib/api-client';
+import { profileVersionKeys } from './keys';
 
 /** Queues training of a draft version, or retries a failed one; it answers at once with status training. */
 export const trainProfileVersion = (versionId: string): Promise<ProfileVersion> =>
@@ -14,8 +15,8 @@ export const useTrainProfileVersion = () => {
   return useMutation({
     mutationFn: trainProfileVersion,
     onSuccess: (version) => {
-      queryClient.setQueryData(['profile-versions', 'detail', version.id], version);
-      return queryClient.invalidateQueries({ queryKey: ['profile-versions'] });
+      queryClient.setQueryData(profileVersionKeys.detail(version.id), version);
+      return queryClient.invalidateQueries({ queryKey: profileVersionKeys.all });
     },
   });
 };

@@ -16,7 +16,7 @@ import {
   type ProfileReportView,
   readReport,
   type SlotSeries,
-} from './profile-report';
+} from '../lib/profile-report';
 import { SlotsChart } from './slots-chart';
 
 type Column = { name: string; report: ProfileReportView | null; base: boolean };

@@ -18,7 +18,7 @@ import { SelectField } from '@/components/ui/select-field';
 import { TextField } from '@/components/ui/text-field';
 import { useCreateProfileVersion } from '../api/create-profile-version';
 import { useTrainProfileVersion } from '../api/train-profile-version';
-import { escapeExplanations } from './profile-words';
+import { escapeExplanations } from '../lib/profile-words';
 
 /** A sample that can go into a version (the ready ones; the page passes them). */
 export type TrainableSample = { id: string; title: string; characters: number };

@@ -16,7 +16,7 @@ import {
 import { profileVersionPath } from '@/config/paths';
 import { formatDateTime } from '@/lib/format';
 import { useProfileQueue } from '../api/get-review-queue';
-import { atSlots, fixed, percent, readReport } from './profile-report';
+import { atSlots, fixed, percent, readReport } from '../lib/profile-report';
 
 type ProfileQueueProps = {
   clients: readonly Pick<ClientSummary, 'id' | 'pseudonym'>[];

@@ -19,7 +19,7 @@ import { formatDateTime } from '@/lib/format';
 import { useProfileVersions } from '../api/get-profile-versions';
 import { type AccessDefaults, NewVersionForm, type TrainableSample } from './new-version-form';
 import { ProfileStatusBadge } from './profile-status-badge';
-import { atSlots, fixed, percent, readReport } from './profile-report';
+import { atSlots, fixed, percent, readReport } from '../lib/profile-report';
 
 type ProfilesPanelProps = {
   clientId: string;

@@ -9,7 +9,7 @@ import {
   TableHead,
   TableRow,
 } from '@/components/ui/table';
-import { fixed, percent, SLOT_COUNTS, type SlotSeries } from './profile-report';
+import { fixed, percent, SLOT_COUNTS, type SlotSeries } from '../lib/profile-report';
 
 // Up to five series told apart three ways: colour (each ≥ 4.5:1 on white), dash and marker shape.
 const looks = [

@@ -1,5 +1,5 @@
 import type { ProfileVersion } from '@keyloom/shared';
-import { describeStage } from './profile-words';
+import { describeStage } from '../lib/profile-words';
 
 /** The progress bar of a version in training: the value, the stage in words, and how far. */
 export const TrainingProgress = ({ version }: { version: Pick<ProfileVersion, 'progress' | 'stage'> }) => {

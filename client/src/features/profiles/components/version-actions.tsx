@@ -7,7 +7,7 @@ import { useCancelProfileVersion } from '../api/cancel-profile-version';
 import { useTrainProfileVersion } from '../api/train-profile-version';
 import { profileExportUrl } from '../api/verify-profile-export';
 import { ApproveDialog, ReportProblemDialog, SendBackDialog, SignOffDialog } from './decision-dialogs';
-import { visibleActions } from './profile-words';
+import { visibleActions } from '../lib/profile-words';
 
 export type Announce = (tone: 'success' | 'error', text: string) => void;
 

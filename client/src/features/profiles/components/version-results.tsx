@@ -18,7 +18,7 @@ import {
   percent,
   type ProfileReportView,
   slotSeries,
-} from './profile-report';
+} from '../lib/profile-report';
 import { SlotsChart } from './slots-chart';
 
 const BASE = 'General English model alone';

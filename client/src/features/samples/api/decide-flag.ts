@@ -1,7 +1,7 @@
 import { type FlagDecisionInput, type SampleDetail, sampleDetailSchema } from '@keyloom/shared';
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { apiRequest } from '@/lib/api-client';
-import { sampleQueryOptions } from './get-sample';
+import { sampleKeys } from './keys';
 
 export type DecideFlagVariables = { sampleId: string; flagId: string; decision: FlagDecisionInput };
 
@@ -18,8 +18,8 @@ export const useDecideFlag = () => {
   return useMutation({
     mutationFn: decideFlag,
     onSuccess: async (sample) => {
-      queryClient.setQueryData(sampleQueryOptions(sample.id).queryKey, sample);
-      await queryClient.invalidateQueries({ queryKey: ['samples', 'list'] });
+      queryClient.setQueryData(sampleKeys.detail(sample.id), sample);
+      await queryClient.invalidateQueries({ queryKey: sampleKeys.lists() });
     },
   });
 };

@@ -1,6 +1,7 @@
 import { type ExcludeSampleInput, type SampleSummary, sampleSummarySchema } from '@keyloom/shared';
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { apiRequest } from '@/lib/api-client';
+import { sampleKeys } from './keys';
 
 export type ExcludeSampleVariables = { sampleId: string; input: ExcludeSampleInput };
 
@@ -16,6 +17,6 @@ export const useExcludeSample = () => {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: excludeSample,
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: ['samples'] }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: sampleKeys.all }),
   });
 };

@@ -1,6 +1,7 @@
 import { type SampleDetail, sampleDetailSchema } from '@keyloom/shared';
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { apiRequest } from '@/lib/api-client';
+import { sampleKeys } from './keys';
 
 /** One sample: statistics, current text and personal-data flags. */
 export const getSample = (sampleId: string, signal?: AbortSignal): Promise<SampleDetail> =>
@@ -8,7 +9,7 @@ export const getSample = (sampleId: string, signal?: AbortSignal): Promise<Sampl
 
 export const sampleQueryOptions = (sampleId: string) =>
   queryOptions({
-    queryKey: ['samples', 'detail', sampleId],
+    queryKey: sampleKeys.detail(sampleId),
     queryFn: ({ signal }) => getSample(sampleId, signal),
   });
 

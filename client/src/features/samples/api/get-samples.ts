@@ -2,6 +2,7 @@ import { type SampleSummary, sampleSummarySchema } from '@keyloom/shared';
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { z } from 'zod';
 import { apiRequest } from '@/lib/api-client';
+import { sampleKeys } from './keys';
 
 const sampleListSchema = z.array(sampleSummarySchema);
 
@@ -11,7 +12,7 @@ export const getSamples = (clientId: string, signal?: AbortSignal): Promise<Samp
 
 export const samplesQueryOptions = (clientId: string) =>
   queryOptions({
-    queryKey: ['samples', 'list', clientId],
+    queryKey: sampleKeys.list(clientId),
     queryFn: ({ signal }) => getSamples(clientId, signal),
   });
 

@@ -1,6 +1,7 @@
 import { type PasteSampleInput, type UploadResult, uploadResultSchema } from '@keyloom/shared';
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { apiRequest } from '@/lib/api-client';
+import { sampleKeys } from './keys';
 
 export type PasteSampleVariables = { clientId: string; input: PasteSampleInput };
 
@@ -16,6 +17,6 @@ export const usePasteSample = () => {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: pasteSample,
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: ['samples'] }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: sampleKeys.all }),
   });
 };

@@ -1,6 +1,7 @@
 import { type UploadResult, type UploadSamplesFields, uploadResultSchema } from '@keyloom/shared';
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { apiRequest } from '@/lib/api-client';
+import { sampleKeys } from './keys';
 
 export type UploadSamplesVariables = {
   clientId: string;
@@ -29,6 +30,6 @@ export const useUploadSamples = () => {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: uploadSamples,
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: ['samples'] }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: sampleKeys.all }),
   });
 };

@@ -2,7 +2,7 @@ import type { FieldError, UseFormRegisterReturn } from 'react-hook-form';
 import { SelectField } from '@/components/ui/select-field';
 import { TextAreaField } from '@/components/ui/text-area-field';
 import { TextField } from '@/components/ui/text-field';
-import { sourceKindOptions } from './source-kind-options';
+import { sourceKindOptions } from '../lib/source-kind-options';
 
 type MetaField = 'sourceKind' | 'periodStart' | 'periodEnd' | 'note';
 

@@ -2,6 +2,7 @@ import { type User, userSchema } from '@keyloom/shared';
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { z } from 'zod';
 import { apiRequest } from '@/lib/api-client';
+import { userKeys } from './keys';
 
 const usersSchema = z.array(userSchema);
 
@@ -11,7 +12,7 @@ export const getUsers = (signal?: AbortSignal): Promise<User[]> =>
 
 export const usersQueryOptions = () =>
   queryOptions({
-    queryKey: ['users', 'list'],
+    queryKey: userKeys.list(),
     queryFn: ({ signal }) => getUsers(signal),
   });
 

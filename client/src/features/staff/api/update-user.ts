@@ -1,7 +1,7 @@
 import { type UpdateUserInput, type User, userSchema } from '@keyloom/shared';
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { apiRequest } from '@/lib/api-client';
-import { usersQueryOptions } from './get-users';
+import { userKeys } from './keys';
 
 export type UpdateUserVariables = { id: string; changes: UpdateUserInput };
 
@@ -13,6 +13,6 @@ export const useUpdateUser = () => {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: updateUser,
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: usersQueryOptions().queryKey }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: userKeys.all }),
   });
 };

@@ -2,6 +2,7 @@ import { type CreateSummaryInput, type Summary, summarySchema } from '@keyloom/s
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { apiRequest } from '@/lib/api-client';
 import { idempotencyHeader } from './idempotency-key';
+import { summaryKeys } from './keys';
 
 export type CreateSummaryVariables = { clientId: string; input: CreateSummaryInput; idempotencyKey: string };
 
@@ -25,6 +26,6 @@ export const useCreateSummary = () => {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: createSummary,
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: ['summaries'] }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: summaryKeys.all }),
   });
 };

@@ -2,6 +2,7 @@ import { type Summary, summarySchema } from '@keyloom/shared';
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { z } from 'zod';
 import { apiRequest } from '@/lib/api-client';
+import { summaryKeys } from './keys';
 
 const summaryListSchema = z.array(summarySchema);
 
@@ -9,11 +10,9 @@ const summaryListSchema = z.array(summarySchema);
 export const getSummaries = (clientId: string, signal?: AbortSignal): Promise<Summary[]> =>
   apiRequest(`/clients/${encodeURIComponent(clientId)}/summaries`, { schema: summaryListSchema, signal });
 
-export const summariesQueryKey = (clientId: string) => ['summaries', 'list', clientId] as const;
-
 export const summariesQueryOptions = (clientId: string) =>
   queryOptions({
-    queryKey: summariesQueryKey(clientId),
+    queryKey: summaryKeys.list(clientId),
     queryFn: ({ signal }) => getSummaries(clientId, signal),
     // E-mails go out from the background worker: look again every few seconds while any waits.
     refetchInterval: (query) =>

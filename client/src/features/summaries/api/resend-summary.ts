@@ -2,6 +2,7 @@ import { type Summary, summarySchema } from '@keyloom/shared';
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { apiRequest } from '@/lib/api-client';
 import { idempotencyHeader } from './idempotency-key';
+import { summaryKeys } from './keys';
 
 export type ResendSummaryVariables = { summaryId: string; idempotencyKey: string };
 
@@ -20,6 +21,6 @@ export const useResendSummary = () => {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: resendSummary,
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: ['summaries'] }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: summaryKeys.all }),
   });
 };

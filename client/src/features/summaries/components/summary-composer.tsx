@@ -18,9 +18,9 @@ import { TextField } from '@/components/ui/text-field';
 import { useCreateSummary } from '../api/create-summary';
 import { useIdempotencyKey } from '../api/idempotency-key';
 import { usePreviewSummary } from '../api/preview-summary';
-import { defaultPeriod } from './summary-period';
+import { defaultPeriod } from '../lib/summary-period';
 import { SummaryPreviewView } from './summary-preview';
-import { contactBlockedReason } from './summary-words';
+import { contactBlockedReason } from '../lib/summary-words';
 
 // Versions a summary can report: trained at least (the API refuses the others).
 const REPORTABLE = new Set(['trained', 'signed_off', 'active', 'retired', 'sent_back']);

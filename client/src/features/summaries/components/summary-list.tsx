@@ -16,7 +16,12 @@ import {
 import { formatDateTime } from '@/lib/format';
 import { useIdempotencyKey } from '../api/idempotency-key';
 import { useResendSummary } from '../api/resend-summary';
-import { failureWords, recipientState, recipientStateLabels, recipientStateTones } from './summary-words';
+import {
+  failureWords,
+  recipientState,
+  recipientStateLabels,
+  recipientStateTones,
+} from '../lib/summary-words';
 
 const summaryTones: Record<SummaryStatus, BadgeTone> = {
   sending: 'neutral',
