@@ -10,8 +10,10 @@
 // audit event per version, under that job's id.
 // Checked to fail with a broken lock: with pg-boss's fetch (node_modules/pg-boss/src/plans.js,
 // fetchNextJob) changed from `state < 'active' … FOR UPDATE SKIP LOCKED` to `state <= 'active'`
-// without the lock, the second worker fetched jobs the first was running: some job ids had two
-// "started on" lines and retry_count 1, and this test failed on (1) and (2); restored afterwards.
+// without the lock, the second worker fetched jobs the first was running: the 4 jobs were started
+// 10 times over both logs and this test failed on (1); pg-boss restored afterwards.
+// Both workers start at once on a freshly reset database: before job-queue.ts retried queue creation
+// on a deadlock, one of them exited at start with "deadlock detected" and this test failed there.
 import type { ProfileVersionDto } from '../src/profile-versions/profile-version.mapper';
 import { PROFILE_TRAINING_QUEUE } from '../src/jobs/job-queue';
 import { type Cast, newCast, newClient, newConsent, send } from './caseload-helpers';
