@@ -33,11 +33,13 @@ const REQUEUE_EVERY_MS = 5 * 60_000;
 const RECOVERY_EVERY_MS = 10_000;
 
 // `node api/dist/worker.js`: the job process beside the web process. It trains and evaluates
-// profile versions from the pg-boss queue, WORKER_CONCURRENCY jobs at a time, with PROFILE_FOLDS
+// profile versions from the pg-boss queue, TRAINING_CONCURRENCY jobs at a time, with PROFILE_FOLDS
 // folds, each in a worker thread (training-threads.ts) so this event loop stays free for
-// heartbeats, PostgreSQL and the progress-summary e-mails (one at a time, over SMTP_*). It also
-// re-queues trainings whose worker died (training-recovery.ts). Several workers (on one machine or
-// many) may share one database; pg-boss hands each job to one of them. Queue and database errors
+// heartbeats, PostgreSQL and the progress-summary e-mails (MAIL_CONCURRENCY at a time, over
+// SMTP_*). It also re-queues trainings whose worker died (training-recovery.ts). Several workers
+// (on one machine or many) may share one database; pg-boss hands each job to one of them (its
+// fetch takes jobs with SELECT … FOR UPDATE SKIP LOCKED, docs/references.md §6). Each logs and
+// stores WORKER_NAME with every training job's result (pg-boss's job output). Queue and database errors
 // are logged, never fatal (jobs/process-guards.ts). SIGTERM/SIGINT: stop taking jobs, let a
 // running one finish (up to 60 s), exit.
 async function main(): Promise<void> {
@@ -50,7 +52,7 @@ async function main(): Promise<void> {
     ...options,
     extra: {
       ...(options.extra as object),
-      max: 2 + env.WORKER_CONCURRENCY,
+      max: 2 + env.TRAINING_CONCURRENCY + env.MAIL_CONCURRENCY,
       application_name: 'keyloom-worker',
     },
   });
@@ -76,15 +78,19 @@ async function main(): Promise<void> {
   const boss = createJobBoss(env.DATABASE_URL, { supervise: true });
   boss.on('error', (error) => logger.error(`pg-boss: ${error.message}`));
   await startJobBoss(boss);
-  for (let i = 0; i < env.WORKER_CONCURRENCY; i++) {
+  const worker = env.WORKER_NAME;
+  // pg-boss 10 has no per-worker concurrency option: each work() call is one polling loop taking
+  // batchSize jobs at a time, so N calls with batchSize 1 run up to N jobs at once (docs/references.md §6).
+  for (let i = 0; i < env.TRAINING_CONCURRENCY; i++) {
     await boss.work<ProfileTrainingJobData>(
       PROFILE_TRAINING_QUEUE,
       { batchSize: 1, pollingIntervalSeconds: 1 },
       async ([job]) => {
         const t0 = Date.now();
+        logger.log(`Job ${job.id} (version ${job.data.versionId}): started on ${worker}`);
         const outcome = await runProfileTraining(dataSource, audit, job.data.versionId, job.id, runtime);
         logger.log(`Job ${job.id} (version ${job.data.versionId}): ${outcome} in ${Date.now() - t0} ms`);
-        return { outcome };
+        return { outcome, worker };
       },
     );
   }
@@ -101,6 +107,7 @@ async function main(): Promise<void> {
     }),
     { from: env.MAIL_FROM, appUrl: env.APP_URL },
     logger,
+    env.MAIL_CONCURRENCY,
   );
   const staleMs = env.TRAINING_STALE_SECONDS * 1000;
   let recovering = false;
@@ -131,7 +138,8 @@ async function main(): Promise<void> {
   }, REQUEUE_EVERY_MS);
   requeue.unref();
   logger.log(
-    `Waiting for ${PROFILE_TRAINING_QUEUE} jobs (concurrency ${env.WORKER_CONCURRENCY}, ${env.PROFILE_FOLDS} folds)`,
+    `Waiting for ${PROFILE_TRAINING_QUEUE} jobs as ${worker} (concurrency ${env.TRAINING_CONCURRENCY}, ` +
+      `${env.PROFILE_FOLDS} folds; e-mails ${env.MAIL_CONCURRENCY} at a time)`,
   );
 
   let stopping = false;

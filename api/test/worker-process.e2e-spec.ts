@@ -5,7 +5,7 @@
 // the built thread trainer leaves the event loop free where the in-process engine stalls it; the
 // supervisor (scripts/supervise.mjs) starts a killed worker again and stops everything on SIGTERM.
 // The training samples are about 40,000 characters so a training lasts a few seconds.
-import { type ChildProcess, spawn } from 'node:child_process';
+import { spawn } from 'node:child_process';
 import { randomUUID } from 'node:crypto';
 import { existsSync, readFileSync, rmSync } from 'node:fs';
 import { createServer } from 'node:net';
@@ -26,40 +26,24 @@ import { INTERRUPTED_COMMENT, INTERRUPTED_STAGE } from '../src/profile-versions/
 import type * as TrainingThreadsModule from '../src/profile-versions/training-threads';
 import { type Cast, newCast, newClient, newConsent, send } from './caseload-helpers';
 import { createTestApp, resetDatabase, type TestApp, testDatabaseUrl } from './test-app';
+import {
+  alive,
+  inventedText,
+  READY,
+  sleep,
+  startWorker as startWorkerWith,
+  waitFor,
+  waitForLog,
+  type Worker,
+  WORKER_JS,
+} from './worker-helpers';
 
-const WORKER_JS = join(__dirname, '..', 'dist', 'worker.js');
 const REPO = join(__dirname, '..', '..');
 const SUPERVISE = join(REPO, 'scripts', 'supervise.mjs');
 // The thread pool as built: its thread body is the compiled training-thread.js beside it.
 const THREADS_JS = join(__dirname, '..', 'dist', 'profile-versions', 'training-threads.js');
 /** Seconds without a heartbeat before a training counts as dead (30 in production). */
 const STALE_SECONDS = 2;
-
-// Invented words in the demo scenario's voice (sailing, jazz piano, a dog); sentences drawn with a
-// fixed seed so every run trains on the same text.
-const WORDS = (
-  'the wind came round to the west and the water was flat for an hour Pepper sat in the bow and ' +
-  'barked at every gull Hannah says the regatta starts at ten on Saturday we should be at the club ' +
-  'by nine to rig the boat I want to sail the new course with the downwind leg close to the shore ' +
-  'back home I practised the slow blues for Thursday the left hand still drags in the turnaround'
-).split(' ');
-
-function inventedText(chars: number, seed: number): string {
-  let state = seed;
-  const next = () => (state = (state * 1103515245 + 12345) % 2 ** 31) / 2 ** 31;
-  const sentences: string[] = [];
-  let length = 0;
-  while (length < chars) {
-    const words = Array.from(
-      { length: 5 + Math.floor(next() * 10) },
-      () => WORDS[Math.floor(next() * WORDS.length)],
-    );
-    const sentence = `${words.join(' ')}.`;
-    sentences.push(sentence);
-    length += sentence.length + 1;
-  }
-  return sentences.join(' ');
-}
 
 /** The longest time this event loop went without running a 10 ms timer while `work` ran (ms). */
 async function longestStall<T>(work: () => Promise<T>): Promise<{ stall: number; value: T }> {
@@ -79,54 +63,7 @@ async function longestStall<T>(work: () => Promise<T>): Promise<{ stall: number;
   }
 }
 
-type Worker = { child: ChildProcess; output: () => string; exit: Promise<number | null> };
-
-function startWorker(): Worker {
-  const child = spawn(process.execPath, [WORKER_JS], {
-    env: {
-      ...process.env,
-      NODE_ENV: 'test',
-      NO_COLOR: '1',
-      PROFILE_FOLDS: '2',
-      WORKER_CONCURRENCY: '1',
-      TRAINING_STALE_SECONDS: String(STALE_SECONDS),
-    },
-    stdio: ['ignore', 'pipe', 'pipe'],
-  });
-  let output = '';
-  child.stdout?.on('data', (chunk: Buffer) => (output += chunk.toString()));
-  child.stderr?.on('data', (chunk: Buffer) => (output += chunk.toString()));
-  const exit = new Promise<number | null>((resolve) => child.on('exit', (code) => resolve(code)));
-  return { child, output: () => output, exit };
-}
-
-const alive = (worker: Worker) => worker.child.exitCode === null && worker.child.signalCode === null;
-
-const sleep = (ms: number) => new Promise((resolve) => setTimeout(resolve, ms));
-
-/** Polls `check` every 100 ms until it answers a value (not undefined); fails after `ms`. */
-async function waitFor<T>(
-  what: string,
-  ms: number,
-  check: () => Promise<T | undefined> | T | undefined,
-): Promise<T> {
-  const deadline = Date.now() + ms;
-  for (;;) {
-    const value = await check();
-    if (value !== undefined) return value;
-    if (Date.now() > deadline) throw new Error(`Timed out after ${ms} ms waiting for ${what}`);
-    await sleep(100);
-  }
-}
-
-async function waitForLog(worker: Worker, text: string, ms: number): Promise<void> {
-  await waitFor(`"${text}" in the worker's log`, ms, () => {
-    if (!alive(worker)) throw new Error(`The worker exited (${worker.child.exitCode}):\n${worker.output()}`);
-    return worker.output().includes(text) ? true : undefined;
-  });
-}
-
-const READY = 'Waiting for profile-training jobs';
+const startWorker = () => startWorkerWith({ TRAINING_STALE_SECONDS: String(STALE_SECONDS) });
 
 describe('job worker process', () => {
   let t: TestApp;

@@ -1,3 +1,4 @@
+import { hostname } from 'node:os';
 import { validateEnv } from './env.schema';
 
 describe('validateEnv', () => {
@@ -35,6 +36,19 @@ describe('validateEnv', () => {
     expect(env.SMTP_SECURE).toBe(true);
     expect(env.LOGIN_RATE_LIMIT).toBe(100);
     expect(env).not.toHaveProperty('UNRELATED');
+  });
+
+  it('reads the per-queue job concurrency and the worker name, with the older WORKER_CONCURRENCY as a fallback', () => {
+    const defaults = validateEnv({});
+    expect(defaults).toMatchObject({ TRAINING_CONCURRENCY: 1, MAIL_CONCURRENCY: 1 });
+    expect(defaults.WORKER_NAME).toBe(`${hostname()}:${process.pid}`);
+    expect(validateEnv({ WORKER_CONCURRENCY: '3' }).TRAINING_CONCURRENCY).toBe(3);
+    expect(validateEnv({ WORKER_CONCURRENCY: '3', TRAINING_CONCURRENCY: '2' }).TRAINING_CONCURRENCY).toBe(2);
+    const set = validateEnv({ TRAINING_CONCURRENCY: '4', MAIL_CONCURRENCY: '2', WORKER_NAME: ' rack-2 ' });
+    expect(set).toMatchObject({ TRAINING_CONCURRENCY: 4, MAIL_CONCURRENCY: 2, WORKER_NAME: 'rack-2' });
+    expect(() => validateEnv({ TRAINING_CONCURRENCY: '0', MAIL_CONCURRENCY: 'many' })).toThrow(
+      /TRAINING_CONCURRENCY: Expected a whole number from 1 to 8\.[\s\S]*MAIL_CONCURRENCY: Expected a whole number/,
+    );
   });
 
   it('is in demo mode unless NODE_ENV=production, and DEMO_MODE overrides either way', () => {

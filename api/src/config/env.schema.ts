@@ -1,3 +1,4 @@
+import { hostname } from 'node:os';
 import { z } from 'zod';
 
 // The one place that knows the API's environment variables (foundation contract, "Environment variables").
@@ -13,13 +14,16 @@ const port = (fallback: number) =>
     .max(65535, { error: 'Expected a whole number from 1 to 65535.' })
     .default(fallback);
 
-const wholeNumber = (min: number, max: number, fallback: number) =>
+const wholeNumberOrUnset = (min: number, max: number) =>
   z.coerce
     .number({ error: `Expected a whole number from ${min} to ${max}.` })
     .int({ error: `Expected a whole number from ${min} to ${max}.` })
     .min(min, { error: `Expected a whole number from ${min} to ${max}.` })
     .max(max, { error: `Expected a whole number from ${min} to ${max}.` })
-    .default(fallback);
+    .optional();
+
+const wholeNumber = (min: number, max: number, fallback: number) =>
+  wholeNumberOrUnset(min, max).default(fallback);
 
 const flag = (fallback: boolean) =>
   z
@@ -69,8 +73,15 @@ export const envSchema = z
     SAMPLE_MAX_FILE_MB: wholeNumber(1, 1_000, 20),
     SAMPLE_MAX_CLIENT_MB: wholeNumber(1, 100_000, 200),
     SAMPLE_MAX_FILES: wholeNumber(1, 1_000, 50),
-    // Profile training: jobs one worker process runs at once, and cross-validation folds.
-    WORKER_CONCURRENCY: wholeNumber(1, 8, 1),
+    // Jobs one worker process runs at once, per queue: trainings (each in its own thread) and
+    // progress-summary e-mails. More capacity: more worker processes (on this or other machines)
+    // sharing the one database. WORKER_CONCURRENCY is the older name of TRAINING_CONCURRENCY.
+    TRAINING_CONCURRENCY: wholeNumberOrUnset(1, 8),
+    WORKER_CONCURRENCY: wholeNumberOrUnset(1, 8),
+    MAIL_CONCURRENCY: wholeNumber(1, 8, 1),
+    // The worker's name in its log and in each job's stored result (default: host name:process id).
+    WORKER_NAME: z.string().trim().min(1).max(200).optional(),
+    // Cross-validation folds of each training.
     PROFILE_FOLDS: wholeNumber(2, 10, 5),
     // Key of the HMAC-SHA-256 signature on exported profile files. Unset: a random key is made once and
     // kept in the database (app_settings). RFC 2104 §3 asks for at least the hash's output length
@@ -84,6 +95,8 @@ export const envSchema = z
     ...env,
     SESSION_SECRET: env.SESSION_SECRET ?? DEV_SESSION_SECRET,
     DEMO_MODE: env.DEMO_MODE ?? env.NODE_ENV !== 'production',
+    TRAINING_CONCURRENCY: env.TRAINING_CONCURRENCY ?? env.WORKER_CONCURRENCY ?? 1,
+    WORKER_NAME: env.WORKER_NAME ?? `${hostname()}:${process.pid}`,
   }));
 
 // Checked apart from the object schema so its message appears even when other variables are bad too.

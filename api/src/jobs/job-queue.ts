@@ -42,12 +42,39 @@ export function createJobBoss(databaseUrl: string, { supervise }: { supervise: b
   });
 }
 
+/** PostgreSQL's SQLSTATE for "deadlock detected" (PostgreSQL documentation, Appendix A, class 40). */
+const DEADLOCK_DETECTED = '40P01';
+
+/**
+ * Runs `step` again (up to 5 tries, 50–250 ms apart) when PostgreSQL ends it as a deadlock victim.
+ * pg-boss 10's create_queue() takes no lock of its own: two processes creating the same new queue at
+ * once (two workers started together on a fresh database) deadlock between the queue row and the
+ * partition it attaches, and one of them fails. The victim's transaction is rolled back whole, so
+ * the retry simply finds the queue made by the other.
+ */
+async function retryOnDeadlock(step: () => Promise<unknown>): Promise<void> {
+  for (let attempt = 1; ; attempt++) {
+    try {
+      await step();
+      return;
+    } catch (error) {
+      const code = (error as { code?: unknown } | null)?.code;
+      if (code !== DEADLOCK_DETECTED || attempt >= 5) throw error;
+      await new Promise((resolve) => setTimeout(resolve, 50 + Math.random() * 200));
+    }
+  }
+}
+
 /** Starts the boss and makes sure the training queue exists (pg-boss 10 needs it before send/work). */
 export async function startJobBoss(boss: PgBoss): Promise<void> {
   await boss.start();
   // Idempotent (INSERT … ON CONFLICT DO NOTHING inside pg-boss), so every process may call it.
-  await boss.createQueue(PROFILE_TRAINING_QUEUE, { ...PROFILE_TRAINING_QUEUE_OPTIONS });
+  await retryOnDeadlock(() =>
+    boss.createQueue(PROFILE_TRAINING_QUEUE, { ...PROFILE_TRAINING_QUEUE_OPTIONS }),
+  );
   // createQueue leaves an existing queue as it was: bring its retry/expiry up to date (new jobs only).
-  await boss.updateQueue(PROFILE_TRAINING_QUEUE, { ...PROFILE_TRAINING_QUEUE_OPTIONS });
-  await boss.createQueue(SUMMARY_MAIL_QUEUE, SUMMARY_MAIL_QUEUE_OPTIONS);
+  await retryOnDeadlock(() =>
+    boss.updateQueue(PROFILE_TRAINING_QUEUE, { ...PROFILE_TRAINING_QUEUE_OPTIONS }),
+  );
+  await retryOnDeadlock(() => boss.createQueue(SUMMARY_MAIL_QUEUE, SUMMARY_MAIL_QUEUE_OPTIONS));
 }

@@ -47,7 +47,10 @@ export async function requeueWaitingRecipients(boss: PgBoss, dataSource: DataSou
   return waiting.length;
 }
 
-/** Creates the queue, re-queues waiting rows and starts taking summary e-mail jobs one at a time. */
+/**
+ * Creates the queue, re-queues waiting rows and starts taking summary e-mail jobs, `concurrency` at
+ * a time (one pg-boss work() loop of batch size 1 each). @returns the pg-boss worker ids
+ */
 export async function startSummaryMailWork(
   boss: PgBoss,
   dataSource: DataSource,
@@ -55,25 +58,33 @@ export async function startSummaryMailWork(
   sender: MailSender,
   settings: DeliverySettings,
   logger: Pick<Logger, 'log'>,
-): Promise<string> {
+  concurrency = 1,
+): Promise<string[]> {
   await boss.createQueue(SUMMARY_MAIL_QUEUE, SUMMARY_MAIL_QUEUE_OPTIONS);
   const requeued = await requeueWaitingRecipients(boss, dataSource);
   if (requeued > 0) logger.log(`Re-queued ${requeued} waiting summary e-mails`);
-  return boss.work<SummaryMailJobData>(
-    SUMMARY_MAIL_QUEUE,
-    { batchSize: 1, pollingIntervalSeconds: 1, includeMetadata: true },
-    async ([job]) => {
-      const finalAttempt = job.retryCount >= job.retryLimit;
-      const outcome = await deliverSummaryEmail(
-        dataSource,
-        audit,
-        sender,
-        settings,
-        job.data.recipientId,
-        finalAttempt,
-      );
-      logger.log(`Summary e-mail ${job.data.recipientId}: ${outcome}`);
-      return { outcome };
-    },
-  );
+  const handler: PgBoss.WorkWithMetadataHandler<SummaryMailJobData> = async ([job]) => {
+    const finalAttempt = job.retryCount >= job.retryLimit;
+    const outcome = await deliverSummaryEmail(
+      dataSource,
+      audit,
+      sender,
+      settings,
+      job.data.recipientId,
+      finalAttempt,
+    );
+    logger.log(`Summary e-mail ${job.data.recipientId}: ${outcome}`);
+    return { outcome };
+  };
+  const ids: string[] = [];
+  for (let i = 0; i < concurrency; i++) {
+    ids.push(
+      await boss.work<SummaryMailJobData>(
+        SUMMARY_MAIL_QUEUE,
+        { batchSize: 1, pollingIntervalSeconds: 1, includeMetadata: true },
+        handler,
+      ),
+    );
+  }
+  return ids;
 }
