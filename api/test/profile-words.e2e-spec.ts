@@ -142,6 +142,8 @@ describe('word-aware list (HTTP)', () => {
     expect(contents.header.wordWeights).toEqual(
       expect.objectContaining({ personal: expect.any(Number), base: expect.any(Number) }),
     );
+    // The file names the base vocabulary its words were trained beside, as the database does.
+    expect(contents.header.baseWordsSha256).toBe(baseWordsSha256);
     const answer = await verify(file);
     expect(answer.valid).toBe(true);
     expect(answer.vocabularyWords).toBe(contents.vocabularyWords);
@@ -201,6 +203,7 @@ describe('word-aware list (HTTP)', () => {
     expect(answer.vocabularyWords).toBe(0);
     expect(answer.modelBytes).toBe(old.modelBytes);
     expect(answer.header).not.toHaveProperty('wordWeights');
+    expect(answer.header).not.toHaveProperty('baseWordsSha256');
     // The keyboard's download: layout 1, and the server's base vocabulary to offer words from.
     const res = await bytesOf(cast.owner, `/api/profile-versions/${old.id}/model`).expect(200);
     expect(layoutOf(gunzipSync(res.body as Buffer))).toBe(PROFILE_FILE_VERSION);

@@ -111,6 +111,8 @@ export function profileFileHeader(
     // Only with the word model it was tuned for (a file without words has no word list to weigh).
     ...(version.wordWeights && version.wordModel ? { wordWeights: version.wordWeights } : {}),
     baseModelSha256: version.baseModelSha256,
+    // The base vocabulary the words were trained beside (the file is self-describing without the database).
+    ...(version.baseWordsSha256 && version.wordModel ? { baseWordsSha256: version.baseWordsSha256 } : {}),
     engineVersion: typeof metrics.engineVersion === 'string' ? metrics.engineVersion : 'unknown',
     metrics: pick([
       'chars',

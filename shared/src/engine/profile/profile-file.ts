@@ -59,6 +59,8 @@ export type ProfileFileHeader = {
   wordWeights?: { personal: number; base: number; lexicon: number; cache: number };
   /** SHA-256 (hex) of the base model file the profile was trained beside, or null. */
   baseModelSha256: string | null;
+  /** SHA-256 (hex) of the base vocabulary file the word model was trained beside (layouts 3 and 4 only). */
+  baseWordsSha256?: string;
   engineVersion: string;
   /** The headline figures of the engine's report (same names as `model evaluate --json`). */
   metrics: Record<string, unknown>;
