@@ -109,6 +109,14 @@ export class ByteReader {
     return v;
   }
 
+  /** The next `n` bytes (a view, not a copy). */
+  take(n: number): Uint8Array {
+    this.need(n);
+    const out = this.bytes.subarray(this.position, this.position + n);
+    this.position += n;
+    return out;
+  }
+
   varint(): number {
     let v = 0;
     let scale = 1;

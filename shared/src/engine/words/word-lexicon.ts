@@ -1,19 +1,19 @@
 // A frequency list of words (e.g. SUBTLEX-US): the base vocabulary's widest
 // part and a context-free word probability P_lex(w) = f(w) / Σ f. Frozen.
-import { ByteReader, ByteWriter, FormatError, requireDeclaredFits } from '../byte-io';
-import { crc32 } from '../crc32';
-import { codePointsOf, stringFromCodePoints } from '../text-preparation';
-import { decodeUtf8, encodeUtf8 } from '../utf8-codec';
+import { FormatError, requireDeclaredFits } from '../byte-io';
+import {
+  closeFrame,
+  closeFrameReader,
+  type FrameKind,
+  openFrameReader,
+  openFrameWriter,
+  readText,
+  writeText,
+} from './framed-file';
 import { wordKey } from './word-tokens';
 
-function readUtf8(b: Uint8Array): string {
-  const cps = decodeUtf8(b);
-  if (!cps) throw new FormatError('damaged: text that is not UTF-8');
-  return stringFromCodePoints(cps);
-}
-
-const MAGIC = [0x8b, 0x4b, 0x4c, 0x4c]; // 0x8B "KLL"
-const LAYOUT_VERSION = 1;
+/** 0x8B "KLL", layout 1. */
+const FRAME: FrameKind = { magic: [0x8b, 0x4b, 0x4c, 0x4c], version: 1, what: 'word list', minBytes: 10 };
 
 export class WordLexicon {
   /** Keys by descending frequency. */
@@ -75,53 +75,29 @@ export class WordLexicon {
 
   /** Magic 8B 4B 4C 4C, version, n (varint), n × (key, frequency, form or empty), CRC-32. */
   toBytes(): Uint8Array {
-    const w = new ByteWriter();
-    for (const b of MAGIC) w.u8(b);
-    w.u8(LAYOUT_VERSION);
-    const str = (s: string): void => {
-      const b = encodeUtf8(codePointsOf(s));
-      w.varint(b.length);
-      w.raw(b);
-    };
+    const w = openFrameWriter(FRAME);
     w.varint(this.keys.length);
     for (let id = 0; id < this.keys.length; id++) {
-      str(this.keys[id]);
+      writeText(w, this.keys[id]);
       w.varint(this.frequencies[id]);
-      str(this.forms.get(id) ?? '');
+      writeText(w, this.forms.get(id) ?? '');
     }
-    w.u32(crc32(w.result()));
-    return w.result();
+    return closeFrame(w);
   }
 
   static fromBytes(bytes: Uint8Array): WordLexicon {
-    if (bytes.length < 10) throw new FormatError('word list: too short');
-    for (let i = 0; i < 4; i++)
-      if (bytes[i] !== MAGIC[i]) throw new FormatError('word list: not a Keyloom word list (wrong magic)');
-    const stored = new ByteReader(bytes.subarray(bytes.length - 4)).u32();
-    if (crc32(bytes.subarray(0, bytes.length - 4)) !== stored)
-      throw new FormatError('word list: damaged (CRC-32 does not match)');
-    const r = new ByteReader(bytes, bytes.length - 4);
-    r.position = 4;
-    const version = r.u8();
-    if (version !== LAYOUT_VERSION) throw new FormatError(`word list: layout ${version} is not supported`);
-    const str = (): string => {
-      const n = r.varint();
-      requireDeclaredFits(n, 'bytes of text', 1, r.remaining);
-      const b = bytes.subarray(r.position, r.position + n);
-      r.position += n;
-      return readUtf8(b);
-    };
+    const r = openFrameReader(bytes, FRAME);
     const n = r.varint();
     requireDeclaredFits(n, 'words', 3, r.remaining);
     const lex = new WordLexicon();
     for (let i = 0; i < n; i++) {
-      const key = str();
+      const key = readText(r);
       const f = r.varint();
-      const form = str();
+      const form = readText(r);
       if (lex.ids.has(key)) throw new FormatError(`word list: damaged (word "${key}" twice)`);
       lex.add(key, f, form === '' ? key : form);
     }
-    if (r.remaining !== 0) throw new FormatError('word list: damaged (bytes left over)');
+    closeFrameReader(r, FRAME);
     return lex;
   }
 }

@@ -20,30 +20,30 @@
 // D2 = 2 − 3Y·n3/n2, D3+ = 3 − 4Y·n4/n3; fixed when training ends, what is learned afterwards is
 // counted with the same discounts. Every sentence is padded with two sentence-start keys, so every
 // word has a context.
-import { ByteReader, ByteWriter, FormatError, requireDeclaredFits } from '../byte-io';
-import { crc32 } from '../crc32';
-import { codePointsOf, stringFromCodePoints } from '../text-preparation';
-import { decodeUtf8, encodeUtf8 } from '../utf8-codec';
+import { FormatError, requireDeclaredFits } from '../byte-io';
 import { FollowerTable } from './follower-table';
+import {
+  closeFrame,
+  closeFrameReader,
+  type FrameKind,
+  openFrameReader,
+  openFrameWriter,
+  readText,
+  writeText,
+} from './framed-file';
 import { SENTENCE_START, UNKNOWN_WORD, type WordToken } from './word-tokens';
 
 /** Ids below 2^22, so a context of two ids is one safe integer. */
 const ID_LIMIT = 1 << 22;
 const SENTENCE_START_ID = 0;
 const UNKNOWN_ID = 1;
-function readUtf8(b: Uint8Array): string {
-  const cps = decodeUtf8(b);
-  if (!cps) throw new FormatError('damaged: text that is not UTF-8');
-  return stringFromCodePoints(cps);
-}
-
-const MAGIC = [0x8b, 0x4b, 0x4c, 0x57]; // 0x8B "KLW"
+/** 0x8B "KLW", layout 2 (layout 1, with discounts rounded to 1e-6, was never released). */
+const FRAME: FrameKind = { magic: [0x8b, 0x4b, 0x4c, 0x57], version: 2, what: 'word model', minBytes: 84 };
 /**
  * Share of mid-sentence uses in lower case that makes the lower-case form the one offered (common
  * practice, no source: a word that is also a name, like "park" or "bill", is offered as the word).
  */
 export const LOWER_CASE_SHARE = 0.25;
-const LAYOUT_VERSION = 2;
 
 /** The three discounts of one order: for a count of 1, of 2, of 3 or more. */
 export type OrderDiscounts = [number, number, number];
@@ -333,15 +333,9 @@ export class WordNgramModel {
    * tables, per table u, v, size, size × (id delta, count); CRC-32 of all bytes before it.
    */
   toBytes(): Uint8Array {
-    const w = new ByteWriter();
-    for (const b of MAGIC) w.u8(b);
-    w.u8(LAYOUT_VERSION);
+    const w = openFrameWriter(FRAME);
     for (const order of this.discounts) for (const d of order) w.f64(d);
-    const str = (s: string): void => {
-      const b = encodeUtf8(codePointsOf(s));
-      w.varint(b.length);
-      w.raw(b);
-    };
+    const str = (s: string): void => writeText(w, s);
     w.varint(this.keys.length - 2);
     for (let id = 2; id < this.keys.length; id++) {
       str(this.keys[id]);
@@ -377,22 +371,12 @@ export class WordNgramModel {
     };
     tables(this.order2, false);
     tables(this.order3, true);
-    w.u32(crc32(w.result()));
-    return w.result();
+    return closeFrame(w);
   }
 
-  /** Reads layout 2 (layout 1, with discounts rounded to 1e-6, was never released). @throws FormatError naming what is wrong */
+  /** Reads layout 2. @throws FormatError naming what is wrong */
   static fromBytes(bytes: Uint8Array): WordNgramModel {
-    if (bytes.length < 84) throw new FormatError('word model: too short');
-    for (let i = 0; i < 4; i++)
-      if (bytes[i] !== MAGIC[i]) throw new FormatError('word model: not a Keyloom word model (wrong magic)');
-    const stored = new ByteReader(bytes.subarray(bytes.length - 4)).u32();
-    if (crc32(bytes.subarray(0, bytes.length - 4)) !== stored)
-      throw new FormatError('word model: damaged (CRC-32 does not match)');
-    const r = new ByteReader(bytes, bytes.length - 4);
-    r.position = 4;
-    const version = r.u8();
-    if (version !== LAYOUT_VERSION) throw new FormatError(`word model: layout ${version} is not supported`);
+    const r = openFrameReader(bytes, FRAME);
     const m = new WordNgramModel();
     const d = (): OrderDiscounts => {
       const read = [r.f64(), r.f64(), r.f64()];
@@ -401,13 +385,7 @@ export class WordNgramModel {
       return read as OrderDiscounts;
     };
     m.discounts = [d(), d(), d()];
-    const str = (): string => {
-      const n = r.varint();
-      requireDeclaredFits(n, 'bytes of text', 1, r.remaining);
-      const b = bytes.subarray(r.position, r.position + n);
-      r.position += n;
-      return readUtf8(b);
-    };
+    const str = (): string => readText(r);
     const words = r.varint();
     requireDeclaredFits(words, 'words', 5, r.remaining);
     for (let i = 0; i < words; i++) {
@@ -457,7 +435,7 @@ export class WordNgramModel {
     };
     tables(m.order2, false);
     tables(m.order3, true);
-    if (r.remaining !== 0) throw new FormatError('word model: damaged (bytes left over)');
+    closeFrameReader(r, FRAME);
     return m;
   }
 
