@@ -183,6 +183,8 @@ describe('Test keyboard page', () => {
     await user.click(screen.getByRole('button', { name: 'Start trial' }));
     // Each trial starts from the version as trained.
     expect(resets).toBe(resetsBefore + 1);
+    // The Start button is gone; focus lands on the message window, not on the page.
+    expect(output()).toHaveFocus();
     await user.click(key('t'));
     await user.click(key('e'));
     await user.click(await screen.findByRole('button', { name: 'Suggestion 1: tea' }));

@@ -219,7 +219,10 @@ export const TestKeyboard = ({
     // Every trial starts from the version as trained; it then learns the words typed in it.
     engine.resetLearning();
     session.start();
+    // The Start button gives way to Finish and Discard: focus goes to the message window, where
+    // the trial's text appears and from which Tab reaches the suggestions and the keys.
     if (settings.method === 'scanning') startScanning();
+    else outputRef.current?.focus();
   };
 
   const finishTrial = () => {
