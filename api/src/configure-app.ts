@@ -8,7 +8,7 @@ import helmet from 'helmet';
 import passport from 'passport';
 import type { Pool } from 'pg';
 import { NO_SESSION_MESSAGE, SESSION_COOKIE } from './auth/session-user';
-import { serveClient } from './client/serve-client';
+import { serveWebApp } from './web-app/serve-web-app';
 import { INVALID_JSON_MESSAGE } from './common/filters/api-exception.filter';
 import { AppConfig } from './config/app-config';
 import { SessionPool } from './database/session-pool';
@@ -56,7 +56,7 @@ export function configureApp(app: NestExpressApplication): Pool {
     }),
   );
 
-  serveClient(app, config.clientDist, logger);
+  serveWebApp(app, config.webAppDist, logger);
 
   const pool = app.get(SessionPool).pool;
   const PgStore = connectPgSimple(session);

@@ -517,7 +517,7 @@ describe('profile versions (HTTP)', () => {
 
     it('nobody approves their own work', async () => {
       const v = await signedOff();
-      await t.dataSource.query('UPDATE profile_versions SET created_by = $2 WHERE id = $1', [
+      await t.dataSource.query('UPDATE profile_versions SET created_by_id = $2 WHERE id = $1', [
         v.id,
         cast.supervisor.id,
       ]);

@@ -549,7 +549,7 @@ describe('summary e-mail delivery (mail job)', () => {
       // Rows as the test keyboard's POST stores them (only the columns the summary reads matter).
       const trial = (finishedAt: string, measures: object) =>
         t.dataSource.query(
-          `INSERT INTO trials (client_trial_id, profile_version_id, client_id, user_name, user_role,
+          `INSERT INTO trials (local_trial_id, profile_version_id, client_id, user_name, user_role,
                                started_at, finished_at, text, settings, events, measures, simulated)
            VALUES ($1, $2, $3, 'Hannah', 'carer', $4::timestamptz - interval '2 minutes', $4, 'hi pepper',
                    '{}', '[]', $5, '{}')`,
@@ -561,7 +561,7 @@ describe('summary e-mail delivery (mail job)', () => {
       await trial('2026-12-05T10:00:00Z', { keystrokeSavings: 0.9, wpm: 9 }); // after the period
       // The carer's sign-off comment is quoted after the trials (the user named by the cast's label).
       await t.dataSource.query(
-        `UPDATE profile_versions SET signed_off_by = $2, sign_off_comment = $3 WHERE id = $1`,
+        `UPDATE profile_versions SET signed_off_by_id = $2, sign_off_comment = $3 WHERE id = $1`,
         [versionId, cast.assignedCarer.id, 'He liked the sailing words.'],
       );
       const period = { from: '2026-10-01', to: '2026-11-30', note: '' };

@@ -15,7 +15,7 @@ export function typedEvents(text: string, ms: number, from = 0): TrialEvent[] {
 }
 
 export const directSettings: TrialSettings = {
-  method: 'direct',
+  selectionMode: 'direct',
   layout: 'typewriter',
   slots: 5,
   dwellMs: null,
@@ -30,7 +30,7 @@ export const directSettings: TrialSettings = {
 export function trialBody(overrides: Partial<CreateTrialInput> = {}): CreateTrialInput {
   const text = 'hi pepper';
   return {
-    clientTrialId: randomUUID(),
+    localTrialId: randomUUID(),
     startedAt: '2026-12-02T10:00:00.000Z',
     finishedAt: '2026-12-02T10:00:05.000Z',
     phraseId: null,

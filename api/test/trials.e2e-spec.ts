@@ -262,7 +262,7 @@ describe('test keyboard (HTTP)', () => {
       const body = trialBody({
         text: 'pepper? ', // the question mark takes the place of the space the suggestion left
         events,
-        settings: { ...directSettings, method: 'scanning', scanIntervalMs: 800, slots: 3 },
+        settings: { ...directSettings, selectionMode: 'scanning', scanIntervalMs: 800, slots: 3 },
       });
       const trial = (await post(cast.owner, trials(version.id), body).expect(201)).body as Trial;
       expect(trial.measures).toEqual(computeTrialMeasures(events, null));
@@ -292,8 +292,8 @@ describe('test keyboard (HTTP)', () => {
         path: 'events',
         message: 'The trial has no key presses.',
       });
-      expect((await bad({ ...trialBody(), clientTrialId: 'abc' })).issues).toContainEqual({
-        path: 'clientTrialId',
+      expect((await bad({ ...trialBody(), localTrialId: 'abc' })).issues).toContainEqual({
+        path: 'localTrialId',
         message: 'The trial needs an id made by the browser.',
       });
       expect(
@@ -341,9 +341,9 @@ describe('test keyboard (HTTP)', () => {
       ]);
       expect(both.map((r) => r.status).sort()).toEqual([200, 201]);
       expect((both[0].body as Trial).id).toBe((both[1].body as Trial).id);
-      for (const id of [body.clientTrialId, race.clientTrialId]) {
+      for (const id of [body.localTrialId, race.localTrialId]) {
         const rows: { n: string }[] = await t.dataSource.query(
-          'SELECT count(*) AS n FROM trials WHERE client_trial_id = $1',
+          'SELECT count(*) AS n FROM trials WHERE local_trial_id = $1',
           [id],
         );
         expect(Number(rows[0].n)).toBe(1);
@@ -353,7 +353,7 @@ describe('test keyboard (HTTP)', () => {
       // so the insert hits the unique index and the stored trial is answered (200), not a 500.
       const trialsService: unknown = t.app.get(TrialsService);
       const service = trialsService as {
-        stored: (clientTrialId: string, versionId: string) => Promise<Trial | null>;
+        stored: (localTrialId: string, versionId: string) => Promise<Trial | null>;
       };
       const miss = jest.spyOn(service, 'stored').mockResolvedValueOnce(null);
       try {

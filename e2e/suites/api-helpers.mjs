@@ -25,13 +25,13 @@ export async function postTypedTrial(page, appUrl, versionId, text = 'see you so
   const res = await page.request.post(`${appUrl}/api/profile-versions/${versionId}/trials`, {
     headers: await csrfHeaders(page, appUrl),
     data: {
-      clientTrialId: randomUUID(),
+      localTrialId: randomUUID(),
       startedAt: new Date(Date.now() - 15_000).toISOString(),
       finishedAt: new Date().toISOString(),
       text,
       events,
       settings: {
-        method: 'direct',
+        selectionMode: 'direct',
         layout: 'typewriter',
         slots: 5,
         dwellMs: null,

@@ -110,8 +110,8 @@ async function selectAndSettle(page, locator) {
   engineTimes.push(Number(await suggestionRow(page).getAttribute('data-engine-ms')));
 }
 
-async function chooseMethod(page, method) {
-  await page.getByLabel('Access method').selectOption(method);
+async function chooseSelectionMode(page, mode) {
+  await page.getByLabel('Selection mode').selectOption(mode);
 }
 
 export const keyboardSuite = {
@@ -293,7 +293,7 @@ export const keyboardSuite = {
           Math.abs(trial.measures.keystrokeSavings - (1 - clicks / characters)) < 1e-6,
           'savings agree with the clicks',
         );
-        assert.equal(trial.settings.method, 'direct');
+        assert.equal(trial.settings.selectionMode, 'direct');
         assert.equal(trial.phraseId !== null, true);
         console.log(
           `    measured keystroke savings ${(trial.measures.keystrokeSavings * 100).toFixed(1)}% ` +
@@ -307,7 +307,7 @@ export const keyboardSuite = {
       'scanning mode at 150 ms, driven by the Space switch, logs the switch presses',
       async (t) => {
         const page = await openKeyboard(t);
-        await chooseMethod(page, 'scanning');
+        await chooseSelectionMode(page, 'scanning');
         const interval = page.getByLabel('Scan interval (ms)');
         await interval.fill('150');
         await interval.blur();
@@ -347,7 +347,7 @@ export const keyboardSuite = {
         assert.equal(trials.length, countBefore + 1);
         const [trial] = trials;
         assert.equal(trial.text, 'as');
-        assert.equal(trial.settings.method, 'scanning');
+        assert.equal(trial.settings.selectionMode, 'scanning');
         assert.equal(trial.settings.scanIntervalMs, 150);
         assert.equal(trial.measures.keystrokes, 2, 'two letters selected');
         assert.equal(trial.measures.switchActivations, presses, 'every switch press is logged');
@@ -388,7 +388,7 @@ export const keyboardSuite = {
       'dwell mode: resting the pointer on a key types it; axe in dwell, high-contrast and large-target modes',
       async (t) => {
         const page = await openKeyboard(t);
-        await chooseMethod(page, 'dwell');
+        await chooseSelectionMode(page, 'dwell');
         const dwell = page.getByLabel('Dwell time (ms)');
         await dwell.fill('1200');
         await dwell.blur();

@@ -1,5 +1,5 @@
 // The Keyloom app itself: build, base-model corpus, migrations and seed, and the API process
-// (which also serves the built client).
+// (which also serves the built web app).
 import { existsSync, readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { shown, StepError } from './output.mjs';

@@ -83,9 +83,9 @@ export class AppConfig {
   get appUrl(): string {
     return this.get('APP_URL');
   }
-  /** Absolute folder of the built client; relative values are resolved from the repository root. */
-  get clientDist(): string {
-    const dir = this.get('CLIENT_DIST');
+  /** Absolute folder of the built web app (WEB_APP_DIST); relative values are resolved from the repository root. */
+  get webAppDist(): string {
+    const dir = this.get('WEB_APP_DIST');
     return isAbsolute(dir) ? dir : resolve(REPO_ROOT, dir);
   }
   /** EXPORT_SIGNING_KEY when set (else the export key is kept in the database). */

@@ -17,7 +17,7 @@ describe('validateEnv', () => {
       SMTP_PORT: 1025,
       SMTP_SECURE: false,
       APP_URL: 'http://127.0.0.1:3000',
-      CLIENT_DIST: 'client/dist',
+      WEB_APP_DIST: 'client/dist',
       DEMO_PASSWORD: 'keyloom-demo',
     });
     expect(env.SESSION_SECRET.length).toBeGreaterThanOrEqual(32);
@@ -48,6 +48,14 @@ describe('validateEnv', () => {
     expect(set).toMatchObject({ TRAINING_CONCURRENCY: 4, MAIL_CONCURRENCY: 2, WORKER_NAME: 'rack-2' });
     expect(() => validateEnv({ TRAINING_CONCURRENCY: '0', MAIL_CONCURRENCY: 'many' })).toThrow(
       /TRAINING_CONCURRENCY: Expected a whole number from 1 to 8\.[\s\S]*MAIL_CONCURRENCY: Expected a whole number/,
+    );
+  });
+
+  it('reads the web app folder from WEB_APP_DIST, with the deprecated CLIENT_DIST as a fallback', () => {
+    expect(validateEnv({}).WEB_APP_DIST).toBe('client/dist');
+    expect(validateEnv({ CLIENT_DIST: '/srv/old-dist' }).WEB_APP_DIST).toBe('/srv/old-dist');
+    expect(validateEnv({ CLIENT_DIST: '/srv/old-dist', WEB_APP_DIST: '/srv/web' }).WEB_APP_DIST).toBe(
+      '/srv/web',
     );
   });
 

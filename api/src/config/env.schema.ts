@@ -61,7 +61,10 @@ export const envSchema = z
     SMTP_PASS: z.string().optional(),
     MAIL_FROM: z.string().trim().min(3).default('Keyloom at Willowmere <keyloom@willowmere.example>'),
     APP_URL: url('http://127.0.0.1:3000', /^https?$/, 'Expected an http:// or https:// URL.'),
-    CLIENT_DIST: z.string().trim().min(1).default('client/dist'),
+    // Folder of the built web app served at /. CLIENT_DIST is its older name, still read when
+    // WEB_APP_DIST is unset (deprecated: to be dropped in the release after next).
+    WEB_APP_DIST: z.string().trim().min(1).optional(),
+    CLIENT_DIST: z.string().trim().min(1).optional(),
     // Demo mode (default: on unless NODE_ENV=production): the seeded demo accounts keep the demo
     // password; outside it they must choose a new one at their first sign-in.
     DEMO_MODE: z
@@ -96,6 +99,7 @@ export const envSchema = z
     SESSION_SECRET: env.SESSION_SECRET ?? DEV_SESSION_SECRET,
     DEMO_MODE: env.DEMO_MODE ?? env.NODE_ENV !== 'production',
     TRAINING_CONCURRENCY: env.TRAINING_CONCURRENCY ?? env.WORKER_CONCURRENCY ?? 1,
+    WEB_APP_DIST: env.WEB_APP_DIST ?? env.CLIENT_DIST ?? 'client/dist',
     WORKER_NAME: env.WORKER_NAME ?? `${hostname()}:${process.pid}`,
   }));
 

@@ -109,18 +109,18 @@ export class ProfileVersion {
   @Column({ type: 'jsonb', default: () => `'[]'` })
   history: StoredVersionEvent[];
 
-  @Column({ name: 'created_by', type: 'uuid', nullable: true })
+  @Column({ name: 'created_by_id', type: 'uuid', nullable: true })
   createdById: string | null;
 
   @ManyToOne(() => User, { onDelete: 'SET NULL', nullable: true })
-  @JoinColumn({ name: 'created_by', foreignKeyConstraintName: 'FK_profile_versions_created_by' })
+  @JoinColumn({ name: 'created_by_id', foreignKeyConstraintName: 'FK_profile_versions_created_by_id' })
   createdBy?: Relation<User> | null;
 
-  @Column({ name: 'signed_off_by', type: 'uuid', nullable: true })
+  @Column({ name: 'signed_off_by_id', type: 'uuid', nullable: true })
   signedOffById: string | null;
 
   @ManyToOne(() => User, { onDelete: 'SET NULL', nullable: true })
-  @JoinColumn({ name: 'signed_off_by', foreignKeyConstraintName: 'FK_profile_versions_signed_off_by' })
+  @JoinColumn({ name: 'signed_off_by_id', foreignKeyConstraintName: 'FK_profile_versions_signed_off_by_id' })
   signedOffBy?: Relation<User> | null;
 
   @Column({ name: 'signed_off_at', type: 'timestamptz', nullable: true })
@@ -129,11 +129,11 @@ export class ProfileVersion {
   @Column({ name: 'sign_off_comment', type: 'text', nullable: true })
   signOffComment: string | null;
 
-  @Column({ name: 'approved_by', type: 'uuid', nullable: true })
+  @Column({ name: 'approved_by_id', type: 'uuid', nullable: true })
   approvedById: string | null;
 
   @ManyToOne(() => User, { onDelete: 'SET NULL', nullable: true })
-  @JoinColumn({ name: 'approved_by', foreignKeyConstraintName: 'FK_profile_versions_approved_by' })
+  @JoinColumn({ name: 'approved_by_id', foreignKeyConstraintName: 'FK_profile_versions_approved_by_id' })
   approvedBy?: Relation<User> | null;
 
   @Column({ name: 'approved_at', type: 'timestamptz', nullable: true })

@@ -441,7 +441,7 @@ export class ProfileVersionsService implements OnModuleInit {
       if (!(await hasTrial(manager, id))) throw new ConflictException(TRIAL_FIRST_MESSAGE);
       await updateCount(
         manager,
-        `UPDATE profile_versions SET status = 'signed_off', signed_off_by = $2, signed_off_at = now(),
+        `UPDATE profile_versions SET status = 'signed_off', signed_off_by_id = $2, signed_off_at = now(),
            sign_off_comment = $3, updated_at = now(), history = history || $4::jsonb WHERE id = $1`,
         [id, actor.id, input.comment, historyEvent('signed_off', actor, input.comment)],
       );
@@ -550,7 +550,7 @@ export class ProfileVersionsService implements OnModuleInit {
       }
       await updateCount(
         manager,
-        `UPDATE profile_versions SET status = 'active', approved_by = $2, approved_at = now(),
+        `UPDATE profile_versions SET status = 'active', approved_by_id = $2, approved_at = now(),
            approval_comment = $3, updated_at = now(), history = history || $4::jsonb WHERE id = $1`,
         [id, actor.id, input.comment, historyEvent('active', actor, input.comment)],
       );

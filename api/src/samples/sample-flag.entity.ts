@@ -53,11 +53,11 @@ export class SampleFlag {
   @Column({ type: 'text', nullable: true })
   reason: string | null;
 
-  @Column({ name: 'decided_by', type: 'uuid', nullable: true })
+  @Column({ name: 'decided_by_id', type: 'uuid', nullable: true })
   decidedById: string | null;
 
   @ManyToOne(() => User, { onDelete: 'SET NULL', nullable: true })
-  @JoinColumn({ name: 'decided_by', foreignKeyConstraintName: 'FK_sample_flags_decided_by' })
+  @JoinColumn({ name: 'decided_by_id', foreignKeyConstraintName: 'FK_sample_flags_decided_by_id' })
   decidedBy?: Relation<User> | null;
 
   @Column({ name: 'decided_at', type: 'timestamptz', nullable: true })

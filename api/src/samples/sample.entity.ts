@@ -91,11 +91,11 @@ export class Sample {
   @Column({ name: 'unknown_words', type: 'jsonb' })
   unknownWords: StoredWordCount[];
 
-  @Column({ name: 'uploaded_by', type: 'uuid', nullable: true })
+  @Column({ name: 'uploaded_by_id', type: 'uuid', nullable: true })
   uploadedById: string | null;
 
   @ManyToOne(() => User, { onDelete: 'SET NULL', nullable: true })
-  @JoinColumn({ name: 'uploaded_by', foreignKeyConstraintName: 'FK_language_samples_uploaded_by' })
+  @JoinColumn({ name: 'uploaded_by_id', foreignKeyConstraintName: 'FK_language_samples_uploaded_by_id' })
   uploadedBy?: Relation<User> | null;
 
   @OneToMany(() => SampleFlag, (flag) => flag.sample)

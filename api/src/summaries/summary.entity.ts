@@ -54,11 +54,11 @@ export class Summary {
   @Column({ type: 'jsonb' })
   figures: VersionFigures[];
 
-  @Column({ name: 'created_by', type: 'uuid', nullable: true })
+  @Column({ name: 'created_by_id', type: 'uuid', nullable: true })
   createdById: string | null;
 
   @ManyToOne(() => User, { onDelete: 'SET NULL', nullable: true })
-  @JoinColumn({ name: 'created_by', foreignKeyConstraintName: 'FK_summaries_created_by' })
+  @JoinColumn({ name: 'created_by_id', foreignKeyConstraintName: 'FK_summaries_created_by_id' })
   createdBy?: Relation<User> | null;
 
   @CreateDateColumn({ name: 'created_at', type: 'timestamptz' })

@@ -30,11 +30,11 @@ export class PracticePhraseRow {
   @Column({ type: 'text' })
   text: string;
 
-  @Column({ name: 'added_by', type: 'uuid', nullable: true })
+  @Column({ name: 'added_by_id', type: 'uuid', nullable: true })
   addedById: string | null;
 
   @ManyToOne(() => User, { onDelete: 'SET NULL', nullable: true })
-  @JoinColumn({ name: 'added_by', foreignKeyConstraintName: 'FK_practice_phrases_added_by' })
+  @JoinColumn({ name: 'added_by_id', foreignKeyConstraintName: 'FK_practice_phrases_added_by_id' })
   addedBy?: Relation<User> | null;
 
   @CreateDateColumn({ name: 'created_at', type: 'timestamptz' })

@@ -23,13 +23,13 @@ function typed(text: string, ms: number): TrialEvent[] {
 
 function body(overrides: Partial<CreateTrialBody>): CreateTrialBody {
   return createTrialSchema.parse({
-    clientTrialId: '0f8e2c1a-6b4d-4e3f-9a21-7c5d3b1e0a99',
+    localTrialId: '0f8e2c1a-6b4d-4e3f-9a21-7c5d3b1e0a99',
     startedAt: '2026-12-02T10:00:00Z',
     finishedAt: '2026-12-02T10:01:00Z',
     text: 'tea please',
     events: typed('tea please', 9_000),
     settings: {
-      method: 'dwell',
+      selectionMode: 'dwell',
       layout: 'alphabetical',
       slots: 4,
       dwellMs: 800,

@@ -21,7 +21,7 @@ export type SimulatedFigures = { keystrokeSavings: number | null; wpm: number | 
 // One finished trial on the test keyboard: the log as the browser sent it (replayed by the API), and
 // the measures the API computed from it. Never changed after it is stored.
 @Entity({ name: 'trials' })
-@Unique('UQ_trials_client_trial_id', ['clientTrialId'])
+@Unique('UQ_trials_local_trial_id', ['localTrialId'])
 @Index('IDX_trials_profile_version_id_created_at', ['profileVersionId', 'createdAt'])
 @Index('IDX_trials_client_id', ['clientId'])
 @Check('CHK_trials_times', `started_at <= finished_at`)
@@ -29,8 +29,8 @@ export class Trial {
   @PrimaryGeneratedColumn('uuid', { primaryKeyConstraintName: 'PK_trials' })
   id: string;
 
-  @Column({ name: 'client_trial_id', type: 'uuid' })
-  clientTrialId: string;
+  @Column({ name: 'local_trial_id', type: 'uuid' })
+  localTrialId: string;
 
   @Column({ name: 'profile_version_id', type: 'uuid' })
   profileVersionId: string;

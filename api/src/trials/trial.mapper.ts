@@ -8,7 +8,7 @@ const REMOVED = '(removed account)';
 export function toTrialDto(trial: Trial, versionNumber: number): TrialShape {
   return {
     id: trial.id,
-    clientTrialId: trial.clientTrialId,
+    localTrialId: trial.localTrialId,
     versionId: trial.profileVersionId,
     versionNumber,
     clientId: trial.clientId,

@@ -32,7 +32,7 @@ export class TrialsController {
     description:
       'Owning clinician or assigned carer. A log that cannot be replayed, or whose text differs from `text`: ' +
       '400 naming the step. The version must be ready for trial, signed off or active (else 409). The same ' +
-      'clientTrialId again: 200 with the stored trial; on another version: 409.',
+      'localTrialId again: 200 with the stored trial; on another version: 409.',
   })
   @ApiBody({ schema: zodSchemaObject(createTrialSchema) })
   @ApiCreatedResponse({ schema: zodSchemaObject(trialSchema) })

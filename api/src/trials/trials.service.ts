@@ -75,14 +75,14 @@ export class TrialsService implements OnModuleInit {
 
   /**
    * Stores a finished trial (owning clinician or assigned carer) after replaying its log; the measures
-   * are computed here. The same clientTrialId again → the stored trial (created false), also when two
+   * are computed here. The same localTrialId again → the stored trial (created false), also when two
    * uploads race; on another version → 409.
    */
   async create(actor: Actor, versionId: string, body: CreateTrialBody): Promise<TrialUpload> {
     const { clientId } = await this.versions.readable(actor, versionId);
     if (actor.role !== 'clinician' && actor.role !== 'carer')
       throw new ForbiddenException(ONLY_TRIERS_MESSAGE);
-    const stored = await this.stored(body.clientTrialId, versionId);
+    const stored = await this.stored(body.localTrialId, versionId);
     if (stored) return { created: false, trial: stored };
     let measures;
     try {
@@ -103,7 +103,7 @@ export class TrialsService implements OnModuleInit {
         const repo = manager.getRepository(Trial);
         const saved = await repo.save(
           repo.create({
-            clientTrialId: body.clientTrialId,
+            localTrialId: body.localTrialId,
             profileVersionId: versionId,
             clientId,
             userId: actor.id,
@@ -127,11 +127,11 @@ export class TrialsService implements OnModuleInit {
           { type: 'trial', id: saved.id, clientId },
           {
             versionId,
-            clientTrialId: body.clientTrialId,
+            localTrialId: body.localTrialId,
             characters: measures.characters,
             keystrokes: measures.keystrokes,
             keystrokeSavings: measures.keystrokeSavings,
-            method: body.settings.method,
+            selectionMode: body.settings.selectionMode,
           },
           manager,
         );
@@ -141,15 +141,15 @@ export class TrialsService implements OnModuleInit {
     } catch (error) {
       // Two uploads of one trial at once: the other one stored it first.
       if (!isUniqueViolation(error)) throw error;
-      const again = await this.stored(body.clientTrialId, versionId);
+      const again = await this.stored(body.localTrialId, versionId);
       if (!again) throw error;
       return { created: false, trial: again };
     }
   }
 
   // The trial stored under this browser-made id, or null; 409 when it belongs to another version.
-  private async stored(clientTrialId: string, versionId: string): Promise<TrialShape | null> {
-    const row = await this.dataSource.getRepository(Trial).findOneBy({ clientTrialId });
+  private async stored(localTrialId: string, versionId: string): Promise<TrialShape | null> {
+    const row = await this.dataSource.getRepository(Trial).findOneBy({ localTrialId });
     if (!row) return null;
     if (row.profileVersionId !== versionId) throw new ConflictException(TRIAL_ID_OTHER_VERSION_MESSAGE);
     return toTrialDto(row, (await this.version(versionId)).number);

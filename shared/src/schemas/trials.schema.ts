@@ -3,11 +3,14 @@ import { isoDateTimeField, safeText } from './common';
 
 // Trials on the test keyboard: what the browser logs and posts, what the API stores and returns.
 
-/** How the person selects on the test keyboard during a trial. */
-export const trialAccessMethods = ['direct', 'dwell', 'scanning'] as const;
-export const trialAccessMethodSchema = z.enum(trialAccessMethods);
-export type TrialAccessMethod = z.infer<typeof trialAccessMethodSchema>;
-export const trialAccessMethodLabels: Record<TrialAccessMethod, string> = {
+/**
+ * How keys are selected on the test keyboard during a trial (its selection mode). Not the client
+ * record's access method (the body or device route, accessMethodSchema), which only picks the default.
+ */
+export const trialSelectionModes = ['direct', 'dwell', 'scanning'] as const;
+export const trialSelectionModeSchema = z.enum(trialSelectionModes);
+export type TrialSelectionMode = z.infer<typeof trialSelectionModeSchema>;
+export const trialSelectionModeLabels: Record<TrialSelectionMode, string> = {
   direct: 'Direct (pointer, touch or keyboard)',
   dwell: 'Dwell',
   scanning: 'Single-switch scanning',
@@ -24,7 +27,7 @@ export const keyboardLayoutLabels: Record<KeyboardLayout, string> = {
 
 /** The settings a trial ran with (the client record's access settings are the defaults). */
 export const trialSettingsSchema = z.object({
-  method: trialAccessMethodSchema,
+  selectionMode: trialSelectionModeSchema,
   layout: keyboardLayoutSchema,
   slots: z.number().int().min(1).max(10),
   dwellMs: z.number().int().min(100).max(5_000).nullable(),
@@ -76,10 +79,10 @@ export type TrialEvent = z.infer<typeof trialEventSchema>;
 export const TRIAL_MAX_EVENTS = 20_000;
 export const TRIAL_MAX_TEXT = 5_000;
 
-// POST /api/profile-versions/:id/trials. `clientTrialId` is made in the browser; posting the same id
+// POST /api/profile-versions/:id/trials. `localTrialId` is made in the browser; posting the same id
 // again (an upload retried after the network came back) returns the stored trial instead of a second one.
 export const createTrialSchema = z.object({
-  clientTrialId: z.uuid({ error: 'The trial needs an id made by the browser.' }),
+  localTrialId: z.uuid({ error: 'The trial needs an id made by the browser.' }),
   startedAt: isoDateTimeField,
   finishedAt: isoDateTimeField,
   /** A practice phrase's id ("kl-…" for Keyloom's own phrases, a uuid for the client's), if one was used. */
@@ -127,7 +130,7 @@ export type TrialMeasures = z.infer<typeof trialMeasuresSchema>;
 
 export const trialSchema = z.object({
   id: z.uuid(),
-  clientTrialId: z.uuid(),
+  localTrialId: z.uuid(),
   versionId: z.uuid(),
   versionNumber: z.number().int(),
   clientId: z.uuid(),

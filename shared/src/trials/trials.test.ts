@@ -159,12 +159,12 @@ describe('practice phrases and the trial schema', () => {
 
   it('refuses a trial without steps and fills defaults', () => {
     const base = {
-      clientTrialId: '4b9d1c3e-2f7a-4c61-9a0e-8f7b6d5c4a31',
+      localTrialId: '4b9d1c3e-2f7a-4c61-9a0e-8f7b6d5c4a31',
       startedAt: '2026-12-02T10:00:00Z',
       finishedAt: '2026-12-02T10:05:00Z',
       text: 'hi',
       settings: {
-        method: 'direct',
+        selectionMode: 'direct',
         layout: 'typewriter',
         slots: 5,
         dwellMs: null,

@@ -81,7 +81,7 @@ const openKeyboard = async (role: Role, query = '', routes: MockRoutes = {}) => 
     [`GET /api/clients/${ASHBY_ID}/practice-phrases`]: { body: practicePhrases() },
     [`POST ${trialsUrl(VERSION_1_ID)}`]: (request) => {
       const input = createTrialSchema.parse(request.body);
-      return { status: 201, body: trialRecord({ clientTrialId: input.clientTrialId, text: input.text }) };
+      return { status: 201, body: trialRecord({ localTrialId: input.localTrialId, text: input.text }) };
     },
     [`GET ${trialsUrl(VERSION_1_ID)}`]: { body: [] },
     ...routes,
@@ -118,7 +118,7 @@ describe('Test keyboard page', () => {
     ).toEqual(['Version 2 — Ready for trial', 'Version 1 — Active profile']);
     expect(screen.getByText('30 kB downloaded (90 kB unpacked)')).toBeInTheDocument();
     // A head-pointer client starts in direct mode; the slot count is the version's.
-    expect(screen.getByLabelText('Access method')).toHaveValue('direct');
+    expect(screen.getByLabelText('Selection mode')).toHaveValue('direct');
     expect(within(screen.getByRole('group', { name: 'Suggestions' })).getAllByRole('button')).toHaveLength(5);
   });
 
@@ -196,7 +196,7 @@ describe('Test keyboard page', () => {
     expect(replayTrial(posted.events)).toBe('tea ');
     expect(posted).toMatchObject({ phraseId: 'kl-11', targetPhrase: 'the soup is too hot', text: 'tea ' });
     expect(posted.settings).toMatchObject({
-      method: 'direct',
+      selectionMode: 'direct',
       slots: 5,
       dwellMs: null,
       scanIntervalMs: null,
@@ -209,7 +209,7 @@ describe('Test keyboard page', () => {
 
   it('scans rows then keys at the scan interval and selects with the switch (Space)', async () => {
     const { user } = await openKeyboard('carer');
-    await user.selectOptions(screen.getByLabelText('Access method'), 'scanning');
+    await user.selectOptions(screen.getByLabelText('Selection mode'), 'scanning');
     const interval = screen.getByLabelText('Scan interval (ms)');
     await user.clear(interval);
     await user.type(interval, '200');

@@ -2,9 +2,9 @@ import {
   keyboardLayoutLabels,
   keyboardLayouts,
   type KeyboardLayout,
-  trialAccessMethodLabels,
-  trialAccessMethods,
-  type TrialAccessMethod,
+  trialSelectionModeLabels,
+  trialSelectionModes,
+  type TrialSelectionMode,
 } from '@keyloom/shared';
 import { memo, type ReactNode, useId, useState } from 'react';
 import { fieldClasses } from '@/components/ui/field-classes';
@@ -152,7 +152,7 @@ export const SettingsPanel = memo(function SettingsPanel({
       <p className="text-ink-soft">
         The client record’s access method and timing are the starting values. Changing a setting keeps the
         text.
-        {trialRunning && ' The method and its timing stay fixed until the trial ends.'}
+        {trialRunning && ' The selection mode and its timing stay fixed until the trial ends.'}
       </p>
       <div className="grid gap-5 md:grid-cols-2">
         <Field label="Key order">
@@ -171,24 +171,24 @@ export const SettingsPanel = memo(function SettingsPanel({
             </select>
           )}
         </Field>
-        <Field label="Access method">
+        <Field label="Selection mode">
           {(id) => (
             <select
               id={id}
               className={fieldClasses(false)}
-              value={settings.method}
+              value={settings.selectionMode}
               disabled={trialRunning}
-              onChange={(event) => set({ method: event.target.value as TrialAccessMethod })}
+              onChange={(event) => set({ selectionMode: event.target.value as TrialSelectionMode })}
             >
-              {trialAccessMethods.map((method) => (
-                <option key={method} value={method}>
-                  {trialAccessMethodLabels[method]}
+              {trialSelectionModes.map((mode) => (
+                <option key={mode} value={mode}>
+                  {trialSelectionModeLabels[mode]}
                 </option>
               ))}
             </select>
           )}
         </Field>
-        {settings.method === 'dwell' && (
+        {settings.selectionMode === 'dwell' && (
           <MsField
             label="Dwell time (ms)"
             hint="How long the pointer must rest on a key before it is chosen (100–5000)."
@@ -199,7 +199,7 @@ export const SettingsPanel = memo(function SettingsPanel({
             onCommit={(dwellMs) => set({ dwellMs })}
           />
         )}
-        {settings.method === 'scanning' && (
+        {settings.selectionMode === 'scanning' && (
           <MsField
             label="Scan interval (ms)"
             hint="How long each row or key stays highlighted (100–10000)."

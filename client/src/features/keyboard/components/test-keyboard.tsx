@@ -56,15 +56,15 @@ type TestKeyboardProps = {
  */
 const uploadNow = (
   finished: Finished,
-  queue: { waitingIds: string[]; failed: { clientTrialId: string; message: string }[] },
+  queue: { waitingIds: string[]; failed: { localTrialId: string; message: string }[] },
 ): UploadState => {
   if (finished.upload !== 'queued') return finished.upload;
-  const refused = queue.failed.find((f) => f.clientTrialId === finished.clientTrialId);
+  const refused = queue.failed.find((f) => f.localTrialId === finished.localTrialId);
   if (refused) return { failed: refused.message };
-  return queue.waitingIds.includes(finished.clientTrialId) ? 'queued' : 'sent';
+  return queue.waitingIds.includes(finished.localTrialId) ? 'queued' : 'sent';
 };
 
-type Finished = { measures: TrialMeasures; slots: number; upload: UploadState; clientTrialId: string };
+type Finished = { measures: TrialMeasures; slots: number; upload: UploadState; localTrialId: string };
 
 const stepOf = (key: KeyDef): Omit<TrialEvent, 't'> =>
   key.kind === 'letter' || key.kind === 'punctuation'
@@ -156,7 +156,7 @@ export const TestKeyboard = ({
     return map;
   }, [settings.tintKeys, answer]);
 
-  // ---- selection by any method ------------------------------------------------------------
+  // ---- selection in any mode --------------------------------------------------------------
   const pick = useCallback(
     (slot: number, word: string) => select({ type: 'suggestion', value: word, slot }),
     [select],
@@ -171,7 +171,7 @@ export const TestKeyboard = ({
 
   const rowLengths = useMemo(() => [words.length, ...rows.map((row) => row.length)], [words.length, rows]);
   const scanner = useScanner({
-    enabled: settings.method === 'scanning',
+    enabled: settings.selectionMode === 'scanning',
     intervalMs: settings.scanIntervalMs ?? 1000,
     rowLengths,
     onSelect: useCallback((row: number, item: number) => {
@@ -188,7 +188,7 @@ export const TestKeyboard = ({
   });
 
   const dwell = useDwell({
-    enabled: settings.method === 'dwell',
+    enabled: settings.selectionMode === 'dwell',
     dwellMs: settings.dwellMs ?? 800,
     onActivate: useCallback((id: string) => {
       const now = latest.current;
@@ -221,7 +221,7 @@ export const TestKeyboard = ({
     session.start();
     // The Start button gives way to Finish and Discard: focus goes to the message window, where
     // the trial's text appears and from which Tab reaches the suggestions and the keys.
-    if (settings.method === 'scanning') startScanning();
+    if (settings.selectionMode === 'scanning') startScanning();
     else outputRef.current?.focus();
   };
 
@@ -234,7 +234,7 @@ export const TestKeyboard = ({
       note: note.trim(),
     });
     const measures = computeTrialMeasures(input.events, target);
-    setFinished({ measures, slots, upload: 'sending', clientTrialId: input.clientTrialId });
+    setFinished({ measures, slots, upload: 'sending', localTrialId: input.localTrialId });
     setNote('');
     pending
       .submit(versionId, input)
@@ -334,9 +334,9 @@ export const TestKeyboard = ({
         {pending.failed.length > 0 && (
           <ul aria-label="Trials that could not be saved" className="list-disc pl-6 text-danger">
             {pending.failed.map((failure) => (
-              <li key={failure.clientTrialId}>
+              <li key={failure.localTrialId}>
                 {failure.message}{' '}
-                <Button variant="quiet" onClick={() => pending.dismiss(failure.clientTrialId)}>
+                <Button variant="quiet" onClick={() => pending.dismiss(failure.localTrialId)}>
                   Forget this trial
                 </Button>
               </li>
@@ -373,7 +373,7 @@ export const TestKeyboard = ({
           onClear={session.clear}
           clearDisabled={session.running}
         />
-        {settings.method === 'scanning' && (
+        {settings.selectionMode === 'scanning' && (
           <div className="flex flex-wrap items-center gap-3">
             {scanner.running ? (
               <Button onClick={scanner.stop}>Stop scanning (Escape)</Button>
@@ -401,7 +401,7 @@ export const TestKeyboard = ({
           reduceMotion={reduceMotion}
           textScale={settings.textScale}
           scan={scanState && scanState.row === 0 ? { level: scanState.level, item: scanState.item } : null}
-          dwell={settings.method === 'dwell' ? dwell : null}
+          dwell={settings.selectionMode === 'dwell' ? dwell : null}
         />
         <KeyGrid
           rows={rows}
@@ -416,7 +416,7 @@ export const TestKeyboard = ({
               ? { level: scanState.level, row: scanState.row - 1, item: scanState.item }
               : null
           }
-          dwell={settings.method === 'dwell' ? dwell : null}
+          dwell={settings.selectionMode === 'dwell' ? dwell : null}
         />
       </section>
 

@@ -12,7 +12,7 @@ import {
 } from '@/components/ui/table';
 import { formatDateTime } from '@/lib/format';
 import { useTrials } from '../api/get-trials';
-import { methodShort, percentOrDash, wpmOrDash } from '../logic/trial-figures';
+import { selectionModeShort, percentOrDash, wpmOrDash } from '../logic/trial-figures';
 
 const roleWords: Record<string, string> = { carer: 'carer', clinician: 'clinician' };
 
@@ -40,8 +40,8 @@ export const TrialsTable = ({ trials, caption }: { trials: readonly Trial[]; cap
             )}
           </TableCell>
           <TableCell label="Method">
-            {methodShort[trial.settings.method]}
-            {trial.settings.method === 'scanning' && (
+            {selectionModeShort[trial.settings.selectionMode]}
+            {trial.settings.selectionMode === 'scanning' && (
               <span className="block text-ink-soft">{trial.measures.switchActivations} switch presses</span>
             )}
           </TableCell>

@@ -16,8 +16,8 @@ import {
 const VERSION = '6f1c2b3a-4d5e-4f60-8a1b-2c3d4e5f6a7b';
 const POST_KEY = `POST /api/profile-versions/${VERSION}/trials`;
 
-const trialInput = (clientTrialId: string): CreateTrialInput => ({
-  clientTrialId,
+const trialInput = (localTrialId: string): CreateTrialInput => ({
+  localTrialId,
   startedAt: '2026-12-02T10:00:00.000Z',
   finishedAt: '2026-12-02T10:01:00.000Z',
   phraseId: null,
@@ -33,7 +33,7 @@ const trialInput = (clientTrialId: string): CreateTrialInput => ({
 
 const storedTrial = (input: CreateTrialInput): Trial => ({
   id: 'a1b2c3d4-e5f6-4a7b-8c9d-0e1f2a3b4c5d',
-  clientTrialId: input.clientTrialId,
+  localTrialId: input.localTrialId,
   versionId: VERSION,
   versionNumber: 1,
   clientId: 'b2c3d4e5-f6a7-4b8c-9d0e-1f2a3b4c5d6e',
@@ -63,7 +63,7 @@ const storedTrial = (input: CreateTrialInput): Trial => ({
   createdAt: input.finishedAt,
 });
 
-/** A server that stores each clientTrialId once; `mode` decides how it answers. */
+/** A server that stores each localTrialId once; `mode` decides how it answers. */
 function server() {
   const stored = new Map<string, Trial>();
   let mode: 'offline' | 'up' | 'error500' | 'refuse' = 'up';
@@ -82,10 +82,10 @@ function server() {
         return { status: 409, body: { statusCode: 409, message: 'This version has no trained model yet.' } };
       }
       const input = request.body as CreateTrialInput;
-      const existing = stored.get(input.clientTrialId);
+      const existing = stored.get(input.localTrialId);
       if (existing) return { status: 200, body: existing };
       const trial = storedTrial(input);
-      stored.set(input.clientTrialId, trial);
+      stored.set(input.localTrialId, trial);
       return { status: 201, body: trial };
     },
   };
@@ -124,7 +124,7 @@ describe('usePendingTrials', () => {
     });
     expect(outcome).toMatchObject({
       outcome: 'sent',
-      trial: { clientTrialId: '11111111-1111-4111-8111-111111111111' },
+      trial: { localTrialId: '11111111-1111-4111-8111-111111111111' },
     });
     expect(result.current.pending).toBe(0);
     expect(localStorage.getItem(PENDING_TRIALS_KEY)).toBeNull();
@@ -156,7 +156,7 @@ describe('usePendingTrials', () => {
     expect(s.stored.size).toBe(1);
     // Offline, the request never left (the CSRF token could not be fetched): one POST in all.
     expect(
-      s.fetch.requestsTo(POST_KEY).filter((r) => (r.body as CreateTrialInput).clientTrialId === id),
+      s.fetch.requestsTo(POST_KEY).filter((r) => (r.body as CreateTrialInput).localTrialId === id),
     ).toHaveLength(1);
     expect(invalidate).toHaveBeenCalledWith({ queryKey: trialKeys.list(VERSION) });
     expect(localStorage.getItem(PENDING_TRIALS_KEY)).toBeNull();
@@ -194,6 +194,35 @@ describe('usePendingTrials', () => {
     expect(s.stored.has('44444444-4444-4444-8444-444444444444')).toBe(true);
   });
 
+  it('a trial queued by an earlier release under the old field names is still sent, with the new names', async () => {
+    const s = server();
+    const id = '77777777-7777-4777-8777-777777777777';
+    const { localTrialId, settings, ...rest } = trialInput(id);
+    const { selectionMode, ...otherSettings } = settings;
+    localStorage.setItem(
+      PENDING_TRIALS_KEY,
+      JSON.stringify([
+        {
+          versionId: VERSION,
+          input: {
+            ...rest,
+            clientTrialId: localTrialId,
+            settings: { ...otherSettings, method: selectionMode },
+          },
+          failed: null,
+        },
+      ]),
+    );
+    reloadPendingTrials();
+    const { result } = renderQueue();
+    await waitFor(() => expect(s.stored.has(id)).toBe(true));
+    expect(result.current.pending).toBe(0);
+    const [posted] = s.fetch.requestsTo(POST_KEY).map((r) => r.body as Record<string, unknown>);
+    expect(posted).toMatchObject({ localTrialId: id, settings: { selectionMode: 'direct' } });
+    expect(posted).not.toHaveProperty('clientTrialId');
+    expect(posted.settings).not.toHaveProperty('method');
+  });
+
   it('a refusal (4xx): rejects on submit; a queued trial moves to failed with the API message', async () => {
     const s = server();
     s.setMode('refuse');
@@ -217,7 +246,7 @@ describe('usePendingTrials', () => {
     await waitFor(() =>
       expect(result.current.failed).toEqual([
         {
-          clientTrialId: '66666666-6666-4666-8666-666666666666',
+          localTrialId: '66666666-6666-4666-8666-666666666666',
           message: 'This version has no trained model yet.',
         },
       ]),

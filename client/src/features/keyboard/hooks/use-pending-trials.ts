@@ -1,6 +1,6 @@
 // Offline-safe trial upload. A finished trial is first written to localStorage, then posted; if
 // the server cannot be reached (or answers 5xx) it stays queued and is retried when the browser
-// comes back online and every 15 s. The upload is idempotent by clientTrialId, so a retry after
+// comes back online and every 15 s. The upload is idempotent by localTrialId, so a retry after
 // a lost answer never makes a second trial. A queued trial the API refuses (4xx) moves to `failed`.
 import { createTrialSchema, type CreateTrialInput, type Trial } from '@keyloom/shared';
 import { useQueryClient } from '@tanstack/react-query';
@@ -9,6 +9,7 @@ import { z } from 'zod';
 import { isApiError } from '@/lib/api-client';
 import { postTrial } from '../api/post-trial';
 import { trialKeys } from '../api/keys';
+import { withCurrentNames } from '../logic/pending-trial-names';
 
 /** Where queued trials wait (survives a reload or a closed tab). */
 export const PENDING_TRIALS_KEY = 'keyloom.pending-trials.v1';
@@ -34,7 +35,7 @@ function readQueue(): PendingTrial[] {
   try {
     const raw = localStorage.getItem(PENDING_TRIALS_KEY);
     if (raw === null) return [];
-    const parsed = z.array(pendingTrialSchema).safeParse(JSON.parse(raw));
+    const parsed = z.array(pendingTrialSchema).safeParse(withCurrentNames(JSON.parse(raw)));
     return parsed.success ? parsed.data : [];
   } catch {
     return memoryFallback;
@@ -58,7 +59,7 @@ function writeQueue(next: PendingTrial[]): void {
   for (const listener of listeners) listener();
 }
 
-const withoutTrial = (id: string) => queue().filter((p) => p.input.clientTrialId !== id);
+const withoutTrial = (id: string) => queue().filter((p) => p.input.localTrialId !== id);
 
 const subscribe = (listener: () => void) => {
   listeners.add(listener);
@@ -83,7 +84,7 @@ export function reloadPendingTrials(): void {
  */
 export async function flushPendingTrials(onSent: (versionId: string, trial: Trial) => void): Promise<void> {
   for (const item of queue()) {
-    const id = item.input.clientTrialId;
+    const id = item.input.localTrialId;
     if (item.failed !== null || inFlight.has(id)) continue;
     inFlight.add(id);
     try {
@@ -92,7 +93,7 @@ export async function flushPendingTrials(onSent: (versionId: string, trial: Tria
       onSent(item.versionId, trial);
     } catch (error) {
       if (isTransient(error)) return;
-      writeQueue(queue().map((p) => (p.input.clientTrialId === id ? { ...p, failed: messageOf(error) } : p)));
+      writeQueue(queue().map((p) => (p.input.localTrialId === id ? { ...p, failed: messageOf(error) } : p)));
     } finally {
       inFlight.delete(id);
     }
@@ -112,11 +113,11 @@ export type SubmitOutcome = { outcome: 'sent'; trial: Trial } | { outcome: 'queu
  */
 export function usePendingTrials(): {
   pending: number;
-  /** clientTrialId of each trial still waiting to be sent. */
+  /** localTrialId of each trial still waiting to be sent. */
   waitingIds: string[];
-  failed: { clientTrialId: string; message: string }[];
+  failed: { localTrialId: string; message: string }[];
   submit: (versionId: string, input: CreateTrialInput) => Promise<SubmitOutcome>;
-  dismiss: (clientTrialId: string) => void;
+  dismiss: (localTrialId: string) => void;
 } {
   const queryClient = useQueryClient();
   const items = useSyncExternalStore(subscribe, queue, queue);
@@ -143,7 +144,7 @@ export function usePendingTrials(): {
 
   const submit = useCallback(
     async (versionId: string, input: CreateTrialInput): Promise<SubmitOutcome> => {
-      const id = input.clientTrialId;
+      const id = input.localTrialId;
       writeQueue([...withoutTrial(id), { versionId, input, failed: null }]);
       inFlight.add(id);
       try {
@@ -162,13 +163,13 @@ export function usePendingTrials(): {
     [onSent],
   );
 
-  const dismiss = useCallback((clientTrialId: string) => writeQueue(withoutTrial(clientTrialId)), []);
+  const dismiss = useCallback((localTrialId: string) => writeQueue(withoutTrial(localTrialId)), []);
 
   const failed = items
     .filter((p): p is PendingTrial & { failed: string } => p.failed !== null)
-    .map((p) => ({ clientTrialId: p.input.clientTrialId, message: p.failed }));
+    .map((p) => ({ localTrialId: p.input.localTrialId, message: p.failed }));
 
-  const waitingIds = items.filter((p) => p.failed === null).map((p) => p.input.clientTrialId);
+  const waitingIds = items.filter((p) => p.failed === null).map((p) => p.input.localTrialId);
 
   return { pending: waiting, waitingIds, failed, submit, dismiss };
 }

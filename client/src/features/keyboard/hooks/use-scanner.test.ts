@@ -78,7 +78,7 @@ describe('useScanner', () => {
     expect(result.current.running).toBe(false);
     rerender({ enabled: true, rowLengths: [0, 10] });
     expect(result.current.running).toBe(false);
-    // start() while scanning is not the method in use does nothing.
+    // start() while scanning is not the selection mode in use does nothing.
     rerender({ enabled: false, rowLengths: [0, 10] });
     act(() => result.current.start());
     rerender({ enabled: true, rowLengths: [0, 10] });

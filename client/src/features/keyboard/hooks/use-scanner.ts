@@ -50,7 +50,7 @@ export function useScanner(o: ScannerOptions): {
   }, []);
 
   const start = useCallback(() => {
-    // Scanning starts only where it is the access method in use.
+    // Scanning starts only where it is the selection mode in use.
     if (!optionsRef.current.enabled) return;
     update(initialScanState(optionsRef.current.rowLengths));
     setRunning(true);

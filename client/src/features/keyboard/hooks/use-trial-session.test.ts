@@ -64,7 +64,7 @@ describe('useTrialSession', () => {
     const input: ReturnType<typeof result.current.finish> = finished;
     expect(result.current.running).toBe(false);
     expect(createTrialSchema.safeParse(input).success).toBe(true);
-    expect(input.clientTrialId).toMatch(/^[0-9a-f-]{36}$/);
+    expect(input.localTrialId).toMatch(/^[0-9a-f-]{36}$/);
     expect(input.finishedAt).toBe('2026-12-02T10:00:04.500Z');
     expect(replayTrial(input.events)).toBe(input.text);
     expect(input.events.map((e) => e.t)).toEqual([

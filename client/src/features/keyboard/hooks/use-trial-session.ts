@@ -29,7 +29,7 @@ export type TrialSession = {
   /** Empties the text and ends any trial without keeping its log. */
   clear: () => void;
   /**
-   * Ends the running trial and returns the body to upload (a fresh `clientTrialId`).
+   * Ends the running trial and returns the body to upload (a fresh `localTrialId`).
    * @throws Error when no trial is running or it has no steps
    */
   finish: (o: TrialFinish) => CreateTrialInput;
@@ -114,7 +114,7 @@ export function useTrialSession(): TrialSession {
     runningRef.current = false;
     setRunning(false);
     return {
-      clientTrialId: crypto.randomUUID(),
+      localTrialId: crypto.randomUUID(),
       startedAt: startedAtRef.current,
       finishedAt: new Date().toISOString(),
       phraseId: o.phraseId,

@@ -2,7 +2,7 @@ import {
   type AccessMethod,
   type Client,
   defaultAccessTiming,
-  type TrialAccessMethod,
+  type TrialSelectionMode,
   type TrialSettings,
 } from '@keyloom/shared';
 
@@ -12,8 +12,8 @@ export type KeyboardViewSettings = TrialSettings & {
   reduceMotion: boolean;
 };
 
-// The client record's access method decides how the trial selects by default.
-const methodFor: Record<AccessMethod, TrialAccessMethod> = {
+// The client record's access method decides the trial's selection mode by default.
+const selectionModeFor: Record<AccessMethod, TrialSelectionMode> = {
   direct: 'direct',
   head_pointer: 'direct',
   other: 'direct',
@@ -35,7 +35,7 @@ export const defaultKeyboardSettings = (
   slots: number,
   osReducedMotion = false,
 ): KeyboardViewSettings => ({
-  method: methodFor[client.accessMethod],
+  selectionMode: selectionModeFor[client.accessMethod],
   layout: 'typewriter',
   slots: Math.min(10, Math.max(1, Math.round(slots))),
   dwellMs: client.dwellMs ?? defaultAccessTiming.dwellMs,
@@ -47,13 +47,13 @@ export const defaultKeyboardSettings = (
   reduceMotion: osReducedMotion,
 });
 
-/** The settings a trial is logged with: only the timing its method uses (the schema's shape). */
+/** The settings a trial is logged with: only the timing its selection mode uses (the schema's shape). */
 export const trialSettingsOf = (settings: KeyboardViewSettings): TrialSettings => ({
-  method: settings.method,
+  selectionMode: settings.selectionMode,
   layout: settings.layout,
   slots: settings.slots,
-  dwellMs: settings.method === 'dwell' ? settings.dwellMs : null,
-  scanIntervalMs: settings.method === 'scanning' ? settings.scanIntervalMs : null,
+  dwellMs: settings.selectionMode === 'dwell' ? settings.dwellMs : null,
+  scanIntervalMs: settings.selectionMode === 'scanning' ? settings.scanIntervalMs : null,
   largeTargets: settings.largeTargets,
   highContrast: settings.highContrast,
   textScale: settings.textScale,

@@ -1,4 +1,4 @@
-import type { TrialAccessMethod } from '@keyloom/shared';
+import type { TrialSelectionMode } from '@keyloom/shared';
 
 /** "36.7%" from a fraction; "—" when there is none. */
 export const percentOrDash = (fraction: number | null | undefined, digits = 1): string =>
@@ -8,8 +8,8 @@ export const percentOrDash = (fraction: number | null | undefined, digits = 1): 
 export const wpmOrDash = (wpm: number | null | undefined): string =>
   wpm === null || wpm === undefined ? '—' : wpm.toFixed(1);
 
-/** Short names of the methods for tables. */
-export const methodShort: Record<TrialAccessMethod, string> = {
+/** Short names of the selection modes for tables. */
+export const selectionModeShort: Record<TrialSelectionMode, string> = {
   direct: 'Direct',
   dwell: 'Dwell',
   scanning: 'Scanning',

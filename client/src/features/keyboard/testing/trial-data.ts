@@ -12,7 +12,7 @@ import { ASHBY_ID } from '@/testing/data';
 
 /** Settings of a direct-access trial on the typewriter layout with 5 slots, nothing else switched on. */
 export const directTrialSettings: TrialSettings = {
-  method: 'direct',
+  selectionMode: 'direct',
   layout: 'typewriter',
   slots: 5,
   dwellMs: null,
@@ -29,7 +29,7 @@ export const OWN_PHRASE_ID = 'f1e2d3c4-b5a6-4978-8695-a4b3c2d1e081';
 export const trialRecord = (overrides: Partial<Trial> = {}): Trial =>
   trialSchema.parse({
     id: TRIAL_1_ID,
-    clientTrialId: '0b1c2d3e-4f5a-4b6c-8d7e-9f0a1b2c3d91',
+    localTrialId: '0b1c2d3e-4f5a-4b6c-8d7e-9f0a1b2c3d91',
     versionId: VERSION_1_ID,
     versionNumber: 1,
     clientId: ASHBY_ID,

@@ -8,16 +8,17 @@ import { extname, join } from 'node:path';
 const isApiPath = (path: string) => path === '/api' || path.startsWith('/api/');
 
 /**
- * Serves the built client from `dir` at / with a single-page-app fallback: a GET for a path
- * without a file extension outside /api gets index.html, so client routes survive a reload.
+ * Serves the built web app (the React app of the `client/` workspace) from `dir` at / with a
+ * single-page-app fallback: a GET for a path without a file extension outside /api gets index.html,
+ * so the web app's routes survive a reload.
  * /api stays with Nest (its unknown routes are JSON 404s). Returns false, after logging a hint,
  * when there is no build.
  */
-export function serveClient(app: NestExpressApplication, dir: string, logger: Logger): boolean {
+export function serveWebApp(app: NestExpressApplication, dir: string, logger: Logger): boolean {
   const indexFile = join(dir, 'index.html');
   if (!existsSync(indexFile)) {
     logger.warn(
-      `No built client at ${dir}; serving the API only. Build it with: npm run build -w @keyloom/client`,
+      `No built web app at ${dir}; serving the API only. Build it with: npm run build -w @keyloom/client`,
     );
     return false;
   }
@@ -38,6 +39,6 @@ export function serveClient(app: NestExpressApplication, dir: string, logger: Lo
     res.setHeader('Cache-Control', 'no-cache');
     res.sendFile(indexFile);
   });
-  logger.log(`Serving the built client from ${dir}`);
+  logger.log(`Serving the built web app from ${dir}`);
   return true;
 }
