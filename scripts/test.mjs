@@ -50,7 +50,12 @@ const suites = [
   },
   { name: 'typecheck', title: 'type-check', command: ['npm', 'run', 'typecheck'], needs: ['build'] },
   { name: 'lint', title: 'lint', command: ['npm', 'run', 'lint'], needs: [] },
-  { name: 'shared', title: 'shared tests', command: ['npm', 'test', '-w', '@keyloom/shared'], needs: [] },
+  {
+    name: 'shared',
+    title: 'shared tests (engine; corpora: the tests that need Brown, the base model or the demo samples)',
+    command: ['npm', 'test', '-w', '@keyloom/shared', '-w', '@keyloom/corpora'],
+    needs: [],
+  },
   { name: 'client', title: 'client tests', command: ['npm', 'test', '-w', '@keyloom/client'], needs: [] },
   { name: 'api-unit', title: 'api unit tests', command: ['npm', 'test', '-w', '@keyloom/api'], needs: [] },
   {

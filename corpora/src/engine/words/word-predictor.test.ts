@@ -1,16 +1,16 @@
 // What the word-aware list offers: names with their capitals, words learned as they are typed,
 // capitals at sentence starts, joiners inside words, and nothing that is not a word.
 import { describe, expect, it } from 'vitest';
-import { loadBaseModel } from '../../../../corpora/base-model';
-import { loadBaseWords } from '../../../../corpora/base-words';
-import { BlendedModel } from '../blended-model';
-import { trainPersonalModel } from '../evaluation/held-out-evaluation';
-import { prepareText } from '../text-preparation';
-import { DEFAULT_WORD_WEIGHTS } from './mixture-weights';
-import type { WordNgramModel } from './word-ngram-model';
-import { WordPredictor, type WordPredictorParts } from './word-predictor';
-import { isOfferable, wordKey } from './word-tokens';
-import { trainWordModel } from './word-training';
+import { loadBaseModel } from '../../base-model';
+import { loadBaseWords } from '../../base-words';
+import { BlendedModel } from '@keyloom/shared/src/engine/blended-model';
+import { trainPersonalModel } from '@keyloom/shared/src/engine/evaluation/held-out-evaluation';
+import { prepareText } from '@keyloom/shared/src/engine/text-preparation';
+import { DEFAULT_WORD_WEIGHTS } from '@keyloom/shared/src/engine/words/mixture-weights';
+import type { WordNgramModel } from '@keyloom/shared/src/engine/words/word-ngram-model';
+import { WordPredictor, type WordPredictorParts } from '@keyloom/shared/src/engine/words/word-predictor';
+import { isOfferable, wordKey } from '@keyloom/shared/src/engine/words/word-tokens';
+import { trainWordModel } from '@keyloom/shared/src/engine/words/word-training';
 
 // Invented for the demo clinic (no corpus): a client who writes about Bertram often.
 const DIARY = [

@@ -4,14 +4,14 @@
 // Both lists use the same order-5 character model trained on every second document of 13
 // categories; the test text is the first 10,000 characters of category "cr" (humor), never trained on.
 import { describe, expect, it } from 'vitest';
-import { buildBaseWords } from '../../../../corpora/base-words';
-import { loadBrown } from '../../../../corpora/brown';
-import { simulateKeystrokes } from '../evaluation/keystroke-savings';
-import { PpmModel } from '../ppm-model';
-import { prepareText } from '../text-preparation';
-import { CharListPredictor } from './char-list-predictor';
-import { DEFAULT_WORD_WEIGHTS } from './mixture-weights';
-import { WordPredictor } from './word-predictor';
+import { buildBaseWords } from '../../base-words';
+import { loadBrown } from '../../brown';
+import { simulateKeystrokes } from '@keyloom/shared/src/engine/evaluation/keystroke-savings';
+import { PpmModel } from '@keyloom/shared/src/engine/ppm-model';
+import { prepareText } from '@keyloom/shared/src/engine/text-preparation';
+import { CharListPredictor } from '@keyloom/shared/src/engine/words/char-list-predictor';
+import { DEFAULT_WORD_WEIGHTS } from '@keyloom/shared/src/engine/words/mixture-weights';
+import { WordPredictor } from '@keyloom/shared/src/engine/words/word-predictor';
 
 describe('keystroke savings: word list vs character list (Brown corpus, held-out category)', () => {
   const documents = loadBrown().documents;

@@ -9,9 +9,9 @@
 // words and the base's). Each measurement starts from its own copy of the
 // trained models, so an adaptive run learns the test text once per
 // measurement, as a device would.
-import { prepareText } from '../engine/index';
-import { evaluateHeldOut, offeredNonWords, type OfferedWordsResult } from '../engine/evaluation/index';
-import type { WordWeights } from '../engine/words/index';
+import { prepareText } from '@keyloom/shared';
+import { evaluateHeldOut, offeredNonWords, type OfferedWordsResult } from '@keyloom/shared';
+import type { WordWeights } from '@keyloom/shared';
 import { UsageError } from './cli-errors';
 import { onOff, optionValue, parseArgs, readTextFile } from './args';
 import { buildFromArgs, modelFileOptionNames, modelOptionNames, type PredictorKind } from './model-setup';

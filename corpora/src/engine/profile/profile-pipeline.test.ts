@@ -1,22 +1,22 @@
 import { beforeAll, describe, expect, it } from 'vitest';
-import { loadBaseModel } from '../../../../corpora/base-model';
-import { loadBaseWords } from '../../../../corpora/base-words';
-import type { BaseWords } from '../words/word-predictor';
-import { WordPredictor } from '../words/word-predictor';
-import { trainWordModel, tuneWordWeightsOnTail } from '../words/word-training';
-import { WordNgramModel } from '../words/word-ngram-model';
-import { redactionToken } from '../../schemas/samples.schema';
-import { BlendedModel, type NextSymbolModel } from '../index';
-import { PpmModel } from '../ppm-model';
-import { accessTiming } from './profile-rates';
-import { deserializeModel } from '../model-serialization';
-import { prepareText } from '../text-preparation';
-import { codeLengthBits, decodeText, encodeText } from '../text-coding';
-import { kFoldSplits } from '../evaluation/cross-validation';
-import { simulateKeystrokes } from '../evaluation/keystroke-savings';
-import { scanCosts } from '../evaluation/scan-cost';
-import { tuneBlendWeightOnTail } from '../evaluation/held-out-evaluation';
-import { estimateRates } from '../evaluation/text-entry-rate';
+import { loadBaseModel } from '../../base-model';
+import { loadBaseWords } from '../../base-words';
+import type { BaseWords } from '@keyloom/shared/src/engine/words/word-predictor';
+import { WordPredictor } from '@keyloom/shared/src/engine/words/word-predictor';
+import { trainWordModel, tuneWordWeightsOnTail } from '@keyloom/shared/src/engine/words/word-training';
+import { WordNgramModel } from '@keyloom/shared/src/engine/words/word-ngram-model';
+import { redactionToken } from '@keyloom/shared/src/schemas/samples.schema';
+import { BlendedModel, type NextSymbolModel } from '@keyloom/shared';
+import { PpmModel } from '@keyloom/shared/src/engine/ppm-model';
+import { accessTiming } from '@keyloom/shared/src/engine/profile/profile-rates';
+import { deserializeModel } from '@keyloom/shared/src/engine/model-serialization';
+import { prepareText } from '@keyloom/shared/src/engine/text-preparation';
+import { codeLengthBits, decodeText, encodeText } from '@keyloom/shared/src/engine/text-coding';
+import { kFoldSplits } from '@keyloom/shared/src/engine/evaluation/cross-validation';
+import { simulateKeystrokes } from '@keyloom/shared/src/engine/evaluation/keystroke-savings';
+import { scanCosts } from '@keyloom/shared/src/engine/evaluation/scan-cost';
+import { tuneBlendWeightOnTail } from '@keyloom/shared/src/engine/evaluation/held-out-evaluation';
+import { estimateRates } from '@keyloom/shared/src/engine/evaluation/text-entry-rate';
 import {
   CancelledError,
   defaultProfileSettings,
@@ -26,7 +26,7 @@ import {
   type ProfileProgress,
   type ProfileReport,
   type ProfileSettings,
-} from './index';
+} from '@keyloom/shared';
 
 // Invented for the Willowmere demo scenario (R. Ashby: sails, plays jazz
 // piano, has a dog called Pepper; his sister is his carer). Not from any corpus.

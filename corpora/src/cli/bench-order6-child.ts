@@ -1,7 +1,7 @@
 // Run by the benchmark in its own process: builds an order-6 model (method C,
 // exclusion) of the whole Brown text and prints its peak resident memory.
-import { joinDocuments, loadBrown } from '../../../corpora/brown';
-import { PpmModel, prepareText } from '../engine/index';
+import { joinDocuments, loadBrown } from '../brown';
+import { PpmModel, prepareText } from '@keyloom/shared';
 
 const start = performance.now();
 const text = prepareText(joinDocuments(loadBrown().documents));

@@ -2,11 +2,11 @@
 // trained on --train files, optionally blended with a base model (Brown, or
 // one trained on --base-corpus files), and the suggestion list on top of it:
 // the word-aware list (default) or the character-only list (--predictor char).
-import { loadBaseModel, trainBaseModelOn } from '../../../corpora/base-model';
-import { buildBaseWords, loadBaseWords } from '../../../corpora/base-words';
-import { type PpmModel, prepareText } from '../engine/index';
-import { freshModel, trainPersonalModel, tuneBlendWeightOnTail } from '../engine/evaluation/index';
-import type { EscapeMethod, NextSymbolModel } from '../engine/index';
+import { loadBaseModel, trainBaseModelOn } from '../base-model';
+import { buildBaseWords, loadBaseWords } from '../base-words';
+import { type PpmModel, prepareText } from '@keyloom/shared';
+import { freshModel, trainPersonalModel, tuneBlendWeightOnTail } from '@keyloom/shared';
+import type { EscapeMethod, NextSymbolModel } from '@keyloom/shared';
 import {
   CharListPredictor,
   effectiveWeights,
@@ -17,7 +17,7 @@ import {
   type ListPredictor,
   type WordNgramModel,
   type WordWeights,
-} from '../engine/words/index';
+} from '@keyloom/shared';
 import { UsageError } from './cli-errors';
 import { integerIn, numberIn, oneOf, onOff, optionValue, readTextFile, type ParsedArgs } from './args';
 

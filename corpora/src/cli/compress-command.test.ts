@@ -2,24 +2,14 @@
 // (the command-line contract): byte-exact round trip, exit code 2 with
 // one line for bad input. The round trip is checked with cmp-like byte
 // equality; node:zlib's crc32 (reference library) confirms the stored CRC.
-import { spawnSync } from 'node:child_process';
 import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import * as zlib from 'node:zlib';
 import { describe, expect, it } from 'vitest';
+import { model } from './run-model';
 
-const root = join(__dirname, '..', '..', '..');
 const dir = mkdtempSync(join(tmpdir(), 'keyloom-compress-'));
-
-function model(...args: string[]): { status: number | null; stdout: string; stderr: string } {
-  const run = spawnSync(process.execPath, ['--import', 'tsx', 'shared/src/cli/model.ts', ...args], {
-    cwd: root,
-    encoding: 'utf8',
-    timeout: 120_000,
-  });
-  return { status: run.status, stdout: run.stdout, stderr: run.stderr };
-}
 
 describe('model compress / decompress', () => {
   it('restores a file byte for byte (BOM, CRLF, lone CR, emoji) and stores its CRC-32', () => {

@@ -1,30 +1,20 @@
-import { spawnSync } from 'node:child_process';
 import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
-import { loadBaseModel } from '../../../corpora/base-model';
-import { prepareText } from '../engine/index';
-import { freshModel, trainPersonalModel, tuneBlendWeightOnTail } from '../engine/evaluation/index';
-import { suggest } from '../engine/search/index';
+import { model } from './run-model';
+import { loadBaseModel } from '../base-model';
+import { prepareText } from '@keyloom/shared';
+import { freshModel, trainPersonalModel, tuneBlendWeightOnTail } from '@keyloom/shared';
+import { suggest } from '@keyloom/shared';
 
 // The command line is a contract: spawn it exactly as users do.
-const root = join(__dirname, '..', '..', '..');
 const dir = mkdtempSync(join(tmpdir(), 'keyloom-cli-'));
 const train = join(dir, 'train.txt');
 const test = join(dir, 'test.txt');
 const binary = join(dir, 'binary.dat');
 const badUtf8 = join(dir, 'bad.txt');
 const testText = 'Pepper and I took the boat out this morning. The wind was good.\n';
-
-function model(...args: string[]): { status: number | null; stdout: string; stderr: string } {
-  const run = spawnSync(process.execPath, ['--import', 'tsx', 'shared/src/cli/model.ts', ...args], {
-    cwd: root,
-    encoding: 'utf8',
-    timeout: 120_000,
-  });
-  return { status: run.status, stdout: run.stdout, stderr: run.stderr };
-}
 
 beforeAll(() => {
   // Invented demo text (the Willowmere demo scenario), not from any corpus.

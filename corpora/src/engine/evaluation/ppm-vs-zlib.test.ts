@@ -1,8 +1,8 @@
 import { brotliCompressSync, constants, gzipSync } from 'node:zlib';
 import { describe, expect, it } from 'vitest';
-import { joinDocuments, loadBrown } from '../../../../corpora/brown';
-import { codeLengthBits, PpmModel, prepareText, stringFromCodePoints } from '../index';
-import { scanCosts } from './scan-cost';
+import { joinDocuments, loadBrown } from '../../brown';
+import { codeLengthBits, PpmModel, prepareText, stringFromCodePoints } from '@keyloom/shared';
+import { scanCosts } from '@keyloom/shared/src/engine/evaluation/scan-cost';
 
 // Held-out Brown text: categories cp (romance) and cr (humor) are never trained on.
 const HELD_OUT = ['cp', 'cr'];

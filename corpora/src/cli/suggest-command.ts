@@ -5,7 +5,7 @@
 // --base-corpus) is required and is used alone. --predictor word (default)
 // offers only words of the vocabulary (the training texts' words and the
 // base's); char is the character-only list, kept for comparison.
-import { prepareText } from '../engine/index';
+import { prepareText } from '@keyloom/shared';
 import { UsageError } from './cli-errors';
 import { integerIn, optionValue, parseArgs } from './args';
 import { buildFromArgs, modelFileOptionNames, modelOptionNames } from './model-setup';

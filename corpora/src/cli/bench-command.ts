@@ -8,9 +8,9 @@ import { readdirSync, readFileSync } from 'node:fs';
 import { cpus, loadavg } from 'node:os';
 import { join } from 'node:path';
 import { gzipSync } from 'node:zlib';
-import { joinDocuments, loadBrown } from '../../../corpora/brown';
-import { loadBaseModel } from '../../../corpora/base-model';
-import { baseWordsFile, loadBaseWords } from '../../../corpora/base-words';
+import { joinDocuments, loadBrown } from '../brown';
+import { loadBaseModel } from '../base-model';
+import { baseWordsFile, loadBaseWords } from '../base-words';
 import {
   BlendedModel,
   codeLengthBits,
@@ -20,22 +20,23 @@ import {
   PpmModel,
   prepareText,
   serializeModel,
-} from '../engine/index';
-import type { NextSymbolModel } from '../engine/index';
-import { simulateKeystrokes } from '../engine/evaluation/index';
-import { seededRandom } from '../engine/seeded-random';
+} from '@keyloom/shared';
+import type { NextSymbolModel } from '@keyloom/shared';
+import { simulateKeystrokes } from '@keyloom/shared';
+import { seededRandom } from '@keyloom/shared/src/engine/seeded-random';
 import {
   defaultProfileSettings,
   trainAndEvaluateProfile,
   writeProfileFile,
   type ProfileResult,
-} from '../engine/profile/index';
-import { nextLetterProbabilities, suggest } from '../engine/search/index';
-import { WordNgramModel, WordPredictor } from '../engine/words/index';
-import { builtInPracticePhrases } from '../trials/practice-phrases';
+} from '@keyloom/shared';
+import { nextLetterProbabilities, suggest } from '@keyloom/shared';
+import { WordNgramModel, WordPredictor } from '@keyloom/shared';
+import { builtInPracticePhrases } from '@keyloom/shared/src/trials/practice-phrases';
 import { UsageError } from './cli-errors';
 import { parseArgs } from './args';
 import { latencyFigures, measureSuggestions } from './bench-suggestions';
+import { demoDir, tsxEnvironment, workspaceRoot } from '../paths';
 
 const SETTINGS = { order: 5, escape: 'C' as const, exclusion: true, updateExclusion: true };
 const TRAIN_CHARS = 1_000_000;
@@ -305,7 +306,8 @@ function order6Child(): { peakRssMb: number | string; seconds?: number; contexts
   const script = join(__dirname, 'bench-order6-child.ts');
   const run = spawnSync(process.execPath, ['--import', 'tsx', script], {
     encoding: 'utf8',
-    cwd: join(__dirname, '..', '..', '..'),
+    cwd: workspaceRoot,
+    env: tsxEnvironment(),
   });
   try {
     const out = JSON.parse(run.stdout.trim().split('\n').pop() ?? '') as {
@@ -430,7 +432,6 @@ function timePerKeyPress(step: (cps: Uint32Array, end: number) => number): numbe
 
 /** The demo samples (corpora/demo) as profile documents. */
 function demoDocuments(): { id: string; text: string }[] {
-  const demoDir = join(__dirname, '../../../corpora/demo');
   return readdirSync(demoDir)
     .filter((name) => name.endsWith('.txt'))
     .map((name) => ({ id: name, text: readFileSync(join(demoDir, name), 'utf8') }));

@@ -14,19 +14,14 @@
 // - The demo samples (corpora/demo): the profile pipeline run twice, word and
 //   char (keystroke savings over its folds, non-word share).
 // - Latency of one word-aware list with the Brown base loaded.
-import { joinDocuments, loadBrown, type BrownDocument } from '../../../corpora/brown';
-import { loadBaseModel, trainBaseModelOn } from '../../../corpora/base-model';
-import { buildBaseWords, loadBaseWords } from '../../../corpora/base-words';
-import { BlendedModel, prepareText } from '../engine/index';
-import { offeredNonWords, simulateKeystrokes, type OfferedWordsResult } from '../engine/evaluation/index';
-import type { ProfileResult } from '../engine/profile/index';
-import { seededRandom } from '../engine/seeded-random';
-import {
-  CharListPredictor,
-  DEFAULT_WORD_WEIGHTS,
-  WordPredictor,
-  type ListPredictor,
-} from '../engine/words/index';
+import { joinDocuments, loadBrown, type BrownDocument } from '../brown';
+import { loadBaseModel, trainBaseModelOn } from '../base-model';
+import { buildBaseWords, loadBaseWords } from '../base-words';
+import { BlendedModel, prepareText } from '@keyloom/shared';
+import { offeredNonWords, simulateKeystrokes, type OfferedWordsResult } from '@keyloom/shared';
+import type { ProfileResult } from '@keyloom/shared';
+import { seededRandom } from '@keyloom/shared/src/engine/seeded-random';
+import { CharListPredictor, DEFAULT_WORD_WEIGHTS, WordPredictor, type ListPredictor } from '@keyloom/shared';
 import { buildModel, type ModelChoice } from './model-setup';
 
 /** Characters of cp + cr typed (the leading part of the held-out text). */

@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest';
-import { loadBrown } from '../../../../corpora/brown';
-import { codeLengthBits, PpmModel, prepareText } from '../index';
-import { crossValidate, learningCurve } from './cross-validation';
-import { simulateKeystrokes } from './keystroke-savings';
+import { loadBrown } from '../../brown';
+import { codeLengthBits, PpmModel, prepareText } from '@keyloom/shared';
+import { crossValidate, learningCurve } from '@keyloom/shared/src/engine/evaluation/cross-validation';
+import { simulateKeystrokes } from '@keyloom/shared/src/engine/evaluation/keystroke-savings';
 
 // Small Brown slices keep this fast; the direction of the effects is what counts.
 const { documents } = loadBrown();

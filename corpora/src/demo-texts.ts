@@ -2,9 +2,8 @@
 // engine prepares any text. Node only (tests and checks).
 import { readdirSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { prepareText } from '../shared/src/engine/index';
-
-const demoDir = join(__dirname, 'demo');
+import { prepareText } from '@keyloom/shared';
+import { demoDir } from './paths';
 
 /** The demo samples' names (*.txt, sorted) and texts. */
 export function demoSamples(): { name: string; text: Uint32Array }[] {

@@ -1,14 +1,14 @@
 // The word list and the base vocabulary file: what they keep, round trips, and damage refused.
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { baseWordsFile, loadBaseWords } from '../../../../corpora/base-words';
-import { ByteWriter, FormatError } from '../byte-io';
-import { crc32 } from '../crc32';
-import { prepareText } from '../text-preparation';
-import { deserializeBaseWords, serializeBaseWords } from './base-words-file';
-import { WordLexicon } from './word-lexicon';
-import { trainWordModel } from './word-training';
-import type { BaseWords } from './word-predictor';
+import { baseWordsFile, loadBaseWords } from '../../base-words';
+import { ByteWriter, FormatError } from '@keyloom/shared/src/engine/byte-io';
+import { crc32 } from '@keyloom/shared/src/engine/crc32';
+import { prepareText } from '@keyloom/shared/src/engine/text-preparation';
+import { deserializeBaseWords, serializeBaseWords } from '@keyloom/shared/src/engine/words/base-words-file';
+import { WordLexicon } from '@keyloom/shared/src/engine/words/word-lexicon';
+import { trainWordModel } from '@keyloom/shared/src/engine/words/word-training';
+import type { BaseWords } from '@keyloom/shared/src/engine/words/word-predictor';
 
 // Invented frequencies (not from any list).
 const ENTRIES: [string, number][] = [

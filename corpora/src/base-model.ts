@@ -3,15 +3,10 @@
 // corpora/.cache/base-model.bin. Node only (command line, bench, tests).
 import { existsSync, mkdirSync, readFileSync, renameSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
-import {
-  deserializeModel,
-  FormatError,
-  PpmModel,
-  prepareText,
-  serializeModel,
-} from '../shared/src/engine/index';
-import type { PpmSettings } from '../shared/src/engine/index';
-import { cacheDir, joinDocuments, loadBrown } from './brown';
+import { deserializeModel, FormatError, PpmModel, prepareText, serializeModel } from '@keyloom/shared';
+import type { PpmSettings } from '@keyloom/shared';
+import { joinDocuments, loadBrown } from './brown';
+import { cacheDir } from './paths';
 
 /** Settings of the base model (order 5, method C, exclusion: the engine's defaults). */
 export const baseModelSettings: Partial<PpmSettings> = {

@@ -3,20 +3,24 @@
 // docs/references.md §5) and the invented demo samples (corpora/demo). Seeded, so every run sees the
 // same places.
 import { describe, expect, it } from 'vitest';
-import { loadBaseModel } from '../../../../corpora/base-model';
-import { loadBaseWords } from '../../../../corpora/base-words';
-import { brownTexts } from '../../../../corpora/base-words';
-import { demoSamples } from '../../../../corpora/demo-texts';
-import { BlendedModel } from '../blended-model';
-import { trainPersonalModel } from '../evaluation/held-out-evaluation';
-import { wordStart } from '../search/word-chars';
-import { seededRandom } from '../seeded-random';
-import { offeredNonWords } from '../evaluation/offered-words';
-import { CharListPredictor } from './char-list-predictor';
-import { DEFAULT_WORD_WEIGHTS } from './mixture-weights';
-import { WordPredictor, type WordPredictorParts, type WordSuggestion } from './word-predictor';
-import { wordKey } from './word-tokens';
-import { trainWordModel } from './word-training';
+import { loadBaseModel } from '../../base-model';
+import { loadBaseWords } from '../../base-words';
+import { brownTexts } from '../../base-words';
+import { demoSamples } from '../../demo-texts';
+import { BlendedModel } from '@keyloom/shared/src/engine/blended-model';
+import { trainPersonalModel } from '@keyloom/shared/src/engine/evaluation/held-out-evaluation';
+import { wordStart } from '@keyloom/shared/src/engine/search/word-chars';
+import { seededRandom } from '@keyloom/shared/src/engine/seeded-random';
+import { offeredNonWords } from '@keyloom/shared/src/engine/evaluation/offered-words';
+import { CharListPredictor } from '@keyloom/shared/src/engine/words/char-list-predictor';
+import { DEFAULT_WORD_WEIGHTS } from '@keyloom/shared/src/engine/words/mixture-weights';
+import {
+  WordPredictor,
+  type WordPredictorParts,
+  type WordSuggestion,
+} from '@keyloom/shared/src/engine/words/word-predictor';
+import { wordKey } from '@keyloom/shared/src/engine/words/word-tokens';
+import { trainWordModel } from '@keyloom/shared/src/engine/words/word-training';
 
 const brown = brownTexts();
 const demo = demoSamples().map((s) => s.text);

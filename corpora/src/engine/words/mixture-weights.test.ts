@@ -1,8 +1,8 @@
 // Fitting the word mixture's weights by EM (Jelinek & Mercer 1980; Dempster, Laird & Rubin 1977:
 // an EM step never lowers the likelihood; docs/references.md §4).
 import { describe, expect, it } from 'vitest';
-import { loadBaseWords } from '../../../../corpora/base-words';
-import { demoSamples } from '../../../../corpora/demo-texts';
+import { loadBaseWords } from '../../base-words';
+import { demoSamples } from '../../demo-texts';
 import {
   type ComponentTable,
   componentProbabilities,
@@ -10,9 +10,9 @@ import {
   fitMixtureWeights,
   MIN_COMPONENT_WEIGHT,
   mixtureBitsPerWord,
-} from './mixture-weights';
-import { WORD_COMPONENTS, type WordWeights } from './word-predictor';
-import { trainWordModel } from './word-training';
+} from '@keyloom/shared/src/engine/words/mixture-weights';
+import { WORD_COMPONENTS, type WordWeights } from '@keyloom/shared/src/engine/words/word-predictor';
+import { trainWordModel } from '@keyloom/shared/src/engine/words/word-training';
 
 const sum = (w: WordWeights): number => WORD_COMPONENTS.reduce((s, c) => s + w[c], 0);
 const UNIFORM: WordWeights = { personal: 0.25, base: 0.25, lexicon: 0.25, cache: 0.25 };

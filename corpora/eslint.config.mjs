@@ -1,0 +1,2 @@
+// The same rules as the shared package (plain TypeScript, no framework).
+export { default } from '../shared/eslint.config.mjs';
