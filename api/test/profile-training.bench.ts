@@ -17,13 +17,14 @@ import type { ProfileVersionDto } from '../src/profile-versions/profile-version.
 import { benchClient } from './bench-helpers';
 import { send } from './caseload-helpers';
 import { createTestApp, resetDatabase, type TestApp } from './test-app';
+import { corporaCacheFile } from '../src/config/data-paths';
 
 const WORKER_JS = process.env.WORKER_JS ?? resolve(__dirname, '..', 'dist', 'worker.js');
 
 const CHARS = 200_000;
 
 function brownFiction(): { id: string; text: string }[] {
-  const file = resolve(__dirname, '..', '..', 'corpora', '.cache', 'brown.json');
+  const file = corporaCacheFile('brown.json');
   const { documents } = JSON.parse(readFileSync(file, 'utf8')) as {
     documents: { id: string; category: string; text: string }[];
   };

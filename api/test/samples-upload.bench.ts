@@ -12,12 +12,13 @@ import { loadLexiconWords } from '../src/samples/lexicon.service';
 import { prepareFile } from '../src/samples/sample-ingest';
 import { newUser, signIn } from './factories';
 import { createTestApp, resetDatabase, type TestApp } from './test-app';
+import { demoSamplesDir } from '../src/config/data-paths';
 
 const MB = 1024 * 1024;
 
 // About 20 MB of the demo texts, repeated with a counter so the words are not all the same.
 function twentyMegabytes(): Buffer {
-  const dir = resolve(__dirname, '..', '..', 'corpora', 'demo');
+  const dir = demoSamplesDir;
   const base = readdirSync(dir)
     .filter((f) => f.endsWith('.txt'))
     .map((f) => readFileSync(resolve(dir, f), 'utf8'))

@@ -19,6 +19,7 @@ import { SUMMARY_MAIL_QUEUE } from '../src/summaries/summary-delivery';
 import { benchClient } from './bench-helpers';
 import { send } from './caseload-helpers';
 import { createTestApp, resetDatabase, type TestApp, testDatabaseUrl } from './test-app';
+import { corporaCacheFile } from '../src/config/data-paths';
 
 const WORKER_JS = process.env.WORKER_JS ?? resolve(__dirname, '..', 'dist', 'worker.js');
 // BENCH_CHARS: another size (the whole corpus is about 5.96 million characters).
@@ -26,7 +27,7 @@ const CHARS = Number(process.env.BENCH_CHARS ?? 1_500_000);
 const PROBE_EVERY_MS = 5_000;
 
 function brownText(): { id: string; text: string }[] {
-  const file = resolve(__dirname, '..', '..', 'corpora', '.cache', 'brown.json');
+  const file = corporaCacheFile('brown.json');
   const { documents } = JSON.parse(readFileSync(file, 'utf8')) as {
     documents: { id: string; text: string }[];
   };

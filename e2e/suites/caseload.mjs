@@ -3,12 +3,11 @@
 // Axe scan (no serious or critical violations) of each page on the way; screenshots in e2e/out.
 import assert from 'node:assert/strict';
 import { readdirSync, readFileSync } from 'node:fs';
-import { dirname, join } from 'node:path';
-import { fileURLToPath } from 'node:url';
+import { join } from 'node:path';
+// The demo samples' folder, as the API's seed finds it (api/src/config/data-paths.ts).
+import { demoSamplesDir as demoDir } from '../../api/dist/config/data-paths.js';
 import { signIn, signOut } from './accounts.mjs';
 import { assertNoSidewaysScroll } from './page-checks.mjs';
-
-const demoDir = join(dirname(fileURLToPath(import.meta.url)), '..', '..', 'corpora', 'demo');
 
 // A phone number as the issue's detector looks for (loose: UK-style and +country forms).
 const phonePattern = /(\+\d{1,3}[\s-]?)?\(?0?\d{2,5}\)?[\s-]?\d{3}[\s-]?\d{3,4}\b/;

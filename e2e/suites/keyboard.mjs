@@ -9,9 +9,10 @@
 import { deserializeBaseWords, prepareText, sentencesOf, wordKey } from '@keyloom/shared';
 import assert from 'node:assert/strict';
 import { readdirSync, readFileSync } from 'node:fs';
-import { dirname, join } from 'node:path';
-import { fileURLToPath } from 'node:url';
+import { join } from 'node:path';
 import { gunzipSync } from 'node:zlib';
+// The demo samples' folder, as the API's seed finds it (api/src/config/data-paths.ts).
+import { demoSamplesDir as demoDir } from '../../api/dist/config/data-paths.js';
 import { signIn, signOut } from './accounts.mjs';
 import { csrfHeaders } from './api-helpers.mjs';
 import { assertNoSidewaysScroll } from './page-checks.mjs';
@@ -54,8 +55,6 @@ async function openKeyboard(t, query = `?version=${versionId}`) {
   await page.locator('[data-engine-status="ready"]').waitFor({ timeout: 60_000 });
   return page;
 }
-
-const demoDir = join(dirname(fileURLToPath(import.meta.url)), '..', '..', 'corpora', 'demo');
 
 /**
  * The vocabulary the version's suggestion row may offer, built in this process: the base vocabulary

@@ -20,3 +20,4 @@ export * from './schemas/profile-exports.schema';
 export * from './schemas/summaries.schema';
 export * from './schemas/trials.schema';
 export * from './trials/index';
+export * from './workspace/workspace-root';

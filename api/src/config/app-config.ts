@@ -1,11 +1,8 @@
 import { Injectable } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
-import { isAbsolute, resolve } from 'node:path';
 import { type SignInLimitSettings, signInLimitSettings } from '../auth/sign-in-limits/sign-in-limit-settings';
+import { fromRepoRoot } from './data-paths';
 import type { Env } from './env.schema';
-
-// api/src/config and api/dist/config are both three levels below the repository root.
-const REPO_ROOT = resolve(__dirname, '..', '..', '..');
 
 /** Typed, read-only view of the validated environment. The only way code reads settings. */
 @Injectable()
@@ -85,8 +82,7 @@ export class AppConfig {
   }
   /** Absolute folder of the built web app (WEB_APP_DIST); relative values are resolved from the repository root. */
   get webAppDist(): string {
-    const dir = this.get('WEB_APP_DIST');
-    return isAbsolute(dir) ? dir : resolve(REPO_ROOT, dir);
+    return fromRepoRoot(this.get('WEB_APP_DIST'));
   }
   /** EXPORT_SIGNING_KEY when set (else the export key is kept in the database). */
   get exportSigningKey(): string | undefined {

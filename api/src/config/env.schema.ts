@@ -65,6 +65,9 @@ export const envSchema = z
     // WEB_APP_DIST is unset (deprecated: to be dropped in the release after next).
     WEB_APP_DIST: z.string().trim().min(1).optional(),
     CLIENT_DIST: z.string().trim().min(1).optional(),
+    // Folder of the corpora cache (base model, base vocabulary, word list), relative to the
+    // repository root or absolute; read through config/data-paths.ts (before Nest starts).
+    KEYLOOM_CORPORA_CACHE: z.string().trim().min(1).optional(),
     // Demo mode (default: on unless NODE_ENV=production): the seeded demo accounts keep the demo
     // password; outside it they must choose a new one at their first sign-in.
     DEMO_MODE: z

