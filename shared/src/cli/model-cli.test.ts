@@ -5,7 +5,7 @@ import { join } from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { loadBaseModel } from '../../../corpora/base-model';
 import { prepareText } from '../engine/index';
-import { freshModel, trainPersonalModel, tuneBlendWeightOnTail } from '../engine/evaluation/index';
+import { freshModel, trainPersonalModel, tuneBaseWeightOnTail } from '../engine/evaluation/index';
 import { suggest } from '../engine/search/index';
 
 // The command line is a contract: spawn it exactly as users do.
@@ -200,7 +200,7 @@ describe('model suggest --predictor', () => {
     const texts = [prepareText(readFileSync(bertram, 'utf8'))];
     const personal = trainPersonalModel(settings, texts);
     const base = loadBaseModel();
-    const model5 = freshModel(personal, base, tuneBlendWeightOnTail(settings, texts, base), false);
+    const model5 = freshModel(personal, base, tuneBaseWeightOnTail(settings, texts, base), false);
     const history = prepareText('Please ask Be');
     const expected = suggest(model5, history, history.length, 5).map((s) => s.word);
     expect(expected.length).toBe(5);

@@ -2,7 +2,7 @@
 // no published check value).
 import { describe, expect, it } from 'vitest';
 import { PpmModel } from './ppm-model';
-import { BlendedModel, blendBits, tuneBlendWeight } from './blended-model';
+import { BlendedModel, blendBits, tuneBaseWeight } from './blended-model';
 import { Distribution } from './model-types';
 import { codePointsOf } from './text-preparation';
 
@@ -71,7 +71,7 @@ describe('BlendedModel', () => {
   it('tunes λ to no worse than either model alone on held-out text', () => {
     const p = personal();
     const b = base();
-    const lambda = tuneBlendWeight(p, b, heldOut);
+    const lambda = tuneBaseWeight(p, b, heldOut);
     expect(lambda).toBeGreaterThan(0);
     expect(lambda).toBeLessThan(1);
     const tuned = blendBits(p, b, heldOut, lambda);
