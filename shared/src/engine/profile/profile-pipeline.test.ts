@@ -117,12 +117,12 @@ describe('trainAndEvaluateProfile on an invented corpus', () => {
     const ppm = { order: 4, escape: 'C' as const, exclusion: true };
     const personal = new PpmModel({ ...ppm, adaptive: true });
     for (const t of train) personal.learnText(t);
-    const lambda = tuneBaseWeightOnTail(ppm, train, base);
-    const fresh = (): NextSymbolModel => new BlendedModel(personal.clone(), base, lambda);
+    const baseWeight = tuneBaseWeightOnTail(ppm, train, base);
+    const fresh = (): NextSymbolModel => new BlendedModel(personal.clone(), base, baseWeight);
 
     const fold = report.perFold[0];
     expect(fold.heldOutIds).toEqual(documents.filter((_, d) => d % 5 === 0).map((d) => d.id));
-    expect(fold.baseWeight).toBeCloseTo(lambda, 6);
+    expect(fold.baseWeight).toBeCloseTo(baseWeight, 6);
     expect(fold.testChars).toBe(test.length);
     expect(fold.bpcIdeal).toBeCloseTo(codeLengthBits(fresh(), test) / test.length, 6);
     const coded = encodeText(fresh(), test);
