@@ -177,7 +177,7 @@ export function buildModel(
   return {
     personal,
     base,
-    baseWeight: weight,
+    baseWeight,
     words: allWords,
     baseWords,
     wordWeights,

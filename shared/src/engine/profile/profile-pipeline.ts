@@ -96,12 +96,15 @@ export type ProfileFoldReport = z.infer<typeof profileFoldReportSchema>;
 export type LearningCurveReport = z.infer<typeof learningCurveReportSchema>;
 export type BaseOnlyReport = z.infer<typeof baseOnlyReportSchema>;
 export type { ProfileReport };
+/** A report as this engine writes it: the fields that reports stored before the word list lack are always there. */
+export type CurrentProfileReport = ProfileReport &
+  Required<Pick<ProfileReport, 'predictor' | 'nonWordSlots'>>;
 
 /** Words offered per list position checked for the non-word share, per fold (three lists per word). */
 const NON_WORD_CHECK_WORDS = 150;
 
 export type ProfileResult = {
-  report: ProfileReport;
+  report: CurrentProfileReport;
   /** serializeModel of the personal PPM model trained on every sample. */
   modelBytes: Uint8Array;
   /** λ to blend it with the base model (0 without a base model). */
@@ -475,7 +478,7 @@ export async function trainAndEvaluateProfile(
   }
 
   const timings = { ...progress.timings, total: Date.now() - started };
-  const report: ProfileReport = {
+  const report: CurrentProfileReport = {
     engineVersion: ENGINE_VERSION,
     predictor: useWords ? 'word' : 'char',
     wordWeights: final.wordWeights,
