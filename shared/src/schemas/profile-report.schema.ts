@@ -163,7 +163,7 @@ export const profileReportSchema = z.object({
   /** Null without a base model. */
   earlyWords: z.array(earlyWordSchema).nullable(),
   perFold: z.array(profileFoldReportSchema),
-  /** ms per stage, and the whole run. */
+  /** ms per stage, and the whole run (a record with an enum key needs every key in zod 4: docs/references.md). */
   timings: z.record(z.enum([...trainingStages, 'total']), z.number()),
 });
 export type ProfileReport = z.infer<typeof profileReportSchema>;

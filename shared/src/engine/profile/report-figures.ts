@@ -13,7 +13,7 @@ export type ReportFigures = {
   wpmWithout: number | null;
 };
 
-/** The value when it parses with the report schema's own field schema (a finite number here), else null. */
+/** The value when it parses with the report schema's own field schema, else null (z.number() refuses NaN and ±Infinity in zod 4: docs/references.md). */
 const field = <T>(schema: z.ZodType<T>, value: unknown): T | null => {
   const parsed = schema.safeParse(value);
   return parsed.success ? parsed.data : null;
