@@ -13,7 +13,7 @@ import {
 import { createHmac, randomBytes, randomUUID } from 'node:crypto';
 import { crc32 as zlibCrc32 } from 'node:zlib';
 import type PgBoss from 'pg-boss';
-import type request from 'supertest';
+import request from 'supertest';
 import { AuditEvent } from '../src/audit/audit-event.entity';
 import { AuditService } from '../src/audit/audit.service';
 import {
@@ -200,6 +200,22 @@ describe('profile versions (HTTP)', () => {
         200, 404, 200, 200, 404, 403, 401,
       ]);
       await get(cast.owner, `/api/profile-versions/${randomUUID()}`).expect(404);
+    });
+
+    it('describes every field of a version in the OpenAPI document, as the API sends them', async () => {
+      const v = await create();
+      const doc = await request(t.http).get('/api/docs-json').expect(200);
+      type OpenApiContent = { content: { 'application/json': { schema: { properties: object } } } };
+      const body = doc.body as {
+        paths: Record<string, Record<string, { responses: Record<string, OpenApiContent> }>>;
+      };
+      const described =
+        body.paths['/api/profile-versions/{id}'].get.responses['200'].content['application/json'].schema
+          .properties;
+      expect(Object.keys(described)).toEqual(
+        expect.arrayContaining(['signedOffBy', 'baseModelSha256', 'baseWeight']),
+      );
+      expect(Object.keys(described).sort()).toEqual(Object.keys(v).sort());
     });
 
     it('refuses bad settings, foreign or excluded samples, and a client without consent', async () => {
@@ -580,13 +596,13 @@ describe('profile versions (HTTP)', () => {
       const ok = (await verify(file).expect(200)).body as {
         valid: boolean;
         modelBytes: number;
-        header: { version: { number: number }; client: { pseudonym: string }; blendWeight: number };
+        header: { version: { number: number }; client: { pseudonym: string }; baseWeight: number };
       };
       expect(ok.valid).toBe(true);
       expect(ok.modelBytes).toBe(v.modelBytes);
       expect(ok.header.version.number).toBe(v.number);
       expect(ok.header.client.pseudonym).toBe('P. Ashcombe');
-      expect(ok.header.blendWeight).toBe(v.blendWeight);
+      expect(ok.header.baseWeight).toBe(v.baseWeight);
 
       const damaged = Buffer.from(file);
       damaged[Math.floor(file.length / 2)] ^= 0x01;

@@ -137,7 +137,7 @@ describe('test keyboard (HTTP)', () => {
       expect(contents.header).toMatchObject({
         format: 'keyloom-profile',
         version: { id: version.id, number: version.number, status: 'trained' },
-        blendWeight: version.blendWeight,
+        baseWeight: version.baseWeight,
         baseModelSha256: version.baseModelSha256,
         exportedBy: 'Keyloom',
         exportedAt: version.trainedAt,

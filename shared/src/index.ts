@@ -15,6 +15,8 @@ export * from './engine/evaluation/index';
 export * from './engine/words/index';
 export * from './engine/profile/index';
 export * from './samples/index';
+export * from './schemas/profile-settings.schema';
+export * from './schemas/profile-report.schema';
 export * from './schemas/profile-versions.schema';
 export * from './schemas/profile-exports.schema';
 export * from './schemas/summaries.schema';

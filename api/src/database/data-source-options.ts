@@ -17,6 +17,7 @@ import { AddProfileVersionWords1764920000001 } from '../migrations/1764920000001
 import { CreateIdempotencyKeys1764930000001 } from '../migrations/1764930000001-create-idempotency-keys';
 import { CreateAppSettings1764930000002 } from '../migrations/1764930000002-create-app-settings';
 import { AddSignInLimitsAndPasswordChange1764940000001 } from '../migrations/1764940000001-add-sign-in-limits-and-password-change';
+import { RenameBlendWeightToBaseWeight1764950000001 } from '../migrations/1764950000001-rename-blend-weight-to-base-weight';
 import { OneNamePerIdea1764950000002 } from '../migrations/1764950000002-one-name-per-idea';
 import { SignInLimit } from '../auth/sign-in-limits/sign-in-limit.entity';
 import { ProfileVersion } from '../profile-versions/profile-version.entity';
@@ -62,6 +63,7 @@ export const migrations = [
   CreateIdempotencyKeys1764930000001,
   CreateAppSettings1764930000002,
   AddSignInLimitsAndPasswordChange1764940000001,
+  RenameBlendWeightToBaseWeight1764950000001,
   OneNamePerIdea1764950000002,
 ];
 

@@ -232,7 +232,7 @@ export async function runProfileTraining(
       const count = await updateCount(
         tx,
         `UPDATE profile_versions SET status = 'trained', progress = 1, stage = NULL, error = NULL,
-           metrics = $3::jsonb, model = $4, model_size = $5, blend_weight = $6, base_model_sha256 = $7,
+           metrics = $3::jsonb, model = $4, model_size = $5, base_weight = $6, base_model_sha256 = $7,
            word_model = $9, word_weights = $10::jsonb, base_words_sha256 = $11,
            trained_at = now(), heartbeat_at = now(), updated_at = now(), history = history || $8::jsonb
          WHERE ${STILL_MINE}`,
@@ -242,7 +242,7 @@ export async function runProfileTraining(
           JSON.stringify(result.report),
           Buffer.from(result.modelBytes),
           result.modelBytes.length,
-          result.blendWeight,
+          result.baseWeight,
           withBase ? runtime.baseModelSha256 : null,
           event('trained', null),
           wordModel ? Buffer.from(wordModel) : null,

@@ -1,4 +1,4 @@
-import type { ProfileVersionSettings, ProfileVersionStatus, WordWeights } from '@keyloom/shared';
+import type { ProfileSettings, ProfileVersionStatus, WordWeights } from '@keyloom/shared';
 import {
   Check,
   Column,
@@ -57,7 +57,7 @@ export class ProfileVersion {
   status: ProfileVersionStatus;
 
   @Column({ type: 'jsonb' })
-  settings: ProfileVersionSettings;
+  settings: ProfileSettings;
 
   @Column({ type: 'jsonb' })
   samples: FrozenSample[];
@@ -87,8 +87,8 @@ export class ProfileVersion {
   @Column({ name: 'model_size', type: 'integer', nullable: true })
   modelSize: number | null;
 
-  @Column({ name: 'blend_weight', type: 'double precision', nullable: true })
-  blendWeight: number | null;
+  @Column({ name: 'base_weight', type: 'double precision', nullable: true })
+  baseWeight: number | null;
 
   @Column({ name: 'base_model_sha256', type: 'text', nullable: true })
   baseModelSha256: string | null;

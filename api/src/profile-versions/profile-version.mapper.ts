@@ -3,21 +3,11 @@ import type { ProfileVersion } from './profile-version.entity';
 import { INTERRUPTED_STAGE } from './training-recovery';
 
 /**
- * The API shape: profileVersionSchema of shared/src/schemas/profile-versions.schema.ts, plus who
- * signed off and approved (name, time, comment), the send-back reason, λ and the base model's hash.
- * The frozen sample texts are never sent.
+ * The API shape: profileVersionSchema of shared/src/schemas/profile-versions.schema.ts (who signed
+ * off and approved, the send-back reason, the base model's weight and hash included). The frozen
+ * sample texts are never sent.
  */
-export type ProfileVersionDto = ProfileVersionShape & {
-  blendWeight: number | null;
-  baseModelSha256: string | null;
-  signedOffBy: string | null;
-  signedOffAt: string | null;
-  signOffComment: string | null;
-  approvedBy: string | null;
-  approvedAt: string | null;
-  approvalComment: string | null;
-  sentBackReason: string | null;
-};
+export type ProfileVersionDto = ProfileVersionShape;
 
 const REMOVED = '(removed account)';
 
@@ -52,7 +42,7 @@ export function toProfileVersionDto(v: ProfileVersion, staleMs: number): Profile
     createdAt: v.createdAt.toISOString(),
     trainedAt: v.trainedAt?.toISOString() ?? null,
     history: v.history,
-    blendWeight: v.blendWeight,
+    baseWeight: v.baseWeight,
     baseModelSha256: v.baseModelSha256,
     signedOffBy: v.signedOffById ? (v.signedOffBy?.name ?? REMOVED) : null,
     signedOffAt: v.signedOffAt?.toISOString() ?? null,

@@ -12,6 +12,7 @@ import { InjectDataSource } from '@nestjs/typeorm';
 import {
   type ApproveInput,
   checkProfileSettings,
+  headlineReportKeys,
   type CreateProfileVersionInput,
   MIN_PROFILE_CHARS,
   prepareText,
@@ -20,9 +21,9 @@ import {
   ProfileFileError,
   type ProfileFileHeader,
   ProfileInputError,
-  type ProfileVersionSettings,
+  type ProfileSettings,
   type ProfileVersionStatus,
-  profileVersionSettingsSchema,
+  profileSettingsSchema,
   type ReportProblemInput,
   profileVersionStatusLabels,
   type SendBackInput,
@@ -93,8 +94,9 @@ export function profileFileHeader(
   stamp: 'as-trained' | { exportedAt: string; exportedBy: string },
 ): ProfileFileHeader {
   const metrics = version.metrics ?? {};
-  const pick = (keys: string[]) =>
-    Object.fromEntries(keys.filter((k) => k in metrics).map((k) => [k, metrics[k]]));
+  const headline = Object.fromEntries(
+    headlineReportKeys.filter((k) => k in metrics).map((k) => [k, metrics[k]]),
+  );
   const trainedAt = version.trainedAt?.toISOString() ?? null;
   const asTrained = stamp === 'as-trained';
   return {
@@ -107,23 +109,14 @@ export function profileFileHeader(
       note: version.note,
     },
     settings: version.settings,
-    blendWeight: version.blendWeight ?? 0,
+    baseWeight: version.baseWeight ?? 0,
     // Only with the word model it was tuned for (a file without words has no word list to weigh).
     ...(version.wordWeights && version.wordModel ? { wordWeights: version.wordWeights } : {}),
     baseModelSha256: version.baseModelSha256,
     // The base vocabulary the words were trained beside (the file is self-describing without the database).
     ...(version.baseWordsSha256 && version.wordModel ? { baseWordsSha256: version.baseWordsSha256 } : {}),
     engineVersion: typeof metrics.engineVersion === 'string' ? metrics.engineVersion : 'unknown',
-    metrics: pick([
-      'chars',
-      'folds',
-      'bpcIdeal',
-      'bpcCoded',
-      'keystrokeSavings',
-      'kspc',
-      'baseWeight',
-      'scanStepsPerChar',
-    ]),
+    metrics: headline,
     samples: version.samples.map(({ title, sha256, characters }) => ({ title, sha256, characters })),
     createdAt: version.createdAt.toISOString(),
     trainedAt,
@@ -195,7 +188,7 @@ async function updateCount(manager: EntityManager, sql: string, params: unknown[
 }
 
 /** The access timings of the client record, as the settings' `access` (also the demo seed's). */
-export function accessFromClient(client: Client): ProfileVersionSettings['access'] {
+export function accessFromClient(client: Client): ProfileSettings['access'] {
   return {
     method: client.accessMethod,
     ...(client.scanIntervalMs === null ? {} : { scanIntervalMs: client.scanIntervalMs }),
@@ -266,7 +259,7 @@ export class ProfileVersionsService implements OnModuleInit {
     return this.dataSource.transaction(async (manager) => {
       const client = await this.access.requireOwned(actor, clientId, manager);
       await this.access.requireTrainingConsent(clientId, manager);
-      const settings = profileVersionSettingsSchema.parse({
+      const settings = profileSettingsSchema.parse({
         ...input.settings,
         access: input.settings.access ?? accessFromClient(client),
       });

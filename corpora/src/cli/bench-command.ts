@@ -477,7 +477,7 @@ async function measureKeyboard(
   versionFile: { bytes: number; gzipBytes: number };
   baseModel: { bytes: number; gzipBytes: number };
   loadMs: number;
-  blendWeight: number;
+  baseWeight: number;
   perKeyPressMs: { p50: number; p95: number; max: number; keyPresses: number };
   wordList: {
     versionFile: { bytes: number; gzipBytes: number };
@@ -490,13 +490,13 @@ async function measureKeyboard(
   note: string;
 }> {
   log('test keyboard: demo version sizes and engine time per key press');
-  const { modelBytes, blendWeight, report, wordModelBytes, wordWeights } = demo.word;
+  const { modelBytes, baseWeight, report, wordModelBytes, wordWeights } = demo.word;
   const header = {
     format: 'keyloom-profile' as const,
     client: { pseudonym: 'bench' },
     version: { id: 'bench', number: 1, status: 'trained' as const, note: null },
     settings: { ...defaultProfileSettings },
-    blendWeight,
+    baseWeight,
     baseModelSha256: null,
     engineVersion: String(report.engineVersion),
     metrics: {},
@@ -522,7 +522,7 @@ async function measureKeyboard(
   const model = new BlendedModel(
     deserializeModel(modelBytes).freeze(),
     deserializeModel(baseBytes).freeze(),
-    blendWeight,
+    baseWeight,
   );
   const loadMs = performance.now() - t0;
   const times = timePerKeyPress(
@@ -537,7 +537,7 @@ async function measureKeyboard(
   const baseWords = loadBaseWords();
   const personalChar = deserializeModel(modelBytes);
   personalChar.adaptive = true;
-  const charModel = new BlendedModel(personalChar, deserializeModel(baseBytes).freeze(), blendWeight);
+  const charModel = new BlendedModel(personalChar, deserializeModel(baseBytes).freeze(), baseWeight);
   const wordModel = wordModelBytes ? WordNgramModel.fromBytes(wordModelBytes) : null;
   if (wordModel) wordModel.adaptive = true;
   const list = new WordPredictor({
@@ -563,7 +563,7 @@ async function measureKeyboard(
     versionFile: { bytes: file.length, gzipBytes: gz(file) },
     baseModel: { bytes: baseBytes.length, gzipBytes: gz(baseBytes) },
     loadMs: Math.round(loadMs),
-    blendWeight,
+    baseWeight,
     perKeyPressMs: {
       p50: ms3(percentile(times, 0.5)),
       p95: ms3(percentile(times, 0.95)),

@@ -5,7 +5,7 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { model } from './run-model';
 import { loadBaseModel } from '../base-model';
 import { prepareText } from '@keyloom/shared';
-import { freshModel, trainPersonalModel, tuneBlendWeightOnTail } from '@keyloom/shared';
+import { freshModel, trainPersonalModel, tuneBaseWeightOnTail } from '@keyloom/shared';
 import { suggest } from '@keyloom/shared';
 
 // The command line is a contract: spawn it exactly as users do.
@@ -190,7 +190,7 @@ describe('model suggest --predictor', () => {
     const texts = [prepareText(readFileSync(bertram, 'utf8'))];
     const personal = trainPersonalModel(settings, texts);
     const base = loadBaseModel();
-    const model5 = freshModel(personal, base, tuneBlendWeightOnTail(settings, texts, base), false);
+    const model5 = freshModel(personal, base, tuneBaseWeightOnTail(settings, texts, base), false);
     const history = prepareText('Please ask Be');
     const expected = suggest(model5, history, history.length, 5).map((s) => s.word);
     expect(expected.length).toBe(5);

@@ -5,7 +5,7 @@
 import { loadBaseModel, trainBaseModelOn } from '../base-model';
 import { buildBaseWords, loadBaseWords } from '../base-words';
 import { type PpmModel, prepareText } from '@keyloom/shared';
-import { freshModel, trainPersonalModel, tuneBlendWeightOnTail } from '@keyloom/shared';
+import { freshModel, trainPersonalModel, tuneBaseWeightOnTail } from '@keyloom/shared';
 import type { EscapeMethod, NextSymbolModel } from '@keyloom/shared';
 import {
   CharListPredictor,
@@ -132,14 +132,15 @@ export function buildModel(
   };
   const personal = trainPersonalModel(settings, texts);
   const base = baseModels?.char;
-  let weight = 0;
+  let baseWeight = 0;
   if (base)
-    weight = choice.baseWeight === 'auto' ? tuneBlendWeightOnTail(settings, texts, base) : choice.baseWeight;
+    baseWeight =
+      choice.baseWeight === 'auto' ? tuneBaseWeightOnTail(settings, texts, base) : choice.baseWeight;
   const baseWords = baseModels?.words ?? null;
   const hasText = texts.some((t) => t.length > 0);
   // A list that learns gets a word model even without training text (it starts empty).
   const allWords = hasText || adaptive ? trainWordModel(texts) : null;
-  const fresh = (adaptive: boolean): NextSymbolModel => freshModel(personal, base, weight, adaptive);
+  const fresh = (adaptive: boolean): NextSymbolModel => freshModel(personal, base, baseWeight, adaptive);
   const vocabulary =
     allWords || baseWords
       ? new WordPredictor({
@@ -156,7 +157,7 @@ export function buildModel(
     return {
       personal,
       base,
-      baseWeight: weight,
+      baseWeight,
       words: null,
       baseWords,
       wordWeights: null,
@@ -176,7 +177,7 @@ export function buildModel(
   return {
     personal,
     base,
-    baseWeight: weight,
+    baseWeight,
     words: allWords,
     baseWords,
     wordWeights,

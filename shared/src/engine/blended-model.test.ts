@@ -2,7 +2,7 @@
 // no published check value).
 import { describe, expect, it } from 'vitest';
 import { PpmModel } from './ppm-model';
-import { BlendedModel, blendBits, tuneBlendWeight } from './blended-model';
+import { BlendedModel, blendBits, tuneBaseWeight } from './blended-model';
 import { Distribution } from './model-types';
 import { codePointsOf } from './text-preparation';
 
@@ -71,15 +71,15 @@ describe('BlendedModel', () => {
   it('tunes λ to no worse than either model alone on held-out text', () => {
     const p = personal();
     const b = base();
-    const lambda = tuneBlendWeight(p, b, heldOut);
-    expect(lambda).toBeGreaterThan(0);
-    expect(lambda).toBeLessThan(1);
-    const tuned = blendBits(p, b, heldOut, lambda);
+    const baseWeight = tuneBaseWeight(p, b, heldOut);
+    expect(baseWeight).toBeGreaterThan(0);
+    expect(baseWeight).toBeLessThan(1);
+    const tuned = blendBits(p, b, heldOut, baseWeight);
     expect(tuned).toBeLessThanOrEqual(blendBits(p, b, heldOut, 0));
     expect(tuned).toBeLessThanOrEqual(blendBits(p, b, heldOut, 1));
     // and it is a minimum: nearby weights are no better
-    expect(tuned).toBeLessThanOrEqual(blendBits(p, b, heldOut, Math.min(1, lambda + 0.01)) + 1e-9);
-    expect(tuned).toBeLessThanOrEqual(blendBits(p, b, heldOut, Math.max(0, lambda - 0.01)) + 1e-9);
+    expect(tuned).toBeLessThanOrEqual(blendBits(p, b, heldOut, Math.min(1, baseWeight + 0.01)) + 1e-9);
+    expect(tuned).toBeLessThanOrEqual(blendBits(p, b, heldOut, Math.max(0, baseWeight - 0.01)) + 1e-9);
   });
 
   it('rejects a weight outside 0..1', () => {

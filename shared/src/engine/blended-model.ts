@@ -11,19 +11,20 @@ export class BlendedModel implements NextSymbolModel {
   /**
    * @param personal the client's model
    * @param base the general model
-   * @param weight λ in 0..1: 0 = personal alone, 1 = base alone
+   * @param baseWeight λ in 0..1: 0 = personal alone, 1 = base alone
    */
   constructor(
     readonly personal: NextSymbolModel,
     readonly base: NextSymbolModel,
-    readonly weight: number,
+    readonly baseWeight: number,
   ) {
-    if (!(weight >= 0 && weight <= 1)) throw new RangeError(`blend weight must be in 0..1, got ${weight}`);
+    if (!(baseWeight >= 0 && baseWeight <= 1))
+      throw new RangeError(`blend weight must be in 0..1, got ${baseWeight}`);
     this.order = Math.max(personal.order, base.order);
   }
 
   probability(history: ArrayLike<number>, end: number, symbol: number): number {
-    const w = this.weight;
+    const w = this.baseWeight;
     if (w === 0) return this.personal.probability(history, end, symbol);
     if (w === 1) return this.base.probability(history, end, symbol);
     return (
@@ -39,7 +40,7 @@ export class BlendedModel implements NextSymbolModel {
    * splits are approximate.
    */
   distribution(history: ArrayLike<number>, end: number, out: Distribution): void {
-    const w = this.weight;
+    const w = this.baseWeight;
     const d1 = this.d1;
     const d2 = this.d2;
     this.personal.distribution(history, end, d1);
@@ -94,7 +95,7 @@ export class BlendedModel implements NextSymbolModel {
  * global minimum; an endpoint is returned when the slope there already
  * points outward. Empty held-out text gives 0.5.
  */
-export function tuneBlendWeight(
+export function tuneBaseWeight(
   personal: NextSymbolModel,
   base: NextSymbolModel,
   heldOut: ArrayLike<number>,
@@ -130,9 +131,9 @@ export function blendBits(
   personal: NextSymbolModel,
   base: NextSymbolModel,
   heldOut: ArrayLike<number>,
-  weight: number,
+  baseWeight: number,
 ): number {
-  const blend = new BlendedModel(personal, base, weight);
+  const blend = new BlendedModel(personal, base, baseWeight);
   let bits = 0;
   for (let i = 0; i < heldOut.length; i++) bits -= Math.log2(blend.probability(heldOut, i, heldOut[i]));
   return bits;

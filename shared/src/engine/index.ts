@@ -6,7 +6,7 @@ export type { PrepareOptions } from './text-preparation';
 export { defaultPpmSettings, resolvePpmSettings, CODE_POINT_LIMIT } from './ppm-settings';
 export type { PpmSettings, EscapeMethod, ResolvedPpmSettings } from './ppm-settings';
 export { PpmModel, CONTEXT_TOTAL_LIMIT } from './ppm-model';
-export { BlendedModel, tuneBlendWeight, blendBits } from './blended-model';
+export { BlendedModel, tuneBaseWeight, blendBits } from './blended-model';
 export { codeLengthBits, encodeText, decodeText } from './text-coding';
 export type { CodeLengthOptions } from './text-coding';
 export { serializeModel, deserializeModel } from './model-serialization';

@@ -1,46 +1,11 @@
 import { z } from 'zod';
-import { accessMethodSchema } from './clients.schema';
-import { numberField, safeText } from './common';
-
-// Settings of a profile version, with the engine's option names (ProfileSettings in
-// shared/src/engine/profile/profile-settings.ts must accept exactly what this accepts).
-export const escapeMethods = ['A', 'B', 'C', 'D'] as const;
-
-/** A whole number from `min` to `max` (a number, or its digits from a form), one message for every problem. */
-const wholeNumberFrom = (min: number, max: number, error: string) =>
-  numberField(z.number({ error }).int({ error }).min(min, { error }).max(max, { error }));
-
-const weightMessage = 'Enter a base-model weight from 0 to 1, or choose automatic.';
-
-export const profileVersionSettingsSchema = z.object({
-  order: wholeNumberFrom(1, 12, 'Choose a context order from 1 to 12.').default(5),
-  escape: z.enum(escapeMethods, { error: 'Choose escape method A, B, C or D.' }).default('C'),
-  exclusion: z.boolean().default(true),
-  // 'auto' tunes the weight of the base English model on held-out text; 0 = personal alone, 1 = base alone.
-  baseWeight: z
-    .union([
-      z.literal('auto'),
-      numberField(
-        z.number({ error: weightMessage }).min(0, { error: weightMessage }).max(1, { error: weightMessage }),
-      ),
-    ])
-    .default('auto'),
-  slots: wholeNumberFrom(1, 10, 'Choose 1 to 10 suggestion slots.').default(5),
-  caseFold: z.boolean().default(false),
-  // The access-method timings used for the estimates; the client record's by default.
-  access: z.object({
-    method: accessMethodSchema,
-    scanIntervalMs: numberField(z.number().int().min(100).max(10_000)).optional(),
-    dwellMs: numberField(z.number().int().min(100).max(5_000)).optional(),
-    keyTimeMs: numberField(z.number().int().min(100).max(30_000)).optional(),
-  }),
-});
-export type ProfileVersionSettings = z.infer<typeof profileVersionSettingsSchema>;
+import { safeText } from './common';
+import { profileSettingsSchema } from './profile-settings.schema';
 
 // POST /api/clients/:id/profile-versions: settings (access defaults to the client record's) and the
 // samples to train on (default: every sample that is ready). The exact sample set is frozen with hashes.
 export const createProfileVersionSchema = z.object({
-  settings: profileVersionSettingsSchema.partial({ access: true }),
+  settings: profileSettingsSchema.partial({ access: true }),
   sampleIds: z.array(z.uuid()).min(1, { error: 'Choose at least one sample.' }).optional(),
   note: safeText({ multiline: true }).trim().max(1000).optional(),
 });
@@ -109,16 +74,30 @@ export const profileVersionSchema = z.object({
   progress: z.number(),
   stage: z.string().nullable(),
   error: z.string().nullable(),
-  settings: profileVersionSettingsSchema,
+  settings: profileSettingsSchema,
   samples: z.array(
     z.object({ id: z.uuid(), title: z.string(), sha256: z.string(), characters: z.number().int() }),
   ),
-  // The engine's ProfileReport (same names as `model evaluate --json`), null until trained.
+  // The engine's report (profileReportSchema, same names as `model evaluate --json`), null until
+  // trained. Kept open here so one report that does not parse does not hide the version: the
+  // client reads it with profileReportSchema and shows "no results" when it does not parse.
   metrics: z.record(z.string(), z.unknown()).nullable(),
   modelBytes: z.number().int().nullable(),
   createdBy: z.string(),
   createdAt: z.string(),
   trainedAt: z.string().nullable(),
   history: z.array(profileVersionEventSchema),
+  // λ, the base model's weight the trained profile blends with (settings.baseWeight resolved), and
+  // the SHA-256 (hex) of the base model it was trained beside; null until trained.
+  baseWeight: z.number().nullable(),
+  baseModelSha256: z.string().nullable(),
+  // Who signed off after the trial and who approved it (name, time, comment), and the send-back reason.
+  signedOffBy: z.string().nullable(),
+  signedOffAt: z.string().nullable(),
+  signOffComment: z.string().nullable(),
+  approvedBy: z.string().nullable(),
+  approvedAt: z.string().nullable(),
+  approvalComment: z.string().nullable(),
+  sentBackReason: z.string().nullable(),
 });
 export type ProfileVersion = z.infer<typeof profileVersionSchema>;

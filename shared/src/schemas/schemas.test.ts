@@ -12,7 +12,7 @@ import {
   pageQuerySchema,
   PASTE_MAX_BYTES,
   pasteSampleSchema,
-  profileVersionSettingsSchema,
+  profileSettingsSchema,
   safeText,
   summaryPreviewRequestSchema,
   updateUserSchema,
@@ -189,8 +189,8 @@ describe('numbers from query strings and forms', () => {
     const client = { pseudonym: 'Ash', accessMethod: 'direct' };
     expect(createClientSchema.safeParse({ ...client, keyTimeMs: '1500' }).success).toBe(true);
     expect(createClientSchema.safeParse({ ...client, keyTimeMs: [1500] }).success).toBe(false);
-    expect(profileVersionSettingsSchema.partial().safeParse({ order: ['5'] }).success).toBe(false);
-    expect(profileVersionSettingsSchema.partial().safeParse({ baseWeight: [0.5] }).success).toBe(false);
+    expect(profileSettingsSchema.partial().safeParse({ order: ['5'] }).success).toBe(false);
+    expect(profileSettingsSchema.partial().safeParse({ baseWeight: [0.5] }).success).toBe(false);
   });
 });
 

@@ -1,4 +1,4 @@
-import { profileVersionSettingsSchema } from '@keyloom/shared';
+import { profileSettingsSchema } from '@keyloom/shared';
 import { randomUUID } from 'node:crypto';
 import type { DataSource, EntityManager } from 'typeorm';
 import { loadTrainingRuntime, runProfileTraining } from '../../profile-versions/profile-training';
@@ -59,7 +59,7 @@ export const demoVersionStep: SeedStep = {
       log('the demo client already has a version; kept');
       return;
     }
-    const settings = profileVersionSettingsSchema.parse({ access: accessFromClient(client) });
+    const settings = profileSettingsSchema.parse({ access: accessFromClient(client) });
     const samples = await frozenSamples(manager, client.id, undefined);
     const jobId = randomUUID();
     const at = new Date().toISOString();

@@ -1,4 +1,5 @@
 import { beforeAll, describe, expect, it } from 'vitest';
+import { profileReportKeys, profileReportSchema } from '@keyloom/shared/src/schemas/profile-report.schema';
 import { loadBaseModel } from '../../base-model';
 import { loadBaseWords } from '../../base-words';
 import type { BaseWords } from '@keyloom/shared/src/engine/words/word-predictor';
@@ -15,7 +16,7 @@ import { codeLengthBits, decodeText, encodeText } from '@keyloom/shared/src/engi
 import { kFoldSplits } from '@keyloom/shared/src/engine/evaluation/cross-validation';
 import { simulateKeystrokes } from '@keyloom/shared/src/engine/evaluation/keystroke-savings';
 import { scanCosts } from '@keyloom/shared/src/engine/evaluation/scan-cost';
-import { tuneBlendWeightOnTail } from '@keyloom/shared/src/engine/evaluation/held-out-evaluation';
+import { tuneBaseWeightOnTail } from '@keyloom/shared/src/engine/evaluation/held-out-evaluation';
 import { estimateRates } from '@keyloom/shared/src/engine/evaluation/text-entry-rate';
 import {
   CancelledError,
@@ -75,7 +76,7 @@ let base: PpmModel;
 let baseWords: BaseWords;
 let report: ProfileReport;
 let modelBytes: Uint8Array;
-let blendWeight: number;
+let baseWeight: number;
 const progress: ProfileProgress[] = [];
 
 beforeAll(async () => {
@@ -84,7 +85,7 @@ beforeAll(async () => {
   const result = await trainAndEvaluateProfile({ documents, settings, base, baseWords, folds: 5 }, (p) =>
     progress.push(p),
   );
-  ({ report, modelBytes, blendWeight } = result);
+  ({ report, modelBytes, baseWeight } = result);
 });
 
 const withoutTimings = (r: ProfileReport): Partial<ProfileReport> => {
@@ -116,12 +117,12 @@ describe('trainAndEvaluateProfile on an invented corpus', () => {
     const ppm = { order: 4, escape: 'C' as const, exclusion: true };
     const personal = new PpmModel({ ...ppm, adaptive: true });
     for (const t of train) personal.learnText(t);
-    const lambda = tuneBlendWeightOnTail(ppm, train, base);
-    const fresh = (): NextSymbolModel => new BlendedModel(personal.clone(), base, lambda);
+    const baseWeight = tuneBaseWeightOnTail(ppm, train, base);
+    const fresh = (): NextSymbolModel => new BlendedModel(personal.clone(), base, baseWeight);
 
     const fold = report.perFold[0];
     expect(fold.heldOutIds).toEqual(documents.filter((_, d) => d % 5 === 0).map((d) => d.id));
-    expect(fold.baseWeight).toBeCloseTo(lambda, 6);
+    expect(fold.baseWeight).toBeCloseTo(baseWeight, 6);
     expect(fold.testChars).toBe(test.length);
     expect(fold.bpcIdeal).toBeCloseTo(codeLengthBits(fresh(), test) / test.length, 6);
     const coded = encodeText(fresh(), test);
@@ -235,10 +236,31 @@ describe('trainAndEvaluateProfile on an invented corpus', () => {
     const loaded = deserializeModel(modelBytes);
     const direct = new PpmModel({ order: 4, escape: 'C', exclusion: true, adaptive: true });
     for (const d of documents) direct.learnText(prepareText(d.text));
-    expect(blendWeight).toBeCloseTo(report.baseWeight, 6);
+    expect(baseWeight).toBeCloseTo(report.baseWeight, 6);
     const probe = prepareText('Pepper and I sailed past the harbour wall before the regatta. Zebra!');
     for (let i = 0; i < probe.length; i++)
       expect(loaded.probability(probe, i, probe[i])).toBe(direct.probability(probe, i, probe[i]));
+  });
+
+  it('writes a report its schema accepts as it is, every field named by the schema', () => {
+    const stored = JSON.parse(JSON.stringify(report)) as unknown;
+    const parsed = profileReportSchema.safeParse(stored);
+    expect(parsed.error).toBeUndefined();
+    expect(parsed.data).toEqual(stored);
+    expect(Object.keys(report).sort()).toEqual([...profileReportKeys].sort());
+  });
+
+  it('still reads a report stored before the word list (no predictor, wordWeights or nonWordSlots)', () => {
+    const { predictor, wordWeights, nonWordSlots, ...older } = JSON.parse(
+      JSON.stringify(report),
+    ) as ProfileReport;
+    expect([predictor, wordWeights === undefined, nonWordSlots === undefined]).toEqual([
+      'word',
+      false,
+      false,
+    ]);
+    expect(profileReportSchema.safeParse(older).success).toBe(true);
+    expect(profileReportSchema.safeParse({ ...older, chars: undefined }).success).toBe(false);
   });
 
   it('is deterministic: the same input gives the same report apart from timings', async () => {
@@ -259,7 +281,7 @@ describe('trainAndEvaluateProfile edge cases', () => {
     );
     await expect(
       trainAndEvaluateProfile({ documents, settings: { ...settings, slots: 11 }, base }),
-    ).rejects.toThrow(/slots must be 1..10/);
+    ).rejects.toThrow(/invalid profile settings: slots: Choose 1 to 10 suggestion slots/);
   });
 
   it('stops with CancelledError when asked, before or during the work', async () => {

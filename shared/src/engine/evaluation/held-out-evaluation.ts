@@ -9,7 +9,7 @@
 // Also the two training steps both use: a personal PPM model trained on
 // several texts (each its own text, no context across them), and the blend
 // weight tuned on the tail of the training text (never on the test text).
-import { BlendedModel, tuneBlendWeight } from '../blended-model';
+import { BlendedModel, tuneBaseWeight } from '../blended-model';
 import type { NextSymbolModel } from '../model-types';
 import { PpmModel } from '../ppm-model';
 import type { PpmSettings } from '../ppm-settings';
@@ -33,7 +33,7 @@ export function trainPersonalModel(settings: Partial<PpmSettings>, texts: readon
  * texts taken together: a personal model trained on the first 90% and the
  * base model are mixed on the rest. Without training text: 1 (base alone).
  */
-export function tuneBlendWeightOnTail(
+export function tuneBaseWeightOnTail(
   settings: Partial<PpmSettings>,
   texts: readonly Uint32Array[],
   base: NextSymbolModel,
@@ -45,7 +45,7 @@ export function tuneBlendWeightOnTail(
   for (const t of head) tuningModel.learnText(t);
   const held: number[] = [];
   for (const t of tail) for (let i = 0; i < t.length; i++) held.push(t[i]);
-  return tuneBlendWeight(tuningModel, base, Uint32Array.from(held));
+  return tuneBaseWeight(tuningModel, base, Uint32Array.from(held));
 }
 
 /**
@@ -76,12 +76,12 @@ export function splitTail(texts: readonly Uint32Array[]): { head: Uint32Array[];
 export function freshModel(
   personal: PpmModel,
   base: NextSymbolModel | null | undefined,
-  weight: number,
+  baseWeight: number,
   adaptive: boolean,
 ): NextSymbolModel {
   const p = personal.clone();
   p.adaptive = adaptive;
-  return base ? new BlendedModel(p, base, weight) : p;
+  return base ? new BlendedModel(p, base, baseWeight) : p;
 }
 
 export type HeldOutOptions = {

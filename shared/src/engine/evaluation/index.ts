@@ -28,7 +28,7 @@ export {
   codeAndCheck,
   freshModel,
   trainPersonalModel,
-  tuneBlendWeightOnTail,
+  tuneBaseWeightOnTail,
   splitTail,
   TUNING_SHARE,
 } from './held-out-evaluation';

@@ -24,14 +24,9 @@ export function wordsPerMinute(cps: number): number {
   return (cps * 60) / CHARS_PER_WORD;
 }
 
-/** How the client makes one selection (a key or a suggestion). */
-export type AccessTiming =
-  /** Switch scanning: each selection costs its scan steps × the scan interval. */
-  | { kind: 'scanning'; scanIntervalMs: number }
-  /** Gaze or head pointer with dwell: each selection costs the dwell time plus travel. */
-  | { kind: 'dwell'; dwellMs: number; travelMs?: number }
-  /** Direct selection (finger, pointer click): a fixed time per key. */
-  | { kind: 'direct'; keyMs: number };
+/** How the client makes one selection (a key or a suggestion): the report schema's accessTimingSchema. */
+export type { AccessTiming } from '../../schemas/profile-report.schema';
+import type { AccessTiming } from '../../schemas/profile-report.schema';
 
 /** Time in ms of one selection; scanning needs the expected steps per selection. */
 export function msPerSelection(timing: AccessTiming, scanStepsPerSelection: number): number {

@@ -7,7 +7,8 @@ import type { WordVisit } from '../evaluation/keystroke-savings';
 /** A word counts as offered early when the list showed it after at most this many typed letters. */
 export const EARLY_LETTERS = 1;
 
-export type EarlyWord = { word: string; count: number };
+export type { EarlyWord } from '../../schemas/profile-report.schema';
+import type { EarlyWord } from '../../schemas/profile-report.schema';
 
 /** Collects, for one text, which word occurrences a model offered early at `slots`. */
 export class EarlyWordRecorder {

@@ -11,6 +11,7 @@ export type {
   ProfileInput,
   ProfileDocument,
   ProfileReport,
+  CurrentProfileReport,
   ProfileResult,
   ProfileFoldReport,
   LearningCurveReport,

@@ -27,7 +27,7 @@ function header(): ProfileFileHeader {
     client: { pseudonym: 'R. Ashby' },
     version: { id: '00000000-0000-4000-8000-000000000001', number: 2, status: 'active', note: 'Ünïcode ✓' },
     settings: { order: 5, escape: 'C', exclusion: true, baseWeight: 'auto', slots: 5 },
-    blendWeight: 0.42,
+    baseWeight: 0.42,
     baseModelSha256: 'ab'.repeat(32),
     engineVersion: 'test',
     metrics: { bpcIdeal: 2.1 },
@@ -53,6 +53,24 @@ describe('profile file (.klprofile)', () => {
     expect([...read.model]).toEqual([...model()]);
     expect(read.modelOrder).toBe(3);
     expect(read.modelContexts).toBeGreaterThan(10);
+  });
+
+  it('writes the base-model weight as baseWeight and still reads a file whose header says blendWeight', () => {
+    const bytes = writeProfileFile(header(), model());
+    const headerText = new TextDecoder().decode(
+      bytes.subarray(10, 10 + new DataView(bytes.buffer).getUint32(6, true)),
+    );
+    expect(JSON.parse(headerText)).toMatchObject({ baseWeight: 0.42 });
+    expect(headerText).not.toContain('blendWeight');
+    // A file exported before the rename: the same header under the old key.
+    const { baseWeight, ...rest } = header();
+    const old = writeProfileFile(
+      { ...rest, blendWeight: baseWeight } as unknown as ProfileFileHeader,
+      model(),
+    );
+    const read = verifyProfileFile(old);
+    expect(read.header.baseWeight).toBe(0.42);
+    expect(read.header).toEqual(header());
   });
 
   it('ends with the CRC-32 of everything before it, as node:zlib computes it (general-purpose reference)', () => {

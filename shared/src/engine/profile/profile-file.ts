@@ -53,8 +53,8 @@ export type ProfileFileHeader = {
   client: { pseudonym: string };
   version: { id: string; number: number; status: string; note: string | null };
   settings: Record<string, unknown>;
-  /** λ: weight of the base model when blending (0..1). */
-  blendWeight: number;
+  /** λ: weight of the base model when blending (0..1). Files written before the rename call it `blendWeight`; they read the same. */
+  baseWeight: number;
   /** Weights of the word-aware list's mixture (layouts 3 and 4; absent in older files). */
   wordWeights?: { personal: number; base: number; lexicon: number; cache: number };
   /** SHA-256 (hex) of the base model file the profile was trained beside, or null. */
@@ -243,13 +243,23 @@ export function readProfileFile(bytes: Uint8Array): {
   }
   const signatureAt = crcAt - signatureBytes;
   return {
-    header: header as ProfileFileHeader,
+    header: withCurrentNames(header as ProfileFileHeader & { blendWeight?: number }),
     model: bytes.slice(modelAt + 4, wordsAt),
     words: hasWords ? bytes.slice(wordsAt + 4, wordsAt + 4 + wordsLength) : null,
     checksum: hex8(stored),
     signature: signatureBytes > 0 ? bytes.slice(signatureAt, crcAt) : null,
     signedBytes: bytes.subarray(0, signatureAt),
   };
+}
+
+/**
+ * The header with today's field names: the base model's weight was `blendWeight` in files written
+ * before it had one name everywhere. Only the returned object changes; the signed bytes are as read.
+ */
+function withCurrentNames(header: ProfileFileHeader & { blendWeight?: number }): ProfileFileHeader {
+  if (header.baseWeight !== undefined || header.blendWeight === undefined) return header;
+  const { blendWeight, ...rest } = header;
+  return { ...rest, baseWeight: blendWeight };
 }
 
 /** readProfileFile, then loads the model to be sure it deserialises (ProfileFileError when it does not). */

@@ -9,6 +9,16 @@
 // with adaptive evaluation: the model learns the held-out text as it reads
 // it, as on the client's device. Deterministic: no randomness anywhere, so
 // the same input gives the same report (timings aside).
+import type { z } from 'zod';
+import type {
+  baseOnlyReportSchema,
+  learningCurveReportSchema,
+  nonWordSlotsReportSchema,
+  perSlotSchema,
+  ProfileReport,
+  profileFoldReportSchema,
+  spreadSchema,
+} from '../../schemas/profile-report.schema';
 import type { NextSymbolModel } from '../model-types';
 import type { PpmSettings } from '../ppm-settings';
 import { serializeModel } from '../model-serialization';
@@ -19,7 +29,7 @@ import {
   codeAndCheck,
   freshModel,
   trainPersonalModel,
-  tuneBlendWeightOnTail,
+  tuneBaseWeightOnTail,
 } from '../evaluation/held-out-evaluation';
 import { simulateKeystrokes, type KeystrokeResult } from '../evaluation/keystroke-savings';
 import { offeredNonWords } from '../evaluation/offered-words';
@@ -28,10 +38,10 @@ import { type BaseWords, type ListPredictor, WordPredictor, type WordWeights } f
 import { trainWordModel, tuneWordWeightsOnTail } from '../words/word-training';
 import { scanCosts, type ScanCostResult } from '../evaluation/scan-cost';
 import { CharListPredictor } from '../words/char-list-predictor';
-import { countEarlyWords, EarlyWordRecorder, topEarlyWords, type EarlyWord } from './early-words';
+import { countEarlyWords, EarlyWordRecorder, topEarlyWords } from './early-words';
 import { ProfileInputError } from './profile-errors';
 import { keystrokeSample, planFolds, type PreparedDocument } from './profile-folds';
-import { ProgressTracker, type ProfileProgress, type ProfileStage } from './profile-progress';
+import { ProgressTracker, type ProfileProgress } from './profile-progress';
 import { DEFAULT_LIST_READ_MS, profileRates, type RateReport } from './profile-rates';
 import { checkProfileSettings, type ProfileSettings } from './profile-settings';
 
@@ -76,120 +86,29 @@ export type ProfileInput = {
   predictor?: 'word' | 'char';
 };
 
-/** Offered slots that were not words of the vocabulary (lists at word starts and after 1–2 letters). */
-export type NonWordSlotsReport = {
-  share: number;
-  nonWordSlots: number;
-  slots: number;
-  lists: number;
-  examples: string[];
-};
-
+// The report's types are inferred from its schema (shared/src/schemas/profile-report.schema.ts).
+export type NonWordSlotsReport = z.infer<typeof nonWordSlotsReportSchema>;
 /** Spread of a metric over folds (sample standard deviation). */
-export type Spread = { min: number; max: number; std: number };
+export type Spread = z.infer<typeof spreadSchema>;
 /** A value per list size, keys "1".."10". */
-export type PerSlot = Record<string, number>;
-
-export type ProfileFoldReport = {
-  /** Ids of the samples held out in this fold (by-sample folds; empty for segments). */
-  heldOutIds: string[];
-  trainChars: number;
-  testChars: number;
-  /** Characters the keystroke simulation typed in this fold. */
-  ksChars: number;
-  bpcIdeal: number;
-  bpcCoded: number;
-  codedBytes: number;
-  roundTrip: boolean;
-  baseWeight: number;
-  keystrokeSavings: PerSlot;
-  scanStepsPerChar: { rowColumn: number; modelOrdered: number };
-};
-
-export type LearningCurveReport = {
-  /** Index into perFold of the fold the curve was measured on. */
-  fold: number;
-  /** Held-out characters (bpc) and characters typed (KS) at every point. */
-  heldOutChars: number;
-  ksChars: number;
-  slots: number;
-  points: {
-    fraction: number;
-    trainChars: number;
-    baseWeight: number;
-    bpcIdeal: number;
-    keystrokeSavings: number;
-  }[];
-};
-
-export type BaseOnlyReport = { bpcIdeal: number; keystrokeSavings: PerSlot; kspc: PerSlot };
+export type PerSlot = z.infer<typeof perSlotSchema>;
+export type ProfileFoldReport = z.infer<typeof profileFoldReportSchema>;
+export type LearningCurveReport = z.infer<typeof learningCurveReportSchema>;
+export type BaseOnlyReport = z.infer<typeof baseOnlyReportSchema>;
+export type { ProfileReport };
+/** A report as this engine writes it: the fields that reports stored before the word list lack are always there. */
+export type CurrentProfileReport = ProfileReport &
+  Required<Pick<ProfileReport, 'predictor' | 'nonWordSlots'>>;
 
 /** Words offered per list position checked for the non-word share, per fold (three lists per word). */
 const NON_WORD_CHECK_WORDS = 150;
 
-export type ProfileReport = {
-  engineVersion: string;
-  /** The list measured (see ProfileInput.predictor). */
-  predictor: 'word' | 'char';
-  /**
-   * Weights of the word-aware list's mixture for the final profile (tuned on the last 10% of all
-   * samples; each fold tunes its own on its training text), null for the character-only list.
-   */
-  wordWeights: WordWeights | null;
-  /** The share of offered slots that were not words, over all folds. */
-  nonWordSlots: NonWordSlotsReport;
-  /** Characters of all samples after preparation. */
-  chars: number;
-  documents: number;
-  settings: ProfileSettings;
-  /** Same names as `model evaluate --json`. */
-  order: number;
-  escape: string;
-  adaptive: true;
-  folds: number;
-  foldUnit: 'document' | 'segment';
-  foldNote: string;
-  /** Characters held out over all folds (each character once). */
-  heldOutChars: number;
-  /** Mean over folds of each fold's bits per character. */
-  bpcIdeal: number;
-  bpcIdealSpread: Spread;
-  bpcCoded: number;
-  bpcCodedSpread: Spread;
-  /** Coded bytes of all held-out text, summed over folds. */
-  codedBytes: number;
-  /** Every fold's coded stream decoded back exactly. */
-  roundTrip: boolean;
-  /** λ used (mean over folds when tuned); 0 without a base model. Also the final model's blend weight. */
-  baseWeight: number;
-  baseWeightSpread: Spread;
-  /** Fractions for 1..10 slots, over all folds weighted by characters typed. */
-  keystrokeSavings: PerSlot;
-  kspc: PerSlot;
-  /** Upper bound: every word selected before its first letter. */
-  oracleSavings: number;
-  /** Cap per fold on the characters typed by the keystroke simulation (null: whole held-out text). */
-  ksSampleChars: number | null;
-  /** Characters the keystroke simulation typed over all folds. */
-  ksChars: number;
-  ksNote: string;
-  scanStepsPerChar: { rowColumn: number; modelOrdered: number };
-  rates: RateReport;
-  learningCurve: LearningCurveReport;
-  baseOnly: BaseOnlyReport | null;
-  /** Null without a base model. */
-  earlyWords: EarlyWord[] | null;
-  perFold: ProfileFoldReport[];
-  /** ms per stage, and the whole run. */
-  timings: Record<ProfileStage | 'total', number>;
-};
-
 export type ProfileResult = {
-  report: ProfileReport;
+  report: CurrentProfileReport;
   /** serializeModel of the personal PPM model trained on every sample. */
   modelBytes: Uint8Array;
   /** λ to blend it with the base model (0 without a base model). */
-  blendWeight: number;
+  baseWeight: number;
   /** The client's word model trained on every sample (WordNgramModel bytes), null for the character-only list. */
   wordModelBytes: Uint8Array | null;
   wordWeights: WordWeights | null;
@@ -226,7 +145,7 @@ type FoldWork = {
   ksText: Uint32Array;
   trainChars: number;
   personal?: ReturnType<typeof trainPersonalModel>;
-  weight: number;
+  baseWeight: number;
   bits: number;
   codedBytes: number;
   roundTrip: boolean;
@@ -251,8 +170,7 @@ export async function trainAndEvaluateProfile(
   shouldCancel?: () => boolean,
 ): Promise<ProfileResult> {
   const started = Date.now();
-  const settings = input.settings;
-  checkProfileSettings(settings);
+  const settings = checkProfileSettings(input.settings);
   const k = input.folds ?? 5;
   const cap = input.ksSampleChars === undefined ? DEFAULT_KS_SAMPLE_CHARS : input.ksSampleChars;
   if (cap !== null && !(Number.isInteger(cap) && cap >= 100))
@@ -269,11 +187,11 @@ export async function trainAndEvaluateProfile(
     exclusion: settings.exclusion,
   };
   const tuned = settings.baseWeight === 'auto' && base !== null;
-  const weightFor = (texts: readonly Uint32Array[]): number =>
+  const baseWeightFor = (texts: readonly Uint32Array[]): number =>
     base === null
       ? 0
       : settings.baseWeight === 'auto'
-        ? tuneBlendWeightOnTail(ppm, texts, base)
+        ? tuneBaseWeightOnTail(ppm, texts, base)
         : settings.baseWeight;
 
   // Preparing (cheap and needed to plan the rest, so done before the tracker).
@@ -293,7 +211,7 @@ export async function trainAndEvaluateProfile(
     test: f.test,
     ksText: keystrokeSample(f.test, cap),
     trainChars: f.train.reduce((n, t) => n + t.length, 0),
-    weight: 0,
+    baseWeight: 0,
     bits: 0,
     codedBytes: 0,
     roundTrip: false,
@@ -323,7 +241,7 @@ export async function trainAndEvaluateProfile(
   for (const f of folds) {
     await progress.step('training', f.trainChars * (COST.train + (tuned ? COST.tune : 0) + wordCost), () => {
       f.personal = trainPersonalModel(ppm, f.train);
-      f.weight = weightFor(f.train);
+      f.baseWeight = baseWeightFor(f.train);
       if (useWords) {
         f.words = trainWordModel(f.train);
         f.wordWeights = tuneWordWeightsOnTail(f.train, baseWords, true);
@@ -340,11 +258,11 @@ export async function trainAndEvaluateProfile(
       wordWeights: useWords ? tuneWordWeightsOnTail(allTexts, baseWords, true) : null,
     }),
   );
-  const meanWeight = folds.reduce((s, f) => s + f.weight, 0) / folds.length;
-  const blendWeight = base === null ? 0 : settings.baseWeight === 'auto' ? meanWeight : settings.baseWeight;
+  const meanWeight = folds.reduce((s, f) => s + f.baseWeight, 0) / folds.length;
+  const baseWeight = base === null ? 0 : settings.baseWeight === 'auto' ? meanWeight : settings.baseWeight;
 
   // Cross-validating: bits per character, ideal and coded, and scan cost.
-  const fresh = (f: FoldWork): NextSymbolModel => freshModel(need(f.personal), base, f.weight, true);
+  const fresh = (f: FoldWork): NextSymbolModel => freshModel(need(f.personal), base, f.baseWeight, true);
   /** The list a fold measures, learning as it is typed (the word model and the character model). */
   const freshList = (f: FoldWork): ListPredictor | NextSymbolModel =>
     useWords
@@ -437,12 +355,12 @@ export async function trainAndEvaluateProfile(
           ? new WordPredictor({
               personal: need(f.words),
               base: baseWords,
-              char: freshModel(need(f.personal), base, f.weight, false),
+              char: freshModel(need(f.personal), base, f.baseWeight, false),
               weights: need(f.wordWeights),
               capitalize,
               adaptive: false,
             })
-          : new CharListPredictor(freshModel(need(f.personal), base, f.weight, false), false);
+          : new CharListPredictor(freshModel(need(f.personal), base, f.baseWeight, false), false);
         const r = offeredNonWords(
           list,
           (w) => vocabulary.inVocabulary(w),
@@ -467,7 +385,7 @@ export async function trainAndEvaluateProfile(
       curvePoints.push({
         fraction,
         trainChars: curveFold.trainChars,
-        baseWeight: round(curveFold.weight),
+        baseWeight: round(curveFold.baseWeight),
         bpcIdeal: round(curveFold.bits / curveFold.test.length),
         keystrokeSavings: round(need(curveFold.ks).savings[slots]),
       });
@@ -479,26 +397,26 @@ export async function trainAndEvaluateProfile(
         (part) => {
           const texts = part.map((t) => prepareText(t, { caseFold: settings.caseFold }));
           const personal = trainPersonalModel(ppm, texts);
-          const weight = weightFor(texts);
-          const bits = codeLengthBits(freshModel(personal, base, weight, true), curveFold.test, {
+          const baseWeight = baseWeightFor(texts);
+          const bits = codeLengthBits(freshModel(personal, base, baseWeight, true), curveFold.test, {
             adaptive: true,
           });
           const list = useWords
             ? new WordPredictor({
                 personal: trainWordModel(texts),
                 base: baseWords,
-                char: freshModel(personal, base, weight, true),
+                char: freshModel(personal, base, baseWeight, true),
                 weights: tuneWordWeightsOnTail(texts, baseWords, true),
                 capitalize,
                 adaptive: true,
               })
-            : freshModel(personal, base, weight, true);
+            : freshModel(personal, base, baseWeight, true);
           const ks = simulateKeystrokes(list, curveFold.ksText, {
             maxSlots: slots,
             adaptive: true,
             onWord: (visit) => inside(visit.end / curveFold.ksText.length),
           });
-          return { weight, bpc: bits / curveFold.test.length, ks: ks.savings[slots] };
+          return { baseWeight, bpc: bits / curveFold.test.length, ks: ks.savings[slots] };
         },
         [fraction],
       );
@@ -507,7 +425,7 @@ export async function trainAndEvaluateProfile(
     curvePoints.push({
       fraction,
       trainChars: point.trainChars,
-      baseWeight: round(point.metrics.weight),
+      baseWeight: round(point.metrics.baseWeight),
       bpcIdeal: round(point.metrics.bpc),
       keystrokeSavings: round(point.metrics.ks),
     });
@@ -523,7 +441,7 @@ export async function trainAndEvaluateProfile(
   const rows = folds.map((f) => ({
     bpcIdeal: f.bits / f.test.length,
     bpcCoded: (f.codedBytes * 8) / f.test.length,
-    baseWeight: f.weight,
+    baseWeight: f.baseWeight,
   }));
   const summary = summarize(rows);
   const spread = (key: string): Spread => ({
@@ -560,7 +478,7 @@ export async function trainAndEvaluateProfile(
   }
 
   const timings = { ...progress.timings, total: Date.now() - started };
-  const report: ProfileReport = {
+  const report: CurrentProfileReport = {
     engineVersion: ENGINE_VERSION,
     predictor: useWords ? 'word' : 'char',
     wordWeights: final.wordWeights,
@@ -587,7 +505,7 @@ export async function trainAndEvaluateProfile(
     bpcCodedSpread: spread('bpcCoded'),
     codedBytes: folds.reduce((n, f) => n + f.codedBytes, 0),
     roundTrip: folds.every((f) => f.roundTrip),
-    baseWeight: round(blendWeight),
+    baseWeight: round(baseWeight),
     baseWeightSpread: spread('baseWeight'),
     keystrokeSavings: perSlot(savings),
     kspc: perSlot(kspc),
@@ -622,7 +540,7 @@ export async function trainAndEvaluateProfile(
       bpcCoded: round(rows[i].bpcCoded),
       codedBytes: f.codedBytes,
       roundTrip: f.roundTrip,
-      baseWeight: round(f.weight),
+      baseWeight: round(f.baseWeight),
       keystrokeSavings: perSlot(need(f.ks).savings),
       scanStepsPerChar: {
         rowColumn: round(need(f.scan).rowColumn),
@@ -631,7 +549,7 @@ export async function trainAndEvaluateProfile(
     })),
     timings,
   };
-  return { report, modelBytes, blendWeight, wordModelBytes, wordWeights: final.wordWeights };
+  return { report, modelBytes, baseWeight, wordModelBytes, wordWeights: final.wordWeights };
 }
 
 function roundedRates(r: RateReport): RateReport {

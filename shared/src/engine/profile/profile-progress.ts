@@ -4,7 +4,9 @@
 // the number of steps.
 import { CancelledError } from './profile-errors';
 
-export type ProfileStage = 'preparing' | 'training' | 'cross-validating' | 'simulating' | 'saving';
+/** The steps of a run (the list is the report schema's). */
+export type ProfileStage = TrainingStage;
+import type { TrainingStage } from '../../schemas/profile-report.schema';
 
 /** What onProgress receives; `fraction` is the overall share done, 0..1, never decreasing. */
 export type ProfileProgress = { stage: ProfileStage; fraction: number };

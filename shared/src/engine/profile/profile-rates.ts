@@ -2,6 +2,7 @@
 // suggestion list (evaluation/text-entry-rate.ts, estimateRates). The
 // assumptions travel with the figures so the report can show them.
 import { estimateRates, type AccessTiming } from '../evaluation/text-entry-rate';
+import type { RateReport } from '../../schemas/profile-report.schema';
 import type { AccessSettings } from './profile-settings';
 
 // Timings used when the access settings give none: the same values as the
@@ -17,29 +18,7 @@ export const DEFAULT_KEY_TIME_MS = 1500;
 /** Time to read the suggestion list once: 500 ms (assumption, no source; Koester & Levine 1994 model it but give no single value we verified). */
 export const DEFAULT_LIST_READ_MS = 500;
 
-export type RateReport = {
-  wpmWithout: number;
-  wpmWith: number;
-  msPerCharWithout: number;
-  msPerCharWith: number;
-  assumptions: {
-    /** How one selection is made, as used for the estimate. */
-    timing: AccessTiming;
-    /** True where a timing was missing from the access settings and the default was used. */
-    defaultTiming: boolean;
-    /** Expected scan steps per selection (row–column, default layout; only scanning uses it). */
-    scanStepsPerSelection: number;
-    /** ms of one selection (a key or a suggestion cost the same). */
-    msPerSelection: number;
-    /** ms to read the list before each selection. */
-    listReadMs: number;
-    /** Suggestion slots the "with" figure assumes. */
-    slots: number;
-    /** Keystrokes per character with the list, at those slots. */
-    kspc: number;
-    note: string;
-  };
-};
+export type { RateReport } from '../../schemas/profile-report.schema';
 
 /** The timing model of an access method: scanning, dwell or direct selection. */
 export function accessTiming(access: AccessSettings): { timing: AccessTiming; defaultTiming: boolean } {

@@ -1,5 +1,8 @@
 // The headline figures of a stored profile report, read defensively: the report is kept as JSON
-// (jsonb in the API) and an older engine version may lack a field.
+// (jsonb in the API) and an older engine version may lack a field. Each figure is checked with the
+// report schema's own field (shared/src/schemas/profile-report.schema.ts), one at a time.
+import type { z } from 'zod';
+import { perSlotSchema, rateReportSchema } from '../../schemas/profile-report.schema';
 
 /** Keystroke savings at the version's slot count and the estimated words a minute; null when missing. */
 export type ReportFigures = {
@@ -10,8 +13,11 @@ export type ReportFigures = {
   wpmWithout: number | null;
 };
 
-const finite = (value: unknown): number | null =>
-  typeof value === 'number' && Number.isFinite(value) ? value : null;
+/** The value when it parses with the report schema's own field schema, else null (z.number() refuses NaN and ±Infinity in zod 4: docs/references.md). */
+const field = <T>(schema: z.ZodType<T>, value: unknown): T | null => {
+  const parsed = schema.safeParse(value);
+  return parsed.success ? parsed.data : null;
+};
 const record = (value: unknown): Record<string, unknown> =>
   typeof value === 'object' && value !== null && !Array.isArray(value)
     ? (value as Record<string, unknown>)
@@ -25,9 +31,10 @@ const record = (value: unknown): Record<string, unknown> =>
 export function reportFigures(metrics: unknown, slots: number): ReportFigures {
   const report = record(metrics);
   const rates = record(report.rates);
+  const { wpmWith, wpmWithout } = rateReportSchema.shape;
   return {
-    keystrokeSavings: finite(record(report.keystrokeSavings)[String(slots)]),
-    wpmWith: finite(rates.wpmWith),
-    wpmWithout: finite(rates.wpmWithout),
+    keystrokeSavings: field(perSlotSchema.valueType, record(report.keystrokeSavings)[String(slots)]),
+    wpmWith: field(wpmWith, rates.wpmWith),
+    wpmWithout: field(wpmWithout, rates.wpmWithout),
   };
 }

@@ -48,7 +48,8 @@ const {
 export type WordSuggestion = { word: string; p: number };
 
 /** Weights of the word mixture's components (each 0..1, summing to 1). */
-export type WordWeights = { personal: number; base: number; lexicon: number; cache: number };
+export type { WordWeights } from '../../schemas/profile-report.schema';
+import type { WordWeights } from '../../schemas/profile-report.schema';
 export const WORD_COMPONENTS = ['personal', 'base', 'lexicon', 'cache'] as const;
 
 /**

@@ -177,6 +177,13 @@ describe('Profile version page', () => {
     expect(screen.getByRole('list', { name: 'History' })).toHaveTextContent('Ready for trial');
   });
 
+  it('shows "cannot be shown" instead of results when the stored report does not parse', async () => {
+    // A report missing most of its figures (and with bits per character as text).
+    await openVersion('clinician', profileVersion({ metrics: { bpcIdeal: '2.4', order: 5 } }));
+    expect(screen.getByText('The results of this version cannot be shown.')).toBeInTheDocument();
+    expect(screen.queryByRole('heading', { name: 'Results' })).not.toBeInTheDocument();
+  });
+
   it('offers the clinician an export link on a trained version, and no sign-off or approval', async () => {
     await openVersion('clinician', profileVersion());
     expect(screen.getByRole('link', { name: 'Export version 1' })).toHaveAttribute(

@@ -43,7 +43,7 @@ export type LoadedEngine = {
   /** The personal model's bytes as trained, to start again from them (resetEngineLearning). */
   personalBytes: Uint8Array;
   /** The frozen base model and its weight, or null without a base. */
-  base: { model: PpmModel; weight: number } | null;
+  base: { model: PpmModel; baseWeight: number } | null;
   /** The client's word model bytes as trained (layouts 3 and 4), null in older files. */
   wordBytes: Uint8Array | null;
   /** The frozen base vocabulary, or null when none was loaded. */
@@ -86,7 +86,7 @@ function isWordWeights(value: unknown): value is WordWeights {
 
 /**
  * Loads a profile version as the profile pipeline uses it: the personal model blended with the
- * frozen base model at the header's λ (`new BlendedModel(personal, base, blendWeight)`), or the
+ * frozen base model at the header's λ (`new BlendedModel(personal, base, baseWeight)`), or the
  * personal model alone when the profile has no base model; and the word-aware list over the
  * file's word model (none in files made before it: then only the base vocabulary's words are
  * offered), the base vocabulary and that character model. The bases never learn; the personal
@@ -126,11 +126,11 @@ export function loadEngine(
     } catch (error) {
       throw new EngineLoadError(`The base model cannot be read: ${messageOf(error)}`);
     }
-    const weight = header.blendWeight;
-    if (!(typeof weight === 'number' && weight >= 0 && weight <= 1)) {
-      throw new EngineLoadError(`The profile file's blend weight must be 0..1, not ${String(weight)}.`);
+    const baseWeight = header.baseWeight;
+    if (!(typeof baseWeight === 'number' && baseWeight >= 0 && baseWeight <= 1)) {
+      throw new EngineLoadError(`The profile file's blend weight must be 0..1, not ${String(baseWeight)}.`);
     }
-    base = { model: baseModel, weight };
+    base = { model: baseModel, baseWeight };
   }
   let baseWords: BaseWords | null = null;
   if (baseWordsBytes) {
@@ -177,7 +177,7 @@ function engineModels(
   base: LoadedEngine['base'],
   o: Pick<LoadedEngine, 'wordBytes' | 'baseWords' | 'wordWeights' | 'caseFold'>,
 ): Pick<LoadedEngine, 'model' | 'predictor'> {
-  const model = base ? new BlendedModel(personal, base.model, base.weight) : personal;
+  const model = base ? new BlendedModel(personal, base.model, base.baseWeight) : personal;
   const words = o.wordBytes ? WordNgramModel.fromBytes(o.wordBytes) : null;
   if (words) words.adaptive = true;
   const predictor = new WordPredictor({

@@ -76,7 +76,7 @@ describe('engine in the worker, on Brown models', () => {
     built = buildTestProfile({
       personalIds: ['cn01', 'cn02', 'cn03'],
       baseIds: ['ca01', 'ca02', 'ca03', 'ca04', 'ca05', 'cj01', 'cj02', 'cj03', 'cj04', 'cj05'],
-      blendWeight: weight,
+      baseWeight: weight,
       slots: 4,
     });
   });
@@ -199,7 +199,7 @@ describe('engine in the worker, on Brown models', () => {
 
   it('uses the personal models alone when the profile has no base model', () => {
     const profile = writeProfileFile(
-      { ...built.header, baseModelSha256: null, blendWeight: 0 },
+      { ...built.header, baseModelSha256: null, baseWeight: 0 },
       serializeModel(built.personal),
       undefined,
       built.wordBytes,
@@ -214,7 +214,7 @@ describe('engine in the worker, on Brown models', () => {
     const folded = buildTestProfile({
       personalIds: ['cn01', 'cn02'],
       baseIds: null,
-      blendWeight: 0,
+      baseWeight: 0,
       caseFold: true,
     });
     const engine = loadEngine(folded.profileBytes, null);

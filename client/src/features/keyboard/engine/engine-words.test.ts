@@ -39,8 +39,8 @@ describe('the word-aware suggestion row', () => {
   let old: ReturnType<typeof buildTestProfile>;
 
   beforeAll(() => {
-    built = buildTestProfile({ personalIds: PERSONAL, baseIds: BASE, blendWeight: 0.35 });
-    old = buildTestProfile({ personalIds: PERSONAL, baseIds: BASE, blendWeight: 0.35, words: false });
+    built = buildTestProfile({ personalIds: PERSONAL, baseIds: BASE, baseWeight: 0.35 });
+    old = buildTestProfile({ personalIds: PERSONAL, baseIds: BASE, baseWeight: 0.35, words: false });
   });
 
   const load = (b: typeof built) => loadEngine(b.profileBytes, b.baseBytes, b.baseWordsBytes);

@@ -23,7 +23,7 @@ describe('useKeyboardEngine', () => {
     built = buildTestProfile({
       personalIds: ['cn01', 'cn02'],
       baseIds: ['ca01', 'ca02', 'ca03'],
-      blendWeight: 0.5,
+      baseWeight: 0.5,
       slots: 3,
     });
     profileGz = gzip9(built.profileBytes);

@@ -5,6 +5,7 @@ import {
   accessMethodLabels,
   createProfileVersionSchema,
   defaultAccessTiming,
+  defaultProfileSettings,
   escapeMethods,
   type ProfileVersion,
 } from '@keyloom/shared';
@@ -96,12 +97,7 @@ export const NewVersionForm = ({ clientId, samples, access, onCancel, onStarted 
         sampleIds: samples.map((sample) => sample.id),
         note: '',
         settings: {
-          order: 5,
-          escape: 'C',
-          exclusion: true,
-          baseWeight: 'auto',
-          slots: 5,
-          caseFold: false,
+          ...defaultProfileSettings,
           access: {
             method: access.method,
             scanIntervalMs: access.scanIntervalMs ?? defaultAccessTiming.scanIntervalMs,

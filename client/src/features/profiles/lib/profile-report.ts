@@ -1,75 +1,8 @@
-import { z } from 'zod';
+import { profileReportSchema, type ProfileReport } from '@keyloom/shared';
 
-// The parts of the engine's ProfileReport (shared/src/engine/profile/README.md) these pages
-// show. Read leniently: a report that lacks them shows "no results" rather than breaking the page.
-const perSlotSchema = z.record(z.string(), z.number());
-const spreadSchema = z.object({ min: z.number(), max: z.number(), std: z.number() });
-
-export const profileReportSchema = z.object({
-  chars: z.number(),
-  documents: z.number().optional(),
-  order: z.number(),
-  escape: z.string(),
-  folds: z.number(),
-  foldNote: z.string().optional(),
-  heldOutChars: z.number().optional(),
-  bpcIdeal: z.number(),
-  bpcIdealSpread: spreadSchema,
-  bpcCoded: z.number(),
-  bpcCodedSpread: spreadSchema,
-  roundTrip: z.boolean().optional(),
-  baseWeight: z.number(),
-  keystrokeSavings: perSlotSchema,
-  kspc: perSlotSchema,
-  oracleSavings: z.number().optional(),
-  ksChars: z.number().optional(),
-  ksNote: z.string().optional(),
-  scanStepsPerChar: z.object({ rowColumn: z.number(), modelOrdered: z.number() }),
-  rates: z.object({
-    wpmWithout: z.number(),
-    wpmWith: z.number(),
-    assumptions: z.object({
-      msPerSelection: z.number(),
-      listReadMs: z.number(),
-      slots: z.number(),
-      defaultTiming: z.boolean(),
-      note: z.string().optional(),
-    }),
-  }),
-  learningCurve: z
-    .object({
-      slots: z.number(),
-      points: z.array(
-        z.object({
-          fraction: z.number(),
-          trainChars: z.number(),
-          bpcIdeal: z.number(),
-          keystrokeSavings: z.number(),
-        }),
-      ),
-    })
-    .nullable()
-    .optional(),
-  baseOnly: z
-    .object({ bpcIdeal: z.number(), keystrokeSavings: perSlotSchema, kspc: perSlotSchema })
-    .nullable(),
-  earlyWords: z.array(z.object({ word: z.string(), count: z.number() })).nullable(),
-  predictor: z.enum(['word', 'char']).optional(),
-  wordWeights: z
-    .object({ personal: z.number(), base: z.number(), lexicon: z.number(), cache: z.number() })
-    .nullable()
-    .optional(),
-  nonWordSlots: z
-    .object({
-      share: z.number(),
-      nonWordSlots: z.number(),
-      slots: z.number(),
-      lists: z.number(),
-      examples: z.array(z.string()),
-    })
-    .optional(),
-});
-export type ProfileReportView = z.infer<typeof profileReportSchema>;
+// The engine's report as these pages read it: the shared schema, read leniently, so a stored
+// report that does not parse shows "no results" rather than breaking the page.
+export type ProfileReportView = ProfileReport;
 
 /** The report of a trained version, or null when there is none (or it is not one we can read). */
 export const readReport = (metrics: Record<string, unknown> | null): ProfileReportView | null => {

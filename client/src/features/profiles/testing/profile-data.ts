@@ -1,4 +1,4 @@
-import type { ProfileVersion } from '@keyloom/shared';
+import { defaultProfileSettings, type ProfileSettings, type ProfileVersion } from '@keyloom/shared';
 import { ASHBY_ID, SAMPLE_ID } from '@/testing/data';
 
 // Invented figures for the Willowmere demo client, in the shape of the engine's ProfileReport
@@ -11,10 +11,17 @@ export const VERSION_2_ID = 'c1a2b3c4-d5e6-4f70-8a9b-0c1d2e3f4a02';
 const perSlot = (values: readonly number[]): Record<string, number> =>
   Object.fromEntries(values.map((value, index) => [String(index + 1), value]));
 
+/** The settings of the demo version (the schema's defaults, with the client's head pointer). */
+const settingsFixture: ProfileSettings = {
+  ...defaultProfileSettings,
+  access: { method: 'head_pointer', keyTimeMs: 1800 },
+};
+
 export const reportFixture = (overrides: Record<string, unknown> = {}): Record<string, unknown> => ({
   engineVersion: 'keyloom-engine/1 (model layout 1, profile report 1)',
   chars: 24_180,
   documents: 6,
+  settings: settingsFixture,
   order: 5,
   escape: 'C',
   adaptive: true,
@@ -88,15 +95,7 @@ export const profileVersion = (overrides: Partial<ProfileVersion> = {}): Profile
   progress: 1,
   stage: 'saving',
   error: null,
-  settings: {
-    order: 5,
-    escape: 'C',
-    exclusion: true,
-    baseWeight: 'auto',
-    slots: 5,
-    caseFold: false,
-    access: { method: 'head_pointer', keyTimeMs: 1800 },
-  },
+  settings: settingsFixture,
   samples: [
     { id: SAMPLE_ID, title: 'Messages to the sailing club', sha256: 'a'.repeat(64), characters: 24_180 },
   ],
@@ -110,5 +109,14 @@ export const profileVersion = (overrides: Partial<ProfileVersion> = {}): Profile
     { status: 'training', at: '2026-09-21T09:00:01.000Z', by: 'Dr. Tomasz Reyes', comment: null },
     { status: 'trained', at: '2026-09-21T09:01:00.000Z', by: null, comment: null },
   ],
+  baseWeight: 0.35,
+  baseModelSha256: 'b'.repeat(64),
+  signedOffBy: null,
+  signedOffAt: null,
+  signOffComment: null,
+  approvedBy: null,
+  approvedAt: null,
+  approvalComment: null,
+  sentBackReason: null,
   ...overrides,
 });

@@ -83,7 +83,7 @@ export function buildTestBaseWords(ids: readonly string[], lexiconWords = 5000):
 
 /** A profile-file header like the API's model download writes (fields fixed at training time). */
 export function testProfileHeader(o: {
-  blendWeight: number;
+  baseWeight: number;
   baseModelSha256: string | null;
   slots?: number;
   caseFold?: boolean;
@@ -99,7 +99,7 @@ export function testProfileHeader(o: {
       caseFold: o.caseFold ?? false,
       access: { method: 'direct' },
     },
-    blendWeight: o.blendWeight,
+    baseWeight: o.baseWeight,
     ...(o.wordWeights ? { wordWeights: o.wordWeights } : {}),
     baseModelSha256: o.baseModelSha256,
     engineVersion: 'test',
@@ -127,7 +127,7 @@ export const gzip9 = (bytes: Uint8Array) => new Uint8Array(gzipSync(bytes, { lev
 export function buildTestProfile(o: {
   personalIds: readonly string[];
   baseIds: readonly string[] | null;
-  blendWeight: number;
+  baseWeight: number;
   slots?: number;
   caseFold?: boolean;
   words?: boolean;
@@ -142,7 +142,7 @@ export function buildTestProfile(o: {
   const baseWords = o.baseIds ? buildTestBaseWords(o.baseIds) : null;
   const baseWordsBytes = baseWords ? serializeBaseWords(baseWords) : null;
   const header = testProfileHeader({
-    blendWeight: o.blendWeight,
+    baseWeight: o.baseWeight,
     baseModelSha256: baseBytes ? sha256Hex(baseBytes) : null,
     slots: o.slots,
     caseFold: o.caseFold,
