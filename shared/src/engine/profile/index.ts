@@ -39,6 +39,8 @@ export {
   writeProfileFile,
   readProfileFile,
   verifyProfileFile,
+  headerVocabulary,
+  profileBlockParts,
   ProfileFileError,
   PROFILE_FILE_MAGIC,
   PROFILE_FILE_VERSION,

@@ -26,6 +26,14 @@ import { offeredNonWords } from '../evaluation/offered-words';
 import type { WordNgramModel } from '../words/word-ngram-model';
 import { type BaseWords, type ListPredictor, WordPredictor, type WordWeights } from '../words/word-predictor';
 import { trainWordModel, tuneWordWeightsOnTail } from '../words/word-training';
+import {
+  additionSentences,
+  blockPartsOf,
+  checkClientVocabulary,
+  EMPTY_VOCABULARY,
+  VocabularyError,
+  type ClientVocabulary,
+} from '../words/client-vocabulary';
 import { scanCosts, type ScanCostResult } from '../evaluation/scan-cost';
 import { CharListPredictor } from '../words/char-list-predictor';
 import { countEarlyWords, EarlyWordRecorder, topEarlyWords, type EarlyWord } from './early-words';
@@ -74,6 +82,11 @@ export type ProfileInput = {
    * and the character model; `char` is the character-only list, kept for comparison.
    */
   predictor?: 'word' | 'char';
+  /**
+   * The clinician's additions (learned into every word model the pipeline trains) and blocks
+   * (applied to every word list it measures). Default none.
+   */
+  vocabulary?: ClientVocabulary;
 };
 
 /** Offered slots that were not words of the vocabulary (lists at word starts and after 1–2 letters). */
@@ -138,6 +151,8 @@ export type ProfileReport = {
   wordWeights: WordWeights | null;
   /** The share of offered slots that were not words, over all folds. */
   nonWordSlots: NonWordSlotsReport;
+  /** Additions and blocks the version was trained with (absent when it had none). */
+  vocabulary?: { added: number; blocked: number };
   /** Characters of all samples after preparation. */
   chars: number;
   documents: number;
@@ -262,6 +277,17 @@ export async function trainAndEvaluateProfile(
   const baseWords = base ? (input.baseWords ?? null) : null;
   const useWords = (input.predictor ?? 'word') === 'word';
   const capitalize = !settings.caseFold;
+  const vocabulary = input.vocabulary ?? EMPTY_VOCABULARY;
+  try {
+    checkClientVocabulary(vocabulary);
+  } catch (error) {
+    if (error instanceof VocabularyError) throw new ProfileInputError(error.message);
+    throw error;
+  }
+  const added = additionSentences(vocabulary.additions, { caseFold: settings.caseFold });
+  const blocks = blockPartsOf(vocabulary.blocks, { caseFold: settings.caseFold });
+  /** The client's word model with the additions learned after the texts. */
+  const wordModelOf = (texts: readonly Uint32Array[]) => trainWordModel(texts, added);
   const slots = settings.slots;
   const ppm: Partial<PpmSettings> = {
     order: settings.order,
@@ -325,7 +351,7 @@ export async function trainAndEvaluateProfile(
       f.personal = trainPersonalModel(ppm, f.train);
       f.weight = weightFor(f.train);
       if (useWords) {
-        f.words = trainWordModel(f.train);
+        f.words = wordModelOf(f.train);
         f.wordWeights = tuneWordWeightsOnTail(f.train, baseWords, true);
       }
     });
@@ -336,7 +362,7 @@ export async function trainAndEvaluateProfile(
     chars * (COST.train + (tuned ? COST.tune : 0) + wordCost),
     () => ({
       model: trainPersonalModel(ppm, allTexts),
-      words: useWords ? trainWordModel(allTexts) : null,
+      words: useWords ? wordModelOf(allTexts) : null,
       wordWeights: useWords ? tuneWordWeightsOnTail(allTexts, baseWords, true) : null,
     }),
   );
@@ -355,6 +381,7 @@ export async function trainAndEvaluateProfile(
           weights: need(f.wordWeights),
           capitalize,
           adaptive: true,
+          ...blocks,
         })
       : fresh(f);
   /** The base alone as shipped (frozen): base vocabulary and base character model, or the base's character list. */
@@ -367,6 +394,7 @@ export async function trainAndEvaluateProfile(
           weights: need(f.wordWeights),
           capitalize,
           adaptive: false,
+          ...blocks,
         })
       : (base as NextSymbolModel);
   for (const f of folds) {
@@ -426,7 +454,7 @@ export async function trainAndEvaluateProfile(
       Math.min(f.ksText.length, NON_WORD_CHECK_WORDS * 6) * COST.ks * 0.3,
       () => {
         const vocabulary = new WordPredictor({
-          personal: f.words ?? trainWordModel(f.train),
+          personal: f.words ?? wordModelOf(f.train),
           base: baseWords,
           char: null,
           weights: { personal: 1, base: 1, lexicon: 1, cache: 0 },
@@ -441,6 +469,7 @@ export async function trainAndEvaluateProfile(
               weights: need(f.wordWeights),
               capitalize,
               adaptive: false,
+              ...blocks,
             })
           : new CharListPredictor(freshModel(need(f.personal), base, f.weight, false), false);
         const r = offeredNonWords(
@@ -485,12 +514,13 @@ export async function trainAndEvaluateProfile(
           });
           const list = useWords
             ? new WordPredictor({
-                personal: trainWordModel(texts),
+                personal: wordModelOf(texts),
                 base: baseWords,
                 char: freshModel(personal, base, weight, true),
                 weights: tuneWordWeightsOnTail(texts, baseWords, true),
                 capitalize,
                 adaptive: true,
+                ...blocks,
               })
             : freshModel(personal, base, weight, true);
           const ks = simulateKeystrokes(list, curveFold.ksText, {
@@ -564,6 +594,9 @@ export async function trainAndEvaluateProfile(
     engineVersion: ENGINE_VERSION,
     predictor: useWords ? 'word' : 'char',
     wordWeights: final.wordWeights,
+    ...(vocabulary.additions.length + vocabulary.blocks.length > 0
+      ? { vocabulary: { added: vocabulary.additions.length, blocked: vocabulary.blocks.length } }
+      : {}),
     nonWordSlots: {
       share: round(nonWord.slots === 0 ? 0 : nonWord.nonWordSlots / nonWord.slots),
       nonWordSlots: nonWord.nonWordSlots,

@@ -1,0 +1,137 @@
+// Likely misspellings among the client's words: words the base word list does not know that are
+// one or two edits (optimal string alignment: insertion, deletion, substitution, or swapping two
+// neighbouring letters, Damerau 1964) from a common word of the list.
+//
+// Candidates are found with a deletion-neighbourhood index (symmetric delete, Garbe 2012): every
+// common word is stored under itself and every string made by deleting up to 2 of its letters; a
+// client's word looks up itself and its own deletions, and every hit is checked with the
+// `damerau-levenshtein` package. Two strings within distance 2 always share such a string.
+import damerauLevenshtein from 'damerau-levenshtein';
+
+/** A word of the client's vocabulary (VocabularyEntry fits). */
+export type PersonalWord = { key: string; count: number; form?: string };
+
+/** The base word list: membership and frequency in occurrences per million words (SUBTLEX-US's scale). */
+export type KnownWords = {
+  has(key: string): boolean;
+  frequency(key: string): number;
+  /** Every key of the list (the index is built from those frequent enough). */
+  keys: Iterable<string>;
+};
+
+export type MisspellingOptions = {
+  /**
+   * A known word must be at least this frequent (per million words) to be a correction: 1 per
+   * million, so the target is a common word, much more frequent than the client's word, which the
+   * list does not hold at all (common practice, no source).
+   */
+  minFrequency?: number;
+  /** Corrections kept per word (default 3). */
+  perWord?: number;
+  /**
+   * Words shorter than this are not checked (default 3): a one- or two-letter string is one edit
+   * from dozens of words (common practice, no source).
+   */
+  minLength?: number;
+  /**
+   * Distance 2 is allowed only for words at least this long (default 5): a short word is two edits
+   * from too many others (common practice, no source; spell checkers scale the distance allowed
+   * with the word's length).
+   */
+  twoEditLength?: number;
+  /**
+   * A word written with capitals of its own ("Marcy") at least this many times is taken as the
+   * client's own name and not flagged (default 5; common practice, no source). Other words are
+   * flagged however often they were written: a misspelling made every time is worth reviewing.
+   */
+  nameCount?: number;
+};
+
+export type MisspellingCorrection = { word: string; distance: number; frequency: number };
+export type MisspellingCandidate = { key: string; count: number; corrections: MisspellingCorrection[] };
+
+const DEFAULTS = { minFrequency: 1, perWord: 3, minLength: 3, twoEditLength: 5, nameCount: 5 };
+const MAX_DISTANCE = 2;
+
+/** The strings made by deleting up to `depth` characters (code units; words of the index are keys). */
+function deletions(word: string, depth: number, into: Set<string>): Set<string> {
+  into.add(word);
+  if (depth === 0 || word.length <= 1) return into;
+  for (let i = 0; i < word.length; i++) {
+    const shorter = word.slice(0, i) + word.slice(i + 1);
+    if (!into.has(shorter)) deletions(shorter, depth - 1, into);
+  }
+  return into;
+}
+
+/** An index of the known words frequent enough to be corrections, by their deletion neighbourhoods. */
+export class MisspellingIndex {
+  private readonly index = new Map<string, string[]>();
+  readonly words: number;
+
+  constructor(
+    readonly known: KnownWords,
+    readonly minFrequency = DEFAULTS.minFrequency,
+  ) {
+    let words = 0;
+    for (const key of known.keys) {
+      if (known.frequency(key) < minFrequency || !/^\p{L}/u.test(key)) continue;
+      words++;
+      for (const d of deletions(key, MAX_DISTANCE, new Set())) {
+        const list = this.index.get(d);
+        if (list) list.push(key);
+        else this.index.set(d, [key]);
+      }
+    }
+    this.words = words;
+  }
+
+  /** Known words within `maxDistance` edits of `word`, nearest and then commonest first. */
+  near(word: string, maxDistance: number): MisspellingCorrection[] {
+    const seen = new Set<string>();
+    const out: MisspellingCorrection[] = [];
+    for (const d of deletions(word, maxDistance, new Set())) {
+      for (const k of this.index.get(d) ?? []) {
+        if (seen.has(k) || k === word) continue;
+        seen.add(k);
+        if (Math.abs(k.length - word.length) > maxDistance) continue;
+        const distance = damerauLevenshtein(word, k).steps;
+        if (distance >= 1 && distance <= maxDistance)
+          out.push({ word: k, distance, frequency: this.known.frequency(k) });
+      }
+    }
+    return out.sort(
+      (a, b) => a.distance - b.distance || b.frequency - a.frequency || (a.word < b.word ? -1 : 1),
+    );
+  }
+}
+
+/**
+ * The client's words that look like misspellings of common known words, with up to `perWord`
+ * corrections each; ranked by the nearest correction's distance, then by how often the client
+ * wrote the word. Pass a MisspellingIndex as `known` to reuse one across calls.
+ */
+export function misspellingCandidates(
+  personal: readonly PersonalWord[],
+  known: KnownWords | MisspellingIndex,
+  options: MisspellingOptions = {},
+): MisspellingCandidate[] {
+  const o = { ...DEFAULTS, ...options };
+  const index =
+    known instanceof MisspellingIndex && known.minFrequency === o.minFrequency
+      ? known
+      : new MisspellingIndex(known instanceof MisspellingIndex ? known.known : known, o.minFrequency);
+  const out: MisspellingCandidate[] = [];
+  for (const w of personal) {
+    const key = w.key;
+    if (key.length < o.minLength || index.known.has(key) || !/^\p{L}[\p{L}'-]*$/u.test(key)) continue;
+    const ownName = w.form !== undefined && w.form !== w.form.toLowerCase() && w.count >= o.nameCount;
+    if (ownName) continue;
+    const corrections = index.near(key, key.length >= o.twoEditLength ? 2 : 1).slice(0, o.perWord);
+    if (corrections.length > 0) out.push({ key, count: w.count, corrections });
+  }
+  return out.sort(
+    (a, b) =>
+      a.corrections[0].distance - b.corrections[0].distance || b.count - a.count || (a.key < b.key ? -1 : 1),
+  );
+}
