@@ -1,4 +1,5 @@
-// Likely misspellings among the client's words: words the base word list does not know that are
+// Likely misspellings among the client's words: words the base word list does not know, or knows
+// only as rare (subtitle lists hold typos too: SUBTLEX-US has "untill" 15 times), that are
 // one or two edits (optimal string alignment: insertion, deletion, substitution, or swapping two
 // neighbouring letters, Damerau 1964) from a common word of the list.
 //
@@ -21,11 +22,20 @@ export type KnownWords = {
 
 export type MisspellingOptions = {
   /**
-   * A known word must be at least this frequent (per million words) to be a correction: 1 per
-   * million, so the target is a common word, much more frequent than the client's word, which the
-   * list does not hold at all (common practice, no source).
+   * Known words at least this frequent (per million words) are indexed as possible corrections
+   * (default 1; a correction must also pass `ratio`, so the index may keep more than is used).
    */
   minFrequency?: number;
+  /**
+   * Words the list knows at this frequency or more (per million) are never flagged (default 1): only
+   * unknown or rare words are checked (common practice, no source).
+   */
+  rareBelow?: number;
+  /**
+   * A correction must be at least this many times as frequent as a rare word the list holds
+   * (default 50; a word it does not hold needs only `minFrequency`; common practice, no source).
+   */
+  ratio?: number;
   /** Corrections kept per word (default 3). */
   perWord?: number;
   /**
@@ -50,7 +60,15 @@ export type MisspellingOptions = {
 export type MisspellingCorrection = { word: string; distance: number; frequency: number };
 export type MisspellingCandidate = { key: string; count: number; corrections: MisspellingCorrection[] };
 
-const DEFAULTS = { minFrequency: 1, perWord: 3, minLength: 3, twoEditLength: 5, nameCount: 5 };
+const DEFAULTS = {
+  minFrequency: 1,
+  rareBelow: 1,
+  ratio: 50,
+  perWord: 3,
+  minLength: 3,
+  twoEditLength: 5,
+  nameCount: 5,
+};
 const MAX_DISTANCE = 2;
 
 /** The strings made by deleting up to `depth` characters (code units; words of the index are keys). */
@@ -124,10 +142,16 @@ export function misspellingCandidates(
   const out: MisspellingCandidate[] = [];
   for (const w of personal) {
     const key = w.key;
-    if (key.length < o.minLength || index.known.has(key) || !/^\p{L}[\p{L}'-]*$/u.test(key)) continue;
+    if (key.length < o.minLength || !/^\p{L}[\p{L}'-]*$/u.test(key)) continue;
+    const own = index.known.has(key) ? index.known.frequency(key) : 0;
+    if (own >= o.rareBelow) continue;
     const ownName = w.form !== undefined && w.form !== w.form.toLowerCase() && w.count >= o.nameCount;
     if (ownName) continue;
-    const corrections = index.near(key, key.length >= o.twoEditLength ? 2 : 1).slice(0, o.perWord);
+    const floor = Math.max(o.minFrequency, o.ratio * own);
+    const corrections = index
+      .near(key, key.length >= o.twoEditLength ? 2 : 1)
+      .filter((c) => c.frequency >= floor)
+      .slice(0, o.perWord);
     if (corrections.length > 0) out.push({ key, count: w.count, corrections });
   }
   return out.sort(
