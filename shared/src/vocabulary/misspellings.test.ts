@@ -71,17 +71,36 @@ describe('misspellingCandidates', () => {
     };
     expect(misspellingCandidates([{ key: 'marcy', count: 40, form: 'Marcy' }], known)).toEqual([]);
     expect(
-      misspellingCandidates([{ key: 'marcy', count: 2, form: 'Marcy' }], known)[0].corrections[0].word,
+      misspellingCandidates([{ key: 'marcy', count: 1, form: 'Marcy' }], known)[0].corrections[0].word,
     ).toBe('mercy');
     // Written 40 times in lower case: a habit worth reviewing, not a name.
     expect(misspellingCandidates([{ key: 'marcy', count: 40, form: 'marcy' }], known)).toHaveLength(1);
   });
 
   it('skips short words, and allows two edits only from five letters', () => {
-    expect(misspellingCandidates([{ key: 'hte', count: 3 }], index).map((c) => c.key)).toEqual(['hte']);
+    expect(
+      misspellingCandidates([{ key: 'teh', count: 3 }], index).map((c) => c.corrections[0].word),
+    ).toEqual(['the']);
     expect(misspellingCandidates([{ key: 'th', count: 3 }], index)).toEqual([]);
     const two = misspellingCandidates([{ key: 'bcaus', count: 3 }], index);
     expect(two[0]?.corrections[0]).toMatchObject({ word: 'because', distance: 2 });
     expect(misspellingCandidates([{ key: 'wxch', count: 3 }], index)).toEqual([]);
+  });
+
+  it('takes possessives and compounds of known or own words, and plurals, as written', () => {
+    const own = [
+      { key: "pepper's", count: 4 },
+      { key: 'pepper', count: 30, form: 'Pepper' },
+      { key: 'e-mail', count: 2 },
+      { key: 'becuase', count: 1 },
+    ];
+    expect(misspellingCandidates(own, index).map((c) => c.key)).toEqual(['becuase']);
+    const plural: KnownWords = {
+      has: () => false,
+      frequency: (k) => (k === 'voicing' ? 5 : 0),
+      keys: ['voicing'],
+    };
+    expect(misspellingCandidates([{ key: 'voicings', count: 3 }], plural)).toEqual([]);
+    expect(misspellingCandidates([{ key: 'voicinng', count: 3 }], plural)).toHaveLength(1);
   });
 });

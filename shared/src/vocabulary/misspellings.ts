@@ -7,6 +7,11 @@
 // common word is stored under itself and every string made by deleting up to 2 of its letters; a
 // client's word looks up itself and its own deletions, and every hit is checked with the
 // `damerau-levenshtein` package. Two strings within distance 2 always share such a string.
+//
+// A correction keeps the word's first letter: misspellings rarely change it (Pollock & Zamora 1984
+// report first-letter errors as rare in their corpus of errors; from memory), and allowing it
+// paired names and rare words with unrelated common ones in tests ("nods" → "gods"). So the first
+// letter is never deleted in the index, which also keeps its lists short.
 import damerauLevenshtein from 'damerau-levenshtein';
 
 /** A word of the client's vocabulary (VocabularyEntry fits). */
@@ -27,13 +32,15 @@ export type MisspellingOptions = {
    */
   minFrequency?: number;
   /**
-   * Words the list knows at this frequency or more (per million) are never flagged (default 1): only
-   * unknown or rare words are checked (common practice, no source).
+   * Words the list holds at this frequency or more (per million) are never flagged (default 0.5,
+   * about 25 times in SUBTLEX-US's 50 million words; common practice, no source). A word the list
+   * holds with frequency 0 (a base-corpus word missing from the word list) is trusted too.
    */
   rareBelow?: number;
   /**
-   * A correction must be at least this many times as frequent as a rare word the list holds
-   * (default 50; a word it does not hold needs only `minFrequency`; common practice, no source).
+   * A rare word the list holds is flagged only for a correction one edit away and at least this
+   * many times as frequent (default 100; common practice, no source). A word the list does not
+   * hold needs only `minFrequency`.
    */
   ratio?: number;
   /** Corrections kept per word (default 3). */
@@ -50,9 +57,10 @@ export type MisspellingOptions = {
    */
   twoEditLength?: number;
   /**
-   * A word written with capitals of its own ("Marcy") at least this many times is taken as the
-   * client's own name and not flagged (default 5; common practice, no source). Other words are
-   * flagged however often they were written: a misspelling made every time is worth reviewing.
+   * A word written with capitals of its own mid-sentence ("Marcy") at least this many times is
+   * taken as the client's own name and not flagged (default 2: a slip is rarely capitalised the same
+   * way twice; common practice, no source). Other words are flagged however often they were
+   * written: a misspelling made every time is worth reviewing.
    */
   nameCount?: number;
 };
@@ -71,11 +79,11 @@ const DEFAULTS = {
 };
 const MAX_DISTANCE = 2;
 
-/** The strings made by deleting up to `depth` characters (code units; words of the index are keys). */
+/** The strings made by deleting up to `depth` characters after the first (code units). */
 function deletions(word: string, depth: number, into: Set<string>): Set<string> {
   into.add(word);
-  if (depth === 0 || word.length <= 1) return into;
-  for (let i = 0; i < word.length; i++) {
+  if (depth === 0 || word.length <= 2) return into;
+  for (let i = 1; i < word.length; i++) {
     const shorter = word.slice(0, i) + word.slice(i + 1);
     if (!into.has(shorter)) deletions(shorter, depth - 1, into);
   }
@@ -139,18 +147,26 @@ export function misspellingCandidates(
     known instanceof MisspellingIndex && known.minFrequency === o.minFrequency
       ? known
       : new MisspellingIndex(known instanceof MisspellingIndex ? known.known : known, o.minFrequency);
+  const personalKeys = new Set(personal.map((w) => w.key));
+  const isWord = (part: string): boolean => index.known.has(part) || personalKeys.has(part);
   const out: MisspellingCandidate[] = [];
   for (const w of personal) {
     const key = w.key;
     if (key.length < o.minLength || !/^\p{L}[\p{L}'-]*$/u.test(key)) continue;
-    const own = index.known.has(key) ? index.known.frequency(key) : 0;
-    if (own >= o.rareBelow) continue;
+    // A possessive or a compound of words that are known or the client's ("Pepper's", "e-mail")
+    // is taken as written (common practice, no source).
+    const parts = key.split(/['-]/);
+    if (parts.length > 1 && parts.every((part) => part === '' || part === 's' || isWord(part))) continue;
+    const held = index.known.has(key);
+    const own = held ? index.known.frequency(key) : 0;
+    if (held && !(own > 0 && own < o.rareBelow)) continue;
     const ownName = w.form !== undefined && w.form !== w.form.toLowerCase() && w.count >= o.nameCount;
     if (ownName) continue;
     const floor = Math.max(o.minFrequency, o.ratio * own);
     const corrections = index
-      .near(key, key.length >= o.twoEditLength ? 2 : 1)
-      .filter((c) => c.frequency >= floor)
+      .near(key, !held && key.length >= o.twoEditLength ? 2 : 1)
+      // A plural and its singular are both words ("meanings", "meaning"; common practice, no source).
+      .filter((c) => c.frequency >= floor && c.word + 's' !== key && key + 's' !== c.word)
       .slice(0, o.perWord);
     if (corrections.length > 0) out.push({ key, count: w.count, corrections });
   }
