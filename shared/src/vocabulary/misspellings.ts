@@ -7,6 +7,7 @@
 // common word is stored under itself and every string made by deleting up to 2 of its letters; a
 // client's word looks up itself and its own deletions, and every hit is checked with the
 // `damerau-levenshtein` package. Two strings within distance 2 always share such a string.
+// Sources: docs/references.md §4.
 //
 // A correction keeps the word's first letter: misspellings rarely change it (Pollock & Zamora 1984
 // report first-letter errors as rare in their corpus of errors; from memory), and allowing it

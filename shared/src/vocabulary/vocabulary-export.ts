@@ -1,5 +1,6 @@
 // The client's vocabulary as open generic files for an everyday device: CSV (RFC 4180, written by
 // papaparse's `unparse`, UTF-8) and plain text, one word per line. One writer for the API and tests.
+// Sources: docs/references.md §6.
 import Papa from 'papaparse';
 import type { VocabularyAddition } from '../engine/words/client-vocabulary';
 import { wordKey } from '../engine/words/word-tokens';
