@@ -14,6 +14,7 @@ export * from './engine/search/index';
 export * from './engine/evaluation/index';
 export * from './engine/words/index';
 export * from './engine/profile/index';
+export * from './vocabulary/index';
 export * from './samples/index';
 export * from './schemas/profile-settings.schema';
 export * from './schemas/profile-report.schema';

@@ -122,6 +122,8 @@ export const profileReportSchema = z.object({
   wordWeights: wordWeightsSchema.nullable().optional(),
   /** The share of offered slots that were not words, over all folds. */
   nonWordSlots: nonWordSlotsReportSchema.optional(),
+  /** How many words the clinician added and blocked for this version (absent when none). */
+  vocabulary: z.object({ added: z.number().int(), blocked: z.number().int() }).optional(),
   /** Characters of all samples after preparation. */
   chars: z.number(),
   documents: z.number(),

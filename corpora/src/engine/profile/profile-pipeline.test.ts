@@ -379,6 +379,46 @@ describe('trainAndEvaluateProfile and the word list', () => {
   });
 });
 
+describe('trainAndEvaluateProfile with the clinician’s additions and blocks', () => {
+  const run = (vocabulary?: Parameters<typeof trainAndEvaluateProfile>[0]['vocabulary']) =>
+    trainAndEvaluateProfile({
+      documents,
+      settings,
+      base,
+      baseWords,
+      folds: 2,
+      ksSampleChars: 600,
+      vocabulary,
+    });
+
+  it('learns additions into the word model, applies blocks to the simulation, and counts both', async () => {
+    const plain = await run();
+    expect(plain.report.vocabulary).toBeUndefined();
+    const none = await run({ additions: [], blocks: [] });
+    expect(none.report.keystrokeSavings).toEqual(plain.report.keystrokeSavings);
+    expect(none.report.vocabulary).toBeUndefined();
+
+    const edited = await run({
+      additions: [{ text: 'Dr Okafor', weight: 5 }, { text: 'St Anne’s hospice' }],
+      blocks: [{ word: 'Pepper' }, { word: 'regatta', replacement: 'race' }],
+    });
+    expect(edited.report.vocabulary).toEqual({ added: 2, blocked: 2 });
+    const words = WordNgramModel.fromBytes(edited.wordModelBytes as Uint8Array);
+    expect(words.counts[words.idOf('okafor')]).toBe(5);
+    expect(words.counts[words.idOf('hospice')]).toBe(3);
+    expect(words.probability('<s>', 'dr', 'okafor')).toBeGreaterThan(0.5);
+    // "Pepper" (in every sample) can no longer be selected, so fewer keystrokes are saved.
+    expect(edited.report.keystrokeSavings['5']).toBeLessThan(plain.report.keystrokeSavings['5']);
+  });
+
+  it('refuses an unusable vocabulary with ProfileInputError', async () => {
+    await expect(run({ additions: [{ text: '...' }], blocks: [] })).rejects.toThrow(ProfileInputError);
+    await expect(run({ additions: [], blocks: [{ word: 'a', replacement: 'b c' }] })).rejects.toThrow(
+      /one word/,
+    );
+  });
+});
+
 describe('accessTiming', () => {
   // Keyloom's own convention (no outside source): a head pointer's record keeps a time per key.
   it('takes a head pointer’s time per key, and its dwell time only when that is all there is', () => {

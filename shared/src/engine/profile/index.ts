@@ -40,6 +40,8 @@ export {
   writeProfileFile,
   readProfileFile,
   verifyProfileFile,
+  headerVocabulary,
+  profileBlockParts,
   ProfileFileError,
   PROFILE_FILE_MAGIC,
   PROFILE_FILE_VERSION,

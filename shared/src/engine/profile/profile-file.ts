@@ -28,6 +28,13 @@ import { crc32 } from '../crc32';
 import { deserializeModel } from '../model-serialization';
 import { codePointsOf, stringFromCodePoints } from '../text-preparation';
 import { decodeUtf8, encodeUtf8 } from '../utf8-codec';
+import {
+  blockPartsOf,
+  checkClientVocabulary,
+  EMPTY_VOCABULARY,
+  type BlockParts,
+  type ClientVocabulary,
+} from '../words/client-vocabulary';
 import { WordNgramModel } from '../words/word-ngram-model';
 
 export const PROFILE_FILE_MAGIC = 'KLPF';
@@ -57,6 +64,12 @@ export type ProfileFileHeader = {
   baseWeight: number;
   /** Weights of the word-aware list's mixture (layouts 3 and 4; absent in older files). */
   wordWeights?: { personal: number; base: number; lexicon: number; cache: number };
+  /**
+   * The clinician's additions and blocks the version was trained with (layouts 3 and 4; absent in
+   * older files, read as none). Additions are already learned into the word model; blocks are
+   * applied by whatever builds the list from the file (profileBlockParts).
+   */
+  vocabulary?: ClientVocabulary;
   /** SHA-256 (hex) of the base model file the profile was trained beside, or null. */
   baseModelSha256: string | null;
   /** SHA-256 (hex) of the base vocabulary file the word model was trained beside (layouts 3 and 4 only). */
@@ -265,6 +278,7 @@ function withCurrentNames(header: ProfileFileHeader & { blendWeight?: number }):
 /** readProfileFile, then loads the model to be sure it deserialises (ProfileFileError when it does not). */
 export function verifyProfileFile(bytes: Uint8Array): ProfileFileContents {
   const { header, model, words, checksum, signature, signedBytes } = readProfileFile(bytes);
+  headerVocabulary(header);
   let loaded;
   try {
     loaded = deserializeModel(model);
@@ -293,4 +307,57 @@ export function verifyProfileFile(bytes: Uint8Array): ProfileFileContents {
     signature,
     signedBytes,
   };
+}
+
+function isStringOrAbsent(x: unknown): boolean {
+  return x === undefined || typeof x === 'string';
+}
+
+/**
+ * The additions and blocks a profile file's header carries (none for an older file without the
+ * field); ProfileFileError when the field is there but not a usable vocabulary.
+ */
+export function headerVocabulary(header: ProfileFileHeader): ClientVocabulary {
+  const v: unknown = (header as { vocabulary?: unknown }).vocabulary;
+  if (v === undefined) return EMPTY_VOCABULARY;
+  const o = v as { additions?: unknown; blocks?: unknown };
+  const ok =
+    typeof v === 'object' &&
+    v !== null &&
+    Array.isArray(o.additions) &&
+    Array.isArray(o.blocks) &&
+    o.additions.every(
+      (a: unknown) =>
+        typeof a === 'object' &&
+        a !== null &&
+        typeof (a as VocabularyShape).text === 'string' &&
+        ((a as VocabularyShape).weight === undefined || typeof (a as VocabularyShape).weight === 'number'),
+    ) &&
+    o.blocks.every(
+      (b: unknown) =>
+        typeof b === 'object' &&
+        b !== null &&
+        typeof (b as VocabularyShape).word === 'string' &&
+        isStringOrAbsent((b as VocabularyShape).replacement),
+    );
+  if (!ok) throw new ProfileFileError('The header’s vocabulary must list additions and blocks.');
+  const vocabulary = v as ClientVocabulary;
+  try {
+    checkClientVocabulary(vocabulary);
+  } catch (error) {
+    throw new ProfileFileError(`The header’s vocabulary cannot be used: ${(error as Error).message}`);
+  }
+  return vocabulary;
+}
+
+type VocabularyShape = { text?: unknown; weight?: unknown; word?: unknown; replacement?: unknown };
+
+/**
+ * The blocks of a profile file as WordPredictor parts (`blocked`, `replacements`): spread them into
+ * the parts of every list built from the file. Replacements are lower-cased for a case-folded
+ * profile (settings.caseFold).
+ */
+export function profileBlockParts(header: ProfileFileHeader): BlockParts {
+  const settings = header.settings as { caseFold?: unknown } | null;
+  return blockPartsOf(headerVocabulary(header).blocks, { caseFold: settings?.caseFold === true });
 }

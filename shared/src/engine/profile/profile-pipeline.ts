@@ -36,6 +36,14 @@ import { offeredNonWords } from '../evaluation/offered-words';
 import type { WordNgramModel } from '../words/word-ngram-model';
 import { type BaseWords, type ListPredictor, WordPredictor, type WordWeights } from '../words/word-predictor';
 import { trainWordModel, tuneWordWeightsOnTail } from '../words/word-training';
+import {
+  additionSentences,
+  blockPartsOf,
+  checkClientVocabulary,
+  EMPTY_VOCABULARY,
+  VocabularyError,
+  type ClientVocabulary,
+} from '../words/client-vocabulary';
 import { scanCosts, type ScanCostResult } from '../evaluation/scan-cost';
 import { CharListPredictor } from '../words/char-list-predictor';
 import { countEarlyWords, EarlyWordRecorder, topEarlyWords } from './early-words';
@@ -84,6 +92,11 @@ export type ProfileInput = {
    * and the character model; `char` is the character-only list, kept for comparison.
    */
   predictor?: 'word' | 'char';
+  /**
+   * The clinician's additions (learned into every word model the pipeline trains) and blocks
+   * (applied to every word list it measures). Default none.
+   */
+  vocabulary?: ClientVocabulary;
 };
 
 // The report's types are inferred from its schema (shared/src/schemas/profile-report.schema.ts).
@@ -180,6 +193,17 @@ export async function trainAndEvaluateProfile(
   const baseWords = base ? (input.baseWords ?? null) : null;
   const useWords = (input.predictor ?? 'word') === 'word';
   const capitalize = !settings.caseFold;
+  const vocabulary = input.vocabulary ?? EMPTY_VOCABULARY;
+  try {
+    checkClientVocabulary(vocabulary);
+  } catch (error) {
+    if (error instanceof VocabularyError) throw new ProfileInputError(error.message);
+    throw error;
+  }
+  const added = additionSentences(vocabulary.additions, { caseFold: settings.caseFold });
+  const blocks = blockPartsOf(vocabulary.blocks, { caseFold: settings.caseFold });
+  /** The client's word model with the additions learned after the texts. */
+  const wordModelOf = (texts: readonly Uint32Array[]) => trainWordModel(texts, added);
   const slots = settings.slots;
   const ppm: Partial<PpmSettings> = {
     order: settings.order,
@@ -243,7 +267,7 @@ export async function trainAndEvaluateProfile(
       f.personal = trainPersonalModel(ppm, f.train);
       f.baseWeight = baseWeightFor(f.train);
       if (useWords) {
-        f.words = trainWordModel(f.train);
+        f.words = wordModelOf(f.train);
         f.wordWeights = tuneWordWeightsOnTail(f.train, baseWords, true);
       }
     });
@@ -254,7 +278,7 @@ export async function trainAndEvaluateProfile(
     chars * (COST.train + (tuned ? COST.tune : 0) + wordCost),
     () => ({
       model: trainPersonalModel(ppm, allTexts),
-      words: useWords ? trainWordModel(allTexts) : null,
+      words: useWords ? wordModelOf(allTexts) : null,
       wordWeights: useWords ? tuneWordWeightsOnTail(allTexts, baseWords, true) : null,
     }),
   );
@@ -273,6 +297,7 @@ export async function trainAndEvaluateProfile(
           weights: need(f.wordWeights),
           capitalize,
           adaptive: true,
+          ...blocks,
         })
       : fresh(f);
   /** The base alone as shipped (frozen): base vocabulary and base character model, or the base's character list. */
@@ -285,6 +310,7 @@ export async function trainAndEvaluateProfile(
           weights: need(f.wordWeights),
           capitalize,
           adaptive: false,
+          ...blocks,
         })
       : (base as NextSymbolModel);
   for (const f of folds) {
@@ -344,7 +370,7 @@ export async function trainAndEvaluateProfile(
       Math.min(f.ksText.length, NON_WORD_CHECK_WORDS * 6) * COST.ks * 0.3,
       () => {
         const vocabulary = new WordPredictor({
-          personal: f.words ?? trainWordModel(f.train),
+          personal: f.words ?? wordModelOf(f.train),
           base: baseWords,
           char: null,
           weights: { personal: 1, base: 1, lexicon: 1, cache: 0 },
@@ -359,6 +385,7 @@ export async function trainAndEvaluateProfile(
               weights: need(f.wordWeights),
               capitalize,
               adaptive: false,
+              ...blocks,
             })
           : new CharListPredictor(freshModel(need(f.personal), base, f.baseWeight, false), false);
         const r = offeredNonWords(
@@ -403,12 +430,13 @@ export async function trainAndEvaluateProfile(
           });
           const list = useWords
             ? new WordPredictor({
-                personal: trainWordModel(texts),
+                personal: wordModelOf(texts),
                 base: baseWords,
                 char: freshModel(personal, base, baseWeight, true),
                 weights: tuneWordWeightsOnTail(texts, baseWords, true),
                 capitalize,
                 adaptive: true,
+                ...blocks,
               })
             : freshModel(personal, base, baseWeight, true);
           const ks = simulateKeystrokes(list, curveFold.ksText, {
@@ -482,6 +510,9 @@ export async function trainAndEvaluateProfile(
     engineVersion: ENGINE_VERSION,
     predictor: useWords ? 'word' : 'char',
     wordWeights: final.wordWeights,
+    ...(vocabulary.additions.length + vocabulary.blocks.length > 0
+      ? { vocabulary: { added: vocabulary.additions.length, blocked: vocabulary.blocks.length } }
+      : {}),
     nonWordSlots: {
       share: round(nonWord.slots === 0 ? 0 : nonWord.nonWordSlots / nonWord.slots),
       nonWordSlots: nonWord.nonWordSlots,

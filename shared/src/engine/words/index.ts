@@ -34,3 +34,14 @@ export {
 export type { ComponentTable } from './mixture-weights';
 export { trainWordModel, tuneWordWeightsOnTail } from './word-training';
 export { serializeBaseWords, deserializeBaseWords } from './base-words-file';
+export {
+  additionSentences,
+  blockPartsOf,
+  checkClientVocabulary,
+  DEFAULT_ADDITION_WEIGHT,
+  EMPTY_VOCABULARY,
+  MAX_ADDITION_WEIGHT,
+  MAX_ADDITION_WORDS,
+  VocabularyError,
+} from './client-vocabulary';
+export type { BlockParts, ClientVocabulary, VocabularyAddition, VocabularyBlock } from './client-vocabulary';

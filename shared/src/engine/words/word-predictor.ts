@@ -76,8 +76,14 @@ export type WordPredictorParts = {
   capitalize: boolean;
   /** Learn what is typed: finished words enter the client's model and the cache. */
   adaptive: boolean;
-  /** Words never offered (keys). */
+  /** Words never offered (keys), from any component. */
   blocked?: ReadonlySet<string>;
+  /**
+   * Per blocked key, the written form offered in its place: the blocked word is ranked as usual
+   * and the replacement shown where it ranked (once: a replacement already in the list is not
+   * repeated). A key here must also be in `blocked`.
+   */
+  replacements?: ReadonlyMap<string, string>;
 };
 
 /** A list source: what the keystroke simulator, the CLI and the test keyboard ask. */
@@ -157,6 +163,7 @@ export class WordPredictor implements ListPredictor {
   readonly adaptive: boolean;
   readonly cache = new RecencyCache();
   private readonly blocked: ReadonlySet<string>;
+  private readonly replacements: ReadonlyMap<string, string>;
   private readonly personalIndex: PrefixIndex;
   private readonly baseIndex: BaseIndex | null;
   private readonly baseMemo = new Map<string, string[]>();
@@ -174,6 +181,13 @@ export class WordPredictor implements ListPredictor {
     this.capitalize = parts.capitalize;
     this.adaptive = parts.adaptive;
     this.blocked = parts.blocked ?? new Set();
+    this.replacements = parts.replacements ?? new Map();
+    for (const [k, r] of this.replacements) {
+      if (!this.blocked.has(k))
+        throw new RangeError(`word predictor: "${k}" has a replacement but is not blocked`);
+      if (this.blocked.has(wordKey(r)))
+        throw new RangeError(`word predictor: the replacement "${r}" is blocked`);
+    }
     this.weights = effectiveWeights(parts);
     const beta = parts.char ? (parts.charExponent ?? CHAR_EXPONENT) : 0;
     if (!(beta >= 0 && beta <= 1)) throw new RangeError(`charExponent must be 0..1, got ${beta}`);
@@ -327,7 +341,8 @@ export class WordPredictor implements ListPredictor {
 
     const scored: Scored[] = [];
     for (const key of candidates) {
-      if (!isOfferable(key) || this.blocked.has(key)) continue;
+      // A blocked word with a replacement keeps its place; the replacement is shown there.
+      if (!isOfferable(key) || (this.blocked.has(key) && !this.replacements.has(key))) continue;
       const s = this.wordScore(key, pu, pv, bu, bv);
       if (s > 0) scored.push({ key, s });
     }
@@ -354,13 +369,24 @@ export class WordPredictor implements ListPredictor {
     const seen = new Set<string>();
     for (const c of scored) {
       if (out.length >= limit) break;
-      const word = c.word ?? offer(c.key);
+      const replacement = this.replacements.get(c.key);
+      const word =
+        replacement !== undefined
+          ? this.replacementOffer(replacement, prefix, sentenceStart)
+          : (c.word ?? offer(c.key));
+      const key = wordKey(word); // a replacement is deduplicated by its own key
       // The letters already typed, offered as they are, would add nothing a space does not.
-      if (seen.has(word) || word === prefix) continue;
-      seen.add(word);
+      if (seen.has(key) || word === prefix || this.blocked.has(key)) continue;
+      seen.add(key);
       out.push({ word, p: c.s / total });
     }
     return out;
+  }
+
+  /** A replacement as offered: its written form, cased for the typed letters when it extends them. */
+  private replacementOffer(form: string, prefix: string, sentenceStart: boolean): string {
+    const typed = wordKey(form).startsWith(wordKey(prefix)) ? prefix : '';
+    return caseForOffer(form, typed, sentenceStart && prefix === '', this.capitalize);
   }
 
   /**

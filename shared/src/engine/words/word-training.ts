@@ -4,11 +4,17 @@ import { splitTail } from '../evaluation/held-out-evaluation';
 import { componentProbabilities, fitMixtureWeights } from './mixture-weights';
 import { WordNgramModel } from './word-ngram-model';
 import type { BaseWords, WordWeights } from './word-predictor';
-import { sentencesOf } from './word-tokens';
+import { sentencesOf, type WordToken } from './word-tokens';
 
-/** The client's word model: every sentence of every text (redaction placeholders never become words). */
-export function trainWordModel(texts: readonly Uint32Array[]): WordNgramModel {
-  const model = WordNgramModel.train(texts.flatMap((t) => sentencesOf(t)));
+/**
+ * The client's word model: every sentence of every text (redaction placeholders never become
+ * words), then the `added` sentences (client-vocabulary.ts additionSentences).
+ */
+export function trainWordModel(
+  texts: readonly Uint32Array[],
+  added: readonly (readonly WordToken[])[] = [],
+): WordNgramModel {
+  const model = WordNgramModel.train([...texts.flatMap((t) => sentencesOf(t)), ...added]);
   model.adaptive = true;
   return model;
 }
