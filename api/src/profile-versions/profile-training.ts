@@ -13,7 +13,6 @@ import {
 } from '@keyloom/shared';
 import { createHash } from 'node:crypto';
 import { existsSync, readFileSync } from 'node:fs';
-import { resolve } from 'node:path';
 import type { DataSource, EntityManager } from 'typeorm';
 import type { AuditService } from '../audit/audit.service';
 import { corporaCacheFile } from '../config/data-paths';
