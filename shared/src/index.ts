@@ -24,3 +24,4 @@ export * from './schemas/summaries.schema';
 export * from './schemas/trials.schema';
 export * from './trials/index';
 export * from './workspace/workspace-root';
+export * from './schemas/vocabulary.schema';

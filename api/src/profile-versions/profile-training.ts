@@ -9,6 +9,8 @@ import {
   ProfileInputError,
   type ProfileResult,
   type ProfileSettings,
+  type ProfileSettingsInput,
+  profileSettingsSchema,
   trainAndEvaluateProfile,
 } from '@keyloom/shared';
 import { createHash } from 'node:crypto';
@@ -117,17 +119,12 @@ export function loadTrainingRuntime(
 /** How a training job ended. 'stale': the version no longer waits for this job (cancelled, deleted, re-queued). */
 export type TrainingOutcome = 'trained' | 'failed' | 'cancelled' | 'stale';
 
-/** The engine's input settings from the stored (zod-shaped) settings. */
-export function engineSettings(settings: ProfileSettings): ProfileSettings {
-  return {
-    order: settings.order,
-    escape: settings.escape,
-    exclusion: settings.exclusion,
-    baseWeight: settings.baseWeight,
-    slots: settings.slots,
-    caseFold: settings.caseFold,
-    access: settings.access,
-  };
+/**
+ * The engine's input settings from the stored settings, through the one settings schema: fields
+ * added since a version was made take their defaults (e.g. no added or blocked words).
+ */
+export function engineSettings(settings: ProfileSettingsInput): ProfileSettings {
+  return profileSettingsSchema.parse(settings);
 }
 
 /** Documents in the order they were frozen (the order decides the folds). */

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { accessMethodSchema } from './clients.schema';
 import { numberField } from './common';
+import { clientVocabularySchema } from './vocabulary.schema';
 
 // The settings of a profile version: the one contract for forms, API bodies, the stored settings
 // and the engine (shared/src/engine/profile/profile-settings.ts infers its types from it and checks
@@ -49,6 +50,10 @@ export const profileSettingsSchema = z.object({
   caseFold: z.boolean().default(false),
   /** The access-method timings used for the estimates; the client record's by default. */
   access: accessSettingsSchema,
+  /** The clinician's added and blocked words, frozen with the version (none in versions made before). */
+  vocabulary: clientVocabularySchema.default({ additions: [], blocks: [] }),
 });
 export type ProfileSettings = z.output<typeof profileSettingsSchema>;
+/** Settings as stored or sent (fields with defaults may be missing, e.g. in versions made before they existed). */
+export type ProfileSettingsInput = z.input<typeof profileSettingsSchema>;
 export type AccessSettings = z.output<typeof accessSettingsSchema>;

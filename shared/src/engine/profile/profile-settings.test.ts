@@ -14,6 +14,7 @@ describe('profile settings (one schema for the form, the API and the engine)', (
       ['slots', 5],
       ['caseFold', false],
       ['access', { method: 'direct' }],
+      ['vocabulary', { additions: [], blocks: [] }],
     ]);
     expect(profileSettingsSchema.parse({ access: { method: 'switch' } })).toEqual({
       ...defaultProfileSettings,

@@ -4,12 +4,10 @@
 import { prepareText } from '../text-preparation';
 import { isOfferable, sentencesOf, wordKey, type WordToken } from './word-tokens';
 
-/** A word or short phrase to learn ("Okafor", "Dr Okafor", "St Anne's hospice"). */
-export type VocabularyAddition = { text: string; weight?: number };
-/** A word never offered; with a replacement, the replacement is offered where it would have ranked. */
-export type VocabularyBlock = { word: string; replacement?: string };
-/** The additions and blocks of one profile version. */
-export type ClientVocabulary = { additions: VocabularyAddition[]; blocks: VocabularyBlock[] };
+// The types come from the one schema (schemas/vocabulary.schema.ts), which runs checkClientVocabulary.
+import type { ClientVocabulary, VocabularyAddition, VocabularyBlock } from '../../schemas/vocabulary.schema';
+
+export type { ClientVocabulary, VocabularyAddition, VocabularyBlock };
 
 export const EMPTY_VOCABULARY: ClientVocabulary = { additions: [], blocks: [] };
 
