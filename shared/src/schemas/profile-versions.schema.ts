@@ -1,11 +1,16 @@
 import { z } from 'zod';
 import { safeText } from './common';
 import { profileSettingsSchema } from './profile-settings.schema';
+import { clientVocabularySchema } from './vocabulary.schema';
 
-// POST /api/clients/:id/profile-versions: settings (access defaults to the client record's) and the
-// samples to train on (default: every sample that is ready). The exact sample set is frozen with hashes.
+// POST /api/clients/:id/profile-versions: settings (access defaults to the client record's; the added
+// and blocked words to the client's current list) and the samples to train on (default: every sample
+// that is ready). The exact sample set and word list are frozen with the version.
 export const createProfileVersionSchema = z.object({
-  settings: profileSettingsSchema.partial({ access: true }),
+  settings: profileSettingsSchema
+    .omit({ vocabulary: true })
+    .partial({ access: true })
+    .extend({ vocabulary: clientVocabularySchema.optional() }),
   sampleIds: z.array(z.uuid()).min(1, { error: 'Choose at least one sample.' }).optional(),
   note: safeText({ multiline: true }).trim().max(1000).optional(),
 });

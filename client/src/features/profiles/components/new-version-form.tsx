@@ -83,6 +83,9 @@ type NewVersionFormProps = {
   onStarted: (version: ProfileVersion, trainError: string | null) => void;
 };
 
+const withoutVocabulary = ({ vocabulary: _vocabulary, ...settings }: typeof defaultProfileSettings) =>
+  settings;
+
 /** The settings of a new profile version, validated by the shared schema; submitting creates and trains it. */
 export const NewVersionForm = ({ clientId, samples, access, onCancel, onStarted }: NewVersionFormProps) => {
   const create = useCreateProfileVersion();
@@ -97,7 +100,8 @@ export const NewVersionForm = ({ clientId, samples, access, onCancel, onStarted 
         sampleIds: samples.map((sample) => sample.id),
         note: '',
         settings: {
-          ...defaultProfileSettings,
+          // The added and blocked words are not chosen here: the version takes the client's current list.
+          ...withoutVocabulary(defaultProfileSettings),
           access: {
             method: access.method,
             scanIntervalMs: access.scanIntervalMs ?? defaultAccessTiming.scanIntervalMs,
