@@ -92,7 +92,7 @@ describe('client vocabulary (HTTP)', () => {
   }
   async function auditDetails(action: string): Promise<Record<string, unknown>[]> {
     const rows: { details: Record<string, unknown> }[] = await t.dataSource.query(
-      'SELECT details FROM audit_events WHERE action = $1 AND client_id = $2 ORDER BY id',
+      'SELECT details FROM audit_events WHERE action = $1 AND client_id = $2 ORDER BY at',
       [action, clientId],
     );
     return rows.map((r) => r.details);
