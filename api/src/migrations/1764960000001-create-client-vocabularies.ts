@@ -16,7 +16,7 @@ export class CreateClientVocabularies1764960000001 implements MigrationInterface
         "updated_at" timestamptz NOT NULL,
         "updated_by_id" uuid,
         CONSTRAINT "PK_client_vocabularies" PRIMARY KEY ("client_id"),
-        CONSTRAINT "CHK_client_vocabularies_revision" CHECK ("revision" >= 0),
+        CONSTRAINT "CHK_client_vocabularies_revision" CHECK (revision >= 0),
         CONSTRAINT "FK_client_vocabularies_client_id" FOREIGN KEY ("client_id")
           REFERENCES "clients"("id") ON DELETE CASCADE,
         CONSTRAINT "FK_client_vocabularies_updated_by_id" FOREIGN KEY ("updated_by_id")

@@ -1,10 +1,11 @@
 import type { ClientVocabulary } from '@keyloom/shared';
-import { Column, Entity, Index, JoinColumn, ManyToOne, PrimaryColumn, type Relation } from 'typeorm';
+import { Check, Column, Entity, Index, JoinColumn, ManyToOne, PrimaryColumn, type Relation } from 'typeorm';
 import { Client } from '../clients/client.entity';
 import { User } from '../users/user.entity';
 
 // A client's current vocabulary list: what the next profile version freezes into its settings.
 @Entity({ name: 'client_vocabularies' })
+@Check('CHK_client_vocabularies_revision', `revision >= 0`)
 export class ClientVocabularyRow {
   @PrimaryColumn({ name: 'client_id', type: 'uuid', primaryKeyConstraintName: 'PK_client_vocabularies' })
   clientId: string;
