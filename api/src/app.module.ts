@@ -10,6 +10,7 @@ import { SamplesModule } from './samples/samples.module';
 import { ProfileVersionsModule } from './profile-versions/profile-versions.module';
 import { SummariesModule } from './summaries/summaries.module';
 import { TrialsModule } from './trials/trials.module';
+import { VocabularyModule } from './vocabulary/vocabulary.module';
 import { CsrfGuard } from './auth/guards/csrf.guard';
 import { RolesGuard } from './auth/guards/roles.guard';
 import { PasswordChangeGuard } from './auth/guards/password-change.guard';
@@ -44,6 +45,7 @@ const API_REQUESTS_PER_MINUTE = 1_000;
     ProfileVersionsModule,
     SummariesModule,
     TrialsModule,
+    VocabularyModule,
   ],
   providers: [
     Reflector,

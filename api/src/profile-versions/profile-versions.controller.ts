@@ -49,6 +49,15 @@ import { type ProfileFileReport, ProfileVersionsService } from './profile-versio
 export const MAX_PROFILE_FILE_BYTES = 64 * 1024 * 1024;
 export const PROFILE_FILE_FIELD_MESSAGE = 'Send one .klprofile file in the multipart field "file".';
 
+/** Whether the request's own settings named a vocabulary (the schema fills in an empty one otherwise). */
+function hasVocabulary(settings: unknown): boolean {
+  return (
+    typeof settings === 'object' &&
+    settings !== null &&
+    (settings as { vocabulary?: unknown }).vocabulary !== undefined
+  );
+}
+
 const TRANSITION =
   'Wrong status: 409 with a message ("This version is already signed off." …). Unknown id, or a client ' +
   'out of sight: 404.';
@@ -74,7 +83,8 @@ export class ProfileVersionsController {
     summary: 'Configure a new version (draft): settings and samples are frozen',
     description:
       'Owning clinician; active training consent (409). access defaults to the client record; sampleIds ' +
-      'to every ready sample (a chosen sample that is excluded or still flagged: 400).',
+      'to every ready sample (a chosen sample that is excluded or still flagged: 400); settings.vocabulary ' +
+      'to the client’s current vocabulary list (GET /api/clients/:id/vocabulary).',
   })
   @ApiBody({ schema: zodSchemaObject(createProfileVersionSchema) })
   @ApiCreatedResponse({ schema: zodSchemaObject(profileVersionSchema) })
@@ -82,8 +92,9 @@ export class ProfileVersionsController {
     @CurrentActor() actor: Actor,
     @Param('id', ParseUUIDPipe) id: string,
     @Body(new ZodValidationPipe(createProfileVersionSchema)) body: CreateProfileVersionInput,
+    @Body('settings') sent: unknown,
   ): Promise<ProfileVersionDto> {
-    return this.versions.create(actor, id, body);
+    return this.versions.create(actor, id, body, hasVocabulary(sent));
   }
 
   @Get('profile-versions/:id')

@@ -11,6 +11,7 @@ import {
 import { InjectDataSource } from '@nestjs/typeorm';
 import {
   type ApproveInput,
+  type ClientVocabulary,
   checkProfileSettings,
   headlineReportKeys,
   type CreateProfileVersionInput,
@@ -43,6 +44,7 @@ import { clientRowsHook, WithdrawalHooks } from '../consents/withdrawal-hooks';
 import { LIVE_JOB_STATES, PROFILE_TRAINING_QUEUE } from '../jobs/job-queue';
 import { JobQueueService } from '../jobs/job-queue.service';
 import { Sample } from '../samples/sample.entity';
+import { ClientVocabularyRow } from '../vocabulary/client-vocabulary.entity';
 import { ExportSigningService } from './export-signing.service';
 import { engineSettings } from './profile-training';
 import { type FrozenSample, ProfileVersion, type StoredVersionEvent } from './profile-version.entity';
@@ -99,6 +101,7 @@ export function profileFileHeader(
   );
   const trainedAt = version.trainedAt?.toISOString() ?? null;
   const asTrained = stamp === 'as-trained';
+  const vocabulary = engineSettings(version.settings).vocabulary;
   return {
     format: 'keyloom-profile',
     client: { pseudonym: version.client?.pseudonym ?? 'client' },
@@ -109,6 +112,8 @@ export function profileFileHeader(
       note: version.note,
     },
     settings: version.settings,
+    // The client's additions and blocks, so the test keyboard and a device apply the blocks.
+    ...(vocabulary.additions.length + vocabulary.blocks.length > 0 ? { vocabulary } : {}),
     baseWeight: version.baseWeight ?? 0,
     // Only with the word model it was tuned for (a file without words has no word list to weigh).
     ...(version.wordWeights && version.wordModel ? { wordWeights: version.wordWeights } : {}),
@@ -169,6 +174,11 @@ export async function frozenSamples(
     characters: r.characters,
     text: r.text,
   }));
+}
+
+/** Additions and blocks as counts (what the audit log keeps of a vocabulary). */
+export function vocabularyCounts(vocabulary: ClientVocabulary): { additions: number; blocks: number } {
+  return { additions: vocabulary.additions.length, blocks: vocabulary.blocks.length };
 }
 
 function label(status: ProfileVersionStatus): string {
@@ -255,13 +265,23 @@ export class ProfileVersionsService implements OnModuleInit {
   }
 
   /** Freezes settings and samples into a new draft (owning clinician, active training consent). */
-  async create(actor: Actor, clientId: string, input: CreateProfileVersionInput): Promise<ProfileVersionDto> {
+  async create(
+    actor: Actor,
+    clientId: string,
+    input: CreateProfileVersionInput,
+    vocabularyGiven = true,
+  ): Promise<ProfileVersionDto> {
     return this.dataSource.transaction(async (manager) => {
       const client = await this.access.requireOwned(actor, clientId, manager);
       await this.access.requireTrainingConsent(clientId, manager);
+      // Without `settings.vocabulary` in the body the version freezes the client's current list.
+      const vocabulary = vocabularyGiven
+        ? input.settings.vocabulary
+        : (await manager.getRepository(ClientVocabularyRow).findOneBy({ clientId }))?.vocabulary;
       const settings = profileSettingsSchema.parse({
         ...input.settings,
         access: input.settings.access ?? accessFromClient(client),
+        vocabulary,
       });
       const samples = await frozenSamples(manager, clientId, input.sampleIds);
       // Numbers per client: one creation at a time per client.
@@ -291,7 +311,12 @@ export class ProfileVersionsService implements OnModuleInit {
         actor,
         'profile.create',
         { type: 'profile-version', id: version.id, clientId },
-        { number: version.number, settings, samples: samples.map(({ id, sha256 }) => ({ id, sha256 })) },
+        {
+          number: version.number,
+          // The words stay with the version; the log holds their counts.
+          settings: { ...settings, vocabulary: vocabularyCounts(settings.vocabulary) },
+          samples: samples.map(({ id, sha256 }) => ({ id, sha256 })),
+        },
         manager,
       );
       return this.dto(manager, version.id);

@@ -40,6 +40,8 @@ export const auditActionLabels = {
   'profile.export': 'Exported a profile file',
   'profile.model-download': 'Opened a version on the test keyboard',
   'profile.delete': 'Deleted a version (consent withdrawn)',
+  'vocabulary.update': 'Changed a client’s vocabulary list',
+  'vocabulary.export': 'Exported a version’s vocabulary',
   'trial.create': 'Logged a trial on the test keyboard',
   'trial.delete': 'Deleted trials (consent withdrawn)',
   'practice-phrase.create': 'Added a practice phrase',
