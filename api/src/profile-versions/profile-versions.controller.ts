@@ -49,15 +49,6 @@ import { type ProfileFileReport, ProfileVersionsService } from './profile-versio
 export const MAX_PROFILE_FILE_BYTES = 64 * 1024 * 1024;
 export const PROFILE_FILE_FIELD_MESSAGE = 'Send one .klprofile file in the multipart field "file".';
 
-/** Whether the request's own settings named a vocabulary (the schema fills in an empty one otherwise). */
-function hasVocabulary(settings: unknown): boolean {
-  return (
-    typeof settings === 'object' &&
-    settings !== null &&
-    (settings as { vocabulary?: unknown }).vocabulary !== undefined
-  );
-}
-
 const TRANSITION =
   'Wrong status: 409 with a message ("This version is already signed off." …). Unknown id, or a client ' +
   'out of sight: 404.';
@@ -92,9 +83,8 @@ export class ProfileVersionsController {
     @CurrentActor() actor: Actor,
     @Param('id', ParseUUIDPipe) id: string,
     @Body(new ZodValidationPipe(createProfileVersionSchema)) body: CreateProfileVersionInput,
-    @Body('settings') sent: unknown,
   ): Promise<ProfileVersionDto> {
-    return this.versions.create(actor, id, body, hasVocabulary(sent));
+    return this.versions.create(actor, id, body);
   }
 
   @Get('profile-versions/:id')

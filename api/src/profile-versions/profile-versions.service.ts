@@ -265,19 +265,14 @@ export class ProfileVersionsService implements OnModuleInit {
   }
 
   /** Freezes settings and samples into a new draft (owning clinician, active training consent). */
-  async create(
-    actor: Actor,
-    clientId: string,
-    input: CreateProfileVersionInput,
-    vocabularyGiven = true,
-  ): Promise<ProfileVersionDto> {
+  async create(actor: Actor, clientId: string, input: CreateProfileVersionInput): Promise<ProfileVersionDto> {
     return this.dataSource.transaction(async (manager) => {
       const client = await this.access.requireOwned(actor, clientId, manager);
       await this.access.requireTrainingConsent(clientId, manager);
       // Without `settings.vocabulary` in the body the version freezes the client's current list.
-      const vocabulary = vocabularyGiven
-        ? input.settings.vocabulary
-        : (await manager.getRepository(ClientVocabularyRow).findOneBy({ clientId }))?.vocabulary;
+      const vocabulary =
+        input.settings.vocabulary ??
+        (await manager.getRepository(ClientVocabularyRow).findOneBy({ clientId }))?.vocabulary;
       const settings = profileSettingsSchema.parse({
         ...input.settings,
         access: input.settings.access ?? accessFromClient(client),
