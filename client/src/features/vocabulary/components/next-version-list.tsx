@@ -115,7 +115,7 @@ export const NextVersionList = ({ editor, canEdit, versionNumber, frozen }: Next
                           disabled={editor.saving}
                           onClick={() => remove('additions', index, `Removed “${addition.text}”.`)}
                         >
-                          Remove<span className="sr-only"> “{addition.text}”</span>
+                          Remove <span className="sr-only">“{addition.text}”</span>
                         </Button>
                       )}
                     </li>
@@ -147,7 +147,7 @@ export const NextVersionList = ({ editor, canEdit, versionNumber, frozen }: Next
                           disabled={editor.saving}
                           onClick={() => remove('blocks', index, `Unblocked “${block.word}”.`)}
                         >
-                          Remove<span className="sr-only"> “{block.word}”</span>
+                          Remove <span className="sr-only">“{block.word}”</span>
                         </Button>
                       )}
                     </li>

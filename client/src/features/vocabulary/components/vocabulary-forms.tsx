@@ -6,7 +6,7 @@ import {
   type VocabularyBlock,
 } from '@keyloom/shared';
 import { type ComponentProps, useEffect } from 'react';
-import type { FieldError as FormFieldError, UseFormReturn } from 'react-hook-form';
+import type { FieldError as FormFieldError, Path, UseFormReturn } from 'react-hook-form';
 import { Button } from '@/components/ui/button';
 import { Modal } from '@/components/ui/dialog';
 import { Form, FormServerError } from '@/components/ui/form';
@@ -21,22 +21,26 @@ const optionalNumber = (value: unknown) => (value === '' || value === null ? und
 const messageOf = (error: { message?: string } | undefined): FormFieldError | undefined =>
   error?.message ? { type: 'validate', message: error.message } : undefined;
 
+const ADD_FIELDS = ['text', 'weight'] as const;
+const BLOCK_FIELDS = ['word', 'replacement'] as const;
+
 /** After a successful add: the field cleared, and focus back in it for the next word. */
 const ClearAfterSave = <T extends { text: string } | { word: string }>({
   methods,
-  field,
+  fields,
 }: {
   methods: UseFormReturn<T, unknown, unknown>;
-  field: 'text' | 'word';
+  /** The form's fields, the one to focus first. */
+  fields: readonly string[];
 }) => {
-  const { isSubmitSuccessful } = methods.formState;
-  const { reset, setFocus } = methods;
+  const { isSubmitSuccessful, submitCount } = methods.formState;
+  const { resetField, setFocus } = methods;
   useEffect(() => {
     if (!isSubmitSuccessful) return;
-    reset();
-    // eslint-disable-next-line @typescript-eslint/no-explicit-any -- the field exists on both forms
-    setFocus(field as any);
-  }, [isSubmitSuccessful, reset, setFocus, field]);
+    // resetField keeps the fields registered (reset() would drop them until the next render).
+    for (const name of fields) resetField(name as Path<T>);
+    setFocus(fields[0] as Path<T>);
+  }, [submitCount, isSubmitSuccessful, resetField, setFocus, fields]);
   return null;
 };
 
@@ -78,7 +82,7 @@ export const AddWordForm = ({ editor }: { editor: VocabularyEditor }) => (
   >
     {(methods) => (
       <>
-        <ClearAfterSave methods={methods} field="text" />
+        <ClearAfterSave methods={methods} fields={ADD_FIELDS} />
         <h4 id="add-word-heading" className="text-xl font-bold">
           Add a word or phrase
         </h4>
@@ -147,7 +151,7 @@ export const BlockWordForm = ({ editor }: { editor: VocabularyEditor }) => (
   >
     {(methods) => (
       <>
-        <ClearAfterSave methods={methods} field="word" />
+        <ClearAfterSave methods={methods} fields={BLOCK_FIELDS} />
         <h4 id="block-word-heading" className="text-xl font-bold">
           Block a word
         </h4>

@@ -54,7 +54,7 @@ export const VocabularyListing = ({ versionId, versionNumber, onBlock }: Vocabul
   const [search, setSearch] = useState('');
   const words = useVocabularyPage(versionId, listing);
   const id = useId();
-  const captionRef = useRef<HTMLSpanElement>(null);
+  const tableRef = useRef<HTMLDivElement>(null);
   const pressed = useRef<'previous' | 'next' | null>(null);
   const previousRef = useRef<HTMLButtonElement>(null);
   const nextRef = useRef<HTMLButtonElement>(null);
@@ -64,11 +64,12 @@ export const VocabularyListing = ({ versionId, versionNumber, onBlock }: Vocabul
   const showPrevious = listing.page > 1;
   const showNext = listing.page < pages;
 
-  // After Previous or Next: focus stays on the pressed button, or goes to the caption if it went away.
+  // After Previous or Next: focus stays on the pressed button, or goes to the table (named by its
+  // caption) when the button went away.
   useEffect(() => {
     if (!pressed.current || words.isPlaceholderData || !data) return;
     const button = pressed.current === 'next' ? nextRef.current : previousRef.current;
-    (button ?? captionRef.current)?.focus();
+    (button ?? tableRef.current)?.focus();
     pressed.current = null;
   }, [data, words.isPlaceholderData]);
 
@@ -168,14 +169,7 @@ export const VocabularyListing = ({ versionId, versionNumber, onBlock }: Vocabul
         </p>
       )}
       {data && data.words.length > 0 && (
-        <Table
-          caption={
-            <span ref={captionRef} tabIndex={-1}>
-              Words of version {versionNumber}: {wordRange(data)}
-            </span>
-          }
-          className="overflow-x-auto"
-        >
+        <Table ref={tableRef} scrollable caption={`Words of version ${versionNumber}: ${wordRange(data)}`}>
           <TableHead>
             <ColumnHeader>Word</ColumnHeader>
             <ColumnHeader>Times written</ColumnHeader>
@@ -210,7 +204,7 @@ export const VocabularyListing = ({ versionId, versionNumber, onBlock }: Vocabul
                   <TableCell label="Actions">
                     {!word.blocked && (
                       <Button className="self-start" onClick={() => onBlock(word.word)}>
-                        Block…<span className="sr-only"> {word.word}</span>
+                        Block… <span className="sr-only">{word.word}</span>
                       </Button>
                     )}
                   </TableCell>
