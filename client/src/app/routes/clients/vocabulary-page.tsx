@@ -1,4 +1,4 @@
-import { useState } from 'react';
+import { useRef, useState } from 'react';
 import { Link, useParams } from 'react-router-dom';
 import { PageLoading } from '@/components/layout/page-loading';
 import { PageHeader } from '@/components/ui/page-header';
@@ -24,6 +24,7 @@ export const VocabularyRoute = () => {
   const version = useProfileVersion(versionId);
   const editor = useVocabularyEditor(clientId);
   const [blocking, setBlocking] = useState<string | null>(null);
+  const wordsHeading = useRef<HTMLHeadingElement>(null);
   const canEdit = me.data?.role === 'clinician';
   const back = (
     <Link
@@ -54,10 +55,12 @@ export const VocabularyRoute = () => {
       />
       <div className="flex flex-col gap-12">
         <section aria-labelledby="words-heading" className="flex min-w-0 flex-col gap-4">
-          <h2 id="words-heading" className="text-2xl font-bold">
+          <h2 id="words-heading" ref={wordsHeading} tabIndex={-1} className="text-2xl font-bold">
             Words of version {data.number}
           </h2>
-          {canEdit && <LastChange editor={editor} origin="listing" onUndone={() => undefined} />}
+          {canEdit && (
+            <LastChange editor={editor} origin="listing" onUndone={() => wordsHeading.current?.focus()} />
+          )}
           <VocabularyListing
             versionId={data.id}
             versionNumber={data.number}
