@@ -10,6 +10,7 @@ import { profileVersionKeys } from '@/features/profiles/api/keys';
 import { sampleKeys } from '@/features/samples/api/keys';
 import { userKeys } from '@/features/staff/api/keys';
 import { summaryKeys } from '@/features/summaries/api/keys';
+import { vocabularyKeys } from '@/features/vocabulary/api/keys';
 import { queryRoots } from '@/lib/query-keys';
 import { expectKeyFactory, isUnder } from '@/testing/query-keys';
 
@@ -34,6 +35,9 @@ const everyKey: Record<string, QueryKey> = {
   sample: sampleKeys.detail(id),
   users: userKeys.list(),
   summaries: summaryKeys.list(id),
+  clientVocabulary: vocabularyKeys.client(id),
+  vocabularyWords: vocabularyKeys.words(id, { query: '', sort: 'count', show: 'all', page: 1 }),
+  misspellings: vocabularyKeys.misspellings(id),
 };
 
 describe('query keys across features', () => {

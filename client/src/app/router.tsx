@@ -93,6 +93,12 @@ export const routes: RouteObject[] = [
             element: <RequireRole roles={['clinician', 'supervisor']} />,
             children: [
               {
+                path: 'clients/:clientId/profiles/:versionId/vocabulary',
+                lazy: async () => ({
+                  Component: (await import('./routes/clients/vocabulary-page')).VocabularyRoute,
+                }),
+              },
+              {
                 path: 'clients/:clientId/samples/:sampleId',
                 lazy: async () => ({ Component: (await import('./routes/clients/sample-page')).SampleRoute }),
               },

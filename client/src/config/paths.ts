@@ -35,6 +35,10 @@ export const samplePath = (clientId: string, sampleId: string): string =>
 export const profileVersionPath = (clientId: string, versionId: string): string =>
   `${paths.clients}/${encodeURIComponent(clientId)}/profiles/${encodeURIComponent(versionId)}`;
 
+/** The words of one profile version, and the client's added and blocked words for the next. */
+export const vocabularyPath = (clientId: string, versionId: string): string =>
+  `${profileVersionPath(clientId, versionId)}/vocabulary`;
+
 /** Two or more versions of a client side by side. */
 export const profileComparePath = (clientId: string, versionIds: readonly string[]): string =>
   `${paths.clients}/${encodeURIComponent(clientId)}/profiles/compare?ids=${versionIds.map(encodeURIComponent).join(',')}`;

@@ -9,3 +9,15 @@ export const formatDateTime = (iso: string): string => {
 /** Today as YYYY-MM-DD in the reader's own time zone. */
 export const todayIso = (now = new Date()): string =>
   `${now.getFullYear()}-${String(now.getMonth() + 1).padStart(2, '0')}-${String(now.getDate()).padStart(2, '0')}`;
+
+const day = new Intl.DateTimeFormat('en-GB', { dateStyle: 'medium', timeZone: 'UTC' });
+
+/** "3 Feb 2026" from a calendar day (YYYY-MM-DD) or a timestamp; "—" for none. */
+export const formatDate = (iso: string | null): string => {
+  if (!iso) return '—';
+  const date = new Date(iso);
+  return Number.isNaN(date.getTime()) ? iso : day.format(date);
+};
+
+/** "6,467": a count with thousands separators. */
+export const formatCount = (value: number): string => value.toLocaleString('en-GB');

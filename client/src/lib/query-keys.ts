@@ -11,4 +11,5 @@ export const queryRoots = {
   samples: ['samples'],
   summaries: ['summaries'],
   users: ['users'],
+  vocabulary: ['vocabulary'],
 } as const;

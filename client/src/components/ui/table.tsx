@@ -1,17 +1,33 @@
-import type { ComponentPropsWithoutRef, ReactNode } from 'react';
+import type { ComponentPropsWithoutRef, ReactNode, Ref } from 'react';
 import { useId } from 'react';
 import { cn } from '@/lib/cn';
 
 // Below the md breakpoint each row becomes a card: cells stack and show their column name.
 // Explicit roles keep the table semantics that `display: block` would otherwise drop.
 
-type TableProps = { caption: ReactNode; children: ReactNode; className?: string };
+type TableProps = {
+  caption: ReactNode;
+  children: ReactNode;
+  className?: string;
+  /**
+   * The region scrolls sideways on its own when the table is wider than the page, and takes
+   * keyboard focus so it can be scrolled without a mouse (and focus can be moved to it).
+   */
+  scrollable?: boolean;
+  ref?: Ref<HTMLDivElement>;
+};
 
 /** A data table with a caption, inside a labelled region that can scroll on its own. */
-export const Table = ({ caption, children, className }: TableProps) => {
+export const Table = ({ caption, children, className, scrollable = false, ref }: TableProps) => {
   const captionId = useId();
   return (
-    <div role="region" aria-labelledby={captionId} className={cn('w-full', className)}>
+    <div
+      ref={ref}
+      role="region"
+      aria-labelledby={captionId}
+      tabIndex={scrollable ? 0 : undefined}
+      className={cn('w-full', scrollable && 'overflow-x-auto', className)}
+    >
       <table role="table" className="w-full border-collapse text-left max-md:block">
         <caption id={captionId} className="mb-3 text-left text-lg font-bold max-md:block">
           {caption}

@@ -2,7 +2,7 @@ import type { ProfileVersion, Role } from '@keyloom/shared';
 import { screen, waitFor, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
 import { trialRecord } from '@/features/keyboard/testing/trial-data';
-import { profileVersion, VERSION_1_ID } from '@/features/profiles/testing/profile-data';
+import { profileVersion, reportFixture, VERSION_1_ID } from '@/features/profiles/testing/profile-data';
 import { ASHBY_ID, clientRecord, sessionUser } from '@/testing/data';
 import { type MockRoutes, mockFetch, sessionRoutes } from '@/testing/mock-fetch';
 import { renderApp } from '@/testing/render-app';
@@ -86,6 +86,24 @@ describe('Profile version page', () => {
     await new Promise((resolve) => setTimeout(resolve, 1300));
     expect(api.requestsTo(`GET ${versionUrl}`)).toHaveLength(polls);
   }, 12_000);
+
+  it('links clinicians and supervisors to the version’s vocabulary and says what it was trained with', async () => {
+    await openVersion(
+      'clinician',
+      profileVersion({ metrics: reportFixture({ vocabulary: { added: 3, blocked: 2 } }) }),
+    );
+    expect(screen.getByText('Trained with 3 added and 2 blocked words.')).toBeInTheDocument();
+    expect(screen.getByRole('link', { name: /^Vocabulary of version 1/ })).toHaveAttribute(
+      'href',
+      `/clients/${ASHBY_ID}/profiles/${VERSION_1_ID}/vocabulary`,
+    );
+  });
+
+  it('shows carers no vocabulary link, and no trained-with line for a report without one', async () => {
+    await openVersion('carer', profileVersion());
+    expect(screen.queryByRole('link', { name: /^Vocabulary of version/ })).not.toBeInTheDocument();
+    expect(screen.queryByText(/^Trained with/)).not.toBeInTheDocument();
+  });
 
   it('cancels a running job', async () => {
     const training = profileVersion({ status: 'training', progress: 0.3, stage: 'training', metrics: null });

@@ -6,19 +6,20 @@ import { PageLoading } from '@/components/layout/page-loading';
 import { Alert } from '@/components/ui/alert';
 import { type Announcement, LiveRegion } from '@/components/ui/live-region';
 import { PageHeader } from '@/components/ui/page-header';
-import { clientPath, keyboardPath } from '@/config/paths';
+import { clientPath, keyboardPath, vocabularyPath } from '@/config/paths';
 import { useMe } from '@/features/auth/api/get-me';
 import { useClient } from '@/features/clients/api/get-client';
 import { useTrials } from '@/features/keyboard/api/get-trials';
 import { hasModel, takesTrials } from '@/features/keyboard/logic/keyboard-versions';
 import { TrialHistory } from '@/features/keyboard/components/trial-history';
 import { useProfileVersion } from '@/features/profiles/api/get-profile-version';
-import { readReport } from '@/features/profiles/lib/profile-report';
+import { count, readReport } from '@/features/profiles/lib/profile-report';
 import { ProfileStatusBadge } from '@/features/profiles/components/profile-status-badge';
 import { TrainingProgress } from '@/features/profiles/components/training-progress';
 import { VerifyExportPanel } from '@/features/profiles/components/verify-export-panel';
 import { VersionActions } from '@/features/profiles/components/version-actions';
 import { VersionHistory } from '@/features/profiles/components/version-history';
+import { VersionNotFound } from '@/features/profiles/components/version-not-found';
 import { VersionResults } from '@/features/profiles/components/version-results';
 import { formatDateTime } from '@/lib/format';
 
@@ -50,19 +51,7 @@ export const ProfileVersionRoute = () => {
   );
 
   if (version.isPending) return <PageLoading />;
-  if (version.isError) {
-    return (
-      <>
-        <PageHeader title="Version not found" />
-        <div role="alert">
-          <Alert tone="error" title="This profile version could not be opened.">
-            <p>{version.error.message}</p>
-            {back}
-          </Alert>
-        </div>
-      </>
-    );
-  }
+  if (version.isError) return <VersionNotFound error={version.error} back={back} />;
 
   const data = version.data;
   const report = readReport(data.metrics);
@@ -137,8 +126,22 @@ export const ProfileVersionRoute = () => {
             <h2 id="results-heading" className="text-3xl font-bold">
               Results
             </h2>
+            {report.vocabulary && (
+              <p className="text-lg">
+                Trained with {count(report.vocabulary.added)} added and {count(report.vocabulary.blocked)}{' '}
+                blocked {report.vocabulary.blocked === 1 ? 'word' : 'words'}.
+              </p>
+            )}
             <VersionResults report={report} />
           </section>
+        )}
+        {role !== 'carer' && (
+          <Link
+            to={vocabularyPath(clientId, data.id)}
+            className="inline-flex min-h-11 w-fit items-center text-lg font-bold underline"
+          >
+            Vocabulary of version {data.number}: words, added and blocked words, files for the device
+          </Link>
         )}
         {!report && data.metrics && (
           <Alert tone="error" title="The results of this version cannot be shown.">

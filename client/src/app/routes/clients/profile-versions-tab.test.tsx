@@ -6,6 +6,7 @@ import {
   VERSION_1_ID,
   VERSION_2_ID,
 } from '@/features/profiles/testing/profile-data';
+import { clientVocabularyState } from '@/features/vocabulary/testing/vocabulary-data';
 import { ASHBY_ID, clientRecord, sampleSummary, sessionUser } from '@/testing/data';
 import { type MockRoutes, mockFetch } from '@/testing/mock-fetch';
 import { sessionRoutes } from '@/testing/mock-fetch';
@@ -30,6 +31,7 @@ const openTab = async (routes: MockRoutes = {}, role: 'clinician' | 'supervisor'
     [`GET ${base}`]: { body: clientRecord() },
     [`GET ${base}/samples`]: { body: samples },
     [`GET ${base}/profile-versions`]: { body: [] },
+    [`GET ${base}/vocabulary`]: { body: clientVocabularyState() },
     ...routes,
   });
   const app = renderApp(`/clients/${ASHBY_ID}/profiles`);
@@ -84,6 +86,28 @@ describe('Profile versions tab', () => {
     expect(form.queryByLabelText('Scan interval (ms)')).not.toBeInTheDocument();
   });
 
+  it('says the new version takes the client’s current list, with its counts and a link to it', async () => {
+    const { user } = await openTab({ [`GET ${base}/profile-versions`]: { body: [profileVersion()] } });
+    await user.click(await screen.findByRole('button', { name: 'New version' }));
+    const form = within(screen.getByRole('form', { name: 'New profile version' }));
+    // The fixture list: two additions and one block.
+    expect(
+      await form.findByText(/this version will use the client’s current list \(2 added, 1 blocked\)/),
+    ).toBeInTheDocument();
+    expect(form.getByRole('link', { name: 'Review the list on the vocabulary page' })).toHaveAttribute(
+      'href',
+      `/clients/${ASHBY_ID}/profiles/${VERSION_1_ID}/vocabulary`,
+    );
+  });
+
+  it('says where the list is kept when the client has no version yet', async () => {
+    const { user } = await openTab();
+    await user.click(await screen.findByRole('button', { name: 'New version' }));
+    const form = within(screen.getByRole('form', { name: 'New profile version' }));
+    expect(await form.findByText(/\(2 added, 1 blocked\)/)).toBeInTheDocument();
+    expect(form.getByText(/once the first version exists/)).toBeInTheDocument();
+  });
+
   it('validates with the shared schema: order, slots, the weight and at least one sample', async () => {
     const { user, api } = await openTab();
     await user.click(await screen.findByRole('button', { name: 'New version' }));
@@ -135,6 +159,8 @@ describe('Profile versions tab', () => {
     await user.click(form.getByRole('button', { name: 'Train this version' }));
 
     await waitFor(() => expect(currentUrl(router)).toBe(`/clients/${ASHBY_ID}/profiles/${VERSION_2_ID}`));
+    // No `vocabulary` in the settings: the API then freezes the client's current list into the version
+    // (an empty list sent from the form's defaults would replace it).
     expect(api.requestsTo(`POST ${base}/profile-versions`)[0]?.body).toEqual({
       sampleIds: [samples[0]?.id],
       settings: {
@@ -214,5 +240,43 @@ describe('Profile versions tab', () => {
       'General English alone',
     ]);
     expect(figures.getAllByRole('row')).toHaveLength(11);
+  });
+
+  it('lists the added and blocked words that differ between compared versions', async () => {
+    const settings = profileVersion().settings;
+    const first = profileVersion({
+      settings: {
+        ...settings,
+        vocabulary: { additions: [{ text: 'Okafor' }], blocks: [{ word: 'lousy', replacement: undefined }] },
+      },
+    });
+    const second = profileVersion({
+      id: VERSION_2_ID,
+      number: 2,
+      settings: {
+        ...settings,
+        vocabulary: {
+          additions: [{ text: 'Okafor' }, { text: 'Kestrel Point', weight: 10 }],
+          blocks: [{ word: 'tommorow', replacement: 'tomorrow' }],
+        },
+      },
+    });
+    mockFetch({
+      ...sessionRoutes(sessionUser('clinician')),
+      [`GET ${base}`]: { body: clientRecord() },
+      [`GET /api/profile-versions/${VERSION_1_ID}`]: { body: first },
+      [`GET /api/profile-versions/${VERSION_2_ID}`]: { body: second },
+    });
+    renderApp(`/clients/${ASHBY_ID}/profiles/compare?ids=${VERSION_1_ID},${VERSION_2_ID}`);
+    const section = within(
+      (await screen.findByRole('heading', { name: 'Added and blocked words' })).closest('section')!,
+    );
+    expect(section.getByRole('heading', { name: 'Version 2 against version 1' })).toBeInTheDocument();
+    const items = section.getAllByRole('listitem').map((item) => item.textContent);
+    expect(items).toEqual([
+      'Words added: Kestrel Point (weight 10)',
+      'Words blocked: tommorow → tomorrow',
+      'Blocks lifted: lousy',
+    ]);
   });
 });

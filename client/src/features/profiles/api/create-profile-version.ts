@@ -1,9 +1,15 @@
-import { type CreateProfileVersionInput, type ProfileVersion, profileVersionSchema } from '@keyloom/shared';
+import { createProfileVersionSchema, type ProfileVersion, profileVersionSchema } from '@keyloom/shared';
 import { useMutation, useQueryClient } from '@tanstack/react-query';
+import type { z } from 'zod';
 import { apiRequest } from '@/lib/api-client';
 import { profileVersionKeys } from './keys';
 
-export type CreateProfileVersionVariables = { clientId: string; input: CreateProfileVersionInput };
+// The request as sent: fields with defaults may be left out (settings without `vocabulary` take the
+// client's current list).
+export type CreateProfileVersionVariables = {
+  clientId: string;
+  input: z.input<typeof createProfileVersionSchema>;
+};
 
 /** Creates a draft version with its settings and sample set frozen. */
 export const createProfileVersion = ({

@@ -17,6 +17,7 @@ import {
   readReport,
   type SlotSeries,
 } from '../lib/profile-report';
+import { VocabularyDifferences } from '@/features/vocabulary/components/vocabulary-differences';
 import { SlotsChart } from './slots-chart';
 
 type Column = { name: string; report: ProfileReportView | null; base: boolean };
@@ -112,6 +113,7 @@ export const CompareView = ({ versions }: { versions: readonly ProfileVersion[] 
           kind="savings"
         />
       )}
+      <VocabularyDifferences versions={versions} />
     </div>
   );
 };

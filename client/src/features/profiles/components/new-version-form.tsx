@@ -19,6 +19,7 @@ import { SelectField } from '@/components/ui/select-field';
 import { TextField } from '@/components/ui/text-field';
 import { useCreateProfileVersion } from '../api/create-profile-version';
 import { useTrainProfileVersion } from '../api/train-profile-version';
+import { NextVersionNote } from '@/features/vocabulary/components/next-version-note';
 import { escapeExplanations } from '../lib/profile-words';
 
 /** A sample that can go into a version (the ready ones; the page passes them). */
@@ -78,6 +79,8 @@ type NewVersionFormProps = {
   clientId: string;
   samples: readonly TrainableSample[];
   access: AccessDefaults;
+  /** The newest version (its vocabulary page holds the client's list), or null. */
+  latestVersionId?: string | null;
   onCancel: () => void;
   /** Called with the version once it is created and its training has been asked for. */
   onStarted: (version: ProfileVersion, trainError: string | null) => void;
@@ -87,7 +90,14 @@ const withoutVocabulary = ({ vocabulary: _vocabulary, ...settings }: typeof defa
   settings;
 
 /** The settings of a new profile version, validated by the shared schema; submitting creates and trains it. */
-export const NewVersionForm = ({ clientId, samples, access, onCancel, onStarted }: NewVersionFormProps) => {
+export const NewVersionForm = ({
+  clientId,
+  samples,
+  access,
+  latestVersionId = null,
+  onCancel,
+  onStarted,
+}: NewVersionFormProps) => {
   const create = useCreateProfileVersion();
   const train = useTrainProfileVersion();
   const [weightMode, setWeightMode] = useState<'auto' | 'fixed'>('auto');
@@ -117,9 +127,13 @@ export const NewVersionForm = ({ clientId, samples, access, onCancel, onStarted 
           method: chosen.method,
           ...Object.fromEntries(accessTimingFields[chosen.method].map((field) => [field, chosen[field]])),
         };
+        // No `vocabulary` in the settings: the API freezes the client's current list into the version
+        // (the schema's default, an empty list, would otherwise replace it).
+        // eslint-disable-next-line @typescript-eslint/no-unused-vars -- left out on purpose
+        const { vocabulary, ...settings } = input.settings;
         const version = await create.mutateAsync({
           clientId,
-          input: { ...input, settings: { ...input.settings, access }, note: input.note || undefined },
+          input: { ...input, settings: { ...settings, access }, note: input.note || undefined },
         });
         try {
           onStarted(await train.mutateAsync(version.id), null);
@@ -258,6 +272,8 @@ export const NewVersionForm = ({ clientId, samples, access, onCancel, onStarted 
                 />
               ))}
             </fieldset>
+
+            <NextVersionNote clientId={clientId} latestVersionId={latestVersionId} />
 
             <TextField
               label="Note (optional)"

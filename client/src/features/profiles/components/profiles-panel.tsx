@@ -128,6 +128,12 @@ export const ProfilesPanel = ({
             clientId={clientId}
             samples={samples}
             access={access}
+            latestVersionId={
+              versions.data?.reduce<ProfileVersion | null>(
+                (latest, version) => (!latest || version.number > latest.number ? version : latest),
+                null,
+              )?.id ?? null
+            }
             onCancel={() => setCreating(false)}
             onStarted={(version, trainError) => {
               setCreating(false);
