@@ -86,9 +86,6 @@ type NewVersionFormProps = {
   onStarted: (version: ProfileVersion, trainError: string | null) => void;
 };
 
-const withoutVocabulary = ({ vocabulary: _vocabulary, ...settings }: typeof defaultProfileSettings) =>
-  settings;
-
 /** The settings of a new profile version, validated by the shared schema; submitting creates and trains it. */
 export const NewVersionForm = ({
   clientId,
@@ -110,8 +107,7 @@ export const NewVersionForm = ({
         sampleIds: samples.map((sample) => sample.id),
         note: '',
         settings: {
-          // The added and blocked words are not chosen here: the version takes the client's current list.
-          ...withoutVocabulary(defaultProfileSettings),
+          ...defaultProfileSettings,
           access: {
             method: access.method,
             scanIntervalMs: access.scanIntervalMs ?? defaultAccessTiming.scanIntervalMs,
