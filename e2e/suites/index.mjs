@@ -4,5 +4,13 @@ import { foundationSuite } from './foundation.mjs';
 import { keyboardSuite } from './keyboard.mjs';
 import { profilesSuite } from './profiles.mjs';
 import { summariesSuite } from './summaries.mjs';
+import { vocabularyKeyboardSuite } from './vocabulary-keyboard.mjs';
 
-export const browserSuites = [foundationSuite, caseloadSuite, profilesSuite, keyboardSuite, summariesSuite];
+export const browserSuites = [
+  foundationSuite,
+  caseloadSuite,
+  profilesSuite,
+  keyboardSuite,
+  summariesSuite,
+  vocabularyKeyboardSuite,
+];

@@ -15,6 +15,7 @@ import { gunzipSync } from 'node:zlib';
 import { demoSamplesDir as demoDir } from '../../api/dist/config/data-paths.js';
 import { signIn, signOut } from './accounts.mjs';
 import { csrfHeaders } from './api-helpers.mjs';
+import { keyButton, rowSettled, suggestionRow } from './keyboard-page.mjs';
 import { assertNoSidewaysScroll } from './page-checks.mjs';
 
 const DEMO_CLIENT = 'R. Ashby';
@@ -25,14 +26,6 @@ const OWN_PHRASE = 'can pepper come sailing with us on sunday?';
 let clientId = null;
 let versionId = null;
 
-const keyNames = {
-  ' ': 'space',
-  '.': 'full stop',
-  ',': 'comma',
-  '?': 'question mark',
-  "'": 'apostrophe',
-  '-': 'hyphen',
-};
 const WORD = /^[\p{L}\p{N}']+/u;
 
 /** The nearest rank percentile of sorted values (p in 0..100). */
@@ -81,23 +74,7 @@ async function vocabularyOf(page, appUrl) {
   };
 }
 
-const suggestionRow = (page) => page.getByRole('group', { name: 'Suggestions' });
-const keyButton = (page, char) =>
-  page
-    .getByRole('group', { name: 'Keys' })
-    .getByRole('button', { name: keyNames[char] ?? char, exact: true });
 const outputText = (page) => page.locator('[data-output]').getAttribute('data-text');
-
-/** Waits until the suggestion row answers the text on screen. */
-async function rowSettled(page) {
-  await page.waitForFunction(() => {
-    const row = document.querySelector('[role="group"][aria-label="Suggestions"]');
-    const output = document.querySelector('[data-output]');
-    return (
-      row !== null && output !== null && row.getAttribute('data-answers') === output.getAttribute('data-text')
-    );
-  });
-}
 
 // The worker's own time per answer, collected while typing (printed beside the latency).
 const engineTimes = [];

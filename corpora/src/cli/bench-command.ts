@@ -1,5 +1,8 @@
-// `model bench [--json]` (also `npm run bench`): speed, size, memory and
-// quality figures of the engine on fixed slices of the Brown corpus. Figures
+// `model bench [--json] [--vocabulary FILE.json]` (also `npm run bench`): speed, size, memory and
+// quality figures of the engine on fixed slices of the Brown corpus. With --vocabulary the client's
+// added and blocked words go into every word list it builds: the profile pipeline's (learned and
+// applied as a version's training does), the demo version's file header and the test keyboard's
+// list built from it (profileBlockParts), and the suggestions section's lists. Figures
 // are printed, never asserted (targets are listed beside them). Seeded PRNG,
 // warm-up, repetitions, min and mean ± std, and a sink so no work is
 // optimised away.
@@ -25,7 +28,9 @@ import type { NextSymbolModel } from '@keyloom/shared';
 import { simulateKeystrokes } from '@keyloom/shared';
 import { seededRandom } from '@keyloom/shared/src/engine/seeded-random';
 import {
+  type ClientVocabulary,
   defaultProfileSettings,
+  profileBlockParts,
   trainAndEvaluateProfile,
   writeProfileFile,
   type ProfileResult,
@@ -35,6 +40,7 @@ import { WordNgramModel, WordPredictor } from '@keyloom/shared';
 import { builtInPracticePhrases } from '@keyloom/shared/src/trials/practice-phrases';
 import { UsageError } from './cli-errors';
 import { parseArgs } from './args';
+import { vocabularyOption } from './vocabulary-file';
 import { latencyFigures, measureSuggestions } from './bench-suggestions';
 import { demoDir, tsxEnvironment, workspaceRoot } from '../paths';
 
@@ -69,9 +75,13 @@ function sampleRss(): void {
 const mb = (bytes: number): number => Math.round((bytes / 2 ** 20) * 10) / 10;
 
 export async function runBench(args: string[]): Promise<void> {
-  const parsed = parseArgs(args, { flags: ['json', 'profile-only', 'keyboard-only', 'suggestions-only'] });
+  const parsed = parseArgs(args, {
+    single: ['vocabulary'],
+    flags: ['json', 'profile-only', 'keyboard-only', 'suggestions-only'],
+  });
   if (parsed.positional.length > 0)
     throw new UsageError(`unexpected argument ${JSON.stringify(parsed.positional[0])}`);
+  const vocabulary = vocabularyOption(parsed);
   const json = parsed.flags.has('json');
   const log = (msg: string): void => {
     if (!json) process.stderr.write(`bench: ${msg}\n`);
@@ -82,20 +92,28 @@ export async function runBench(args: string[]): Promise<void> {
     // --keyboard-only: just the test keyboard section (about 20 s).
     // --suggestions-only: just the word and character lists side by side (about two minutes).
     const report = parsed.flags.has('profile-only')
-      ? { profilePipeline: await measureProfile(log) }
+      ? { profilePipeline: await measureProfile(log, vocabulary) }
       : parsed.flags.has('keyboard-only')
-        ? { testKeyboard: await measureKeyboard(log, await demoProfiles(log)) }
+        ? { testKeyboard: await measureKeyboard(log, await demoProfiles(log, vocabulary), vocabulary) }
         : parsed.flags.has('suggestions-only')
-          ? { suggestions: measureSuggestions(log, await demoProfiles(log)) }
-          : await measure(log);
-    if (json) process.stdout.write(`${JSON.stringify(report)}\n`);
-    else process.stdout.write(`${JSON.stringify(report, null, 2)}\n`);
+          ? { suggestions: measureSuggestions(log, await demoProfiles(log, vocabulary), vocabulary) }
+          : await measure(log, vocabulary);
+    const { additions, blocks } = vocabulary;
+    const out =
+      additions.length + blocks.length > 0
+        ? { ...report, vocabulary: { added: additions.length, blocked: blocks.length } }
+        : report;
+    if (json) process.stdout.write(`${JSON.stringify(out)}\n`);
+    else process.stdout.write(`${JSON.stringify(out, null, 2)}\n`);
   } finally {
     clearInterval(timer);
   }
 }
 
-async function measure(log: (msg: string) => void): Promise<Record<string, unknown>> {
+async function measure(
+  log: (msg: string) => void,
+  vocabulary: ClientVocabulary,
+): Promise<Record<string, unknown>> {
   // Other work on this 2-core machine slows every wall-clock figure; report the load.
   const loadAtStart = loadavg()[0];
   const { documents } = loadBrown();
@@ -206,11 +224,11 @@ async function measure(log: (msg: string) => void): Promise<Record<string, unkno
 
   // After the child: a forked child starts with the parent's resident pages
   // counted in its peak, so the profile run's memory must not be there yet.
-  const profilePipeline = await measureProfile(log);
+  const profilePipeline = await measureProfile(log, vocabulary);
   sampleRss();
-  const demo = await demoProfiles(log);
-  const testKeyboard = await measureKeyboard(log, demo);
-  const suggestions = measureSuggestions(log, demo);
+  const demo = await demoProfiles(log, vocabulary);
+  const testKeyboard = await measureKeyboard(log, demo, vocabulary);
+  const suggestions = measureSuggestions(log, demo, vocabulary);
   sampleRss();
 
   const bpc = qualityBits / testAll.length;
@@ -332,7 +350,10 @@ const PROFILE_CATEGORY = 'fiction';
  * under a minute on this machine); then the same with the character-only list
  * for comparison (its keystroke savings and non-word share beside).
  */
-async function measureProfile(log: (msg: string) => void): Promise<{
+async function measureProfile(
+  log: (msg: string) => void,
+  vocabulary: ClientVocabulary,
+): Promise<{
   chars: number;
   documents: number;
   category: string;
@@ -366,7 +387,7 @@ async function measureProfile(log: (msg: string) => void): Promise<{
   const start = performance.now();
   const cpu = process.cpuUsage();
   const { report } = await trainAndEvaluateProfile(
-    { documents: docs, settings: defaultProfileSettings, base, baseWords, folds: 5 },
+    { documents: docs, settings: defaultProfileSettings, base, baseWords, folds: 5, vocabulary },
     () => progressCalls++,
   );
   const seconds = (performance.now() - start) / 1000;
@@ -443,6 +464,7 @@ function demoDocuments(): { id: string; text: string }[] {
  */
 async function demoProfiles(
   log: (msg: string) => void,
+  vocabulary: ClientVocabulary,
 ): Promise<{ word: ProfileResult; char: ProfileResult }> {
   log('demo samples: profile pipeline with the word and the character list');
   const documents = demoDocuments();
@@ -454,7 +476,7 @@ async function demoProfiles(
     folds: 5,
   };
   return {
-    word: await trainAndEvaluateProfile({ ...input, predictor: 'word' }),
+    word: await trainAndEvaluateProfile({ ...input, predictor: 'word', vocabulary }),
     char: await trainAndEvaluateProfile({ ...input, predictor: 'char' }),
   };
 }
@@ -472,6 +494,7 @@ async function demoProfiles(
 async function measureKeyboard(
   log: (msg: string) => void,
   demo: { word: ProfileResult; char: ProfileResult },
+  vocabulary: ClientVocabulary,
 ): Promise<{
   sampleChars: number;
   versionFile: { bytes: number; gzipBytes: number };
@@ -509,12 +532,14 @@ async function measureKeyboard(
     exportedBy: 'bench',
   };
   const file = writeProfileFile(header, modelBytes);
-  const fileWithWords = writeProfileFile(
-    { ...header, ...(wordWeights ? { wordWeights } : {}) },
-    modelBytes,
-    undefined,
-    wordModelBytes,
-  );
+  // The version's file carries the vocabulary in its header, as the API writes it; the keyboard
+  // applies the header's blocks to the list it builds (profileBlockParts).
+  const headerWithWords = {
+    ...header,
+    ...(wordWeights ? { wordWeights } : {}),
+    ...(vocabulary.additions.length + vocabulary.blocks.length > 0 ? { vocabulary } : {}),
+  };
+  const fileWithWords = writeProfileFile(headerWithWords, modelBytes, undefined, wordModelBytes);
   const base = loadBaseModel();
   const baseBytes = serializeModel(base);
   const baseWordBytes = readFileSync(baseWordsFile());
@@ -547,6 +572,7 @@ async function measureKeyboard(
     weights: wordWeights ?? { personal: 1, base: 0, lexicon: 0, cache: 0 },
     capitalize: !defaultProfileSettings.caseFold,
     adaptive: true,
+    ...profileBlockParts(headerWithWords),
   });
   const wordLoadMs = performance.now() - t1;
   const wordTimes = timePerKeyPress((cps, end) => {

@@ -21,7 +21,14 @@ import { BlendedModel, prepareText } from '@keyloom/shared';
 import { offeredNonWords, simulateKeystrokes, type OfferedWordsResult } from '@keyloom/shared';
 import type { ProfileResult } from '@keyloom/shared';
 import { seededRandom } from '@keyloom/shared/src/engine/seeded-random';
-import { CharListPredictor, DEFAULT_WORD_WEIGHTS, WordPredictor, type ListPredictor } from '@keyloom/shared';
+import {
+  blockPartsOf,
+  CharListPredictor,
+  type ClientVocabulary,
+  DEFAULT_WORD_WEIGHTS,
+  WordPredictor,
+  type ListPredictor,
+} from '@keyloom/shared';
 import { buildModel, type ModelChoice } from './model-setup';
 
 /** Characters of cp + cr typed (the leading part of the held-out text). */
@@ -75,7 +82,7 @@ function keystrokes(list: ListPredictor, text: Uint32Array, adaptive: boolean): 
   };
 }
 
-const choiceFor = (base: ModelChoice['base']): ModelChoice => ({
+const choiceFor = (base: ModelChoice['base'], vocabulary: ClientVocabulary): ModelChoice => ({
   order: 5,
   escape: 'C',
   exclusion: true,
@@ -83,6 +90,7 @@ const choiceFor = (base: ModelChoice['base']): ModelChoice => ({
   baseWeight: 'auto',
   predictor: 'word',
   baseCorpus: [],
+  vocabulary,
 });
 
 /** The demo profile's figures for one list. */
@@ -98,7 +106,12 @@ function demoFigures(r: ProfileResult): {
   };
 }
 
-export function measureSuggestions(log: (msg: string) => void, demo: Pair<ProfileResult>) {
+/** @param vocabulary bench --vocabulary: added words learned, blocked words never offered (word lists) */
+export function measureSuggestions(
+  log: (msg: string) => void,
+  demo: Pair<ProfileResult>,
+  vocabulary: ClientVocabulary,
+) {
   const { documents } = loadBrown();
   const isTest = (d: BrownDocument): boolean => HELD_OUT.includes(d.section);
   const trainTexts = documents.filter((d) => !isTest(d)).map((d) => prepareText(d.text));
@@ -110,7 +123,7 @@ export function measureSuggestions(log: (msg: string) => void, demo: Pair<Profil
 
   log('suggestions: Brown split A, order 5, no base, static (word and character lists)');
   let start = performance.now();
-  const plain = buildModel(choiceFor('none'), trainTexts, null, false);
+  const plain = buildModel(choiceFor('none', vocabulary), trainTexts, null, false);
   const plainBuildSeconds = (performance.now() - start) / 1000;
   const staticKs: Pair<KsFigures> = {
     word: keystrokes(plain.predictor(false), test, false),
@@ -121,7 +134,7 @@ export function measureSuggestions(log: (msg: string) => void, demo: Pair<Profil
   start = performance.now();
   const base = { char: trainBaseModelOn(trainTexts), words: buildBaseWords(trainTexts) };
   // No personal text to tune λ on: half and half (common practice, no source).
-  const withBase = buildModel({ ...choiceFor('corpus'), baseWeight: 0.5 }, [], base, true);
+  const withBase = buildModel({ ...choiceFor('corpus', vocabulary), baseWeight: 0.5 }, [], base, true);
   const baseBuildSeconds = (performance.now() - start) / 1000;
   const adaptiveKs: Pair<KsFigures> = {
     word: keystrokes(withBase.predictor(true), test, true),
@@ -148,6 +161,7 @@ export function measureSuggestions(log: (msg: string) => void, demo: Pair<Profil
     weights: DEFAULT_WORD_WEIGHTS,
     capitalize: true,
     adaptive: false,
+    ...blockPartsOf(vocabulary.blocks, { caseFold: false }),
   });
   const rnd = seededRandom(20261203);
   const times: number[] = [];

@@ -1,13 +1,17 @@
 // Building what the evaluate and suggest commands run: a personal PPM model
 // trained on --train files, optionally blended with a base model (Brown, or
 // one trained on --base-corpus files), and the suggestion list on top of it:
-// the word-aware list (default) or the character-only list (--predictor char).
+// the word-aware list (default) or the character-only list (--predictor char), with the client's
+// added and blocked words of --vocabulary FILE.json (word-aware list only).
 import { loadBaseModel, trainBaseModelOn } from '../base-model';
 import { buildBaseWords, loadBaseWords } from '../base-words';
 import { type PpmModel, prepareText } from '@keyloom/shared';
 import { freshModel, trainPersonalModel, tuneBaseWeightOnTail } from '@keyloom/shared';
 import type { EscapeMethod, NextSymbolModel } from '@keyloom/shared';
 import {
+  additionSentences,
+  blockPartsOf,
+  type ClientVocabulary,
   CharListPredictor,
   effectiveWeights,
   trainWordModel,
@@ -20,9 +24,18 @@ import {
 } from '@keyloom/shared';
 import { UsageError } from './cli-errors';
 import { integerIn, numberIn, oneOf, onOff, optionValue, readTextFile, type ParsedArgs } from './args';
+import { vocabularyOption } from './vocabulary-file';
 
 /** Single-valued options shared by evaluate and suggest. */
-export const modelOptionNames = ['order', 'escape', 'exclusion', 'base', 'base-weight', 'predictor'] as const;
+export const modelOptionNames = [
+  'order',
+  'escape',
+  'exclusion',
+  'base',
+  'base-weight',
+  'predictor',
+  'vocabulary',
+] as const;
 /** Options taking one or more files, shared by evaluate and suggest. */
 export const modelFileOptionNames = ['train', 'base-corpus'] as const;
 
@@ -40,23 +53,32 @@ export type ModelChoice = {
   predictor: PredictorKind;
   /** --base-corpus files (empty unless base is 'corpus'). */
   baseCorpus: string[];
+  /** --vocabulary: additions learned into the client's word model, blocks never offered. */
+  vocabulary: ClientVocabulary;
 };
 
-/** Reads and checks --order, --escape, --exclusion, --base, --base-corpus, --base-weight, --predictor. */
+/**
+ * Reads and checks --order, --escape, --exclusion, --base, --base-corpus, --base-weight, --predictor
+ * and --vocabulary.
+ */
 export function modelChoice(parsed: ParsedArgs): ModelChoice {
   const weight = optionValue(parsed, 'base-weight', 'auto');
   const baseCorpus = parsed.values.get('base-corpus') ?? [];
   const baseOption = optionValue(parsed, 'base');
   if (baseCorpus.length > 0 && baseOption !== undefined)
     throw new UsageError('give either --base or --base-corpus, not both (--base-corpus implies a base)');
+  const predictor = oneOf('predictor', optionValue(parsed, 'predictor', 'word'), ['word', 'char'] as const);
+  if (predictor === 'char' && optionValue(parsed, 'vocabulary') !== undefined)
+    throw new UsageError('--vocabulary works with the word-aware list only, not with --predictor char');
   return {
     order: integerIn('order', optionValue(parsed, 'order', '5'), 0, 12),
     escape: oneOf('escape', optionValue(parsed, 'escape', 'C'), ['A', 'B', 'C', 'D'] as const),
     exclusion: onOff('exclusion', optionValue(parsed, 'exclusion', 'on')),
     base: baseCorpus.length > 0 ? 'corpus' : oneOf('base', baseOption ?? 'none', ['none', 'brown'] as const),
     baseWeight: weight === 'auto' ? 'auto' : numberIn('base-weight', weight, 0, 1),
-    predictor: oneOf('predictor', optionValue(parsed, 'predictor', 'word'), ['word', 'char'] as const),
+    predictor,
     baseCorpus,
+    vocabulary: vocabularyOption(parsed),
   };
 }
 
@@ -116,7 +138,9 @@ export type BuiltModel = {
  * The word list: the client's word model (modified Kneser–Ney trigrams, Chen & Goodman 1998) of
  * the training texts, the base vocabulary, and the mixture's weights tuned on the same 10% tail
  * (`adaptive`: whether the list will learn, so the recency cache takes part); the blended
- * character model rescores it; capitals at sentence starts.
+ * character model rescores it; capitals at sentence starts. The vocabulary's additions are learned
+ * into the client's word model after the texts (as the profile pipeline does), and its blocked words
+ * are never offered (a replacement in their place).
  */
 export function buildModel(
   choice: ModelChoice,
@@ -138,8 +162,11 @@ export function buildModel(
       choice.baseWeight === 'auto' ? tuneBaseWeightOnTail(settings, texts, base) : choice.baseWeight;
   const baseWords = baseModels?.words ?? null;
   const hasText = texts.some((t) => t.length > 0);
-  // A list that learns gets a word model even without training text (it starts empty).
-  const allWords = hasText || adaptive ? trainWordModel(texts) : null;
+  const added = additionSentences(choice.vocabulary.additions, { caseFold: false });
+  const blocks = blockPartsOf(choice.vocabulary.blocks, { caseFold: false });
+  // A list that learns gets a word model even without training text (it starts empty); so does
+  // one with added words.
+  const allWords = hasText || adaptive || added.length > 0 ? trainWordModel(texts, added) : null;
   const fresh = (adaptive: boolean): NextSymbolModel => freshModel(personal, base, baseWeight, adaptive);
   const vocabulary =
     allWords || baseWords
@@ -190,6 +217,7 @@ export function buildModel(
         weights: wordWeights,
         capitalize: true,
         adaptive,
+        ...blocks,
       }),
     isWord,
   };

@@ -4,6 +4,7 @@
 import {
   type BaseWords,
   BlendedModel,
+  type BlockParts,
   DEFAULT_WORD_WEIGHTS,
   deserializeBaseWords,
   deserializeModel,
@@ -12,6 +13,7 @@ import {
   partialWord,
   type PpmModel,
   prepareText,
+  profileBlockParts,
   type ProfileFileHeader,
   readProfileFile,
   suggestionContext,
@@ -50,6 +52,11 @@ export type LoadedEngine = {
   baseWords: BaseWords | null;
   /** The word mixture's weights: the header's, else DEFAULT_WORD_WEIGHTS. */
   wordWeights: WordWeights;
+  /**
+   * The header's blocked words and their replacements (profileBlockParts; none in older files):
+   * a blocked word is never offered, also after it is typed during a trial.
+   */
+  blocks: BlockParts;
   /** The text whose finished words the personal model has learned since loading or the last reset. */
   learnedText: string;
 };
@@ -146,7 +153,13 @@ export function loadEngine(
   }
   const settings = typeof header.settings === 'object' && header.settings !== null ? header.settings : {};
   const caseFold = settings.caseFold === true;
-  const parts = { wordBytes: file.words, baseWords, wordWeights, caseFold };
+  let blocks: BlockParts;
+  try {
+    blocks = profileBlockParts(header);
+  } catch (error) {
+    throw new EngineLoadError(`The profile file’s blocked words cannot be used. ${messageOf(error)}`);
+  }
+  const parts = { wordBytes: file.words, baseWords, wordWeights, caseFold, blocks };
   let models;
   try {
     models = engineModels(personal, base, parts);
@@ -170,12 +183,13 @@ export function loadEngine(
 /**
  * The character model (the personal model blended with the base at its weight, or alone without
  * a base) and the word-aware list over it: a fresh copy of the client's word model from its
- * bytes (it learns; null without one), adaptive, capitalising unless the profile is case-folded.
+ * bytes (it learns; null without one), adaptive, capitalising unless the profile is case-folded,
+ * never offering a blocked word (its replacement, if any, in its place).
  */
 function engineModels(
   personal: PpmModel,
   base: LoadedEngine['base'],
-  o: Pick<LoadedEngine, 'wordBytes' | 'baseWords' | 'wordWeights' | 'caseFold'>,
+  o: Pick<LoadedEngine, 'wordBytes' | 'baseWords' | 'wordWeights' | 'caseFold' | 'blocks'>,
 ): Pick<LoadedEngine, 'model' | 'predictor'> {
   const model = base ? new BlendedModel(personal, base.model, base.baseWeight) : personal;
   const words = o.wordBytes ? WordNgramModel.fromBytes(o.wordBytes) : null;
@@ -187,6 +201,7 @@ function engineModels(
     weights: o.wordWeights,
     capitalize: !o.caseFold,
     adaptive: true,
+    ...o.blocks,
   });
   return { model, predictor };
 }
