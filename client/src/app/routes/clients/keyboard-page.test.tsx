@@ -68,7 +68,7 @@ vi.mock('@/features/keyboard/engine/use-keyboard-engine', async () => {
 const versionsUrl = `/api/clients/${ASHBY_ID}/profile-versions`;
 const trialsUrl = (id: string) => `/api/profile-versions/${id}/trials`;
 
-const openKeyboard = async (role: Role, query = '', routes: MockRoutes = {}) => {
+const openKeyboard = async (role: Role, query = '', routes: MockRoutes = {}, autoCapital = false) => {
   const api = mockFetch({
     ...sessionRoutes(sessionUser(role)),
     [`GET /api/clients/${ASHBY_ID}`]: { body: clientRecord() },
@@ -89,6 +89,10 @@ const openKeyboard = async (role: Role, query = '', routes: MockRoutes = {}) => 
   const app = renderApp(`/clients/${ASHBY_ID}/keyboard${query}`);
   await screen.findByRole('heading', { level: 1, name: 'Test keyboard' });
   await screen.findByRole('group', { name: 'Keys' });
+  // Most tests type the lower-case practice phrases: the automatic capital (on by default) is turned off.
+  const capitals = screen.getByRole('checkbox', { name: 'Capital after a full stop' });
+  expect(capitals).toBeChecked();
+  if (!autoCapital) await app.user.click(capitals);
   return { ...app, api };
 };
 
