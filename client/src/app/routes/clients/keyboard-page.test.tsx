@@ -267,6 +267,9 @@ describe('Test keyboard page', () => {
     const posted = createTrialSchema.parse(api.requestsTo(`POST ${trialsUrl(VERSION_1_ID)}`)[0]?.body);
     expect(posted.text).toBe('I go 4!\n');
     expect(replayTrial(posted.events)).toBe(posted.text);
+    expect(
+      screen.getByText(/the simulation types lower-case letters with no shift or layer keys/),
+    ).toBeInTheDocument();
     const types = posted.events.map((e) => e.type);
     for (const type of ['shift', 'layer', 'newline', 'delete_word', 'undo_pick'] as const) {
       expect(types).toContain(type);
@@ -320,6 +323,7 @@ describe('Test keyboard page', () => {
     expect(await screen.findByText('The trial is saved.')).toBeInTheDocument();
     const posted = createTrialSchema.parse(api.requestsTo(`POST ${trialsUrl(VERSION_1_ID)}`)[0]?.body);
     expect(posted.text).toBe('Hi, go\n!');
+    expect(screen.queryByText(/the simulation types lower-case letters/)).toBeNull();
     expect(replayTrial(posted.events)).toBe(posted.text);
     expect(posted.events.filter((e) => e.type !== 'offer').map((e) => e.type)).toEqual([
       'letter',

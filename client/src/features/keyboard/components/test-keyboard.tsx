@@ -30,7 +30,7 @@ import { ModelStatus } from './model-status';
 import { PhrasePicker } from './phrase-picker';
 import { SettingsPanel } from './settings-panel';
 import { SuggestionRow } from './suggestion-row';
-import { slotTargetId } from '../logic/trial-figures';
+import { slotTargetId, usesKeysTheSimulationLacks } from '../logic/trial-figures';
 import { TrialOutput } from './trial-output';
 import { TrialResults, type UploadState } from './trial-results';
 import { useOsReducedMotion } from '../hooks/use-os-reduced-motion';
@@ -67,7 +67,13 @@ const uploadNow = (
   return queue.waitingIds.includes(finished.localTrialId) ? 'queued' : 'sent';
 };
 
-type Finished = { measures: TrialMeasures; slots: number; upload: UploadState; localTrialId: string };
+type Finished = {
+  measures: TrialMeasures;
+  slots: number;
+  upload: UploadState;
+  localTrialId: string;
+  extraKeys: boolean;
+};
 
 const stepOf = (key: KeyDef): Omit<TrialEvent, 't'> =>
   key.kind === 'letter' || key.kind === 'punctuation' || key.kind === 'layer'
@@ -294,7 +300,13 @@ export const TestKeyboard = ({
       note: note.trim(),
     });
     const measures = computeTrialMeasures(input.events, target);
-    setFinished({ measures, slots, upload: 'sending', localTrialId: input.localTrialId });
+    setFinished({
+      measures,
+      slots,
+      upload: 'sending',
+      localTrialId: input.localTrialId,
+      extraKeys: usesKeysTheSimulationLacks(input.events),
+    });
     setNote('');
     pending
       .submit(versionId, input)
@@ -411,6 +423,7 @@ export const TestKeyboard = ({
           simulated={{ ...figures, slots: finished.slots }}
           upload={uploadNow(finished, pending)}
           waiting={pending.pending}
+          extraKeys={finished.extraKeys}
         />
       )}
 
