@@ -329,6 +329,45 @@ describe('test keyboard (HTTP)', () => {
       expect(Number(rows[0].n)).toBe(0);
     });
 
+    it('accepts and measures a log with shift, symbols, new line, delete word, undo pick and a pause; refuses an undo with no pick (400)', async () => {
+      const events: TrialEvent[] = [
+        { t: 0, type: 'shift', value: 'once' },
+        { t: 100, type: 'letter', value: 'P' },
+        { t: 200, type: 'letter', value: 'e' },
+        { t: 300, type: 'suggestion', value: 'people', slot: 0 },
+        { t: 400, type: 'undo_pick' },
+        { t: 500, type: 'letter', value: 'p' },
+        { t: 600, type: 'space' },
+        { t: 700, type: 'pause' },
+        { t: 5_000, type: 'resume' },
+        { t: 5_100, type: 'letter', value: 'x' },
+        { t: 5_200, type: 'delete_word' },
+        { t: 5_300, type: 'newline' },
+        { t: 5_400, type: 'layer', value: 'symbols' },
+        { t: 5_500, type: 'letter', value: '9' },
+        { t: 5_600, type: 'punctuation', value: '!' },
+        { t: 5_700, type: 'layer', value: 'letters' },
+      ];
+      const body = trialBody({ text: 'Pep \n9!', events });
+      const trial = (await post(cast.owner, trials(version.id), body).expect(201)).body as Trial;
+      expect(trial.text).toBe('Pep \n9!');
+      expect(trial.measures).toEqual(computeTrialMeasures(events, null));
+      // Derived by hand: "Pep \n9!" is 7 characters; 14 selections (16 steps less pause and resume).
+      expect(trial.measures).toMatchObject({ characters: 7, keystrokes: 14, suggestionsTaken: 1 });
+
+      const refused = await post(
+        cast.owner,
+        trials(version.id),
+        trialBody({
+          text: 'pe',
+          events: [...typedEvents('pe', 100), { t: 200, type: 'undo_pick' }],
+        }),
+      ).expect(400);
+      expect((refused.body as { message: string }).message).toBe(
+        'Step 3 of the trial log: An undo pick step comes with no suggestion pick to undo.',
+      );
+    });
+
     it('the same trial again → 200 with the stored one; two at once → one row; its id on another version → 409', async () => {
       const body = trialBody();
       const first = (await post(cast.assignedCarer, trials(version.id), body).expect(201)).body as Trial;

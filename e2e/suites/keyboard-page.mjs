@@ -29,3 +29,12 @@ export async function rowSettled(page) {
     );
   });
 }
+
+/**
+ * Turns the automatic capital off (it is on by default): the suites type lower-case phrases with the
+ * lower-case keys.
+ */
+export async function capitalsOff(page) {
+  const box = page.getByRole('checkbox', { name: 'Capital after a full stop' });
+  if (await box.isChecked()) await box.uncheck();
+}

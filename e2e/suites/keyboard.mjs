@@ -15,7 +15,7 @@ import { gunzipSync } from 'node:zlib';
 import { demoSamplesDir as demoDir } from '../../api/dist/config/data-paths.js';
 import { signIn, signOut } from './accounts.mjs';
 import { csrfHeaders } from './api-helpers.mjs';
-import { keyButton, rowSettled, suggestionRow } from './keyboard-page.mjs';
+import { capitalsOff, keyButton, rowSettled, suggestionRow } from './keyboard-page.mjs';
 import { assertNoSidewaysScroll } from './page-checks.mjs';
 
 const DEMO_CLIENT = 'R. Ashby';
@@ -46,6 +46,7 @@ async function openKeyboard(t, query = `?version=${versionId}`) {
   await page.goto(`${t.appUrl}/clients/${clientId}/keyboard${query}`, { waitUntil: 'networkidle' });
   await page.getByRole('heading', { level: 1, name: 'Test keyboard' }).waitFor();
   await page.locator('[data-engine-status="ready"]').waitFor({ timeout: 60_000 });
+  await capitalsOff(page);
   return page;
 }
 
@@ -327,6 +328,40 @@ export const keyboardSuite = {
         assert.equal(trial.settings.scanIntervalMs, 150);
         assert.equal(trial.measures.keystrokes, 2, 'two letters selected');
         assert.equal(trial.measures.switchActivations, presses, 'every switch press is logged');
+        await signOut(page, 'Carer');
+      },
+    ],
+    [
+      'direct mode takes a physical keyboard: a capital, a digit and a new line typed on it are logged',
+      async (t) => {
+        const page = await openKeyboard(t);
+        await page.getByRole('checkbox', { name: 'Capital after a full stop' }).check();
+        assert.ok(
+          await page
+            .getByLabel('Selection mode')
+            .locator('option', { hasText: 'Direct (pointer, touch or keyboard)' })
+            .count(),
+          'the direct mode says it takes a keyboard',
+        );
+        const countBefore = (await trialsOf(page, t.appUrl)).length;
+        await page.getByRole('button', { name: 'Start trial' }).click();
+        await rowSettled(page);
+        // h (a capital at the message's start), i, Space, 2, Enter, o, k (a capital after the line break).
+        await page.keyboard.type('hi 2');
+        await page.keyboard.press('Enter');
+        await page.keyboard.type('ok');
+        await page.waitForFunction(
+          () => document.querySelector('[data-output]')?.getAttribute('data-text') === 'Hi 2\nOk',
+        );
+        assert.deepEqual(await t.seriousViolations(page, 'keyboard physical keys'), []);
+        await page.getByRole('button', { name: 'Finish trial' }).click();
+        await page.getByText('The trial is saved.').waitFor();
+        const trials = await trialsOf(page, t.appUrl);
+        assert.equal(trials.length, countBefore + 1);
+        const [trial] = trials;
+        assert.equal(trial.text, 'Hi 2\nOk');
+        assert.equal(trial.measures.characters, 7);
+        assert.equal(trial.measures.keystrokes, 7, 'one selection per key typed');
         await signOut(page, 'Carer');
       },
     ],

@@ -12,7 +12,7 @@ import assert from 'node:assert/strict';
 import { gunzipSync } from 'node:zlib';
 import { signIn, signOut } from './accounts.mjs';
 import { csrfHeaders } from './api-helpers.mjs';
-import { keyButton, rowSettled, suggestionRow } from './keyboard-page.mjs';
+import { capitalsOff, keyButton, rowSettled, suggestionRow } from './keyboard-page.mjs';
 
 const DEMO_CLIENT = 'R. Ashby';
 // Added names. The demo samples already write "Okafor" once (so every version offers it); the
@@ -109,6 +109,7 @@ async function openKeyboard(t, versionId) {
   });
   await page.getByRole('heading', { level: 1, name: 'Test keyboard' }).waitFor();
   await page.locator('[data-engine-status="ready"]').waitFor({ timeout: 60_000 });
+  await capitalsOff(page);
   await rowSettled(page);
   return page;
 }

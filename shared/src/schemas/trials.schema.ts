@@ -42,23 +42,49 @@ export type TrialSettings = z.infer<typeof trialSettingsSchema>;
 
 /**
  * One logged step of a trial. `t` is milliseconds since the trial started.
- * - `letter` / `punctuation`: `value` is the one character inserted.
+ * - `letter` / `punctuation`: `value` is the one character inserted (a digit is a `letter` step; a
+ *   capital is logged as the capital letter it is, whether shift or the automatic capital gave it).
  * - `space`: a space inserted. `backspace`: the last character removed.
+ * - `newline`: a line break ("\n") inserted.
+ * - `delete_word`: removes the word before the caret and the spaces after it ("tea  " → "");
+ *   at a word's end removes that word ("i want tea" → "i want "); after punctuation removes the
+ *   punctuation mark with the word before it ("tea. " → "").
  * - `suggestion`: `value` is the whole word picked from slot `slot` (0-based); the word being
  *   typed is replaced by it and a space follows.
+ * - `undo_pick`: the text goes back to what it was just before the last suggestion pick not yet
+ *   undone (what was typed after that pick goes with it); a replay refuses it when every pick has
+ *   been undone or there was none.
+ * - `shift`: `value` is the shift state chosen: `once` (the next letter is a capital), `lock`
+ *   (caps lock) or `off`. `layer`: `value` is the key layer shown, `letters` or `symbols`.
+ *   Neither changes the text by itself.
+ * - `pause` / `resume`: the trial was paused and taken up again (no text change).
  * - `switch`: one switch activation in scanning mode (it changes no text by itself).
  * - `offer`: the suggestion row changed; `words` is what it showed (possibly empty).
- * Letters, punctuation, space, backspace and suggestions are the trial's keystrokes (selections).
+ * Selections (the trial's keystrokes for keystroke savings and KSPC) are every key the person had to
+ * choose: letters, punctuation, space, backspace, new line, delete word, suggestions, undo pick, shift
+ * and layer. `pause`, `resume`, `switch` and `offer` are not selections.
  */
 export const trialEventTypes = [
   'letter',
   'punctuation',
   'space',
   'backspace',
+  'newline',
+  'delete_word',
   'suggestion',
+  'undo_pick',
+  'shift',
+  'layer',
+  'pause',
+  'resume',
   'switch',
   'offer',
 ] as const;
+/** The values of a `shift` step and of a `layer` step. */
+export const trialShiftStates = ['off', 'once', 'lock'] as const;
+export type TrialShiftState = (typeof trialShiftStates)[number];
+export const trialKeyLayers = ['letters', 'symbols'] as const;
+export type TrialKeyLayer = (typeof trialKeyLayers)[number];
 export const trialEventTypeSchema = z.enum(trialEventTypes);
 export type TrialEventType = z.infer<typeof trialEventTypeSchema>;
 
@@ -104,7 +130,7 @@ export type CreateTrialBody = z.output<typeof createTrialSchema>;
 export const trialMeasuresSchema = z.object({
   /** Code points of the final text. */
   characters: z.number().int(),
-  /** Selections: letters, punctuation, spaces, backspaces and suggestions picked. */
+  /** Selections: every key chosen (see trialEventTypes); not pauses, switch activations or offers. */
   keystrokes: z.number().int(),
   /** Switch activations (scanning only; 0 otherwise). */
   switchActivations: z.number().int(),

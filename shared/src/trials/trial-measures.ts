@@ -1,7 +1,7 @@
 // What a trial measured, computed from its log alone (the browser shows it at once; the API
 // recomputes it from the same log before storing, so the figures never depend on the browser).
 import type { TrialEvent, TrialMeasures } from '../schemas/trials.schema';
-import { applyTrialEvent, isSelection } from './trial-replay';
+import { emptyReplayState, isSelection, stepTrial } from './trial-replay';
 
 const round6 = (x: number) => Math.round(x * 1e6) / 1e6;
 
@@ -27,8 +27,8 @@ export function minimumStringDistance(a: string, b: string): number {
 /**
  * The error rate left in the text against the target phrase: MSD / max(|target|, |text|)
  * (the "MSD error rate" of Soukoreff & MacKenzie 2001 — from memory). Compared ignoring case and
- * the spaces at either end, because the test keyboard has no shift key and a picked suggestion
- * leaves a space behind.
+ * the spaces at either end, because practice phrases are written without capitals (the automatic
+ * capital would otherwise count as an error) and a picked suggestion leaves a space behind.
  */
 export function msdErrorRate(target: string, text: string): number {
   const a = target.trim().toLowerCase();
@@ -40,7 +40,7 @@ export function msdErrorRate(target: string, text: string): number {
 /**
  * Measures a trial from its log.
  * - keystroke savings = 1 − keystrokes / characters, KSPC = keystrokes / characters, where a
- *   keystroke is one selection (letter, punctuation, space, backspace or picked suggestion) and
+ *   keystroke is one selection (isSelection: every key chosen, shift and layer keys included) and
  *   characters are the code points of the final text (MacKenzie 2002, KSPC; KS = 1 − KSPC when the
  *   baseline is one key per character — docs/references.md §2, derived);
  * - words per minute = ((characters − 1) / seconds) × 60 / 5, timed from the first selection to the
@@ -53,7 +53,7 @@ export function computeTrialMeasures(
   events: readonly TrialEvent[],
   targetPhrase: string | null,
 ): TrialMeasures {
-  let text = '';
+  let state = emptyReplayState;
   let keystrokes = 0;
   let switchActivations = 0;
   let suggestionsOffered = 0;
@@ -71,13 +71,14 @@ export function computeTrialMeasures(
       first ??= event.t;
       last = event.t;
     }
-    const next = applyTrialEvent(text, event);
+    const next = stepTrial(state, event);
     if (event.type === 'suggestion') {
       suggestionsTaken++;
-      charactersFromSuggestions += [...next].length - [...text].length;
+      charactersFromSuggestions += [...next.text].length - [...state.text].length;
     }
-    text = next;
+    state = next;
   }
+  const text = state.text;
   const characters = [...text].length;
   const durationMs = first === null ? 0 : Math.max(0, last - first);
   const seconds = durationMs / 1000;

@@ -1,8 +1,8 @@
 // The one implementation of what a trial's logged steps do to the text: the test keyboard applies
 // each step with it as the person types, and the API replays the whole log with it to check the
 // text it is sent and to measure the trial.
-import type { TrialEvent } from '../schemas/trials.schema';
-import { toCodePoints, wordStart } from '../engine/search/word-chars';
+import { type TrialEvent, trialKeyLayers, trialShiftStates } from '../schemas/trials.schema';
+import { isWordChar, toCodePoints, wordStart } from '../engine/search/word-chars';
 
 /** A trial log that cannot be replayed; the message says which step and why. */
 export class TrialReplayError extends Error {
@@ -34,12 +34,14 @@ export function partialWord(text: string): string {
 }
 
 /**
- * The text after one step. Selections change it; `switch` and `offer` leave it as it is.
+ * The text after one step. Selections change it; `shift`, `layer`, `pause`, `resume`, `switch` and
+ * `offer` leave it as it is (a `shift` or `layer` step must name a known state).
  * A suggestion replaces the word being typed by the whole suggested word and adds a space (and
  * puts one before it right after sentence punctuation). Sentence punctuation typed after a word
  * and a space replaces that space and keeps one after it.
+ * `undo_pick` needs the texts before earlier picks: use stepTrial (or replayTrial) for it.
  * @throws TrialReplayError for a letter or punctuation step without exactly one character,
- *   or a suggestion without a word
+ *   a suggestion without a word, a shift or layer step with an unknown value, or an `undo_pick`
  */
 export function applyTrialEvent(text: string, event: TrialEvent): string {
   switch (event.type) {
@@ -56,12 +58,16 @@ export function applyTrialEvent(text: string, event: TrialEvent): string {
     }
     case 'space':
       return `${text} `;
+    case 'newline':
+      return `${text}\n`;
     case 'backspace': {
       if (text === '') return text;
       const chars = [...text];
       chars.pop();
       return chars.join('');
     }
+    case 'delete_word':
+      return deleteWord(text);
     case 'suggestion': {
       const word = event.value ?? '';
       if (word.trim() === '') throw new TrialReplayError('A suggestion step must name the word picked.');
@@ -69,23 +75,87 @@ export function applyTrialEvent(text: string, event: TrialEvent): string {
       const before = text.slice(0, text.length - typed.length);
       return `${before}${SENTENCE_PUNCTUATION.test(before) ? ' ' : ''}${word} `;
     }
+    case 'undo_pick':
+      throw new TrialReplayError('An undo pick step needs the log before it (replay the whole log).');
+    case 'shift':
+      return knownValue(text, event, trialShiftStates);
+    case 'layer':
+      return knownValue(text, event, trialKeyLayers);
+    case 'pause':
+    case 'resume':
     case 'switch':
     case 'offer':
       return text;
   }
 }
 
+function knownValue(text: string, event: TrialEvent, values: readonly string[]): string {
+  if (!values.includes(event.value ?? '')) {
+    throw new TrialReplayError(
+      `A ${event.type} step must be one of ${values.join(', ')}, not "${event.value ?? ''}".`,
+    );
+  }
+  return text;
+}
+
+/**
+ * Removes the word before the caret with the spaces after it. Punctuation between that word and the
+ * caret goes with it ("i want tea. " → "i want "), so one press never leaves a mark hanging; a line
+ * break (with the spaces after it) is removed on its own.
+ */
+function deleteWord(text: string): string {
+  const cps = toCodePoints(text);
+  let end = cps.length;
+  while (end > 0 && cps[end - 1] === SPACE) end--;
+  if (end > 0 && cps[end - 1] === NEWLINE) return fromCodePoints(cps.subarray(0, end - 1));
+  while (end > 0 && cps[end - 1] !== SPACE && cps[end - 1] !== NEWLINE && !isWordChar(cps[end - 1]!)) end--;
+  return fromCodePoints(cps.subarray(0, wordStart(cps, end)));
+}
+
+const SPACE = 0x20;
+const NEWLINE = 0x0a;
+const fromCodePoints = (cps: Int32Array): string => String.fromCodePoint(...cps);
+
+/** Steps that are not selections (not keystrokes): they choose no key. */
+const NOT_SELECTIONS: ReadonlySet<TrialEvent['type']> = new Set(['switch', 'offer', 'pause', 'resume']);
+
 /** Whether a step is a selection (counts as a keystroke). */
 export function isSelection(event: TrialEvent): boolean {
-  return event.type !== 'switch' && event.type !== 'offer';
+  return !NOT_SELECTIONS.has(event.type);
+}
+
+/**
+ * Where a replay stands after some steps: the text, and the texts just before each suggestion pick
+ * not yet undone (newest last), which an `undo_pick` step goes back to.
+ */
+export type TrialReplayState = { readonly text: string; readonly beforePicks: readonly string[] };
+
+/** The state before the first step: an empty text, no picks. */
+export const emptyReplayState: TrialReplayState = { text: '', beforePicks: [] };
+
+/**
+ * The state after one step: applyTrialEvent for every step but `undo_pick`, which goes back to the
+ * text before the last pick not yet undone; a suggestion remembers the text before it.
+ * @throws TrialReplayError as applyTrialEvent does, and for an `undo_pick` with no pick left to undo
+ */
+export function stepTrial(state: TrialReplayState, event: TrialEvent): TrialReplayState {
+  if (event.type === 'undo_pick') {
+    const text = state.beforePicks.at(-1);
+    if (text === undefined)
+      throw new TrialReplayError('An undo pick step comes with no suggestion pick to undo.');
+    return { text, beforePicks: state.beforePicks.slice(0, -1) };
+  }
+  const text = applyTrialEvent(state.text, event);
+  if (event.type !== 'suggestion') return text === state.text ? state : { ...state, text };
+  return { text, beforePicks: [...state.beforePicks, state.text] };
 }
 
 /** Replays a whole log from an empty text. @throws TrialReplayError naming the step (1-based). */
 export function replayTrial(events: readonly TrialEvent[]): string {
-  let text = '';
+  let state = emptyReplayState;
   events.forEach((event, index) => {
     try {
-      text = applyTrialEvent(text, event);
+      state = stepTrial(state, event);
     } catch (error) {
       if (error instanceof TrialReplayError) {
         throw new TrialReplayError(`Step ${index + 1} of the trial log: ${error.message}`);
@@ -93,5 +163,5 @@ export function replayTrial(events: readonly TrialEvent[]): string {
       throw error;
     }
   });
-  return text;
+  return state.text;
 }

@@ -6,6 +6,8 @@ import {
   applyTrialEvent,
   partialWord,
   replayTrial,
+  stepTrial,
+  emptyReplayState,
   suggestionContext,
   TrialReplayError,
 } from './trial-replay';
@@ -69,6 +71,99 @@ describe('trial replay', () => {
       ),
     );
     expect(() => replayTrial([{ t: 0, type: 'suggestion' }])).toThrow(TrialReplayError);
+  });
+});
+
+describe('trial replay: new line, delete word, undo pick, shift, layer, pause', () => {
+  // Hand-worked logs: each expected text is worked out by hand from the step definitions in
+  // trialEventTypes (derived, no outside source).
+  it('a new line inserts a line break; shift, layer, pause and resume change no text', () => {
+    const events: TrialEvent[] = [
+      { t: 0, type: 'shift', value: 'once' },
+      { t: 10, type: 'letter', value: 'H' },
+      { t: 20, type: 'letter', value: 'i' },
+      { t: 30, type: 'newline' },
+      { t: 40, type: 'pause' },
+      { t: 50, type: 'resume' },
+      { t: 60, type: 'layer', value: 'symbols' },
+      { t: 70, type: 'letter', value: '2' },
+      { t: 80, type: 'layer', value: 'letters' },
+    ];
+    expect(replayTrial(events)).toBe('Hi\n2');
+  });
+
+  it('delete word: the word before the caret and its spaces; after punctuation the mark goes with its word', () => {
+    const del = (text: string) => applyTrialEvent(text, { t: 0, type: 'delete_word' });
+    expect(del('i want tea')).toBe('i want ');
+    expect(del('i want tea  ')).toBe('i want ');
+    expect(del('i want tea. ')).toBe('i want ');
+    expect(del('come sailing?')).toBe('come ');
+    expect(del("i don't")).toBe('i ');
+    expect(del('hi\n')).toBe('hi');
+    expect(del('')).toBe('');
+    expect(replayTrial([...typed('tea, please', 100), { t: 200, type: 'delete_word' }])).toBe('tea, ');
+  });
+
+  it('undo after two picks goes back one pick at a time, letters typed before each pick restored', () => {
+    const events: TrialEvent[] = [
+      ...typed('i w', 100),
+      { t: 200, type: 'suggestion', value: 'want', slot: 0 },
+      { t: 300, type: 'letter', value: 't' },
+      { t: 400, type: 'suggestion', value: 'tea', slot: 1 },
+    ];
+    let state = emptyReplayState;
+    for (const e of events) state = stepTrial(state, e);
+    expect(state).toEqual({ text: 'i want tea ', beforePicks: ['i w', 'i want t'] });
+    state = stepTrial(state, { t: 500, type: 'undo_pick' });
+    expect(state.text).toBe('i want t');
+    state = stepTrial(state, { t: 600, type: 'undo_pick' });
+    expect(state).toEqual({ text: 'i w', beforePicks: [] });
+    expect(
+      replayTrial([...events, { t: 500, type: 'undo_pick' }, { t: 600, type: 'letter', value: 'o' }]),
+    ).toBe('i want to');
+  });
+
+  it('refuses an undo with no pick left, and unknown shift or layer values', () => {
+    expect(() =>
+      replayTrial([
+        ...typed('a', 0),
+        { t: 10, type: 'suggestion', value: 'an', slot: 0 },
+        { t: 20, type: 'undo_pick' },
+        { t: 30, type: 'undo_pick' },
+      ]),
+    ).toThrow(
+      new TrialReplayError(
+        'Step 4 of the trial log: An undo pick step comes with no suggestion pick to undo.',
+      ),
+    );
+    expect(() => replayTrial([{ t: 0, type: 'undo_pick' }])).toThrow(TrialReplayError);
+    expect(() => replayTrial([{ t: 0, type: 'shift', value: 'twice' }])).toThrow(
+      'A shift step must be one of off, once, lock, not "twice".',
+    );
+    expect(() => replayTrial([{ t: 0, type: 'layer' }])).toThrow(TrialReplayError);
+  });
+
+  it('counts shift, layer, new line, delete word and undo pick as keystrokes; pause and resume not', () => {
+    const events: TrialEvent[] = [
+      { t: 0, type: 'shift', value: 'once' },
+      { t: 100, type: 'letter', value: 'O' },
+      { t: 200, type: 'letter', value: 'k' },
+      { t: 250, type: 'pause' },
+      { t: 5_000, type: 'resume' },
+      { t: 5_100, type: 'suggestion', value: 'okay', slot: 0 },
+      { t: 5_200, type: 'undo_pick' },
+      { t: 5_300, type: 'newline' },
+      { t: 5_400, type: 'layer', value: 'symbols' },
+      { t: 5_500, type: 'letter', value: '7' },
+      { t: 5_600, type: 'space' },
+      { t: 5_700, type: 'letter', value: 'x' },
+      { t: 5_800, type: 'delete_word' },
+    ];
+    const m = computeTrialMeasures(events, null);
+    // "Ok\n7 " is 5 characters; 11 selections (13 steps less pause and resume).
+    expect(replayTrial(events)).toBe('Ok\n7 ');
+    expect(m).toMatchObject({ characters: 5, keystrokes: 11, suggestionsTaken: 1, durationMs: 5_800 });
+    expect(m.kspc).toBeCloseTo(11 / 5, 6);
   });
 });
 

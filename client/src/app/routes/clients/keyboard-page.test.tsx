@@ -68,7 +68,7 @@ vi.mock('@/features/keyboard/engine/use-keyboard-engine', async () => {
 const versionsUrl = `/api/clients/${ASHBY_ID}/profile-versions`;
 const trialsUrl = (id: string) => `/api/profile-versions/${id}/trials`;
 
-const openKeyboard = async (role: Role, query = '', routes: MockRoutes = {}) => {
+const openKeyboard = async (role: Role, query = '', routes: MockRoutes = {}, autoCapital = false) => {
   const api = mockFetch({
     ...sessionRoutes(sessionUser(role)),
     [`GET /api/clients/${ASHBY_ID}`]: { body: clientRecord() },
@@ -89,6 +89,10 @@ const openKeyboard = async (role: Role, query = '', routes: MockRoutes = {}) => 
   const app = renderApp(`/clients/${ASHBY_ID}/keyboard${query}`);
   await screen.findByRole('heading', { level: 1, name: 'Test keyboard' });
   await screen.findByRole('group', { name: 'Keys' });
+  // Most tests type the lower-case practice phrases: the automatic capital (on by default) is turned off.
+  const capitals = screen.getByRole('checkbox', { name: 'Capital after a full stop' });
+  expect(capitals).toBeChecked();
+  if (!autoCapital) await app.user.click(capitals);
   return { ...app, api };
 };
 
@@ -206,6 +210,134 @@ describe('Test keyboard page', () => {
     expect(results.getByText(/^25\.0% measured; 36\.7% simulated at 5 slots$/)).toBeInTheDocument();
     expect(results.getByText('7.4 estimated', { exact: false })).toBeInTheDocument();
   });
+
+  it('shift, caps lock, the symbols layer, Enter, delete word, undo pick and the automatic capital; the posted log replays to the text', async () => {
+    const { user, api } = await openKeyboard('carer', '', {}, true);
+    await user.click(screen.getByRole('button', { name: 'Start trial' }));
+    // The message's start: the letters show capitals, and a capital is logged as the letter it is.
+    expect(
+      within(screen.getByRole('group', { name: 'Keys' })).queryByRole('button', { name: 'i' }),
+    ).toBeNull();
+    await user.click(key('I'));
+    await user.click(key('space'));
+    await user.click(key('g'));
+    const undo = key('undo pick');
+    expect(undo).toHaveAttribute('aria-disabled', 'true');
+    await user.click(await screen.findByRole('button', { name: 'Suggestion 1: garden' }));
+    expect(output().textContent).toBe('I garden ');
+    expect(undo).not.toHaveAttribute('aria-disabled');
+    await user.click(undo);
+    expect(output().textContent).toBe('I g');
+    expect(undo).toHaveAttribute('aria-disabled', 'true');
+    await user.click(undo); // nothing left to undo: nothing happens
+    expect(output().textContent).toBe('I g');
+    await user.click(key('o'));
+    await user.click(key('space'));
+
+    // Shift: one press for the next letter, two for caps lock, a third for off.
+    expect(key('shift')).toHaveAttribute('aria-pressed', 'false');
+    await user.click(key('shift'));
+    expect(key('shift: next capital')).toHaveAttribute('aria-pressed', 'true');
+    await user.click(key('W'));
+    expect(key('shift')).toHaveAttribute('aria-pressed', 'false');
+    await user.click(key('shift'));
+    await user.click(key('shift: next capital'));
+    expect(key('caps lock')).toHaveAttribute('aria-pressed', 'true');
+    await user.click(key('E'));
+    await user.click(key('T'));
+    expect(output().textContent).toBe('I go WET');
+    await user.click(key('caps lock'));
+    await user.click(key('delete word'));
+    expect(output().textContent).toBe('I go ');
+
+    await user.click(key('123 numbers and symbols'));
+    expect(
+      within(screen.getByRole('group', { name: 'Keys' })).queryByRole('button', { name: 'q' }),
+    ).toBeNull();
+    await user.click(key('4'));
+    await user.click(key('exclamation mark'));
+    await user.click(key('ABC letters'));
+    await user.click(key('Enter new line'));
+    expect(output().textContent).toBe('I go 4!\n');
+    // After a line break the capital comes again.
+    expect(key('Y')).toBeInTheDocument();
+    await user.click(screen.getByRole('button', { name: 'Finish trial' }));
+
+    expect(await screen.findByText('The trial is saved.')).toBeInTheDocument();
+    const posted = createTrialSchema.parse(api.requestsTo(`POST ${trialsUrl(VERSION_1_ID)}`)[0]?.body);
+    expect(posted.text).toBe('I go 4!\n');
+    expect(replayTrial(posted.events)).toBe(posted.text);
+    expect(
+      screen.getByText(/the simulation types lower-case letters with no shift or layer keys/),
+    ).toBeInTheDocument();
+    const types = posted.events.map((e) => e.type);
+    for (const type of ['shift', 'layer', 'newline', 'delete_word', 'undo_pick'] as const) {
+      expect(types).toContain(type);
+    }
+    // The refused second undo logged nothing.
+    expect(types.filter((type) => type === 'undo_pick')).toHaveLength(1);
+    expect(posted.events.filter((e) => e.type === 'letter').map((e) => e.value)).toEqual([
+      'I',
+      'g',
+      'o',
+      'W',
+      'E',
+      'T',
+      '4',
+    ]);
+  }, 30_000); // many clicks: slow on a shared test machine
+
+  it('takes a physical keyboard in direct mode: letters, punctuation, Space, Backspace, Enter, number keys picking', async () => {
+    const { user, api } = await openKeyboard('carer');
+    expect(
+      within(screen.getByLabelText('Selection mode')).getByRole('option', {
+        name: 'Direct (pointer, touch or keyboard)',
+      }),
+    ).toBeInTheDocument();
+    // Before a trial runs, a physical key types nothing.
+    await user.click(output());
+    await user.keyboard('x');
+    expect(output().textContent).toBe('');
+    const numberKeys = screen.getByRole('checkbox', { name: 'Number keys pick suggestions' });
+    expect(numberKeys).not.toBeChecked();
+    await user.click(numberKeys);
+    await user.click(screen.getByRole('button', { name: 'Start trial' }));
+    expect(output()).toHaveFocus();
+    await user.keyboard('Hi, g');
+    expect(output().textContent).toBe('Hi, g');
+    await screen.findByRole('button', { name: 'Suggestion 2: go' });
+    await user.keyboard('2');
+    expect(output().textContent).toBe('Hi, go ');
+    await user.keyboard('{Backspace}{Enter}!');
+    expect(output().textContent).toBe('Hi, go\n!');
+    // The note field keeps its keys; Tab still moves focus.
+    const note = screen.getByLabelText('Note about this trial (optional)');
+    await user.type(note, 'ok 1');
+    expect(note).toHaveValue('ok 1');
+    expect(output().textContent).toBe('Hi, go\n!');
+    output().focus();
+    await user.keyboard('{Tab}');
+    expect(output()).not.toHaveFocus();
+    await user.click(screen.getByRole('button', { name: 'Finish trial' }));
+
+    expect(await screen.findByText('The trial is saved.')).toBeInTheDocument();
+    const posted = createTrialSchema.parse(api.requestsTo(`POST ${trialsUrl(VERSION_1_ID)}`)[0]?.body);
+    expect(posted.text).toBe('Hi, go\n!');
+    expect(screen.queryByText(/the simulation types lower-case letters/)).toBeNull();
+    expect(replayTrial(posted.events)).toBe(posted.text);
+    expect(posted.events.filter((e) => e.type !== 'offer').map((e) => e.type)).toEqual([
+      'letter',
+      'letter',
+      'punctuation',
+      'space',
+      'letter',
+      'suggestion',
+      'backspace',
+      'newline',
+      'punctuation',
+    ]);
+    expect(posted.events.find((e) => e.type === 'suggestion')).toMatchObject({ value: 'go', slot: 1 });
+  }, 30_000);
 
   it('scans rows then keys at the scan interval and selects with the switch (Space)', async () => {
     const { user } = await openKeyboard('carer');

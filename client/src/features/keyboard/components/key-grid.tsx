@@ -26,8 +26,16 @@ type KeyGridProps = {
   dwell: DwellView;
 };
 
-/** Columns a key takes: the space bar three, delete two, every other key one. */
-const span = (key: KeyDef): number => (key.kind === 'space' ? 3 : key.kind === 'backspace' ? 2 : 1);
+/** Columns a key takes: the space bar three, delete and the function keys two, every other key one. */
+const WIDE: ReadonlySet<KeyDef['kind']> = new Set([
+  'backspace',
+  'newline',
+  'delete_word',
+  'undo_pick',
+  'shift',
+  'layer',
+]);
+const span = (key: KeyDef): number => (key.kind === 'space' ? 3 : WIDE.has(key.kind) ? 2 : 1);
 
 const moves: Record<string, [number, number]> = {
   ArrowLeft: [0, -1],
@@ -122,17 +130,20 @@ export const KeyGrid = memo(function KeyGrid({
                   type="button"
                   tabIndex={r === row && c === col ? 0 : -1}
                   aria-label={key.spokenLabel}
+                  aria-pressed={key.pressed}
+                  aria-disabled={key.disabled ? true : undefined}
                   data-key={key.id}
                   data-scanned={scanned ? 'on' : undefined}
                   className={cn(
                     targetClasses({ highContrast, largeTargets, scanned, strongCue }),
                     span(key) === 3 && 'col-span-3',
                     span(key) === 2 && 'col-span-2',
+                    key.disabled && 'opacity-50',
                   )}
                   style={tintStyle(p, strongCue, highContrast, scanned)}
                   onClick={() => {
                     setFocus([r, c]);
-                    onSelect(key);
+                    if (!key.disabled) onSelect(key);
                   }}
                   onFocus={() => setFocus([r, c])}
                   onKeyDown={(event) => moveFocus(event, r, c)}

@@ -247,6 +247,18 @@ export const SettingsPanel = memo(function SettingsPanel({
           onChange={(tintKeys) => set({ tintKeys })}
         />
         <Toggle
+          label="Capital after a full stop"
+          hint="The next letter is a capital at the message's start, after a line break and after . ? or ! and a space."
+          checked={settings.autoCapital}
+          onChange={(autoCapital) => set({ autoCapital })}
+        />
+        <Toggle
+          label="Number keys pick suggestions"
+          hint="In direct mode, the keys 1 to 9 of a physical keyboard pick suggestions 1 to 9 instead of typing digits."
+          checked={settings.numberKeysPick}
+          onChange={(numberKeysPick) => set({ numberKeysPick })}
+        />
+        <Toggle
           label="Reduce motion"
           hint={
             osReducedMotion

@@ -1,10 +1,12 @@
 import {
-  applyTrialEvent,
   type Client,
   computeTrialMeasures,
+  isSelection,
   type PracticePhrase,
   type TrialEvent,
+  type TrialKeyLayer,
   type TrialMeasures,
+  type TrialShiftState,
 } from '@keyloom/shared';
 import { type ReactNode, useCallback, useEffect, useId, useMemo, useRef, useState } from 'react';
 import { Button } from '@/components/ui/button';
@@ -16,7 +18,8 @@ import { useDwell } from '../hooks/use-dwell';
 import { usePendingTrials } from '../hooks/use-pending-trials';
 import { useScanner } from '../hooks/use-scanner';
 import { useTrialSession } from '../hooks/use-trial-session';
-import { type KeyDef, keyRows } from '../logic/layouts';
+import { atSentenceStart, hasCase, type KeyDef, keyRows, nextShift } from '../logic/layouts';
+import { physicalKeyAction } from '../logic/physical-keys';
 import { KeyGrid } from './key-grid';
 import {
   defaultKeyboardSettings,
@@ -27,7 +30,7 @@ import { ModelStatus } from './model-status';
 import { PhrasePicker } from './phrase-picker';
 import { SettingsPanel } from './settings-panel';
 import { SuggestionRow } from './suggestion-row';
-import { slotTargetId } from '../logic/trial-figures';
+import { slotTargetId, usesKeysTheSimulationLacks } from '../logic/trial-figures';
 import { TrialOutput } from './trial-output';
 import { TrialResults, type UploadState } from './trial-results';
 import { useOsReducedMotion } from '../hooks/use-os-reduced-motion';
@@ -64,10 +67,16 @@ const uploadNow = (
   return queue.waitingIds.includes(finished.localTrialId) ? 'queued' : 'sent';
 };
 
-type Finished = { measures: TrialMeasures; slots: number; upload: UploadState; localTrialId: string };
+type Finished = {
+  measures: TrialMeasures;
+  slots: number;
+  upload: UploadState;
+  localTrialId: string;
+  extraKeys: boolean;
+};
 
 const stepOf = (key: KeyDef): Omit<TrialEvent, 't'> =>
-  key.kind === 'letter' || key.kind === 'punctuation'
+  key.kind === 'letter' || key.kind === 'punctuation' || key.kind === 'layer'
     ? { type: key.kind, value: key.value }
     : { type: key.kind };
 
@@ -101,7 +110,20 @@ export const TestKeyboard = ({
 
   // The version decides the slot count (its simulated figures are at that count).
   const slots = versionSlots;
-  const rows = useMemo(() => keyRows(settings.layout), [settings.layout]);
+  // Shift and the key layer: the ref is the truth for presses in the same tick, the state draws the keys.
+  const [shift, setShiftState] = useState<TrialShiftState>('off');
+  const shiftRef = useRef<TrialShiftState>('off');
+  const setShift = useCallback((next: TrialShiftState) => {
+    shiftRef.current = next;
+    setShiftState(next);
+  }, []);
+  const [layer, setLayer] = useState<TrialKeyLayer>('letters');
+  const capital = shift !== 'off' || (settings.autoCapital && atSentenceStart(session.text));
+  const canUndoPick = session.canUndoPick;
+  const rows = useMemo(
+    () => keyRows(settings.layout, { shift, layer, capital, canUndoPick }),
+    [settings.layout, shift, layer, capital, canUndoPick],
+  );
   const target = phrases.find((phrase) => phrase.id === phraseId)?.text ?? null;
 
   // ---- asking the engine ------------------------------------------------------------------
@@ -113,12 +135,11 @@ export const TestKeyboard = ({
   /** Every selection: mark the key press, then ask the engine about the new text. */
   const select = useCallback(
     (step: Omit<TrialEvent, 't'>) => {
-      const next = applyTrialEvent(textRef.current, { ...step, t: 0 });
-      textRef.current = next;
       const seq = ++seqRef.current;
       markKeyPress(seq);
+      const next = sessionSelect(step);
+      textRef.current = next;
       request(next, seq, slots);
-      sessionSelect(step);
     },
     [request, slots, sessionSelect],
   );
@@ -161,7 +182,28 @@ export const TestKeyboard = ({
     (slot: number, word: string) => select({ type: 'suggestion', value: word, slot }),
     [select],
   );
-  const press = useCallback((key: KeyDef) => select(stepOf(key)), [select]);
+  const { autoCapital } = settings;
+  const press = useCallback(
+    (key: KeyDef) => {
+      if (key.disabled) return;
+      if (key.kind === 'shift') {
+        const next = nextShift(shiftRef.current);
+        setShift(next);
+        select({ type: 'shift', value: next });
+        return;
+      }
+      if (key.kind === 'layer') setLayer(key.value === 'symbols' ? 'symbols' : 'letters');
+      if (key.kind === 'letter' && hasCase(key.value)) {
+        // Shift (once or locked) or the automatic capital: the capital is logged as the letter it is.
+        const upper = shiftRef.current !== 'off' || (autoCapital && atSentenceStart(textRef.current));
+        if (shiftRef.current === 'once') setShift('off');
+        select({ type: 'letter', value: upper ? key.value.toUpperCase() : key.value });
+        return;
+      }
+      select(stepOf(key));
+    },
+    [select, autoCapital, setShift],
+  );
 
   // Scanning and dwell call back later: read the newest row and keys through refs.
   const latest = useRef({ words, rows, pick, press });
@@ -202,6 +244,30 @@ export const TestKeyboard = ({
     }, []),
   });
 
+  // ---- a physical keyboard in direct mode, while a trial runs ------------------------------
+  const physical = settings.selectionMode === 'direct' && session.running;
+  const { numberKeysPick } = settings;
+  useEffect(() => {
+    if (!physical) return;
+    const onKeyDown = (event: KeyboardEvent) => {
+      const target = event.target instanceof Element ? event.target : null;
+      // Form fields (the trial note, the settings) keep every key.
+      if (event.defaultPrevented || target?.closest('input, textarea, select, [contenteditable="true"]'))
+        return;
+      const onControl = target?.closest('button, a, summary') != null;
+      const action = physicalKeyAction(event, { onControl, numberKeysPick });
+      if (!action) return;
+      event.preventDefault();
+      const now = latest.current;
+      if ('slot' in action) {
+        const word = now.words[action.slot];
+        if (word) now.pick(action.slot, word);
+      } else now.press(action.key);
+    };
+    document.addEventListener('keydown', onKeyDown);
+    return () => document.removeEventListener('keydown', onKeyDown);
+  }, [physical, numberKeysPick]);
+
   const scanState = scanner.running ? scanner.state : null;
   const startScanning = () => {
     // Focus leaves the button, so the switch (Space or Enter) cannot also press a button.
@@ -210,14 +276,14 @@ export const TestKeyboard = ({
   };
 
   // ---- trial ------------------------------------------------------------------------------
-  const selections = session.events.filter(
-    (event) => event.type !== 'switch' && event.type !== 'offer',
-  ).length;
+  const selections = session.events.filter(isSelection).length;
 
   const startTrial = () => {
     setFinished(null);
     // Every trial starts from the version as trained; it then learns the words typed in it.
     engine.resetLearning();
+    setShift('off');
+    setLayer('letters');
     session.start();
     // The Start button gives way to Finish and Discard: focus goes to the message window, where
     // the trial's text appears and from which Tab reaches the suggestions and the keys.
@@ -234,7 +300,13 @@ export const TestKeyboard = ({
       note: note.trim(),
     });
     const measures = computeTrialMeasures(input.events, target);
-    setFinished({ measures, slots, upload: 'sending', localTrialId: input.localTrialId });
+    setFinished({
+      measures,
+      slots,
+      upload: 'sending',
+      localTrialId: input.localTrialId,
+      extraKeys: usesKeysTheSimulationLacks(input.events),
+    });
     setNote('');
     pending
       .submit(versionId, input)
@@ -351,6 +423,7 @@ export const TestKeyboard = ({
           simulated={{ ...figures, slots: finished.slots }}
           upload={uploadNow(finished, pending)}
           waiting={pending.pending}
+          extraKeys={finished.extraKeys}
         />
       )}
 

@@ -11,6 +11,8 @@ type TrialResultsProps = {
   upload: UploadState;
   /** Trials on this device still waiting to upload. */
   waiting: number;
+  /** The trial pressed shift or layer keys, which the simulation never does. */
+  extraKeys?: boolean;
 };
 
 const uploadWords = (
@@ -29,7 +31,13 @@ const uploadWords = (
 };
 
 /** What the finished trial measured, beside what the version's simulation expected. */
-export const TrialResults = ({ measures, simulated, upload, waiting }: TrialResultsProps) => {
+export const TrialResults = ({
+  measures,
+  simulated,
+  upload,
+  waiting,
+  extraKeys = false,
+}: TrialResultsProps) => {
   const state = uploadWords(upload, waiting);
   return (
     <section
@@ -78,6 +86,13 @@ export const TrialResults = ({ measures, simulated, upload, waiting }: TrialResu
         <dt className="font-bold">Error rate against the phrase</dt>
         <dd>{percentOrDash(measures.errorRate)}</dd>
       </dl>
+      {extraKeys && (
+        <p data-extra-keys>
+          Shift and layer keys were pressed: each counts as a keystroke here, while the simulation types
+          lower-case letters with no shift or layer keys, so the measured savings are lower for that reason
+          alone.
+        </p>
+      )}
       <p className="max-w-3xl text-ink-soft">
         Keystroke savings are not time savings: reading the suggestions takes time, so fewer keys can still be
         slower.

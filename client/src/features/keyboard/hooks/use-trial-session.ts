@@ -1,9 +1,17 @@
-// The text on screen and the trial log. Every edit goes through applyTrialEvent (the same step
-// the API replays), so the logged steps always rebuild exactly the text shown.
-import { applyTrialEvent, type CreateTrialInput, type TrialEvent, type TrialSettings } from '@keyloom/shared';
+// The text on screen and the trial log. Every edit goes through stepTrial (the same step the API
+// replays), so the logged steps always rebuild exactly the text shown.
+import {
+  type CreateTrialInput,
+  emptyReplayState,
+  isSelection,
+  stepTrial,
+  type TrialEvent,
+  type TrialReplayState,
+  type TrialSettings,
+} from '@keyloom/shared';
 import { useCallback, useRef, useState } from 'react';
 
-/** A step that edits the text: letter, punctuation, space, backspace or suggestion. */
+/** A selection: a step that edits the text, or a shift or layer key. */
 export type TrialSelection = Omit<TrialEvent, 't'>;
 
 export type TrialFinish = {
@@ -18,8 +26,13 @@ export type TrialSession = {
   running: boolean;
   events: TrialEvent[];
   startedAt: string | null;
-  /** Applies a selection to the text; logs it while a trial runs. */
-  select: (e: TrialSelection) => void;
+  /** Whether a suggestion pick can be undone (an `undo_pick` step would be accepted). */
+  canUndoPick: boolean;
+  /**
+   * Applies a selection to the text; logs it while a trial runs. Returns the new text.
+   * @throws TrialReplayError for a step that cannot apply (nothing changes then)
+   */
+  select: (e: TrialSelection) => string;
   /** Logs one switch activation (scanning) while a trial runs. */
   logSwitch: () => void;
   /** Logs the suggestion row shown, when it differs from the last one logged, while a trial runs. */
@@ -44,12 +57,13 @@ const sameWords = (a: readonly string[] | undefined, b: readonly string[]) =>
  */
 export function useTrialSession(): TrialSession {
   const [text, setText] = useState('');
+  const [canUndoPick, setCanUndoPick] = useState(false);
   const [running, setRunning] = useState(false);
   const [events, setEvents] = useState<TrialEvent[]>([]);
   const [startedAt, setStartedAt] = useState<string | null>(null);
 
   // The refs are the truth (several steps may come in one tick); the state mirrors them for rendering.
-  const textRef = useRef('');
+  const stateRef = useRef<TrialReplayState>(emptyReplayState);
   const eventsRef = useRef<TrialEvent[]>([]);
   const runningRef = useRef(false);
   const startRef = useRef(0);
@@ -67,10 +81,12 @@ export function useTrialSession(): TrialSession {
     (e: TrialSelection) => {
       const event: TrialEvent = { ...e, t: runningRef.current ? elapsed() : 0 };
       // Throws on a malformed step (e.g. two letters at once) before anything changes.
-      const next = applyTrialEvent(textRef.current, event);
-      textRef.current = next;
-      setText(next);
+      const next = stepTrial(stateRef.current, event);
+      stateRef.current = next;
+      setText(next.text);
+      setCanUndoPick(next.beforePicks.length > 0);
       if (runningRef.current) log(event);
+      return next.text;
     },
     [log],
   );
@@ -91,7 +107,8 @@ export function useTrialSession(): TrialSession {
   );
 
   const reset = (run: boolean) => {
-    textRef.current = '';
+    stateRef.current = emptyReplayState;
+    setCanUndoPick(false);
     eventsRef.current = [];
     runningRef.current = run;
     lastOfferRef.current = undefined;
@@ -108,7 +125,7 @@ export function useTrialSession(): TrialSession {
 
   const finish = useCallback((o: TrialFinish): CreateTrialInput => {
     if (!runningRef.current || startedAtRef.current === null) throw new Error('No trial is running.');
-    if (!eventsRef.current.some((e) => e.type !== 'offer' && e.type !== 'switch')) {
+    if (!eventsRef.current.some(isSelection)) {
       throw new Error('The trial has no key presses yet.');
     }
     runningRef.current = false;
@@ -119,12 +136,12 @@ export function useTrialSession(): TrialSession {
       finishedAt: new Date().toISOString(),
       phraseId: o.phraseId,
       targetPhrase: o.targetPhrase,
-      text: textRef.current,
+      text: stateRef.current.text,
       events: eventsRef.current,
       settings: o.settings,
       note: o.note,
     };
   }, []);
 
-  return { text, running, events, startedAt, select, logSwitch, logOffer, start, clear, finish };
+  return { text, running, events, startedAt, canUndoPick, select, logSwitch, logOffer, start, clear, finish };
 }

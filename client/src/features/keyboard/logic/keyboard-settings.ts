@@ -10,6 +10,10 @@ import {
 export type KeyboardViewSettings = TrialSettings & {
   /** Dwell fill and scan highlight move in steps, with no transition (also forced on by the OS). */
   reduceMotion: boolean;
+  /** A capital comes on its own at the message's start and after a sentence's end. */
+  autoCapital: boolean;
+  /** In direct mode, the number keys 1–9 of a physical keyboard pick suggestions 1–9. */
+  numberKeysPick: boolean;
 };
 
 // The client record's access method decides the trial's selection mode by default.
@@ -45,6 +49,8 @@ export const defaultKeyboardSettings = (
   textScale: 1,
   tintKeys: false,
   reduceMotion: osReducedMotion,
+  autoCapital: true,
+  numberKeysPick: false,
 });
 
 /** The settings a trial is logged with: only the timing its selection mode uses (the schema's shape). */

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { keyRows, keysById } from './layouts';
+import { atSentenceStart, initialKeyState, keyRows, keysById, nextShift } from './layouts';
 
 describe('key layouts', () => {
   it('typewriter order is the standard three letter rows, then the control row', () => {
@@ -43,5 +43,30 @@ describe('key layouts', () => {
         .map((k) => k.value),
     );
     for (const c of "abcxyz.,?'-") expect(values.has(c)).toBe(true);
+  });
+
+  it('the symbols layer holds the digits 0–9 and . , ? ! \' " - ( ) : ; / @ &, with unique ids', () => {
+    const state = { ...initialKeyState, layer: 'symbols' as const };
+    const keys = keyRows('typewriter', state).flat();
+    const values = new Set(keys.map((k) => k.value));
+    for (const c of '0123456789.,?!\'"-():;/@&') expect(values.has(c)).toBe(true);
+    expect(keys.some((k) => k.value === 'q')).toBe(false);
+    expect(keysById('typewriter', state).size).toBe(keys.length);
+    expect(keys.find((k) => k.kind === 'layer')?.label).toBe('ABC');
+  });
+
+  it('shift goes once → caps lock → off; capitals at the start, after a line break and after a sentence', () => {
+    expect([nextShift('off'), nextShift('once'), nextShift('lock')]).toEqual(['once', 'lock', 'off']);
+    expect(['', 'hi. ', 'hi?  ', 'hi\n', 'hi! '].map(atSentenceStart)).toEqual([
+      true,
+      true,
+      true,
+      true,
+      true,
+    ]);
+    expect(['hi', 'hi.', 'e.g ', 'hi, '].map(atSentenceStart)).toEqual([false, false, false, false]);
+    const capitals = keyRows('alphabetical', { ...initialKeyState, capital: true, shift: 'once' });
+    expect(capitals[0][0]).toMatchObject({ value: 'a', label: 'A', spokenLabel: 'A' });
+    expect(capitals.at(-1)?.find((k) => k.kind === 'shift')).toMatchObject({ pressed: true });
   });
 });

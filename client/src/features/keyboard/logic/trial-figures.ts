@@ -44,3 +44,10 @@ export const slotTargetId = (slot: number): string => `suggestion-${slot}`;
 /** "Suggestions: garden, go, good." or "No suggestions." */
 export const describeRow = (words: readonly string[]): string =>
   words.length === 0 ? 'No suggestions.' : `Suggestions: ${words.join(', ')}.`;
+
+/**
+ * Whether a trial log used keys the simulation never presses (shift, caps lock, the layer key): the
+ * simulation types lower-case letters with no shift or layer keys, so such a trial's savings differ.
+ */
+export const usesKeysTheSimulationLacks = (events: readonly { type: string }[]): boolean =>
+  events.some((event) => event.type === 'shift' || event.type === 'layer');
