@@ -15,10 +15,12 @@ import { useKeyboardEngine } from '../engine/use-keyboard-engine';
 import { useDwell } from '../hooks/use-dwell';
 import { usePendingTrials } from '../hooks/use-pending-trials';
 import { useScanner } from '../hooks/use-scanner';
+import { type ScanPattern, scanGroups } from '../logic/scanner';
 import { useTrialSession } from '../hooks/use-trial-session';
 import { type KeyDef, keyRows } from '../logic/layouts';
 import { KeyGrid } from './key-grid';
 import {
+  DEFAULT_SCAN_ACCEPT_MS,
   defaultKeyboardSettings,
   type KeyboardViewSettings,
   trialSettingsOf,
@@ -70,6 +72,17 @@ const stepOf = (key: KeyDef): Omit<TrialEvent, 't'> =>
   key.kind === 'letter' || key.kind === 'punctuation'
     ? { type: key.kind, value: key.value }
     : { type: key.kind };
+
+/** What the switches do in each scanning pattern, shown beside the Start scanning button. */
+const scanHelp: Record<ScanPattern, string> = {
+  'auto-row-column':
+    'Space (or Enter) is the switch: press it to choose the highlighted row, then the highlighted key.',
+  'auto-group-row-key':
+    'Space (or Enter) is the switch: press it to choose the highlighted group, then the row, then the key.',
+  'step-one-switch':
+    'Space (or Enter) is the switch: each press moves the highlight one step; stop pressing and the highlighted row or key is chosen.',
+  'step-two-switch': 'Two switches: Space moves the highlight one step, Enter chooses what is highlighted.',
+};
 
 /**
  * The test keyboard: runs one profile version in the browser, types through the trial log
@@ -170,9 +183,14 @@ export const TestKeyboard = ({
   });
 
   const rowLengths = useMemo(() => [words.length, ...rows.map((row) => row.length)], [words.length, rows]);
+  const scanPattern = settings.scanPattern ?? 'auto-row-column';
+  const suggestionsAt = settings.suggestionsScanned ?? 'first';
   const scanner = useScanner({
     enabled: settings.selectionMode === 'scanning',
     intervalMs: settings.scanIntervalMs ?? 1000,
+    pattern: scanPattern,
+    suggestionsAt,
+    acceptMs: settings.scanAcceptMs ?? DEFAULT_SCAN_ACCEPT_MS,
     rowLengths,
     onSelect: useCallback((row: number, item: number) => {
       const now = latest.current;
@@ -203,6 +221,13 @@ export const TestKeyboard = ({
   });
 
   const scanState = scanner.running ? scanner.state : null;
+  // Group–row–key: the rows of the highlighted group (row 0 is the suggestion row).
+  const scanGroupRows =
+    scanState?.level === 'groups'
+      ? (scanGroups(rowLengths.length, { pattern: scanPattern, suggestionsAt })[scanState.group ?? 0] ?? [])
+      : [];
+  // Nothing is highlighted yet (step, one switch, before the first press at a level).
+  const scanShown = scanState && !scanState.waiting && scanState.level !== 'groups' ? scanState : null;
   const startScanning = () => {
     // Focus leaves the button, so the switch (Space or Enter) cannot also press a button.
     outputRef.current?.focus();
@@ -382,10 +407,8 @@ export const TestKeyboard = ({
                 Start scanning
               </Button>
             )}
-            <p className={hc ? 'text-white' : 'text-ink-soft'}>
-              {scanner.running
-                ? 'Press Space or Enter to choose the highlighted row, then the highlighted key.'
-                : 'Space or Enter is the switch while scanning runs.'}
+            <p className={hc ? 'text-white' : 'text-ink-soft'} data-scan-help={scanPattern}>
+              {scanHelp[scanPattern]}
             </p>
           </div>
         )}
@@ -400,24 +423,35 @@ export const TestKeyboard = ({
           largeTargets={settings.largeTargets}
           reduceMotion={reduceMotion}
           textScale={settings.textScale}
-          scan={scanState && scanState.row === 0 ? { level: scanState.level, item: scanState.item } : null}
-          dwell={settings.selectionMode === 'dwell' ? dwell : null}
-        />
-        <KeyGrid
-          rows={rows}
-          onSelect={press}
-          highContrast={hc}
-          largeTargets={settings.largeTargets}
-          reduceMotion={reduceMotion}
-          textScale={settings.textScale}
-          letterProbabilities={letterProbabilities}
           scan={
-            scanState && scanState.row > 0
-              ? { level: scanState.level, row: scanState.row - 1, item: scanState.item }
-              : null
+            scanGroupRows.includes(0)
+              ? { level: 'rows', item: 0 }
+              : scanShown && scanShown.row === 0
+                ? { level: scanShown.level as 'rows' | 'items', item: scanShown.item }
+                : null
           }
           dwell={settings.selectionMode === 'dwell' ? dwell : null}
         />
+        <div
+          className="contents"
+          data-scan-group={scanGroupRows.filter((row) => row > 0).join(' ') || undefined}
+        >
+          <KeyGrid
+            rows={rows}
+            onSelect={press}
+            highContrast={hc}
+            largeTargets={settings.largeTargets}
+            reduceMotion={reduceMotion}
+            textScale={settings.textScale}
+            letterProbabilities={letterProbabilities}
+            scan={
+              scanShown && scanShown.row > 0
+                ? { level: scanShown.level as 'rows' | 'items', row: scanShown.row - 1, item: scanShown.item }
+                : null
+            }
+            dwell={settings.selectionMode === 'dwell' ? dwell : null}
+          />
+        </div>
       </section>
 
       <SettingsPanel

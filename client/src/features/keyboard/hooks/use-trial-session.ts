@@ -21,7 +21,7 @@ export type TrialSession = {
   /** Applies a selection to the text; logs it while a trial runs. */
   select: (e: TrialSelection) => void;
   /** Logs one switch activation (scanning) while a trial runs. */
-  logSwitch: () => void;
+  logSwitch: (value?: 'move' | 'select') => void;
   /** Logs the suggestion row shown, when it differs from the last one logged, while a trial runs. */
   logOffer: (words: string[]) => void;
   /** Starts a trial on an empty text (the API replays the log from an empty text). */
@@ -75,9 +75,13 @@ export function useTrialSession(): TrialSession {
     [log],
   );
 
-  const logSwitch = useCallback(() => {
-    if (runningRef.current) log({ t: elapsed(), type: 'switch' });
-  }, [log]);
+  const logSwitch = useCallback(
+    (value?: 'move' | 'select') => {
+      // Two switches: which one was pressed (trialEventSchema).
+      if (runningRef.current) log({ t: elapsed(), type: 'switch', ...(value ? { value } : {}) });
+    },
+    [log],
+  );
 
   const logOffer = useCallback(
     (words: string[]) => {

@@ -1,3 +1,5 @@
+import type { SuggestionsScanned, TrialScanPattern } from '@keyloom/shared';
+
 // Scanning as a pure state machine, in four patterns (ScanPattern). Rows are given by their lengths;
 // row 0 is the suggestion row, rows 1… the key rows. The suggestion row is scanned first or last
 // (ScanConfig.suggestionsAt); empty rows (a suggestion row with no words) are skipped everywhere and
@@ -23,17 +25,11 @@
 //   idle passes also leaves nothing highlighted, so the wait never chooses an entry by itself;
 // - step, two switches: switch 1 is `scanAdvance` (move), switch 2 `scanChoose` (select); no timer.
 
-export const scanPatterns = [
-  'auto-row-column',
-  'auto-group-row-key',
-  'step-one-switch',
-  'step-two-switch',
-] as const;
-export type ScanPattern = (typeof scanPatterns)[number];
-export type SuggestionsAt = 'first' | 'last';
+export type ScanPattern = TrialScanPattern;
+export type SuggestionsAt = SuggestionsScanned;
 export type ScanConfig = { pattern: ScanPattern; suggestionsAt: SuggestionsAt };
 
-/** Today's automatic row–column scanning with the suggestion row first. */
+/** Automatic row–column scanning with the suggestion row first (the default, and trials logged before patterns). */
 export const DEFAULT_SCAN_CONFIG: ScanConfig = { pattern: 'auto-row-column', suggestionsAt: 'first' };
 
 /**
