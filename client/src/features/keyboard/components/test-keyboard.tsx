@@ -381,6 +381,8 @@ export const TestKeyboard = ({
 
       <section
         aria-labelledby="keyboard-heading"
+        // Group–row–key: the highlighted group's key rows (1-based), outlined by index.css.
+        data-scan-group={scanGroupRows.filter((row) => row > 0).join(' ') || undefined}
         className={cn(
           'flex flex-col gap-4 rounded-xl border-2 p-3 sm:p-5',
           hc ? 'on-dark border-white bg-black text-white' : 'border-thread bg-paper-deep',
@@ -432,26 +434,21 @@ export const TestKeyboard = ({
           }
           dwell={settings.selectionMode === 'dwell' ? dwell : null}
         />
-        <div
-          className="contents"
-          data-scan-group={scanGroupRows.filter((row) => row > 0).join(' ') || undefined}
-        >
-          <KeyGrid
-            rows={rows}
-            onSelect={press}
-            highContrast={hc}
-            largeTargets={settings.largeTargets}
-            reduceMotion={reduceMotion}
-            textScale={settings.textScale}
-            letterProbabilities={letterProbabilities}
-            scan={
-              scanShown && scanShown.row > 0
-                ? { level: scanShown.level as 'rows' | 'items', row: scanShown.row - 1, item: scanShown.item }
-                : null
-            }
-            dwell={settings.selectionMode === 'dwell' ? dwell : null}
-          />
-        </div>
+        <KeyGrid
+          rows={rows}
+          onSelect={press}
+          highContrast={hc}
+          largeTargets={settings.largeTargets}
+          reduceMotion={reduceMotion}
+          textScale={settings.textScale}
+          letterProbabilities={letterProbabilities}
+          scan={
+            scanShown && scanShown.row > 0
+              ? { level: scanShown.level as 'rows' | 'items', row: scanShown.row - 1, item: scanShown.item }
+              : null
+          }
+          dwell={settings.selectionMode === 'dwell' ? dwell : null}
+        />
       </section>
 
       <SettingsPanel
