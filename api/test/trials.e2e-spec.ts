@@ -247,6 +247,39 @@ describe('test keyboard (HTTP)', () => {
       expect(await auditCount('trial.create', trial.id)).toBe(1);
     });
 
+    it('keeps the scanning pattern, the suggestion place and two-switch move/select steps; refuses an unknown pattern', async () => {
+      const settings = {
+        ...directSettings,
+        selectionMode: 'scanning' as const,
+        scanIntervalMs: 900,
+        scanPattern: 'step-two-switch' as const,
+        suggestionsScanned: 'last' as const,
+      };
+      const events: TrialEvent[] = [
+        { t: 0, type: 'switch', value: 'move' },
+        { t: 400, type: 'switch', value: 'select' },
+        { t: 800, type: 'switch', value: 'select' },
+        { t: 800, type: 'letter', value: 's' },
+      ];
+      const res = await post(
+        cast.assignedCarer,
+        trials(version.id),
+        trialBody({ settings, events, text: 's' }),
+      );
+      expect(res.status).toBe(201);
+      const trial = res.body as Trial;
+      expect(trial.settings).toEqual(settings);
+      expect(trial.measures).toMatchObject({ switchActivations: 3, keystrokes: 1 });
+      const listed = (await get(cast.owner, trials(version.id)).expect(200)).body as Trial[];
+      expect(listed.find((x) => x.id === trial.id)?.settings).toEqual(settings);
+      const bad = { ...settings, scanPattern: 'round-robin' };
+      await post(cast.assignedCarer, trials(version.id), trialBody({ settings: bad as never })).expect(400);
+      const tooShort = { ...settings, scanPattern: 'step-one-switch', scanAcceptMs: 100 };
+      await post(cast.assignedCarer, trials(version.id), trialBody({ settings: tooShort as never })).expect(
+        400,
+      );
+    });
+
     it('measures a trial with suggestions, corrections and switch steps as computeTrialMeasures does', async () => {
       const events: TrialEvent[] = [
         { t: 0, type: 'offer', words: ['i', 'the'] },

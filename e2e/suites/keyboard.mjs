@@ -366,6 +366,64 @@ export const keyboardSuite = {
       },
     ],
     [
+      'two-switch step scanning, suggestions last: Space moves, Enter selects, "as" typed with no timer',
+      async (t) => {
+        const page = await openKeyboard(t);
+        await chooseSelectionMode(page, 'scanning');
+        await page.getByLabel('Scanning pattern').selectOption('step-two-switch');
+        await page.getByLabel('Suggestions scanned').selectOption('last');
+        await page.getByText('Space moves one step; Enter chooses.').waitFor();
+        const countBefore = (await trialsOf(page, t.appUrl)).length;
+        await page.getByRole('button', { name: 'Start trial' }).click();
+        await page.getByRole('button', { name: 'Stop scanning (Escape)' }).waitFor();
+        assert.deepEqual(await t.seriousViolations(page, 'keyboard two-switch scanning'), []);
+        const rowOn = (n) =>
+          page.waitForFunction(
+            (k) =>
+              document
+                .querySelector(`[role="group"][aria-label="Keys"] > div:nth-child(${k})`)
+                ?.getAttribute('data-scan-row') === 'on',
+            n,
+            { polling: 'raf', timeout: 10_000 },
+          );
+        // Suggestions last: key row 1 first. Move to the home row (row 2), select it, then the key.
+        const presses = [];
+        const press = async (key) => {
+          await page.keyboard.press(key);
+          presses.push(key);
+        };
+        await rowOn(1);
+        await press('Space');
+        await rowOn(2);
+        await press('Enter'); // the home row: "a" highlighted
+        await press('Enter'); // a
+        await rowOn(1);
+        await press('Space');
+        await rowOn(2);
+        await press('Enter');
+        await press('Space'); // "s"
+        await press('Enter'); // s
+        await page.waitForFunction(
+          () => document.querySelector('[data-output]')?.getAttribute('data-text') === 'as',
+        );
+        await page.getByRole('button', { name: 'Finish trial' }).click();
+        await page.getByText('The trial is saved.').waitFor();
+        const trials = await trialsOf(page, t.appUrl);
+        assert.equal(trials.length, countBefore + 1);
+        const [trial] = trials;
+        assert.equal(trial.text, 'as');
+        assert.equal(trial.settings.scanPattern, 'step-two-switch');
+        assert.equal(trial.settings.suggestionsScanned, 'last');
+        assert.equal(trial.measures.keystrokes, 2, 'two letters selected');
+        assert.equal(
+          trial.measures.switchActivations,
+          presses.length,
+          'every press of either switch is logged',
+        );
+        await signOut(page, 'Carer');
+      },
+    ],
+    [
       'offline: the model keeps answering, a finished trial waits, and it uploads once the network is back',
       async (t) => {
         const page = await openKeyboard(t);

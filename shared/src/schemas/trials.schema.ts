@@ -25,6 +25,28 @@ export const keyboardLayoutLabels: Record<KeyboardLayout, string> = {
   alphabetical: 'Alphabetical order',
 };
 
+/**
+ * Scanning patterns: automatic row–column, automatic group–row–key (groups of rows above the rows),
+ * step scanning with one switch (each press moves one step; a pause of the acceptance time chooses)
+ * and with two switches (one moves, the other chooses).
+ */
+export const trialScanPatterns = [
+  'auto-row-column',
+  'auto-group-row-key',
+  'step-one-switch',
+  'step-two-switch',
+] as const;
+export type TrialScanPattern = (typeof trialScanPatterns)[number];
+export const trialScanPatternLabels: Record<TrialScanPattern, string> = {
+  'auto-row-column': 'Automatic row–column',
+  'auto-group-row-key': 'Automatic group–row–key',
+  'step-one-switch': 'Step, one switch',
+  'step-two-switch': 'Step, two switches',
+};
+/** Where the suggestion row comes in the scan: before the key rows or after them. */
+export const suggestionsScannedPlaces = ['first', 'last'] as const;
+export type SuggestionsScanned = (typeof suggestionsScannedPlaces)[number];
+
 /** The settings a trial ran with (the client record's access settings are the defaults). */
 export const trialSettingsSchema = z.object({
   selectionMode: trialSelectionModeSchema,
@@ -37,6 +59,12 @@ export const trialSettingsSchema = z.object({
   /** Text size as a multiple of the normal size (1 = 100 %). */
   textScale: z.number().min(1).max(3),
   tintKeys: z.boolean(),
+  // Scanning only. Optional, so trials logged before these settings existed still parse: absent means
+  // automatic row–column, suggestions first, no acceptance time.
+  scanPattern: z.enum(trialScanPatterns).optional(),
+  suggestionsScanned: z.enum(suggestionsScannedPlaces).optional(),
+  /** Step scanning with one switch: ms without a press before the highlighted entry is chosen. */
+  scanAcceptMs: z.number().int().min(500).max(10_000).optional(),
 });
 export type TrialSettings = z.infer<typeof trialSettingsSchema>;
 
@@ -58,7 +86,8 @@ export type TrialSettings = z.infer<typeof trialSettingsSchema>;
  *   (caps lock) or `off`. `layer`: `value` is the key layer shown, `letters` or `symbols`.
  *   Neither changes the text by itself.
  * - `pause` / `resume`: the trial was paused and taken up again (no text change).
- * - `switch`: one switch activation in scanning mode (it changes no text by itself).
+ * - `switch`: one switch activation in scanning mode (it changes no text by itself); with two
+ *   switches `value` says which: `move` or `select` (absent with one switch).
  * - `offer`: the suggestion row changed; `words` is what it showed (possibly empty).
  * Selections (the trial's keystrokes for keystroke savings and KSPC) are every key the person had to
  * choose: letters, punctuation, space, backspace, new line, delete word, suggestions, undo pick, shift

@@ -376,6 +376,82 @@ describe('Test keyboard page', () => {
     expect(screen.getByRole('button', { name: 'Start scanning' })).toBeInTheDocument();
   });
 
+  it('scans with the pattern and suggestion place chosen in the settings, and logs them with the trial', async () => {
+    const { user, api } = await openKeyboard('carer');
+    await user.selectOptions(screen.getByLabelText('Selection mode'), 'scanning');
+    const pattern = screen.getByLabelText('Scanning pattern');
+    expect(pattern).toHaveAccessibleDescription('Space is the switch (Enter works too).');
+    await user.selectOptions(pattern, 'step-two-switch');
+    expect(pattern).toHaveAccessibleDescription('Space moves one step; Enter chooses.');
+    await user.selectOptions(screen.getByLabelText('Suggestions scanned'), 'last');
+    await user.click(screen.getByRole('button', { name: 'Start trial' }));
+    expect(
+      screen.getByText(
+        'Two switches: Space moves the highlight one step, Enter chooses what is highlighted.',
+      ),
+    ).toBeInTheDocument();
+    const suggestions = screen.getByRole('group', { name: 'Suggestions' });
+    const keyRowsOnScreen = () => [...screen.getByRole('group', { name: 'Keys' }).children];
+    const down = (k: string) =>
+      act(() => {
+        fireEvent.keyDown(document, { key: k });
+      });
+    // Suggestions last: the first key row is highlighted first, and no timer moves it.
+    expect(keyRowsOnScreen()[0]).toHaveAttribute('data-scan-row', 'on');
+    expect(suggestions).not.toHaveAttribute('data-scan-row');
+    await act(() => new Promise((resolve) => setTimeout(resolve, 300)));
+    expect(keyRowsOnScreen()[0]).toHaveAttribute('data-scan-row', 'on');
+    down(' '); // move: the home row
+    expect(keyRowsOnScreen()[1]).toHaveAttribute('data-scan-row', 'on');
+    down('Enter'); // select: its keys
+    expect(key('a')).toHaveAttribute('data-scanned', 'on');
+    down(' ');
+    expect(key('s')).toHaveAttribute('data-scanned', 'on');
+    down('Enter');
+    expect(output().textContent).toBe('s');
+    await user.click(screen.getByRole('button', { name: 'Finish trial' }));
+    expect(await screen.findByText('The trial is saved.')).toBeInTheDocument();
+    const posted = createTrialSchema.parse(api.requestsTo(`POST ${trialsUrl(VERSION_1_ID)}`)[0]?.body);
+    expect(posted.settings).toMatchObject({
+      selectionMode: 'scanning',
+      scanPattern: 'step-two-switch',
+      suggestionsScanned: 'last',
+    });
+    expect(posted.settings.scanAcceptMs).toBeUndefined();
+    expect(posted.events.filter((e) => e.type === 'switch').map((e) => e.value)).toEqual([
+      'move',
+      'select',
+      'move',
+      'select',
+    ]);
+  });
+
+  it('group–row–key outlines the groups in turn: the suggestions, then key rows 1–2, then 3–4', async () => {
+    const { user } = await openKeyboard('carer');
+    await user.selectOptions(screen.getByLabelText('Selection mode'), 'scanning');
+    await user.selectOptions(screen.getByLabelText('Scanning pattern'), 'auto-group-row-key');
+    const interval = screen.getByLabelText('Scan interval (ms)');
+    await user.clear(interval);
+    await user.type(interval, '200');
+    vi.useFakeTimers();
+    fireEvent.click(screen.getByRole('button', { name: 'Start scanning' }));
+    const suggestions = screen.getByRole('group', { name: 'Suggestions' });
+    const group = () => document.querySelector('[data-scan-group]')?.getAttribute('data-scan-group') ?? null;
+    expect(suggestions).toHaveAttribute('data-scan-row', 'on');
+    expect(group()).toBeNull();
+    act(() => vi.advanceTimersByTime(200));
+    expect(suggestions).not.toHaveAttribute('data-scan-row');
+    expect(group()).toBe('1 2');
+    act(() => vi.advanceTimersByTime(200));
+    expect(group()).toBe('3 4');
+    // The switch enters the group: its first row (key row 3) is highlighted alone.
+    act(() => {
+      fireEvent.keyDown(document, { key: ' ' });
+    });
+    expect(group()).toBeNull();
+    expect(screen.getByRole('group', { name: 'Keys' }).children[2]).toHaveAttribute('data-scan-row', 'on');
+  });
+
   it('lets the owning clinician add a practice phrase from the keyboard', async () => {
     const { user, api } = await openKeyboard('clinician', '', {
       [`POST /api/clients/${ASHBY_ID}/practice-phrases`]: {

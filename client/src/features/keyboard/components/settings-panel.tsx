@@ -2,13 +2,30 @@ import {
   keyboardLayoutLabels,
   keyboardLayouts,
   type KeyboardLayout,
+  type SuggestionsScanned,
+  trialScanPatternLabels,
+  trialScanPatterns,
+  type TrialScanPattern,
   trialSelectionModeLabels,
   trialSelectionModes,
   type TrialSelectionMode,
 } from '@keyloom/shared';
 import { memo, type ReactNode, useId, useState } from 'react';
 import { fieldClasses } from '@/components/ui/field-classes';
-import { clampMs, type KeyboardViewSettings, textScales } from '../logic/keyboard-settings';
+import {
+  clampMs,
+  DEFAULT_SCAN_ACCEPT_MS,
+  type KeyboardViewSettings,
+  textScales,
+} from '../logic/keyboard-settings';
+
+/** The physical switch keys of each scanning pattern, said beside the pattern. */
+const scanPatternKeys: Record<TrialScanPattern, string> = {
+  'auto-row-column': 'Space is the switch (Enter works too).',
+  'auto-group-row-key': 'Space is the switch (Enter works too).',
+  'step-one-switch': 'Space is the switch (Enter works too): each press moves one step; a pause chooses.',
+  'step-two-switch': 'Space moves one step; Enter chooses.',
+};
 
 type SettingsPanelProps = {
   settings: KeyboardViewSettings;
@@ -208,6 +225,53 @@ export const SettingsPanel = memo(function SettingsPanel({
             value={settings.scanIntervalMs ?? 1000}
             disabled={trialRunning}
             onCommit={(scanIntervalMs) => set({ scanIntervalMs })}
+          />
+        )}
+        {settings.selectionMode === 'scanning' && (
+          <Field label="Scanning pattern" hint={scanPatternKeys[settings.scanPattern ?? 'auto-row-column']}>
+            {(id, hintId) => (
+              <select
+                id={id}
+                aria-describedby={hintId}
+                className={fieldClasses(false)}
+                value={settings.scanPattern ?? 'auto-row-column'}
+                disabled={trialRunning}
+                onChange={(event) => set({ scanPattern: event.target.value as TrialScanPattern })}
+              >
+                {trialScanPatterns.map((pattern) => (
+                  <option key={pattern} value={pattern}>
+                    {trialScanPatternLabels[pattern]}
+                  </option>
+                ))}
+              </select>
+            )}
+          </Field>
+        )}
+        {settings.selectionMode === 'scanning' && (
+          <Field label="Suggestions scanned">
+            {(id) => (
+              <select
+                id={id}
+                className={fieldClasses(false)}
+                value={settings.suggestionsScanned ?? 'first'}
+                disabled={trialRunning}
+                onChange={(event) => set({ suggestionsScanned: event.target.value as SuggestionsScanned })}
+              >
+                <option value="first">First, before the keys</option>
+                <option value="last">Last, after the keys</option>
+              </select>
+            )}
+          </Field>
+        )}
+        {settings.selectionMode === 'scanning' && settings.scanPattern === 'step-one-switch' && (
+          <MsField
+            label="Acceptance time (ms)"
+            hint="How long without a press before the highlighted row or key is chosen (500–10000)."
+            min={500}
+            max={10_000}
+            value={settings.scanAcceptMs ?? DEFAULT_SCAN_ACCEPT_MS}
+            disabled={trialRunning}
+            onCommit={(scanAcceptMs) => set({ scanAcceptMs })}
           />
         )}
         <Field label="Text size">

@@ -17,11 +17,13 @@ import { useKeyboardEngine } from '../engine/use-keyboard-engine';
 import { useDwell } from '../hooks/use-dwell';
 import { usePendingTrials } from '../hooks/use-pending-trials';
 import { useScanner } from '../hooks/use-scanner';
+import { type ScanPattern, scanGroups } from '../logic/scanner';
 import { useTrialSession } from '../hooks/use-trial-session';
 import { atSentenceStart, hasCase, type KeyDef, keyRows, nextShift } from '../logic/layouts';
 import { physicalKeyAction } from '../logic/physical-keys';
 import { KeyGrid } from './key-grid';
 import {
+  DEFAULT_SCAN_ACCEPT_MS,
   defaultKeyboardSettings,
   type KeyboardViewSettings,
   trialSettingsOf,
@@ -79,6 +81,17 @@ const stepOf = (key: KeyDef): Omit<TrialEvent, 't'> =>
   key.kind === 'letter' || key.kind === 'punctuation' || key.kind === 'layer'
     ? { type: key.kind, value: key.value }
     : { type: key.kind };
+
+/** What the switches do in each scanning pattern, shown beside the Start scanning button. */
+const scanHelp: Record<ScanPattern, string> = {
+  'auto-row-column':
+    'Space (or Enter) is the switch: press it to choose the highlighted row, then the highlighted key.',
+  'auto-group-row-key':
+    'Space (or Enter) is the switch: press it to choose the highlighted group, then the row, then the key.',
+  'step-one-switch':
+    'Space (or Enter) is the switch: each press moves the highlight one step; stop pressing and the highlighted row or key is chosen.',
+  'step-two-switch': 'Two switches: Space moves the highlight one step, Enter chooses what is highlighted.',
+};
 
 /**
  * The test keyboard: runs one profile version in the browser, types through the trial log
@@ -212,9 +225,14 @@ export const TestKeyboard = ({
   });
 
   const rowLengths = useMemo(() => [words.length, ...rows.map((row) => row.length)], [words.length, rows]);
+  const scanPattern = settings.scanPattern ?? 'auto-row-column';
+  const suggestionsAt = settings.suggestionsScanned ?? 'first';
   const scanner = useScanner({
     enabled: settings.selectionMode === 'scanning',
     intervalMs: settings.scanIntervalMs ?? 1000,
+    pattern: scanPattern,
+    suggestionsAt,
+    acceptMs: settings.scanAcceptMs ?? DEFAULT_SCAN_ACCEPT_MS,
     rowLengths,
     onSelect: useCallback((row: number, item: number) => {
       const now = latest.current;
@@ -269,6 +287,13 @@ export const TestKeyboard = ({
   }, [physical, numberKeysPick]);
 
   const scanState = scanner.running ? scanner.state : null;
+  // Group–row–key: the rows of the highlighted group (row 0 is the suggestion row).
+  const scanGroupRows =
+    scanState?.level === 'groups'
+      ? (scanGroups(rowLengths.length, { pattern: scanPattern, suggestionsAt })[scanState.group ?? 0] ?? [])
+      : [];
+  // Nothing is highlighted yet (step, one switch, before the first press at a level).
+  const scanShown = scanState && !scanState.waiting && scanState.level !== 'groups' ? scanState : null;
   const startScanning = () => {
     // Focus leaves the button, so the switch (Space or Enter) cannot also press a button.
     outputRef.current?.focus();
@@ -429,6 +454,8 @@ export const TestKeyboard = ({
 
       <section
         aria-labelledby="keyboard-heading"
+        // Group–row–key: the highlighted group's key rows (1-based), outlined by index.css.
+        data-scan-group={scanGroupRows.filter((row) => row > 0).join(' ') || undefined}
         className={cn(
           'flex flex-col gap-4 rounded-xl border-2 p-3 sm:p-5',
           hc ? 'on-dark border-white bg-black text-white' : 'border-thread bg-paper-deep',
@@ -455,10 +482,8 @@ export const TestKeyboard = ({
                 Start scanning
               </Button>
             )}
-            <p className={hc ? 'text-white' : 'text-ink-soft'}>
-              {scanner.running
-                ? 'Press Space or Enter to choose the highlighted row, then the highlighted key.'
-                : 'Space or Enter is the switch while scanning runs.'}
+            <p className={hc ? 'text-white' : 'text-ink-soft'} data-scan-help={scanPattern}>
+              {scanHelp[scanPattern]}
             </p>
           </div>
         )}
@@ -473,7 +498,13 @@ export const TestKeyboard = ({
           largeTargets={settings.largeTargets}
           reduceMotion={reduceMotion}
           textScale={settings.textScale}
-          scan={scanState && scanState.row === 0 ? { level: scanState.level, item: scanState.item } : null}
+          scan={
+            scanGroupRows.includes(0)
+              ? { level: 'rows', item: 0 }
+              : scanShown && scanShown.row === 0
+                ? { level: scanShown.level as 'rows' | 'items', item: scanShown.item }
+                : null
+          }
           dwell={settings.selectionMode === 'dwell' ? dwell : null}
         />
         <KeyGrid
@@ -485,8 +516,8 @@ export const TestKeyboard = ({
           textScale={settings.textScale}
           letterProbabilities={letterProbabilities}
           scan={
-            scanState && scanState.row > 0
-              ? { level: scanState.level, row: scanState.row - 1, item: scanState.item }
+            scanShown && scanShown.row > 0
+              ? { level: scanShown.level as 'rows' | 'items', row: scanShown.row - 1, item: scanShown.item }
               : null
           }
           dwell={settings.selectionMode === 'dwell' ? dwell : null}

@@ -1,5 +1,6 @@
 import { act, renderHook } from '@testing-library/react';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
+import type { ScanPattern } from '../logic/scanner';
 import { useScanner } from './use-scanner';
 
 const press = (key: string, init: KeyboardEventInit = {}) => {
@@ -83,5 +84,111 @@ describe('useScanner', () => {
     act(() => result.current.start());
     rerender({ enabled: true, rowLengths: [0, 10] });
     expect(result.current.running).toBe(false);
+  });
+});
+
+describe('useScanner patterns', () => {
+  beforeEach(() => vi.useFakeTimers());
+  afterEach(() => vi.useRealTimers());
+
+  const setup = (
+    pattern: ScanPattern,
+    suggestionsAt: 'first' | 'last' = 'first',
+    rowLengths = [3, 10, 9, 7, 4],
+  ) => {
+    const onSelect = vi.fn();
+    const onSwitch = vi.fn();
+    const hook = renderHook(
+      (props: { pattern: ScanPattern; suggestionsAt: 'first' | 'last' }) =>
+        useScanner({
+          enabled: true,
+          intervalMs: 200,
+          acceptMs: 1500,
+          pattern: props.pattern,
+          suggestionsAt: props.suggestionsAt,
+          rowLengths,
+          onSelect,
+          onSwitch,
+        }),
+      { initialProps: { pattern, suggestionsAt } },
+    );
+    act(() => hook.result.current.start());
+    return { ...hook, onSelect, onSwitch };
+  };
+
+  it('group–row–key: groups at the interval; press, press, press through group, row and key', () => {
+    // Rows [3, 10, 9, 7, 4]: groups {0}, {1, 2}, {3, 4}.
+    const { result, onSelect } = setup('auto-group-row-key');
+    expect(result.current.state).toEqual({ level: 'groups', group: 0, row: 0, item: 0, idlePasses: 0 });
+    act(() => vi.advanceTimersByTime(200 * 2)); // group 2
+    press(' ');
+    expect(result.current.state).toEqual({ level: 'rows', group: 2, row: 3, item: 0, idlePasses: 0 });
+    act(() => vi.advanceTimersByTime(200)); // row 4
+    press(' ');
+    act(() => vi.advanceTimersByTime(200 * 3)); // key 3
+    press(' ');
+    expect(onSelect).toHaveBeenCalledExactlyOnceWith(4, 3);
+    expect(result.current.state).toMatchObject({ level: 'groups', group: 0 });
+  });
+
+  it('step, one switch: no timer moves the highlight; presses move, 1.5 s without one chooses', () => {
+    const { result, onSelect, onSwitch } = setup('step-one-switch');
+    expect(result.current.state).toMatchObject({ level: 'rows', row: 0, waiting: true });
+    act(() => vi.advanceTimersByTime(10_000));
+    expect(result.current.state).toMatchObject({ level: 'rows', row: 0, waiting: true });
+    press(' '); // row 0
+    press(' '); // row 1
+    act(() => vi.advanceTimersByTime(1499));
+    expect(result.current.state).toEqual({ level: 'rows', row: 1, item: 0, idlePasses: 0 });
+    act(() => vi.advanceTimersByTime(1));
+    expect(result.current.state).toEqual({ level: 'items', row: 1, item: 0, idlePasses: 0, waiting: true });
+    press(' ');
+    press(' ');
+    press(' '); // key 2
+    // Each press starts the acceptance time again.
+    act(() => vi.advanceTimersByTime(1000));
+    press(' '); // key 3
+    act(() => vi.advanceTimersByTime(1000));
+    expect(onSelect).not.toHaveBeenCalled();
+    act(() => vi.advanceTimersByTime(500));
+    expect(onSelect).toHaveBeenCalledExactlyOnceWith(1, 3);
+    expect(onSwitch).toHaveBeenCalledTimes(6);
+    expect(onSwitch.mock.calls.every((call) => call.length === 0)).toBe(true);
+    // Back at the top with nothing highlighted: waiting chooses nothing more.
+    act(() => vi.advanceTimersByTime(5000));
+    expect(onSelect).toHaveBeenCalledTimes(1);
+  });
+
+  it('step, two switches: Space moves, Enter selects, each logged as move or select; no timer', () => {
+    const { result, onSelect, onSwitch } = setup('step-two-switch', 'last');
+    // Suggestions last: rows 1, 2, 3, 4, 0.
+    expect(result.current.state).toEqual({ level: 'rows', row: 1, item: 0, idlePasses: 0 });
+    act(() => vi.advanceTimersByTime(10_000));
+    expect(result.current.state?.row).toBe(1);
+    for (let k = 0; k < 4; k++) press(' '); // row 0, the suggestions
+    expect(press('Enter').defaultPrevented).toBe(true);
+    press(' ');
+    press(' ');
+    press('Enter');
+    expect(onSelect).toHaveBeenCalledExactlyOnceWith(0, 2);
+    expect(onSwitch.mock.calls.map((call) => call[0])).toEqual([
+      'move',
+      'move',
+      'move',
+      'move',
+      'select',
+      'move',
+      'move',
+      'select',
+    ]);
+    expect(result.current.state).toEqual({ level: 'rows', row: 1, item: 0, idlePasses: 0 });
+  });
+
+  it('a new pattern starts the scan again at the top', () => {
+    const { result, rerender } = setup('auto-row-column');
+    act(() => vi.advanceTimersByTime(400));
+    expect(result.current.state?.row).toBe(2);
+    rerender({ pattern: 'auto-group-row-key', suggestionsAt: 'last' });
+    expect(result.current.state).toEqual({ level: 'groups', group: 0, row: 1, item: 0, idlePasses: 0 });
   });
 });

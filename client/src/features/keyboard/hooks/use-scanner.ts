@@ -1,30 +1,48 @@
-// Single-switch row–column scanning over the suggestion row and the key grid (logic/scanner.ts)
-// driven by a timer; Space or Enter is the switch while scanning runs.
-import { useCallback, useEffect, useRef, useState } from 'react';
-import { fitScanState, initialScanState, scanPress, type ScanState, scanTick } from '../logic/scanner';
+// Scanning over the suggestion row and the key grid (logic/scanner.ts) in the chosen pattern.
+// Automatic patterns: a timer moves the highlight; Space or Enter is the switch. Step, one switch:
+// Space (or Enter) moves one step; a pause of the acceptance time chooses. Step, two switches:
+// Space moves, Enter chooses; no timer.
+import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
+import {
+  fitScanState,
+  initialScanState,
+  scanAdvance,
+  scanChoose,
+  type ScanConfig,
+  type ScanPattern,
+  type ScanState,
+  type SuggestionsAt,
+} from '../logic/scanner';
 
 export type { ScanState } from '../logic/scanner';
 
 export type ScannerOptions = {
   /** When false, scanning stops and the switch keys are left alone. */
   enabled: boolean;
-  /** Time the highlight stays on each row or item, ms (≥ 100). */
+  /** Time the highlight stays on each row or item, ms (≥ 100; automatic patterns). */
   intervalMs: number;
+  /** The scanning pattern (default automatic row–column). */
+  pattern?: ScanPattern;
+  /** The suggestion row (row 0) scanned first or last (default first). */
+  suggestionsAt?: SuggestionsAt;
+  /** Step, one switch: ms without a press before the highlighted entry is chosen (≥ 100). */
+  acceptMs?: number;
   /** Items in each scanned row, in order (an empty row is skipped). */
   rowLengths: number[];
   /** A press selected item `item` of row `row`. */
   onSelect: (row: number, item: number) => void;
-  /** Called for every switch press (log it as a `switch` step). */
-  onSwitch: () => void;
+  /** Called for every switch press (log it as a `switch` step); two switches say which one. */
+  onSwitch: (value?: 'move' | 'select') => void;
 };
 
 const SWITCH_KEYS = new Set([' ', 'Spacebar', 'Enter']);
+const MOVE_KEYS = new Set([' ', 'Spacebar']);
 
 /**
- * Runs row–column scanning. While running, a keydown of Space or Enter anywhere in the document
- * is the switch (its default is prevented, so the page neither scrolls nor clicks the focused
- * control); a held key does not repeat; Escape stops. After a press the highlight stays a whole
- * interval before moving on.
+ * Runs scanning. While running, a keydown of Space or Enter anywhere in the document is a switch
+ * (its default is prevented, so the page neither scrolls nor clicks the focused control); a held key
+ * does not repeat; Escape stops. Automatic: after a press the highlight stays a whole interval before
+ * moving on. Step, one switch: the acceptance time counts from the last press.
  */
 export function useScanner(o: ScannerOptions): {
   state: ScanState | null;
@@ -33,6 +51,12 @@ export function useScanner(o: ScannerOptions): {
   stop: () => void;
 } {
   const { enabled, intervalMs } = o;
+  const pattern = o.pattern ?? 'auto-row-column';
+  const suggestionsAt = o.suggestionsAt ?? 'first';
+  const acceptMs = o.acceptMs ?? 1500;
+  const config: ScanConfig = useMemo(() => ({ pattern, suggestionsAt }), [pattern, suggestionsAt]);
+  const configRef = useRef(config);
+  const automatic = pattern === 'auto-row-column' || pattern === 'auto-group-row-key';
   const [running, setRunning] = useState(false);
   const [state, setState] = useState<ScanState | null>(null);
   // The timer restarts after each press (so the highlight holds for a full interval).
@@ -42,6 +66,7 @@ export function useScanner(o: ScannerOptions): {
   const optionsRef = useRef(o);
   useEffect(() => {
     optionsRef.current = o;
+    configRef.current = config;
   });
 
   const update = useCallback((next: ScanState | null) => {
@@ -52,7 +77,7 @@ export function useScanner(o: ScannerOptions): {
   const start = useCallback(() => {
     // Scanning starts only where it is the selection mode in use.
     if (!optionsRef.current.enabled) return;
-    update(initialScanState(optionsRef.current.rowLengths));
+    update(initialScanState(optionsRef.current.rowLengths, configRef.current));
     setRunning(true);
   }, [update]);
 
@@ -67,20 +92,41 @@ export function useScanner(o: ScannerOptions): {
   const lengthsKey = o.rowLengths.join(',');
   useEffect(() => {
     if (!active) return;
-    const fitted = fitScanState(stateRef.current, optionsRef.current.rowLengths);
+    const fitted = fitScanState(stateRef.current, optionsRef.current.rowLengths, configRef.current);
     if (fitted !== stateRef.current) update(fitted);
   }, [active, lengthsKey, update]);
 
+  // A new pattern or suggestion place starts the scan again at the top.
   useEffect(() => {
-    if (!active) return;
+    if (active) update(initialScanState(optionsRef.current.rowLengths, config));
+  }, [active, config, update]);
+
+  const choose = useCallback(() => {
+    const options = optionsRef.current;
+    const { state: next, selected } = scanChoose(stateRef.current, options.rowLengths, configRef.current);
+    update(next);
+    if (selected) options.onSelect(selected.row, selected.item);
+  }, [update]);
+
+  // Automatic: the highlight moves at every interval.
+  useEffect(() => {
+    if (!active || !automatic) return;
     const timer = setInterval(
       () => {
-        update(scanTick(stateRef.current, optionsRef.current.rowLengths));
+        update(scanAdvance(stateRef.current, optionsRef.current.rowLengths, configRef.current));
       },
       Math.max(100, intervalMs),
     );
     return () => clearInterval(timer);
-  }, [active, intervalMs, pressCount, update]);
+  }, [active, automatic, intervalMs, pressCount, update]);
+
+  // Step, one switch: the acceptance time after the last press chooses what is highlighted.
+  useEffect(() => {
+    if (!active || pattern !== 'step-one-switch' || pressCount === 0) return;
+    if (stateRef.current === null || stateRef.current.waiting) return;
+    const timer = setTimeout(choose, Math.max(100, acceptMs));
+    return () => clearTimeout(timer);
+  }, [active, pattern, acceptMs, pressCount, choose]);
 
   useEffect(() => {
     if (!active) return;
@@ -94,11 +140,20 @@ export function useScanner(o: ScannerOptions): {
       event.preventDefault();
       if (event.repeat) return;
       const options = optionsRef.current;
-      options.onSwitch();
-      const { state: next, selected } = scanPress(stateRef.current, options.rowLengths);
-      update(next);
+      const { pattern: now } = configRef.current;
+      if (now === 'step-two-switch') {
+        const move = MOVE_KEYS.has(event.key);
+        options.onSwitch(move ? 'move' : 'select');
+        if (move) update(scanAdvance(stateRef.current, options.rowLengths, configRef.current));
+        else choose();
+      } else if (now === 'step-one-switch') {
+        options.onSwitch();
+        update(scanAdvance(stateRef.current, options.rowLengths, configRef.current));
+      } else {
+        options.onSwitch();
+        choose();
+      }
       setPressCount((n) => n + 1);
-      if (selected) options.onSelect(selected.row, selected.item);
     };
     // A focused button clicks on the keyup of Space: stop that too while Space is the switch.
     const onKeyUp = (event: KeyboardEvent) => {
@@ -110,7 +165,7 @@ export function useScanner(o: ScannerOptions): {
       document.removeEventListener('keydown', onKeyDown);
       document.removeEventListener('keyup', onKeyUp);
     };
-  }, [active, stop, update]);
+  }, [active, choose, stop, update]);
 
   // Turning the option off ends a running scan.
   useEffect(() => {

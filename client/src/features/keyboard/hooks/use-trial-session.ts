@@ -34,7 +34,7 @@ export type TrialSession = {
    */
   select: (e: TrialSelection) => string;
   /** Logs one switch activation (scanning) while a trial runs. */
-  logSwitch: () => void;
+  logSwitch: (value?: 'move' | 'select') => void;
   /** Logs the suggestion row shown, when it differs from the last one logged, while a trial runs. */
   logOffer: (words: string[]) => void;
   /** Starts a trial on an empty text (the API replays the log from an empty text). */
@@ -91,9 +91,13 @@ export function useTrialSession(): TrialSession {
     [log],
   );
 
-  const logSwitch = useCallback(() => {
-    if (runningRef.current) log({ t: elapsed(), type: 'switch' });
-  }, [log]);
+  const logSwitch = useCallback(
+    (value?: 'move' | 'select') => {
+      // Two switches: which one was pressed (trialEventSchema).
+      if (runningRef.current) log({ t: elapsed(), type: 'switch', ...(value ? { value } : {}) });
+    },
+    [log],
+  );
 
   const logOffer = useCallback(
     (words: string[]) => {

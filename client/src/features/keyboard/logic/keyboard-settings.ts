@@ -25,6 +25,12 @@ const selectionModeFor: Record<AccessMethod, TrialSelectionMode> = {
   switch: 'scanning',
 };
 
+/**
+ * Step scanning with one switch: how long without a press before the highlighted entry is chosen,
+ * ms (range 500–10000). Common practice, no source.
+ */
+export const DEFAULT_SCAN_ACCEPT_MS = 1500;
+
 /** Text size choices, as multiples of the normal size (100–300 %). */
 export const textScales = [1, 1.25, 1.5, 2, 2.5, 3] as const;
 
@@ -51,6 +57,9 @@ export const defaultKeyboardSettings = (
   reduceMotion: osReducedMotion,
   autoCapital: true,
   numberKeysPick: false,
+  scanPattern: 'auto-row-column',
+  suggestionsScanned: 'first',
+  scanAcceptMs: DEFAULT_SCAN_ACCEPT_MS,
 });
 
 /** The settings a trial is logged with: only the timing its selection mode uses (the schema's shape). */
@@ -64,6 +73,16 @@ export const trialSettingsOf = (settings: KeyboardViewSettings): TrialSettings =
   highContrast: settings.highContrast,
   textScale: settings.textScale,
   tintKeys: settings.tintKeys,
+  // The scanning pattern, where the suggestions come and (step, one switch) the acceptance time.
+  ...(settings.selectionMode === 'scanning'
+    ? {
+        scanPattern: settings.scanPattern ?? 'auto-row-column',
+        suggestionsScanned: settings.suggestionsScanned ?? 'first',
+        ...(settings.scanPattern === 'step-one-switch'
+          ? { scanAcceptMs: settings.scanAcceptMs ?? DEFAULT_SCAN_ACCEPT_MS }
+          : {}),
+      }
+    : {}),
 });
 
 /** A millisecond value from a number field, clamped to [min, max]; the old value when not a number. */
