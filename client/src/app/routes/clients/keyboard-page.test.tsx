@@ -426,7 +426,7 @@ describe('Test keyboard page', () => {
     ]);
   });
 
-  it('group–row–key outlines the groups in turn: the suggestions, then key rows 1–2, then 3–4', async () => {
+  it('group–row–key outlines the groups in turn: the suggestions, then key rows 1–3, then 4–5', async () => {
     const { user } = await openKeyboard('carer');
     await user.selectOptions(screen.getByLabelText('Selection mode'), 'scanning');
     await user.selectOptions(screen.getByLabelText('Scanning pattern'), 'auto-group-row-key');
@@ -441,15 +441,16 @@ describe('Test keyboard page', () => {
     expect(group()).toBeNull();
     act(() => vi.advanceTimersByTime(200));
     expect(suggestions).not.toHaveAttribute('data-scan-row');
-    expect(group()).toBe('1 2');
+    // Five key rows (letters in three, space and punctuation, shift and the editing keys): 3 + 2.
+    expect(group()).toBe('1 2 3');
     act(() => vi.advanceTimersByTime(200));
-    expect(group()).toBe('3 4');
-    // The switch enters the group: its first row (key row 3) is highlighted alone.
+    expect(group()).toBe('4 5');
+    // The switch enters the group: its first row (key row 4) is highlighted alone.
     act(() => {
       fireEvent.keyDown(document, { key: ' ' });
     });
     expect(group()).toBeNull();
-    expect(screen.getByRole('group', { name: 'Keys' }).children[2]).toHaveAttribute('data-scan-row', 'on');
+    expect(screen.getByRole('group', { name: 'Keys' }).children[3]).toHaveAttribute('data-scan-row', 'on');
   });
 
   it('lets the owning clinician add a practice phrase from the keyboard', async () => {
