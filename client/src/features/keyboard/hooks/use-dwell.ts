@@ -38,7 +38,8 @@ export function useDwell(o: DwellOptions): {
   const sound = o.sound ?? false;
   const [activeId, setActiveId] = useState<string | null>(null);
   const [progress, setProgress] = useState(0);
-  const [chosenId, setChosenId] = useState<string | null>(null);
+  // The target just chosen, with a count so the same target chosen again flashes again.
+  const [chosen, setChosen] = useState<{ id: string; n: number } | null>(null);
 
   const onActivateRef = useRef(o.onActivate);
   useEffect(() => {
@@ -46,7 +47,6 @@ export function useDwell(o: DwellOptions): {
   });
   const timerRef = useRef<ReturnType<typeof setTimeout> | null>(null);
   const frameRef = useRef<number | null>(null);
-  const flashRef = useRef<ReturnType<typeof setTimeout> | null>(null);
   const refractoryRef = useRef<ReturnType<typeof setTimeout> | null>(null);
   // The target that fired and has not been left since: it does not fire again.
   const spentRef = useRef<string | null>(null);
@@ -85,12 +85,7 @@ export function useDwell(o: DwellOptions): {
         timerRef.current = null;
         spentRef.current = id;
         cancel();
-        if (flashRef.current !== null) clearTimeout(flashRef.current);
-        setChosenId(id);
-        flashRef.current = setTimeout(() => {
-          flashRef.current = null;
-          setChosenId(null);
-        }, CHOSEN_FLASH_MS);
+        setChosen((last) => ({ id, n: (last?.n ?? 0) + 1 }));
         if (refractoryMs > 0) {
           refractoryRef.current = setTimeout(() => {
             refractoryRef.current = null;
@@ -131,14 +126,19 @@ export function useDwell(o: DwellOptions): {
     return () => {
       spentRef.current = null;
       hoverRef.current = null;
-      for (const ref of [flashRef, refractoryRef]) {
-        if (ref.current !== null) clearTimeout(ref.current);
-        ref.current = null;
-      }
-      setChosenId(null);
+      if (refractoryRef.current !== null) clearTimeout(refractoryRef.current);
+      refractoryRef.current = null;
+      setChosen(null);
       cancel();
     };
   }, [enabled, cancel]);
+
+  // The flash is timed from when it is on screen (the selection's own re-render may take a while).
+  useEffect(() => {
+    if (!chosen) return;
+    const timer = setTimeout(() => setChosen(null), CHOSEN_FLASH_MS);
+    return () => clearTimeout(timer);
+  }, [chosen]);
 
   const targetProps = useCallback(
     (id: string): DwellTargetProps =>
@@ -148,5 +148,5 @@ export function useDwell(o: DwellOptions): {
     [enabled, begin, leave],
   );
 
-  return { activeId, progress, chosenId, targetProps };
+  return { activeId, progress, chosenId: chosen?.id ?? null, targetProps };
 }

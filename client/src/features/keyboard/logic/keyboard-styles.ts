@@ -60,8 +60,8 @@ export const targetClasses = ({
 }: TargetLook): string =>
   cn(
     'relative isolate flex w-full min-w-0 items-center justify-center overflow-hidden rounded-lg px-1 font-bold [overflow-wrap:anywhere] select-none',
-    // Large: at least 64×64 (targetSize); 80 px high as before.
-    largeTargets ? 'min-h-20 min-w-16' : 'min-h-12',
+    // Large: at least 64×64 (LARGE_TARGET_PX, also set by targetSize).
+    largeTargets ? 'min-h-16 min-w-16' : 'min-h-12',
     !reduceMotion && 'transition-colors duration-150',
     strongCue ? 'border-4' : 'border-2',
     highContrast
