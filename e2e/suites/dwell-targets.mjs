@@ -62,6 +62,22 @@ async function assertLargeTargets(page, label) {
   await assertNoSidewaysScroll(page, label);
 }
 
+/** How many lines each key row takes on screen (distinct tops of its keys). */
+const linesPerRow = (page) =>
+  page.evaluate(() =>
+    [...document.querySelectorAll('[role="group"][aria-label="Keys"] > div')].map(
+      (row) =>
+        new Set([...row.querySelectorAll('button')].map((b) => Math.round(b.getBoundingClientRect().top)))
+          .size,
+    ),
+  );
+
+/** Back to the suites' window size (the user menu is in the wide header), then signs out. */
+async function signOutWide(page) {
+  await page.setViewportSize({ width: 1280, height: 860 });
+  await signOut(page, 'Carer');
+}
+
 async function shoot(t, page, name) {
   await t.screenshot(page, `dwell-targets-${name}`);
   await page.screenshot({ path: `/tmp/dwell-targets-${name}.png`, fullPage: true });
@@ -81,21 +97,14 @@ export const dwellTargetsSuite = {
         await page.getByLabel('Large targets').check();
         await assertLargeTargets(page, '390 × 844');
         // The first key row (ten letters) no longer fits on one line of 390 px: it wraps.
-        const tops = await page.evaluate(() => [
-          ...new Set(
-            [...document.querySelectorAll('[role="group"][aria-label="Keys"] > div:first-child button')].map(
-              (b) => Math.round(b.getBoundingClientRect().top),
-            ),
-          ),
-        ]);
-        assert.ok(tops.length >= 2, `the first row wraps onto ${tops.length} lines`);
+        const tops = (await linesPerRow(page))[0];
+        assert.ok(tops >= 2, `the first row wraps onto ${tops} lines`);
         await page.getByLabel('Key spacing').selectOption('large');
         await assertLargeTargets(page, '390 × 844, large spacing');
         assert.deepEqual(await t.seriousViolations(page, 'large targets at 390'), []);
         await page.getByRole('group', { name: 'Keys' }).scrollIntoViewIfNeeded();
         await shoot(t, page, '390');
-        await page.setViewportSize({ width: 1280, height: 860 });
-        await signOut(page, 'Carer');
+        await signOutWide(page);
       },
     ],
     [
@@ -104,22 +113,14 @@ export const dwellTargetsSuite = {
         const page = await openKeyboard(t, { width: 1280, height: 800 });
         await page.getByLabel('Large targets').check();
         await assertLargeTargets(page, '1280 × 800');
-        const lines = await page.evaluate(() =>
-          [...document.querySelectorAll('[role="group"][aria-label="Keys"] > div')].map(
-            (row) =>
-              new Set(
-                [...row.querySelectorAll('button')].map((b) => Math.round(b.getBoundingClientRect().top)),
-              ).size,
-          ),
-        );
+        const lines = await linesPerRow(page);
         assert.deepEqual(
           lines.filter((n) => n !== 1),
           [],
           'every key row keeps one line on a wide screen',
         );
         await shoot(t, page, '1280');
-        await page.setViewportSize({ width: 1280, height: 860 });
-        await signOut(page, 'Carer');
+        await signOutWide(page);
       },
     ],
     [
