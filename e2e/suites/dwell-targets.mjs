@@ -79,12 +79,12 @@ async function signOutWide(page) {
 }
 
 async function shoot(t, page, name) {
-  await t.screenshot(page, `dwell-targets-${name}`);
-  await page.screenshot({ path: `/tmp/dwell-targets-${name}.png`, fullPage: true });
-  // The keyboard alone, to look at the keys.
+  // The keyboard alone first (quick, while a dwell is still running), to look at the keys.
   await page
     .locator('section[aria-labelledby="keyboard-heading"]')
     .screenshot({ path: `/tmp/dwell-targets-${name}-keyboard.png` });
+  await t.screenshot(page, `dwell-targets-${name}`);
+  await page.screenshot({ path: `/tmp/dwell-targets-${name}.png`, fullPage: true });
 }
 
 export const dwellTargetsSuite = {
@@ -180,13 +180,18 @@ export const dwellTargetsSuite = {
         await page.waitForFunction(
           () => document.querySelector('[data-output]')?.getAttribute('data-text') === 'g',
         );
-        // A second dwell, for the picture (a screenshot may move the page and end it: no checks here).
-        await page
-          .getByRole('group', { name: 'Keys' })
-          .getByRole('button', { name: 'h', exact: true })
-          .hover();
-        await page.waitForTimeout(700);
-        await shoot(t, page, 'dwell-fill');
+        // A second dwell, for the picture: the window as it is (no scrolling, which would end the dwell).
+        const h = page.getByRole('group', { name: 'Keys' }).getByRole('button', { name: 'h', exact: true });
+        await h.hover();
+        await page.waitForTimeout(600);
+        await page.screenshot({ path: '/tmp/dwell-targets-dwell-fill.png' });
+        await page.getByLabel('High contrast').check();
+        await page.mouse.move(0, 0);
+        await page.waitForTimeout(400);
+        await h.hover();
+        await page.waitForTimeout(600);
+        await page.screenshot({ path: '/tmp/dwell-targets-dwell-fill-high-contrast.png' });
+        await page.getByLabel('High contrast').uncheck();
         await page.mouse.move(0, 0);
 
         await page.getByLabel('Selection mode').selectOption('scanning');
