@@ -280,6 +280,51 @@ describe('test keyboard (HTTP)', () => {
       );
     });
 
+    it('keeps the capital, number-key, spacing and dwell settings (stored and listed); refuses them out of range', async () => {
+      const dwell = {
+        ...directSettings,
+        selectionMode: 'dwell' as const,
+        dwellMs: 700,
+        largeTargets: true,
+        autoCapital: false,
+        keySpacing: 'large' as const,
+        dwellRefractoryMs: 1200,
+        dwellSound: true,
+      };
+      const direct = {
+        ...directSettings,
+        autoCapital: true,
+        numberKeysPick: true,
+        keySpacing: 'medium' as const,
+      };
+      for (const settings of [dwell, direct]) {
+        const res = await post(cast.assignedCarer, trials(version.id), trialBody({ settings })).expect(201);
+        const trial = res.body as Trial;
+        expect(trial.settings).toEqual(settings);
+        const listed = (await get(cast.owner, trials(version.id)).expect(200)).body as Trial[];
+        expect(listed.find((x) => x.id === trial.id)?.settings).toEqual(settings);
+      }
+      for (const bad of [
+        { ...dwell, dwellRefractoryMs: 2001 },
+        { ...dwell, dwellRefractoryMs: -1 },
+        { ...dwell, keySpacing: 'huge' },
+        { ...direct, numberKeysPick: 'yes' },
+      ]) {
+        const res = await post(cast.assignedCarer, trials(version.id), trialBody({ settings: bad as never }));
+        expect(res.status).toBe(400);
+        expect(typeof res.body.message).toBe('string');
+      }
+    });
+
+    it('still takes settings of the old shape, without the optional fields, and returns them as sent', async () => {
+      const old = { ...directSettings };
+      expect(Object.keys(old)).not.toContain('autoCapital');
+      const res = await post(cast.assignedCarer, trials(version.id), trialBody({ settings: old })).expect(
+        201,
+      );
+      expect((res.body as Trial).settings).toEqual(old);
+    });
+
     it('measures a trial with suggestions, corrections and switch steps as computeTrialMeasures does', async () => {
       const events: TrialEvent[] = [
         { t: 0, type: 'offer', words: ['i', 'the'] },

@@ -1,5 +1,6 @@
 // Every browser suite, in the order they run. Later issues add their suite here.
 import { caseloadSuite } from './caseload.mjs';
+import { dwellTargetsSuite } from './dwell-targets.mjs';
 import { foundationSuite } from './foundation.mjs';
 import { keyboardSuite } from './keyboard.mjs';
 import { profilesSuite } from './profiles.mjs';
@@ -11,6 +12,7 @@ export const browserSuites = [
   caseloadSuite,
   profilesSuite,
   keyboardSuite,
+  dwellTargetsSuite,
   summariesSuite,
   vocabularyKeyboardSuite,
 ];

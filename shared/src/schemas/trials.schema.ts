@@ -46,6 +46,14 @@ export const trialScanPatternLabels: Record<TrialScanPattern, string> = {
 /** Where the suggestion row comes in the scan: before the key rows or after them. */
 export const suggestionsScannedPlaces = ['first', 'last'] as const;
 export type SuggestionsScanned = (typeof suggestionsScannedPlaces)[number];
+/** The gap between keys, between key rows and between suggestion slots: small, medium or large. */
+export const keySpacings = ['small', 'medium', 'large'] as const;
+export type KeySpacing = (typeof keySpacings)[number];
+export const keySpacingLabels: Record<KeySpacing, string> = {
+  small: 'Small',
+  medium: 'Medium',
+  large: 'Large',
+};
 
 /** The settings a trial ran with (the client record's access settings are the defaults). */
 export const trialSettingsSchema = z.object({
@@ -65,6 +73,17 @@ export const trialSettingsSchema = z.object({
   suggestionsScanned: z.enum(suggestionsScannedPlaces).optional(),
   /** Step scanning with one switch: ms without a press before the highlighted entry is chosen. */
   scanAcceptMs: z.number().int().min(500).max(10_000).optional(),
+  // Optional, so trials logged before these settings existed still parse: absent means not recorded.
+  /** A capital at the message's start and after a sentence's end (any mode). */
+  autoCapital: z.boolean().optional(),
+  /** Direct mode only: the number keys 1–9 of a physical keyboard pick suggestions 1–9. */
+  numberKeysPick: z.boolean().optional(),
+  /** The gap between keys, rows and suggestion slots (any mode). */
+  keySpacing: z.enum(keySpacings).optional(),
+  /** Dwell only: ms after each selection during which no dwell starts. */
+  dwellRefractoryMs: z.number().int().min(0).max(2_000).optional(),
+  /** Dwell only: a short tone on each selection. */
+  dwellSound: z.boolean().optional(),
 });
 export type TrialSettings = z.infer<typeof trialSettingsSchema>;
 

@@ -1,7 +1,15 @@
 import { memo, type KeyboardEvent, useRef, useState } from 'react';
+import type { KeySpacing } from '@keyloom/shared';
 import type { KeyDef } from '../logic/layouts';
 import { DwellFill } from './dwell-fill';
-import { targetClasses, tintStyle } from '../logic/keyboard-styles';
+import {
+  chosenStyle,
+  keySpacingPx,
+  rowColumns,
+  targetClasses,
+  targetSize,
+  tintStyle,
+} from '../logic/keyboard-styles';
 import { cn } from '@/lib/cn';
 
 /** Where the scanner is inside the key grid (rows counted from the first key row). */
@@ -10,6 +18,8 @@ export type GridScan = { level: 'rows' | 'items'; row: number; item: number } | 
 export type DwellView = {
   activeId: string | null;
   progress: number;
+  /** The target just chosen by dwell (its "chosen" flash), or null. */
+  chosenId?: string | null;
   targetProps: (id: string) => { onPointerEnter: () => void; onPointerLeave: () => void };
 } | null;
 
@@ -24,6 +34,8 @@ type KeyGridProps = {
   letterProbabilities: ReadonlyMap<string, number> | null;
   scan: GridScan;
   dwell: DwellView;
+  /** The gap between keys and between rows (small, the default, is 8 px). */
+  keySpacing?: KeySpacing;
 };
 
 /** Columns a key takes: the space bar three, delete and the function keys two, every other key one. */
@@ -60,7 +72,9 @@ export const KeyGrid = memo(function KeyGrid({
   letterProbabilities,
   scan,
   dwell,
+  keySpacing = 'small',
 }: KeyGridProps) {
+  const gap = keySpacingPx[keySpacing];
   const [focus, setFocus] = useState<[number, number]>([0, 0]);
   const refs = useRef(new Map<string, HTMLButtonElement>());
   // Keep the roving position inside the grid when the layout changes.
@@ -95,9 +109,10 @@ export const KeyGrid = memo(function KeyGrid({
     <div
       role="group"
       aria-label="Keys"
-      className="flex flex-col gap-2"
+      data-key-spacing={keySpacing}
+      className="flex flex-col"
       // Capped by the window's width so a letter never outgrows its key on a narrow screen.
-      style={{ fontSize: `min(${(largeTargets ? 1.6 : 1.3) * textScale}rem, 7vw)` }}
+      style={{ gap: `${gap}px`, fontSize: `min(${(largeTargets ? 1.6 : 1.3) * textScale}rem, 7vw)` }}
     >
       {rows.map((keys, r) => {
         const rowScanned = scan?.level === 'rows' && scan.row === r;
@@ -106,11 +121,17 @@ export const KeyGrid = memo(function KeyGrid({
             key={r}
             data-scan-row={rowScanned ? 'on' : undefined}
             className={cn(
-              'grid gap-2 rounded-xl p-1',
+              'grid rounded-xl p-1',
               rowScanned && (highContrast ? 'outline-6 outline-[#ffff00]' : 'outline-6 outline-rust'),
             )}
             style={{
-              gridTemplateColumns: `repeat(${keys.reduce((sum, k) => sum + span(k), 0)}, minmax(0, 1fr))`,
+              gap: `${gap}px`,
+              // With large targets a narrow screen wraps the row (the same row for arrows and the scanner).
+              gridTemplateColumns: rowColumns(
+                keys.reduce((sum, k) => sum + span(k), 0),
+                largeTargets,
+                gap,
+              ),
             }}
           >
             {keys.map((key, c) => {
@@ -120,6 +141,7 @@ export const KeyGrid = memo(function KeyGrid({
                   ? (letterProbabilities.get(key.value) ?? 0)
                   : null;
               const strongCue = p !== null && top.has(key.value);
+              const chosen = dwell?.chosenId === key.id;
               return (
                 <button
                   key={key.id}
@@ -134,13 +156,18 @@ export const KeyGrid = memo(function KeyGrid({
                   aria-disabled={key.disabled ? true : undefined}
                   data-key={key.id}
                   data-scanned={scanned ? 'on' : undefined}
+                  data-chosen={chosen ? 'on' : undefined}
                   className={cn(
-                    targetClasses({ highContrast, largeTargets, scanned, strongCue }),
+                    targetClasses({ highContrast, largeTargets, scanned, strongCue, chosen, reduceMotion }),
                     span(key) === 3 && 'col-span-3',
                     span(key) === 2 && 'col-span-2',
                     key.disabled && 'opacity-50',
                   )}
-                  style={tintStyle(p, strongCue, highContrast, scanned)}
+                  style={{
+                    ...tintStyle(p, strongCue, highContrast, scanned),
+                    ...targetSize(largeTargets),
+                    ...(chosen ? chosenStyle(highContrast) : {}),
+                  }}
                   onClick={() => {
                     setFocus([r, c]);
                     if (!key.disabled) onSelect(key);
@@ -156,11 +183,7 @@ export const KeyGrid = memo(function KeyGrid({
                     {key.label}
                   </span>
                   {dwell && dwell.activeId === key.id && (
-                    <DwellFill
-                      progress={dwell.progress}
-                      reduceMotion={reduceMotion}
-                      highContrast={highContrast}
-                    />
+                    <DwellFill progress={dwell.progress} reduceMotion={reduceMotion} />
                   )}
                 </button>
               );

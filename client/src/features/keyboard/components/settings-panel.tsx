@@ -2,6 +2,9 @@ import {
   keyboardLayoutLabels,
   keyboardLayouts,
   type KeyboardLayout,
+  keySpacingLabels,
+  keySpacings,
+  type KeySpacing,
   type SuggestionsScanned,
   trialScanPatternLabels,
   trialScanPatterns,
@@ -216,6 +219,17 @@ export const SettingsPanel = memo(function SettingsPanel({
             onCommit={(dwellMs) => set({ dwellMs })}
           />
         )}
+        {settings.selectionMode === 'dwell' && (
+          <MsField
+            label="Pause after a selection (ms)"
+            hint="After each selection no dwell starts for this long, so a resting gaze does not choose the next key at once (0–2000)."
+            min={0}
+            max={2000}
+            value={settings.dwellRefractoryMs}
+            disabled={trialRunning}
+            onCommit={(dwellRefractoryMs) => set({ dwellRefractoryMs })}
+          />
+        )}
         {settings.selectionMode === 'scanning' && (
           <MsField
             label="Scan interval (ms)"
@@ -290,11 +304,28 @@ export const SettingsPanel = memo(function SettingsPanel({
             </select>
           )}
         </Field>
+        <Field label="Key spacing" hint="The gap between keys, between rows and between suggestions.">
+          {(id, hintId) => (
+            <select
+              id={id}
+              aria-describedby={hintId}
+              className={fieldClasses(false)}
+              value={settings.keySpacing}
+              onChange={(event) => set({ keySpacing: event.target.value as KeySpacing })}
+            >
+              {keySpacings.map((spacing) => (
+                <option key={spacing} value={spacing}>
+                  {keySpacingLabels[spacing]}
+                </option>
+              ))}
+            </select>
+          )}
+        </Field>
       </div>
       <div className="grid gap-4 md:grid-cols-2">
         <Toggle
           label="Large targets"
-          hint="Keys at least 64 pixels high."
+          hint="Keys and suggestions at least 64 by 64 pixels; on a narrow screen rows wrap onto more lines."
           checked={settings.largeTargets}
           onChange={(largeTargets) => set({ largeTargets })}
         />
@@ -322,6 +353,23 @@ export const SettingsPanel = memo(function SettingsPanel({
           checked={settings.numberKeysPick}
           onChange={(numberKeysPick) => set({ numberKeysPick })}
         />
+        {settings.selectionMode === 'dwell' && (
+          <Toggle
+            label="Sound on selection"
+            hint="A short tone each time a dwell chooses a key or suggestion."
+            checked={settings.dwellSound}
+            disabled={trialRunning}
+            onChange={(dwellSound) => set({ dwellSound })}
+          />
+        )}
+        {settings.selectionMode === 'scanning' && (
+          <Toggle
+            label="Announce the scan highlight"
+            hint="A screen reader says each row, key or suggestion as the scan highlights it: for switch users who listen. Off, nothing extra is read."
+            checked={settings.scanAnnounce}
+            onChange={(scanAnnounce) => set({ scanAnnounce })}
+          />
+        )}
         <Toggle
           label="Reduce motion"
           hint={

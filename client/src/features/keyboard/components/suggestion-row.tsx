@@ -1,8 +1,9 @@
+import type { KeySpacing } from '@keyloom/shared';
 import { useEffect, useLayoutEffect, useRef, useState } from 'react';
 import { measureRowUpdate } from '../engine/latency-marks';
 import { DwellFill } from './dwell-fill';
 import type { DwellView } from './key-grid';
-import { targetClasses } from '../logic/keyboard-styles';
+import { chosenStyle, keySpacingPx, rowColumns, targetClasses, targetSize } from '../logic/keyboard-styles';
 import { cn } from '@/lib/cn';
 import { ANNOUNCE_DELAY_MS, describeRow, slotTargetId } from '../logic/trial-figures';
 
@@ -24,6 +25,8 @@ type SuggestionRowProps = {
   /** The scanner is on this row (all of it), or on one of its slots. */
   scan: { level: 'rows' | 'items'; item: number } | null;
   dwell: DwellView;
+  /** The gap between slots (small, the default, is 8 px). */
+  keySpacing?: KeySpacing;
 };
 
 /**
@@ -44,7 +47,9 @@ export const SuggestionRow = ({
   textScale,
   scan,
   dwell,
+  keySpacing = 'small',
 }: SuggestionRowProps) => {
+  const gap = keySpacingPx[keySpacing];
   const [announcement, setAnnouncement] = useState('');
   const lastAnnounced = useRef<string | null>(null);
   const summary = describeRow(words);
@@ -75,11 +80,12 @@ export const SuggestionRow = ({
         data-engine-ms={engineMs ?? undefined}
         data-scan-row={rowScanned ? 'on' : undefined}
         className={cn(
-          'grid gap-2 rounded-xl p-1',
+          'grid rounded-xl p-1',
           rowScanned && (highContrast ? 'outline-6 outline-[#ffff00]' : 'outline-6 outline-rust'),
         )}
         style={{
-          gridTemplateColumns: `repeat(${Math.min(slots, 5)}, minmax(0, 1fr))`,
+          gap: `${gap}px`,
+          gridTemplateColumns: rowColumns(Math.min(slots, 5), largeTargets, gap),
           fontSize: `min(${(largeTargets ? 1.5 : 1.2) * textScale}rem, 4.5vw)`,
         }}
       >
@@ -87,6 +93,7 @@ export const SuggestionRow = ({
           const word = words[slot];
           const scanned = rowScanned || (scan?.level === 'items' && scan.item === slot);
           const id = slotTargetId(slot);
+          const chosen = Boolean(word) && dwell?.chosenId === id;
           return (
             <button
               key={slot}
@@ -94,27 +101,29 @@ export const SuggestionRow = ({
               disabled={!word}
               aria-label={word ? `Suggestion ${slot + 1}: ${word}` : `Suggestion ${slot + 1}: empty`}
               data-scanned={scanned ? 'on' : undefined}
+              data-chosen={chosen ? 'on' : undefined}
               className={cn(
-                targetClasses({ highContrast, largeTargets, scanned }),
+                targetClasses({ highContrast, largeTargets, scanned, chosen, reduceMotion }),
                 !word && (highContrast ? 'border-dashed' : 'border-dashed border-field-border'),
               )}
-              style={
-                highContrast
+              style={{
+                ...(highContrast
                   ? scanned
                     ? { backgroundColor: '#ffff00', color: '#000000' }
                     : { backgroundColor: '#000000', color: '#ffffff' }
-                  : { backgroundColor: scanned ? '#fef3d8' : word ? '#ffffff' : '#f3ede0', color: '#1d2b4f' }
-              }
+                  : {
+                      backgroundColor: scanned ? '#fef3d8' : word ? '#ffffff' : '#f3ede0',
+                      color: '#1d2b4f',
+                    }),
+                ...targetSize(largeTargets),
+                ...(chosen ? chosenStyle(highContrast) : {}),
+              }}
               onClick={() => word && onPick(slot, word)}
               {...(word ? dwell?.targetProps(id) : {})}
             >
               <span aria-hidden="true">{word ?? '\u00a0'}</span>
               {dwell && word && dwell.activeId === id && (
-                <DwellFill
-                  progress={dwell.progress}
-                  reduceMotion={reduceMotion}
-                  highContrast={highContrast}
-                />
+                <DwellFill progress={dwell.progress} reduceMotion={reduceMotion} />
               )}
             </button>
           );

@@ -30,6 +30,7 @@ import {
 } from '../logic/keyboard-settings';
 import { ModelStatus } from './model-status';
 import { PhrasePicker } from './phrase-picker';
+import { ScanAnnouncer } from './scan-announcer';
 import { SettingsPanel } from './settings-panel';
 import { SuggestionRow } from './suggestion-row';
 import { slotTargetId, usesKeysTheSimulationLacks } from '../logic/trial-figures';
@@ -250,6 +251,8 @@ export const TestKeyboard = ({
   const dwell = useDwell({
     enabled: settings.selectionMode === 'dwell',
     dwellMs: settings.dwellMs ?? 800,
+    refractoryMs: settings.dwellRefractoryMs,
+    sound: settings.dwellSound,
     onActivate: useCallback((id: string) => {
       const now = latest.current;
       const slot = now.words.findIndex((_, index) => slotTargetId(index) === id);
@@ -506,6 +509,7 @@ export const TestKeyboard = ({
                 : null
           }
           dwell={settings.selectionMode === 'dwell' ? dwell : null}
+          keySpacing={settings.keySpacing}
         />
         <KeyGrid
           rows={rows}
@@ -521,6 +525,14 @@ export const TestKeyboard = ({
               : null
           }
           dwell={settings.selectionMode === 'dwell' ? dwell : null}
+          keySpacing={settings.keySpacing}
+        />
+        <ScanAnnouncer
+          enabled={settings.scanAnnounce && settings.selectionMode === 'scanning'}
+          state={scanState}
+          words={words}
+          keyRows={rows}
+          config={{ pattern: scanPattern, suggestionsAt }}
         />
       </section>
 

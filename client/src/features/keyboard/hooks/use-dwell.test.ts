@@ -1,6 +1,6 @@
 import { act, renderHook } from '@testing-library/react';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
-import { useDwell } from './use-dwell';
+import { CHOSEN_FLASH_MS, useDwell } from './use-dwell';
 
 describe('useDwell', () => {
   beforeEach(() => vi.useFakeTimers());
@@ -62,5 +62,106 @@ describe('useDwell', () => {
     act(() => result.current.targetProps('space').onPointerEnter());
     act(() => vi.advanceTimersByTime(2000));
     expect(onActivate).not.toHaveBeenCalled();
+  });
+
+  const withRefractory = (refractoryMs: number) => {
+    const onActivate = vi.fn();
+    const hook = renderHook(() => useDwell({ enabled: true, dwellMs: 800, refractoryMs, onActivate }));
+    return { ...hook, onActivate };
+  };
+
+  it('no dwell starts during the refractory time after a selection', () => {
+    const { result, onActivate } = withRefractory(300);
+    act(() => result.current.targetProps('letter-a').onPointerEnter());
+    act(() => vi.advanceTimersByTime(800));
+    expect(onActivate).toHaveBeenCalledExactlyOnceWith('letter-a');
+    // The gaze moves on at once: nothing fills during the refractory time.
+    act(() => result.current.targetProps('letter-a').onPointerLeave());
+    act(() => result.current.targetProps('letter-b').onPointerEnter());
+    expect(result.current.activeId).toBeNull();
+    act(() => vi.advanceTimersByTime(250));
+    expect(result.current.activeId).toBeNull();
+    act(() => result.current.targetProps('letter-b').onPointerLeave());
+    act(() => result.current.targetProps('letter-c').onPointerEnter());
+    expect(result.current.activeId).toBeNull();
+    // Left before the refractory time ended: nothing starts afterwards.
+    act(() => result.current.targetProps('letter-c').onPointerLeave());
+    act(() => vi.advanceTimersByTime(5000));
+    expect(onActivate).toHaveBeenCalledTimes(1);
+    // After it, a dwell starts as usual.
+    act(() => result.current.targetProps('letter-d').onPointerEnter());
+    expect(result.current.activeId).toBe('letter-d');
+  });
+
+  it('a pointer resting through the refractory time starts a fresh dwell when it ends', () => {
+    const { result, onActivate } = withRefractory(300);
+    act(() => result.current.targetProps('letter-a').onPointerEnter());
+    act(() => vi.advanceTimersByTime(800));
+    act(() => result.current.targetProps('letter-a').onPointerLeave());
+    act(() => vi.advanceTimersByTime(100));
+    act(() => result.current.targetProps('letter-b').onPointerEnter());
+    act(() => vi.advanceTimersByTime(199));
+    expect(result.current.activeId).toBeNull();
+    act(() => vi.advanceTimersByTime(1));
+    // 300 ms after the selection: a dwell on b from zero, not one counted from its entry at 100 ms.
+    expect(result.current.activeId).toBe('letter-b');
+    expect(result.current.progress).toBe(0);
+    act(() => vi.advanceTimersByTime(799));
+    expect(onActivate).toHaveBeenCalledTimes(1);
+    act(() => vi.advanceTimersByTime(1));
+    expect(onActivate).toHaveBeenLastCalledWith('letter-b');
+    expect(onActivate).toHaveBeenCalledTimes(2);
+  });
+
+  it('without a refractory time the next target starts at once', () => {
+    const { result } = withRefractory(0);
+    act(() => result.current.targetProps('letter-a').onPointerEnter());
+    act(() => vi.advanceTimersByTime(800));
+    act(() => result.current.targetProps('letter-b').onPointerEnter());
+    expect(result.current.activeId).toBe('letter-b');
+  });
+
+  it('the chosen target is flagged for the flash time, then cleared', () => {
+    const { result } = withRefractory(300);
+    expect(result.current.chosenId).toBeNull();
+    act(() => result.current.targetProps('space').onPointerEnter());
+    act(() => vi.advanceTimersByTime(799));
+    expect(result.current.chosenId).toBeNull();
+    act(() => vi.advanceTimersByTime(1));
+    expect(result.current.chosenId).toBe('space');
+    act(() => vi.advanceTimersByTime(CHOSEN_FLASH_MS - 1));
+    expect(result.current.chosenId).toBe('space');
+    act(() => vi.advanceTimersByTime(1));
+    expect(result.current.chosenId).toBeNull();
+  });
+});
+
+describe('useDwell sound', () => {
+  beforeEach(() => vi.useFakeTimers());
+  afterEach(() => {
+    vi.useRealTimers();
+    vi.restoreAllMocks();
+  });
+
+  it('plays the selection tone on each activation only when the sound is on', async () => {
+    const tone = await import('../logic/selection-tone');
+    const play = vi.spyOn(tone, 'playSelectionTone').mockImplementation(() => undefined);
+    const onActivate = vi.fn();
+    const hook = renderHook(
+      (props: { sound: boolean }) =>
+        useDwell({ enabled: true, dwellMs: 500, sound: props.sound, onActivate }),
+      {
+        initialProps: { sound: false },
+      },
+    );
+    act(() => hook.result.current.targetProps('letter-a').onPointerEnter());
+    act(() => vi.advanceTimersByTime(500));
+    expect(onActivate).toHaveBeenCalledTimes(1);
+    expect(play).not.toHaveBeenCalled();
+    hook.rerender({ sound: true });
+    act(() => hook.result.current.targetProps('letter-b').onPointerEnter());
+    act(() => vi.advanceTimersByTime(500));
+    expect(onActivate).toHaveBeenCalledTimes(2);
+    expect(play).toHaveBeenCalledTimes(1);
   });
 });

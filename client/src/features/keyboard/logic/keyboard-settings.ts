@@ -2,6 +2,7 @@ import {
   type AccessMethod,
   type Client,
   defaultAccessTiming,
+  type KeySpacing,
   type TrialSelectionMode,
   type TrialSettings,
 } from '@keyloom/shared';
@@ -14,6 +15,14 @@ export type KeyboardViewSettings = TrialSettings & {
   autoCapital: boolean;
   /** In direct mode, the number keys 1–9 of a physical keyboard pick suggestions 1–9. */
   numberKeysPick: boolean;
+  /** The gap between keys, rows and suggestion slots. */
+  keySpacing: KeySpacing;
+  /** Dwell: ms after each selection during which no dwell starts (0–2000). */
+  dwellRefractoryMs: number;
+  /** Dwell: a short tone on each selection. */
+  dwellSound: boolean;
+  /** Scanning: a polite live region says what the scanner highlights (display only, not logged). */
+  scanAnnounce: boolean;
 };
 
 // The client record's access method decides the trial's selection mode by default.
@@ -30,6 +39,12 @@ const selectionModeFor: Record<AccessMethod, TrialSelectionMode> = {
  * ms (range 500–10000). Common practice, no source.
  */
 export const DEFAULT_SCAN_ACCEPT_MS = 1500;
+
+/**
+ * Dwell: the refractory time after each selection, ms (range 0–2000), during which no dwell starts,
+ * so a gaze that lingers does not choose the next key at once. Common practice, no source.
+ */
+export const DEFAULT_DWELL_REFRACTORY_MS = 300;
 
 /** Text size choices, as multiples of the normal size (100–300 %). */
 export const textScales = [1, 1.25, 1.5, 2, 2.5, 3] as const;
@@ -60,6 +75,10 @@ export const defaultKeyboardSettings = (
   scanPattern: 'auto-row-column',
   suggestionsScanned: 'first',
   scanAcceptMs: DEFAULT_SCAN_ACCEPT_MS,
+  keySpacing: 'small',
+  dwellRefractoryMs: DEFAULT_DWELL_REFRACTORY_MS,
+  dwellSound: false,
+  scanAnnounce: false,
 });
 
 /** The settings a trial is logged with: only the timing its selection mode uses (the schema's shape). */
@@ -82,6 +101,12 @@ export const trialSettingsOf = (settings: KeyboardViewSettings): TrialSettings =
           ? { scanAcceptMs: settings.scanAcceptMs ?? DEFAULT_SCAN_ACCEPT_MS }
           : {}),
       }
+    : {}),
+  autoCapital: settings.autoCapital,
+  keySpacing: settings.keySpacing,
+  ...(settings.selectionMode === 'direct' ? { numberKeysPick: settings.numberKeysPick } : {}),
+  ...(settings.selectionMode === 'dwell'
+    ? { dwellRefractoryMs: settings.dwellRefractoryMs, dwellSound: settings.dwellSound }
     : {}),
 });
 
