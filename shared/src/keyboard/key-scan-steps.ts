@@ -26,6 +26,8 @@ export type KeyboardScanSteps = {
   letterSteps: Float64Array;
   /** Steps of a code point that is not a letter a–z or A–Z. */
   otherSteps(codePoint: number): number;
+  /** otherSteps of the code points 0..127, as a table (the engine reads it at every position). */
+  asciiSteps: Float64Array;
   /** Steps charged for a character with no key. */
   offKeyboardSteps: number;
 };
@@ -77,10 +79,15 @@ export function keyboardScanSteps(layout: KeyboardLayout): KeyboardScanSteps {
       byCodePoint.set(cp, letters.layer + steps + symbolsLayer.layer);
   }
   const offKeyboardSteps = letters.costliest + OFF_KEYBOARD_EXTRA_STEPS;
+  // Every key types a character below U+0080 today: a flat table for those, the map for the rest.
+  const ascii = new Float64Array(128).fill(offKeyboardSteps);
+  for (const [cp, steps] of byCodePoint) if (cp < 128) ascii[cp] = steps;
   return {
     layout,
     letterSteps,
     offKeyboardSteps,
-    otherSteps: (codePoint) => byCodePoint.get(codePoint) ?? offKeyboardSteps,
+    asciiSteps: ascii,
+    otherSteps: (codePoint) =>
+      codePoint >= 0 && codePoint < 128 ? ascii[codePoint] : (byCodePoint.get(codePoint) ?? offKeyboardSteps),
   };
 }

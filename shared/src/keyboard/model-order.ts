@@ -53,11 +53,20 @@ export function letterWeights(letters: Iterable<{ char: string; p: number }>): F
  * letter indexes (0 = a). A missing or non-finite weight counts as 0.
  */
 export function rankLetters(weights: ArrayLike<number> | null): number[] {
-  const weightOf = (i: number): number => {
+  const clean = new Float64Array(26);
+  for (let i = 0; i < 26; i++) {
     const w = weights?.[i];
-    return w !== undefined && Number.isFinite(w) ? w : 0;
-  };
-  return Array.from({ length: 26 }, (_, i) => i).sort((a, b) => weightOf(b) - weightOf(a) || a - b);
+    clean[i] = w !== undefined && Number.isFinite(w) ? w : 0;
+  }
+  // Insertion sort (26 items, called at every position by the engine): a letter moves before
+  // another only when strictly likelier, so equal weights keep alphabetical order (stable).
+  const order: number[] = [];
+  for (let i = 0; i < 26; i++) {
+    let j = order.length;
+    while (j > 0 && clean[order[j - 1]] < clean[i]) j--;
+    order.splice(j, 0, i);
+  }
+  return order;
 }
 
 /**

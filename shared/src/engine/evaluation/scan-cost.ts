@@ -16,7 +16,7 @@
 //   orders and for the order by the model, re-ordered at every position with the function the
 //   keyboard uses (modelOrderedLetterSteps). Letters are case-folded; symbols-layer characters,
 //   characters with no key and the unnamed mass as key-scan-steps.ts says.
-import { keyboardScanSteps, type KeyboardScanSteps } from '../../keyboard/key-scan-steps';
+import { keyboardScanSteps } from '../../keyboard/key-scan-steps';
 import { letterIndex, modelOrderedLetterSteps } from '../../keyboard/model-order';
 import type { KeyboardLayout } from '../../schemas/trials.schema';
 import { Distribution, type NextSymbolModel } from '../model-types';
@@ -72,18 +72,23 @@ function keyboardExpected(
   let typewriter = dist.rest * typewriterSteps.offKeyboardSteps;
   let alphabetical = dist.rest * alphabeticalSteps.offKeyboardSteps;
   let ordered = dist.rest * modelOrderedSteps.offKeyboardSteps;
-  const other = (table: KeyboardScanSteps, symbol: number, p: number): number => p * table.otherSteps(symbol);
+  const typewriterAscii = typewriterSteps.asciiSteps;
+  const alphabeticalAscii = alphabeticalSteps.asciiSteps;
+  const orderedAscii = modelOrderedSteps.asciiSteps;
   for (let k = 0; k < dist.size; k++) {
     const symbol = dist.symbols[k];
     const p = dist.probs[k];
     const letter = letterIndex(symbol);
-    if (letter >= 0) {
-      weights[letter] += p;
-      continue;
+    if (letter >= 0) weights[letter] += p;
+    else if (symbol < 128) {
+      typewriter += p * typewriterAscii[symbol];
+      alphabetical += p * alphabeticalAscii[symbol];
+      ordered += p * orderedAscii[symbol];
+    } else {
+      typewriter += p * typewriterSteps.otherSteps(symbol);
+      alphabetical += p * alphabeticalSteps.otherSteps(symbol);
+      ordered += p * modelOrderedSteps.otherSteps(symbol);
     }
-    typewriter += other(typewriterSteps, symbol, p);
-    alphabetical += other(alphabeticalSteps, symbol, p);
-    ordered += other(modelOrderedSteps, symbol, p);
   }
   modelOrderedLetterSteps(weights, orderedSteps);
   return {
