@@ -269,6 +269,11 @@ describe('profile versions (HTTP)', () => {
       expect(stored.folds).toBe(FOLDS);
       expect(stored.chars).toBe(TEXTS.reduce((n, s) => n + [...s].length, 0));
       expect(done.metrics).toMatchObject({ bpcIdeal: stored.bpcIdeal, order: 3 });
+      // Scan steps per character on each of the test keyboard's layouts, as the API answers them.
+      const byLayout = (done.metrics as ProfileReport).scanStepsByLayout;
+      expect(Object.keys(byLayout ?? {}).sort()).toEqual(['alphabetical', 'model-ordered', 'typewriter']);
+      expect(byLayout?.['model-ordered']).toBeGreaterThan(1);
+      expect(byLayout?.['model-ordered']).toBeLessThanOrEqual(byLayout?.alphabetical ?? 0);
     });
 
     it('trains the frozen set even after a sample is excluded later', async () => {

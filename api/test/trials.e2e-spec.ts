@@ -325,6 +325,22 @@ describe('test keyboard (HTTP)', () => {
       expect((res.body as Trial).settings).toEqual(old);
     });
 
+    it('keeps a trial typed on the layout ordered by the model; refuses an unknown layout', async () => {
+      const settings = { ...directSettings, layout: 'model-ordered' as const };
+      const res = await post(cast.assignedCarer, trials(version.id), trialBody({ settings }));
+      expect(res.status).toBe(201);
+      expect((res.body as Trial).settings).toEqual(settings);
+      const listed = (await get(cast.owner, trials(version.id)).expect(200)).body as Trial[];
+      expect(listed.find((x) => x.id === (res.body as Trial).id)?.settings.layout).toBe('model-ordered');
+      const bad = { ...directSettings, layout: 'by-frequency' };
+      const refused = await post(
+        cast.assignedCarer,
+        trials(version.id),
+        trialBody({ settings: bad as never }),
+      );
+      expect(refused.status).toBe(400);
+    });
+
     it('measures a trial with suggestions, corrections and switch steps as computeTrialMeasures does', async () => {
       const events: TrialEvent[] = [
         { t: 0, type: 'offer', words: ['i', 'the'] },

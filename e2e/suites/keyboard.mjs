@@ -492,6 +492,51 @@ export const keyboardSuite = {
       },
     ],
     [
+      'ordered by the model: the letters re-order after a letter, each letter once, the other keys stay; axe',
+      async (t) => {
+        const page = await openKeyboard(t);
+        await page.getByLabel('Key order').selectOption('model-ordered');
+        await page.getByText(/moves the letters after every letter typed/).waitFor();
+        // The letter keys in grid order (their ids stay letter-x), and every key id in grid order.
+        const keyIds = () =>
+          page.locator('[data-key]').evaluateAll((keys) => keys.map((key) => key.getAttribute('data-key')));
+        const letterOrder = async () =>
+          (await keyIds())
+            .filter((id) => id.startsWith('letter-'))
+            .map((id) => id.slice('letter-'.length))
+            .join('');
+        await rowSettled(page);
+        const before = await letterOrder();
+        assert.equal([...before].sort().join(''), 'abcdefghijklmnopqrstuvwxyz', 'every letter once');
+        const othersBefore = (await keyIds()).filter((id) => !id.startsWith('letter-'));
+        await selectAndSettle(page, keyButton(page, 't'));
+        await page.waitForFunction(
+          (old) =>
+            [...document.querySelectorAll('[data-key^="letter-"]')]
+              .map((key) => key.getAttribute('data-key').slice('letter-'.length))
+              .join('') !== old,
+          before,
+        );
+        const after = await letterOrder();
+        assert.equal([...after].sort().join(''), 'abcdefghijklmnopqrstuvwxyz', 'every letter once after');
+        assert.deepEqual(
+          (await keyIds()).filter((id) => !id.startsWith('letter-')),
+          othersBefore,
+          'the other keys do not move',
+        );
+        // After "t" an English model puts "h" among its likeliest letters: in one of the three
+        // cheapest cells, row 1 columns 1 and 2 and row 2 column 1 (letters 1, 2 and 10 in grid order).
+        assert.ok(
+          [after[0], after[1], after[9]].includes('h'),
+          `"h" in a cell of 2 or 3 steps after "t" (${after})`,
+        );
+        assert.equal(await outputText(page), 't');
+        assert.deepEqual(await t.seriousViolations(page, 'keyboard ordered by the model'), []);
+        await t.screenshot(page, 'keyboard-model-ordered');
+        await signOut(page, 'Carer');
+      },
+    ],
+    [
       'after the trial the carer signs off, the supervisor approves, and the keyboard opens the active version',
       async (t) => {
         assert.ok(versionId, 'the first step found version 1');

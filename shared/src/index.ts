@@ -22,6 +22,7 @@ export * from './schemas/profile-versions.schema';
 export * from './schemas/profile-exports.schema';
 export * from './schemas/summaries.schema';
 export * from './schemas/trials.schema';
+export * from './keyboard/index';
 export * from './trials/index';
 export * from './workspace/workspace-root';
 export * from './schemas/vocabulary.schema';

@@ -24,7 +24,7 @@ import {
   prepareText,
   serializeModel,
 } from '@keyloom/shared';
-import type { NextSymbolModel } from '@keyloom/shared';
+import type { NextSymbolModel, ScanStepsByLayout } from '@keyloom/shared';
 import { simulateKeystrokes } from '@keyloom/shared';
 import { seededRandom } from '@keyloom/shared/src/engine/seeded-random';
 import {
@@ -368,6 +368,7 @@ async function measureProfile(
   bpcIdeal: number;
   keystrokeSavings5: number;
   nonWordShare: number;
+  scanStepsByLayout: ScanStepsByLayout;
   charList: { keystrokeSavings5: number; nonWordShare: number; seconds: number };
   baseWeight: number;
   note: string;
@@ -421,6 +422,7 @@ async function measureProfile(
     bpcIdeal: report.bpcIdeal,
     keystrokeSavings5: report.keystrokeSavings['5'],
     nonWordShare: report.nonWordSlots.share,
+    scanStepsByLayout: report.scanStepsByLayout,
     charList: {
       keystrokeSavings5: charReport.keystrokeSavings['5'],
       nonWordShare: charReport.nonWordSlots.share,

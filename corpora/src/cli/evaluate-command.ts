@@ -11,7 +11,12 @@
 // measurement, as a device would.
 import { prepareText } from '@keyloom/shared';
 import { evaluateHeldOut, offeredNonWords, type OfferedWordsResult } from '@keyloom/shared';
-import type { WordWeights } from '@keyloom/shared';
+import {
+  type KeyboardLayout,
+  keyboardLayoutLabels,
+  keyboardLayouts,
+  type WordWeights,
+} from '@keyloom/shared';
 import { UsageError } from './cli-errors';
 import { onOff, optionValue, parseArgs, readTextFile } from './args';
 import { buildFromArgs, modelFileOptionNames, modelOptionNames, type PredictorKind } from './model-setup';
@@ -28,6 +33,8 @@ export type EvaluateReport = {
   keystrokeSavings: Record<string, number>;
   kspc: Record<string, number>;
   scanStepsPerChar: { rowColumn: number; modelOrdered: number };
+  /** Row–column steps per character on each of the test keyboard's layouts (its own key rows). */
+  scanStepsByLayout: Record<KeyboardLayout, number>;
   adaptive: boolean;
   baseWeight: number;
   predictor: PredictorKind;
@@ -83,6 +90,11 @@ export async function runEvaluate(args: string[]): Promise<void> {
     keystrokeSavings: perSlot(ks.savings),
     kspc: perSlot(ks.kspc),
     scanStepsPerChar: { rowColumn: round(scan.rowColumn), modelOrdered: round(scan.modelOrdered) },
+    scanStepsByLayout: {
+      typewriter: round(scan.keyboardRowColumn.typewriter),
+      alphabetical: round(scan.keyboardRowColumn.alphabetical),
+      'model-ordered': round(scan.keyboardRowColumn['model-ordered']),
+    },
     adaptive,
     baseWeight: round(built.baseWeight),
     predictor: choice.predictor,
@@ -122,8 +134,15 @@ function humanSummary(r: EvaluateReport, base: string): string {
       (w) =>
         `${w.padStart(5)}  ${pct(r.keystrokeSavings[w]).padStart(17)}  ${r.kspc[w].toFixed(3).padStart(24)}`,
     ),
-    `Scan steps per character: ${r.scanStepsPerChar.rowColumn.toFixed(2)} row–column (default layout), ` +
+    `Scan steps per character: ${r.scanStepsPerChar.rowColumn.toFixed(2)} row–column (fixed 6×7 grid), ` +
       `${r.scanStepsPerChar.modelOrdered.toFixed(2)} binary ordered by the model`,
+    `Scan steps per character on the test keyboard (row–column, key rows only): ` +
+      keyboardLayouts
+        .map(
+          (layout) =>
+            `${r.scanStepsByLayout[layout].toFixed(2)} ${keyboardLayoutLabels[layout].toLowerCase()}`,
+        )
+        .join(', '),
     'Keystroke savings are not time savings: reading the list takes time too.',
     `(${r.ms} ms)`,
   ];

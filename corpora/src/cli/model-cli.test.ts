@@ -54,6 +54,7 @@ describe('model evaluate', () => {
         'order',
         'roundTrip',
         'scanStepsPerChar',
+        'scanStepsByLayout',
       ].sort(),
     );
     expect(out.chars).toBe([...testText].length);
@@ -75,6 +76,9 @@ describe('model evaluate', () => {
     for (let w = 1; w <= 10; w++) expect(ks[w] + kspc[w]).toBeCloseTo(1, 5);
     expect(ks['10']).toBeGreaterThan(0.3); // the test text repeats the training phrases
     expect(Object.keys(out.scanStepsPerChar as object).sort()).toEqual(['modelOrdered', 'rowColumn']);
+    const byLayout = out.scanStepsByLayout as Record<string, number>;
+    expect(Object.keys(byLayout).sort()).toEqual(['alphabetical', 'model-ordered', 'typewriter']);
+    expect(byLayout['model-ordered']).toBeLessThanOrEqual(byLayout.alphabetical);
     // Real coded stream: within a few bytes of the ideal length (WNC87 bound, docs/references.md §1).
     expect(Math.abs((out.bpcCoded as number) - (out.bpcIdeal as number)) * testText.length).toBeLessThan(40);
   });

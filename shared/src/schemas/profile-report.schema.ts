@@ -1,11 +1,13 @@
 import { z } from 'zod';
 import { profileSettingsSchema } from './profile-settings.schema';
+import { keyboardLayouts } from './trials.schema';
 
 // The report of a trained profile version: what the engine's trainAndEvaluateProfile writes
 // (shared/src/engine/profile/README.md; its ProfileReport type is inferred from this schema), what
 // the API stores in `profile_versions.metrics` and what the client reads. Same names as
 // `model evaluate --json`. Fields added after the first stored reports ("profile report 1") are
-// optional, so every stored version still parses: predictor, wordWeights and nonWordSlots.
+// optional, so every stored version still parses: predictor, wordWeights, nonWordSlots and
+// scanStepsByLayout.
 
 /** The steps of a training run (the progress stages and the keys of `timings`). */
 export const trainingStages = ['preparing', 'training', 'cross-validating', 'simulating', 'saving'] as const;
@@ -67,7 +69,24 @@ export const nonWordSlotsReportSchema = z.object({
   examples: z.array(z.string()),
 });
 
+/**
+ * The first scan figures: row–column steps on a fixed 6×7 frequency grid the keyboard does not offer,
+ * and a binary code length ordered by the model. Still written (the rates and the export header use
+ * rowColumn), no longer shown.
+ */
 const scanStepsSchema = z.object({ rowColumn: z.number(), modelOrdered: z.number() });
+
+/**
+ * Expected row–column scan steps per character on each of the test keyboard's layouts, keyed by
+ * layout (`keyboardLayouts`): its own key rows, letters case-folded, the suggestion row left out.
+ */
+export const scanStepsByLayoutSchema = z.object(
+  Object.fromEntries(keyboardLayouts.map((layout) => [layout, z.number()])) as Record<
+    (typeof keyboardLayouts)[number],
+    z.ZodNumber
+  >,
+);
+export type ScanStepsByLayout = z.infer<typeof scanStepsByLayoutSchema>;
 
 export const profileFoldReportSchema = z.object({
   /** Ids of the samples held out in this fold (by-sample folds; empty for segments). */
@@ -83,6 +102,7 @@ export const profileFoldReportSchema = z.object({
   baseWeight: z.number(),
   keystrokeSavings: perSlotSchema,
   scanStepsPerChar: scanStepsSchema,
+  scanStepsByLayout: scanStepsByLayoutSchema.optional(),
 });
 
 export const learningCurveReportSchema = z.object({
@@ -159,6 +179,8 @@ export const profileReportSchema = z.object({
   ksChars: z.number(),
   ksNote: z.string(),
   scanStepsPerChar: scanStepsSchema,
+  /** Absent in reports trained before scan steps were measured per keyboard layout. */
+  scanStepsByLayout: scanStepsByLayoutSchema.optional(),
   rates: rateReportSchema,
   learningCurve: learningCurveReportSchema,
   baseOnly: baseOnlyReportSchema.nullable(),

@@ -16,13 +16,17 @@ export const trialSelectionModeLabels: Record<TrialSelectionMode, string> = {
   scanning: 'Single-switch scanning',
 };
 
-/** Key orders of the test keyboard: the standard typewriter order and a plain alphabetical one. */
-export const keyboardLayouts = ['typewriter', 'alphabetical'] as const;
+/**
+ * Key orders of the test keyboard: the standard typewriter order, a plain alphabetical one, and the
+ * letters re-ordered by the model's next-letter probabilities after every change of the text.
+ */
+export const keyboardLayouts = ['typewriter', 'alphabetical', 'model-ordered'] as const;
 export const keyboardLayoutSchema = z.enum(keyboardLayouts);
 export type KeyboardLayout = z.infer<typeof keyboardLayoutSchema>;
 export const keyboardLayoutLabels: Record<KeyboardLayout, string> = {
   typewriter: 'Typewriter order',
   alphabetical: 'Alphabetical order',
+  'model-ordered': 'Ordered by the model',
 };
 
 /**

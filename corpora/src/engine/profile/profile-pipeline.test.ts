@@ -7,7 +7,7 @@ import { WordPredictor } from '@keyloom/shared/src/engine/words/word-predictor';
 import { trainWordModel, tuneWordWeightsOnTail } from '@keyloom/shared/src/engine/words/word-training';
 import { WordNgramModel } from '@keyloom/shared/src/engine/words/word-ngram-model';
 import { redactionToken } from '@keyloom/shared/src/schemas/samples.schema';
-import { BlendedModel, type NextSymbolModel } from '@keyloom/shared';
+import { BlendedModel, keyboardLayouts, type NextSymbolModel } from '@keyloom/shared';
 import { PpmModel } from '@keyloom/shared/src/engine/ppm-model';
 import { accessTiming } from '@keyloom/shared/src/engine/profile/profile-rates';
 import { deserializeModel } from '@keyloom/shared/src/engine/model-serialization';
@@ -143,6 +143,9 @@ describe('trainAndEvaluateProfile on an invented corpus', () => {
     const scan = scanCosts(fresh(), test, { adaptive: true });
     expect(fold.scanStepsPerChar.rowColumn).toBeCloseTo(scan.rowColumn, 6);
     expect(fold.scanStepsPerChar.modelOrdered).toBeCloseTo(scan.modelOrdered, 6);
+    // The keyboard's own layouts, from the same walk over the held-out text.
+    for (const layout of keyboardLayouts)
+      expect(fold.scanStepsByLayout?.[layout]).toBeCloseTo(scan.keyboardRowColumn[layout], 6);
     // The learning curve's 100% point is this fold trained on all its training text.
     const full = report.learningCurve.points[3];
     expect(full.fraction).toBe(1);
@@ -171,6 +174,15 @@ describe('trainAndEvaluateProfile on an invented corpus', () => {
     // KS = 1 − KSPC when the baseline is one key per character (docs/references.md §2, derived).
     for (let w = 1; w <= 10; w++)
       expect(report.keystrokeSavings[String(w)] + report.kspc[String(w)]).toBeCloseTo(1, 6);
+    // Scan steps per keyboard layout: folds weighted by their held-out characters.
+    for (const layout of keyboardLayouts) {
+      const steps =
+        report.perFold.reduce((s, f) => s + (f.scanStepsByLayout?.[layout] ?? 0) * f.testChars, 0) /
+        report.heldOutChars;
+      expect(report.scanStepsByLayout[layout]).toBeCloseTo(steps, 5);
+    }
+    // Letters in the cells the model picks never cost more than in fixed alphabetical order.
+    expect(report.scanStepsByLayout['model-ordered']).toBeLessThan(report.scanStepsByLayout.alphabetical);
   });
 
   it('gives keystroke savings that never fall as slots grow and stay below the oracle bound', () => {
@@ -263,6 +275,16 @@ describe('trainAndEvaluateProfile on an invented corpus', () => {
     ]);
     expect(profileReportSchema.safeParse(older).success).toBe(true);
     expect(profileReportSchema.safeParse({ ...older, chars: undefined }).success).toBe(false);
+  });
+
+  it('still reads a report stored before scan steps per keyboard layout', () => {
+    const { scanStepsByLayout, ...older } = JSON.parse(JSON.stringify(report)) as ProfileReport;
+    expect(Object.keys(scanStepsByLayout ?? {}).sort()).toEqual([...keyboardLayouts].sort());
+    const perFold = older.perFold.map(({ scanStepsByLayout: _, ...fold }) => fold);
+    expect(profileReportSchema.safeParse({ ...older, perFold }).success).toBe(true);
+    // A half-written figure is refused.
+    const partial = { ...older, scanStepsByLayout: { typewriter: 1, alphabetical: 2 } };
+    expect(profileReportSchema.safeParse(partial).success).toBe(false);
   });
 
   it('is deterministic: the same input gives the same report apart from timings', async () => {

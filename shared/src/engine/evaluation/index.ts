@@ -1,7 +1,7 @@
 // Public API of evaluation (see README.md in this folder).
 export { simulateKeystrokes, wordEnd } from './keystroke-savings';
 export type { KeystrokeResult, KeystrokeOptions, WordVisit } from './keystroke-savings';
-export { scanCosts, FALLBACK_QUESTIONS } from './scan-cost';
+export { scanCosts, keyboardScanStepsOf, FALLBACK_QUESTIONS } from './scan-cost';
 export type { ScanCostResult, ScanCostOptions } from './scan-cost';
 export { defaultScanLayout, layoutCost, uniformGrid } from './scan-layout';
 export type { KeyLayout, LayoutCost } from './scan-layout';

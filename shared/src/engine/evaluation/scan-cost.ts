@@ -11,6 +11,14 @@
 //   one extra leaf; reaching a character through it costs that leaf's length
 //   plus FALLBACK_QUESTIONS further questions (a binary search over a second
 //   page of ~2^FALLBACK_QUESTIONS characters).
+// - Row–column scanning of the test keyboard's own layouts (shared/src/keyboard): the same
+//   expected Σ p_i (r_i + c_i) on the keyboard's key rows, for the typewriter and alphabetical
+//   orders and for the order by the model, re-ordered at every position with the function the
+//   keyboard uses (modelOrderedLetterSteps). Letters are case-folded; symbols-layer characters,
+//   characters with no key and the unnamed mass as key-scan-steps.ts says.
+import { keyboardScanSteps } from '../../keyboard/key-scan-steps';
+import { letterIndex, modelOrderedLetterSteps } from '../../keyboard/model-order';
+import type { KeyboardLayout } from '../../schemas/trials.schema';
 import { Distribution, type NextSymbolModel } from '../model-types';
 import { entropyBits, huffmanLengths } from './huffman';
 import { defaultScanLayout, layoutCost, type KeyLayout } from './scan-layout';
@@ -32,7 +40,68 @@ export type ScanCostResult = {
   meanEntropy: number;
   /** Mean −log2 P(actual character) in bits (ideal code length per character). */
   bitsPerChar: number;
+  /**
+   * Mean over positions of Σ p_i (r_i + c_i) on each of the test keyboard's layouts (key rows only,
+   * letters case-folded; `model-ordered` re-ordered at every position).
+   */
+  keyboardRowColumn: Record<KeyboardLayout, number>;
 };
+
+const typewriterSteps = keyboardScanSteps('typewriter');
+const alphabeticalSteps = keyboardScanSteps('alphabetical');
+const modelOrderedSteps = keyboardScanSteps('model-ordered');
+
+/** Σ weight_i × steps_i over the 26 letters. */
+function lettersCost(weights: Float64Array, steps: Float64Array): number {
+  let sum = 0;
+  for (let i = 0; i < 26; i++) sum += weights[i] * steps[i];
+  return sum;
+}
+
+/**
+ * Expected row–column steps on each keyboard layout for one distribution. `weights` and
+ * `orderedSteps` are scratch buffers of 26.
+ */
+function keyboardExpected(
+  dist: Distribution,
+  weights: Float64Array,
+  orderedSteps: Float64Array,
+): Record<KeyboardLayout, number> {
+  weights.fill(0);
+  // The keys that are not letters never move: one sum per layout all the same.
+  let typewriter = dist.rest * typewriterSteps.offKeyboardSteps;
+  let alphabetical = dist.rest * alphabeticalSteps.offKeyboardSteps;
+  let ordered = dist.rest * modelOrderedSteps.offKeyboardSteps;
+  const typewriterAscii = typewriterSteps.asciiSteps;
+  const alphabeticalAscii = alphabeticalSteps.asciiSteps;
+  const orderedAscii = modelOrderedSteps.asciiSteps;
+  for (let k = 0; k < dist.size; k++) {
+    const symbol = dist.symbols[k];
+    const p = dist.probs[k];
+    const letter = letterIndex(symbol);
+    if (letter >= 0) weights[letter] += p;
+    else if (symbol < 128) {
+      typewriter += p * typewriterAscii[symbol];
+      alphabetical += p * alphabeticalAscii[symbol];
+      ordered += p * orderedAscii[symbol];
+    } else {
+      typewriter += p * typewriterSteps.otherSteps(symbol);
+      alphabetical += p * alphabeticalSteps.otherSteps(symbol);
+      ordered += p * modelOrderedSteps.otherSteps(symbol);
+    }
+  }
+  modelOrderedLetterSteps(weights, orderedSteps);
+  return {
+    typewriter: typewriter + lettersCost(weights, typewriterSteps.letterSteps),
+    alphabetical: alphabetical + lettersCost(weights, alphabeticalSteps.letterSteps),
+    'model-ordered': ordered + lettersCost(weights, orderedSteps),
+  };
+}
+
+/** The keyboard layouts' expected steps for a single distribution (tests and the bench). */
+export function keyboardScanStepsOf(dist: Distribution): Record<KeyboardLayout, number> {
+  return keyboardExpected(dist, new Float64Array(26), new Float64Array(26));
+}
 
 export type ScanCostOptions = { layout?: KeyLayout; adaptive?: boolean };
 
@@ -57,6 +126,9 @@ export function scanCosts(
   let modelOrderedExpected = 0;
   let entropy = 0;
   let bits = 0;
+  const keyboard: Record<KeyboardLayout, number> = { typewriter: 0, alphabetical: 0, 'model-ordered': 0 };
+  const weights = new Float64Array(26);
+  const orderedSteps = new Float64Array(26);
   const n = text.length;
   for (let i = 0; i < n; i++) {
     dist.clear();
@@ -91,6 +163,10 @@ export function scanCosts(
     modelOrderedExpected += expected;
     entropy += entropyBits(probs, leaves);
     bits -= Math.log2(pActual);
+    const onKeyboard = keyboardExpected(dist, weights, orderedSteps);
+    keyboard.typewriter += onKeyboard.typewriter;
+    keyboard.alphabetical += onKeyboard.alphabetical;
+    keyboard['model-ordered'] += onKeyboard['model-ordered'];
     if (adaptive) model.learn(text, i);
   }
   const mean = (x: number): number => (n === 0 ? 0 : x / n);
@@ -102,5 +178,10 @@ export function scanCosts(
     modelOrderedExpected: mean(modelOrderedExpected),
     meanEntropy: mean(entropy),
     bitsPerChar: mean(bits),
+    keyboardRowColumn: {
+      typewriter: mean(keyboard.typewriter),
+      alphabetical: mean(keyboard.alphabetical),
+      'model-ordered': mean(keyboard['model-ordered']),
+    },
   };
 }

@@ -17,8 +17,10 @@ import type {
   perSlotSchema,
   ProfileReport,
   profileFoldReportSchema,
+  ScanStepsByLayout,
   spreadSchema,
 } from '../../schemas/profile-report.schema';
+import type { KeyboardLayout } from '../../schemas/trials.schema';
 import type { NextSymbolModel } from '../model-types';
 import type { PpmSettings } from '../ppm-settings';
 import { serializeModel } from '../model-serialization';
@@ -54,7 +56,7 @@ import { DEFAULT_LIST_READ_MS, profileRates, type RateReport } from './profile-r
 import { checkProfileSettings, type ProfileSettings } from './profile-settings';
 
 /** Version of the engine that made a report; stored with each profile version. */
-export const ENGINE_VERSION = 'keyloom-engine/2 (model layout 1, word model layout 2, profile report 2)';
+export const ENGINE_VERSION = 'keyloom-engine/2 (model layout 1, word model layout 2, profile report 3)';
 /** Fewest characters (after preparation, all samples together) a profile is trained on. */
 export const MIN_PROFILE_CHARS = 500;
 /** Largest suggestion list measured. */
@@ -111,7 +113,7 @@ export type BaseOnlyReport = z.infer<typeof baseOnlyReportSchema>;
 export type { ProfileReport };
 /** A report as this engine writes it: the fields that reports stored before the word list lack are always there. */
 export type CurrentProfileReport = ProfileReport &
-  Required<Pick<ProfileReport, 'predictor' | 'nonWordSlots'>>;
+  Required<Pick<ProfileReport, 'predictor' | 'nonWordSlots' | 'scanStepsByLayout'>>;
 
 /** Words offered per list position checked for the non-word share, per fold (three lists per word). */
 const NON_WORD_CHECK_WORDS = 150;
@@ -494,6 +496,17 @@ export async function trainAndEvaluateProfile(
     rowColumn: round(weightedScan('rowColumn')),
     modelOrdered: round(weightedScan('modelOrdered')),
   };
+  /** Each keyboard layout's steps, rounded; weighted by held-out characters over the given folds. */
+  const byLayout = (over: readonly FoldWork[]): ScanStepsByLayout => {
+    const chars = over.reduce((n, f) => n + f.test.length, 0);
+    const of = (layout: KeyboardLayout): number =>
+      round(over.reduce((s, f) => s + need(f.scan).keyboardRowColumn[layout] * f.test.length, 0) / chars);
+    return {
+      typewriter: of('typewriter'),
+      alphabetical: of('alphabetical'),
+      'model-ordered': of('model-ordered'),
+    };
+  };
 
   let baseOnly: BaseOnlyReport | null = null;
   if (base) {
@@ -550,6 +563,7 @@ export async function trainAndEvaluateProfile(
           `${heldOutChars} held-out characters.`
         : `Keystrokes were simulated on all ${ksChars} held-out characters.`,
     scanStepsPerChar,
+    scanStepsByLayout: byLayout(folds),
     rates: roundedRates(
       profileRates(settings.access, slots, round(kspc[slots]), scanStepsPerChar.rowColumn, listReadMs),
     ),
@@ -577,6 +591,7 @@ export async function trainAndEvaluateProfile(
         rowColumn: round(need(f.scan).rowColumn),
         modelOrdered: round(need(f.scan).modelOrdered),
       },
+      scanStepsByLayout: byLayout([f]),
     })),
     timings,
   };

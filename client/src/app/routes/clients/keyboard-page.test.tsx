@@ -29,12 +29,19 @@ vi.mock('@/features/keyboard/engine/use-keyboard-engine', async () => {
         requests.push({ text, seq });
         const typed = shared.partialWord(text);
         const words = WORDS.filter((word) => word.startsWith(typed) && word !== typed).slice(0, slots);
-        const letters = [
-          { char: 'e', p: 0.5 },
-          { char: 'a', p: 0.2 },
-          { char: 'o', p: 0.1 },
-          { char: 'x', p: 0.01 },
-        ];
+        // After an "e" the likeliest letters change (r, in both cases, then s).
+        const letters = text.endsWith('e')
+          ? [
+              { char: 'R', p: 0.3 },
+              { char: 'r', p: 0.3 },
+              { char: 's', p: 0.2 },
+            ]
+          : [
+              { char: 'e', p: 0.5 },
+              { char: 'a', p: 0.2 },
+              { char: 'o', p: 0.1 },
+              { char: 'x', p: 0.01 },
+            ];
         setSuggestions({ seq, text, words, letters, engineMs: 0.2 });
       }, []);
       return {
@@ -487,6 +494,29 @@ describe('Test keyboard page', () => {
       .getAllByRole('button')
       .slice(0, 3);
     expect(firstRow.map((button) => button.getAttribute('aria-label'))).toEqual(['a', 'b', 'c']);
+  });
+
+  it('orders the letters by the model when asked, and re-orders them after every letter', async () => {
+    const { user } = await openKeyboard('carer');
+    const order = screen.getByLabelText('Key order');
+    expect(order).toHaveAccessibleDescription(/moves the letters after every letter typed/);
+    await user.selectOptions(order, 'model-ordered');
+    const firstKeys = () =>
+      within(screen.getByRole('group', { name: 'Keys' }))
+        .getAllByRole('button')
+        .slice(0, 4)
+        .map((button) => button.getAttribute('aria-label'));
+    // e 0.5, a 0.2, o 0.1, x 0.01, then the rest alphabetically: e (1,1), a (1,2), o (2,1), x (1,3),
+    // b (2,2), c (3,1), d (1,4) — so the first row starts e, a, x, d.
+    expect(firstKeys()).toEqual(['e', 'a', 'x', 'd']);
+    await user.click(key('e'));
+    // After "e": r 0.6 (R and r together), s 0.2, then a, b, c … : r (1,1), s (1,2), a (2,1), b (1,3),
+    // c (2,2), d (3,1), e (1,4).
+    await waitFor(() => expect(firstKeys()).toEqual(['r', 's', 'b', 'e']));
+    await user.click(key('r'));
+    expect(output().textContent).toBe('er');
+    // The other keys stay where they are.
+    expect(key('space')).toBeInTheDocument();
   });
 
   it('keeps a finished trial on the device while the network is down, and says so', async () => {

@@ -171,9 +171,24 @@ describe('Profile version page', () => {
       'At 5 slots this version saves 36.7% of keystrokes; the general English model alone saves 27.1%.',
     );
 
+    // One row per key order of the test keyboard, named as its setting names them; the fixed 6×7
+    // grid and the binary code (6.80 and 3.90 in the stored report) are no longer shown.
     const scan = within(screen.getByRole('table', { name: 'Scan steps per character for a switch user' }));
-    expect(scan.getByRole('row', { name: /Row–column/ }).textContent).toContain('6.80');
-    expect(scan.getByRole('row', { name: /Ordered by the model/ }).textContent).toContain('3.90');
+    expect(
+      scan
+        .getAllByRole('row')
+        .slice(1)
+        .map((row) => [
+          cellValue(within(row).getByRole('rowheader')),
+          cellValue(within(row).getByRole('cell')),
+        ]),
+    ).toEqual([
+      ['Typewriter order', '7.42'],
+      ['Alphabetical order', '8.15'],
+      ['Ordered by the model', '5.37'],
+    ]);
+    expect(scan.queryByText(/6\.80|3\.90/)).toBeNull();
+    expect(screen.getByText(/the suggestion row is not counted/)).toBeInTheDocument();
 
     expect(screen.getByText('6.1 words per minute')).toBeInTheDocument();
     expect(screen.getByText('7.4 words per minute')).toBeInTheDocument();
@@ -200,6 +215,20 @@ describe('Profile version page', () => {
     await openVersion('clinician', profileVersion({ metrics: { bpcIdeal: '2.4', order: 5 } }));
     expect(screen.getByText('The results of this version cannot be shown.')).toBeInTheDocument();
     expect(screen.queryByRole('heading', { name: 'Results' })).not.toBeInTheDocument();
+  });
+
+  it('says so instead of scan figures for a version trained before they were measured per key order', async () => {
+    await openVersion(
+      'clinician',
+      profileVersion({ metrics: reportFixture({ scanStepsByLayout: undefined }) }),
+    );
+    await screen.findByRole('heading', { name: 'Scan steps per character' });
+    expect(
+      screen.getByText(
+        'Trained before scan steps were measured per keyboard layout; train a new version to see them.',
+      ),
+    ).toBeInTheDocument();
+    expect(screen.queryByRole('table', { name: 'Scan steps per character for a switch user' })).toBeNull();
   });
 
   it('offers the clinician an export link on a trained version, and no sign-off or approval', async () => {

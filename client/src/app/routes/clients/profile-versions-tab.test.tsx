@@ -202,14 +202,16 @@ describe('Profile versions tab', () => {
   });
 
   it('compares two ticked versions in a table with the base model alone and one chart series per version', async () => {
+    // Version 1 was trained before scan steps were measured per keyboard layout.
     const second = profileVersion({
       id: VERSION_2_ID,
       number: 2,
       metrics: reportFixture({ order: 6, bpcIdeal: 2.301 }),
     });
+    const first = profileVersion({ metrics: reportFixture({ scanStepsByLayout: undefined }) });
     const { user, router } = await openTab({
-      [`GET ${base}/profile-versions`]: { body: [second, profileVersion()] },
-      [`GET /api/profile-versions/${VERSION_1_ID}`]: { body: profileVersion() },
+      [`GET ${base}/profile-versions`]: { body: [second, first] },
+      [`GET /api/profile-versions/${VERSION_1_ID}`]: { body: first },
       [`GET /api/profile-versions/${VERSION_2_ID}`]: { body: second },
     });
     const compare = await screen.findByRole('button', { name: 'Compare selected' });
@@ -230,6 +232,22 @@ describe('Profile versions tab', () => {
     expect(within(bpc).getAllByRole('cell').map(cellValue)).toEqual(['2.301', '2.412', '2.980']);
     const order = table.getByRole('row', { name: /Context order/ });
     expect(within(order).getAllByRole('cell').map(cellValue)).toEqual(['6', '5', '—']);
+    // Scan steps: one row per key order of the test keyboard, named as its setting names them.
+    const scanRows = table
+      .getAllByRole('rowheader')
+      .filter((header) => /^Scan steps per character/.test(cellValue(header) ?? ''))
+      .map((header) => header.closest('tr') as HTMLElement);
+    expect(
+      scanRows.map((row) => [
+        cellValue(within(row).getByRole('rowheader')),
+        ...within(row).getAllByRole('cell').map(cellValue),
+      ]),
+    ).toEqual([
+      ['Scan steps per character, Typewriter order', '7.42', 'Not measured', '—'],
+      ['Scan steps per character, Alphabetical order', '8.15', 'Not measured', '—'],
+      ['Scan steps per character, Ordered by the model', '5.37', 'Not measured', '—'],
+    ]);
+    expect(screen.getByText(/Not measured: Trained before scan steps were measured/)).toBeInTheDocument();
 
     // The chart's text alternative: one column per series, a row per list size.
     const figures = within(screen.getByRole('table', { name: /by version: the figures/ }));

@@ -30,6 +30,9 @@ const scanPatternKeys: Record<TrialScanPattern, string> = {
   'step-two-switch': 'Space moves one step; Enter chooses.',
 };
 
+/** Beside the key order: a caution for people who type by position. */
+const MODEL_ORDER_CAUTION = `“${keyboardLayoutLabels['model-ordered']}” moves the letters after every letter typed, so it does not suit typing by position.`;
+
 type SettingsPanelProps = {
   settings: KeyboardViewSettings;
   onChange: (next: KeyboardViewSettings) => void;
@@ -175,11 +178,12 @@ export const SettingsPanel = memo(function SettingsPanel({
         {trialRunning && ' The selection mode and its timing stay fixed until the trial ends.'}
       </p>
       <div className="grid gap-5 md:grid-cols-2">
-        <Field label="Key order">
-          {(id) => (
+        <Field label="Key order" hint={MODEL_ORDER_CAUTION}>
+          {(id, hintId) => (
             <select
               id={id}
               className={fieldClasses(false)}
+              aria-describedby={hintId}
               value={settings.layout}
               onChange={(event) => set({ layout: event.target.value as KeyboardLayout })}
             >

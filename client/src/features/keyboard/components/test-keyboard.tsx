@@ -19,7 +19,7 @@ import { usePendingTrials } from '../hooks/use-pending-trials';
 import { useScanner } from '../hooks/use-scanner';
 import { type ScanPattern, scanGroups } from '../logic/scanner';
 import { useTrialSession } from '../hooks/use-trial-session';
-import { atSentenceStart, hasCase, type KeyDef, keyRows, nextShift } from '../logic/layouts';
+import { atSentenceStart, hasCase, type KeyDef, keyRows, letterWeights, nextShift } from '../logic/layouts';
 import { physicalKeyAction } from '../logic/physical-keys';
 import { KeyGrid } from './key-grid';
 import {
@@ -134,9 +134,17 @@ export const TestKeyboard = ({
   const [layer, setLayer] = useState<TrialKeyLayer>('letters');
   const capital = shift !== 'off' || (settings.autoCapital && atSentenceStart(session.text));
   const canUndoPick = session.canUndoPick;
+  // Ordered by the model: the letters re-order at every answer of the engine (a new answer follows
+  // every change of the text); the other layouts ignore it.
+  const modelOrder = settings.layout === 'model-ordered' ? engine.suggestions : null;
   const rows = useMemo(
-    () => keyRows(settings.layout, { shift, layer, capital, canUndoPick }),
-    [settings.layout, shift, layer, capital, canUndoPick],
+    () =>
+      keyRows(
+        settings.layout,
+        { shift, layer, capital, canUndoPick },
+        modelOrder && letterWeights(modelOrder.letters),
+      ),
+    [settings.layout, shift, layer, capital, canUndoPick, modelOrder],
   );
   const target = phrases.find((phrase) => phrase.id === phraseId)?.text ?? null;
 

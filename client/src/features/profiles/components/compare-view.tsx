@@ -1,4 +1,4 @@
-import type { ProfileVersion } from '@keyloom/shared';
+import { keyboardLayoutLabels, keyboardLayouts, type ProfileVersion } from '@keyloom/shared';
 import {
   ColumnHeader,
   RowHeader,
@@ -15,6 +15,8 @@ import {
   percent,
   type ProfileReportView,
   readReport,
+  SCAN_STEPS_NOT_MEASURED,
+  SCAN_STEPS_NOTE,
   type SlotSeries,
 } from '../lib/profile-report';
 import { VocabularyDifferences } from '@/features/vocabulary/components/vocabulary-differences';
@@ -44,10 +46,12 @@ const rows = (slots: number): MetricRow[] => [
     label: `Keystrokes per character at ${slots} slots`,
     value: (r, base) => fixed(atSlots(base ? (r.baseOnly?.kspc ?? {}) : r.kspc, slots), 3),
   },
-  {
-    label: 'Scan steps per character, model-ordered',
-    value: (r, base) => (base ? '—' : fixed(r.scanStepsPerChar.modelOrdered, 2)),
-  },
+  // One row per keyboard layout, named as the keyboard's layout setting names it.
+  ...keyboardLayouts.map((layout): MetricRow => ({
+    label: `Scan steps per character, ${keyboardLayoutLabels[layout]}`,
+    value: (r, base) =>
+      base ? '—' : r.scanStepsByLayout ? fixed(r.scanStepsByLayout[layout], 2) : 'Not measured',
+  })),
   {
     label: 'Words per minute without suggestions',
     value: (r, base) => (base ? '—' : fixed(r.rates.wpmWithout, 1)),
@@ -99,6 +103,11 @@ export const CompareView = ({ versions }: { versions: readonly ProfileVersion[] 
           ))}
         </TableBody>
       </Table>
+      <p className="max-w-3xl text-ink-soft">
+        {SCAN_STEPS_NOTE}
+        {columns.some((column) => column.report && !column.base && !column.report.scanStepsByLayout) &&
+          ` Not measured: ${SCAN_STEPS_NOT_MEASURED}`}
+      </p>
       {first && (
         <p className="max-w-3xl text-ink-soft">
           The general English model alone was measured on {first.name.toLowerCase()}’s held-out text; each

@@ -17,6 +17,9 @@ import {
   listDescription,
   percent,
   type ProfileReportView,
+  SCAN_STEPS_NOT_MEASURED,
+  SCAN_STEPS_NOTE,
+  scanStepsByLayout,
   slotSeries,
 } from '../lib/profile-report';
 import { SlotsChart } from './slots-chart';
@@ -37,6 +40,7 @@ export const VersionResults = ({ report }: { report: ProfileReportView }) => {
   const slots = report.rates.assumptions.slots;
   const series = slotSeries(report);
   const curve = report.learningCurve?.points ?? [];
+  const scanRows = scanStepsByLayout(report);
   return (
     <div className="flex flex-col gap-10">
       <p className="max-w-3xl text-lg">
@@ -116,24 +120,27 @@ export const VersionResults = ({ report }: { report: ProfileReportView }) => {
       </Section>
 
       <Section id="scan-heading" title="Scan steps per character">
-        <Table caption="Scan steps per character for a switch user">
-          <TableHead>
-            <ColumnHeader>Layout</ColumnHeader>
-            <ColumnHeader>Steps per character</ColumnHeader>
-          </TableHead>
-          <TableBody>
-            <TableRow>
-              <RowHeader label="Layout">Row–column, fixed letter order</RowHeader>
-              <TableCell label="Steps per character">{fixed(report.scanStepsPerChar.rowColumn, 2)}</TableCell>
-            </TableRow>
-            <TableRow>
-              <RowHeader label="Layout">Ordered by the model, likeliest first</RowHeader>
-              <TableCell label="Steps per character">
-                {fixed(report.scanStepsPerChar.modelOrdered, 2)}
-              </TableCell>
-            </TableRow>
-          </TableBody>
-        </Table>
+        {scanRows ? (
+          <>
+            <p className="max-w-3xl">{SCAN_STEPS_NOTE}</p>
+            <Table caption="Scan steps per character for a switch user">
+              <TableHead>
+                <ColumnHeader>Key order</ColumnHeader>
+                <ColumnHeader>Steps per character</ColumnHeader>
+              </TableHead>
+              <TableBody>
+                {scanRows.map((row) => (
+                  <TableRow key={row.layout}>
+                    <RowHeader label="Key order">{row.label}</RowHeader>
+                    <TableCell label="Steps per character">{fixed(row.steps, 2)}</TableCell>
+                  </TableRow>
+                ))}
+              </TableBody>
+            </Table>
+          </>
+        ) : (
+          <p className="max-w-3xl">{SCAN_STEPS_NOT_MEASURED}</p>
+        )}
       </Section>
 
       <Section id="wpm-heading" title="Estimated words per minute">

@@ -1,4 +1,10 @@
-import { profileReportSchema, type ProfileReport } from '@keyloom/shared';
+import {
+  type KeyboardLayout,
+  keyboardLayoutLabels,
+  keyboardLayouts,
+  profileReportSchema,
+  type ProfileReport,
+} from '@keyloom/shared';
 
 // The engine's report as these pages read it: the shared schema, read leniently, so a stored
 // report that does not parse shows "no results" rather than breaking the page.
@@ -103,4 +109,26 @@ export const listDescription = (report: ProfileReportView): string[] => {
     );
   }
   return lines;
+};
+
+/** Shown instead of the scan figures for a version trained before they were measured per layout. */
+export const SCAN_STEPS_NOT_MEASURED =
+  'Trained before scan steps were measured per keyboard layout; train a new version to see them.';
+
+/** What the scan figures count, in one line. */
+export const SCAN_STEPS_NOTE =
+  'Row–column scanning on the test keyboard’s key rows; the suggestion row is not counted.';
+
+/** One keyboard layout's scan steps per character, labelled as the keyboard's layout setting is. */
+export type LayoutScanSteps = { layout: KeyboardLayout; label: string; steps: number };
+
+/** The scan steps per character of each keyboard layout, or null for a report made before them. */
+export const scanStepsByLayout = (report: ProfileReportView): LayoutScanSteps[] | null => {
+  const measured = report.scanStepsByLayout;
+  if (!measured) return null;
+  return keyboardLayouts.map((layout) => ({
+    layout,
+    label: keyboardLayoutLabels[layout],
+    steps: measured[layout],
+  }));
 };

@@ -44,6 +44,7 @@ export const reportFixture = (overrides: Record<string, unknown> = {}): Record<s
   ksChars: 24_180,
   ksNote: 'Typed every held-out character.',
   scanStepsPerChar: { rowColumn: 6.8, modelOrdered: 3.9 },
+  scanStepsByLayout: { typewriter: 7.42, alphabetical: 8.15, 'model-ordered': 5.37 },
   rates: {
     wpmWithout: 6.1,
     wpmWith: 7.4,
