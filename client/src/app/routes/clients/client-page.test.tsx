@@ -109,7 +109,7 @@ describe('Client page', () => {
     expect(form.queryByLabelText('Representative’s name')).not.toBeInTheDocument();
 
     await user.click(form.getByLabelText('A representative on the client’s behalf'));
-    await user.clear(form.getByLabelText('Date consent was given'));
+    await user.click(form.getByLabelText(/Training a personal model/));
     await user.type(form.getByLabelText('Date consent was given'), '2026-10-01');
     await user.click(form.getByRole('button', { name: 'Record consent' }));
     // Messages from shared/src/schemas/consents.schema.ts.
@@ -136,13 +136,50 @@ describe('Client page', () => {
     expect(screen.getByRole('status')).toHaveTextContent('Consent given on 2026-10-01 is recorded.');
   });
 
-  it('refuses a consent that covers nothing', async () => {
+  it('opens the consent dialog empty and refuses an empty submit, focus on the list of what is missing', async () => {
     const { user, api } = await openClient('clinician', 'consent');
     await user.click(await screen.findByRole('button', { name: 'Record consent' }));
     const form = within(await screen.findByRole('dialog'));
-    await user.click(form.getByLabelText(/Training a personal model/));
+    // Nothing chosen for the clinician: no giver, no scope, no date.
+    expect(form.getByLabelText('The client, R. Ashby')).not.toBeChecked();
+    expect(form.getByLabelText('A representative on the client’s behalf')).not.toBeChecked();
+    expect(form.getByLabelText(/Training a personal model/)).not.toBeChecked();
+    expect(form.getByLabelText(/Sending progress summaries/)).not.toBeChecked();
+    expect(form.getByLabelText('Date consent was given')).toHaveValue('');
     await user.click(form.getByRole('button', { name: 'Record consent' }));
-    expect(await form.findByText('Choose at least one thing the consent covers.')).toBeInTheDocument();
+    const summary = await form.findByRole('group', { name: '3 fields need attention' });
+    await waitFor(() => expect(summary).toHaveFocus());
+    // One link per refused field, in the order of the form, each naming its field and the problem.
+    expect(
+      within(summary)
+        .getAllByRole('link')
+        .map((link) => link.textContent),
+    ).toEqual([
+      'Who gave consent: Say who gave consent.',
+      'What the consent covers: Choose at least one thing the consent covers.',
+      'Date consent was given: Enter a date as YYYY-MM-DD.',
+    ]);
+    expect(form.getByText('Choose at least one thing the consent covers.')).toBeInTheDocument();
+    await user.click(within(summary).getByRole('link', { name: /^Date consent was given/ }));
+    expect(form.getByLabelText('Date consent was given')).toHaveFocus();
+    expect(api.requestsTo(`POST ${base}/consents`)).toHaveLength(0);
+  });
+
+  it('refuses a consent given in the future before sending it', async () => {
+    const { user, api } = await openClient('clinician', 'consent');
+    await user.click(await screen.findByRole('button', { name: 'Record consent' }));
+    const form = within(await screen.findByRole('dialog'));
+    await user.click(form.getByLabelText('The client, R. Ashby'));
+    await user.click(form.getByLabelText(/Training a personal model/));
+    const next = new Date();
+    next.setDate(next.getDate() + 1);
+    const tomorrow = `${next.getFullYear()}-${String(next.getMonth() + 1).padStart(2, '0')}-${String(next.getDate()).padStart(2, '0')}`;
+    await user.type(form.getByLabelText('Date consent was given'), tomorrow);
+    await user.click(form.getByRole('button', { name: 'Record consent' }));
+    const summary = await form.findByRole('group', { name: 'One field needs attention' });
+    expect(summary).toHaveTextContent(
+      'Date consent was given: The date consent was given cannot be in the future.',
+    );
     expect(api.requestsTo(`POST ${base}/consents`)).toHaveLength(0);
   });
 
