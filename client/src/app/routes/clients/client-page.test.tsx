@@ -333,7 +333,7 @@ describe('Client page', () => {
       samplesDeleted: 0,
       derived: { profileVersions: 0 },
       cancelled: {},
-      keptScopes: ['training'],
+      keptScopes: ['training' as const],
     };
     const voided = consentRecord({
       ...wrong,

@@ -32,13 +32,13 @@ export const ConsentPanel = ({ clientId, pseudonym, canEdit, announce }: Consent
   const [editingContact, setEditingContact] = useState<Contact | 'new' | null>(null);
   const [deletingContact, setDeletingContact] = useState<Contact | null>(null);
   const [renewingContact, setRenewingContact] = useState<Contact | null>(null);
-  // After a withdrawal or a void the button that opened the dialog is gone: focus goes to the records'
-  // heading, once the dialog has closed, so keyboard users carry on from the list that shows the report.
+  // After recording, withdrawing or voiding, focus goes to the records' heading once the dialog has
+  // closed (after a withdrawal or a void the button that opened the dialog is gone), so keyboard users
+  // carry on from the list that shows the change.
   // The same after deleting a contact or lifting a stop: focus goes to the contacts' heading.
   const recordsHeading = useRef<HTMLHeadingElement>(null);
   const contactsHeading = useRef<HTMLHeadingElement>(null);
   const [focusAfter, setFocusAfter] = useState<'records' | 'contacts' | null>(null);
-  const setFocusRecords = (on: boolean) => setFocusAfter(on ? 'records' : null);
   useEffect(() => {
     if (!focusAfter) return;
     const timer = window.setTimeout(() => {
@@ -136,6 +136,7 @@ export const ConsentPanel = ({ clientId, pseudonym, canEdit, announce }: Consent
             onClose={() => setRecording(false)}
             onRecorded={(consent) => {
               setRecording(false);
+              setFocusAfter('records');
               announce('success', `Consent given on ${consent.givenOn} is recorded.`);
             }}
           />
@@ -147,7 +148,7 @@ export const ConsentPanel = ({ clientId, pseudonym, canEdit, announce }: Consent
             onClose={() => setEnding(null)}
             onWithdrawn={(consent) => {
               setEnding(null);
-              setFocusRecords(true);
+              setFocusAfter('records');
               const report = consent.voidReport ?? consent.withdrawal;
               const what = consent.status === 'voided' ? 'Consent record voided.' : 'Consent withdrawn.';
               announce('success', `${what} ${report ? reportSentence(report) : ''}`.trim());
