@@ -3,6 +3,7 @@ import { createHash, randomBytes, randomUUID } from 'node:crypto';
 import { AuditEvent } from '../src/audit/audit-event.entity';
 import { todayIso } from '../src/consents/consent-status';
 import { FamilyContact } from '../src/contacts/family-contact.entity';
+import { ContactAddresses1764980000002 } from '../src/migrations/1764980000002-contact-addresses';
 import { Summary } from '../src/summaries/summary.entity';
 import { SummaryRecipient } from '../src/summaries/summary-recipient.entity';
 import { type Cast, castOrder, newCast, newClient, send } from './caseload-helpers';
@@ -396,6 +397,61 @@ describe('corrections: voiding consent, family contact addresses (HTTP)', () => 
         [client.id],
       );
       expect(stops[0].n).toBe(0);
+    });
+  });
+
+  describe('migration ContactAddresses1764980000002 over contacts that already share addresses', () => {
+    it('does not fail: keeps every row, marks the later duplicates, copies stops to the address', async () => {
+      const migration = new ContactAddresses1764980000002();
+      const runner = t.dataSource.createQueryRunner();
+      const target = await newClient(t.http, cast.owner, undefined, 'M. Migrated');
+      try {
+        await migration.down(runner);
+        // As the old code allowed: three contacts on one address (any case), one of them stopped.
+        for (const [index, [name, email, stopped]] of [
+          ['Older', 'same@family.example', false],
+          ['Newer', 'SAME@family.example', true],
+          ['Newest', 'Same@Family.example', false],
+          ['Apart', 'apart@family.example', false],
+        ].entries()) {
+          await runner.query(
+            `INSERT INTO family_contacts (client_id, name, relationship, email, consent_to_summaries, unsubscribed_at, created_at)
+             VALUES ($1, $2, 'cousin', $3, true, $4, now() + ($5 || ' seconds')::interval)`,
+            [target.id, name, email, stopped ? new Date('2026-10-01T08:00:00Z') : null, String(index)],
+          );
+        }
+        await migration.up(runner);
+      } finally {
+        await runner.release();
+      }
+      const rows = await t.dataSource.query<
+        { name: string; legacy_duplicate_email: boolean; unsubscribed_at: Date | null }[]
+      >(
+        `SELECT name, legacy_duplicate_email, unsubscribed_at FROM family_contacts WHERE client_id = $1 ORDER BY created_at`,
+        [target.id],
+      );
+      const byName = Object.fromEntries(rows.map((row) => [row.name, row]));
+      expect(rows).toHaveLength(4);
+      expect(byName.Older.legacy_duplicate_email).toBe(false);
+      expect(byName.Apart.legacy_duplicate_email).toBe(false);
+      // The oldest contact of the address keeps it; the later ones are marked, not changed.
+      expect(byName.Newer.legacy_duplicate_email).toBe(true);
+      expect(byName.Newest.legacy_duplicate_email).toBe(true);
+      // The stop now holds for every contact on that address, and for the address itself.
+      for (const name of ['Older', 'Newer', 'Newest']) expect(byName[name].unsubscribed_at).not.toBeNull();
+      expect(byName.Apart.unsubscribed_at).toBeNull();
+      const stops = await t.dataSource.query<{ email_key: string }[]>(
+        `SELECT email_key FROM summary_stops WHERE client_id = $1`,
+        [target.id],
+      );
+      expect(stops).toEqual([{ email_key: 'same@family.example' }]);
+      // The API still refuses one more contact on that address.
+      await send(t.http, cast.owner, 'post', `/api/clients/${target.id}/contacts`, {
+        name: 'Fourth',
+        relationship: 'cousin',
+        email: 'same@family.example',
+        consentToSummaries: false,
+      }).expect(409);
     });
   });
 });
