@@ -21,7 +21,11 @@ export const duplicateAddressMessage = (pseudonym: string, email: string) =>
 
 const EDITABLE_FIELDS = ['name', 'relationship', 'email', 'consentToSummaries'] as const;
 
-/** Addresses are compared without regard to case (common practice, no source). */
+/**
+ * Addresses are compared without regard to case. RFC 5321 §2.4 (docs/references.md §6) lets a
+ * receiving host treat the local part as case-sensitive, but mailboxes that differ only by case are
+ * not seen in practice, and the shared schema already lower-cases what is typed: common practice.
+ */
 export const emailKey = (email: string) => email.toLowerCase();
 
 @Injectable()

@@ -5,7 +5,8 @@ type ErrorSummaryProps = { entries: readonly ErrorSummaryEntry[] };
 
 /**
  * The list of what stopped a submit, at the top of the form: one link per field, which moves focus
- * to that field. Focus is moved here after a refused submit, so the list is read first.
+ * to that field. Focus is moved here after a refused submit, so the list is read first. A list of
+ * links at the top of a refused form is common practice, no source; the words are Keyloom's.
  */
 export const ErrorSummary = forwardRef<HTMLDivElement, ErrorSummaryProps>(({ entries }, ref) => {
   if (entries.length === 0) return null;
