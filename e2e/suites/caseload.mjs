@@ -26,6 +26,30 @@ function pickDemoFiles() {
 }
 
 const pseudonym = `E. Tern ${Date.now() % 100000}`;
+const correctedPseudonym = `C. Orrect ${Date.now() % 100000}`;
+
+/** The accessible name (or text) and role of the focused element, to say where focus landed. */
+const focused = (page) =>
+  page.evaluate(() => {
+    const element = document.activeElement;
+    const labelledBy = element?.getAttribute('aria-labelledby');
+    const name =
+      element?.getAttribute('aria-label') ??
+      (labelledBy ? document.getElementById(labelledBy)?.textContent : null) ??
+      element?.textContent ??
+      '';
+    return { tag: element?.tagName.toLowerCase() ?? '', name: name.trim() };
+  });
+
+/** Focuses `locator` (as Tab would reach it) and presses `key` on it. */
+const press = async (locator, key = 'Enter') => {
+  await locator.focus();
+  await locator.press(key);
+};
+
+/** Also kept outside e2e/out, for a person to look at. */
+const screenshotTo = (page, name) =>
+  page.screenshot({ path: `/tmp/corrections-${name}.png`, fullPage: true });
 
 export const caseloadSuite = {
   name: 'caseload',
@@ -69,7 +93,11 @@ export const caseloadSuite = {
         await page.waitForURL(/\/consent$/);
         await page.getByRole('button', { name: 'Record consent' }).click();
         const consent = page.getByRole('dialog', { name: /Record consent/ });
+        // The dialog starts empty: who, what and when come from the signed form.
+        await consent.getByLabel(/^The client, /).check();
+        await consent.getByLabel(/Training a personal model/).check();
         await consent.getByLabel(/Sending progress summaries/).check();
+        await consent.getByLabel('Date consent was given').fill('2026-09-14');
         await t.screenshot(page, 'consent-dialog');
         assert.deepEqual(await t.seriousViolations(page, 'consent dialog'), []);
         await consent.getByRole('button', { name: 'Record consent' }).click();
@@ -231,6 +259,118 @@ export const caseloadSuite = {
           .waitFor();
         await page.getByText(/^Deleted: 2 language samples/).waitFor();
         assert.deepEqual(await t.seriousViolations(page, 'consent tab after withdrawal'), []);
+        await signOut(page, 'Clinician');
+      },
+    ],
+    [
+      'clinician records, voids and withdraws consent and deletes a contact by keyboard alone (focus, axe)',
+      async (t) => {
+        await t.context.clearCookies();
+        const page = await t.newPage();
+        await signIn(page, t.appUrl, 'clinician@willowmere.example');
+        await page.waitForURL((url) => url.pathname === '/caseload');
+        await press(page.getByRole('button', { name: 'New client' }));
+        const newClient = page.getByRole('dialog', { name: 'New client' });
+        await newClient.getByLabel('Pseudonym').fill(correctedPseudonym);
+        await press(newClient.getByRole('button', { name: 'Create client' }));
+        await page.getByRole('heading', { level: 1, name: correctedPseudonym }).waitFor();
+        await press(page.getByRole('tab', { name: 'Consent & family' }));
+        await page.waitForURL(/\/consent$/);
+
+        // An empty submit is refused: focus lands on the list of what is missing.
+        const recordButton = page.getByRole('button', { name: 'Record consent' });
+        const recordConsent = async (scopes, givenOn) => {
+          await press(recordButton);
+          const dialog = page.getByRole('dialog', { name: /Record consent/ });
+          await press(dialog.getByLabel(/^The client, /), 'Space');
+          for (const scope of scopes) await press(dialog.getByLabel(scope), 'Space');
+          await dialog.getByLabel('Date consent was given').fill(givenOn);
+          await press(dialog.getByRole('button', { name: 'Record consent' }));
+          await dialog.waitFor({ state: 'hidden' });
+          // Focus goes to the heading of the list that now shows the record.
+          await page.getByRole('heading', { name: `Consent given on ${givenOn}` }).waitFor();
+          assert.deepEqual(await focused(page), { tag: 'h3', name: 'Consent records' });
+        };
+        await press(recordButton);
+        const empty = page.getByRole('dialog', { name: /Record consent/ });
+        await press(empty.getByRole('button', { name: 'Record consent' }));
+        const summary = empty.getByRole('group', { name: '3 fields need attention' });
+        await summary.waitFor();
+        assert.deepEqual(await focused(page), { tag: 'div', name: '3 fields need attention' });
+        assert.deepEqual(await t.seriousViolations(page, 'consent dialog refused'), []);
+        await screenshotTo(page, 'consent-refused');
+        await page.keyboard.press('Escape');
+        await empty.waitFor({ state: 'hidden' });
+
+        await recordConsent([/Training a personal model/, /Sending progress summaries/], '2026-09-01');
+        await recordConsent([/Training a personal model/], '2026-09-14');
+
+        // Void the second record: the first still covers training, so nothing is deleted.
+        await press(
+          page.getByRole('button', { name: 'Void (recorded in error): consent given on 2026-09-14' }),
+        );
+        const voidDialog = page.getByRole('dialog', {
+          name: `Void this consent record for ${correctedPseudonym}?`,
+        });
+        await voidDialog.getByLabel('Why this record is wrong').waitFor();
+        const voidWords = await voidDialog.textContent();
+        assert.match(voidWords ?? '', /Nothing will be deleted/);
+        assert.match(voidWords ?? '', /the consent given on 2026-09-01 still covers training/i);
+        assert.deepEqual(await t.seriousViolations(page, 'void dialog'), []);
+        await screenshotTo(page, 'void-dialog');
+        await voidDialog.getByLabel('Why this record is wrong').fill('Entered twice from the same form.');
+        await press(voidDialog.getByRole('button', { name: 'Void the record' }));
+        await voidDialog.waitFor({ state: 'hidden' });
+        await page.getByText(/Voided on .* — Entered twice from the same form\./).waitFor();
+        assert.deepEqual(await focused(page), { tag: 'h3', name: 'Consent records' });
+        assert.deepEqual(await t.seriousViolations(page, 'consent tab after void'), []);
+        await screenshotTo(page, 'voided');
+
+        // Withdraw the first: it is the only consent in force now.
+        await press(page.getByRole('button', { name: 'Withdraw the consent given on 2026-09-01' }));
+        const withdrawDialog = page.getByRole('dialog', {
+          name: `Withdraw consent for ${correctedPseudonym}?`,
+        });
+        await withdrawDialog.getByLabel('Reason for the withdrawal').fill('The client asked in clinic.');
+        await screenshotTo(page, 'withdraw-dialog');
+        await press(withdrawDialog.getByRole('button', { name: 'Withdraw consent' }));
+        await withdrawDialog.waitFor({ state: 'hidden' });
+        await page
+          .getByRole('status')
+          .filter({ hasText: /Consent withdrawn\./ })
+          .waitFor();
+        assert.deepEqual(await focused(page), { tag: 'h3', name: 'Consent records' });
+
+        // A family contact: added, then deleted, by keyboard.
+        await press(page.getByRole('button', { name: 'Add family contact' }));
+        const contactDialog = page.getByRole('dialog', { name: 'Add family contact' });
+        await contactDialog.getByLabel('Name').fill('Rowan Orrect');
+        await contactDialog.getByLabel('Relationship to the client').fill('Brother');
+        await contactDialog.getByLabel('E-mail address').fill('rowan.orrect@family.example');
+        await press(contactDialog.getByRole('button', { name: 'Add contact' }));
+        await contactDialog.waitFor({ state: 'hidden' });
+        // Focus goes back to the button that opened the dialog.
+        await page.getByRole('button', { name: 'Delete Rowan Orrect' }).waitFor();
+        assert.deepEqual(await focused(page), { tag: 'button', name: 'Add family contact' });
+        await press(page.getByRole('button', { name: 'Delete Rowan Orrect' }));
+        const deleteDialog = page.getByRole('dialog', { name: 'Delete Rowan Orrect?' });
+        await deleteDialog.getByRole('button', { name: 'Cancel' }).waitFor();
+        // The safe choice has focus; Shift+Tab reaches the delete button.
+        assert.deepEqual(await focused(page), { tag: 'button', name: 'Cancel' });
+        assert.match(
+          (await deleteDialog.textContent()) ?? '',
+          /Summaries already sent to them keep their record/,
+        );
+        assert.deepEqual(await t.seriousViolations(page, 'delete contact dialog'), []);
+        await screenshotTo(page, 'delete-contact');
+        await page.keyboard.press('Shift+Tab');
+        assert.deepEqual(await focused(page), { tag: 'button', name: 'Delete Rowan Orrect' });
+        await page.keyboard.press('Enter');
+        await deleteDialog.waitFor({ state: 'hidden' });
+        await page.getByText('No family contacts yet.').waitFor();
+        assert.deepEqual(await focused(page), { tag: 'h3', name: 'Family contacts' });
+        assert.deepEqual(await t.seriousViolations(page, 'consent tab after corrections'), []);
+        await screenshotTo(page, 'after');
         await signOut(page, 'Clinician');
       },
     ],

@@ -86,7 +86,7 @@ export class ClientAccessService {
     return this.require(actor, clientId, 'assign', manager);
   }
 
-  /** True when a training consent is in force today (not withdrawn, givenOn ≤ today ≤ expiresOn). */
+  /** True when a training consent is in force today (not withdrawn or voided, givenOn ≤ today ≤ expiresOn). */
   async hasActiveTrainingConsent(clientId: string, manager?: EntityManager): Promise<boolean> {
     const repo = manager ? manager.getRepository(Consent) : this.consents;
     const today = todayIso();
@@ -94,6 +94,7 @@ export class ClientAccessService {
       .createQueryBuilder('consent')
       .where('consent.clientId = :clientId', { clientId })
       .andWhere('consent.withdrawnAt IS NULL')
+      .andWhere('consent.voidedAt IS NULL')
       .andWhere(`'training' = ANY(consent.scopes)`)
       .andWhere('consent.givenOn <= :today', { today })
       .andWhere('(consent.expiresOn IS NULL OR consent.expiresOn >= :today)', { today })

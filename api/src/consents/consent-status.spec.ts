@@ -36,6 +36,17 @@ describe('consent status', () => {
     expect(isInForce(record(overrides), TODAY)).toBe(inForce);
   });
 
+  it('a voided record (made in error) is not consent: not in force, and left out of the client status', () => {
+    const voided = record({ voidedAt: '2026-10-02T09:00:00Z' });
+    expect(consentRecordStatus(voided, TODAY)).toBe('voided');
+    expect(isInForce(voided, TODAY)).toBe(false);
+    expect(coversScope([voided], 'training', TODAY)).toBe(false);
+    // Newest first: a voided newest record gives way to the one before it.
+    expect(clientConsentStatus([voided, record({ withdrawnAt: '2026-10-01' })], TODAY)).toBe('withdrawn');
+    expect(clientConsentStatus([voided], TODAY)).toBe('none');
+    expect(releasedScopes(record({ scopes: ['training'] }), [voided], TODAY)).toEqual(['training']);
+  });
+
   it('checks the scope: a summaries-only consent does not allow training', () => {
     const summariesOnly = [record({ scopes: ['summaries'] })];
     expect(coversScope(summariesOnly, 'training', TODAY)).toBe(false);

@@ -1,4 +1,4 @@
-import type { ConsentScope, ConsentStatus } from '@keyloom/shared';
+import { type ConsentScope, type ConsentStatus, localTodayIso } from '@keyloom/shared';
 
 /** The parts of a consent record that decide whether it is in force. Dates are "YYYY-MM-DD". */
 export type ConsentTerms = {
@@ -6,19 +6,23 @@ export type ConsentTerms = {
   givenOn: string;
   expiresOn: string | null;
   withdrawnAt: Date | string | null;
+  /** Set when the record was voided as made in error; absent counts as not voided. */
+  voidedAt?: Date | string | null;
 };
 
 /** Today's calendar date on the server's clock, as "YYYY-MM-DD" (local time, like the clinic's forms). */
-export function todayIso(now: Date = new Date()): string {
-  const pad = (n: number) => String(n).padStart(2, '0');
-  return `${now.getFullYear()}-${pad(now.getMonth() + 1)}-${pad(now.getDate())}`;
-}
+export const todayIso = localTodayIso;
 
 /**
- * Status of one record on `today`: withdrawn beats everything (it cannot be undone), then an expiry
- * date before today; otherwise active. ISO dates compare correctly as strings.
+ * Status of one record on `today`: voided (recorded in error) beats everything, then withdrawn (it
+ * cannot be undone), then an expiry date before today; otherwise active. ISO dates compare correctly
+ * as strings.
  */
-export function consentRecordStatus(terms: ConsentTerms, today: string): 'active' | 'expired' | 'withdrawn' {
+export function consentRecordStatus(
+  terms: ConsentTerms,
+  today: string,
+): 'active' | 'expired' | 'withdrawn' | 'voided' {
+  if (terms.voidedAt != null) return 'voided';
   if (terms.withdrawnAt !== null) return 'withdrawn';
   if (terms.expiresOn !== null && terms.expiresOn < today) return 'expired';
   return 'active';
@@ -37,14 +41,15 @@ export function coversScope(records: readonly ConsentTerms[], scope: ConsentScop
 /**
  * Where consent stands for a client: "active" when any record is in force; otherwise the status of
  * the newest record ("withdrawn" or "expired"); "none" without records (or with only a record whose
- * givenOn is still ahead). `newestFirst` must be ordered by creation, newest first.
+ * givenOn is still ahead). A voided record was never consent: it is left out. `newestFirst` must be
+ * ordered by creation, newest first.
  */
 export function clientConsentStatus(newestFirst: readonly ConsentTerms[], today: string): ConsentStatus {
   if (newestFirst.some((record) => isInForce(record, today))) return 'active';
-  const newest = newestFirst[0];
+  const newest = newestFirst.find((record) => record.voidedAt == null);
   if (!newest) return 'none';
   const status = consentRecordStatus(newest, today);
-  return status === 'active' ? 'none' : status;
+  return status === 'active' || status === 'voided' ? 'none' : status;
 }
 
 /**

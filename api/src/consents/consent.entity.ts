@@ -14,13 +14,19 @@ import { Client } from '../clients/client.entity';
 import { User } from '../users/user.entity';
 
 // One consent record. Never edited after creation except: the document may be attached while the
-// consent stands, and a withdrawal fills the withdrawn_* columns once (the service refuses a second).
+// consent stands, a withdrawal fills the withdrawn_* columns once (the service refuses a second), and
+// a record made in error is voided once (void_* columns): kept, shown struck through, no longer consent.
 @Entity({ name: 'consents' })
 @Index('IDX_consents_client_id', ['clientId'])
 @Check('CHK_consents_given_by', `given_by IN ('client', 'representative')`)
 @Check('CHK_consents_scopes', `cardinality(scopes) > 0 AND scopes <@ ARRAY['training', 'summaries']::text[]`)
 @Check('CHK_consents_expiry_after_given', `expires_on IS NULL OR expires_on > given_on`)
 @Check('CHK_consents_withdrawal_complete', `(withdrawn_at IS NULL) = (withdrawal IS NULL)`)
+@Check(
+  'CHK_consents_void_complete',
+  `(voided_at IS NULL) = (void_reason IS NULL) AND (voided_at IS NULL) = (void_report IS NULL)`,
+)
+@Check('CHK_consents_void_or_withdrawal', `voided_at IS NULL OR withdrawn_at IS NULL`)
 export class Consent {
   @PrimaryGeneratedColumn('uuid', { primaryKeyConstraintName: 'PK_consents' })
   id: string;
@@ -81,6 +87,23 @@ export class Consent {
   // What the withdrawal deleted (counts per hook), kept as the trace that it happened.
   @Column({ type: 'jsonb', nullable: true })
   withdrawal: WithdrawalReport | null;
+
+  @Column({ name: 'voided_at', type: 'timestamptz', nullable: true })
+  voidedAt: Date | null;
+
+  @Column({ name: 'voided_by_id', type: 'uuid', nullable: true })
+  voidedById: string | null;
+
+  @ManyToOne(() => User, { onDelete: 'RESTRICT', nullable: true })
+  @JoinColumn({ name: 'voided_by_id', foreignKeyConstraintName: 'FK_consents_voided_by_id' })
+  voidedBy?: Relation<User> | null;
+
+  @Column({ name: 'void_reason', type: 'text', nullable: true })
+  voidReason: string | null;
+
+  // What voiding deleted (the same counts as a withdrawal report).
+  @Column({ name: 'void_report', type: 'jsonb', nullable: true })
+  voidReport: WithdrawalReport | null;
 
   @Column({ name: 'document_name', type: 'text', nullable: true })
   documentName: string | null;

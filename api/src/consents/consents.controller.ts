@@ -27,6 +27,8 @@ import {
   consentSchema,
   type CreateConsentInput,
   createConsentSchema,
+  type VoidConsentInput,
+  voidConsentSchema,
   type WithdrawConsentInput,
   type WithdrawalPreview,
   withdrawalPreviewSchema,
@@ -76,10 +78,10 @@ export class ConsentsController {
   @Get(':consentId/withdrawal-preview')
   @Roles('clinician')
   @ApiOperation({
-    summary: 'What withdrawing this consent would delete now (owning clinician); changes nothing',
+    summary: 'What withdrawing or voiding this consent would delete now (owning clinician); changes nothing',
     description:
       'The counts the withdrawal would report, and for each scope the other consents in force that ' +
-      'still cover it (their data is kept). A withdrawn consent: 409.',
+      'still cover it (their data is kept). Voiding deletes the same. A withdrawn or voided consent: 409.',
   })
   @ApiOkResponse({ schema: zodSchemaObject(withdrawalPreviewSchema) })
   withdrawalPreview(
@@ -110,6 +112,27 @@ export class ConsentsController {
     @Body(new ZodValidationPipe(withdrawConsentSchema)) body: WithdrawConsentInput,
   ): Promise<ConsentDto> {
     return this.consents.withdraw(actor, id, consentId, body);
+  }
+
+  @Post(':consentId/void')
+  @Roles('clinician')
+  @HttpCode(200)
+  @ApiOperation({
+    summary: 'Void a consent record made in error (owning clinician) — kept, struck through',
+    description:
+      'The record stays, with when, who and the reason, but no longer counts as consent. What only it ' +
+      'allowed is deleted exactly as by a withdrawal (nothing while another consent in force covers ' +
+      'the scope; GET …/withdrawal-preview gives the counts first). A voided or withdrawn record: 409.',
+  })
+  @ApiBody({ schema: zodSchemaObject(voidConsentSchema) })
+  @ApiOkResponse({ schema: zodSchemaObject(consentSchema) })
+  voidConsent(
+    @CurrentActor() actor: Actor,
+    @Param('id', ParseUUIDPipe) id: string,
+    @Param('consentId', ParseUUIDPipe) consentId: string,
+    @Body(new ZodValidationPipe(voidConsentSchema)) body: VoidConsentInput,
+  ): Promise<ConsentDto> {
+    return this.consents.voidConsent(actor, id, consentId, body);
   }
 
   @Put(':consentId/document')

@@ -1,11 +1,13 @@
 import { BadRequestException, ConflictException, Injectable, NotFoundException } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
-import type {
-  ConsentScope,
-  CreateConsentInput,
-  WithdrawConsentInput,
-  WithdrawalPreview,
-  WithdrawalReport,
+import {
+  type ConsentScope,
+  type CreateConsentInput,
+  FUTURE_CONSENT_MESSAGE,
+  type VoidConsentInput,
+  type WithdrawConsentInput,
+  type WithdrawalPreview,
+  type WithdrawalReport,
 } from '@keyloom/shared';
 import { createHash } from 'node:crypto';
 import { DataSource, type EntityManager } from 'typeorm';
@@ -21,7 +23,11 @@ import { type WithdrawalCounts, WithdrawalHooks } from './withdrawal-hooks';
 export const CONSENT_NOT_FOUND_MESSAGE = 'There is no consent record with that id for this client.';
 export const ALREADY_WITHDRAWN_MESSAGE = 'This consent was already withdrawn.';
 export const WITHDRAWN_IS_FINAL_MESSAGE = 'This consent was withdrawn; its record can no longer be changed.';
-export const FUTURE_CONSENT_MESSAGE = 'The date consent was given cannot be in the future.';
+export const ALREADY_VOIDED_MESSAGE = 'This consent record was already voided.';
+export const VOIDED_IS_FINAL_MESSAGE = 'This consent record was voided; it can no longer be changed.';
+export const WITHDRAWN_CANNOT_BE_VOIDED_MESSAGE =
+  'This consent was withdrawn; a withdrawn record stays as it is and cannot be voided.';
+export { FUTURE_CONSENT_MESSAGE };
 export const NOT_A_DOCUMENT_MESSAGE =
   'The consent form must be a PDF, PNG or JPEG file. Scan or save it in one of these formats and try again.';
 export const NO_DOCUMENT_MESSAGE = 'No consent form was uploaded for this consent.';
@@ -106,10 +112,9 @@ export class ConsentsService {
     return this.dataSource.transaction(async (manager) => {
       await this.access.requireOwned(actor, clientId, manager);
       const { consent, others } = await this.lockClientConsents(manager, clientId, consentId);
+      if (consent.voidedAt !== null) throw new ConflictException(VOIDED_IS_FINAL_MESSAGE);
       if (consent.withdrawnAt !== null) throw new ConflictException(ALREADY_WITHDRAWN_MESSAGE);
-      const released = releasedScopes(consent, others, todayIso());
-      const counts = await this.hooks.runAll(clientId, released, manager);
-      const report = toWithdrawalReport(counts, consent.scopes, released);
+      const report = await this.release(manager, clientId, consent, others);
       await manager.getRepository(Consent).update(
         { id: consentId },
         {
@@ -132,7 +137,57 @@ export class ConsentsService {
   }
 
   /**
-   * What withdrawing the consent would do now (owning clinician), counted by the same hooks as the
+   * Voids a record made in error (owning clinician), in the same locked transaction as a withdrawal:
+   * the record stays (with when, who, why) but no longer counts as consent, so what only it allowed
+   * is deleted exactly as a withdrawal would (nothing while another consent in force covers it).
+   * Once only: a voided record 409; a withdrawn record 409 (its withdrawal already stands).
+   */
+  async voidConsent(
+    actor: Actor,
+    clientId: string,
+    consentId: string,
+    input: VoidConsentInput,
+  ): Promise<ConsentDto> {
+    return this.dataSource.transaction(async (manager) => {
+      await this.access.requireOwned(actor, clientId, manager);
+      const { consent, others } = await this.lockClientConsents(manager, clientId, consentId);
+      if (consent.voidedAt !== null) throw new ConflictException(ALREADY_VOIDED_MESSAGE);
+      if (consent.withdrawnAt !== null) throw new ConflictException(WITHDRAWN_CANNOT_BE_VOIDED_MESSAGE);
+      const report = await this.release(manager, clientId, consent, others);
+      await manager
+        .getRepository(Consent)
+        .update(
+          { id: consentId },
+          { voidedAt: new Date(), voidedById: actor.id, voidReason: input.reason, voidReport: report },
+        );
+      // The reason is free text staff wrote about the client: like every such text it stays on the
+      // record (shown in the list), and the log keeps its SHA-256, which ties the event to that text
+      // (see CLIENT_TEXT_KEYS in audit-details.ts for why the log holds no client text).
+      await this.audit.record(
+        actor,
+        'consent.void',
+        { type: 'consent', id: consentId, clientId },
+        { reasonSha256: createHash('sha256').update(input.reason).digest('hex'), ...report },
+        manager,
+      );
+      return this.findDto(manager, clientId, consentId);
+    });
+  }
+
+  /** Runs the hooks of the scopes only `consent` covers; the report of what went. */
+  private async release(
+    manager: EntityManager,
+    clientId: string,
+    consent: Consent,
+    others: readonly Consent[],
+  ): Promise<WithdrawalReport> {
+    const released = releasedScopes(consent, others, todayIso());
+    const counts = await this.hooks.runAll(clientId, released, manager);
+    return toWithdrawalReport(counts, consent.scopes, released);
+  }
+
+  /**
+   * What withdrawing (or voiding) the consent would do now (owning clinician), counted by the same hooks as the
    * withdrawal, without changing anything; with the other consents that keep each scope covered.
    */
   async withdrawalPreview(actor: Actor, clientId: string, consentId: string): Promise<WithdrawalPreview> {
@@ -141,6 +196,7 @@ export class ConsentsService {
       const all = await manager.getRepository(Consent).find({ where: { clientId } });
       const consent = all.find((row) => row.id === consentId);
       if (!consent) throw new NotFoundException(CONSENT_NOT_FOUND_MESSAGE);
+      if (consent.voidedAt !== null) throw new ConflictException(VOIDED_IS_FINAL_MESSAGE);
       if (consent.withdrawnAt !== null) throw new ConflictException(ALREADY_WITHDRAWN_MESSAGE);
       const others = all.filter((row) => row.id !== consentId);
       const today = todayIso();
@@ -172,6 +228,7 @@ export class ConsentsService {
       await this.access.requireOwned(actor, clientId, manager);
       const consent = await this.lockConsent(manager, clientId, consentId);
       if (consent.withdrawnAt !== null) throw new ConflictException(WITHDRAWN_IS_FINAL_MESSAGE);
+      if (consent.voidedAt !== null) throw new ConflictException(VOIDED_IS_FINAL_MESSAGE);
       if (!type) throw new BadRequestException(NOT_A_DOCUMENT_MESSAGE);
       const fileName = cleanFileName(file.originalname, `consent-form.${type.extension}`);
       await manager.getRepository(Consent).update(
@@ -221,7 +278,8 @@ export class ConsentsService {
       .getRepository(Consent)
       .createQueryBuilder('consent')
       .leftJoinAndSelect('consent.recordedBy', 'recordedBy')
-      .leftJoinAndSelect('consent.withdrawnBy', 'withdrawnBy');
+      .leftJoinAndSelect('consent.withdrawnBy', 'withdrawnBy')
+      .leftJoinAndSelect('consent.voidedBy', 'voidedBy');
   }
 
   private async findDto(manager: EntityManager, clientId: string, id: string): Promise<ConsentDto> {

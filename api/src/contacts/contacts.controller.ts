@@ -1,9 +1,18 @@
-import { Body, Controller, Get, Param, ParseUUIDPipe, Patch, Post } from '@nestjs/common';
-import { ApiBody, ApiCreatedResponse, ApiOkResponse, ApiOperation, ApiTags } from '@nestjs/swagger';
+import { Body, Controller, Delete, Get, HttpCode, Param, ParseUUIDPipe, Patch, Post } from '@nestjs/common';
+import {
+  ApiBody,
+  ApiCreatedResponse,
+  ApiNoContentResponse,
+  ApiOkResponse,
+  ApiOperation,
+  ApiTags,
+} from '@nestjs/swagger';
 import {
   contactSchema,
   type CreateContactInput,
   createContactSchema,
+  type RenewSummariesConsentInput,
+  renewSummariesConsentSchema,
   type UpdateContactInput,
   updateContactSchema,
 } from '@keyloom/shared';
@@ -30,7 +39,12 @@ export class ContactsController {
 
   @Post()
   @Roles('clinician')
-  @ApiOperation({ summary: 'Add a family contact (owning clinician)' })
+  @ApiOperation({
+    summary: 'Add a family contact (owning clinician)',
+    description:
+      'One contact per address per client, case-insensitive (409). An address that used the stop link ' +
+      'comes in stopped and cannot be ticked as agreeing (409).',
+  })
   @ApiBody({ schema: zodSchemaObject(createContactSchema) })
   @ApiCreatedResponse({ schema: zodSchemaObject(contactSchema) })
   create(
@@ -43,7 +57,12 @@ export class ContactsController {
 
   @Patch(':contactId')
   @Roles('clinician')
-  @ApiOperation({ summary: 'Change a family contact (owning clinician)' })
+  @ApiOperation({
+    summary: 'Change a family contact (owning clinician)',
+    description:
+      'A new address may not be another contact’s (409). A stopped address cannot be ticked as ' +
+      'agreeing (409): only the family’s new consent (POST …/summaries-consent) lifts the stop.',
+  })
   @ApiBody({ schema: zodSchemaObject(updateContactSchema) })
   @ApiOkResponse({ schema: zodSchemaObject(contactSchema) })
   update(
@@ -53,5 +72,43 @@ export class ContactsController {
     @Body(new ZodValidationPipe(updateContactSchema)) body: UpdateContactInput,
   ): Promise<ContactDto> {
     return this.contacts.update(actor, id, contactId, body);
+  }
+
+  @Delete(':contactId')
+  @Roles('clinician')
+  @HttpCode(204)
+  @ApiOperation({
+    summary: 'Delete a family contact (owning clinician)',
+    description:
+      'Summaries already sent keep their record (name and address as sent). A stop of the address ' +
+      'stays with the client.',
+  })
+  @ApiNoContentResponse()
+  remove(
+    @CurrentActor() actor: Actor,
+    @Param('id', ParseUUIDPipe) id: string,
+    @Param('contactId', ParseUUIDPipe) contactId: string,
+  ): Promise<void> {
+    return this.contacts.remove(actor, id, contactId);
+  }
+
+  @Post(':contactId/summaries-consent')
+  @Roles('clinician')
+  @HttpCode(200)
+  @ApiOperation({
+    summary: 'Record the family’s new consent to summaries after a stop (owning clinician)',
+    description:
+      'givenOn (not after today) and who gave it. Lifts the stop of the address for the client and ' +
+      'ticks this contact as agreeing. An address that was never stopped: 409.',
+  })
+  @ApiBody({ schema: zodSchemaObject(renewSummariesConsentSchema) })
+  @ApiOkResponse({ schema: zodSchemaObject(contactSchema) })
+  renewSummariesConsent(
+    @CurrentActor() actor: Actor,
+    @Param('id', ParseUUIDPipe) id: string,
+    @Param('contactId', ParseUUIDPipe) contactId: string,
+    @Body(new ZodValidationPipe(renewSummariesConsentSchema)) body: RenewSummariesConsentInput,
+  ): Promise<ContactDto> {
+    return this.contacts.renewSummariesConsent(actor, id, contactId, body);
   }
 }

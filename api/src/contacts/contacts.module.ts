@@ -5,9 +5,10 @@ import { ClientsModule } from '../clients/clients.module';
 import { ContactsController } from './contacts.controller';
 import { ContactsService } from './contacts.service';
 import { FamilyContact } from './family-contact.entity';
+import { SummaryStop } from './summary-stop.entity';
 
 @Module({
-  imports: [TypeOrmModule.forFeature([FamilyContact]), ClientsModule, AuditModule],
+  imports: [TypeOrmModule.forFeature([FamilyContact, SummaryStop]), ClientsModule, AuditModule],
   controllers: [ContactsController],
   providers: [ContactsService],
 })

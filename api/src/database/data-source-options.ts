@@ -20,6 +20,9 @@ import { AddSignInLimitsAndPasswordChange1764940000001 } from '../migrations/176
 import { RenameBlendWeightToBaseWeight1764950000001 } from '../migrations/1764950000001-rename-blend-weight-to-base-weight';
 import { OneNamePerIdea1764950000002 } from '../migrations/1764950000002-one-name-per-idea';
 import { CreateClientVocabularies1764960000001 } from '../migrations/1764960000001-create-client-vocabularies';
+import { ConsentVoid1764980000001 } from '../migrations/1764980000001-consent-void';
+import { ContactAddresses1764980000002 } from '../migrations/1764980000002-contact-addresses';
+import { SummaryStop } from '../contacts/summary-stop.entity';
 import { SignInLimit } from '../auth/sign-in-limits/sign-in-limit.entity';
 import { ProfileVersion } from '../profile-versions/profile-version.entity';
 import { SampleFlag } from '../samples/sample-flag.entity';
@@ -52,6 +55,7 @@ export const entities = [
   AppSetting,
   SignInLimit,
   ClientVocabularyRow,
+  SummaryStop,
 ];
 export const migrations = [
   CreateUsersAndSessions1764633600000,
@@ -69,6 +73,8 @@ export const migrations = [
   RenameBlendWeightToBaseWeight1764950000001,
   OneNamePerIdea1764950000002,
   CreateClientVocabularies1764960000001,
+  ConsentVoid1764980000001,
+  ContactAddresses1764980000002,
 ];
 
 /** TypeORM options for the app, the CLI, migrate.js, seed.js and the HTTP tests. Never synchronize. */

@@ -23,6 +23,7 @@ import { coversScope, todayIso } from '../consents/consent-status';
 import { Consent } from '../consents/consent.entity';
 import { WithdrawalHooks } from '../consents/withdrawal-hooks';
 import { FamilyContact } from '../contacts/family-contact.entity';
+import { stopAddress } from '../contacts/summary-stop';
 import { isUniqueViolation } from '../database/database-errors';
 import { type FinishIdempotent, IdempotencyService } from '../idempotency/idempotency.service';
 import { JobQueueService } from '../jobs/job-queue.service';
@@ -329,7 +330,12 @@ export class SummariesService implements OnModuleInit {
         .update(FamilyContact)
         .set({ unsubscribedAt: () => 'now()' })
         .where('id = :id AND unsubscribed_at IS NULL', { id: recipient.contactId })
+        .returning(['clientId', 'email'])
         .execute();
+      // The stop belongs to the address for this client, whatever contact carries it later.
+      for (const row of result.raw as Array<{ client_id: string; email: string }>) {
+        await stopAddress(manager, row.client_id, row.email);
+      }
       if ((result.affected ?? 0) > 0) {
         await this.audit.record(
           null,

@@ -80,6 +80,10 @@ export const consentRecord = (overrides: Partial<Consent> = {}): Consent => ({
   withdrawnBy: null,
   withdrawalReason: null,
   withdrawal: null,
+  voidedAt: null,
+  voidedBy: null,
+  voidReason: null,
+  voidReport: null,
   document: null,
   ...overrides,
 });
@@ -92,6 +96,8 @@ export const contactRecord = (overrides: Partial<Contact> = {}): Contact => ({
   email: 'hannah.ashby@family.example',
   consentToSummaries: true,
   unsubscribedAt: null,
+  summariesConsentGivenOn: null,
+  summariesConsentGivenBy: null,
   createdAt: '2026-09-14T09:20:00.000Z',
   ...overrides,
 });

@@ -120,6 +120,22 @@ const dateCheck = z.superRefine<string>((value, ctx) => {
 // A calendar date as ISO "YYYY-MM-DD" (consent dates, sample periods, summary periods, audit filters).
 export const isoDateField = z.string({ error: DATE_FORMAT_MESSAGE }).check(dateCheck);
 
+/** Today's calendar date on this machine's clock, as "YYYY-MM-DD" (local time, like the clinic's forms). */
+export function localTodayIso(now: Date = new Date()): string {
+  const pad = (n: number) => String(n).padStart(2, '0');
+  return `${now.getFullYear()}-${pad(now.getMonth() + 1)}-${pad(now.getDate())}`;
+}
+
+// A calendar date that has already come: the day something was given or signed (never after today).
+export const pastDateField = (futureMessage: string) =>
+  isoDateField.check(
+    z.superRefine<string>((value, ctx) => {
+      if (dateProblem(value) === null && value > localTodayIso()) {
+        ctx.addIssue({ code: 'custom', message: futureMessage, input: value });
+      }
+    }),
+  );
+
 // A moment as ISO 8601 date and time with its offset ("2026-05-01T10:00:00Z"), its date within range.
 export const isoDateTimeField = z.iso
   .datetime({ offset: true, error: 'Enter a date and time as YYYY-MM-DDTHH:MM:SSZ.' })

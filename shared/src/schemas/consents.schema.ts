@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { isoDateField, optionalText, safeText } from './common';
+import { isoDateField, optionalText, pastDateField, safeText } from './common';
 import { emailField } from './email';
 
 // What a consent covers: training a model on the client's writing, and sending
@@ -15,6 +15,8 @@ export const consentScopeLabels: Record<ConsentScope, string> = {
 
 export const consentGivers = ['client', 'representative'] as const;
 
+export const FUTURE_CONSENT_MESSAGE = 'The date consent was given cannot be in the future.';
+
 // POST /api/clients/:id/consents. `givenBy` is "client" or "representative";
 // a representative needs a name and their relationship to the client.
 export const createConsentSchema = z
@@ -28,7 +30,7 @@ export const createConsentSchema = z
       .array(consentScopeSchema)
       .min(1, { error: 'Choose at least one thing the consent covers.' })
       .transform((scopes) => [...new Set(scopes)]),
-    givenOn: isoDateField,
+    givenOn: pastDateField(FUTURE_CONSENT_MESSAGE),
     expiresOn: isoDateField.nullable().optional(),
     notes: optionalText(2000, 'Keep the notes under 2000 characters.'),
   })
@@ -68,7 +70,17 @@ export const withdrawConsentSchema = z.object({
 });
 export type WithdrawConsentInput = z.infer<typeof withdrawConsentSchema>;
 
-export const consentRecordStatuses = ['active', 'expired', 'withdrawn'] as const;
+// POST /api/clients/:id/consents/:consentId/void — the record was made in error (wrong person, wrong
+// scope, wrong date). Kept, struck through, with the reason; it no longer counts as consent.
+export const voidConsentSchema = z.object({
+  reason: safeText({ error: 'Say why this record is void (for the record).', multiline: true })
+    .trim()
+    .min(1, { error: 'Say why this record is void (for the record).' })
+    .max(2000, { error: 'Keep the reason under 2000 characters.' }),
+});
+export type VoidConsentInput = z.infer<typeof voidConsentSchema>;
+
+export const consentRecordStatuses = ['active', 'expired', 'withdrawn', 'voided'] as const;
 
 // What a withdrawal removed, kept with the consent record as the trace that it happened.
 // Data is removed only for a scope of the withdrawn consent that no other consent in force still
@@ -118,6 +130,11 @@ export const consentSchema = z.object({
   withdrawnBy: z.string().nullable(),
   withdrawalReason: z.string().nullable(),
   withdrawal: withdrawalReportSchema.nullable(),
+  // Set when the record was voided as made in error: when, by whom, why, and what that deleted.
+  voidedAt: z.string().nullable(),
+  voidedBy: z.string().nullable(),
+  voidReason: z.string().nullable(),
+  voidReport: withdrawalReportSchema.nullable(),
   // The scanned consent form, if one was uploaded (PDF, PNG or JPEG).
   document: z.object({ fileName: z.string(), mimeType: z.string(), byteSize: z.number().int() }).nullable(),
 });
@@ -146,8 +163,24 @@ export const contactSchema = z.object({
   relationship: z.string(),
   email: z.string(),
   consentToSummaries: z.boolean(),
-  // Set when the contact used the stop link of a summary e-mail.
+  // Set when this contact's address is stopped for the client: someone used the stop link of a summary
+  // e-mail sent to it (whichever contact carried the address then). Only the family's new consent,
+  // recorded by the clinician, clears it.
   unsubscribedAt: z.string().nullable(),
+  // The family's latest renewed consent to summaries after a stop: the day and who gave it.
+  summariesConsentGivenOn: z.string().nullable(),
+  summariesConsentGivenBy: z.string().nullable(),
   createdAt: z.string(),
 });
 export type Contact = z.infer<typeof contactSchema>;
+
+// POST /api/clients/:id/contacts/:contactId/summaries-consent — the family asked again for summaries
+// after the stop link was used: the clinician records when and who said so; summaries go again.
+export const renewSummariesConsentSchema = z.object({
+  givenOn: pastDateField('The date the family gave consent cannot be in the future.'),
+  givenBy: safeText({ error: 'Say who gave consent.' })
+    .trim()
+    .min(1, { error: 'Say who gave consent.' })
+    .max(120, { error: 'Keep the name under 120 characters.' }),
+});
+export type RenewSummariesConsentInput = z.infer<typeof renewSummariesConsentSchema>;

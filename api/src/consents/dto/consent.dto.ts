@@ -4,7 +4,7 @@ import type { Consent } from '../consent.entity';
 
 export type { ConsentDto };
 
-/** Entity (with recordedBy/withdrawnBy joined) → the shared consentSchema shape. */
+/** Entity (with recordedBy/withdrawnBy/voidedBy joined) → the shared consentSchema shape. */
 export function toConsentDto(consent: Consent, today: string): ConsentDto {
   return {
     id: consent.id,
@@ -23,6 +23,10 @@ export function toConsentDto(consent: Consent, today: string): ConsentDto {
     withdrawnBy: consent.withdrawnBy ? consent.withdrawnBy.name : null,
     withdrawalReason: consent.withdrawalReason,
     withdrawal: consent.withdrawal,
+    voidedAt: consent.voidedAt ? consent.voidedAt.toISOString() : null,
+    voidedBy: consent.voidedBy ? consent.voidedBy.name : null,
+    voidReason: consent.voidReason,
+    voidReport: consent.voidReport,
     document:
       consent.documentName && consent.documentMime && consent.documentSize !== null
         ? { fileName: consent.documentName, mimeType: consent.documentMime, byteSize: consent.documentSize }

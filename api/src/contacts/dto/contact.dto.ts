@@ -13,6 +13,8 @@ export function toContactDto(contact: FamilyContact): ContactDto {
     email: contact.email,
     consentToSummaries: contact.consentToSummaries,
     unsubscribedAt: contact.unsubscribedAt ? contact.unsubscribedAt.toISOString() : null,
+    summariesConsentGivenOn: contact.summariesConsentGivenOn,
+    summariesConsentGivenBy: contact.summariesConsentGivenBy,
     createdAt: contact.createdAt.toISOString(),
   };
 }

@@ -137,6 +137,57 @@ describe('Caseload', () => {
     });
   });
 
+  it('submits when a hidden timing field (of a method not chosen) holds an invalid value', async () => {
+    const created = clientRecord({
+      id: '3a4b5c6d-7e8f-4a0b-9c1d-2e3f4a5b6c05',
+      pseudonym: 'H. Hidden',
+      accessMethod: 'switch',
+      scanIntervalMs: 1000,
+      keyTimeMs: null,
+    });
+    const { user, api } = await openCaseload({
+      'POST /api/clients': { status: 201, body: created },
+      [`GET /api/clients/${created.id}`]: { body: created },
+    });
+    await user.click(screen.getByRole('button', { name: 'New client' }));
+    const form = within(await screen.findByRole('dialog', { name: 'New client' }));
+    await user.type(form.getByLabelText('Pseudonym'), 'H. Hidden');
+    // Direct touch first: a time per key out of range, then another method hides that field.
+    await user.clear(form.getByLabelText('Time per key (ms)'));
+    await user.type(form.getByLabelText('Time per key (ms)'), '5');
+    await user.selectOptions(form.getByLabelText('Access method'), 'Switch scanning');
+    expect(form.queryByLabelText('Time per key (ms)')).not.toBeInTheDocument();
+    await user.click(form.getByRole('button', { name: 'Create client' }));
+
+    await screen.findByRole('heading', { level: 1, name: 'H. Hidden' });
+    expect(api.requestsTo('POST /api/clients')[0]?.body).toMatchObject({
+      accessMethod: 'switch',
+      scanIntervalMs: 1000,
+      dwellMs: null,
+      keyTimeMs: null,
+    });
+  });
+
+  it('lists what a refused new client lacks at the top and moves focus there', async () => {
+    const { user, api } = await openCaseload();
+    await user.click(screen.getByRole('button', { name: 'New client' }));
+    const form = within(await screen.findByRole('dialog', { name: 'New client' }));
+    await user.clear(form.getByLabelText('Time per key (ms)'));
+    await user.type(form.getByLabelText('Time per key (ms)'), '5');
+    await user.click(form.getByRole('button', { name: 'Create client' }));
+    const summary = await form.findByRole('group', { name: '2 fields need attention' });
+    await waitFor(() => expect(summary).toHaveFocus());
+    expect(
+      within(summary)
+        .getAllByRole('link')
+        .map((link) => link.textContent),
+    ).toEqual([
+      'Pseudonym: Enter a pseudonym.',
+      'Time per key (ms): The time per key must be at least 100 ms.',
+    ]);
+    expect(api.requestsTo('POST /api/clients')).toHaveLength(0);
+  });
+
   it('shows a supervisor every client with the clinician and no "New client"', async () => {
     await openCaseload({}, '/clients', 'supervisor');
     expect(screen.getByRole('heading', { level: 1, name: 'Clients' })).toBeInTheDocument();

@@ -1,9 +1,18 @@
 import { zodResolver } from '@hookform/resolvers/zod';
-import type { ComponentPropsWithoutRef, ReactNode } from 'react';
+import {
+  type ComponentPropsWithoutRef,
+  type FormEvent,
+  type ReactNode,
+  useEffect,
+  useRef,
+  useState,
+} from 'react';
 import {
   type DefaultValues,
+  type FieldErrors,
   type FieldValues,
   type Path,
+  type Resolver,
   type UseFormReturn,
   useForm,
   type UseFormProps,
@@ -11,6 +20,8 @@ import {
 import type { z } from 'zod';
 import { isApiError } from '@/lib/api-client';
 import { Alert } from './alert';
+import { ErrorSummary } from './error-summary';
+import { type ErrorSummaryEntry, errorSummaryEntries } from './error-summary-entries';
 
 // The key react-hook-form keeps for errors that belong to no single field.
 const SERVER_ERROR = 'root.server' as const;
@@ -26,7 +37,26 @@ type FormProps<TSchema extends z.ZodType<FieldValues, FieldValues>> = Omit<
   defaultValues?: DefaultValues<z.input<TSchema>>;
   options?: Omit<UseFormProps<z.input<TSchema>, unknown, z.output<TSchema>>, 'resolver' | 'defaultValues'>;
   children: (methods: UseFormReturn<z.input<TSchema>, unknown, z.output<TSchema>>) => ReactNode;
+  /**
+   * The values as they will be sent, before they are checked: drop what the form does not show (a
+   * hidden field must never block a submit). Default: the values unchanged.
+   */
+  prepare?: (values: z.input<TSchema>) => z.input<TSchema>;
+  /**
+   * A refused submit (by the schema, or by the API naming fields) lists the fields at the top of the
+   * form, each a link to its field, and moves focus to that list. Off: focus goes to the first
+   * refused field, as react-hook-form does.
+   */
+  errorSummary?: boolean;
 };
+
+/** Field name → message of each refused field (top level; a group such as a list of boxes counts once). */
+const flatErrors = (
+  errors: FieldErrors | Record<string, { message?: string }>,
+): Array<{ name: string; message: string }> =>
+  Object.entries(errors as Record<string, { message?: unknown } | undefined>)
+    .filter(([name, error]) => name !== 'root' && typeof error?.message === 'string')
+    .map(([name, error]) => ({ name, message: String(error?.message) }));
 
 /**
  * One form pattern for all of Keyloom: react-hook-form + the zod schema; server errors are
@@ -38,15 +68,35 @@ export const Form = <TSchema extends z.ZodType<FieldValues, FieldValues>>({
   defaultValues,
   options,
   children,
+  prepare,
+  errorSummary = false,
   ...formProps
 }: FormProps<TSchema>) => {
+  const checked = zodResolver(schema) as Resolver<z.input<TSchema>, unknown, z.output<TSchema>>;
   const methods = useForm<z.input<TSchema>, unknown, z.output<TSchema>>({
+    shouldFocusError: !errorSummary,
     ...options,
     defaultValues,
-    resolver: zodResolver(schema),
+    resolver: prepare ? (values, context, opts) => checked(prepare(values), context, opts) : checked,
   });
+  const formRef = useRef<HTMLFormElement>(null);
+  const summaryRef = useRef<HTMLDivElement>(null);
+  const [summary, setSummary] = useState<{ entries: ErrorSummaryEntry[]; shown: number }>({
+    entries: [],
+    shown: 0,
+  });
+  // After each refused submit (`shown` counts them), once the list is on screen.
+  useEffect(() => {
+    if (summary.shown > 0) summaryRef.current?.focus();
+  }, [summary.shown]);
+  const showSummary = (errors: FieldErrors | Record<string, { message?: string }>) => {
+    if (!errorSummary || !formRef.current) return;
+    const entries = errorSummaryEntries(formRef.current, flatErrors(errors));
+    setSummary((before) => ({ entries, shown: entries.length > 0 ? before.shown + 1 : before.shown }));
+  };
 
-  const submit = methods.handleSubmit(async (values) => {
+  const send = async (values: z.output<TSchema>) => {
+    setSummary((before) => ({ ...before, entries: [] }));
     try {
       await onSubmit(values);
     } catch (error) {
@@ -57,11 +107,16 @@ export const Form = <TSchema extends z.ZodType<FieldValues, FieldValues>>({
         methods.setError(issue.path as Path<z.input<TSchema>>, { type: 'server', message: issue.message });
       }
       if (fieldIssues.length === 0) methods.setError(SERVER_ERROR, { type: 'server', message });
+      else
+        showSummary(Object.fromEntries(fieldIssues.map((issue) => [issue.path, { message: issue.message }])));
     }
-  });
+  };
+  // handleSubmit is called in the event, not during render: showSummary reads the form's element.
+  const submit = (event: FormEvent<HTMLFormElement>) => methods.handleSubmit(send, showSummary)(event);
 
   return (
-    <form noValidate onSubmit={submit} {...formProps}>
+    <form noValidate onSubmit={submit} ref={formRef} {...formProps}>
+      {errorSummary && <ErrorSummary ref={summaryRef} entries={summary.entries} />}
       {children(methods)}
     </form>
   );

@@ -33,7 +33,7 @@ export const ReasonForm = <TSchema extends z.ZodType<FieldValues, FieldValues>>(
   onCancel,
   'aria-label': ariaLabel,
 }: ReasonFormProps<TSchema>) => (
-  <Form schema={schema} defaultValues={defaultValues} onSubmit={onSubmit} aria-label={ariaLabel}>
+  <Form schema={schema} defaultValues={defaultValues} onSubmit={onSubmit} aria-label={ariaLabel} errorSummary>
     {({ register, formState }) => (
       <>
         <FormServerError message={formState.errors.root?.server?.message} />

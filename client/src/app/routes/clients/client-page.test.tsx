@@ -77,7 +77,14 @@ describe('Client page', () => {
     const { user } = await openClient('supervisor', 'consent');
     expect(await screen.findByRole('heading', { name: 'Consent given on 2026-09-14' })).toBeInTheDocument();
     expect(screen.getByRole('rowheader', { name: /Hannah Ashby/ })).toBeInTheDocument();
-    for (const name of ['Record consent', 'Withdraw consent', 'Add family contact', 'Upload form']) {
+    for (const name of [
+      'Record consent',
+      'Withdraw consent',
+      'Void (recorded in error)',
+      'Add family contact',
+      'Delete',
+      'Upload form',
+    ]) {
       expect(screen.queryByRole('button', { name })).not.toBeInTheDocument();
     }
     expect(screen.queryByRole('button', { name: /Edit Hannah/ })).not.toBeInTheDocument();
@@ -109,7 +116,7 @@ describe('Client page', () => {
     expect(form.queryByLabelText('Representative’s name')).not.toBeInTheDocument();
 
     await user.click(form.getByLabelText('A representative on the client’s behalf'));
-    await user.clear(form.getByLabelText('Date consent was given'));
+    await user.click(form.getByLabelText(/Training a personal model/));
     await user.type(form.getByLabelText('Date consent was given'), '2026-10-01');
     await user.click(form.getByRole('button', { name: 'Record consent' }));
     // Messages from shared/src/schemas/consents.schema.ts.
@@ -136,13 +143,50 @@ describe('Client page', () => {
     expect(screen.getByRole('status')).toHaveTextContent('Consent given on 2026-10-01 is recorded.');
   });
 
-  it('refuses a consent that covers nothing', async () => {
+  it('opens the consent dialog empty and refuses an empty submit, focus on the list of what is missing', async () => {
     const { user, api } = await openClient('clinician', 'consent');
     await user.click(await screen.findByRole('button', { name: 'Record consent' }));
     const form = within(await screen.findByRole('dialog'));
-    await user.click(form.getByLabelText(/Training a personal model/));
+    // Nothing chosen for the clinician: no giver, no scope, no date.
+    expect(form.getByLabelText('The client, R. Ashby')).not.toBeChecked();
+    expect(form.getByLabelText('A representative on the client’s behalf')).not.toBeChecked();
+    expect(form.getByLabelText(/Training a personal model/)).not.toBeChecked();
+    expect(form.getByLabelText(/Sending progress summaries/)).not.toBeChecked();
+    expect(form.getByLabelText('Date consent was given')).toHaveValue('');
     await user.click(form.getByRole('button', { name: 'Record consent' }));
-    expect(await form.findByText('Choose at least one thing the consent covers.')).toBeInTheDocument();
+    const summary = await form.findByRole('group', { name: '3 fields need attention' });
+    await waitFor(() => expect(summary).toHaveFocus());
+    // One link per refused field, in the order of the form, each naming its field and the problem.
+    expect(
+      within(summary)
+        .getAllByRole('link')
+        .map((link) => link.textContent),
+    ).toEqual([
+      'Who gave consent: Say who gave consent.',
+      'What the consent covers: Choose at least one thing the consent covers.',
+      'Date consent was given: Enter a date as YYYY-MM-DD.',
+    ]);
+    expect(form.getByText('Choose at least one thing the consent covers.')).toBeInTheDocument();
+    await user.click(within(summary).getByRole('link', { name: /^Date consent was given/ }));
+    expect(form.getByLabelText('Date consent was given')).toHaveFocus();
+    expect(api.requestsTo(`POST ${base}/consents`)).toHaveLength(0);
+  });
+
+  it('refuses a consent given in the future before sending it', async () => {
+    const { user, api } = await openClient('clinician', 'consent');
+    await user.click(await screen.findByRole('button', { name: 'Record consent' }));
+    const form = within(await screen.findByRole('dialog'));
+    await user.click(form.getByLabelText('The client, R. Ashby'));
+    await user.click(form.getByLabelText(/Training a personal model/));
+    const next = new Date();
+    next.setDate(next.getDate() + 1);
+    const tomorrow = `${next.getFullYear()}-${String(next.getMonth() + 1).padStart(2, '0')}-${String(next.getDate()).padStart(2, '0')}`;
+    await user.type(form.getByLabelText('Date consent was given'), tomorrow);
+    await user.click(form.getByRole('button', { name: 'Record consent' }));
+    const summary = await form.findByRole('group', { name: 'One field needs attention' });
+    expect(summary).toHaveTextContent(
+      'Date consent was given: The date consent was given cannot be in the future.',
+    );
     expect(api.requestsTo(`POST ${base}/consents`)).toHaveLength(0);
   });
 
@@ -280,6 +324,143 @@ describe('Client page', () => {
     expect(api.requestsTo(`POST ${base}/assignments`)[0]?.body).toEqual({
       userId: '4b5c6d7e-8f9a-4b1c-8d2e-3f4a5b6c7d05',
     });
+  });
+
+  it('voids a record made in error: says what stays covered, asks a reason, shows it struck through', async () => {
+    const right = consentRecord({ id: '7a2b3c4d-5e6f-4a8b-9c0d-1e2f3a4b5c62', givenOn: '2026-09-01' });
+    const wrong = consentRecord({ givenOn: '2026-09-14', scopes: ['training'] });
+    const report = {
+      samplesDeleted: 0,
+      derived: { profileVersions: 0 },
+      cancelled: {},
+      keptScopes: ['training' as const],
+    };
+    const voided = consentRecord({
+      ...wrong,
+      status: 'voided',
+      voidedAt: '2026-10-06T09:00:00.000Z',
+      voidedBy: 'Dana Clinician',
+      voidReason: 'Typed for the wrong client.',
+      voidReport: report,
+    });
+    let consents = [wrong, right];
+    const { user, api } = await openClient('clinician', 'consent', {
+      [`GET ${base}/consents`]: () => ({ body: consents }),
+      [`GET ${base}/consents/${wrong.id}/withdrawal-preview`]: {
+        body: {
+          consentId: wrong.id,
+          report,
+          scopes: [
+            { scope: 'training', coveredBy: [{ id: right.id, givenOn: '2026-09-01', expiresOn: null }] },
+          ],
+        },
+      },
+      [`POST ${base}/consents/${wrong.id}/void`]: () => {
+        consents = [voided, right];
+        return { body: voided };
+      },
+    });
+    await user.click(
+      await screen.findByRole('button', { name: 'Void (recorded in error): consent given on 2026-09-14' }),
+    );
+    const dialog = await screen.findByRole('dialog', { name: 'Void this consent record for R. Ashby?' });
+    await waitFor(() =>
+      expect(dialog).toHaveAccessibleDescription(
+        /Nothing will be deleted for R\. Ashby\. The consent given on 2026-09-01 still covers training/,
+      ),
+    );
+    const form = within(dialog);
+    expect(form.queryByRole('region', { name: 'Will be deleted' })).not.toBeInTheDocument();
+    await user.click(form.getByRole('button', { name: 'Void the record' }));
+    const summary = await form.findByRole('group', { name: 'One field needs attention' });
+    await waitFor(() => expect(summary).toHaveFocus());
+    expect(api.requestsTo(`POST ${base}/consents/${wrong.id}/void`)).toHaveLength(0);
+
+    await user.type(form.getByLabelText('Why this record is wrong'), 'Typed for the wrong client.');
+    await user.click(form.getByRole('button', { name: 'Void the record' }));
+    await waitFor(() => expect(screen.queryByRole('dialog')).not.toBeInTheDocument());
+    expect(api.requestsTo(`POST ${base}/consents/${wrong.id}/void`)[0]?.body).toEqual({
+      reason: 'Typed for the wrong client.',
+    });
+    // Focus goes to the records' heading (the button that opened the dialog is gone).
+    await waitFor(() => expect(screen.getByRole('heading', { name: 'Consent records' })).toHaveFocus());
+    expect(screen.getByRole('status')).toHaveTextContent('Consent record voided. Nothing was deleted.');
+    const record = screen.getByRole('article', { name: 'Consent given on 2026-09-14' });
+    expect(within(record).getByRole('heading', { name: 'Consent given on 2026-09-14' })).toHaveClass(
+      'line-through',
+    );
+    expect(record).toHaveTextContent(/Voided on .* — Typed for the wrong client\./);
+    expect(within(record).queryByRole('button')).not.toBeInTheDocument();
+  });
+
+  it('deletes a family contact after saying what goes and what stays; focus on the contacts heading', async () => {
+    const contact = contactRecord();
+    let contacts = [contact];
+    const { user, api } = await openClient('clinician', 'consent', {
+      [`GET ${base}/contacts`]: () => ({ body: contacts }),
+      [`DELETE ${base}/contacts/${contact.id}`]: () => {
+        contacts = [];
+        return { status: 204 };
+      },
+    });
+    await user.click(await screen.findByRole('button', { name: 'Delete Hannah Ashby' }));
+    const dialog = await screen.findByRole('dialog', { name: 'Delete Hannah Ashby?' });
+    expect(dialog).toHaveAccessibleDescription(
+      /address \(hannah\.ashby@family\.example\) are removed.*Summaries already sent to them keep their record/,
+    );
+    // The safe choice first.
+    expect(within(dialog).getByRole('button', { name: 'Cancel' })).toHaveFocus();
+    await user.click(within(dialog).getByRole('button', { name: 'Delete Hannah Ashby' }));
+    await waitFor(() => expect(screen.queryByRole('dialog')).not.toBeInTheDocument());
+    expect(api.requestsTo(`DELETE ${base}/contacts/${contact.id}`)).toHaveLength(1);
+    await waitFor(() => expect(screen.getByRole('heading', { name: 'Family contacts' })).toHaveFocus());
+    expect(await screen.findByText('No family contacts yet.')).toBeInTheDocument();
+  });
+
+  it('keeps a stopped contact’s agreement box read-only with the reason, and records the family’s new consent', async () => {
+    const stopped = contactRecord({ unsubscribedAt: '2026-10-20T08:00:00.000Z' });
+    const renewed = contactRecord({
+      unsubscribedAt: null,
+      summariesConsentGivenOn: '2026-11-02',
+      summariesConsentGivenBy: 'Hannah Ashby',
+    });
+    let contacts = [stopped];
+    const { user, api } = await openClient('clinician', 'consent', {
+      [`GET ${base}/contacts`]: () => ({ body: contacts }),
+      [`PATCH ${base}/contacts/${stopped.id}`]: { body: stopped },
+      [`POST ${base}/contacts/${stopped.id}/summaries-consent`]: () => {
+        contacts = [renewed];
+        return { body: renewed };
+      },
+    });
+    await user.click(await screen.findByRole('button', { name: 'Edit Hannah Ashby' }));
+    const edit = within(await screen.findByRole('dialog', { name: 'Edit Hannah Ashby' }));
+    const box = edit.getByLabelText('Agreed to receive progress summaries');
+    expect(box).toBeDisabled();
+    expect(box).not.toBeChecked();
+    expect(box).toHaveAccessibleDescription(/Cannot be ticked: this address used the stop link/);
+    await user.click(edit.getByRole('button', { name: 'Cancel' }));
+
+    await user.click(
+      screen.getByRole('button', { name: 'Record the family’s new consent to summaries for Hannah Ashby' }),
+    );
+    const dialog = within(
+      await screen.findByRole('dialog', { name: 'Record the family’s new consent to summaries' }),
+    );
+    // Nothing pre-filled: an empty submit is refused and listed.
+    expect(dialog.getByLabelText('Date the family gave consent')).toHaveValue('');
+    await user.click(dialog.getByRole('button', { name: 'Record consent and send summaries again' }));
+    expect(await dialog.findByRole('group', { name: '2 fields need attention' })).toHaveFocus();
+    await user.type(dialog.getByLabelText('Date the family gave consent'), '2026-11-02');
+    await user.type(dialog.getByLabelText('Who gave it'), 'Hannah Ashby');
+    await user.click(dialog.getByRole('button', { name: 'Record consent and send summaries again' }));
+    await waitFor(() => expect(screen.queryByRole('dialog')).not.toBeInTheDocument());
+    expect(api.requestsTo(`POST ${base}/contacts/${stopped.id}/summaries-consent`)[0]?.body).toEqual({
+      givenOn: '2026-11-02',
+      givenBy: 'Hannah Ashby',
+    });
+    await waitFor(() => expect(screen.getByRole('heading', { name: 'Family contacts' })).toHaveFocus());
+    expect(api.requestsTo(`PATCH ${base}/contacts/${stopped.id}`)).toHaveLength(0);
   });
 
   it('attaches a scanned consent form as multipart field "file" and refuses one over 10 MB first', async () => {

@@ -49,6 +49,10 @@ export const ClientFormDialog = ({ open, client, onClose, onSaved }: ClientFormD
           goals: client?.goals ?? '',
           notes: client?.notes ?? '',
         }}
+        // The timing fields of the methods not chosen are hidden: they are cleared before the check,
+        // so a leftover value there can never block the submit.
+        prepare={keepMatchingTiming}
+        errorSummary
         onSubmit={async (values) => {
           const body = keepMatchingTiming(values);
           const saved = client

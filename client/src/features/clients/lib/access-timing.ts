@@ -25,8 +25,15 @@ export const timingFor = Object.fromEntries(
   }),
 ) as Record<AccessMethod, { field: AccessTimingField; label: string; hint: string }>;
 
-/** Only the timing that fits the method is kept; the others are cleared. */
-export const keepMatchingTiming = (values: CreateClientInput): CreateClientInput => {
+/**
+ * Only the timing that fits the method is kept; the others are cleared. Used on the form's values
+ * before they are checked (a hidden field cannot block a submit) and on the parsed values sent.
+ */
+export const keepMatchingTiming = <
+  T extends Pick<CreateClientInput, 'accessMethod'> & Partial<Record<AccessTimingField, unknown>>,
+>(
+  values: T,
+): T => {
   const field = timingFor[values.accessMethod].field;
   return {
     ...values,

@@ -9,8 +9,10 @@ import { useContacts } from '../api/get-contacts';
 import { ConsentRecords } from './consent-records';
 import { ContactDialog } from './contact-dialog';
 import { ContactsTable } from './contacts-table';
+import { DeleteContactDialog } from './delete-contact-dialog';
+import { RenewSummariesDialog } from './renew-summaries-dialog';
 import { RecordConsentDialog } from './record-consent-dialog';
-import { WithdrawConsentDialog } from './withdraw-consent-dialog';
+import { type ConsentEnding, WithdrawConsentDialog } from './withdraw-consent-dialog';
 import { reportSentence } from '../lib/withdrawal-words';
 
 type ConsentPanelProps = {
@@ -26,20 +28,25 @@ export const ConsentPanel = ({ clientId, pseudonym, canEdit, announce }: Consent
   const consents = useConsents(clientId);
   const contacts = useContacts(clientId);
   const [recording, setRecording] = useState(false);
-  const [withdrawing, setWithdrawing] = useState<Consent | null>(null);
+  const [ending, setEnding] = useState<{ consent: Consent; ending: ConsentEnding } | null>(null);
   const [editingContact, setEditingContact] = useState<Contact | 'new' | null>(null);
-  // After a withdrawal the button that opened the dialog is gone: focus goes to the records' heading,
-  // once the dialog has closed, so keyboard users carry on from the list that shows the report.
+  const [deletingContact, setDeletingContact] = useState<Contact | null>(null);
+  const [renewingContact, setRenewingContact] = useState<Contact | null>(null);
+  // After recording, withdrawing or voiding, focus goes to the records' heading once the dialog has
+  // closed (after a withdrawal or a void the button that opened the dialog is gone), so keyboard users
+  // carry on from the list that shows the change.
+  // The same after deleting a contact or lifting a stop: focus goes to the contacts' heading.
   const recordsHeading = useRef<HTMLHeadingElement>(null);
-  const [focusRecords, setFocusRecords] = useState(false);
+  const contactsHeading = useRef<HTMLHeadingElement>(null);
+  const [focusAfter, setFocusAfter] = useState<'records' | 'contacts' | null>(null);
   useEffect(() => {
-    if (!focusRecords) return;
+    if (!focusAfter) return;
     const timer = window.setTimeout(() => {
-      recordsHeading.current?.focus();
-      setFocusRecords(false);
+      (focusAfter === 'records' ? recordsHeading : contactsHeading).current?.focus();
+      setFocusAfter(null);
     }, 0);
     return () => window.clearTimeout(timer);
-  }, [focusRecords]);
+  }, [focusAfter]);
 
   return (
     <div className="flex flex-col gap-10">
@@ -58,7 +65,9 @@ export const ConsentPanel = ({ clientId, pseudonym, canEdit, announce }: Consent
           Writing can be uploaded, and a model trained, only while a consent for model training is active.
           Withdrawing a consent deletes only what no other active consent still covers: the language samples
           and everything trained from them go once no consent covers training, and queued summary e-mails are
-          stopped once none covers summaries. The dialog lists what will go before you confirm.
+          stopped once none covers summaries. A record made in error (wrong client, date or scope) is voided
+          instead: it stays, struck through, and deletes the same. The dialog lists what will go before you
+          confirm.
         </p>
         {consents.isPending && <PageLoading />}
         {consents.isError && (
@@ -80,7 +89,8 @@ export const ConsentPanel = ({ clientId, pseudonym, canEdit, announce }: Consent
             clientId={clientId}
             consents={consents.data}
             canEdit={canEdit}
-            onWithdraw={setWithdrawing}
+            onWithdraw={(consent) => setEnding({ consent, ending: 'withdraw' })}
+            onVoid={(consent) => setEnding({ consent, ending: 'void' })}
             onChanged={(message) => announce('success', message)}
           />
         )}
@@ -88,7 +98,7 @@ export const ConsentPanel = ({ clientId, pseudonym, canEdit, announce }: Consent
 
       <section aria-labelledby="contacts-heading" className="flex flex-col gap-4">
         <div className="flex flex-wrap items-center justify-between gap-3">
-          <h3 id="contacts-heading" className="text-2xl font-bold">
+          <h3 id="contacts-heading" ref={contactsHeading} tabIndex={-1} className="text-2xl font-bold">
             Family contacts
           </h3>
           {canEdit && <Button onClick={() => setEditingContact('new')}>Add family contact</Button>}
@@ -107,7 +117,13 @@ export const ConsentPanel = ({ clientId, pseudonym, canEdit, announce }: Consent
           </EmptyState>
         )}
         {contacts.isSuccess && contacts.data.length > 0 && (
-          <ContactsTable contacts={contacts.data} canEdit={canEdit} onEdit={setEditingContact} />
+          <ContactsTable
+            contacts={contacts.data}
+            canEdit={canEdit}
+            onEdit={setEditingContact}
+            onDelete={setDeletingContact}
+            onRenew={setRenewingContact}
+          />
         )}
       </section>
 
@@ -120,20 +136,44 @@ export const ConsentPanel = ({ clientId, pseudonym, canEdit, announce }: Consent
             onClose={() => setRecording(false)}
             onRecorded={(consent) => {
               setRecording(false);
+              setFocusAfter('records');
               announce('success', `Consent given on ${consent.givenOn} is recorded.`);
             }}
           />
           <WithdrawConsentDialog
             clientId={clientId}
             pseudonym={pseudonym}
-            consent={withdrawing}
-            onClose={() => setWithdrawing(null)}
+            consent={ending?.consent ?? null}
+            ending={ending?.ending}
+            onClose={() => setEnding(null)}
             onWithdrawn={(consent) => {
-              setWithdrawing(null);
-              setFocusRecords(true);
+              setEnding(null);
+              setFocusAfter('records');
+              const report = consent.voidReport ?? consent.withdrawal;
+              const what = consent.status === 'voided' ? 'Consent record voided.' : 'Consent withdrawn.';
+              announce('success', `${what} ${report ? reportSentence(report) : ''}`.trim());
+            }}
+          />
+          <DeleteContactDialog
+            clientId={clientId}
+            contact={deletingContact}
+            onClose={() => setDeletingContact(null)}
+            onDeleted={(contact) => {
+              setDeletingContact(null);
+              setFocusAfter('contacts');
+              announce('success', `Deleted ${contact.name}. Summaries already sent keep their record.`);
+            }}
+          />
+          <RenewSummariesDialog
+            clientId={clientId}
+            contact={renewingContact}
+            onClose={() => setRenewingContact(null)}
+            onRenewed={(contact) => {
+              setRenewingContact(null);
+              setFocusAfter('contacts');
               announce(
                 'success',
-                `Consent withdrawn. ${consent.withdrawal ? reportSentence(consent.withdrawal) : ''}`.trim(),
+                `Summaries to ${contact.name} are on again (consent given on ${contact.summariesConsentGivenOn ?? ''}).`,
               );
             }}
           />

@@ -4,6 +4,7 @@ import { Alert } from '@/components/ui/alert';
 import { Badge, type BadgeTone } from '@/components/ui/badge';
 import { Button } from '@/components/ui/button';
 import { env } from '@/config/env';
+import { cn } from '@/lib/cn';
 import { formatDateTime } from '@/lib/format';
 import { consentDocumentPath, useUploadConsentDocument } from '../api/upload-consent-document';
 import { reportSentence } from '../lib/withdrawal-words';
@@ -12,6 +13,7 @@ const statusWords: Record<Consent['status'], { label: string; tone: BadgeTone }>
   active: { label: 'Active', tone: 'good' },
   expired: { label: 'Expired', tone: 'warn' },
   withdrawn: { label: 'Withdrawn', tone: 'bad' },
+  voided: { label: 'Void: recorded in error', tone: 'neutral' },
 };
 
 const DOCUMENT_MAX_BYTES = 10 * 1024 * 1024;
@@ -72,9 +74,10 @@ const DocumentUpload = ({ clientId, consent, onDone }: DocumentUploadProps) => {
 type ConsentRecordsProps = {
   clientId: string;
   consents: readonly Consent[];
-  /** Owning clinician: may attach forms and withdraw. */
+  /** Owning clinician: may attach forms, withdraw and void. */
   canEdit: boolean;
   onWithdraw: (consent: Consent) => void;
+  onVoid: (consent: Consent) => void;
   onChanged: (message: string) => void;
 };
 
@@ -84,6 +87,7 @@ export const ConsentRecords = ({
   consents,
   canEdit,
   onWithdraw,
+  onVoid,
   onChanged,
 }: ConsentRecordsProps) => {
   const sorted = [...consents].sort(
@@ -93,32 +97,48 @@ export const ConsentRecords = ({
     <ul className="flex flex-col gap-4">
       {sorted.map((consent) => {
         const status = statusWords[consent.status];
+        const voided = consent.status === 'voided';
+        // A voided record is struck through (and says so in words, for screen readers).
+        const struck = voided ? 'line-through decoration-2' : undefined;
         return (
           <li key={consent.id} className="rounded-xl border-2 border-thread bg-surface p-4 sm:p-5">
             <article aria-label={`Consent given on ${consent.givenOn}`} className="flex flex-col gap-3">
               <div className="flex flex-wrap items-center gap-3">
-                <h4 className="text-lg font-bold">Consent given on {consent.givenOn}</h4>
+                <h4 className={cn('text-lg font-bold', struck)}>Consent given on {consent.givenOn}</h4>
                 <Badge tone={status.tone}>{status.label}</Badge>
               </div>
-              <p>
-                Given by{' '}
-                {consent.givenBy === 'client'
-                  ? 'the client'
-                  : `${consent.representativeName ?? 'a representative'} (${consent.representativeRelationship ?? 'representative'})`}
-                ; {consent.expiresOn ? `expires on ${consent.expiresOn}` : 'no expiry date'}.
-              </p>
-              <div>
-                <p className="font-bold">Covers</p>
-                <ul className="ml-6 list-disc">
-                  {consent.scopes.map((scope) => (
-                    <li key={scope}>{consentScopeLabels[scope]}</li>
-                  ))}
-                </ul>
+              {voided && (
+                <Alert
+                  tone="info"
+                  title={`Voided on ${consent.voidedAt ? formatDateTime(consent.voidedAt) : ''} — ${consent.voidReason ?? ''}`}
+                >
+                  <p>
+                    Voided by {consent.voidedBy}. This record was made in error and never counted as consent.
+                  </p>
+                  {consent.voidReport && <p>{reportSentence(consent.voidReport)}</p>}
+                </Alert>
+              )}
+              <div className={cn('flex flex-col gap-3', struck)}>
+                <p>
+                  Given by{' '}
+                  {consent.givenBy === 'client'
+                    ? 'the client'
+                    : `${consent.representativeName ?? 'a representative'} (${consent.representativeRelationship ?? 'representative'})`}
+                  ; {consent.expiresOn ? `expires on ${consent.expiresOn}` : 'no expiry date'}.
+                </p>
+                <div>
+                  <p className="font-bold">Covers</p>
+                  <ul className="ml-6 list-disc">
+                    {consent.scopes.map((scope) => (
+                      <li key={scope}>{consentScopeLabels[scope]}</li>
+                    ))}
+                  </ul>
+                </div>
+                {consent.notes && <p className="whitespace-pre-line">{consent.notes}</p>}
+                <p className="text-ink-soft">
+                  Recorded by {consent.recordedBy} on {formatDateTime(consent.createdAt)}.
+                </p>
               </div>
-              {consent.notes && <p className="whitespace-pre-line">{consent.notes}</p>}
-              <p className="text-ink-soft">
-                Recorded by {consent.recordedBy} on {formatDateTime(consent.createdAt)}.
-              </p>
               {consent.document ? (
                 <p>
                   Scanned form:{' '}
@@ -143,17 +163,24 @@ export const ConsentRecords = ({
                   {consent.withdrawal && <p>{reportSentence(consent.withdrawal)}</p>}
                 </Alert>
               )}
-              {canEdit && consent.status !== 'withdrawn' && (
+              {canEdit && consent.status !== 'withdrawn' && !voided && (
                 <div className="flex flex-col gap-4 border-t border-thread pt-3">
                   <DocumentUpload clientId={clientId} consent={consent} onDone={onChanged} />
-                  <Button
-                    variant="danger"
-                    className="self-start"
-                    onClick={() => onWithdraw(consent)}
-                    aria-label={`Withdraw the consent given on ${consent.givenOn}`}
-                  >
-                    Withdraw consent
-                  </Button>
+                  <div className="flex flex-wrap gap-3">
+                    <Button
+                      variant="danger"
+                      onClick={() => onWithdraw(consent)}
+                      aria-label={`Withdraw the consent given on ${consent.givenOn}`}
+                    >
+                      Withdraw consent
+                    </Button>
+                    <Button
+                      onClick={() => onVoid(consent)}
+                      aria-label={`Void (recorded in error): consent given on ${consent.givenOn}`}
+                    >
+                      Void (recorded in error)
+                    </Button>
+                  </div>
                 </div>
               )}
             </article>

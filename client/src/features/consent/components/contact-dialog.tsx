@@ -4,6 +4,7 @@ import { Modal } from '@/components/ui/dialog';
 import { Form, FormServerError } from '@/components/ui/form';
 import { FormActions } from '@/components/ui/form-actions';
 import { TextField } from '@/components/ui/text-field';
+import { formatDateTime } from '@/lib/format';
 import { useCreateContact } from '../api/create-contact';
 import { useUpdateContact } from '../api/update-contact';
 
@@ -32,6 +33,7 @@ export const ContactDialog = ({ open, clientId, contact, onClose, onSaved }: Con
           email: contact?.email ?? '',
           consentToSummaries: contact?.consentToSummaries ?? false,
         }}
+        errorSummary
         onSubmit={async (input) => {
           const saved = contact
             ? await updateContact.mutateAsync({ clientId, contactId: contact.id, changes: input })
@@ -64,11 +66,37 @@ export const ContactDialog = ({ open, clientId, contact, onClose, onSaved }: Con
                 registration={register('email')}
                 error={formState.errors.email}
               />
-              <CheckboxField
-                label="Agreed to receive progress summaries"
-                hint="Only contacts who agreed, and whose client consented to summaries, are sent any."
-                registration={register('consentToSummaries')}
-              />
+              {contact?.unsubscribedAt ? (
+                // Read-only: the address used the stop link. Not registered, so the stored value is
+                // sent back unchanged; only the family's new consent (its own action) lifts the stop.
+                <div className="flex items-start gap-3">
+                  <input
+                    id="contact-summaries-stopped"
+                    type="checkbox"
+                    checked={false}
+                    disabled
+                    readOnly
+                    aria-describedby="contact-summaries-stopped-why"
+                    className="mt-1 size-6 shrink-0 accent-ink"
+                  />
+                  <div>
+                    <label htmlFor="contact-summaries-stopped" className="font-bold">
+                      Agreed to receive progress summaries
+                    </label>
+                    <p id="contact-summaries-stopped-why" className="text-ink-soft">
+                      Cannot be ticked: this address used the stop link of a summary e-mail on{' '}
+                      {formatDateTime(contact.unsubscribedAt)}. Use “Record the family’s new consent to
+                      summaries” in the contacts table when the family asks for them again.
+                    </p>
+                  </div>
+                </div>
+              ) : (
+                <CheckboxField
+                  label="Agreed to receive progress summaries"
+                  hint="Only contacts who agreed, and whose client consented to summaries, are sent any."
+                  registration={register('consentToSummaries')}
+                />
+              )}
               <FormActions
                 submitLabel={contact ? 'Save changes' : 'Add contact'}
                 busyLabel="Saving…"

@@ -15,6 +15,8 @@ type ContactsTableProps = {
   contacts: readonly Contact[];
   canEdit: boolean;
   onEdit: (contact: Contact) => void;
+  onDelete: (contact: Contact) => void;
+  onRenew: (contact: Contact) => void;
 };
 
 const summariesBadge = (contact: Contact) => {
@@ -23,7 +25,7 @@ const summariesBadge = (contact: Contact) => {
 };
 
 /** The client's family contacts and whether each receives summaries. */
-export const ContactsTable = ({ contacts, canEdit, onEdit }: ContactsTableProps) => (
+export const ContactsTable = ({ contacts, canEdit, onEdit, onDelete, onRenew }: ContactsTableProps) => (
   <Table caption={`Family contacts (${contacts.length})`}>
     <TableHead>
       <ColumnHeader>Name</ColumnHeader>
@@ -45,13 +47,26 @@ export const ContactsTable = ({ contacts, canEdit, onEdit }: ContactsTableProps)
             <TableCell label="Receives summaries">{summariesBadge(contact)}</TableCell>
             {canEdit && (
               <TableCell label="Change">
-                <Button
-                  className="self-start"
-                  onClick={() => onEdit(contact)}
-                  aria-label={`Edit ${contact.name}`}
-                >
-                  Edit
-                </Button>
+                <div className="flex flex-wrap gap-2">
+                  <Button onClick={() => onEdit(contact)} aria-label={`Edit ${contact.name}`}>
+                    Edit
+                  </Button>
+                  <Button
+                    variant="danger"
+                    onClick={() => onDelete(contact)}
+                    aria-label={`Delete ${contact.name}`}
+                  >
+                    Delete
+                  </Button>
+                  {contact.unsubscribedAt && (
+                    <Button
+                      onClick={() => onRenew(contact)}
+                      aria-label={`Record the family’s new consent to summaries for ${contact.name}`}
+                    >
+                      Record the family’s new consent to summaries
+                    </Button>
+                  )}
+                </div>
               </TableCell>
             )}
           </TableRow>

@@ -5,7 +5,6 @@ import { FormActions } from '@/components/ui/form-actions';
 import { FieldError } from '@/components/ui/field-message';
 import { TextAreaField } from '@/components/ui/text-area-field';
 import { TextField } from '@/components/ui/text-field';
-import { todayIso } from '@/lib/format';
 import { useCreateConsent } from '../api/create-consent';
 
 // An empty date field means "no date", which the schema takes as null.
@@ -37,15 +36,17 @@ export const RecordConsentDialog = ({
     >
       <Form
         schema={createConsentSchema}
+        // Nothing is chosen for the clinician: who gave consent, what it covers and the date are read
+        // from the signed form, so an empty submit is refused rather than recording a guess.
         defaultValues={{
-          givenBy: 'client',
           representativeName: '',
           representativeRelationship: '',
-          scopes: ['training'],
-          givenOn: todayIso(),
+          scopes: [],
+          givenOn: '',
           expiresOn: null,
           notes: '',
         }}
+        errorSummary
         onSubmit={async (input) => {
           const consent = await createConsent.mutateAsync({ clientId, input });
           onRecorded(consent);
@@ -59,8 +60,14 @@ export const RecordConsentDialog = ({
             <>
               <FormServerError message={errors.root?.server?.message} />
               <div className="flex flex-col gap-5">
-                <fieldset className="flex flex-col gap-2">
+                <fieldset
+                  className="flex flex-col gap-2"
+                  aria-describedby={errors.givenBy?.message ? 'consent-given-by-error' : undefined}
+                >
                   <legend className="mb-1 font-bold">Who gave consent</legend>
+                  {errors.givenBy?.message && (
+                    <FieldError id="consent-given-by-error">{errors.givenBy.message}</FieldError>
+                  )}
                   <label className="flex min-h-11 items-center gap-3">
                     <input
                       type="radio"
@@ -120,6 +127,7 @@ export const RecordConsentDialog = ({
                 <TextField
                   label="Date consent was given"
                   type="date"
+                  hint="As written on the signed form; not after today."
                   registration={register('givenOn')}
                   error={errors.givenOn}
                 />
