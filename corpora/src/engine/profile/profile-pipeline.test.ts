@@ -222,6 +222,34 @@ describe('trainAndEvaluateProfile on an invented corpus', () => {
     expect(r.wpmWith).toBeCloseTo(again.wpmWith, 5);
   });
 
+  it('estimates a scanning user’s rate from the steps of the test keyboard’s default key order', async () => {
+    // Same text, a switch user: each selection costs the typewriter order's row–column steps times the
+    // scan interval (docs/references.md §3: r + c steps per key), the order the test keyboard opens with.
+    const switchSettings: ProfileSettings = {
+      ...settings,
+      access: { method: 'switch', scanIntervalMs: 800 },
+    };
+    const scanned = await trainAndEvaluateProfile({
+      documents: documents.slice(0, 6),
+      settings: switchSettings,
+      base,
+      baseWords,
+      folds: 3,
+    });
+    const steps = scanned.report.scanStepsByLayout?.typewriter;
+    expect(steps).toBeGreaterThan(0);
+    expect(scanned.report.rates.assumptions.scanStepsPerSelection).toBe(steps);
+    // Not the fixed 6×7 grid of the older estimate: the typewriter order costs more steps per key.
+    expect(steps).not.toBeCloseTo(scanned.report.scanStepsPerChar.rowColumn, 2);
+    const again = estimateRates(
+      { kind: 'scanning', scanIntervalMs: 800 },
+      scanned.report.kspc['5'],
+      steps!,
+      0,
+    );
+    expect(scanned.report.rates.wpmWithout).toBeCloseTo(again.wpmWithout, 2);
+  });
+
   it('reports the learning curve at 10/25/50/100% of the training text of fold 1', () => {
     const c = report.learningCurve;
     expect(c.fold).toBe(0);

@@ -508,6 +508,8 @@ export async function trainAndEvaluateProfile(
     };
   };
 
+  const scanSteps = byLayout(folds);
+
   let baseOnly: BaseOnlyReport | null = null;
   if (base) {
     const baseKeys = keysPerSlot((f) => need(f.baseKs));
@@ -563,9 +565,11 @@ export async function trainAndEvaluateProfile(
           `${heldOutChars} held-out characters.`
         : `Keystrokes were simulated on all ${ksChars} held-out characters.`,
     scanStepsPerChar,
-    scanStepsByLayout: byLayout(folds),
+    scanStepsByLayout: scanSteps,
+    // A scanning user's estimate counts the steps of the test keyboard's default key order, the
+    // typewriter order, so the estimate and a trial on the test keyboard describe the same keys.
     rates: roundedRates(
-      profileRates(settings.access, slots, round(kspc[slots]), scanStepsPerChar.rowColumn, listReadMs),
+      profileRates(settings.access, slots, round(kspc[slots]), scanSteps.typewriter, listReadMs),
     ),
     learningCurve: {
       fold: 0,
