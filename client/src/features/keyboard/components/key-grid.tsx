@@ -1,11 +1,13 @@
 import { memo, type KeyboardEvent, useRef, useState } from 'react';
 import type { KeySpacing } from '@keyloom/shared';
 import type { KeyDef } from '../logic/layouts';
+import { useElementWidth } from '../hooks/use-element-width';
 import { DwellFill } from './dwell-fill';
 import {
   chosenStyle,
   keySpacingPx,
   rowColumns,
+  wrappedColumns,
   targetClasses,
   targetSize,
   tintStyle,
@@ -75,6 +77,9 @@ export const KeyGrid = memo(function KeyGrid({
   keySpacing = 'small',
 }: KeyGridProps) {
   const gap = keySpacingPx[keySpacing];
+  // A row is the group's width less its own padding (p-1, 4 px a side).
+  const [widthRef, groupWidth] = useElementWidth<HTMLDivElement>();
+  const rowWidth = groupWidth === null ? null : groupWidth - 8;
   const [focus, setFocus] = useState<[number, number]>([0, 0]);
   const refs = useRef(new Map<string, HTMLButtonElement>());
   // Keep the roving position inside the grid when the layout changes.
@@ -107,6 +112,7 @@ export const KeyGrid = memo(function KeyGrid({
 
   return (
     <div
+      ref={widthRef}
       role="group"
       aria-label="Keys"
       data-key-spacing={keySpacing}
@@ -116,6 +122,9 @@ export const KeyGrid = memo(function KeyGrid({
     >
       {rows.map((keys, r) => {
         const rowScanned = scan?.level === 'rows' && scan.row === r;
+        const units = keys.reduce((sum, k) => sum + span(k), 0);
+        // A wide key never spans more columns than a wrapped row has.
+        const columns = largeTargets && rowWidth !== null ? wrappedColumns(units, rowWidth, gap) : units;
         return (
           <div
             key={r}
@@ -127,11 +136,7 @@ export const KeyGrid = memo(function KeyGrid({
             style={{
               gap: `${gap}px`,
               // With large targets a narrow screen wraps the row (the same row for arrows and the scanner).
-              gridTemplateColumns: rowColumns(
-                keys.reduce((sum, k) => sum + span(k), 0),
-                largeTargets,
-                gap,
-              ),
+              gridTemplateColumns: rowColumns(units, largeTargets, gap, rowWidth),
             }}
           >
             {keys.map((key, c) => {
@@ -159,11 +164,10 @@ export const KeyGrid = memo(function KeyGrid({
                   data-chosen={chosen ? 'on' : undefined}
                   className={cn(
                     targetClasses({ highContrast, largeTargets, scanned, strongCue, chosen, reduceMotion }),
-                    span(key) === 3 && 'col-span-3',
-                    span(key) === 2 && 'col-span-2',
                     key.disabled && 'opacity-50',
                   )}
                   style={{
+                    gridColumn: `span ${Math.min(span(key), columns)} / span ${Math.min(span(key), columns)}`,
                     ...tintStyle(p, strongCue, highContrast, scanned),
                     ...targetSize(largeTargets),
                     ...(chosen ? chosenStyle(highContrast) : {}),

@@ -3,6 +3,7 @@ import { useEffect, useLayoutEffect, useRef, useState } from 'react';
 import { measureRowUpdate } from '../engine/latency-marks';
 import { DwellFill } from './dwell-fill';
 import type { DwellView } from './key-grid';
+import { useElementWidth } from '../hooks/use-element-width';
 import { chosenStyle, keySpacingPx, rowColumns, targetClasses, targetSize } from '../logic/keyboard-styles';
 import { cn } from '@/lib/cn';
 import { ANNOUNCE_DELAY_MS, describeRow, slotTargetId } from '../logic/trial-figures';
@@ -70,9 +71,12 @@ export const SuggestionRow = ({
   }, [summary]);
 
   const rowScanned = scan?.level === 'rows';
+  // The row's content width (inside its padding), for wrapping large targets evenly.
+  const [widthRef, rowWidth] = useElementWidth<HTMLDivElement>();
   return (
     <div className="flex flex-col gap-1">
       <div
+        ref={widthRef}
         role="group"
         aria-label="Suggestions"
         data-seq={seq ?? undefined}
@@ -85,7 +89,7 @@ export const SuggestionRow = ({
         )}
         style={{
           gap: `${gap}px`,
-          gridTemplateColumns: rowColumns(Math.min(slots, 5), largeTargets, gap),
+          gridTemplateColumns: rowColumns(Math.min(slots, 5), largeTargets, gap, rowWidth),
           fontSize: `min(${(largeTargets ? 1.5 : 1.2) * textScale}rem, 4.5vw)`,
         }}
       >

@@ -17,10 +17,32 @@ export const keySpacingPx: Record<KeySpacing, number> = { small: 8, medium: 16, 
  * LARGE_TARGET_PX: as many columns as fit, at most `columns`, so a narrow screen wraps the row onto
  * more lines, keys in the same order.
  */
-export const rowColumns = (columns: number, largeTargets: boolean, gapPx: number): string =>
-  largeTargets
-    ? `repeat(auto-fill, minmax(max(${LARGE_TARGET_PX}px, calc((100% - ${(columns - 1) * gapPx}px) / ${columns})), 1fr))`
-    : `repeat(${columns}, minmax(0, 1fr))`;
+export const rowColumns = (
+  columns: number,
+  largeTargets: boolean,
+  gapPx: number,
+  widthPx: number | null = null,
+): string =>
+  !largeTargets
+    ? `repeat(${columns}, minmax(0, 1fr))`
+    : widthPx !== null && widthPx > 0
+      ? `repeat(${wrappedColumns(columns, widthPx, gapPx)}, minmax(0, 1fr))`
+      : `repeat(auto-fill, minmax(max(${LARGE_TARGET_PX}px, calc((100% - ${(columns - 1) * gapPx}px) / ${columns})), 1fr))`;
+
+/**
+ * Columns of a wrapped row with large targets, when the row's width is known: as many as fit at
+ * LARGE_TARGET_PX, but spread evenly over the lines the row needs, so 9 keys where 4 fit make three
+ * lines of 3 rather than 4, 4 and a lone key. At least 1; never more than `columns`.
+ * @param columns the row's width in key units
+ * @param widthPx the width the row may fill, CSS px
+ * @param gapPx the gap between keys, CSS px
+ */
+export const wrappedColumns = (columns: number, widthPx: number, gapPx: number): number => {
+  const fit = Math.max(1, Math.floor((widthPx + gapPx) / (LARGE_TARGET_PX + gapPx)));
+  if (columns <= fit) return columns;
+  const lines = Math.ceil(columns / fit);
+  return Math.ceil(columns / lines);
+};
 
 /** The least size of a target: 64×64 px with large targets, else none beyond its classes. */
 export const targetSize = (largeTargets: boolean): { minWidth?: string; minHeight?: string } =>
