@@ -97,6 +97,13 @@ const openKeyboard = async (role: Role, query = '', routes: MockRoutes = {}, aut
 };
 
 const output = () => screen.getByRole('textbox', { name: 'Text typed so far' });
+const pauseDialog = () => screen.getByRole('dialog', { name: 'Trial paused' });
+
+/** Pauses the running trial with Escape and finishes it from the pause dialog. */
+const finishFromPause = async (user: { keyboard: (keys: string) => Promise<void>; click: (e: Element) => Promise<void> }) => {
+  await user.keyboard('{Escape}');
+  await user.click(within(pauseDialog()).getByRole('button', { name: 'Finish trial' }));
+};
 const key = (name: string) =>
   within(screen.getByRole('group', { name: 'Keys' })).getByRole('button', { name });
 
@@ -193,9 +200,12 @@ describe('Test keyboard page', () => {
     await user.click(key('e'));
     await user.click(await screen.findByRole('button', { name: 'Suggestion 1: tea' }));
     expect(output().textContent).toBe('tea ');
-    await user.click(screen.getByRole('button', { name: 'Finish trial' }));
+    await finishFromPause(user);
 
     expect(await screen.findByText('The trial is saved.')).toBeInTheDocument();
+    // The view has closed: focus is on the results' heading.
+    expect(screen.getByRole('heading', { name: 'This trial' })).toHaveFocus();
+    expect(screen.getByText('Paused time is left out of words per minute.')).toBeInTheDocument();
     const posted = createTrialSchema.parse(api.requestsTo(`POST ${trialsUrl(VERSION_1_ID)}`)[0]?.body);
     expect(replayTrial(posted.events)).toBe('tea ');
     expect(posted).toMatchObject({ phraseId: 'kl-11', targetPhrase: 'the soup is too hot', text: 'tea ' });
@@ -261,7 +271,7 @@ describe('Test keyboard page', () => {
     expect(output().textContent).toBe('I go 4!\n');
     // After a line break the capital comes again.
     expect(key('Y')).toBeInTheDocument();
-    await user.click(screen.getByRole('button', { name: 'Finish trial' }));
+    await finishFromPause(user);
 
     expect(await screen.findByText('The trial is saved.')).toBeInTheDocument();
     const posted = createTrialSchema.parse(api.requestsTo(`POST ${trialsUrl(VERSION_1_ID)}`)[0]?.body);
@@ -310,15 +320,17 @@ describe('Test keyboard page', () => {
     expect(output().textContent).toBe('Hi, go ');
     await user.keyboard('{Backspace}{Enter}!');
     expect(output().textContent).toBe('Hi, go\n!');
-    // The note field keeps its keys; Tab still moves focus.
+    // Tab still moves focus.
+    output().focus();
+    await user.keyboard('{Tab}');
+    expect(output()).not.toHaveFocus();
+    // The note (in the pause dialog) keeps its keys.
+    await user.keyboard('{Escape}');
     const note = screen.getByLabelText('Note about this trial (optional)');
     await user.type(note, 'ok 1');
     expect(note).toHaveValue('ok 1');
     expect(output().textContent).toBe('Hi, go\n!');
-    output().focus();
-    await user.keyboard('{Tab}');
-    expect(output()).not.toHaveFocus();
-    await user.click(screen.getByRole('button', { name: 'Finish trial' }));
+    await user.click(within(pauseDialog()).getByRole('button', { name: 'Finish trial' }));
 
     expect(await screen.findByText('The trial is saved.')).toBeInTheDocument();
     const posted = createTrialSchema.parse(api.requestsTo(`POST ${trialsUrl(VERSION_1_ID)}`)[0]?.body);
@@ -335,6 +347,7 @@ describe('Test keyboard page', () => {
       'backspace',
       'newline',
       'punctuation',
+      'pause', // finished from the pause dialog
     ]);
     expect(posted.events.find((e) => e.type === 'suggestion')).toMatchObject({ value: 'go', slot: 1 });
   }, 30_000);
@@ -384,12 +397,12 @@ describe('Test keyboard page', () => {
     await user.selectOptions(pattern, 'step-two-switch');
     expect(pattern).toHaveAccessibleDescription('Space moves one step; Enter chooses.');
     await user.selectOptions(screen.getByLabelText('Suggestions scanned'), 'last');
-    await user.click(screen.getByRole('button', { name: 'Start trial' }));
     expect(
       screen.getByText(
         'Two switches: Space moves the highlight one step, Enter chooses what is highlighted.',
       ),
     ).toBeInTheDocument();
+    await user.click(screen.getByRole('button', { name: 'Start trial' }));
     const suggestions = screen.getByRole('group', { name: 'Suggestions' });
     const keyRowsOnScreen = () => [...screen.getByRole('group', { name: 'Keys' }).children];
     const down = (k: string) =>
@@ -409,7 +422,14 @@ describe('Test keyboard page', () => {
     expect(key('s')).toHaveAttribute('data-scanned', 'on');
     down('Enter');
     expect(output().textContent).toBe('s');
-    await user.click(screen.getByRole('button', { name: 'Finish trial' }));
+    // Escape pauses; in the pause dialog the switches scan its buttons: Space moves to Finish, Enter takes it.
+    down('Escape');
+    const choice = (name: string) => within(pauseDialog()).getByRole('button', { name });
+    expect(choice('Resume trial')).toHaveAttribute('data-scanned', 'on');
+    down(' ');
+    expect(choice('Finish trial')).toHaveAttribute('data-scanned', 'on');
+    expect(choice('Resume trial')).not.toHaveAttribute('data-scanned');
+    down('Enter');
     expect(await screen.findByText('The trial is saved.')).toBeInTheDocument();
     const posted = createTrialSchema.parse(api.requestsTo(`POST ${trialsUrl(VERSION_1_ID)}`)[0]?.body);
     expect(posted.settings).toMatchObject({
@@ -498,7 +518,7 @@ describe('Test keyboard page', () => {
     await user.click(screen.getByRole('button', { name: 'Start trial' }));
     await user.click(key('g'));
     await user.click(key('o'));
-    await user.click(screen.getByRole('button', { name: 'Finish trial' }));
+    await finishFromPause(user);
     expect(
       await screen.findByText(
         'Waiting for the network — the trial will upload when it is back (1 trial waiting on this device).',

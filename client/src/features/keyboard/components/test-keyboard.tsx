@@ -8,18 +8,18 @@ import {
   type TrialMeasures,
   type TrialShiftState,
 } from '@keyloom/shared';
-import { type ReactNode, useCallback, useEffect, useId, useMemo, useRef, useState } from 'react';
+import { type ReactNode, useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import { Button } from '@/components/ui/button';
-import { fieldClasses } from '@/components/ui/field-classes';
 import { cn } from '@/lib/cn';
 import { markKeyPress } from '../engine/latency-marks';
 import { useKeyboardEngine } from '../engine/use-keyboard-engine';
 import { useDwell } from '../hooks/use-dwell';
 import { usePendingTrials } from '../hooks/use-pending-trials';
-import { useScanner } from '../hooks/use-scanner';
+import { LONG_PRESS_MS, useScanner } from '../hooks/use-scanner';
 import { type ScanPattern, scanGroups } from '../logic/scanner';
 import { useTrialSession } from '../hooks/use-trial-session';
-import { atSentenceStart, hasCase, type KeyDef, keyRows, nextShift } from '../logic/layouts';
+import { useChoiceScan } from '../hooks/use-choice-scan';
+import { atSentenceStart, hasCase, type KeyDef, keyRows, nextShift, pauseKey } from '../logic/layouts';
 import { physicalKeyAction } from '../logic/physical-keys';
 import { KeyGrid } from './key-grid';
 import {
@@ -35,6 +35,8 @@ import { SuggestionRow } from './suggestion-row';
 import { slotTargetId, usesKeysTheSimulationLacks } from '../logic/trial-figures';
 import { TrialOutput } from './trial-output';
 import { TrialResults, type UploadState } from './trial-results';
+import { TrialView } from './trial-view';
+import { type PauseChoiceId, pauseChoices, TrialPauseDialog } from './trial-pause-dialog';
 import { useOsReducedMotion } from '../hooks/use-os-reduced-motion';
 
 /** The version's simulated figures at a slot count (from its report), for comparison with a trial. */
@@ -119,7 +121,11 @@ export const TestKeyboard = ({
   const [note, setNote] = useState('');
   const [finished, setFinished] = useState<Finished | null>(null);
   const outputRef = useRef<HTMLDivElement>(null);
-  const noteId = useId();
+  const startRef = useRef<HTMLButtonElement>(null);
+  // Where focus goes once the trial view has closed (the page behind is shown again first).
+  const [focusAfter, setFocusAfter] = useState<'results' | 'start' | null>(null);
+  // True from a pause until the resume: the truth for presses, dwells and scan ticks in the same tick.
+  const pausedRef = useRef(false);
 
   // The version decides the slot count (its simulated figures are at that count).
   const slots = versionSlots;
@@ -133,10 +139,12 @@ export const TestKeyboard = ({
   const [layer, setLayer] = useState<TrialKeyLayer>('letters');
   const capital = shift !== 'off' || (settings.autoCapital && atSentenceStart(session.text));
   const canUndoPick = session.canUndoPick;
-  const rows = useMemo(
-    () => keyRows(settings.layout, { shift, layer, capital, canUndoPick }),
-    [settings.layout, shift, layer, capital, canUndoPick],
-  );
+  const trialRunning = session.running;
+  // In the trial view the Pause key ends the function row (the last row), so every mode reaches it.
+  const rows = useMemo(() => {
+    const all = keyRows(settings.layout, { shift, layer, capital, canUndoPick });
+    return trialRunning ? [...all.slice(0, -1), [...(all.at(-1) ?? []), pauseKey]] : all;
+  }, [settings.layout, shift, layer, capital, canUndoPick, trialRunning]);
   const target = phrases.find((phrase) => phrase.id === phraseId)?.text ?? null;
 
   // ---- asking the engine ------------------------------------------------------------------
@@ -190,15 +198,31 @@ export const TestKeyboard = ({
     return map;
   }, [settings.tintKeys, answer]);
 
+  // ---- pausing -----------------------------------------------------------------------------
+  const { pause: sessionPause } = session;
+  /** Pauses a running trial (Escape, the Pause key, a long switch press, leaving full screen). */
+  const pauseTrial = useCallback(() => {
+    if (!trialRunning || pausedRef.current) return;
+    pausedRef.current = true;
+    sessionPause();
+  }, [trialRunning, sessionPause]);
+
   // ---- selection in any mode --------------------------------------------------------------
   const pick = useCallback(
-    (slot: number, word: string) => select({ type: 'suggestion', value: word, slot }),
+    (slot: number, word: string) => {
+      if (pausedRef.current) return;
+      select({ type: 'suggestion', value: word, slot });
+    },
     [select],
   );
   const { autoCapital } = settings;
   const press = useCallback(
     (key: KeyDef) => {
-      if (key.disabled) return;
+      if (key.disabled || pausedRef.current) return;
+      if (key.kind === 'pause') {
+        pauseTrial();
+        return;
+      }
       if (key.kind === 'shift') {
         const next = nextShift(shiftRef.current);
         setShift(next);
@@ -215,8 +239,11 @@ export const TestKeyboard = ({
       }
       select(stepOf(key));
     },
-    [select, autoCapital, setShift],
+    [select, autoCapital, setShift, pauseTrial],
   );
+
+  // The pause dialog's choices (set below, once the trial's handlers exist).
+  const choosePauseRef = useRef<(id: PauseChoiceId) => void>(() => undefined);
 
   // Scanning and dwell call back later: read the newest row and keys through refs.
   const latest = useRef({ words, rows, pick, press });
@@ -245,12 +272,20 @@ export const TestKeyboard = ({
       if (key) now.press(key);
     }, []),
     onSwitch: session.logSwitch,
+    // In a trial: paused, the highlight waits where it is; Escape and a long press pause.
+    paused: session.paused,
+    onEscape: trialRunning ? pauseTrial : undefined,
+    onLongPress: trialRunning ? pauseTrial : undefined,
   });
 
   const dwell = useDwell({
     enabled: settings.selectionMode === 'dwell',
     dwellMs: settings.dwellMs ?? 800,
     onActivate: useCallback((id: string) => {
+      if (pauseChoices.some((choice) => choice.id === id)) {
+        choosePauseRef.current(id as PauseChoiceId);
+        return;
+      }
       const now = latest.current;
       const slot = now.words.findIndex((_, index) => slotTargetId(index) === id);
       if (slot >= 0) {
@@ -286,6 +321,19 @@ export const TestKeyboard = ({
     return () => document.removeEventListener('keydown', onKeyDown);
   }, [physical, numberKeysPick]);
 
+  // ---- Escape pauses a running trial in every mode (scanning: through the scanner too) ------
+  const pausable = trialRunning && !session.paused;
+  useEffect(() => {
+    if (!pausable) return;
+    const onKeyDown = (event: KeyboardEvent) => {
+      if (event.key !== 'Escape') return;
+      event.preventDefault();
+      pauseTrial();
+    };
+    document.addEventListener('keydown', onKeyDown);
+    return () => document.removeEventListener('keydown', onKeyDown);
+  }, [pausable, pauseTrial]);
+
   const scanState = scanner.running ? scanner.state : null;
   // Group–row–key: the rows of the highlighted group (row 0 is the suggestion row).
   const scanGroupRows =
@@ -309,14 +357,27 @@ export const TestKeyboard = ({
     engine.resetLearning();
     setShift('off');
     setLayer('letters');
+    pausedRef.current = false;
+    setFocusAfter(null);
     session.start();
-    // The Start button gives way to Finish and Discard: focus goes to the message window, where
-    // the trial's text appears and from which Tab reaches the suggestions and the keys.
-    if (settings.selectionMode === 'scanning') startScanning();
-    else outputRef.current?.focus();
+    // The trial view opens: focus goes to its message window, where the trial's text appears and
+    // from which Tab reaches the suggestions and the keys (scanning starts from there too).
+    if (settings.selectionMode === 'scanning') scanner.start();
+  };
+
+  // The view has opened: focus its message window (the element exists only now).
+  useEffect(() => {
+    if (trialRunning) outputRef.current?.focus();
+  }, [trialRunning]);
+
+  const resumeTrial = () => {
+    pausedRef.current = false;
+    session.resume();
+    outputRef.current?.focus();
   };
 
   const finishTrial = () => {
+    pausedRef.current = false;
     scanner.stop();
     const input = session.finish({
       phraseId,
@@ -333,6 +394,7 @@ export const TestKeyboard = ({
       extraKeys: usesKeysTheSimulationLacks(input.events),
     });
     setNote('');
+    setFocusAfter('results');
     pending
       .submit(versionId, input)
       .then((result) =>
@@ -351,13 +413,99 @@ export const TestKeyboard = ({
   };
 
   const discardTrial = () => {
+    pausedRef.current = false;
     scanner.stop();
     session.clear();
     setNote('');
+    setFocusAfter('start');
   };
+
+  choosePauseRef.current = (id: PauseChoiceId) => {
+    if (!session.paused) return;
+    if (id === 'pause-resume') resumeTrial();
+    else if (id === 'pause-finish') {
+      if (selections > 0) finishTrial();
+    } else discardTrial();
+  };
+
+  // Paused in scanning: the scanner goes over the dialog's choices (a switch user can take each).
+  const pauseScanned = useChoiceScan({
+    enabled: session.paused && settings.selectionMode === 'scanning',
+    pattern: scanPattern,
+    intervalMs: settings.scanIntervalMs ?? 1000,
+    acceptMs: settings.scanAcceptMs ?? DEFAULT_SCAN_ACCEPT_MS,
+    available: pauseChoices.map((choice) => choice.id !== 'pause-finish' || selections > 0),
+    onChoose: useCallback((index: number) => {
+      const choice = pauseChoices[index];
+      if (choice) choosePauseRef.current(choice.id);
+    }, []),
+  });
+
+  // Once the view has closed and the page is back: the results' heading, or Start after a discard.
+  useEffect(() => {
+    if (trialRunning || focusAfter === null) return;
+    if (focusAfter === 'results') document.getElementById('trial-results-heading')?.focus();
+    else startRef.current?.focus();
+    setFocusAfter(null);
+  }, [trialRunning, focusAfter]);
 
   const hc = settings.highContrast;
   const figures = finished ? simulated(finished.slots) : null;
+  const dwellView = settings.selectionMode === 'dwell' ? dwell : null;
+
+  // The message window, the suggestion row and the keys: on the page to try the keyboard out, in
+  // the trial view while a trial runs.
+  const scanGroupAttr = scanGroupRows.filter((row) => row > 0).join(' ') || undefined;
+  const output = (
+    <TrialOutput
+      ref={outputRef}
+      text={session.text}
+      target={target}
+      textScale={settings.textScale}
+      highContrast={hc}
+      onClear={session.clear}
+      clearDisabled={session.running}
+    />
+  );
+  const suggestionRow = (
+    <SuggestionRow
+      slots={slots}
+      words={words}
+      seq={answer?.seq ?? null}
+      answersText={answer?.text ?? null}
+      engineMs={answer?.engineMs ?? null}
+      onPick={pick}
+      highContrast={hc}
+      largeTargets={settings.largeTargets}
+      reduceMotion={reduceMotion}
+      textScale={settings.textScale}
+      scan={
+        scanGroupRows.includes(0)
+          ? { level: 'rows', item: 0 }
+          : scanShown && scanShown.row === 0
+            ? { level: scanShown.level as 'rows' | 'items', item: scanShown.item }
+            : null
+      }
+      dwell={dwellView}
+    />
+  );
+  const keyGrid = (
+    <KeyGrid
+      rows={rows}
+      onSelect={press}
+      highContrast={hc}
+      largeTargets={settings.largeTargets}
+      reduceMotion={reduceMotion}
+      textScale={settings.textScale}
+      letterProbabilities={letterProbabilities}
+      scan={
+        scanShown && scanShown.row > 0
+          ? { level: scanShown.level as 'rows' | 'items', row: scanShown.row - 1, item: scanShown.item }
+          : null
+      }
+      dwell={dwellView}
+    />
+  );
 
   return (
     <div className="flex flex-col gap-8">
@@ -377,6 +525,11 @@ export const TestKeyboard = ({
           Each trial starts from the version as trained and learns every word finished in it, as the client’s
           device does and as the version’s simulated figures assume.
         </p>
+        <p className="text-ink-soft">
+          Start trial opens the keyboard on its own, filling the screen. Escape, the Pause key or (scanning)
+          holding the switch for {LONG_PRESS_MS / 1000} seconds pauses it; from the pause you resume, finish or
+          discard the trial and can add a note.
+        </p>
         <div className="grid gap-4 md:grid-cols-2">
           <PhrasePicker
             phrases={phrases}
@@ -384,43 +537,21 @@ export const TestKeyboard = ({
             onChange={setPhraseId}
             disabled={session.running}
           />
-          {session.running && (
-            <div className="flex flex-col gap-1">
-              <label htmlFor={noteId} className="font-bold">
-                Note about this trial (optional)
-              </label>
-              <input
-                id={noteId}
-                className={fieldClasses(false)}
-                value={note}
-                maxLength={2000}
-                onChange={(event) => setNote(event.target.value)}
-              />
-            </div>
-          )}
         </div>
         {phraseExtra}
         <div role="group" aria-label="Trial" className="flex flex-wrap items-center gap-3">
-          {!session.running ? (
-            <Button
-              variant="primary"
-              onClick={startTrial}
-              disabled={engine.status !== 'ready' || !canLogTrials}
-            >
-              Start trial
-            </Button>
-          ) : (
-            <>
-              <Button variant="primary" onClick={finishTrial} disabled={selections === 0}>
-                Finish trial
-              </Button>
-              <Button onClick={discardTrial}>Discard</Button>
-            </>
-          )}
+          <Button
+            ref={startRef}
+            variant="primary"
+            onClick={startTrial}
+            disabled={engine.status !== 'ready' || !canLogTrials || session.running}
+          >
+            Start trial
+          </Button>
           <p className="text-ink-soft" data-trial-state={session.running ? 'running' : 'stopped'}>
             {session.running
               ? `Trial running: ${selections} ${selections === 1 ? 'selection' : 'selections'} so far.`
-              : 'No trial running: you can type to get a feel for it; nothing is logged.'}
+              : 'No trial running: you can type below to get a feel for it; nothing is logged.'}
           </p>
           {pending.pending > 0 && (
             <p className="font-bold" data-pending-trials={pending.pending}>
@@ -452,77 +583,64 @@ export const TestKeyboard = ({
         />
       )}
 
-      <section
-        aria-labelledby="keyboard-heading"
-        // Group–row–key: the highlighted group's key rows (1-based), outlined by index.css.
-        data-scan-group={scanGroupRows.filter((row) => row > 0).join(' ') || undefined}
-        className={cn(
-          'flex flex-col gap-4 rounded-xl border-2 p-3 sm:p-5',
-          hc ? 'on-dark border-white bg-black text-white' : 'border-thread bg-paper-deep',
-        )}
-      >
-        <h2 id="keyboard-heading" className="text-2xl font-bold">
-          Keyboard
-        </h2>
-        <TrialOutput
-          ref={outputRef}
-          text={session.text}
-          target={target}
-          textScale={settings.textScale}
+      {session.running ? (
+        <TrialView
+          paused={session.paused}
+          onLeaveFullscreen={pauseTrial}
           highContrast={hc}
-          onClear={session.clear}
-          clearDisabled={session.running}
-        />
-        {settings.selectionMode === 'scanning' && (
-          <div className="flex flex-wrap items-center gap-3">
-            {scanner.running ? (
-              <Button onClick={scanner.stop}>Stop scanning (Escape)</Button>
-            ) : (
-              <Button variant="primary" onClick={startScanning} disabled={engine.status !== 'ready'}>
-                Start scanning
-              </Button>
-            )}
-            <p className={hc ? 'text-white' : 'text-ink-soft'} data-scan-help={scanPattern}>
-              {scanHelp[scanPattern]}
-            </p>
+          pauseDialog={
+            <TrialPauseDialog
+              selections={selections}
+              canFinish={selections > 0}
+              onChoose={(id) => choosePauseRef.current(id)}
+              note={note}
+              onNoteChange={setNote}
+              scanned={pauseScanned}
+              dwell={dwellView}
+              highContrast={hc}
+              reduceMotion={reduceMotion}
+            />
+          }
+        >
+          {output}
+          {suggestionRow}
+          {/* The key rows share the height left (index.css, data-trial-keys). */}
+          <div data-trial-keys data-scan-group={scanGroupAttr} className="min-h-0 flex-1">
+            {keyGrid}
           </div>
-        )}
-        <SuggestionRow
-          slots={slots}
-          words={words}
-          seq={answer?.seq ?? null}
-          answersText={answer?.text ?? null}
-          engineMs={answer?.engineMs ?? null}
-          onPick={pick}
-          highContrast={hc}
-          largeTargets={settings.largeTargets}
-          reduceMotion={reduceMotion}
-          textScale={settings.textScale}
-          scan={
-            scanGroupRows.includes(0)
-              ? { level: 'rows', item: 0 }
-              : scanShown && scanShown.row === 0
-                ? { level: scanShown.level as 'rows' | 'items', item: scanShown.item }
-                : null
-          }
-          dwell={settings.selectionMode === 'dwell' ? dwell : null}
-        />
-        <KeyGrid
-          rows={rows}
-          onSelect={press}
-          highContrast={hc}
-          largeTargets={settings.largeTargets}
-          reduceMotion={reduceMotion}
-          textScale={settings.textScale}
-          letterProbabilities={letterProbabilities}
-          scan={
-            scanShown && scanShown.row > 0
-              ? { level: scanShown.level as 'rows' | 'items', row: scanShown.row - 1, item: scanShown.item }
-              : null
-          }
-          dwell={settings.selectionMode === 'dwell' ? dwell : null}
-        />
-      </section>
+        </TrialView>
+      ) : (
+        <section
+          aria-labelledby="keyboard-heading"
+          // Group–row–key: the highlighted group's key rows (1-based), outlined by index.css.
+          data-scan-group={scanGroupAttr}
+          className={cn(
+            'flex flex-col gap-4 rounded-xl border-2 p-3 sm:p-5',
+            hc ? 'on-dark border-white bg-black text-white' : 'border-thread bg-paper-deep',
+          )}
+        >
+          <h2 id="keyboard-heading" className="text-2xl font-bold">
+            Keyboard
+          </h2>
+          {output}
+          {settings.selectionMode === 'scanning' && (
+            <div className="flex flex-wrap items-center gap-3">
+              {scanner.running ? (
+                <Button onClick={scanner.stop}>Stop scanning (Escape)</Button>
+              ) : (
+                <Button variant="primary" onClick={startScanning} disabled={engine.status !== 'ready'}>
+                  Start scanning
+                </Button>
+              )}
+              <p className={hc ? 'text-white' : 'text-ink-soft'} data-scan-help={scanPattern}>
+                {scanHelp[scanPattern]}
+              </p>
+            </div>
+          )}
+          {suggestionRow}
+          {keyGrid}
+        </section>
+      )}
 
       <SettingsPanel
         settings={settings}

@@ -12,7 +12,8 @@ export type KeyKind =
   | 'delete_word'
   | 'undo_pick'
   | 'shift'
-  | 'layer';
+  | 'layer'
+  | 'pause';
 
 /**
  * One key.
@@ -174,3 +175,6 @@ export const atSentenceStart = (text: string): boolean => SENTENCE_START.test(te
 
 /** Whether a key is a letter of the alphabet (its case follows shift and the automatic capital). */
 export const hasCase = (value: string): boolean => value.toLowerCase() !== value.toUpperCase();
+
+/** The trial view's Pause key, the last key of the function row there: it pauses the trial, types nothing. */
+export const pauseKey: KeyDef = { id: 'pause', kind: 'pause', value: '', label: 'Pause', spokenLabel: 'Pause' };
