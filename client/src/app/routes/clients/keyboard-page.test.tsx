@@ -100,7 +100,10 @@ const output = () => screen.getByRole('textbox', { name: 'Text typed so far' });
 const pauseDialog = () => screen.getByRole('dialog', { name: 'Trial paused' });
 
 /** Pauses the running trial with Escape and finishes it from the pause dialog. */
-const finishFromPause = async (user: { keyboard: (keys: string) => Promise<void>; click: (e: Element) => Promise<void> }) => {
+const finishFromPause = async (user: {
+  keyboard: (keys: string) => Promise<void>;
+  click: (e: Element) => Promise<void>;
+}) => {
   await user.keyboard('{Escape}');
   await user.click(within(pauseDialog()).getByRole('button', { name: 'Finish trial' }));
 };
@@ -527,5 +530,173 @@ describe('Test keyboard page', () => {
     expect(screen.getByText('1 trial is waiting to upload.')).toBeInTheDocument();
     // 2 letters for 2 characters: no savings (derived from the definition).
     expect(screen.getByText(/^0\.0% measured; 36\.7% simulated at 5 slots$/)).toBeInTheDocument();
+  });
+});
+
+describe('Trial view', () => {
+  const trialView = () => screen.getByRole('dialog', { name: 'Trial' });
+  const posted = (api: Awaited<ReturnType<typeof openKeyboard>>['api']) =>
+    createTrialSchema.parse(api.requestsTo(`POST ${trialsUrl(VERSION_1_ID)}`)[0]?.body);
+  const steps = (events: { type: string }[]) =>
+    events.filter((e) => e.type !== 'offer' && e.type !== 'switch').map((e) => e.type);
+
+  it('Start trial opens the keyboard alone in a full-window layer (no Fullscreen API in jsdom), the page behind hidden and inert', async () => {
+    const { user } = await openKeyboard('carer');
+    expect(screen.queryByRole('dialog', { name: 'Trial' })).toBeNull();
+    const heading = screen.getByRole('heading', { level: 1, name: 'Test keyboard' });
+    await user.click(screen.getByRole('button', { name: 'Start trial' }));
+    const view = trialView();
+    expect(view).toHaveAttribute('aria-modal', 'true');
+    expect(view).toHaveAttribute('data-trial-view', 'layer');
+    expect(view).toContainElement(screen.getByRole('group', { name: 'Keys' }));
+    expect(view).toContainElement(output());
+    expect(output()).toHaveFocus();
+    // The page behind: hidden and inert, with its settings and version picker.
+    expect(heading.closest('[inert]')).not.toBeNull();
+    expect(heading).not.toBeVisible();
+    // The Pause key is the last key of the function row.
+    const rows = [...within(view).getByRole('group', { name: 'Keys' }).children];
+    const lastRow = within(rows.at(-1) as HTMLElement).getAllByRole('button');
+    expect(lastRow.at(-1)).toHaveAccessibleName('Pause');
+  });
+
+  it('Escape pauses: the dialog opens with focus on Resume; Resume closes it and logs resume', async () => {
+    const { user, api } = await openKeyboard('carer');
+    await user.click(screen.getByRole('button', { name: 'Start trial' }));
+    await user.click(key('g'));
+    await user.keyboard('{Escape}');
+    const dialog = pauseDialog();
+    expect(dialog).toHaveAttribute('aria-modal', 'true');
+    expect(within(dialog).getByRole('button', { name: 'Resume trial' })).toHaveFocus();
+    expect(within(dialog).getByText(/Paused time is left out of words per minute/)).toBeInTheDocument();
+    await user.click(within(dialog).getByRole('button', { name: 'Resume trial' }));
+    expect(screen.queryByRole('dialog', { name: 'Trial paused' })).toBeNull();
+    expect(output()).toHaveFocus();
+    await user.click(key('o'));
+    expect(output().textContent).toBe('go');
+    await finishFromPause(user);
+    await screen.findByText('The trial is saved.');
+    expect(steps(posted(api).events)).toEqual(['letter', 'pause', 'resume', 'letter', 'pause']);
+  });
+
+  it('the Pause key pauses; while paused no key, physical key or suggestion types', async () => {
+    const { user, api } = await openKeyboard('carer');
+    await user.click(screen.getByRole('button', { name: 'Start trial' }));
+    await user.click(key('t'));
+    await user.click(key('Pause'));
+    expect(within(pauseDialog()).getByRole('button', { name: 'Resume trial' })).toHaveFocus();
+    // The keyboard behind the dialog is inert; even an event reaching a key types nothing.
+    expect(screen.getByRole('group', { name: 'Keys', hidden: true }).closest('[inert]')).not.toBeNull();
+    fireEvent.click(screen.getByRole('button', { name: 'e', hidden: true }));
+    fireEvent.click(screen.getByRole('button', { name: 'Suggestion 1: the', hidden: true }));
+    fireEvent.keyDown(document.body, { key: 'x' });
+    expect(screen.getByRole('textbox', { name: 'Text typed so far', hidden: true }).textContent).toBe('t');
+    await user.click(within(pauseDialog()).getByRole('button', { name: 'Finish trial' }));
+    await screen.findByText('The trial is saved.');
+    expect(posted(api).text).toBe('t');
+    expect(steps(posted(api).events)).toEqual(['letter', 'pause']);
+  });
+
+  it('Discard from the pause dialog keeps nothing and returns focus to Start trial', async () => {
+    const { user, api } = await openKeyboard('carer');
+    await user.click(screen.getByRole('button', { name: 'Start trial' }));
+    await user.click(key('t'));
+    await user.keyboard('{Escape}');
+    await user.click(within(pauseDialog()).getByRole('button', { name: 'Discard trial' }));
+    expect(screen.queryByRole('dialog', { name: 'Trial' })).toBeNull();
+    expect(screen.getByRole('button', { name: 'Start trial' })).toHaveFocus();
+    expect(api.requestsTo(`POST ${trialsUrl(VERSION_1_ID)}`)).toHaveLength(0);
+  });
+
+  it('scanning: holding the switch 2 s pauses, the scan waits where it was, and goes on after Resume', async () => {
+    const { user, api } = await openKeyboard('carer');
+    await user.selectOptions(screen.getByLabelText('Selection mode'), 'scanning');
+    await user.selectOptions(screen.getByLabelText('Scanning pattern'), 'step-two-switch');
+    await user.click(screen.getByRole('button', { name: 'Start trial' }));
+    vi.useFakeTimers();
+    const keyRowsOnScreen = () => [...screen.getByRole('group', { name: 'Keys', hidden: true }).children];
+    const down = (k: string) => act(() => void fireEvent.keyDown(document, { key: k }));
+    const up = (k: string) => act(() => void fireEvent.keyUp(document, { key: k }));
+    // Suggestions first: Space moves to key row 1.
+    down(' ');
+    up(' ');
+    expect(keyRowsOnScreen()[0]).toHaveAttribute('data-scan-row', 'on');
+    // A short press is a move; a press held 1 999 ms is not yet a long press.
+    down(' ');
+    act(() => vi.advanceTimersByTime(1999));
+    expect(screen.queryByRole('dialog', { name: 'Trial paused' })).toBeNull();
+    act(() => vi.advanceTimersByTime(1));
+    expect(pauseDialog()).toBeInTheDocument();
+    up(' ');
+    // The press itself moved the highlight to key row 2; paused, it stays there.
+    expect(keyRowsOnScreen()[1]).toHaveAttribute('data-scan-row', 'on');
+    act(() => vi.advanceTimersByTime(10_000));
+    expect(keyRowsOnScreen()[1]).toHaveAttribute('data-scan-row', 'on');
+    // Enter takes the highlighted choice, Resume: the scan goes on from key row 2.
+    down('Enter');
+    up('Enter');
+    expect(screen.queryByRole('dialog', { name: 'Trial paused' })).toBeNull();
+    down('Enter'); // key row 2: its first key, a
+    down('Enter'); // a
+    expect(output().textContent).toBe('a');
+    down('Escape');
+    down(' '); // Finish
+    down('Enter');
+    vi.useRealTimers();
+    await screen.findByText('The trial is saved.');
+    expect(steps(posted(api).events)).toEqual(['pause', 'resume', 'letter', 'pause']);
+  });
+
+  it('dwell: resting on the Pause key pauses, and resting on Resume resumes', async () => {
+    const { user, api } = await openKeyboard('carer');
+    await user.selectOptions(screen.getByLabelText('Selection mode'), 'dwell');
+    await user.click(screen.getByRole('button', { name: 'Start trial' }));
+    vi.useFakeTimers();
+    const dwellOn = (element: Element) => {
+      act(() => void fireEvent.pointerEnter(element));
+      act(() => vi.advanceTimersByTime(2000));
+      act(() => void fireEvent.pointerLeave(element));
+    };
+    dwellOn(key('h'));
+    dwellOn(key('Pause'));
+    expect(pauseDialog()).toBeInTheDocument();
+    dwellOn(within(pauseDialog()).getByRole('button', { name: 'Resume trial' }));
+    expect(screen.queryByRole('dialog', { name: 'Trial paused' })).toBeNull();
+    dwellOn(key('i'));
+    expect(output().textContent).toBe('hi');
+    act(() => void fireEvent.keyDown(document, { key: 'Escape' }));
+    vi.useRealTimers();
+    await user.click(within(pauseDialog()).getByRole('button', { name: 'Finish trial' }));
+    await screen.findByText('The trial is saved.');
+    expect(steps(posted(api).events)).toEqual(['letter', 'pause', 'resume', 'letter', 'pause']);
+  });
+
+  it('in browser full screen, leaving it pauses the trial', async () => {
+    const original = HTMLElement.prototype.requestFullscreen;
+    let fullscreen: Element | null = null;
+    Object.defineProperty(document, 'fullscreenElement', { configurable: true, get: () => fullscreen });
+    HTMLElement.prototype.requestFullscreen = () => {
+      fullscreen = document.querySelector('[data-trial-view]');
+      document.dispatchEvent(new Event('fullscreenchange'));
+      return Promise.resolve();
+    };
+    try {
+      const { user } = await openKeyboard('carer');
+      await user.click(screen.getByRole('button', { name: 'Start trial' }));
+      await waitFor(() => expect(trialView()).toHaveAttribute('data-trial-view', 'fullscreen'));
+      expect(fullscreen).toBe(trialView());
+      // The browser leaves full screen (its own Escape or control).
+      act(() => {
+        fullscreen = null;
+        document.dispatchEvent(new Event('fullscreenchange'));
+      });
+      expect(within(pauseDialog()).getByRole('button', { name: 'Resume trial' })).toHaveFocus();
+      // Resume asks for full screen again.
+      await user.click(within(pauseDialog()).getByRole('button', { name: 'Resume trial' }));
+      await waitFor(() => expect(fullscreen).toBe(trialView()));
+    } finally {
+      HTMLElement.prototype.requestFullscreen = original;
+      Reflect.deleteProperty(document, 'fullscreenElement');
+    }
   });
 });

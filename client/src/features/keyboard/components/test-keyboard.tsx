@@ -36,7 +36,8 @@ import { slotTargetId, usesKeysTheSimulationLacks } from '../logic/trial-figures
 import { TrialOutput } from './trial-output';
 import { TrialResults, type UploadState } from './trial-results';
 import { TrialView } from './trial-view';
-import { type PauseChoiceId, pauseChoices, TrialPauseDialog } from './trial-pause-dialog';
+import { TrialPauseDialog } from './trial-pause-dialog';
+import { type PauseChoiceId, pauseChoices } from '../logic/pause-choices';
 import { useOsReducedMotion } from '../hooks/use-os-reduced-motion';
 
 /** The version's simulated figures at a slot count (from its report), for comparison with a trial. */
@@ -123,7 +124,7 @@ export const TestKeyboard = ({
   const outputRef = useRef<HTMLDivElement>(null);
   const startRef = useRef<HTMLButtonElement>(null);
   // Where focus goes once the trial view has closed (the page behind is shown again first).
-  const [focusAfter, setFocusAfter] = useState<'results' | 'start' | null>(null);
+  const focusAfterRef = useRef<'results' | 'start' | null>(null);
   // True from a pause until the resume: the truth for presses, dwells and scan ticks in the same tick.
   const pausedRef = useRef(false);
 
@@ -358,16 +359,24 @@ export const TestKeyboard = ({
     setShift('off');
     setLayer('letters');
     pausedRef.current = false;
-    setFocusAfter(null);
+    focusAfterRef.current = null;
     session.start();
     // The trial view opens: focus goes to its message window, where the trial's text appears and
     // from which Tab reaches the suggestions and the keys (scanning starts from there too).
     if (settings.selectionMode === 'scanning') scanner.start();
   };
 
-  // The view has opened: focus its message window (the element exists only now).
+  // The view has opened: focus its message window (the element exists only now). It has closed
+  // and the page is back: the results' heading, or Start after a discard.
   useEffect(() => {
-    if (trialRunning) outputRef.current?.focus();
+    if (trialRunning) {
+      outputRef.current?.focus();
+      return;
+    }
+    const after = focusAfterRef.current;
+    focusAfterRef.current = null;
+    if (after === 'results') document.getElementById('trial-results-heading')?.focus();
+    else if (after === 'start') startRef.current?.focus();
   }, [trialRunning]);
 
   const resumeTrial = () => {
@@ -394,7 +403,7 @@ export const TestKeyboard = ({
       extraKeys: usesKeysTheSimulationLacks(input.events),
     });
     setNote('');
-    setFocusAfter('results');
+    focusAfterRef.current = 'results';
     pending
       .submit(versionId, input)
       .then((result) =>
@@ -417,16 +426,18 @@ export const TestKeyboard = ({
     scanner.stop();
     session.clear();
     setNote('');
-    setFocusAfter('start');
+    focusAfterRef.current = 'start';
   };
 
-  choosePauseRef.current = (id: PauseChoiceId) => {
-    if (!session.paused) return;
-    if (id === 'pause-resume') resumeTrial();
-    else if (id === 'pause-finish') {
-      if (selections > 0) finishTrial();
-    } else discardTrial();
-  };
+  useEffect(() => {
+    choosePauseRef.current = (id: PauseChoiceId) => {
+      if (!session.paused) return;
+      if (id === 'pause-resume') resumeTrial();
+      else if (id === 'pause-finish') {
+        if (selections > 0) finishTrial();
+      } else discardTrial();
+    };
+  });
 
   // Paused in scanning: the scanner goes over the dialog's choices (a switch user can take each).
   const pauseScanned = useChoiceScan({
@@ -440,14 +451,6 @@ export const TestKeyboard = ({
       if (choice) choosePauseRef.current(choice.id);
     }, []),
   });
-
-  // Once the view has closed and the page is back: the results' heading, or Start after a discard.
-  useEffect(() => {
-    if (trialRunning || focusAfter === null) return;
-    if (focusAfter === 'results') document.getElementById('trial-results-heading')?.focus();
-    else startRef.current?.focus();
-    setFocusAfter(null);
-  }, [trialRunning, focusAfter]);
 
   const hc = settings.highContrast;
   const figures = finished ? simulated(finished.slots) : null;
@@ -527,8 +530,8 @@ export const TestKeyboard = ({
         </p>
         <p className="text-ink-soft">
           Start trial opens the keyboard on its own, filling the screen. Escape, the Pause key or (scanning)
-          holding the switch for {LONG_PRESS_MS / 1000} seconds pauses it; from the pause you resume, finish or
-          discard the trial and can add a note.
+          holding the switch for {LONG_PRESS_MS / 1000} seconds pauses it; from the pause you resume, finish
+          or discard the trial and can add a note.
         </p>
         <div className="grid gap-4 md:grid-cols-2">
           <PhrasePicker

@@ -2,16 +2,9 @@ import { useEffect, useId, useRef } from 'react';
 import { fieldClasses } from '@/components/ui/field-classes';
 import { cn } from '@/lib/cn';
 import { targetClasses, tintStyle } from '../logic/keyboard-styles';
+import { type PauseChoiceId, pauseChoices } from '../logic/pause-choices';
 import { DwellFill } from './dwell-fill';
 import type { DwellView } from './key-grid';
-
-/** The pause dialog's choices, in scanning order. */
-export const pauseChoices = [
-  { id: 'pause-resume', label: 'Resume trial' },
-  { id: 'pause-finish', label: 'Finish trial' },
-  { id: 'pause-discard', label: 'Discard trial' },
-] as const;
-export type PauseChoiceId = (typeof pauseChoices)[number]['id'];
 
 type TrialPauseDialogProps = {
   selections: number;
@@ -62,8 +55,8 @@ export const TrialPauseDialog = ({
           Trial paused
         </h2>
         <p>
-          {selections} {selections === 1 ? 'selection' : 'selections'} so far. Paused time is left out of words
-          per minute.
+          {selections} {selections === 1 ? 'selection' : 'selections'} so far. Paused time is left out of
+          words per minute.
         </p>
         <div className="grid gap-3 sm:grid-cols-3">
           {pauseChoices.map((choice, index) => {
@@ -88,7 +81,11 @@ export const TrialPauseDialog = ({
               >
                 {choice.label}
                 {dwell && dwell.activeId === choice.id && (
-                  <DwellFill progress={dwell.progress} reduceMotion={reduceMotion} highContrast={highContrast} />
+                  <DwellFill
+                    progress={dwell.progress}
+                    reduceMotion={reduceMotion}
+                    highContrast={highContrast}
+                  />
                 )}
               </button>
             );

@@ -31,7 +31,13 @@ const enterFullscreen = (element: HTMLElement | null) => {
  * full-window layer (`role="dialog"`, labelled "Trial"). The page behind is hidden and inert while it
  * is open (so it neither scrolls nor takes focus); it comes back as it was when the view closes.
  */
-export const TrialView = ({ paused, onLeaveFullscreen, highContrast, children, pauseDialog }: TrialViewProps) => {
+export const TrialView = ({
+  paused,
+  onLeaveFullscreen,
+  highContrast,
+  children,
+  pauseDialog,
+}: TrialViewProps) => {
   const layerRef = useRef<HTMLDivElement>(null);
   const [mode, setMode] = useState<TrialViewMode>('layer');
   const onLeaveRef = useRef(onLeaveFullscreen);
@@ -58,14 +64,10 @@ export const TrialView = ({ paused, onLeaveFullscreen, highContrast, children, p
     };
   }, []);
 
-  // Full screen when the view opens and when the trial resumes (both follow a press, which the
-  // browser requires); leaving it pauses the trial.
-  useEffect(() => {
-    if (!paused) enterFullscreen(layerRef.current);
-  }, [paused]);
   useEffect(() => {
     const layer = layerRef.current;
     let wasFullscreen = false;
+    // Leaving full screen pauses the trial.
     const onChange = () => {
       const now = document.fullscreenElement === layer && layer !== null;
       setMode(now ? 'fullscreen' : 'layer');
@@ -78,6 +80,11 @@ export const TrialView = ({ paused, onLeaveFullscreen, highContrast, children, p
       if (layer && document.fullscreenElement === layer) document.exitFullscreen().catch(() => undefined);
     };
   }, []);
+  // Full screen when the view opens and when the trial resumes (both follow a press, which the
+  // browser requires); leaving it pauses the trial (above).
+  useEffect(() => {
+    if (!paused) enterFullscreen(layerRef.current);
+  }, [paused]);
 
   return createPortal(
     <div

@@ -67,10 +67,13 @@ export function useChoiceScan(o: ChoiceScanOptions): number | null {
 
   useEffect(() => {
     if (!enabled || !oneSwitch || presses === 0 || highlightRef.current === null) return;
-    const timer = setTimeout(() => {
-      const chosen = highlightRef.current;
-      if (chosen !== null) optionsRef.current.onChoose(chosen);
-    }, Math.max(100, acceptMs));
+    const timer = setTimeout(
+      () => {
+        const chosen = highlightRef.current;
+        if (chosen !== null) optionsRef.current.onChoose(chosen);
+      },
+      Math.max(100, acceptMs),
+    );
     return () => clearTimeout(timer);
   }, [enabled, oneSwitch, acceptMs, presses]);
 

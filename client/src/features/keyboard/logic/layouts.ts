@@ -177,4 +177,10 @@ export const atSentenceStart = (text: string): boolean => SENTENCE_START.test(te
 export const hasCase = (value: string): boolean => value.toLowerCase() !== value.toUpperCase();
 
 /** The trial view's Pause key, the last key of the function row there: it pauses the trial, types nothing. */
-export const pauseKey: KeyDef = { id: 'pause', kind: 'pause', value: '', label: 'Pause', spokenLabel: 'Pause' };
+export const pauseKey: KeyDef = {
+  id: 'pause',
+  kind: 'pause',
+  value: '',
+  label: 'Pause',
+  spokenLabel: 'Pause',
+};
