@@ -4,6 +4,7 @@ import { foundationSuite } from './foundation.mjs';
 import { keyboardSuite } from './keyboard.mjs';
 import { profilesSuite } from './profiles.mjs';
 import { summariesSuite } from './summaries.mjs';
+import { trialViewSuite } from './trial-view.mjs';
 import { vocabularyKeyboardSuite } from './vocabulary-keyboard.mjs';
 
 export const browserSuites = [
@@ -11,6 +12,7 @@ export const browserSuites = [
   caseloadSuite,
   profilesSuite,
   keyboardSuite,
+  trialViewSuite,
   summariesSuite,
   vocabularyKeyboardSuite,
 ];
