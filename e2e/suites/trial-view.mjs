@@ -44,7 +44,7 @@ async function trialsOf(page, appUrl, versionId) {
 }
 
 /** In the view: no page scroll, and every key and suggestion lies inside the window. */
-async function assertFitsScreen(page, label) {
+async function assertFitsScreen(page, label, size = VIEWPORT) {
   const fit = await page.evaluate(() => {
     const targets = [...document.querySelectorAll('[data-trial-view] button')];
     return {
@@ -52,6 +52,7 @@ async function assertFitsScreen(page, label) {
       innerHeight: window.innerHeight,
       lowest: Math.max(...targets.map((b) => b.getBoundingClientRect().bottom)),
       shortest: Math.min(...targets.map((b) => b.getBoundingClientRect().height)),
+      mode: document.querySelector('[data-trial-view]')?.getAttribute('data-trial-view'),
     };
   });
   assert.ok(
@@ -60,19 +61,24 @@ async function assertFitsScreen(page, label) {
   );
   assert.ok(fit.lowest <= fit.innerHeight, `${label}: a key ends at ${fit.lowest} px, below the window`);
   console.log(
-    `    ${label}: fits ${VIEWPORT.width}×${VIEWPORT.height}, keys at least ${Math.round(fit.shortest)} px high`,
+    `    ${label} (${fit.mode}): fits ${size.width}×${size.height}, keys at least ${Math.round(fit.shortest)} px high`,
   );
 }
 
-/** Waits for the text in the message window. */
-const textIs = (page, text) =>
-  page.waitForFunction(
-    (want) => document.querySelector('[data-output]')?.getAttribute('data-text') === want,
-    text,
-    {
-      timeout: 10_000,
-    },
-  );
+/** Waits for the text in the message window (and says what it was instead). */
+async function textIs(page, text) {
+  try {
+    await page.waitForFunction(
+      (want) => document.querySelector('[data-output]')?.getAttribute('data-text') === want,
+      text,
+      { timeout: 10_000 },
+    );
+  } catch {
+    assert.fail(
+      `the text should read ${JSON.stringify(text)}, not ${JSON.stringify(await outputText(page))}`,
+    );
+  }
+}
 
 /** The first word the suggestion row offers now (waits for the row to answer the text). */
 async function firstSuggestion(page) {
@@ -115,10 +121,18 @@ export const trialViewSuite = {
         await dwell.fill('250');
         await dwell.blur();
         const countBefore = (await trialsOf(page, t.appUrl, versionId)).length;
-        await page.getByRole('button', { name: 'Start trial' }).click();
+        // Started from the keyboard: a click would leave the mouse resting on a key of the view.
+        await page.getByRole('button', { name: 'Start trial' }).focus();
+        await page.keyboard.press('Enter');
         await trialView(page).waitFor();
         await assertFitsScreen(page, 'dwell view');
         assert.deepEqual(await t.seriousViolations(page, 'trial view (dwell)'), []);
+        // A phone held upright: the keys still fit without scrolling.
+        const phone = { width: 390, height: 844 };
+        await page.setViewportSize(phone);
+        await assertFitsScreen(page, 'dwell view', phone);
+        await page.screenshot({ path: '/tmp/trial-view-390.png' });
+        await page.setViewportSize(VIEWPORT);
 
         const engine = [];
         /** Rests the mouse on a target's centre until the text reads `after`, then moves off. */

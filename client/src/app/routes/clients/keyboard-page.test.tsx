@@ -554,10 +554,11 @@ describe('Trial view', () => {
     // The page behind: hidden and inert, with its settings and version picker.
     expect(heading.closest('[inert]')).not.toBeNull();
     expect(heading).not.toBeVisible();
-    // The Pause key is the last key of the function row.
+    // The Pause key is a row of its own, the last, under the function row.
     const rows = [...within(view).getByRole('group', { name: 'Keys' }).children];
+    expect(rows).toHaveLength(6);
     const lastRow = within(rows.at(-1) as HTMLElement).getAllByRole('button');
-    expect(lastRow.at(-1)).toHaveAccessibleName('Pause');
+    expect(lastRow.map((button) => button.getAttribute('aria-label'))).toEqual(['Pause']);
   });
 
   it('Escape pauses: the dialog opens with focus on Resume; Resume closes it and logs resume', async () => {
@@ -616,6 +617,8 @@ describe('Trial view', () => {
     vi.useFakeTimers();
     const keyRowsOnScreen = () => [...screen.getByRole('group', { name: 'Keys', hidden: true }).children];
     const down = (k: string) => act(() => void fireEvent.keyDown(document, { key: k }));
+    // The Pause row is scanned like the key rows (the last of them): reachable by the switches.
+    expect(keyRowsOnScreen()).toHaveLength(6);
     const up = (k: string) => act(() => void fireEvent.keyUp(document, { key: k }));
     // Suggestions first: Space moves to key row 1.
     down(' ');

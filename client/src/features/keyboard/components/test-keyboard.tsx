@@ -141,10 +141,11 @@ export const TestKeyboard = ({
   const capital = shift !== 'off' || (settings.autoCapital && atSentenceStart(session.text));
   const canUndoPick = session.canUndoPick;
   const trialRunning = session.running;
-  // In the trial view the Pause key ends the function row (the last row), so every mode reaches it.
+  // In the trial view the Pause key is a row of its own under the function row: a key like any other
+  // (clicked, dwelt on, scanned as the last row), wide enough for its label on a phone.
   const rows = useMemo(() => {
     const all = keyRows(settings.layout, { shift, layer, capital, canUndoPick });
-    return trialRunning ? [...all.slice(0, -1), [...(all.at(-1) ?? []), pauseKey]] : all;
+    return trialRunning ? [...all, [pauseKey]] : all;
   }, [settings.layout, shift, layer, capital, canUndoPick, trialRunning]);
   const target = phrases.find((phrase) => phrase.id === phraseId)?.text ?? null;
 

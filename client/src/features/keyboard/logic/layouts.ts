@@ -176,7 +176,7 @@ export const atSentenceStart = (text: string): boolean => SENTENCE_START.test(te
 /** Whether a key is a letter of the alphabet (its case follows shift and the automatic capital). */
 export const hasCase = (value: string): boolean => value.toLowerCase() !== value.toUpperCase();
 
-/** The trial view's Pause key, the last key of the function row there: it pauses the trial, types nothing. */
+/** The trial view's Pause key, a row of its own under the function row there: it pauses the trial, types nothing. */
 export const pauseKey: KeyDef = {
   id: 'pause',
   kind: 'pause',
