@@ -121,7 +121,8 @@ export const trialViewSuite = {
         await dwell.fill('250');
         await dwell.blur();
         const countBefore = (await trialsOf(page, t.appUrl, versionId)).length;
-        // Started from the keyboard: a click would leave the mouse resting on a key of the view.
+        // Started from the keyboard, the mouse out of the way: resting on a key of the view, it would type.
+        await page.mouse.move(2, 2);
         await page.getByRole('button', { name: 'Start trial' }).focus();
         await page.keyboard.press('Enter');
         await trialView(page).waitFor();
