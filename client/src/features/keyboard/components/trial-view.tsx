@@ -94,7 +94,8 @@ export const TrialView = ({
       aria-label="Trial"
       data-trial-view={mode}
       className={cn(
-        'fixed inset-0 z-50 flex flex-col overflow-hidden p-2 sm:p-3',
+        // With very large text the view scrolls inside itself rather than cut keys off.
+        'fixed inset-0 z-50 flex flex-col overflow-y-auto p-2 sm:p-3',
         highContrast ? 'on-dark bg-black text-white' : 'bg-paper-deep text-ink',
       )}
     >
