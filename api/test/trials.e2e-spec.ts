@@ -448,6 +448,10 @@ describe('test keyboard (HTTP)', () => {
       expect(trial.measures).toEqual(computeTrialMeasures(events, null));
       // Derived by hand: "Pep \n9!" is 7 characters; 14 selections (16 steps less pause and resume).
       expect(trial.measures).toMatchObject({ characters: 7, keystrokes: 14, suggestionsTaken: 1 });
+      // Paused time is not typing time (derived by hand): 0 → 5 700 ms less the pause 700 → 5 000
+      // (4 300 ms) leaves 1 400 ms; (7 − 1) / 1.4 s × 60 / 5 = 51.428571 wpm (with the pause: 12.631579).
+      expect(trial.measures).toMatchObject({ durationMs: 1_400, pausedMs: 4_300 });
+      expect(trial.measures.wpm).toBeCloseTo(51.428571, 5);
 
       const refused = await post(
         cast.owner,

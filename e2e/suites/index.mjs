@@ -5,6 +5,7 @@ import { foundationSuite } from './foundation.mjs';
 import { keyboardSuite } from './keyboard.mjs';
 import { profilesSuite } from './profiles.mjs';
 import { summariesSuite } from './summaries.mjs';
+import { trialViewSuite } from './trial-view.mjs';
 import { vocabularyKeyboardSuite } from './vocabulary-keyboard.mjs';
 
 export const browserSuites = [
@@ -13,6 +14,7 @@ export const browserSuites = [
   profilesSuite,
   keyboardSuite,
   dwellTargetsSuite,
+  trialViewSuite,
   summariesSuite,
   vocabularyKeyboardSuite,
 ];

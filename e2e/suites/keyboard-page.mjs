@@ -38,3 +38,43 @@ export async function capitalsOff(page) {
   const box = page.getByRole('checkbox', { name: 'Capital after a full stop' });
   if (await box.isChecked()) await box.uncheck();
 }
+
+/** The running trial's view: the keyboard alone on the screen. */
+export const trialView = (page) => page.getByRole('dialog', { name: 'Trial', exact: true });
+
+/** The pause dialog of a running trial. */
+export const pauseDialog = (page) => page.getByRole('dialog', { name: 'Trial paused' });
+
+/** Pauses the running trial with Escape and finishes it from the pause dialog. */
+export async function finishTrial(page) {
+  await page.keyboard.press('Escape');
+  await pauseDialog(page).getByRole('button', { name: 'Finish trial' }).click();
+}
+
+/** The nearest rank percentile of sorted values (p in 0..100). */
+export const percentile = (sorted, p) => sorted[Math.max(0, Math.ceil((p / 100) * sorted.length) - 1)];
+
+/**
+ * Prints the two latency figures, each beside its own target (reported, never asserted): the
+ * worker's engine work per key (target p95 ≤ 16 ms) and key selection → updated suggestion row on
+ * screen (the page's `keyloom:suggest` measures; target p95 ≤ 50 ms). Returns the row times, sorted.
+ * @param engineTimes the worker's own time per answer (data-engine-ms of each row), ms
+ */
+export async function printLatency(page, label, engineTimes) {
+  const durations = await page.evaluate(() =>
+    performance.getEntriesByName('keyloom:suggest').map((entry) => entry.duration),
+  );
+  const sorted = [...durations].sort((a, b) => a - b);
+  const engine = [...engineTimes].sort((a, b) => a - b);
+  const fixed = (values, p) => (values.length === 0 ? '—' : percentile(values, p).toFixed(2));
+  console.log(
+    `    ${label}: engine work per key over ${engine.length} answers: p50 ${fixed(engine, 50)} ms, ` +
+      `p95 ${fixed(engine, 95)} ms (target p95 ≤ 16 ms, not asserted)`,
+  );
+  console.log(
+    `    ${label}: key selection → updated suggestion row on screen over ${sorted.length} selections: ` +
+      `p50 ${fixed(sorted, 50)} ms, p95 ${fixed(sorted, 95)} ms, max ${sorted.length ? sorted.at(-1).toFixed(2) : '—'} ms ` +
+      `(target p95 ≤ 50 ms, not asserted)`,
+  );
+  return sorted;
+}

@@ -14,7 +14,9 @@ export type KeyKind =
   | 'delete_word'
   | 'undo_pick'
   | 'shift'
-  | 'layer';
+  | 'layer'
+  // The trial view's Pause key (client): it pauses the trial and types nothing; never in `keyRows`.
+  | 'pause';
 
 /**
  * One key.

@@ -193,8 +193,10 @@ export const trialMeasuresSchema = z.object({
   charactersFromSuggestions: z.number().int(),
   /** Backspaces pressed. */
   errorsCorrected: z.number().int(),
-  /** From the first selection to the last, ms. */
+  /** From the first selection to the last, less the paused time in between, ms (the time words per minute uses). */
   durationMs: z.number().int(),
+  /** Paused time between the first selection and the last, ms (absent in trials stored before pauses were left out). */
+  pausedMs: z.number().int().optional(),
   /** 1 − keystrokes / characters (null with no characters); negative when corrections outnumber savings. */
   keystrokeSavings: z.number().nullable(),
   /** keystrokes / characters (null with no characters). */

@@ -9,5 +9,5 @@ export {
   TrialReplayError,
   type TrialReplayState,
 } from './trial-replay';
-export { computeTrialMeasures, minimumStringDistance, msdErrorRate } from './trial-measures';
+export { computeTrialMeasures, minimumStringDistance, msdErrorRate, pausedWithin } from './trial-measures';
 export { builtInPracticePhrases } from './practice-phrases';

@@ -38,13 +38,34 @@ export function msdErrorRate(target: string, text: string): number {
 }
 
 /**
+ * Paused time inside [from, to], ms: each `pause` up to its `resume`, or up to `to` when it is
+ * never resumed. A `resume` with no `pause` before it, and a second `pause` before the resume, are
+ * ignored.
+ */
+export function pausedWithin(events: readonly TrialEvent[], from: number, to: number): number {
+  let pausedAt: number | null = null;
+  let paused = 0;
+  const overlap = (a: number, b: number) => Math.max(0, Math.min(b, to) - Math.max(a, from));
+  for (const event of events) {
+    if (event.type === 'pause' && pausedAt === null) pausedAt = event.t;
+    else if (event.type === 'resume' && pausedAt !== null) {
+      paused += overlap(pausedAt, event.t);
+      pausedAt = null;
+    }
+  }
+  if (pausedAt !== null) paused += overlap(pausedAt, to);
+  return paused;
+}
+
+/**
  * Measures a trial from its log.
  * - keystroke savings = 1 − keystrokes / characters, KSPC = keystrokes / characters, where a
  *   keystroke is one selection (isSelection: every key chosen, shift and layer keys included) and
  *   characters are the code points of the final text (MacKenzie 2002, KSPC; KS = 1 − KSPC when the
  *   baseline is one key per character — docs/references.md §2, derived);
  * - words per minute = ((characters − 1) / seconds) × 60 / 5, timed from the first selection to the
- *   last (MacKenzie 2002, "A note on calculating text entry speed");
+ *   last (MacKenzie 2002, "A note on calculating text entry speed"), less the paused time in between
+ *   (pausedWithin: paused time is not typing time; derived);
  * - error rate: msdErrorRate against the target phrase, when there is one.
  * @param events the log, in order (`t` non-decreasing)
  * @param targetPhrase the phrase the person was asked to type, or null
@@ -80,7 +101,8 @@ export function computeTrialMeasures(
   }
   const text = state.text;
   const characters = [...text].length;
-  const durationMs = first === null ? 0 : Math.max(0, last - first);
+  const pausedMs = first === null ? 0 : pausedWithin(events, first, last);
+  const durationMs = first === null ? 0 : Math.max(0, last - first - pausedMs);
   const seconds = durationMs / 1000;
   return {
     characters,
@@ -91,6 +113,7 @@ export function computeTrialMeasures(
     charactersFromSuggestions,
     errorsCorrected,
     durationMs,
+    pausedMs,
     keystrokeSavings: characters > 0 ? round6(1 - keystrokes / characters) : null,
     kspc: characters > 0 ? round6(keystrokes / characters) : null,
     wpm: characters >= 2 && seconds > 0 ? round6(((characters - 1) / seconds) * (60 / 5)) : null,

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { createTrialSchema, type TrialEvent } from '../schemas/trials.schema';
 import { builtInPracticePhrases } from './practice-phrases';
-import { computeTrialMeasures, minimumStringDistance, msdErrorRate } from './trial-measures';
+import { computeTrialMeasures, minimumStringDistance, msdErrorRate, pausedWithin } from './trial-measures';
 import {
   applyTrialEvent,
   partialWord,
@@ -162,7 +162,14 @@ describe('trial replay: new line, delete word, undo pick, shift, layer, pause', 
     const m = computeTrialMeasures(events, null);
     // "Ok\n7 " is 5 characters; 11 selections (13 steps less pause and resume).
     expect(replayTrial(events)).toBe('Ok\n7 ');
-    expect(m).toMatchObject({ characters: 5, keystrokes: 11, suggestionsTaken: 1, durationMs: 5_800 });
+    // 0 → 5 800 ms less the pause from 250 to 5 000 (4 750 ms): 1 050 ms of typing.
+    expect(m).toMatchObject({
+      characters: 5,
+      keystrokes: 11,
+      suggestionsTaken: 1,
+      durationMs: 1_050,
+      pausedMs: 4_750,
+    });
     expect(m.kspc).toBeCloseTo(11 / 5, 6);
   });
 });
@@ -273,5 +280,63 @@ describe('practice phrases and the trial schema', () => {
     expect(createTrialSchema.safeParse({ ...base, events: [] }).success).toBe(false);
     const ok = createTrialSchema.parse({ ...base, events: typed('hi', 10) });
     expect(ok).toMatchObject({ phraseId: null, targetPhrase: null, note: '' });
+  });
+});
+
+describe('paused time is not typing time', () => {
+  const letter = (t: number, value: string): TrialEvent => ({ t, type: 'letter', value });
+
+  it('two pauses: 10 s from the first key to the last, 3 s + 2 s paused, leave 5 s for 5 characters', () => {
+    const events: TrialEvent[] = [
+      letter(0, 'a'),
+      letter(1_000, 'b'),
+      { t: 1_500, type: 'pause' },
+      { t: 4_500, type: 'resume' }, // 3 000 ms paused
+      letter(5_000, 'c'),
+      { t: 6_000, type: 'pause' },
+      { t: 8_000, type: 'resume' }, // 2 000 ms paused
+      letter(9_000, 'd'),
+      letter(10_000, 'e'),
+    ];
+    const m = computeTrialMeasures(events, null);
+    // Worked by hand: 10 000 − 3 000 − 2 000 = 5 000 ms; (5 − 1) / 5 s × 60 / 5 = 9.6 wpm
+    // (with the pauses counted it would be (5 − 1) / 10 s × 12 = 4.8 wpm).
+    expect(m).toMatchObject({ characters: 5, durationMs: 5_000, pausedMs: 5_000 });
+    expect(m.wpm).toBeCloseTo(9.6, 6);
+  });
+
+  it('a pause never resumed counts up to the end', () => {
+    // Finished from the pause: the pause starts after the last key, so the typing time is 0 → 2 000 ms.
+    const finishedPaused: TrialEvent[] = [
+      letter(0, 'a'),
+      letter(1_000, 'b'),
+      letter(2_000, 'c'),
+      { t: 2_500, type: 'pause' },
+    ];
+    const m = computeTrialMeasures(finishedPaused, null);
+    expect(m).toMatchObject({ durationMs: 2_000, pausedMs: 0 });
+    // (3 − 1) / 2 s × 12 = 12 wpm.
+    expect(m.wpm).toBeCloseTo(12, 6);
+    // Up to an end at 4 000 ms: paused from 2 500 to 4 000 = 1 500 ms.
+    expect(pausedWithin(finishedPaused, 0, 4_000)).toBe(1_500);
+    // A key logged while paused (no resume before it): 1 000 → 4 000 is paused, 1 000 ms typing.
+    const keyWhilePaused: TrialEvent[] = [letter(0, 'a'), { t: 1_000, type: 'pause' }, letter(4_000, 'b')];
+    expect(computeTrialMeasures(keyWhilePaused, null)).toMatchObject({ durationMs: 1_000, pausedMs: 3_000 });
+  });
+
+  it('a resume without a pause, and a second pause before the resume, are ignored', () => {
+    const events: TrialEvent[] = [
+      letter(0, 'a'),
+      { t: 500, type: 'resume' }, // no pause before it: ignored
+      letter(1_000, 'b'),
+      { t: 2_000, type: 'pause' },
+      { t: 2_500, type: 'pause' }, // already paused: ignored
+      { t: 3_000, type: 'resume' }, // 2 000 → 3 000: 1 000 ms paused
+      letter(4_000, 'c'),
+    ];
+    const m = computeTrialMeasures(events, null);
+    // 4 000 − 1 000 = 3 000 ms; (3 − 1) / 3 s × 12 = 8 wpm.
+    expect(m).toMatchObject({ durationMs: 3_000, pausedMs: 1_000 });
+    expect(m.wpm).toBeCloseTo(8, 6);
   });
 });

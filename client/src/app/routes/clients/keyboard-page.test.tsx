@@ -104,6 +104,16 @@ const openKeyboard = async (role: Role, query = '', routes: MockRoutes = {}, aut
 };
 
 const output = () => screen.getByRole('textbox', { name: 'Text typed so far' });
+const pauseDialog = () => screen.getByRole('dialog', { name: 'Trial paused' });
+
+/** Pauses the running trial with Escape and finishes it from the pause dialog. */
+const finishFromPause = async (user: {
+  keyboard: (keys: string) => Promise<void>;
+  click: (e: Element) => Promise<void>;
+}) => {
+  await user.keyboard('{Escape}');
+  await user.click(within(pauseDialog()).getByRole('button', { name: 'Finish trial' }));
+};
 const key = (name: string) =>
   within(screen.getByRole('group', { name: 'Keys' })).getByRole('button', { name });
 
@@ -200,9 +210,12 @@ describe('Test keyboard page', () => {
     await user.click(key('e'));
     await user.click(await screen.findByRole('button', { name: 'Suggestion 1: tea' }));
     expect(output().textContent).toBe('tea ');
-    await user.click(screen.getByRole('button', { name: 'Finish trial' }));
+    await finishFromPause(user);
 
     expect(await screen.findByText('The trial is saved.')).toBeInTheDocument();
+    // The view has closed: focus is on the results' heading.
+    expect(screen.getByRole('heading', { name: 'This trial' })).toHaveFocus();
+    expect(screen.getByText('Paused time is left out of words per minute.')).toBeInTheDocument();
     const posted = createTrialSchema.parse(api.requestsTo(`POST ${trialsUrl(VERSION_1_ID)}`)[0]?.body);
     expect(replayTrial(posted.events)).toBe('tea ');
     expect(posted).toMatchObject({ phraseId: 'kl-11', targetPhrase: 'the soup is too hot', text: 'tea ' });
@@ -268,7 +281,7 @@ describe('Test keyboard page', () => {
     expect(output().textContent).toBe('I go 4!\n');
     // After a line break the capital comes again.
     expect(key('Y')).toBeInTheDocument();
-    await user.click(screen.getByRole('button', { name: 'Finish trial' }));
+    await finishFromPause(user);
 
     expect(await screen.findByText('The trial is saved.')).toBeInTheDocument();
     const posted = createTrialSchema.parse(api.requestsTo(`POST ${trialsUrl(VERSION_1_ID)}`)[0]?.body);
@@ -317,15 +330,17 @@ describe('Test keyboard page', () => {
     expect(output().textContent).toBe('Hi, go ');
     await user.keyboard('{Backspace}{Enter}!');
     expect(output().textContent).toBe('Hi, go\n!');
-    // The note field keeps its keys; Tab still moves focus.
+    // Tab still moves focus.
+    output().focus();
+    await user.keyboard('{Tab}');
+    expect(output()).not.toHaveFocus();
+    // The note (in the pause dialog) keeps its keys.
+    await user.keyboard('{Escape}');
     const note = screen.getByLabelText('Note about this trial (optional)');
     await user.type(note, 'ok 1');
     expect(note).toHaveValue('ok 1');
     expect(output().textContent).toBe('Hi, go\n!');
-    output().focus();
-    await user.keyboard('{Tab}');
-    expect(output()).not.toHaveFocus();
-    await user.click(screen.getByRole('button', { name: 'Finish trial' }));
+    await user.click(within(pauseDialog()).getByRole('button', { name: 'Finish trial' }));
 
     expect(await screen.findByText('The trial is saved.')).toBeInTheDocument();
     const posted = createTrialSchema.parse(api.requestsTo(`POST ${trialsUrl(VERSION_1_ID)}`)[0]?.body);
@@ -342,6 +357,7 @@ describe('Test keyboard page', () => {
       'backspace',
       'newline',
       'punctuation',
+      'pause', // finished from the pause dialog
     ]);
     expect(posted.events.find((e) => e.type === 'suggestion')).toMatchObject({ value: 'go', slot: 1 });
   }, 30_000);
@@ -391,12 +407,12 @@ describe('Test keyboard page', () => {
     await user.selectOptions(pattern, 'step-two-switch');
     expect(pattern).toHaveAccessibleDescription('Space moves one step; Enter chooses.');
     await user.selectOptions(screen.getByLabelText('Suggestions scanned'), 'last');
-    await user.click(screen.getByRole('button', { name: 'Start trial' }));
     expect(
       screen.getByText(
         'Two switches: Space moves the highlight one step, Enter chooses what is highlighted.',
       ),
     ).toBeInTheDocument();
+    await user.click(screen.getByRole('button', { name: 'Start trial' }));
     const suggestions = screen.getByRole('group', { name: 'Suggestions' });
     const keyRowsOnScreen = () => [...screen.getByRole('group', { name: 'Keys' }).children];
     const down = (k: string) =>
@@ -416,7 +432,14 @@ describe('Test keyboard page', () => {
     expect(key('s')).toHaveAttribute('data-scanned', 'on');
     down('Enter');
     expect(output().textContent).toBe('s');
-    await user.click(screen.getByRole('button', { name: 'Finish trial' }));
+    // Escape pauses; in the pause dialog the switches scan its buttons: Space moves to Finish, Enter takes it.
+    down('Escape');
+    const choice = (name: string) => within(pauseDialog()).getByRole('button', { name });
+    expect(choice('Resume trial')).toHaveAttribute('data-scanned', 'on');
+    down(' ');
+    expect(choice('Finish trial')).toHaveAttribute('data-scanned', 'on');
+    expect(choice('Resume trial')).not.toHaveAttribute('data-scanned');
+    down('Enter');
     expect(await screen.findByText('The trial is saved.')).toBeInTheDocument();
     const posted = createTrialSchema.parse(api.requestsTo(`POST ${trialsUrl(VERSION_1_ID)}`)[0]?.body);
     expect(posted.settings).toMatchObject({
@@ -528,7 +551,7 @@ describe('Test keyboard page', () => {
     await user.click(screen.getByRole('button', { name: 'Start trial' }));
     await user.click(key('g'));
     await user.click(key('o'));
-    await user.click(screen.getByRole('button', { name: 'Finish trial' }));
+    await finishFromPause(user);
     expect(
       await screen.findByText(
         'Waiting for the network — the trial will upload when it is back (1 trial waiting on this device).',
@@ -537,5 +560,176 @@ describe('Test keyboard page', () => {
     expect(screen.getByText('1 trial is waiting to upload.')).toBeInTheDocument();
     // 2 letters for 2 characters: no savings (derived from the definition).
     expect(screen.getByText(/^0\.0% measured; 36\.7% simulated at 5 slots$/)).toBeInTheDocument();
+  });
+});
+
+describe('Trial view', () => {
+  const trialView = () => screen.getByRole('dialog', { name: 'Trial' });
+  const posted = (api: Awaited<ReturnType<typeof openKeyboard>>['api']) =>
+    createTrialSchema.parse(api.requestsTo(`POST ${trialsUrl(VERSION_1_ID)}`)[0]?.body);
+  const steps = (events: { type: string }[]) =>
+    events.filter((e) => e.type !== 'offer' && e.type !== 'switch').map((e) => e.type);
+
+  it('Start trial opens the keyboard alone in a full-window layer (no Fullscreen API in jsdom), the page behind hidden and inert', async () => {
+    const { user } = await openKeyboard('carer');
+    expect(screen.queryByRole('dialog', { name: 'Trial' })).toBeNull();
+    const heading = screen.getByRole('heading', { level: 1, name: 'Test keyboard' });
+    await user.click(screen.getByRole('button', { name: 'Start trial' }));
+    const view = trialView();
+    expect(view).toHaveAttribute('aria-modal', 'true');
+    expect(view).toHaveAttribute('data-trial-view', 'layer');
+    expect(view).toContainElement(screen.getByRole('group', { name: 'Keys' }));
+    expect(view).toContainElement(output());
+    expect(output()).toHaveFocus();
+    // The page behind: hidden and inert, with its settings and version picker.
+    expect(heading.closest('[inert]')).not.toBeNull();
+    expect(heading).not.toBeVisible();
+    // The Pause key is a row of its own, the last, under the function row.
+    const rows = [...within(view).getByRole('group', { name: 'Keys' }).children];
+    expect(rows).toHaveLength(6);
+    const lastRow = within(rows.at(-1) as HTMLElement).getAllByRole('button');
+    expect(lastRow.map((button) => button.getAttribute('aria-label'))).toEqual(['Pause']);
+  });
+
+  it('Escape pauses: the dialog opens with focus on Resume; Resume closes it and logs resume', async () => {
+    const { user, api } = await openKeyboard('carer');
+    await user.click(screen.getByRole('button', { name: 'Start trial' }));
+    await user.click(key('g'));
+    await user.keyboard('{Escape}');
+    const dialog = pauseDialog();
+    expect(dialog).toHaveAttribute('aria-modal', 'true');
+    expect(within(dialog).getByRole('button', { name: 'Resume trial' })).toHaveFocus();
+    expect(within(dialog).getByText(/Paused time is left out of words per minute/)).toBeInTheDocument();
+    await user.click(within(dialog).getByRole('button', { name: 'Resume trial' }));
+    expect(screen.queryByRole('dialog', { name: 'Trial paused' })).toBeNull();
+    expect(output()).toHaveFocus();
+    await user.click(key('o'));
+    expect(output().textContent).toBe('go');
+    await finishFromPause(user);
+    await screen.findByText('The trial is saved.');
+    expect(steps(posted(api).events)).toEqual(['letter', 'pause', 'resume', 'letter', 'pause']);
+  });
+
+  it('the Pause key pauses; while paused no key, physical key or suggestion types', async () => {
+    const { user, api } = await openKeyboard('carer');
+    await user.click(screen.getByRole('button', { name: 'Start trial' }));
+    await user.click(key('t'));
+    await user.click(key('Pause'));
+    expect(within(pauseDialog()).getByRole('button', { name: 'Resume trial' })).toHaveFocus();
+    // The keyboard behind the dialog is inert; even an event reaching a key types nothing.
+    expect(screen.getByRole('group', { name: 'Keys', hidden: true }).closest('[inert]')).not.toBeNull();
+    fireEvent.click(screen.getByRole('button', { name: 'e', hidden: true }));
+    fireEvent.click(screen.getByRole('button', { name: 'Suggestion 1: the', hidden: true }));
+    fireEvent.keyDown(document.body, { key: 'x' });
+    expect(screen.getByRole('textbox', { name: 'Text typed so far', hidden: true }).textContent).toBe('t');
+    await user.click(within(pauseDialog()).getByRole('button', { name: 'Finish trial' }));
+    await screen.findByText('The trial is saved.');
+    expect(posted(api).text).toBe('t');
+    expect(steps(posted(api).events)).toEqual(['letter', 'pause']);
+  });
+
+  it('Discard from the pause dialog keeps nothing and returns focus to Start trial', async () => {
+    const { user, api } = await openKeyboard('carer');
+    await user.click(screen.getByRole('button', { name: 'Start trial' }));
+    await user.click(key('t'));
+    await user.keyboard('{Escape}');
+    await user.click(within(pauseDialog()).getByRole('button', { name: 'Discard trial' }));
+    expect(screen.queryByRole('dialog', { name: 'Trial' })).toBeNull();
+    expect(screen.getByRole('button', { name: 'Start trial' })).toHaveFocus();
+    expect(api.requestsTo(`POST ${trialsUrl(VERSION_1_ID)}`)).toHaveLength(0);
+  });
+
+  it('scanning: holding the switch 2 s pauses, the scan waits where it was, and goes on after Resume', async () => {
+    const { user, api } = await openKeyboard('carer');
+    await user.selectOptions(screen.getByLabelText('Selection mode'), 'scanning');
+    await user.selectOptions(screen.getByLabelText('Scanning pattern'), 'step-two-switch');
+    await user.click(screen.getByRole('button', { name: 'Start trial' }));
+    vi.useFakeTimers();
+    const keyRowsOnScreen = () => [...screen.getByRole('group', { name: 'Keys', hidden: true }).children];
+    const down = (k: string) => act(() => void fireEvent.keyDown(document, { key: k }));
+    // The Pause row is scanned like the key rows (the last of them): reachable by the switches.
+    expect(keyRowsOnScreen()).toHaveLength(6);
+    const up = (k: string) => act(() => void fireEvent.keyUp(document, { key: k }));
+    // Suggestions first: Space moves to key row 1.
+    down(' ');
+    up(' ');
+    expect(keyRowsOnScreen()[0]).toHaveAttribute('data-scan-row', 'on');
+    // A short press is a move; a press held 1 999 ms is not yet a long press.
+    down(' ');
+    act(() => vi.advanceTimersByTime(1999));
+    expect(screen.queryByRole('dialog', { name: 'Trial paused' })).toBeNull();
+    act(() => vi.advanceTimersByTime(1));
+    expect(pauseDialog()).toBeInTheDocument();
+    up(' ');
+    // The press itself moved the highlight to key row 2; paused, it stays there.
+    expect(keyRowsOnScreen()[1]).toHaveAttribute('data-scan-row', 'on');
+    act(() => vi.advanceTimersByTime(10_000));
+    expect(keyRowsOnScreen()[1]).toHaveAttribute('data-scan-row', 'on');
+    // Enter takes the highlighted choice, Resume: the scan goes on from key row 2.
+    down('Enter');
+    up('Enter');
+    expect(screen.queryByRole('dialog', { name: 'Trial paused' })).toBeNull();
+    down('Enter'); // key row 2: its first key, a
+    down('Enter'); // a
+    expect(output().textContent).toBe('a');
+    down('Escape');
+    down(' '); // Finish
+    down('Enter');
+    vi.useRealTimers();
+    await screen.findByText('The trial is saved.');
+    expect(steps(posted(api).events)).toEqual(['pause', 'resume', 'letter', 'pause']);
+  });
+
+  it('dwell: resting on the Pause key pauses, and resting on Resume resumes', async () => {
+    const { user, api } = await openKeyboard('carer');
+    await user.selectOptions(screen.getByLabelText('Selection mode'), 'dwell');
+    await user.click(screen.getByRole('button', { name: 'Start trial' }));
+    vi.useFakeTimers();
+    const dwellOn = (element: Element) => {
+      act(() => void fireEvent.pointerEnter(element));
+      act(() => vi.advanceTimersByTime(2000));
+      act(() => void fireEvent.pointerLeave(element));
+    };
+    dwellOn(key('h'));
+    dwellOn(key('Pause'));
+    expect(pauseDialog()).toBeInTheDocument();
+    dwellOn(within(pauseDialog()).getByRole('button', { name: 'Resume trial' }));
+    expect(screen.queryByRole('dialog', { name: 'Trial paused' })).toBeNull();
+    dwellOn(key('i'));
+    expect(output().textContent).toBe('hi');
+    act(() => void fireEvent.keyDown(document, { key: 'Escape' }));
+    vi.useRealTimers();
+    await user.click(within(pauseDialog()).getByRole('button', { name: 'Finish trial' }));
+    await screen.findByText('The trial is saved.');
+    expect(steps(posted(api).events)).toEqual(['letter', 'pause', 'resume', 'letter', 'pause']);
+  });
+
+  it('in browser full screen, leaving it pauses the trial', async () => {
+    const original = HTMLElement.prototype.requestFullscreen;
+    let fullscreen: Element | null = null;
+    Object.defineProperty(document, 'fullscreenElement', { configurable: true, get: () => fullscreen });
+    HTMLElement.prototype.requestFullscreen = () => {
+      fullscreen = document.querySelector('[data-trial-view]');
+      document.dispatchEvent(new Event('fullscreenchange'));
+      return Promise.resolve();
+    };
+    try {
+      const { user } = await openKeyboard('carer');
+      await user.click(screen.getByRole('button', { name: 'Start trial' }));
+      await waitFor(() => expect(trialView()).toHaveAttribute('data-trial-view', 'fullscreen'));
+      expect(fullscreen).toBe(trialView());
+      // The browser leaves full screen (its own Escape or control).
+      act(() => {
+        fullscreen = null;
+        document.dispatchEvent(new Event('fullscreenchange'));
+      });
+      expect(within(pauseDialog()).getByRole('button', { name: 'Resume trial' })).toHaveFocus();
+      // Resume asks for full screen again.
+      await user.click(within(pauseDialog()).getByRole('button', { name: 'Resume trial' }));
+      await waitFor(() => expect(fullscreen).toBe(trialView()));
+    } finally {
+      HTMLElement.prototype.requestFullscreen = original;
+      Reflect.deleteProperty(document, 'fullscreenElement');
+    }
   });
 });

@@ -8,18 +8,26 @@ import {
   type TrialMeasures,
   type TrialShiftState,
 } from '@keyloom/shared';
-import { type ReactNode, useCallback, useEffect, useId, useMemo, useRef, useState } from 'react';
+import { type ReactNode, useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import { Button } from '@/components/ui/button';
-import { fieldClasses } from '@/components/ui/field-classes';
 import { cn } from '@/lib/cn';
 import { markKeyPress } from '../engine/latency-marks';
 import { useKeyboardEngine } from '../engine/use-keyboard-engine';
 import { useDwell } from '../hooks/use-dwell';
 import { usePendingTrials } from '../hooks/use-pending-trials';
-import { useScanner } from '../hooks/use-scanner';
+import { LONG_PRESS_MS, useScanner } from '../hooks/use-scanner';
 import { type ScanPattern, scanGroups } from '../logic/scanner';
 import { useTrialSession } from '../hooks/use-trial-session';
-import { atSentenceStart, hasCase, type KeyDef, keyRows, letterWeights, nextShift } from '../logic/layouts';
+import { useChoiceScan } from '../hooks/use-choice-scan';
+import {
+  atSentenceStart,
+  hasCase,
+  type KeyDef,
+  keyRows,
+  letterWeights,
+  nextShift,
+  pauseKey,
+} from '../logic/layouts';
 import { physicalKeyAction } from '../logic/physical-keys';
 import { KeyGrid } from './key-grid';
 import {
@@ -36,6 +44,9 @@ import { SuggestionRow } from './suggestion-row';
 import { slotTargetId, usesKeysTheSimulationLacks } from '../logic/trial-figures';
 import { TrialOutput } from './trial-output';
 import { TrialResults, type UploadState } from './trial-results';
+import { TrialView } from './trial-view';
+import { TrialPauseDialog } from './trial-pause-dialog';
+import { type PauseChoiceId, pauseChoices } from '../logic/pause-choices';
 import { useOsReducedMotion } from '../hooks/use-os-reduced-motion';
 
 /** The version's simulated figures at a slot count (from its report), for comparison with a trial. */
@@ -120,7 +131,11 @@ export const TestKeyboard = ({
   const [note, setNote] = useState('');
   const [finished, setFinished] = useState<Finished | null>(null);
   const outputRef = useRef<HTMLDivElement>(null);
-  const noteId = useId();
+  const startRef = useRef<HTMLButtonElement>(null);
+  // Where focus goes once the trial view has closed (the page behind is shown again first).
+  const focusAfterRef = useRef<'results' | 'start' | null>(null);
+  // True from a pause until the resume: the truth for presses, dwells and scan ticks in the same tick.
+  const pausedRef = useRef(false);
 
   // The version decides the slot count (its simulated figures are at that count).
   const slots = versionSlots;
@@ -137,15 +152,17 @@ export const TestKeyboard = ({
   // Ordered by the model: the letters re-order at every answer of the engine (a new answer follows
   // every change of the text); the other layouts ignore it.
   const modelOrder = settings.layout === 'model-ordered' ? engine.suggestions : null;
-  const rows = useMemo(
-    () =>
-      keyRows(
-        settings.layout,
-        { shift, layer, capital, canUndoPick },
-        modelOrder && letterWeights(modelOrder.letters),
-      ),
-    [settings.layout, shift, layer, capital, canUndoPick, modelOrder],
-  );
+  const trialRunning = session.running;
+  // In the trial view the Pause key is a row of its own under the function row: a key like any other
+  // (clicked, dwelt on, scanned as the last row), wide enough for its label on a phone.
+  const rows = useMemo(() => {
+    const all = keyRows(
+      settings.layout,
+      { shift, layer, capital, canUndoPick },
+      modelOrder && letterWeights(modelOrder.letters),
+    );
+    return trialRunning ? [...all, [pauseKey]] : all;
+  }, [settings.layout, shift, layer, capital, canUndoPick, modelOrder, trialRunning]);
   const target = phrases.find((phrase) => phrase.id === phraseId)?.text ?? null;
 
   // ---- asking the engine ------------------------------------------------------------------
@@ -199,15 +216,31 @@ export const TestKeyboard = ({
     return map;
   }, [settings.tintKeys, answer]);
 
+  // ---- pausing -----------------------------------------------------------------------------
+  const { pause: sessionPause } = session;
+  /** Pauses a running trial (Escape, the Pause key, a long switch press, leaving full screen). */
+  const pauseTrial = useCallback(() => {
+    if (!trialRunning || pausedRef.current) return;
+    pausedRef.current = true;
+    sessionPause();
+  }, [trialRunning, sessionPause]);
+
   // ---- selection in any mode --------------------------------------------------------------
   const pick = useCallback(
-    (slot: number, word: string) => select({ type: 'suggestion', value: word, slot }),
+    (slot: number, word: string) => {
+      if (pausedRef.current) return;
+      select({ type: 'suggestion', value: word, slot });
+    },
     [select],
   );
   const { autoCapital } = settings;
   const press = useCallback(
     (key: KeyDef) => {
-      if (key.disabled) return;
+      if (key.disabled || pausedRef.current) return;
+      if (key.kind === 'pause') {
+        pauseTrial();
+        return;
+      }
       if (key.kind === 'shift') {
         const next = nextShift(shiftRef.current);
         setShift(next);
@@ -224,8 +257,11 @@ export const TestKeyboard = ({
       }
       select(stepOf(key));
     },
-    [select, autoCapital, setShift],
+    [select, autoCapital, setShift, pauseTrial],
   );
+
+  // The pause dialog's choices (set below, once the trial's handlers exist).
+  const choosePauseRef = useRef<(id: PauseChoiceId) => void>(() => undefined);
 
   // Scanning and dwell call back later: read the newest row and keys through refs.
   const latest = useRef({ words, rows, pick, press });
@@ -254,6 +290,10 @@ export const TestKeyboard = ({
       if (key) now.press(key);
     }, []),
     onSwitch: session.logSwitch,
+    // In a trial: paused, the highlight waits where it is; Escape and a long press pause.
+    paused: session.paused,
+    onEscape: trialRunning ? pauseTrial : undefined,
+    onLongPress: trialRunning ? pauseTrial : undefined,
   });
 
   const dwell = useDwell({
@@ -262,6 +302,10 @@ export const TestKeyboard = ({
     refractoryMs: settings.dwellRefractoryMs,
     sound: settings.dwellSound,
     onActivate: useCallback((id: string) => {
+      if (pauseChoices.some((choice) => choice.id === id)) {
+        choosePauseRef.current(id as PauseChoiceId);
+        return;
+      }
       const now = latest.current;
       const slot = now.words.findIndex((_, index) => slotTargetId(index) === id);
       if (slot >= 0) {
@@ -297,6 +341,19 @@ export const TestKeyboard = ({
     return () => document.removeEventListener('keydown', onKeyDown);
   }, [physical, numberKeysPick]);
 
+  // ---- Escape pauses a running trial in every mode (scanning: through the scanner too) ------
+  const pausable = trialRunning && !session.paused;
+  useEffect(() => {
+    if (!pausable) return;
+    const onKeyDown = (event: KeyboardEvent) => {
+      if (event.key !== 'Escape') return;
+      event.preventDefault();
+      pauseTrial();
+    };
+    document.addEventListener('keydown', onKeyDown);
+    return () => document.removeEventListener('keydown', onKeyDown);
+  }, [pausable, pauseTrial]);
+
   const scanState = scanner.running ? scanner.state : null;
   // Group–row–key: the rows of the highlighted group (row 0 is the suggestion row).
   const scanGroupRows =
@@ -320,14 +377,35 @@ export const TestKeyboard = ({
     engine.resetLearning();
     setShift('off');
     setLayer('letters');
+    pausedRef.current = false;
+    focusAfterRef.current = null;
     session.start();
-    // The Start button gives way to Finish and Discard: focus goes to the message window, where
-    // the trial's text appears and from which Tab reaches the suggestions and the keys.
-    if (settings.selectionMode === 'scanning') startScanning();
-    else outputRef.current?.focus();
+    // The trial view opens: focus goes to its message window, where the trial's text appears and
+    // from which Tab reaches the suggestions and the keys (scanning starts from there too).
+    if (settings.selectionMode === 'scanning') scanner.start();
+  };
+
+  // The view has opened: focus its message window (the element exists only now). It has closed
+  // and the page is back: the results' heading, or Start after a discard.
+  useEffect(() => {
+    if (trialRunning) {
+      outputRef.current?.focus();
+      return;
+    }
+    const after = focusAfterRef.current;
+    focusAfterRef.current = null;
+    if (after === 'results') document.getElementById('trial-results-heading')?.focus();
+    else if (after === 'start') startRef.current?.focus();
+  }, [trialRunning]);
+
+  const resumeTrial = () => {
+    pausedRef.current = false;
+    session.resume();
+    outputRef.current?.focus();
   };
 
   const finishTrial = () => {
+    pausedRef.current = false;
     scanner.stop();
     const input = session.finish({
       phraseId,
@@ -344,6 +422,7 @@ export const TestKeyboard = ({
       extraKeys: usesKeysTheSimulationLacks(input.events),
     });
     setNote('');
+    focusAfterRef.current = 'results';
     pending
       .submit(versionId, input)
       .then((result) =>
@@ -362,13 +441,105 @@ export const TestKeyboard = ({
   };
 
   const discardTrial = () => {
+    pausedRef.current = false;
     scanner.stop();
     session.clear();
     setNote('');
+    focusAfterRef.current = 'start';
   };
+
+  useEffect(() => {
+    choosePauseRef.current = (id: PauseChoiceId) => {
+      if (!session.paused) return;
+      if (id === 'pause-resume') resumeTrial();
+      else if (id === 'pause-finish') {
+        if (selections > 0) finishTrial();
+      } else discardTrial();
+    };
+  });
+
+  // Paused in scanning: the scanner goes over the dialog's choices (a switch user can take each).
+  const pauseScanned = useChoiceScan({
+    enabled: session.paused && settings.selectionMode === 'scanning',
+    pattern: scanPattern,
+    intervalMs: settings.scanIntervalMs ?? 1000,
+    acceptMs: settings.scanAcceptMs ?? DEFAULT_SCAN_ACCEPT_MS,
+    available: pauseChoices.map((choice) => choice.id !== 'pause-finish' || selections > 0),
+    onChoose: useCallback((index: number) => {
+      const choice = pauseChoices[index];
+      if (choice) choosePauseRef.current(choice.id);
+    }, []),
+  });
 
   const hc = settings.highContrast;
   const figures = finished ? simulated(finished.slots) : null;
+  const dwellView = settings.selectionMode === 'dwell' ? dwell : null;
+
+  // The message window, the suggestion row and the keys: on the page to try the keyboard out, in
+  // the trial view while a trial runs.
+  const scanGroupAttr = scanGroupRows.filter((row) => row > 0).join(' ') || undefined;
+  const output = (
+    <TrialOutput
+      ref={outputRef}
+      text={session.text}
+      target={target}
+      textScale={settings.textScale}
+      highContrast={hc}
+      onClear={session.clear}
+      clearDisabled={session.running}
+    />
+  );
+  const suggestionRow = (
+    <SuggestionRow
+      slots={slots}
+      words={words}
+      seq={answer?.seq ?? null}
+      answersText={answer?.text ?? null}
+      engineMs={answer?.engineMs ?? null}
+      onPick={pick}
+      highContrast={hc}
+      largeTargets={settings.largeTargets}
+      reduceMotion={reduceMotion}
+      textScale={settings.textScale}
+      scan={
+        scanGroupRows.includes(0)
+          ? { level: 'rows', item: 0 }
+          : scanShown && scanShown.row === 0
+            ? { level: scanShown.level as 'rows' | 'items', item: scanShown.item }
+            : null
+      }
+      dwell={dwellView}
+      keySpacing={settings.keySpacing}
+    />
+  );
+  const keyGrid = (
+    <KeyGrid
+      rows={rows}
+      onSelect={press}
+      highContrast={hc}
+      largeTargets={settings.largeTargets}
+      reduceMotion={reduceMotion}
+      textScale={settings.textScale}
+      letterProbabilities={letterProbabilities}
+      scan={
+        scanShown && scanShown.row > 0
+          ? { level: scanShown.level as 'rows' | 'items', row: scanShown.row - 1, item: scanShown.item }
+          : null
+      }
+      dwell={dwellView}
+      keySpacing={settings.keySpacing}
+    />
+  );
+  // Said by a hidden live region in the view or on the page, wherever the keys are.
+  const scanAnnouncer = (
+    <ScanAnnouncer
+      enabled={settings.scanAnnounce && settings.selectionMode === 'scanning'}
+      state={scanState}
+      words={words}
+      keyRows={rows}
+      config={{ pattern: scanPattern, suggestionsAt }}
+    />
+  );
 
   return (
     <div className="flex flex-col gap-8">
@@ -388,6 +559,11 @@ export const TestKeyboard = ({
           Each trial starts from the version as trained and learns every word finished in it, as the client’s
           device does and as the version’s simulated figures assume.
         </p>
+        <p className="text-ink-soft">
+          Start trial opens the keyboard on its own, filling the screen. Escape, the Pause key or (scanning)
+          holding the switch for {LONG_PRESS_MS / 1000} seconds pauses it; from the pause you resume, finish
+          or discard the trial and can add a note.
+        </p>
         <div className="grid gap-4 md:grid-cols-2">
           <PhrasePicker
             phrases={phrases}
@@ -395,43 +571,21 @@ export const TestKeyboard = ({
             onChange={setPhraseId}
             disabled={session.running}
           />
-          {session.running && (
-            <div className="flex flex-col gap-1">
-              <label htmlFor={noteId} className="font-bold">
-                Note about this trial (optional)
-              </label>
-              <input
-                id={noteId}
-                className={fieldClasses(false)}
-                value={note}
-                maxLength={2000}
-                onChange={(event) => setNote(event.target.value)}
-              />
-            </div>
-          )}
         </div>
         {phraseExtra}
         <div role="group" aria-label="Trial" className="flex flex-wrap items-center gap-3">
-          {!session.running ? (
-            <Button
-              variant="primary"
-              onClick={startTrial}
-              disabled={engine.status !== 'ready' || !canLogTrials}
-            >
-              Start trial
-            </Button>
-          ) : (
-            <>
-              <Button variant="primary" onClick={finishTrial} disabled={selections === 0}>
-                Finish trial
-              </Button>
-              <Button onClick={discardTrial}>Discard</Button>
-            </>
-          )}
+          <Button
+            ref={startRef}
+            variant="primary"
+            onClick={startTrial}
+            disabled={engine.status !== 'ready' || !canLogTrials || session.running}
+          >
+            Start trial
+          </Button>
           <p className="text-ink-soft" data-trial-state={session.running ? 'running' : 'stopped'}>
             {session.running
               ? `Trial running: ${selections} ${selections === 1 ? 'selection' : 'selections'} so far.`
-              : 'No trial running: you can type to get a feel for it; nothing is logged.'}
+              : 'No trial running: you can type below to get a feel for it; nothing is logged.'}
           </p>
           {pending.pending > 0 && (
             <p className="font-bold" data-pending-trials={pending.pending}>
@@ -463,86 +617,66 @@ export const TestKeyboard = ({
         />
       )}
 
-      <section
-        aria-labelledby="keyboard-heading"
-        // Group–row–key: the highlighted group's key rows (1-based), outlined by index.css.
-        data-scan-group={scanGroupRows.filter((row) => row > 0).join(' ') || undefined}
-        className={cn(
-          'flex flex-col gap-4 rounded-xl border-2 p-3 sm:p-5',
-          hc ? 'on-dark border-white bg-black text-white' : 'border-thread bg-paper-deep',
-        )}
-      >
-        <h2 id="keyboard-heading" className="text-2xl font-bold">
-          Keyboard
-        </h2>
-        <TrialOutput
-          ref={outputRef}
-          text={session.text}
-          target={target}
-          textScale={settings.textScale}
+      {session.running ? (
+        <TrialView
+          paused={session.paused}
+          onLeaveFullscreen={pauseTrial}
           highContrast={hc}
-          onClear={session.clear}
-          clearDisabled={session.running}
-        />
-        {settings.selectionMode === 'scanning' && (
-          <div className="flex flex-wrap items-center gap-3">
-            {scanner.running ? (
-              <Button onClick={scanner.stop}>Stop scanning (Escape)</Button>
-            ) : (
-              <Button variant="primary" onClick={startScanning} disabled={engine.status !== 'ready'}>
-                Start scanning
-              </Button>
-            )}
-            <p className={hc ? 'text-white' : 'text-ink-soft'} data-scan-help={scanPattern}>
-              {scanHelp[scanPattern]}
-            </p>
+          pauseDialog={
+            <TrialPauseDialog
+              selections={selections}
+              canFinish={selections > 0}
+              onChoose={(id) => choosePauseRef.current(id)}
+              note={note}
+              onNoteChange={setNote}
+              scanned={pauseScanned}
+              dwell={dwellView}
+              highContrast={hc}
+              reduceMotion={reduceMotion}
+            />
+          }
+        >
+          {output}
+          {suggestionRow}
+          {/* The key rows share the height left (index.css, data-trial-keys). */}
+          <div data-trial-keys data-scan-group={scanGroupAttr} className="min-h-0 flex-1">
+            {keyGrid}
           </div>
-        )}
-        <SuggestionRow
-          slots={slots}
-          words={words}
-          seq={answer?.seq ?? null}
-          answersText={answer?.text ?? null}
-          engineMs={answer?.engineMs ?? null}
-          onPick={pick}
-          highContrast={hc}
-          largeTargets={settings.largeTargets}
-          reduceMotion={reduceMotion}
-          textScale={settings.textScale}
-          scan={
-            scanGroupRows.includes(0)
-              ? { level: 'rows', item: 0 }
-              : scanShown && scanShown.row === 0
-                ? { level: scanShown.level as 'rows' | 'items', item: scanShown.item }
-                : null
-          }
-          dwell={settings.selectionMode === 'dwell' ? dwell : null}
-          keySpacing={settings.keySpacing}
-        />
-        <KeyGrid
-          rows={rows}
-          onSelect={press}
-          highContrast={hc}
-          largeTargets={settings.largeTargets}
-          reduceMotion={reduceMotion}
-          textScale={settings.textScale}
-          letterProbabilities={letterProbabilities}
-          scan={
-            scanShown && scanShown.row > 0
-              ? { level: scanShown.level as 'rows' | 'items', row: scanShown.row - 1, item: scanShown.item }
-              : null
-          }
-          dwell={settings.selectionMode === 'dwell' ? dwell : null}
-          keySpacing={settings.keySpacing}
-        />
-        <ScanAnnouncer
-          enabled={settings.scanAnnounce && settings.selectionMode === 'scanning'}
-          state={scanState}
-          words={words}
-          keyRows={rows}
-          config={{ pattern: scanPattern, suggestionsAt }}
-        />
-      </section>
+          {scanAnnouncer}
+        </TrialView>
+      ) : (
+        <section
+          aria-labelledby="keyboard-heading"
+          // Group–row–key: the highlighted group's key rows (1-based), outlined by index.css.
+          data-scan-group={scanGroupAttr}
+          className={cn(
+            'flex flex-col gap-4 rounded-xl border-2 p-3 sm:p-5',
+            hc ? 'on-dark border-white bg-black text-white' : 'border-thread bg-paper-deep',
+          )}
+        >
+          <h2 id="keyboard-heading" className="text-2xl font-bold">
+            Keyboard
+          </h2>
+          {output}
+          {settings.selectionMode === 'scanning' && (
+            <div className="flex flex-wrap items-center gap-3">
+              {scanner.running ? (
+                <Button onClick={scanner.stop}>Stop scanning (Escape)</Button>
+              ) : (
+                <Button variant="primary" onClick={startScanning} disabled={engine.status !== 'ready'}>
+                  Start scanning
+                </Button>
+              )}
+              <p className={hc ? 'text-white' : 'text-ink-soft'} data-scan-help={scanPattern}>
+                {scanHelp[scanPattern]}
+              </p>
+            </div>
+          )}
+          {suggestionRow}
+          {keyGrid}
+          {scanAnnouncer}
+        </section>
+      )}
 
       <SettingsPanel
         settings={settings}

@@ -44,7 +44,8 @@ export const TrialResults = ({
       aria-labelledby="trial-results-heading"
       className="flex flex-col gap-4 rounded-xl border-2 border-ink bg-surface p-4 sm:p-6"
     >
-      <h2 id="trial-results-heading" className="text-2xl font-bold">
+      {/* Focused when a trial finishes (the trial view has closed). */}
+      <h2 id="trial-results-heading" tabIndex={-1} className="text-2xl font-bold">
         This trial
       </h2>
       <div
@@ -81,8 +82,11 @@ export const TrialResults = ({
         </dd>
         <dt className="font-bold">Corrections</dt>
         <dd>{measures.errorsCorrected}</dd>
-        <dt className="font-bold">Time</dt>
-        <dd>{duration(measures.durationMs)}</dd>
+        <dt className="font-bold">Time typing</dt>
+        <dd data-measure="duration">
+          {duration(measures.durationMs)}
+          {(measures.pausedMs ?? 0) > 0 && ` (${duration(measures.pausedMs ?? 0)} paused, left out)`}
+        </dd>
         <dt className="font-bold">Error rate against the phrase</dt>
         <dd>{percentOrDash(measures.errorRate)}</dd>
       </dl>
@@ -93,6 +97,9 @@ export const TrialResults = ({
           alone.
         </p>
       )}
+      <p className="max-w-3xl text-ink-soft" data-paused-note>
+        Paused time is left out of words per minute.
+      </p>
       <p className="max-w-3xl text-ink-soft">
         Keystroke savings are not time savings: reading the suggestions takes time, so fewer keys can still be
         slower.

@@ -192,3 +192,80 @@ describe('useScanner patterns', () => {
     expect(result.current.state).toEqual({ level: 'groups', group: 0, row: 1, item: 0, idlePasses: 0 });
   });
 });
+
+describe('useScanner in a trial: pause, Escape and a long press', () => {
+  beforeEach(() => vi.useFakeTimers());
+  afterEach(() => vi.useRealTimers());
+
+  const setup = (pattern: ScanPattern) => {
+    const onSelect = vi.fn();
+    const onEscape = vi.fn();
+    const onLongPress = vi.fn();
+    const hook = renderHook(
+      (props: { paused: boolean }) =>
+        useScanner({
+          enabled: true,
+          intervalMs: 200,
+          pattern,
+          acceptMs: 1000,
+          rowLengths: [2, 10, 9, 7],
+          onSelect,
+          onSwitch: () => undefined,
+          paused: props.paused,
+          onEscape,
+          onLongPress,
+        }),
+      { initialProps: { paused: false } },
+    );
+    act(() => hook.result.current.start());
+    return { ...hook, onSelect, onEscape, onLongPress };
+  };
+  const up = (key: string) =>
+    act(() => {
+      document.body.dispatchEvent(new KeyboardEvent('keyup', { key, bubbles: true, cancelable: true }));
+    });
+
+  it('paused: the highlight stays, the switch is left alone; it goes on from there', () => {
+    const { result, rerender, onSelect } = setup('auto-row-column');
+    act(() => vi.advanceTimersByTime(400));
+    expect(result.current.state?.row).toBe(2);
+    rerender({ paused: true });
+    act(() => vi.advanceTimersByTime(2000));
+    expect(result.current.state?.row).toBe(2);
+    expect(press(' ').defaultPrevented).toBe(false);
+    expect(onSelect).not.toHaveBeenCalled();
+    rerender({ paused: false });
+    expect(result.current.state?.row).toBe(2);
+    act(() => vi.advanceTimersByTime(200));
+    expect(result.current.state?.row).toBe(3);
+  });
+
+  it('Escape calls onEscape instead of stopping; a switch held 2 s is a long press, a shorter one is not', () => {
+    const { result, onEscape, onLongPress } = setup('step-two-switch');
+    press('Escape');
+    expect(onEscape).toHaveBeenCalledOnce();
+    expect(result.current.running).toBe(true);
+    press(' ');
+    act(() => vi.advanceTimersByTime(1999));
+    up(' ');
+    act(() => vi.advanceTimersByTime(5000));
+    expect(onLongPress).not.toHaveBeenCalled();
+    press(' ');
+    act(() => vi.advanceTimersByTime(2000));
+    expect(onLongPress).toHaveBeenCalledOnce();
+  });
+
+  it('step, one switch: nothing is chosen while the switch is held; the acceptance time counts from its release', () => {
+    const { result } = setup('step-one-switch');
+    press(' '); // row 0 highlighted, the switch still held
+    expect(result.current.state).toMatchObject({ level: 'rows', row: 0 });
+    act(() => vi.advanceTimersByTime(1500));
+    expect(result.current.state).toMatchObject({ level: 'rows', row: 0 });
+    up(' ');
+    act(() => vi.advanceTimersByTime(999));
+    expect(result.current.state).toMatchObject({ level: 'rows', row: 0 });
+    act(() => vi.advanceTimersByTime(1));
+    // Chosen: the row is entered.
+    expect(result.current.state).toMatchObject({ level: 'items', row: 0 });
+  });
+});

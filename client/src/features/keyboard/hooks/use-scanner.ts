@@ -1,7 +1,8 @@
 // Scanning over the suggestion row and the key grid (logic/scanner.ts) in the chosen pattern.
 // Automatic patterns: a timer moves the highlight; Space or Enter is the switch. Step, one switch:
 // Space (or Enter) moves one step; a pause of the acceptance time chooses. Step, two switches:
-// Space moves, Enter chooses; no timer.
+// Space moves, Enter chooses; no timer. A trial can pause the scan (it goes on where it was), take
+// Escape for itself and hear a long press of the switch.
 import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import {
   fitScanState,
@@ -33,7 +34,21 @@ export type ScannerOptions = {
   onSelect: (row: number, item: number) => void;
   /** Called for every switch press (log it as a `switch` step); two switches say which one. */
   onSwitch: (value?: 'move' | 'select') => void;
+  /**
+   * While true the highlight stays where it is: no timer moves or chooses, and the switch keys and
+   * Escape are left alone (a paused trial). Scanning goes on from there when it turns false.
+   */
+  paused?: boolean;
+  /** Escape calls this instead of stopping the scan (a trial pauses). */
+  onEscape?: () => void;
+  /** A switch key held down for `longPressMs` calls this once (a trial pauses). */
+  onLongPress?: () => void;
+  /** How long a press must be held to count as a long press, ms (default LONG_PRESS_MS). */
+  longPressMs?: number;
 };
+
+/** A switch held this long is a long press, ms (common practice, no source). */
+export const LONG_PRESS_MS = 2000;
 
 const SWITCH_KEYS = new Set([' ', 'Spacebar', 'Enter']);
 const MOVE_KEYS = new Set([' ', 'Spacebar']);
@@ -41,7 +56,7 @@ const MOVE_KEYS = new Set([' ', 'Spacebar']);
 /**
  * Runs scanning. While running, a keydown of Space or Enter anywhere in the document is a switch
  * (its default is prevented, so the page neither scrolls nor clicks the focused control); a held key
- * does not repeat; Escape stops. Automatic: after a press the highlight stays a whole interval before
+ * does not repeat; Escape stops (or calls `onEscape`); a key held for `longPressMs` calls `onLongPress`. Automatic: after a press the highlight stays a whole interval before
  * moving on. Step, one switch: the acceptance time counts from the last press.
  */
 export function useScanner(o: ScannerOptions): {
@@ -87,6 +102,11 @@ export function useScanner(o: ScannerOptions): {
   }, [update]);
 
   const active = running && enabled;
+  // Running and not paused: the timers run and the switch keys are taken.
+  const live = active && !o.paused;
+  // A switch key is down (a long press may be coming); released presses restart the acceptance time.
+  const holdingRef = useRef(false);
+  const [releaseCount, setReleaseCount] = useState(0);
 
   // Keep the highlight valid when the rows change (the suggestion row grows and shrinks).
   const lengthsKey = o.rowLengths.join(',');
@@ -110,7 +130,7 @@ export function useScanner(o: ScannerOptions): {
 
   // Automatic: the highlight moves at every interval.
   useEffect(() => {
-    if (!active || !automatic) return;
+    if (!live || !automatic) return;
     const timer = setInterval(
       () => {
         update(scanAdvance(stateRef.current, optionsRef.current.rowLengths, configRef.current));
@@ -118,28 +138,52 @@ export function useScanner(o: ScannerOptions): {
       Math.max(100, intervalMs),
     );
     return () => clearInterval(timer);
-  }, [active, automatic, intervalMs, pressCount, update]);
+  }, [live, automatic, intervalMs, pressCount, update]);
 
-  // Step, one switch: the acceptance time after the last press chooses what is highlighted.
+  // Step, one switch: the acceptance time after the last press chooses what is highlighted. While
+  // the switch is still held (a long press may be coming) nothing is chosen; its release starts the
+  // acceptance time again.
   useEffect(() => {
-    if (!active || pattern !== 'step-one-switch' || pressCount === 0) return;
+    if (!live || pattern !== 'step-one-switch' || pressCount === 0) return;
     if (stateRef.current === null || stateRef.current.waiting) return;
-    const timer = setTimeout(choose, Math.max(100, acceptMs));
+    const timer = setTimeout(
+      () => {
+        if (holdingRef.current && optionsRef.current.onLongPress) return;
+        choose();
+      },
+      Math.max(100, acceptMs),
+    );
     return () => clearTimeout(timer);
-  }, [active, pattern, acceptMs, pressCount, choose]);
+  }, [live, pattern, acceptMs, pressCount, releaseCount, choose]);
 
   useEffect(() => {
-    if (!active) return;
+    if (!live) return;
+    let longPress: ReturnType<typeof setTimeout> | null = null;
+    const endHold = () => {
+      holdingRef.current = false;
+      if (longPress !== null) clearTimeout(longPress);
+      longPress = null;
+    };
     const onKeyDown = (event: KeyboardEvent) => {
       if (event.key === 'Escape') {
         event.preventDefault();
-        stop();
+        const { onEscape } = optionsRef.current;
+        if (onEscape) onEscape();
+        else stop();
         return;
       }
       if (!SWITCH_KEYS.has(event.key)) return;
       event.preventDefault();
       if (event.repeat) return;
       const options = optionsRef.current;
+      if (options.onLongPress) {
+        endHold();
+        holdingRef.current = true;
+        longPress = setTimeout(() => {
+          endHold();
+          optionsRef.current.onLongPress?.();
+        }, options.longPressMs ?? LONG_PRESS_MS);
+      }
       const { pattern: now } = configRef.current;
       if (now === 'step-two-switch') {
         const move = MOVE_KEYS.has(event.key);
@@ -157,15 +201,19 @@ export function useScanner(o: ScannerOptions): {
     };
     // A focused button clicks on the keyup of Space: stop that too while Space is the switch.
     const onKeyUp = (event: KeyboardEvent) => {
-      if (SWITCH_KEYS.has(event.key)) event.preventDefault();
+      if (!SWITCH_KEYS.has(event.key)) return;
+      event.preventDefault();
+      if (holdingRef.current) setReleaseCount((n) => n + 1);
+      endHold();
     };
     document.addEventListener('keydown', onKeyDown);
     document.addEventListener('keyup', onKeyUp);
     return () => {
+      endHold();
       document.removeEventListener('keydown', onKeyDown);
       document.removeEventListener('keyup', onKeyUp);
     };
-  }, [active, choose, stop, update]);
+  }, [live, choose, stop, update]);
 
   // Turning the option off ends a running scan.
   useEffect(() => {

@@ -24,6 +24,8 @@ export type TrialFinish = {
 export type TrialSession = {
   text: string;
   running: boolean;
+  /** A running trial is paused: nothing is typed until it resumes. */
+  paused: boolean;
   events: TrialEvent[];
   startedAt: string | null;
   /** Whether a suggestion pick can be undone (an `undo_pick` step would be accepted). */
@@ -37,6 +39,10 @@ export type TrialSession = {
   logSwitch: (value?: 'move' | 'select') => void;
   /** Logs the suggestion row shown, when it differs from the last one logged, while a trial runs. */
   logOffer: (words: string[]) => void;
+  /** Pauses the running trial (logs `pause`); does nothing when none runs or it is paused already. */
+  pause: () => void;
+  /** Takes a paused trial up again (logs `resume`); does nothing unless paused. */
+  resume: () => void;
   /** Starts a trial on an empty text (the API replays the log from an empty text). */
   start: () => void;
   /** Empties the text and ends any trial without keeping its log. */
@@ -59,6 +65,7 @@ export function useTrialSession(): TrialSession {
   const [text, setText] = useState('');
   const [canUndoPick, setCanUndoPick] = useState(false);
   const [running, setRunning] = useState(false);
+  const [paused, setPaused] = useState(false);
   const [events, setEvents] = useState<TrialEvent[]>([]);
   const [startedAt, setStartedAt] = useState<string | null>(null);
 
@@ -66,6 +73,7 @@ export function useTrialSession(): TrialSession {
   const stateRef = useRef<TrialReplayState>(emptyReplayState);
   const eventsRef = useRef<TrialEvent[]>([]);
   const runningRef = useRef(false);
+  const pausedRef = useRef(false);
   const startRef = useRef(0);
   const startedAtRef = useRef<string | null>(null);
   const lastOfferRef = useRef<string[] | undefined>(undefined);
@@ -99,6 +107,18 @@ export function useTrialSession(): TrialSession {
     [log],
   );
 
+  const setPause = useCallback(
+    (on: boolean) => {
+      if (!runningRef.current || pausedRef.current === on) return;
+      pausedRef.current = on;
+      setPaused(on);
+      log({ t: elapsed(), type: on ? 'pause' : 'resume' });
+    },
+    [log],
+  );
+  const pause = useCallback(() => setPause(true), [setPause]);
+  const resume = useCallback(() => setPause(false), [setPause]);
+
   const logOffer = useCallback(
     (words: string[]) => {
       // The log keeps at most 10 words of at most 64 characters (trialEventSchema).
@@ -115,6 +135,8 @@ export function useTrialSession(): TrialSession {
     setCanUndoPick(false);
     eventsRef.current = [];
     runningRef.current = run;
+    pausedRef.current = false;
+    setPaused(false);
     lastOfferRef.current = undefined;
     startRef.current = performance.now();
     startedAtRef.current = run ? new Date().toISOString() : null;
@@ -133,7 +155,9 @@ export function useTrialSession(): TrialSession {
       throw new Error('The trial has no key presses yet.');
     }
     runningRef.current = false;
+    pausedRef.current = false;
     setRunning(false);
+    setPaused(false);
     return {
       localTrialId: crypto.randomUUID(),
       startedAt: startedAtRef.current,
@@ -147,5 +171,20 @@ export function useTrialSession(): TrialSession {
     };
   }, []);
 
-  return { text, running, events, startedAt, canUndoPick, select, logSwitch, logOffer, start, clear, finish };
+  return {
+    text,
+    running,
+    paused,
+    events,
+    startedAt,
+    canUndoPick,
+    select,
+    logSwitch,
+    logOffer,
+    pause,
+    resume,
+    start,
+    clear,
+    finish,
+  };
 }

@@ -1,6 +1,7 @@
 // The test keyboard's keys come from @keyloom/shared (shared/src/keyboard: the letter orders, the
 // symbols layer, the control and function rows), the same rows the profile report measures scan steps
 // on. What stays here is typing behaviour the keys do not show.
+import type { KeyDef } from '@keyloom/shared';
 export {
   controlRow,
   functionRow,
@@ -23,3 +24,12 @@ export const atSentenceStart = (text: string): boolean => SENTENCE_START.test(te
 
 /** Whether a key is a letter of the alphabet (its case follows shift and the automatic capital). */
 export const hasCase = (value: string): boolean => value.toLowerCase() !== value.toUpperCase();
+
+/** The trial view's Pause key, a row of its own under the function row there: it pauses the trial, types nothing. */
+export const pauseKey: KeyDef = {
+  id: 'pause',
+  kind: 'pause',
+  value: '',
+  label: 'Pause',
+  spokenLabel: 'Pause',
+};
