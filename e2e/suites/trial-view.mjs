@@ -136,27 +136,30 @@ export const trialViewSuite = {
         await page.setViewportSize(VIEWPORT);
 
         const engine = [];
-        /** Rests the mouse on a target's centre until the text reads `after`, then moves off. */
+        /**
+         * Rests the mouse on a target's centre until the text reads `after` (a string) or `after.until`
+         * reaches `after.state` (default visible), then moves off. Waiting for the effect, not a fixed
+         * time: after each selection the dwell's refractory time (default 300 ms) comes first.
+         */
         const dwellOn = async (selector, after) => {
           const box = await page.locator(selector).boundingBox();
           assert.ok(box, `${selector} is on screen`);
           await page.mouse.move(box.x + box.width / 2, box.y + box.height / 2);
-          if (after !== undefined) {
+          if (typeof after === 'string') {
             await textIs(page, after);
             engine.push(await engineMs(page));
-          } else await page.waitForTimeout(400);
+          } else await after.until.waitFor({ state: after.state ?? 'visible' });
           await page.mouse.move(2, 2);
         };
-        await dwellOn('[data-key="shift"]');
-        await page.locator('[data-key="shift"][aria-pressed="true"]').waitFor();
+        await dwellOn('[data-key="shift"]', {
+          until: page.locator('[data-key="shift"][aria-pressed="true"]'),
+        });
         await dwellOn('[data-key="letter-h"]', 'H');
         await dwellOn('[data-key="letter-i"]', 'Hi');
         await dwellOn('[data-key="space"]', 'Hi ');
-        await dwellOn('[data-key="layer"]');
-        await page.locator('[data-key="digit-2"]').waitFor();
+        await dwellOn('[data-key="layer"]', { until: page.locator('[data-key="digit-2"]') });
         await dwellOn('[data-key="digit-2"]', 'Hi 2');
-        await dwellOn('[data-key="layer"]');
-        await page.locator('[data-key="letter-g"]').waitFor();
+        await dwellOn('[data-key="layer"]', { until: page.locator('[data-key="letter-g"]') });
         await dwellOn('[data-key="newline"]', 'Hi 2\n');
         await dwellOn('[data-key="letter-g"]', 'Hi 2\ng');
         const word = await firstSuggestion(page);
@@ -165,8 +168,7 @@ export const trialViewSuite = {
         await dwellOn('[data-key="undo-pick"]', 'Hi 2\ng');
 
         // The Pause key: the pause dialog, Resume focused.
-        await dwellOn('[data-key="pause"]');
-        await pauseDialog(page).waitFor();
+        await dwellOn('[data-key="pause"]', { until: pauseDialog(page) });
         assert.equal(
           await page.evaluate(() => document.activeElement?.textContent?.trim()),
           'Resume trial',
@@ -175,16 +177,14 @@ export const trialViewSuite = {
         assert.deepEqual(await t.seriousViolations(page, 'pause dialog (dwell)'), []);
         await page.screenshot({ path: '/tmp/trial-view-dwell-paused.png' });
         await page.waitForTimeout(300); // a pause worth leaving out
-        await dwellOn('[data-pause-choice="pause-resume"]');
-        await pauseDialog(page).waitFor({ state: 'detached' });
+        await dwellOn('[data-pause-choice="pause-resume"]', { until: pauseDialog(page), state: 'detached' });
         await dwellOn('[data-key="letter-o"]', 'Hi 2\ngo');
         await printLatency(page, 'dwell trial view', engine);
 
         // Escape pauses too; Finish (dwelt on) closes the view and shows the results.
         await page.keyboard.press('Escape');
         await pauseDialog(page).waitFor();
-        await dwellOn('[data-pause-choice="pause-finish"]');
-        await page.getByText('The trial is saved.').waitFor();
+        await dwellOn('[data-pause-choice="pause-finish"]', { until: page.getByText('The trial is saved.') });
         assert.equal(await page.evaluate(() => document.activeElement?.id), 'trial-results-heading');
         await checkStored(page, t, versionId, countBefore, 'Hi 2\ngo', 'dwell');
         await signOut(page, 'Carer');
