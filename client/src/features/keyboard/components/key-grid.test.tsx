@@ -140,3 +140,36 @@ describe('SuggestionRow targets, spacing and dwell', () => {
     expect(group.style.gridTemplateColumns).toBe('repeat(4, minmax(0, 1fr))');
   });
 });
+
+describe('KeyGrid keeps the scan highlight in sight', () => {
+  it('scrolls the scanned row, then the scanned key, into view (a wrapped grid may scroll)', () => {
+    const scrolled: Element[] = [];
+    const original = Element.prototype.scrollIntoView;
+    Element.prototype.scrollIntoView = function (this: Element) {
+      scrolled.push(this);
+    };
+    try {
+      const { rerender } = grid({ scan: { level: 'rows', row: 2, item: 0 } });
+      expect(scrolled.at(-1)).toBe(keyRowsOf()[2]);
+      rerender(gridOf({ scan: { level: 'items', row: 2, item: 3 } }));
+      expect(scrolled.at(-1)).toBe(keyRowsOf()[2]!.children[3]);
+      expect((scrolled.at(-1) as HTMLElement).dataset.key).toBe(rows[2]![3]!.id);
+    } finally {
+      Element.prototype.scrollIntoView = original;
+    }
+  });
+
+  it('brings a highlighted group into sight: its last row, then its first', () => {
+    const scrolled: Element[] = [];
+    const original = Element.prototype.scrollIntoView;
+    Element.prototype.scrollIntoView = function (this: Element) {
+      scrolled.push(this);
+    };
+    try {
+      grid({ scanGroupRows: [3, 4] });
+      expect(scrolled).toEqual([keyRowsOf()[4], keyRowsOf()[3]]);
+    } finally {
+      Element.prototype.scrollIntoView = original;
+    }
+  });
+});

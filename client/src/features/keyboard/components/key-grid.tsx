@@ -1,4 +1,4 @@
-import { memo, type KeyboardEvent, useRef, useState } from 'react';
+import { memo, type KeyboardEvent, useCallback, useEffect, useRef, useState } from 'react';
 import type { KeySpacing } from '@keyloom/shared';
 import type { KeyDef } from '../logic/layouts';
 import { useElementWidth } from '../hooks/use-element-width';
@@ -36,6 +36,8 @@ type KeyGridProps = {
   letterProbabilities: ReadonlyMap<string, number> | null;
   scan: GridScan;
   dwell: DwellView;
+  /** Group–row–key: the key rows (0-based) of the highlighted group, kept in sight; else none. */
+  scanGroupRows?: readonly number[];
   /** The gap between keys and between rows (small, the default, is 8 px). */
   keySpacing?: KeySpacing;
 };
@@ -75,6 +77,7 @@ export const KeyGrid = memo(function KeyGrid({
   scan,
   dwell,
   keySpacing = 'small',
+  scanGroupRows,
 }: KeyGridProps) {
   const gap = keySpacingPx[keySpacing];
   // A row is the group's width less its own padding (p-1, 4 px a side).
@@ -95,6 +98,35 @@ export const KeyGrid = memo(function KeyGrid({
       : [],
   );
 
+  // Where the view scrolls (large targets wrapped on a small screen), the scanned row or key is
+  // brought into sight, so a switch user always sees the highlight.
+  const groupRef = useRef<HTMLDivElement | null>(null);
+  const groupRefs = useCallback(
+    (element: HTMLDivElement | null) => {
+      groupRef.current = element;
+      widthRef(element);
+    },
+    [widthRef],
+  );
+  const scanRow = scan?.row ?? null;
+  const scanItem = scan?.level === 'items' ? scan.item : null;
+  // Group–row–key: the highlighted group's rows (0-based key rows), outlined by index.css.
+  const groupKey = scanGroupRows?.join(' ') ?? '';
+  useEffect(() => {
+    if (groupKey === '') return;
+    const rowsOfGroup = groupKey.split(' ').map(Number);
+    const children = groupRef.current?.children;
+    // The last row first, then the first: the whole group in sight where it fits, its top where not.
+    children?.[rowsOfGroup.at(-1)!]?.scrollIntoView?.({ block: 'nearest' });
+    children?.[rowsOfGroup[0]!]?.scrollIntoView?.({ block: 'nearest' });
+  }, [groupKey]);
+  useEffect(() => {
+    if (scanRow === null) return;
+    const rowElement = groupRef.current?.children[scanRow];
+    const target = scanItem === null ? rowElement : rowElement?.children[scanItem];
+    target?.scrollIntoView?.({ block: 'nearest' });
+  }, [scanRow, scanItem]);
+
   const moveFocus = (event: KeyboardEvent<HTMLButtonElement>, r: number, c: number) => {
     let next: [number, number] | null = null;
     const move = moves[event.key];
@@ -112,7 +144,7 @@ export const KeyGrid = memo(function KeyGrid({
 
   return (
     <div
-      ref={widthRef}
+      ref={groupRefs}
       role="group"
       aria-label="Keys"
       data-key-spacing={keySpacing}
