@@ -141,35 +141,35 @@ describe('SuggestionRow targets, spacing and dwell', () => {
   });
 });
 
+/** The elements scrollIntoView was called on while `run` ran (jsdom has no scrolling of its own). */
+const scrollsDuring = (run: () => void): Element[] => {
+  const scrolled: Element[] = [];
+  const original = Element.prototype.scrollIntoView;
+  Element.prototype.scrollIntoView = function (this: Element) {
+    scrolled.push(this);
+  };
+  try {
+    run();
+  } finally {
+    Element.prototype.scrollIntoView = original;
+  }
+  return scrolled;
+};
+
 describe('KeyGrid keeps the scan highlight in sight', () => {
   it('scrolls the scanned row, then the scanned key, into view (a wrapped grid may scroll)', () => {
-    const scrolled: Element[] = [];
-    const original = Element.prototype.scrollIntoView;
-    Element.prototype.scrollIntoView = function (this: Element) {
-      scrolled.push(this);
-    };
-    try {
-      const { rerender } = grid({ scan: { level: 'rows', row: 2, item: 0 } });
-      expect(scrolled.at(-1)).toBe(keyRowsOf()[2]);
-      rerender(gridOf({ scan: { level: 'items', row: 2, item: 3 } }));
-      expect(scrolled.at(-1)).toBe(keyRowsOf()[2]!.children[3]);
-      expect((scrolled.at(-1) as HTMLElement).dataset.key).toBe(rows[2]![3]!.id);
-    } finally {
-      Element.prototype.scrollIntoView = original;
-    }
+    let rerender: (ui: ReturnType<typeof gridOf>) => void = () => undefined;
+    const onRow = scrollsDuring(() => {
+      rerender = grid({ scan: { level: 'rows', row: 2, item: 0 } }).rerender;
+    });
+    expect(onRow.at(-1)).toBe(keyRowsOf()[2]);
+    const onKey = scrollsDuring(() => rerender(gridOf({ scan: { level: 'items', row: 2, item: 3 } })));
+    expect(onKey.at(-1)).toBe(keyRowsOf()[2]!.children[3]);
+    expect((onKey.at(-1) as HTMLElement).dataset.key).toBe(rows[2]![3]!.id);
   });
 
   it('brings a highlighted group into sight: its last row, then its first', () => {
-    const scrolled: Element[] = [];
-    const original = Element.prototype.scrollIntoView;
-    Element.prototype.scrollIntoView = function (this: Element) {
-      scrolled.push(this);
-    };
-    try {
-      grid({ scanGroupRows: [3, 4] });
-      expect(scrolled).toEqual([keyRowsOf()[4], keyRowsOf()[3]]);
-    } finally {
-      Element.prototype.scrollIntoView = original;
-    }
+    const scrolled = scrollsDuring(() => grid({ scanGroupRows: [3, 4] }));
+    expect(scrolled).toEqual([keyRowsOf()[4], keyRowsOf()[3]]);
   });
 });
