@@ -169,7 +169,7 @@ describe('KeyGrid keeps the scan highlight in sight', () => {
   });
 
   it('brings a highlighted group into sight: its last row, then its first', () => {
-    const scrolled = scrollsDuring(() => grid({ scanGroupRows: [3, 4] }));
+    const scrolled = scrollsDuring(() => grid({ scanGroup: '4 5' }));
     expect(scrolled).toEqual([keyRowsOf()[4], keyRowsOf()[3]]);
   });
 });

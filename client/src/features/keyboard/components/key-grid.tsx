@@ -36,8 +36,11 @@ type KeyGridProps = {
   letterProbabilities: ReadonlyMap<string, number> | null;
   scan: GridScan;
   dwell: DwellView;
-  /** Group–row–key: the key rows (0-based) of the highlighted group, kept in sight; else none. */
-  scanGroupRows?: readonly number[];
+  /**
+   * Group–row–key: the highlighted group's key rows, 1-based and space-separated (the section's
+   * `data-scan-group`), kept in sight; else none.
+   */
+  scanGroup?: string;
   /** The gap between keys and between rows (small, the default, is 8 px). */
   keySpacing?: KeySpacing;
 };
@@ -77,7 +80,7 @@ export const KeyGrid = memo(function KeyGrid({
   scan,
   dwell,
   keySpacing = 'small',
-  scanGroupRows,
+  scanGroup,
 }: KeyGridProps) {
   const gap = keySpacingPx[keySpacing];
   // A row is the group's width less its own padding (p-1, 4 px a side).
@@ -110,16 +113,15 @@ export const KeyGrid = memo(function KeyGrid({
   );
   const scanRow = scan?.row ?? null;
   const scanItem = scan?.level === 'items' ? scan.item : null;
-  // Group–row–key: the highlighted group's rows (0-based key rows), outlined by index.css.
-  const groupKey = scanGroupRows?.join(' ') ?? '';
+  // Group–row–key: the highlighted group's rows (outlined by index.css).
   useEffect(() => {
-    if (groupKey === '') return;
-    const rowsOfGroup = groupKey.split(' ').map(Number);
+    if (!scanGroup) return;
+    const rowsOfGroup = scanGroup.split(' ').map((row) => Number(row) - 1);
     const children = groupRef.current?.children;
     // The last row first, then the first: the whole group in sight where it fits, its top where not.
     children?.[rowsOfGroup.at(-1)!]?.scrollIntoView?.({ block: 'nearest' });
     children?.[rowsOfGroup[0]!]?.scrollIntoView?.({ block: 'nearest' });
-  }, [groupKey]);
+  }, [scanGroup]);
   useEffect(() => {
     if (scanRow === null) return;
     const rowElement = groupRef.current?.children[scanRow];

@@ -478,11 +478,6 @@ export const TestKeyboard = ({
   // The message window, the suggestion row and the keys: on the page to try the keyboard out, in
   // the trial view while a trial runs.
   const scanGroupAttr = scanGroupRows.filter((row) => row > 0).join(' ') || undefined;
-  // The same rows counted from the first key row, for the key grid to keep in sight (memoised: the grid is).
-  const keyGroupRows = useMemo(
-    () => (scanGroupAttr ? scanGroupAttr.split(' ').map((row) => Number(row) - 1) : undefined),
-    [scanGroupAttr],
-  );
   const output = (
     <TrialOutput
       ref={outputRef}
@@ -533,7 +528,7 @@ export const TestKeyboard = ({
       }
       dwell={dwellView}
       keySpacing={settings.keySpacing}
-      scanGroupRows={keyGroupRows}
+      scanGroup={scanGroupAttr}
     />
   );
   // Said by a hidden live region in the view or on the page, wherever the keys are.
