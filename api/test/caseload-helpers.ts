@@ -47,6 +47,16 @@ export const castOrder = [
   'anonymous',
 ] as const;
 
+/** The status of one request per caller of `cast`, in castOrder (sent one after another). */
+export async function statusesOf(
+  cast: Cast,
+  make: (who: Caller) => PromiseLike<{ status: number }>,
+): Promise<number[]> {
+  const out: number[] = [];
+  for (const who of castOrder.map((key) => cast[key])) out.push((await make(who)).status);
+  return out;
+}
+
 /** Sends one request as `who` (with the CSRF token on writes). */
 export function send(
   http: Server,

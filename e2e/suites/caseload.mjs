@@ -143,6 +143,11 @@ export const caseloadSuite = {
           await t.screenshot(page, 'sample-before-redaction');
           await redact.focus();
           await redact.press('Enter');
+          // The preview shows the text before and after; the redaction is applied from the dialog.
+          const preview = page.getByRole('dialog', { name: 'Redact this?' });
+          await preview.getByText('After redaction').waitFor();
+          assert.deepEqual(await t.seriousViolations(page, 'redaction preview'), []);
+          await preview.getByRole('button', { name: 'Redact', exact: true }).press('Enter');
           await page
             .getByRole('status')
             .filter({ hasText: /Redacted the phone number/ })

@@ -50,6 +50,11 @@ export class SampleFlag {
   @Column({ type: 'text' })
   status: FlagStatus;
 
+  // The text a redaction replaced, kept so the redaction can be undone; dropped (by a database trigger)
+  // once a version starts training on the sample. Never sent to the browser or the log.
+  @Column({ name: 'original_text', type: 'text', nullable: true, select: false })
+  originalText: string | null;
+
   @Column({ type: 'text', nullable: true })
   reason: string | null;
 

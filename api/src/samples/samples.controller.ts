@@ -1,6 +1,7 @@
 import {
   Body,
   Controller,
+  Delete,
   Get,
   HttpCode,
   Param,
@@ -15,11 +16,14 @@ import {
   ApiBody,
   ApiConsumes,
   ApiCreatedResponse,
+  ApiNoContentResponse,
   ApiOkResponse,
   ApiOperation,
   ApiTags,
 } from '@nestjs/swagger';
 import {
+  type DeleteSampleInput,
+  deleteSampleSchema,
   type ExcludeSampleInput,
   excludeSampleSchema,
   type FlagDecisionInput,
@@ -153,5 +157,51 @@ export class SamplesController {
     @Body(new ZodValidationPipe(excludeSampleSchema)) body: ExcludeSampleInput,
   ): Promise<SampleSummary> {
     return this.samples.exclude(actor, id, body);
+  }
+
+  @Post('samples/:id/include')
+  @HttpCode(200)
+  @ApiOperation({
+    summary: 'Include a left-out sample again',
+    description: `${ACCESS} Not left out: 409. Ready again, or needs review while flags are open.`,
+  })
+  @ApiOkResponse({ schema: zodSchemaObject(sampleSummarySchema) })
+  include(@CurrentActor() actor: Actor, @Param('id', ParseUUIDPipe) id: string): Promise<SampleSummary> {
+    return this.samples.include(actor, id);
+  }
+
+  @Delete('samples/:id')
+  @HttpCode(204)
+  @ApiOperation({
+    summary: 'Delete a sample uploaded by mistake, with a reason',
+    description:
+      `${ACCESS} Deletes the text and its flags (and its copy in drafts never trained). Once a version ` +
+      'has trained on it: 409 naming the versions (leave it out instead). The log keeps a hash of the reason.',
+  })
+  @ApiBody({ schema: zodSchemaObject(deleteSampleSchema) })
+  @ApiNoContentResponse()
+  remove(
+    @CurrentActor() actor: Actor,
+    @Param('id', ParseUUIDPipe) id: string,
+    @Body(new ZodValidationPipe(deleteSampleSchema)) body: DeleteSampleInput,
+  ): Promise<void> {
+    return this.samples.remove(actor, id, body);
+  }
+
+  @Post('samples/:id/flags/:flagId/undo')
+  @HttpCode(200)
+  @ApiOperation({
+    summary: 'Undo a redaction',
+    description:
+      `${ACCESS} Puts the original text back and reopens the flag. Not redacted, or the sample left out: 409. ` +
+      'Once a version has started training on the sample the original text is gone: 409.',
+  })
+  @ApiOkResponse({ schema: zodSchemaObject(sampleDetailSchema) })
+  undoRedaction(
+    @CurrentActor() actor: Actor,
+    @Param('id', ParseUUIDPipe) id: string,
+    @Param('flagId', ParseUUIDPipe) flagId: string,
+  ): Promise<SampleDetail> {
+    return this.samples.undoFlagRedaction(actor, id, flagId);
   }
 }

@@ -9,6 +9,7 @@ import {
 import { InjectDataSource } from '@nestjs/typeorm';
 import {
   applyRedaction,
+  type DeleteSampleInput,
   type ExcludeSampleInput,
   type FlagDecisionInput,
   type PasteSampleInput,
@@ -16,7 +17,9 @@ import {
   type SampleSummary,
   type UploadResult,
   type UploadSamplesFields,
+  undoRedaction,
 } from '@keyloom/shared';
+import { createHash } from 'node:crypto';
 import type { DataSource, EntityManager } from 'typeorm';
 import { AuditService } from '../audit/audit.service';
 import type { Actor } from '../auth/session-user';
@@ -44,6 +47,28 @@ export const SAMPLE_NOT_FOUND_MESSAGE = 'There is no sample with that id.';
 export const FLAG_NOT_FOUND_MESSAGE = 'There is no flag with that id on this sample.';
 export const FLAG_ALREADY_DECIDED_MESSAGE = 'This flag was already decided.';
 export const NO_FILES_MESSAGE = 'Choose at least one .txt, .md or .csv file.';
+export const NOT_EXCLUDED_MESSAGE = 'This sample is not left out; there is nothing to include again.';
+export const NOT_REDACTED_MESSAGE = 'This flag is not redacted; there is nothing to undo.';
+export const ORIGINAL_GONE_MESSAGE =
+  'A version was trained on this sample after the redaction, so the original text is gone; the redaction stays.';
+export const EXCLUDED_FLAGS_MESSAGE = 'This sample is left out; include it again before changing its flags.';
+
+/** "Version 3 was trained on it" / "Versions 2 and 3 were trained on it". */
+export function trainedOnMessage(numbers: number[]): string {
+  const list =
+    numbers.length === 1
+      ? `Version ${numbers[0]} was`
+      : `Versions ${numbers.slice(0, -1).join(', ')} and ${numbers[numbers.length - 1]} were`;
+  return `${list} trained on it: leave it out of future versions instead.`;
+}
+
+// Versions that froze the sample, by number: `trained` = every one except drafts that never started training.
+const VERSIONS_WITH_SAMPLE = `
+  SELECT id, number, (status <> 'draft' OR history @> '[{"status": "training"}]'::jsonb) AS trained
+    FROM profile_versions
+   WHERE samples @> jsonb_build_array(jsonb_build_object('id', $1::text))
+   ORDER BY number
+     FOR UPDATE`;
 
 @Injectable()
 export class SamplesService implements OnModuleInit {
@@ -266,6 +291,119 @@ export class SamplesService implements OnModuleInit {
     });
   }
 
+  /** Takes a sample left out back in: ready, or needs review while flags are open. */
+  async include(actor: Actor, sampleId: string): Promise<SampleSummary> {
+    await this.readable(actor, sampleId, 'write');
+    return this.dataSource.transaction(async (manager) => {
+      const repo = manager.getRepository(Sample);
+      const sample = await repo.findOne({ where: { id: sampleId }, lock: { mode: 'pessimistic_write' } });
+      if (!sample) throw new NotFoundException(SAMPLE_NOT_FOUND_MESSAGE);
+      if (sample.status !== 'excluded') throw new ConflictException(NOT_EXCLUDED_MESSAGE);
+      const openFlags = await manager.getRepository(SampleFlag).countBy({ sampleId, status: 'open' });
+      sample.status = openFlags > 0 ? 'needs_review' : 'ready';
+      sample.excludedReason = null;
+      await repo.save(sample);
+      await this.audit.record(
+        actor,
+        'sample.include',
+        { type: 'sample', id: sample.id, clientId: sample.clientId },
+        { openFlags },
+        manager,
+      );
+      const detail = await this.detail(manager, sample.id);
+      return toSampleSummary(sample, detail.openFlags, detail.uploadedBy);
+    });
+  }
+
+  /**
+   * Deletes a sample (its text and flags) while no version has trained on it: 409 naming the versions
+   * once one has. Drafts that never trained lose their frozen copy of it. The audit keeps ids, sizes
+   * and a hash of the reason only (the audit rule strips free text).
+   */
+  async remove(actor: Actor, sampleId: string, input: DeleteSampleInput): Promise<void> {
+    await this.readable(actor, sampleId, 'write');
+    await this.dataSource.transaction(async (manager) => {
+      const repo = manager.getRepository(Sample);
+      const sample = await repo.findOne({ where: { id: sampleId }, lock: { mode: 'pessimistic_write' } });
+      if (!sample) throw new NotFoundException(SAMPLE_NOT_FOUND_MESSAGE);
+      const versions = await manager.query<{ id: string; number: number; trained: boolean }[]>(
+        VERSIONS_WITH_SAMPLE,
+        [sampleId],
+      );
+      const trained = versions.filter((v) => v.trained).map((v) => v.number);
+      if (trained.length > 0) throw new ConflictException(trainedOnMessage(trained));
+      const drafts = versions.map((v) => v.id);
+      if (drafts.length > 0) {
+        await manager.query(
+          `UPDATE profile_versions
+              SET samples = (SELECT COALESCE(jsonb_agg(s), '[]'::jsonb) FROM jsonb_array_elements(samples) AS s
+                              WHERE s->>'id' <> $2),
+                  updated_at = now()
+            WHERE id = ANY($1::uuid[])`,
+          [drafts, sampleId],
+        );
+      }
+      const flags = await manager.getRepository(SampleFlag).countBy({ sampleId });
+      await repo.delete({ id: sampleId });
+      await this.audit.record(
+        actor,
+        'sample.remove',
+        { type: 'sample', id: sampleId, clientId: sample.clientId },
+        {
+          reasonSha256: createHash('sha256').update(input.reason).digest('hex'),
+          sha256: sample.sha256,
+          byteSize: sample.byteSize,
+          flags,
+          draftIds: drafts,
+        },
+        manager,
+      );
+    });
+  }
+
+  /** Undoes a redaction while its original text is kept (until a version trains on the sample). */
+  async undoFlagRedaction(actor: Actor, sampleId: string, flagId: string): Promise<SampleDetail> {
+    await this.readable(actor, sampleId, 'write');
+    return this.dataSource.transaction(async (manager) => {
+      const samples = manager.getRepository(Sample);
+      const sample = await samples.findOne({ where: { id: sampleId }, lock: { mode: 'pessimistic_write' } });
+      if (!sample) throw new NotFoundException(SAMPLE_NOT_FOUND_MESSAGE);
+      const flagsRepo = manager.getRepository(SampleFlag);
+      const flags = await flagsRepo.find({ where: { sampleId }, order: { start: 'ASC' } });
+      const flag = flags.find((f) => f.id === flagId);
+      if (!flag) throw new NotFoundException(FLAG_NOT_FOUND_MESSAGE);
+      if (sample.status === 'excluded') throw new ConflictException(EXCLUDED_FLAGS_MESSAGE);
+      if (flag.status !== 'redacted') throw new ConflictException(NOT_REDACTED_MESSAGE);
+      const kept = await flagsRepo.findOne({ where: { id: flagId }, select: ['id', 'originalText'] });
+      const original = kept?.originalText ?? null;
+      if (original === null) throw new ConflictException(ORIGINAL_GONE_MESSAGE);
+      const { text, redacted: restored } = undoRedaction(sample.text, flags, flagId, original);
+      await flagsRepo.update(
+        { id: flagId },
+        {
+          end: restored.end,
+          status: 'open',
+          text: original,
+          originalText: null,
+          reason: null,
+          decidedById: null,
+          decidedAt: null,
+        },
+      );
+      await shiftLaterFlags(manager, sampleId, flagId, flag.end, restored.end - flag.end);
+      Object.assign(sample, statisticsColumns(text, this.isKnownWord), { text, status: 'needs_review' });
+      await samples.save(sample);
+      await this.audit.record(
+        actor,
+        'sample.flag-undo-redact',
+        { type: 'sample', id: sample.id, clientId: sample.clientId },
+        { flagId, kind: flag.kind },
+        manager,
+      );
+      return this.detail(manager, sample.id);
+    });
+  }
+
   // The sample when the actor may read it (or, for 'write', change it); out of sight → 404 as for a made-up id.
   private async readable(actor: Actor, sampleId: string, mode: 'read' | 'write'): Promise<Sample> {
     const sample = await this.dataSource
@@ -339,32 +477,18 @@ export async function decideSampleFlag(
     const { text, redacted } = applyRedaction(sample.text, flags, flagId);
     await flagsRepo.update(
       { id: flagId },
-      { start: redacted.start, end: redacted.end, status: 'redacted', text: null, ...decided },
+      {
+        start: redacted.start,
+        end: redacted.end,
+        status: 'redacted',
+        text: null,
+        // Kept for an undo until a version trains on the sample (see the sample-corrections migration).
+        originalText: sample.text.slice(flag.start, flag.end),
+        ...decided,
+      },
     );
-    // Later flags move by the change in length: one statement, however many flags the sample has
-    // (the same shift applyRedaction applies to its copy).
-    const shift = redacted.end - flag.end;
-    if (shift !== 0) {
-      await flagsRepo
-        .createQueryBuilder()
-        .update()
-        .set({ start: () => `start_offset + ${shift}`, end: () => `end_offset + ${shift}` })
-        .where('sample_id = :sampleId AND start_offset >= :after AND id <> :flagId', {
-          sampleId,
-          after: flag.end,
-          flagId,
-        })
-        .execute();
-    }
-    const stats = sampleStatistics(text, isKnownWord);
-    Object.assign(sample, {
-      text,
-      characters: stats.characters,
-      words: stats.words,
-      distinctWords: stats.distinctWords,
-      topWords: stats.topWords,
-      unknownWords: stats.unknownWords,
-    });
+    await shiftLaterFlags(manager, sampleId, flagId, flag.end, redacted.end - flag.end);
+    Object.assign(sample, statisticsColumns(text, isKnownWord), { text });
   } else {
     await flagsRepo.update({ id: flagId }, { status: 'kept', ...decided });
   }
@@ -372,4 +496,37 @@ export async function decideSampleFlag(
   sample.status = stillOpen > 0 ? 'needs_review' : 'ready';
   await samples.save(sample);
   return { sample, flag, stillOpen };
+}
+
+/**
+ * Later flags move by the change in length: one statement, however many flags the sample has (the
+ * same shift applyRedaction and undoRedaction apply to their copy).
+ */
+async function shiftLaterFlags(
+  manager: EntityManager,
+  sampleId: string,
+  flagId: string,
+  after: number,
+  shift: number,
+): Promise<void> {
+  if (shift === 0) return;
+  await manager
+    .getRepository(SampleFlag)
+    .createQueryBuilder()
+    .update()
+    .set({ start: () => `start_offset + ${shift}`, end: () => `end_offset + ${shift}` })
+    .where('sample_id = :sampleId AND start_offset >= :after AND id <> :flagId', { sampleId, after, flagId })
+    .execute();
+}
+
+/** The statistics columns of a sample for `text`. */
+function statisticsColumns(text: string, isKnownWord: (word: string) => boolean) {
+  const stats = sampleStatistics(text, isKnownWord);
+  return {
+    characters: stats.characters,
+    words: stats.words,
+    distinctWords: stats.distinctWords,
+    topWords: stats.topWords,
+    unknownWords: stats.unknownWords,
+  };
 }

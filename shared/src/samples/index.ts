@@ -17,5 +17,5 @@ export {
 export type { TextStatistics, StatisticsOptions, WordCount, WordSpan } from './text-statistics';
 export { detectPersonalData, classifyNumberRun } from './personal-data-detector';
 export type { PersonalDataMatch } from './personal-data-detector';
-export { applyRedaction } from './redaction';
+export { applyRedaction, undoRedaction } from './redaction';
 export type { RedactableFlag, RedactionResult } from './redaction';

@@ -4,7 +4,7 @@
 import { describe, expect, it } from 'vitest';
 import type { PersonalDataKind } from '../schemas/samples.schema';
 import { detectPersonalData } from './personal-data-detector';
-import { applyRedaction } from './redaction';
+import { applyRedaction, undoRedaction } from './redaction';
 
 type Row = { text: string; found: [PersonalDataKind, string][] };
 
@@ -126,6 +126,26 @@ describe('applyRedaction', () => {
     expect(second.text).toBe('Ring ⟪phone⟫ or mail ⟪email⟫ today');
     expect(second.text.slice(second.redacted.start, second.redacted.end)).toBe('⟪email⟫');
     expect(() => applyRedaction(text, flags, 'nope')).toThrow();
+  });
+});
+
+describe('undoRedaction', () => {
+  it('puts the original back and moves later flags back, after other redactions too', () => {
+    const text = 'Ring 07700 900123 or mail r.ashby@example.org today';
+    const flags = detectPersonalData(text).map((m, i) => ({ ...m, id: `f${i}` }));
+    const first = applyRedaction(text, flags, 'f0');
+    const second = applyRedaction(first.text, first.flags, 'f1');
+    const undone = undoRedaction(second.text, second.flags, 'f0', '07700 900123');
+    expect(undone.text).toBe('Ring 07700 900123 or mail ⟪email⟫ today');
+    expect(undone.text.slice(undone.redacted.start, undone.redacted.end)).toBe('07700 900123');
+    const email = undone.flags[1];
+    expect(undone.text.slice(email.start, email.end)).toBe('⟪email⟫');
+    const both = undoRedaction(undone.text, undone.flags, 'f1', 'r.ashby@example.org');
+    expect(both.text).toBe(text);
+    expect(both.flags.map(({ start, end }) => [start, end])).toEqual(
+      flags.map(({ start, end }) => [start, end]),
+    );
+    expect(() => undoRedaction(text, flags, 'nope', 'x')).toThrow();
   });
 });
 

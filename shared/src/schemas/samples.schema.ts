@@ -139,6 +139,15 @@ export const excludeSampleSchema = z.object({
 });
 export type ExcludeSampleInput = z.infer<typeof excludeSampleSchema>;
 
+// DELETE /api/samples/:id: a sample uploaded by mistake (say, to the wrong client) is deleted for good.
+export const deleteSampleSchema = z.object({
+  reason: safeText({ error: 'Say why the sample is deleted.', multiline: true })
+    .trim()
+    .min(1, { error: 'Say why the sample is deleted.' })
+    .max(500),
+});
+export type DeleteSampleInput = z.infer<typeof deleteSampleSchema>;
+
 // needs_review: open flags remain; ready: usable for training; excluded: left out for good.
 export const sampleStatuses = ['needs_review', 'ready', 'excluded'] as const;
 export type SampleStatus = (typeof sampleStatuses)[number];

@@ -67,11 +67,29 @@ describe('Sample page', () => {
     expect(screen.getByRole('article', { name: 'Phone number: 07700 900123' })).toHaveFocus();
   });
 
+  it('previews a redaction (before → after) and sends nothing until it is confirmed', async () => {
+    const { user, api } = await openSample();
+    await user.click(screen.getByRole('button', { name: 'Redact phone number 07700 900123…' }));
+    const dialog = within(await screen.findByRole('dialog', { name: 'Redact this?' }));
+    const now = dialog.getByText('Now').nextElementSibling as HTMLElement;
+    const after = dialog.getByText('After redaction').nextElementSibling as HTMLElement;
+    expect(within(now).getByText('07700 900123').tagName).toBe('MARK');
+    expect(within(after).getByText(redactionToken('phone')).tagName).toBe('MARK');
+    // The same words around the span on both sides (the fixture's text, not a copy of the code).
+    expect(now.textContent?.replace('07700 900123', '#')).toBe(
+      after.textContent?.replace(redactionToken('phone'), '#'),
+    );
+    await user.click(dialog.getByRole('button', { name: 'Cancel' }));
+    expect(api.requestsTo(`POST /api/samples/${SAMPLE_ID}/flags/${phone.id}`)).toHaveLength(0);
+  });
+
   it('redacts a flag, shows the placeholder and announces it', async () => {
     const { user, api } = await openSample('clinician', {
       [`POST /api/samples/${SAMPLE_ID}/flags/${phone.id}`]: { body: afterRedaction() },
     });
-    await user.click(screen.getByRole('button', { name: 'Redact phone number 07700 900123' }));
+    await user.click(screen.getByRole('button', { name: 'Redact phone number 07700 900123…' }));
+    const dialog = within(await screen.findByRole('dialog', { name: 'Redact this?' }));
+    await user.click(dialog.getByRole('button', { name: 'Redact' }));
     await waitFor(() =>
       expect(screen.getByRole('status')).toHaveTextContent(
         `Redacted the phone number; the text now reads ${redactionToken('phone')} there.`,
@@ -83,6 +101,61 @@ describe('Sample page', () => {
     });
     expect(screen.queryByRole('button', { name: /Phone number, to review/ })).not.toBeInTheDocument();
     expect(screen.getByText('1 flag still to review.')).toBeInTheDocument();
+    await waitFor(() =>
+      expect(screen.getByRole('article', { name: `Phone number: ${redactionToken('phone')}` })).toHaveFocus(),
+    );
+  });
+
+  it('undoes a redaction: the original text is back and focus stays on the flag', async () => {
+    const redacted = afterRedaction();
+    const { user, api } = await openSample('clinician', {
+      [`GET /api/samples/${SAMPLE_ID}`]: { body: redacted },
+      [`POST /api/samples/${SAMPLE_ID}/flags/${phone.id}/undo`]: { body: sample },
+    });
+    expect(screen.getByText('1 flag still to review.')).toBeInTheDocument();
+    await user.click(screen.getByRole('button', { name: 'Undo redaction of phone number' }));
+    await waitFor(() =>
+      expect(screen.getByRole('status')).toHaveTextContent(
+        'Undid the redaction: the phone number is back in the text and waits for a decision.',
+      ),
+    );
+    expect(api.requestsTo(`POST /api/samples/${SAMPLE_ID}/flags/${phone.id}/undo`)).toHaveLength(1);
+    expect(
+      screen.getByRole('button', { name: /^Phone number, to review: ?07700 900123$/ }),
+    ).toBeInTheDocument();
+    expect(screen.getByText('2 flags still to review.')).toBeInTheDocument();
+    await waitFor(() =>
+      expect(screen.getByRole('article', { name: 'Phone number: 07700 900123' })).toHaveFocus(),
+    );
+  });
+
+  it('says why an undo was refused (a version trained since) and keeps the redaction', async () => {
+    const message =
+      'A version was trained on this sample after the redaction, so the original text is gone; the redaction stays.';
+    const { user } = await openSample('clinician', {
+      [`GET /api/samples/${SAMPLE_ID}`]: { body: afterRedaction() },
+      [`POST /api/samples/${SAMPLE_ID}/flags/${phone.id}/undo`]: {
+        status: 409,
+        body: { statusCode: 409, message },
+      },
+    });
+    await user.click(screen.getByRole('button', { name: 'Undo redaction of phone number' }));
+    await waitFor(() => expect(screen.getByRole('status')).toHaveTextContent(message));
+    expect(screen.getByText('1 flag still to review.')).toBeInTheDocument();
+  });
+
+  it('includes a left-out sample again and moves focus to its status', async () => {
+    const excluded = { ...sample, status: 'excluded' as const, excludedReason: 'Written by his sister.' };
+    const { user, api } = await openSample('clinician', {
+      [`GET /api/samples/${SAMPLE_ID}`]: { body: excluded },
+      [`POST /api/samples/${SAMPLE_ID}/include`]: { body: sampleSummary({ status: 'needs_review' }) },
+    });
+    expect(screen.getByText(/Reason: Written by his sister\./)).toBeInTheDocument();
+    expect(screen.queryByRole('button', { name: 'Undo redaction of phone number' })).not.toBeInTheDocument();
+    await user.click(screen.getByRole('button', { name: 'Include again' }));
+    await waitFor(() => expect(screen.getByRole('status')).toHaveTextContent('is included again.'));
+    expect(api.requestsTo(`POST /api/samples/${SAMPLE_ID}/include`)).toHaveLength(1);
+    await waitFor(() => expect(document.getElementById('sample-status')).toHaveFocus());
   });
 
   it('keeps a flag only with a reason', async () => {

@@ -9,6 +9,8 @@ import { PageHeader } from '@/components/ui/page-header';
 import { clientPath } from '@/config/paths';
 import { useMe } from '@/features/auth/api/get-me';
 import { useSample } from '@/features/samples/api/get-sample';
+import { useIncludeSample } from '@/features/samples/api/include-sample';
+import { focusSoon } from '@/features/samples/lib/focus-targets';
 import { ExcludeSampleDialog } from '@/features/samples/components/exclude-sample-dialog';
 import { FlagReview } from '@/features/samples/components/flag-review';
 import { SampleStatistics } from '@/features/samples/components/sample-statistics';
@@ -20,6 +22,7 @@ export const SampleRoute = () => {
   const me = useMe();
   const sample = useSample(sampleId);
   const [excluding, setExcluding] = useState(false);
+  const include = useIncludeSample();
   const [announcement, setAnnouncement] = useState<Announcement>(null);
   const announce = (tone: 'success' | 'error', text: string) => setAnnouncement({ tone, text });
   const canEdit = me.data?.role === 'clinician';
@@ -48,6 +51,16 @@ export const SampleRoute = () => {
   }
 
   const data = sample.data;
+  const includeAgain = async () => {
+    try {
+      await include.mutateAsync(data.id);
+      announce('success', `“${data.title}” is included again.`);
+    } catch (caught) {
+      announce('error', caught instanceof Error ? caught.message : 'The sample was not included. Try again.');
+    }
+    // The button is gone (or still there after an error): focus goes to the sample's status.
+    focusSoon('sample-status');
+  };
   return (
     <>
       <PageHeader
@@ -55,7 +68,9 @@ export const SampleRoute = () => {
         description={
           <span className="flex flex-col gap-2">
             <span className="flex flex-wrap items-center gap-3">
-              <SampleStatusBadge status={data.status} />
+              <span id="sample-status" tabIndex={-1}>
+                <SampleStatusBadge status={data.status} />
+              </span>
               <span>
                 {sourceKindLabels[data.sourceKind]}
                 {data.fileName ? ` · ${data.fileName}` : ''} · {data.encoding}
@@ -65,11 +80,15 @@ export const SampleRoute = () => {
           </span>
         }
         actions={
-          canEdit && data.status !== 'excluded' ? (
+          !canEdit ? undefined : data.status === 'excluded' ? (
+            <Button disabled={include.isPending} onClick={() => void includeAgain()}>
+              Include again
+            </Button>
+          ) : (
             <Button variant="danger" onClick={() => setExcluding(true)}>
               Leave out this sample
             </Button>
-          ) : undefined
+          )
         }
       />
       <LiveRegion message={announcement} />
@@ -103,6 +122,7 @@ export const SampleRoute = () => {
           onExcluded={(excluded) => {
             setExcluding(false);
             announce('success', `“${excluded.title}” is left out.`);
+            focusSoon('sample-status');
           }}
         />
       )}

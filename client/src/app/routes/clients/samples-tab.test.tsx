@@ -158,4 +158,95 @@ describe('Writing samples tab', () => {
       text: 'See you at the jazz night.',
     });
   });
+
+  describe('correcting the list', () => {
+    const OTHER_ID = '9c4d5e6f-7a8b-4c0d-9e2f-3a4b5c6d7e82';
+    const wrong = sampleSummary({ id: OTHER_ID, title: 'Notes for another client', words: 1234 });
+    const leftOut = sampleSummary({ status: 'excluded', excludedReason: 'Written by his sister.' });
+
+    const openWithSamples = async (routes: MockRoutes) => {
+      const app = await (async () => {
+        const api = mockFetch({
+          ...sessionRoutes(sessionUser('clinician')),
+          [`GET ${base}`]: { body: clientRecord() },
+          ...routes,
+        });
+        return { ...renderApp(`/clients/${ASHBY_ID}/samples`), api };
+      })();
+      await screen.findByRole('table', { name: /Language samples/ });
+      return app;
+    };
+
+    it('shows why a sample is left out and includes it again, focus on its row', async () => {
+      let included = false;
+      const { user, api } = await openWithSamples({
+        [`GET ${base}/samples`]: () => ({
+          body: [included ? { ...leftOut, status: 'ready', excludedReason: null } : leftOut],
+        }),
+        [`POST /api/samples/${leftOut.id}/include`]: () => {
+          included = true;
+          return { body: { ...leftOut, status: 'ready', excludedReason: null } };
+        },
+      });
+      expect(screen.getByText('Reason: Written by his sister.')).toBeInTheDocument();
+      await user.click(screen.getByRole('button', { name: `Include again ${leftOut.title}` }));
+      await waitFor(() => expect(screen.getByRole('status')).toHaveTextContent('is included again.'));
+      expect(api.requestsTo(`POST /api/samples/${leftOut.id}/include`)).toHaveLength(1);
+      await waitFor(() => expect(screen.getByRole('link', { name: leftOut.title })).toHaveFocus());
+      await waitFor(() =>
+        expect(screen.queryByText('Reason: Written by his sister.')).not.toBeInTheDocument(),
+      );
+      expect(
+        screen.queryByRole('button', { name: `Include again ${leftOut.title}` }),
+      ).not.toBeInTheDocument();
+    });
+
+    it('deletes a sample only with a reason, after saying what goes; focus on the list heading', async () => {
+      let deleted = false;
+      const { user, api } = await openWithSamples({
+        [`GET ${base}/samples`]: () => ({ body: deleted ? [leftOut] : [wrong, leftOut] }),
+        [`DELETE /api/samples/${OTHER_ID}`]: () => {
+          deleted = true;
+          return { status: 204 };
+        },
+      });
+      await user.click(screen.getByRole('button', { name: `Delete sample ${wrong.title}` }));
+      const dialog = within(await screen.findByRole('dialog', { name: `Delete “${wrong.title}”?` }));
+      expect(dialog.getAllByRole('listitem').map((item) => item.textContent)).toEqual([
+        'the sample’s text (1,234 words) and its statistics;',
+        'its personal-data flags and the decisions on them;',
+        'its place in draft versions that have not been trained.',
+      ]);
+      await user.click(dialog.getByRole('button', { name: 'Delete sample' }));
+      // Message from deleteSampleSchema (shared/src/schemas/samples.schema.ts).
+      expect(await dialog.findByText('Say why the sample is deleted.')).toBeInTheDocument();
+      expect(api.requestsTo(`DELETE /api/samples/${OTHER_ID}`)).toHaveLength(0);
+
+      await user.type(dialog.getByLabelText('Reason for deleting it'), 'Uploaded to the wrong client.');
+      await user.click(dialog.getByRole('button', { name: 'Delete sample' }));
+      await waitFor(() =>
+        expect(screen.getByRole('status')).toHaveTextContent(`“${wrong.title}” was deleted.`),
+      );
+      expect(api.requestsTo(`DELETE /api/samples/${OTHER_ID}`)[0]?.body).toEqual({
+        reason: 'Uploaded to the wrong client.',
+      });
+      await waitFor(() => expect(screen.getByRole('heading', { name: /^Samples of/ })).toHaveFocus());
+      await waitFor(() => expect(screen.queryByRole('link', { name: wrong.title })).not.toBeInTheDocument());
+    });
+
+    it('shows the refusal in the dialog when a version was trained on the sample', async () => {
+      const message = 'Version 3 was trained on it: leave it out of future versions instead.';
+      const { user } = await openWithSamples({
+        [`GET ${base}/samples`]: { body: [wrong] },
+        [`DELETE /api/samples/${OTHER_ID}`]: { status: 409, body: { statusCode: 409, message } },
+      });
+      await user.click(screen.getByRole('button', { name: `Delete sample ${wrong.title}` }));
+      const dialog = within(await screen.findByRole('dialog'));
+      await user.type(dialog.getByLabelText('Reason for deleting it'), 'Wrong client.');
+      await user.click(dialog.getByRole('button', { name: 'Delete sample' }));
+      expect(await dialog.findByText(message)).toBeInTheDocument();
+      // The dialog stays open (the page behind it is inert) and the row stays in the list.
+      expect(screen.getByRole('link', { name: wrong.title, hidden: true })).toBeInTheDocument();
+    });
+  });
 });

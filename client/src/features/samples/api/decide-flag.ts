@@ -1,5 +1,5 @@
 import { type FlagDecisionInput, type SampleDetail, sampleDetailSchema } from '@keyloom/shared';
-import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { type QueryClient, useMutation, useQueryClient } from '@tanstack/react-query';
 import { apiRequest } from '@/lib/api-client';
 import { sampleKeys } from './keys';
 
@@ -13,13 +13,13 @@ export const decideFlag = ({ sampleId, flagId, decision }: DecideFlagVariables):
     schema: sampleDetailSchema,
   });
 
+/** After a change answered with the whole sample: the detail as answered, the lists fetched again. */
+export const storeSampleDetail = (queryClient: QueryClient) => async (sample: SampleDetail) => {
+  queryClient.setQueryData(sampleKeys.detail(sample.id), sample);
+  await queryClient.invalidateQueries({ queryKey: sampleKeys.lists() });
+};
+
 export const useDecideFlag = () => {
   const queryClient = useQueryClient();
-  return useMutation({
-    mutationFn: decideFlag,
-    onSuccess: async (sample) => {
-      queryClient.setQueryData(sampleKeys.detail(sample.id), sample);
-      await queryClient.invalidateQueries({ queryKey: sampleKeys.lists() });
-    },
-  });
+  return useMutation({ mutationFn: decideFlag, onSuccess: storeSampleDetail(queryClient) });
 };

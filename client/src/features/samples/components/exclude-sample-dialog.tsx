@@ -18,7 +18,7 @@ export const ExcludeSampleDialog = ({ open, sample, onClose, onExcluded }: Exclu
       open={open}
       onClose={onClose}
       title={`Leave out “${sample.title}”?`}
-      description="The sample stays on record but is never used to train or measure a model. This cannot be reversed."
+      description="The sample stays on record but is never used to train or measure a model until you include it again."
     >
       <ReasonForm
         schema={excludeSampleSchema}

@@ -11,6 +11,9 @@ import { Button } from '@/components/ui/button';
 import { Modal } from '@/components/ui/dialog';
 import { ReasonForm } from '@/components/ui/reason-form';
 import { useDecideFlag } from '../api/decide-flag';
+import { useUndoRedaction } from '../api/undo-redaction';
+import { focusSoon } from '../lib/focus-targets';
+import { type PreviewPiece, redactionPreview } from '../lib/redaction-preview';
 
 const flagStatusWords: Record<SampleFlag['status'], { label: string; tone: BadgeTone }> = {
   open: { label: 'To review', tone: 'warn' },
@@ -68,6 +71,18 @@ const FlaggedText = ({ sample }: { sample: SampleDetail }) => {
   );
 };
 
+/** One side of the preview: the span marked inside its surrounding text. */
+const PreviewText = ({ label, piece }: { label: string; piece: PreviewPiece }) => (
+  <div className="flex flex-col gap-1">
+    <p className="font-bold">{label}</p>
+    <p className="rounded-lg border-2 border-thread bg-paper p-3 break-words whitespace-pre-wrap">
+      {piece.lead}
+      <mark className="bg-saffron-light font-bold">{piece.span}</mark>
+      {piece.tail}
+    </p>
+  </div>
+);
+
 type FlagReviewProps = {
   sample: SampleDetail;
   /** Owning clinician; supervisors read only. */
@@ -78,7 +93,10 @@ type FlagReviewProps = {
 /** The text with its personal-data flags, and per flag: redact, or keep with a reason. */
 export const FlagReview = ({ sample, canEdit, announce }: FlagReviewProps) => {
   const decide = useDecideFlag();
+  const undo = useUndoRedaction();
   const [keeping, setKeeping] = useState<SampleFlag | null>(null);
+  const [previewing, setPreviewing] = useState<SampleFlag | null>(null);
+  const preview = previewing ? redactionPreview(sample, previewing.id) : null;
   const flags = [...sample.flags].sort((a, b) => a.start - b.start);
   const open = flags.filter((flag) => flag.status === 'open').length;
 
@@ -89,13 +107,30 @@ export const FlagReview = ({ sample, canEdit, announce }: FlagReviewProps) => {
         flagId: flag.id,
         decision: { action: 'redact', reason: null },
       });
+      setPreviewing(null);
       announce(
         'success',
         `Redacted the ${personalDataKindLabels[flag.kind].toLowerCase()}; the text now reads ${redactionToken(flag.kind)} there.`,
       );
+      focusSoon(flagAnchor(flag));
     } catch (caught) {
+      setPreviewing(null);
       announce('error', caught instanceof Error ? caught.message : 'The flag was not redacted. Try again.');
     }
+  };
+
+  const undoRedaction = async (flag: SampleFlag) => {
+    const kind = personalDataKindLabels[flag.kind].toLowerCase();
+    try {
+      await undo.mutateAsync({ sampleId: sample.id, flagId: flag.id });
+      announce('success', `Undid the redaction: the ${kind} is back in the text and waits for a decision.`);
+    } catch (caught) {
+      announce(
+        'error',
+        caught instanceof Error ? caught.message : 'The redaction was not undone. Try again.',
+      );
+    }
+    focusSoon(flagAnchor(flag));
   };
 
   return (
@@ -149,10 +184,10 @@ export const FlagReview = ({ sample, canEdit, announce }: FlagReviewProps) => {
                       <Button
                         variant="primary"
                         disabled={decide.isPending}
-                        onClick={() => void redact(flag)}
-                        aria-label={`Redact ${kind.toLowerCase()} ${flag.text ?? ''}`.trim()}
+                        onClick={() => setPreviewing(flag)}
+                        aria-label={`Redact ${kind.toLowerCase()} ${flag.text ?? ''}…`.trim()}
                       >
-                        Redact
+                        Redact…
                       </Button>
                       {flag.status === 'open' && (
                         <Button
@@ -164,12 +199,47 @@ export const FlagReview = ({ sample, canEdit, announce }: FlagReviewProps) => {
                       )}
                     </div>
                   )}
+                  {canEdit && flag.status === 'redacted' && sample.status !== 'excluded' && (
+                    <div className="flex flex-wrap gap-2">
+                      <Button
+                        disabled={undo.isPending}
+                        onClick={() => void undoRedaction(flag)}
+                        aria-label={`Undo redaction of ${kind.toLowerCase()}`}
+                      >
+                        Undo redaction
+                      </Button>
+                    </div>
+                  )}
                 </article>
               </li>
             );
           })}
         </ul>
       </section>
+
+      <Modal
+        open={previewing !== null}
+        onClose={() => setPreviewing(null)}
+        title="Redact this?"
+        description={
+          previewing
+            ? `The ${personalDataKindLabels[previewing.kind].toLowerCase()} becomes ${redactionToken(previewing.kind)} in the text. You can undo it until a version is trained on this sample.`
+            : undefined
+        }
+      >
+        {previewing && preview && (
+          <div className="flex flex-col gap-4">
+            <PreviewText label="Now" piece={preview.before} />
+            <PreviewText label="After redaction" piece={preview.after} />
+            <div className="flex flex-wrap gap-2">
+              <Button variant="primary" disabled={decide.isPending} onClick={() => void redact(previewing)}>
+                {decide.isPending ? 'Redacting…' : 'Redact'}
+              </Button>
+              <Button onClick={() => setPreviewing(null)}>Cancel</Button>
+            </div>
+          </div>
+        )}
+      </Modal>
 
       <Modal
         open={keeping !== null}

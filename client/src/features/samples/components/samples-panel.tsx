@@ -6,7 +6,11 @@ import { Button } from '@/components/ui/button';
 import { EmptyState } from '@/components/ui/empty-state';
 import { LoadError } from '@/components/ui/load-error';
 import { clientPath } from '@/config/paths';
+import type { SampleSummary } from '@keyloom/shared';
 import { useSamples } from '../api/get-samples';
+import { useIncludeSample } from '../api/include-sample';
+import { focusSoon, sampleLinkId } from '../lib/focus-targets';
+import { DeleteSampleDialog } from './delete-sample-dialog';
 import { PasteSampleForm } from './paste-sample-form';
 import { SamplesTable } from './samples-table';
 import { UploadSamplesForm } from './upload-samples-form';
@@ -31,6 +35,22 @@ export const SamplesPanel = ({
 }: SamplesPanelProps) => {
   const samples = useSamples(clientId);
   const [mode, setMode] = useState<'files' | 'paste'>('files');
+  const [deleting, setDeleting] = useState<SampleSummary | null>(null);
+  const include = useIncludeSample();
+
+  const includeAgain = async (sample: SampleSummary) => {
+    try {
+      const included = await include.mutateAsync(sample.id);
+      announce(
+        'success',
+        `“${included.title}” is included again${included.status === 'needs_review' ? '; review its open flags before training' : ''}.`,
+      );
+      // The row stays: focus goes to its link.
+      focusSoon(sampleLinkId(sample.id));
+    } catch (caught) {
+      announce('error', caught instanceof Error ? caught.message : 'The sample was not included. Try again.');
+    }
+  };
 
   return (
     <div className="flex flex-col gap-8">
@@ -93,7 +113,7 @@ export const SamplesPanel = ({
       )}
 
       <section aria-labelledby="samples-heading" className="flex flex-col gap-4">
-        <h3 id="samples-heading" className="text-2xl font-bold">
+        <h3 id="samples-heading" tabIndex={-1} className="text-2xl font-bold">
           Samples of {pseudonym}
         </h3>
         {samples.isPending && <PageLoading />}
@@ -109,8 +129,29 @@ export const SamplesPanel = ({
             Uploaded and pasted writing appears here with its size and the personal data found in it.
           </EmptyState>
         )}
-        {samples.isSuccess && samples.data.length > 0 && <SamplesTable samples={samples.data} />}
+        {samples.isSuccess && samples.data.length > 0 && (
+          <SamplesTable
+            samples={samples.data}
+            actions={
+              canEdit
+                ? { onDelete: setDeleting, onInclude: (s) => void includeAgain(s), busy: include.isPending }
+                : undefined
+            }
+          />
+        )}
       </section>
+      {canEdit && (
+        <DeleteSampleDialog
+          sample={deleting}
+          onClose={() => setDeleting(null)}
+          onDeleted={(deleted) => {
+            setDeleting(null);
+            announce('success', `“${deleted.title}” was deleted.`);
+            // The row is gone: focus goes to the list's heading, under the message.
+            focusSoon('samples-heading');
+          }}
+        />
+      )}
     </div>
   );
 };

@@ -1,5 +1,6 @@
 import { type SampleSummary, sourceKindLabels } from '@keyloom/shared';
 import { Link } from 'react-router-dom';
+import { Button } from '@/components/ui/button';
 import {
   ColumnHeader,
   RowHeader,
@@ -11,13 +12,24 @@ import {
 } from '@/components/ui/table';
 import { samplePath } from '@/config/paths';
 import { formatDateTime } from '@/lib/format';
+import { sampleLinkId } from '../lib/focus-targets';
 import { SampleStatusBadge } from './sample-status-badge';
 
 const period = (sample: SampleSummary) =>
   sample.periodStart || sample.periodEnd ? `${sample.periodStart ?? '…'} to ${sample.periodEnd ?? '…'}` : '—';
 
+type SamplesTableProps = {
+  samples: readonly SampleSummary[];
+  /** Row actions for the owning clinician: delete, and include again while left out. */
+  actions?: {
+    onDelete: (sample: SampleSummary) => void;
+    onInclude: (sample: SampleSummary) => void;
+    busy: boolean;
+  };
+};
+
 /** A client's samples, newest first, each linking to its review page. */
-export const SamplesTable = ({ samples }: { samples: readonly SampleSummary[] }) => (
+export const SamplesTable = ({ samples, actions }: SamplesTableProps) => (
   <Table caption={`Language samples (${samples.length})`}>
     <TableHead>
       <ColumnHeader>Sample</ColumnHeader>
@@ -27,6 +39,7 @@ export const SamplesTable = ({ samples }: { samples: readonly SampleSummary[] })
       <ColumnHeader>Period</ColumnHeader>
       <ColumnHeader>Words</ColumnHeader>
       <ColumnHeader>Added</ColumnHeader>
+      {actions && <ColumnHeader>Actions</ColumnHeader>}
     </TableHead>
     <TableBody>
       {[...samples]
@@ -35,6 +48,7 @@ export const SamplesTable = ({ samples }: { samples: readonly SampleSummary[] })
           <TableRow key={sample.id}>
             <RowHeader label="Sample">
               <Link
+                id={sampleLinkId(sample.id)}
                 to={samplePath(sample.clientId, sample.id)}
                 className="inline-flex min-h-11 items-center break-all underline"
               >
@@ -43,6 +57,9 @@ export const SamplesTable = ({ samples }: { samples: readonly SampleSummary[] })
             </RowHeader>
             <TableCell label="Status">
               <SampleStatusBadge status={sample.status} />
+              {sample.status === 'excluded' && sample.excludedReason && (
+                <p className="mt-1 break-words">Reason: {sample.excludedReason}</p>
+              )}
             </TableCell>
             <TableCell label="Open flags">{sample.openFlags}</TableCell>
             <TableCell label="Source">{sourceKindLabels[sample.sourceKind]}</TableCell>
@@ -51,6 +68,28 @@ export const SamplesTable = ({ samples }: { samples: readonly SampleSummary[] })
             <TableCell label="Added">
               <time dateTime={sample.createdAt}>{formatDateTime(sample.createdAt)}</time>
             </TableCell>
+            {actions && (
+              <TableCell label="Actions">
+                <div className="flex flex-wrap gap-2">
+                  {sample.status === 'excluded' && (
+                    <Button
+                      disabled={actions.busy}
+                      onClick={() => actions.onInclude(sample)}
+                      aria-label={`Include again ${sample.title}`}
+                    >
+                      Include again
+                    </Button>
+                  )}
+                  <Button
+                    variant="danger"
+                    onClick={() => actions.onDelete(sample)}
+                    aria-label={`Delete sample ${sample.title}`}
+                  >
+                    Delete sample…
+                  </Button>
+                </div>
+              </TableCell>
+            )}
           </TableRow>
         ))}
     </TableBody>
