@@ -22,6 +22,7 @@ import { OneNamePerIdea1764950000002 } from '../migrations/1764950000002-one-nam
 import { CreateClientVocabularies1764960000001 } from '../migrations/1764960000001-create-client-vocabularies';
 import { ConsentVoid1764980000001 } from '../migrations/1764980000001-consent-void';
 import { ContactAddresses1764980000002 } from '../migrations/1764980000002-contact-addresses';
+import { VersionRetire1764991000001 } from '../migrations/1764991000001-version-retire';
 import { SummaryStop } from '../contacts/summary-stop.entity';
 import { SignInLimit } from '../auth/sign-in-limits/sign-in-limit.entity';
 import { ProfileVersion } from '../profile-versions/profile-version.entity';
@@ -75,6 +76,7 @@ export const migrations = [
   CreateClientVocabularies1764960000001,
   ConsentVoid1764980000001,
   ContactAddresses1764980000002,
+  VersionRetire1764991000001,
 ];
 
 /** TypeORM options for the app, the CLI, migrate.js, seed.js and the HTTP tests. Never synchronize. */

@@ -145,6 +145,19 @@ export class ProfileVersion {
   @Column({ name: 'sent_back_reason', type: 'text', nullable: true })
   sentBackReason: string | null;
 
+  @Column({ name: 'retired_by_id', type: 'uuid', nullable: true })
+  retiredById: string | null;
+
+  @ManyToOne(() => User, { onDelete: 'SET NULL', nullable: true })
+  @JoinColumn({ name: 'retired_by_id', foreignKeyConstraintName: 'FK_profile_versions_retired_by_id' })
+  retiredBy?: Relation<User> | null;
+
+  @Column({ name: 'retired_at', type: 'timestamptz', nullable: true })
+  retiredAt: Date | null;
+
+  @Column({ name: 'retire_reason', type: 'text', nullable: true })
+  retireReason: string | null;
+
   @CreateDateColumn({ name: 'created_at', type: 'timestamptz' })
   createdAt: Date;
 
