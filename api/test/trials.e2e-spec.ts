@@ -17,10 +17,7 @@ import { gunzipSync } from 'node:zlib';
 import type request from 'supertest';
 import { AuditEvent } from '../src/audit/audit-event.entity';
 import { AuditService } from '../src/audit/audit.service';
-import {
-  loadTrainingRuntime,
-  type TrainingRuntime,
-} from '../src/profile-versions/profile-training';
+import { loadTrainingRuntime, type TrainingRuntime } from '../src/profile-versions/profile-training';
 import type { ProfileVersionDto } from '../src/profile-versions/profile-version.mapper';
 import { type Caller, type Cast, castOrder, newCast, newClient, newConsent, send } from './caseload-helpers';
 import { TrialsService } from '../src/trials/trials.service';

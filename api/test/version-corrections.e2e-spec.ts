@@ -6,10 +6,7 @@ import { MIN_PROFILE_CHARS } from '@keyloom/shared';
 import { createHash, randomUUID } from 'node:crypto';
 import { AuditEvent } from '../src/audit/audit-event.entity';
 import { AuditService } from '../src/audit/audit.service';
-import {
-  loadTrainingRuntime,
-  type TrainingRuntime,
-} from '../src/profile-versions/profile-training';
+import { loadTrainingRuntime, type TrainingRuntime } from '../src/profile-versions/profile-training';
 import { type Caller, type Cast, castOrder, newCast, newClient, newConsent, send } from './caseload-helpers';
 import { createTestApp, resetDatabase, type TestApp } from './test-app';
 import { postTrial, trainInProcess } from './trial-helpers';
@@ -55,7 +52,8 @@ describe('version corrections (HTTP)', () => {
 
   async function draft(sampleIds = [longId], note?: string): Promise<Version> {
     const body = { settings: {}, sampleIds, ...(note ? { note } : {}) };
-    return (await post(cast.owner, `/api/clients/${clientId}/profile-versions`, body).expect(201)).body as Version;
+    return (await post(cast.owner, `/api/clients/${clientId}/profile-versions`, body).expect(201))
+      .body as Version;
   }
 
   async function version(id: string): Promise<Version> {
@@ -71,8 +69,12 @@ describe('version corrections (HTTP)', () => {
   async function approved(): Promise<Version> {
     const v = await trained();
     await postTrial(t.http, cast.assignedCarer, v.id).expect(201);
-    await post(cast.assignedCarer, `/api/profile-versions/${v.id}/sign-off`, { comment: 'Fine.' }).expect(200);
-    await post(cast.supervisor, `/api/profile-versions/${v.id}/approve`, { comment: 'Approved.' }).expect(200);
+    await post(cast.assignedCarer, `/api/profile-versions/${v.id}/sign-off`, { comment: 'Fine.' }).expect(
+      200,
+    );
+    await post(cast.supervisor, `/api/profile-versions/${v.id}/approve`, { comment: 'Approved.' }).expect(
+      200,
+    );
     return version(v.id);
   }
 
@@ -142,7 +144,9 @@ describe('version corrections (HTTP)', () => {
 
     it('PATCH that would leave too little writing: 400 with both figures, the draft unchanged', async () => {
       const v = await draft();
-      const res = await patch(cast.owner, `/api/profile-versions/${v.id}`, { sampleIds: [shortId] }).expect(400);
+      const res = await patch(cast.owner, `/api/profile-versions/${v.id}`, { sampleIds: [shortId] }).expect(
+        400,
+      );
       expect(res.body.message).toMatch(/at least 500 characters of writing; the chosen samples have 29\./);
       expect((await version(v.id)).samples.map((s) => s.id)).toEqual([longId]);
     });
@@ -210,7 +214,9 @@ describe('version corrections (HTTP)', () => {
     it('retiring the active version makes the previous approved one active again; audited', async () => {
       expect((await version(first.id)).status).toBe('retired');
       const reason = 'Suggestions got worse after the update.';
-      const res = await post(cast.supervisor, `/api/profile-versions/${second.id}/retire`, { reason }).expect(200);
+      const res = await post(cast.supervisor, `/api/profile-versions/${second.id}/retire`, { reason }).expect(
+        200,
+      );
       expect(res.body).toMatchObject({ status: 'retired', retiredBy: 'supervisor', retireReason: reason });
       expect((await version(first.id)).status).toBe('active');
       const list = (await get(cast.owner, `/api/clients/${clientId}/profile-versions`).expect(200))

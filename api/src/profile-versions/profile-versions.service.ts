@@ -449,7 +449,10 @@ export class ProfileVersionsService implements OnModuleInit {
         await updateCount(
           manager,
           `UPDATE profile_versions SET status = 'active', updated_at = now(), history = history || $2::jsonb WHERE id = $1`,
-          [previous.id, historyEvent('active', actor, `Active again: version ${version.number} was retired.`)],
+          [
+            previous.id,
+            historyEvent('active', actor, `Active again: version ${version.number} was retired.`),
+          ],
         );
         await this.audit.record(
           actor,

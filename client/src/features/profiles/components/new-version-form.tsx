@@ -7,6 +7,7 @@ import {
   defaultAccessTiming,
   defaultProfileSettings,
   escapeMethods,
+  MIN_PROFILE_CHARS,
   type ProfileVersion,
 } from '@keyloom/shared';
 import { useId, useState } from 'react';
@@ -72,6 +73,22 @@ const SampleCheckbox = ({
         </p>
       </div>
     </div>
+  );
+};
+
+/**
+ * How much writing a profile needs and how much the ticked samples hold, updated as samples are
+ * ticked (the API refuses a version under MIN_PROFILE_CHARS with the same two figures).
+ */
+const ChosenAmount = ({ samples, chosen }: { samples: readonly TrainableSample[]; chosen: string[] }) => {
+  const total = samples.filter((s) => chosen.includes(s.id)).reduce((n, s) => n + s.characters, 0);
+  const short = total < MIN_PROFILE_CHARS;
+  return (
+    <p id="samples-amount" aria-live="polite" className={short ? 'font-bold text-danger' : 'text-ink-soft'}>
+      Needed: at least {MIN_PROFILE_CHARS.toLocaleString('en-GB')} characters of writing. Chosen:{' '}
+      {total.toLocaleString('en-GB')} characters
+      {short ? ` (${(MIN_PROFILE_CHARS - total).toLocaleString('en-GB')} more needed).` : '.'}
+    </p>
   );
 };
 
@@ -146,7 +163,7 @@ export const NewVersionForm = ({
           <div className="flex flex-col gap-8">
             <FormServerError message={errors.root?.server?.message} />
 
-            <fieldset className="flex flex-col gap-3" aria-describedby="samples-hint">
+            <fieldset className="flex flex-col gap-3" aria-describedby="samples-hint samples-amount">
               <legend className="mb-1 text-xl font-bold">Writing samples to learn from</legend>
               <p id="samples-hint" className="text-ink-soft">
                 Every ready sample is included; untick any to leave out of this version. The chosen set is
@@ -155,6 +172,7 @@ export const NewVersionForm = ({
               {errors.sampleIds?.message && (
                 <FieldError id="samples-error">{errors.sampleIds.message}</FieldError>
               )}
+              <ChosenAmount samples={samples} chosen={(watch('sampleIds') ?? []) as string[]} />
               {samples.map((sample) => {
                 // Kept as an array by hand: a lone registered checkbox would give a string, not a list.
                 const chosen = (watch('sampleIds') ?? []) as string[];
