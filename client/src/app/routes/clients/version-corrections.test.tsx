@@ -3,7 +3,7 @@ import { screen, waitFor, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
 import { profileVersion, VERSION_1_ID, VERSION_2_ID } from '@/features/profiles/testing/profile-data';
 import { clientVocabularyState } from '@/features/vocabulary/testing/vocabulary-data';
-import { ASHBY_ID, clientRecord, sampleSummary, sessionUser } from '@/testing/data';
+import { ASHBY_ID, clientRecord, SAMPLE_ID, sampleSummary, sessionUser } from '@/testing/data';
 import { type MockRoutes, mockFetch, sessionRoutes } from '@/testing/mock-fetch';
 import { currentUrl, renderApp } from '@/testing/render-app';
 
@@ -85,6 +85,56 @@ describe('Retire the active version', () => {
     const active = approved(VERSION_1_ID, 1, '2026-09-20T10:00:00.000Z', { status: 'active' });
     await openPage('clinician', active, [active]);
     expect(screen.queryByRole('button', { name: 'Retire this version' })).not.toBeInTheDocument();
+  });
+});
+
+describe('Edit a draft', () => {
+  it('opens the form filled from the draft, sends the changes, then focuses the settings', async () => {
+    const DIARY_ID = '9c4d5e6f-7a8b-4c0d-9e2f-3a4b5c6d7e82';
+    const draft = profileVersion({
+      status: 'draft',
+      metrics: null,
+      modelBytes: null,
+      note: 'First try',
+      settings: { ...profileVersion().settings, order: 4 },
+    });
+    const { user, api } = await openPage('clinician', draft, [draft], {
+      [`GET ${base}/samples`]: {
+        body: [
+          sampleSummary({ status: 'ready', characters: 24_180 }),
+          sampleSummary({ id: DIARY_ID, title: 'Diary, August', status: 'ready', characters: 10_180 }),
+        ],
+      },
+      [`PATCH /api/profile-versions/${VERSION_1_ID}`]: {
+        body: { ...draft, note: 'With the diary', settings: { ...draft.settings, order: 6 } },
+      },
+    });
+    await user.click(screen.getByRole('button', { name: 'Edit draft' }));
+    const form = within(await screen.findByRole('form', { name: 'Edit draft version 1' }));
+    await waitFor(() => expect(screen.getByRole('heading', { name: 'Edit draft version 1' })).toHaveFocus());
+    // Filled from the draft: its order, note and its one sample ticked (the diary is not in it).
+    expect(form.getByLabelText('Context order')).toHaveValue(4);
+    expect(form.getByLabelText('Note (optional)')).toHaveValue('First try');
+    expect(form.getByRole('checkbox', { name: 'Messages to the sailing club' })).toBeChecked();
+    expect(form.getByRole('checkbox', { name: 'Diary, August' })).not.toBeChecked();
+    await user.click(form.getByRole('checkbox', { name: 'Diary, August' }));
+    await user.clear(form.getByLabelText('Context order'));
+    await user.type(form.getByLabelText('Context order'), '6');
+    await user.clear(form.getByLabelText('Note (optional)'));
+    await user.type(form.getByLabelText('Note (optional)'), 'With the diary');
+    await user.click(form.getByRole('button', { name: 'Save draft' }));
+    expect(await screen.findByText('Draft version 1 was saved.')).toBeInTheDocument();
+    const sent = api.requestsTo(`PATCH /api/profile-versions/${VERSION_1_ID}`)[0]?.body as {
+      sampleIds: string[];
+      note: string;
+      settings: { order: number; vocabulary: unknown };
+    };
+    expect(sent.sampleIds).toEqual([SAMPLE_ID, DIARY_ID]);
+    expect(sent.note).toBe('With the diary');
+    expect(sent.settings.order).toBe(6);
+    expect(sent.settings.vocabulary).toEqual(draft.settings.vocabulary);
+    expect(api.requestsTo(`POST /api/profile-versions/${VERSION_1_ID}/train`)).toHaveLength(0);
+    await waitFor(() => expect(screen.getByRole('heading', { name: 'Settings and samples' })).toHaveFocus());
   });
 });
 

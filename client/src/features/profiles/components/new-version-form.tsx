@@ -20,6 +20,7 @@ import { SelectField } from '@/components/ui/select-field';
 import { TextField } from '@/components/ui/text-field';
 import { useCreateProfileVersion } from '../api/create-profile-version';
 import { useTrainProfileVersion } from '../api/train-profile-version';
+import { useUpdateProfileVersion } from '../api/update-profile-version';
 import { NextVersionNote } from '@/features/vocabulary/components/next-version-note';
 import { escapeExplanations } from '../lib/profile-words';
 
@@ -100,7 +101,14 @@ type NewVersionFormProps = {
   latestVersionId?: string | null;
   onCancel: () => void;
   /** Called with the version once it is created and its training has been asked for. */
-  onStarted: (version: ProfileVersion, trainError: string | null) => void;
+  onStarted?: (version: ProfileVersion, trainError: string | null) => void;
+  /**
+   * A draft to edit instead: the form starts from its settings, samples and note, and saving sends
+   * them to the draft (PATCH) without training it.
+   */
+  draft?: ProfileVersion;
+  /** Called with the draft once the changes are saved. */
+  onSaved?: (version: ProfileVersion) => void;
 };
 
 /** The settings of a new profile version, validated by the shared schema; submitting creates and trains it. */
@@ -111,25 +119,35 @@ export const NewVersionForm = ({
   latestVersionId = null,
   onCancel,
   onStarted,
+  draft,
+  onSaved,
 }: NewVersionFormProps) => {
   const create = useCreateProfileVersion();
   const train = useTrainProfileVersion();
-  const [weightMode, setWeightMode] = useState<'auto' | 'fixed'>('auto');
+  const update = useUpdateProfileVersion();
+  const [weightMode, setWeightMode] = useState<'auto' | 'fixed'>(
+    draft && draft.settings.baseWeight !== 'auto' ? 'fixed' : 'auto',
+  );
+  // A draft's access keeps its own timings; the boxes it did not set show the client's or the default.
+  const startAccess = draft?.settings.access ?? access;
 
   return (
     <Form
       schema={createProfileVersionSchema}
-      aria-label="New profile version"
+      aria-label={draft ? `Edit draft version ${draft.number}` : 'New profile version'}
       defaultValues={{
-        sampleIds: samples.map((sample) => sample.id),
-        note: '',
+        sampleIds: draft
+          ? draft.samples.map((sample) => sample.id).filter((id) => samples.some((s) => s.id === id))
+          : samples.map((sample) => sample.id),
+        note: draft?.note ?? '',
         settings: {
-          ...defaultProfileSettings,
+          ...(draft?.settings ?? defaultProfileSettings),
           access: {
-            method: access.method,
-            scanIntervalMs: access.scanIntervalMs ?? defaultAccessTiming.scanIntervalMs,
-            dwellMs: access.dwellMs ?? defaultAccessTiming.dwellMs,
-            keyTimeMs: access.keyTimeMs ?? defaultAccessTiming.keyTimeMs,
+            method: startAccess.method,
+            scanIntervalMs:
+              startAccess.scanIntervalMs ?? access.scanIntervalMs ?? defaultAccessTiming.scanIntervalMs,
+            dwellMs: startAccess.dwellMs ?? access.dwellMs ?? defaultAccessTiming.dwellMs,
+            keyTimeMs: startAccess.keyTimeMs ?? access.keyTimeMs ?? defaultAccessTiming.keyTimeMs,
           },
         },
       }}
@@ -144,15 +162,28 @@ export const NewVersionForm = ({
         // (the schema's default, an empty list, would otherwise replace it).
         // eslint-disable-next-line @typescript-eslint/no-unused-vars -- left out on purpose
         const { vocabulary, ...settings } = input.settings;
+        if (draft) {
+          // An edited draft keeps the word list frozen in it.
+          const saved = await update.mutateAsync({
+            versionId: draft.id,
+            input: {
+              ...input,
+              settings: { ...settings, access, vocabulary: draft.settings.vocabulary },
+              note: input.note ?? '',
+            },
+          });
+          onSaved?.(saved);
+          return;
+        }
         const version = await create.mutateAsync({
           clientId,
           input: { ...input, settings: { ...settings, access }, note: input.note || undefined },
         });
         try {
-          onStarted(await train.mutateAsync(version.id), null);
+          onStarted?.(await train.mutateAsync(version.id), null);
         } catch (error) {
           // The draft is saved; its page offers Train again and says what went wrong.
-          onStarted(version, error instanceof Error ? error.message : 'Training could not start.');
+          onStarted?.(version, error instanceof Error ? error.message : 'Training could not start.');
         }
       }}
     >
@@ -287,7 +318,7 @@ export const NewVersionForm = ({
               ))}
             </fieldset>
 
-            <NextVersionNote clientId={clientId} latestVersionId={latestVersionId} />
+            {!draft && <NextVersionNote clientId={clientId} latestVersionId={latestVersionId} />}
 
             <TextField
               label="Note (optional)"
@@ -298,7 +329,13 @@ export const NewVersionForm = ({
 
             <div className="flex flex-wrap gap-3">
               <Button type="submit" variant="primary" disabled={formState.isSubmitting}>
-                {formState.isSubmitting ? 'Starting…' : 'Train this version'}
+                {draft
+                  ? formState.isSubmitting
+                    ? 'Saving…'
+                    : 'Save draft'
+                  : formState.isSubmitting
+                    ? 'Starting…'
+                    : 'Train this version'}
               </Button>
               <Button onClick={onCancel}>Cancel</Button>
             </div>

@@ -33,6 +33,8 @@ type VersionActionsProps = {
   trialCount?: number | null;
   /** The test keyboard for this version, offered beside a sign-off that waits for a trial. */
   keyboardHref?: string;
+  /** Opens the draft's settings for editing (the page shows the form); no button without it. */
+  onEdit?: () => void;
 };
 
 /** The buttons of a version's page, and the dialogs they open. */
@@ -42,6 +44,7 @@ export const VersionActions = ({
   announce,
   trialCount = null,
   keyboardHref,
+  onEdit,
 }: VersionActionsProps) => {
   const [dialog, setDialog] = useState<Dialog>(null);
   // After a decision the button that opened the dialog may be gone (the version moved on): focus
@@ -149,6 +152,11 @@ export const VersionActions = ({
       {show.retire && (
         <Button variant="danger" disabled={versions.isPending} onClick={() => setDialog('retire')}>
           Retire this version
+        </Button>
+      )}
+      {show.deleteDraft && onEdit && (
+        <Button id="edit-draft-button" onClick={onEdit}>
+          Edit draft
         </Button>
       )}
       {show.deleteDraft && (
