@@ -199,7 +199,8 @@ export function tooLittleTextMessage(chars: number): string {
   );
 }
 
-// 400 when the samples hold less writing than a profile needs (MIN_PROFILE_CHARS, the engine's floor).
+// 400 when the samples hold less writing than a profile needs (MIN_PROFILE_CHARS, the engine's floor;
+// the figure itself is the engine's own choice: common practice, no source).
 function requireEnoughText(samples: readonly FrozenSample[], settings: ProfileSettings): void {
   const chars = preparedCharacters(samples, engineSettings(settings).caseFold);
   if (chars < MIN_PROFILE_CHARS) {
@@ -469,7 +470,8 @@ export class ProfileVersionsService implements OnModuleInit {
         {
           number: version.number,
           reactivated: previous?.id ?? null,
-          // Free text about the client stays on the version; the log can show it was not changed.
+          // Free text about the client stays on the version (OWASP Logging Cheat Sheet, "Data to
+          // exclude", as in audit-details.ts); the hash lets the log show it was not changed since.
           reasonSha256: createHash('sha256').update(input.reason).digest('hex'),
           reasonLength: input.reason.length,
         },
