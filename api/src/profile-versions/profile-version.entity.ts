@@ -36,6 +36,8 @@ export type StoredVersionEvent = {
   `status IN ('draft', 'training', 'trained', 'failed', 'signed_off', 'active', 'retired', 'sent_back')`,
 )
 @Check('CHK_profile_versions_progress', `progress >= 0 AND progress <= 1`)
+// Retired by hand: when and why together (migration 1764991000001).
+@Check('CHK_profile_versions_retire_complete', `(retired_at IS NULL) = (retire_reason IS NULL)`)
 export class ProfileVersion {
   @PrimaryGeneratedColumn('uuid', { primaryKeyConstraintName: 'PK_profile_versions' })
   id: string;
