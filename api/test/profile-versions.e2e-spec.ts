@@ -345,15 +345,18 @@ describe('profile versions (HTTP)', () => {
       expect((await version(v.id)).error).toBeNull();
     });
 
-    it('refuses under 500 characters with the engine’s message (400)', async () => {
-      const small = await newClient(t.http, cast.owner, undefined, 'S. Mallwood');
-      await newConsent(t.http, cast.owner, small.id);
+    it('refuses under 500 characters at training too (a draft stored before creation checked it): 400', async () => {
+      const v = await create();
       const text = 'Pepper and I went to the harbour. The wind was kind today.';
-      await paste(cast.owner, small.id, 'Short', text);
-      const v = await create({ settings: {} }, small.id);
+      // A draft from before the creation check: its frozen samples hold too little writing.
+      await t.dataSource.query(
+        `UPDATE profile_versions SET samples = jsonb_build_array(samples->0 || jsonb_build_object('text', $2::text))
+          WHERE id = $1`,
+        [v.id, text],
+      );
       const res = await post(cast.owner, `/api/profile-versions/${v.id}/train`).expect(400);
       expect(res.body.message).toBe(
-        `A profile needs at least 500 characters of sample text; the selected samples have ${text.length}. Add more samples.`,
+        `A profile needs at least 500 characters of writing; the chosen samples have ${text.length}. Add more samples.`,
       );
       expect((await version(v.id)).status).toBe('draft');
     });

@@ -2,7 +2,10 @@ import type { CreateTrialInput, TrialEvent, TrialSettings } from '@keyloom/share
 import { randomUUID } from 'node:crypto';
 import type { Server } from 'node:http';
 import type request from 'supertest';
+import type { AuditService } from '../src/audit/audit.service';
+import { runProfileTraining, type TrainingRuntime } from '../src/profile-versions/profile-training';
 import { type Caller, send } from './caseload-helpers';
+import type { TestApp } from './test-app';
 
 /** Letter-by-letter steps typing `text`, evenly spread from 0 to `ms` (space → a space step). */
 export function typedEvents(text: string, ms: number, from = 0): TrialEvent[] {
@@ -51,4 +54,23 @@ export function postTrial(
   overrides: Partial<CreateTrialInput> = {},
 ): request.Test {
   return send(http, who, 'post', `/api/profile-versions/${versionId}/trials`, trialBody(overrides));
+}
+
+/**
+ * POST train as `owner`, then runs the worker's job handler in-process; resolves to the handler's
+ * outcome ('trained' when all went well).
+ */
+export async function trainInProcess(
+  t: TestApp,
+  audit: AuditService,
+  owner: Caller,
+  versionId: string,
+  runtime: TrainingRuntime,
+): Promise<string> {
+  await send(t.http, owner, 'post', `/api/profile-versions/${versionId}/train`).expect(200);
+  const rows: { job_id: string }[] = await t.dataSource.query(
+    'SELECT job_id FROM profile_versions WHERE id = $1',
+    [versionId],
+  );
+  return runProfileTraining(t.dataSource, audit, versionId, rows[0].job_id, runtime);
 }

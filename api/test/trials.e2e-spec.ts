@@ -17,16 +17,12 @@ import { gunzipSync } from 'node:zlib';
 import type request from 'supertest';
 import { AuditEvent } from '../src/audit/audit-event.entity';
 import { AuditService } from '../src/audit/audit.service';
-import {
-  loadTrainingRuntime,
-  runProfileTraining,
-  type TrainingRuntime,
-} from '../src/profile-versions/profile-training';
+import { loadTrainingRuntime, type TrainingRuntime } from '../src/profile-versions/profile-training';
 import type { ProfileVersionDto } from '../src/profile-versions/profile-version.mapper';
 import { type Caller, type Cast, castOrder, newCast, newClient, newConsent, send } from './caseload-helpers';
 import { TrialsService } from '../src/trials/trials.service';
 import { createTestApp, resetDatabase, type TestApp } from './test-app';
-import { directSettings, postTrial, trialBody, typedEvents } from './trial-helpers';
+import { directSettings, postTrial, trainInProcess, trialBody, typedEvents } from './trial-helpers';
 
 // Invented for these tests (the demo scenario's voice: a sailing club, a dog, jazz piano).
 const TEXTS = [
@@ -84,12 +80,7 @@ describe('test keyboard (HTTP)', () => {
 
   async function trained(): Promise<Version> {
     const v = await draft();
-    await post(cast.owner, `/api/profile-versions/${v.id}/train`).expect(200);
-    const rows: { job_id: string }[] = await t.dataSource.query(
-      'SELECT job_id FROM profile_versions WHERE id = $1',
-      [v.id],
-    );
-    expect(await runProfileTraining(t.dataSource, audit, v.id, rows[0].job_id, runtime)).toBe('trained');
+    expect(await trainInProcess(t, audit, cast.owner, v.id, runtime)).toBe('trained');
     return (await get(cast.owner, `/api/profile-versions/${v.id}`).expect(200)).body as Version;
   }
 

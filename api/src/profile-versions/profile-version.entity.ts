@@ -36,6 +36,8 @@ export type StoredVersionEvent = {
   `status IN ('draft', 'training', 'trained', 'failed', 'signed_off', 'active', 'retired', 'sent_back')`,
 )
 @Check('CHK_profile_versions_progress', `progress >= 0 AND progress <= 1`)
+// Retired by hand: when and why together (migration 1764991000001).
+@Check('CHK_profile_versions_retire_complete', `(retired_at IS NULL) = (retire_reason IS NULL)`)
 export class ProfileVersion {
   @PrimaryGeneratedColumn('uuid', { primaryKeyConstraintName: 'PK_profile_versions' })
   id: string;
@@ -144,6 +146,19 @@ export class ProfileVersion {
 
   @Column({ name: 'sent_back_reason', type: 'text', nullable: true })
   sentBackReason: string | null;
+
+  @Column({ name: 'retired_by_id', type: 'uuid', nullable: true })
+  retiredById: string | null;
+
+  @ManyToOne(() => User, { onDelete: 'SET NULL', nullable: true })
+  @JoinColumn({ name: 'retired_by_id', foreignKeyConstraintName: 'FK_profile_versions_retired_by_id' })
+  retiredBy?: Relation<User> | null;
+
+  @Column({ name: 'retired_at', type: 'timestamptz', nullable: true })
+  retiredAt: Date | null;
+
+  @Column({ name: 'retire_reason', type: 'text', nullable: true })
+  retireReason: string | null;
 
   @CreateDateColumn({ name: 'created_at', type: 'timestamptz' })
   createdAt: Date;

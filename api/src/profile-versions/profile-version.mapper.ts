@@ -24,7 +24,7 @@ function liveProgress(v: ProfileVersion, staleMs: number): { stage: string | nul
     : { stage: v.stage, progress: v.progress };
 }
 
-/** Entity (with createdBy, signedOffBy, approvedBy loaded) → API shape; `staleMs`: TRAINING_STALE_SECONDS. */
+/** Entity (with createdBy, signedOffBy, approvedBy, retiredBy loaded) → API shape; `staleMs`: TRAINING_STALE_SECONDS. */
 export function toProfileVersionDto(v: ProfileVersion, staleMs: number): ProfileVersionDto {
   return {
     id: v.id,
@@ -51,5 +51,8 @@ export function toProfileVersionDto(v: ProfileVersion, staleMs: number): Profile
     approvedAt: v.approvedAt?.toISOString() ?? null,
     approvalComment: v.approvalComment,
     sentBackReason: v.sentBackReason,
+    retiredBy: v.retiredById ? (v.retiredBy?.name ?? REMOVED) : null,
+    retiredAt: v.retiredAt?.toISOString() ?? null,
+    retireReason: v.retireReason,
   };
 }

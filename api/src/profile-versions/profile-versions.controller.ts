@@ -2,10 +2,12 @@ import {
   BadRequestException,
   Body,
   Controller,
+  Delete,
   Get,
   HttpCode,
   Param,
   ParseUUIDPipe,
+  Patch,
   Post,
   StreamableFile,
   UploadedFile,
@@ -16,6 +18,7 @@ import {
   ApiBody,
   ApiConsumes,
   ApiCreatedResponse,
+  ApiNoContentResponse,
   ApiOkResponse,
   ApiOperation,
   ApiProduces,
@@ -30,10 +33,14 @@ import {
   profileVersionSchema,
   type ReportProblemInput,
   reportProblemSchema,
+  type RetireInput,
+  retireSchema,
   type SendBackInput,
   sendBackSchema,
   type SignOffInput,
   signOffSchema,
+  type UpdateProfileVersionInput,
+  updateProfileVersionSchema,
 } from '@keyloom/shared';
 import { memoryStorage } from 'multer';
 import { z } from 'zod';
@@ -73,7 +80,8 @@ export class ProfileVersionsController {
   @ApiOperation({
     summary: 'Configure a new version (draft): settings and samples are frozen',
     description:
-      'Owning clinician; active training consent (409). access defaults to the client record; sampleIds ' +
+      'Owning clinician; active training consent (409); under 500 characters of writing in the chosen ' +
+      'samples: 400 with both figures. access defaults to the client record; sampleIds ' +
       'to every ready sample (a chosen sample that is excluded or still flagged: 400); settings.vocabulary ' +
       'to the client’s current vocabulary list (GET /api/clients/:id/vocabulary).',
   })
@@ -92,6 +100,37 @@ export class ProfileVersionsController {
   @ApiOkResponse({ schema: zodSchemaObject(profileVersionSchema) })
   findOne(@CurrentActor() actor: Actor, @Param('id', ParseUUIDPipe) id: string): Promise<ProfileVersionDto> {
     return this.versions.findOne(actor, id);
+  }
+
+  @Patch('profile-versions/:id')
+  @Roles('clinician')
+  @ApiOperation({
+    summary: 'Edit a draft: the fields the create takes; each one sent replaces the draft’s',
+    description:
+      'Owning clinician; active training consent (409). Settings and samples are frozen again as at ' +
+      'creation; under 500 characters of writing: 400 with both figures. Not a draft: 409. Unknown id, or ' +
+      'a client out of sight: 404.',
+  })
+  @ApiBody({ schema: zodSchemaObject(updateProfileVersionSchema) })
+  @ApiOkResponse({ schema: zodSchemaObject(profileVersionSchema) })
+  update(
+    @CurrentActor() actor: Actor,
+    @Param('id', ParseUUIDPipe) id: string,
+    @Body(new ZodValidationPipe(updateProfileVersionSchema)) body: UpdateProfileVersionInput,
+  ): Promise<ProfileVersionDto> {
+    return this.versions.update(actor, id, body);
+  }
+
+  @Delete('profile-versions/:id')
+  @HttpCode(204)
+  @Roles('clinician')
+  @ApiOperation({
+    summary: 'Delete a draft',
+    description: 'Owning clinician. Not a draft: 409 (trained versions are kept). Unknown id: 404.',
+  })
+  @ApiNoContentResponse({ description: 'Deleted.' })
+  remove(@CurrentActor() actor: Actor, @Param('id', ParseUUIDPipe) id: string): Promise<void> {
+    return this.versions.remove(actor, id);
   }
 
   @Post('profile-versions/:id/train')
@@ -169,6 +208,25 @@ export class ProfileVersionsController {
     @Body(new ZodValidationPipe(approveSchema)) body: ApproveInput,
   ): Promise<ProfileVersionDto> {
     return this.versions.approve(actor, id, body);
+  }
+
+  @Post('profile-versions/:id/retire')
+  @HttpCode(200)
+  @Roles('supervisor')
+  @ApiOperation({
+    summary: 'Retire the active version (active → retired; the previous approved version → active, or none)',
+    description:
+      'Supervisor, with a reason. The previous version is the most recently approved one before it that ' +
+      `was not itself retired by hand. Not the active version: 409. ${TRANSITION}`,
+  })
+  @ApiBody({ schema: zodSchemaObject(retireSchema) })
+  @ApiOkResponse({ schema: zodSchemaObject(profileVersionSchema) })
+  retire(
+    @CurrentActor() actor: Actor,
+    @Param('id', ParseUUIDPipe) id: string,
+    @Body(new ZodValidationPipe(retireSchema)) body: RetireInput,
+  ): Promise<ProfileVersionDto> {
+    return this.versions.retire(actor, id, body);
   }
 
   @Post('profile-versions/:id/send-back')

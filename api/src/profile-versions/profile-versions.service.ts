@@ -26,13 +26,15 @@ import {
   type ProfileVersionStatus,
   profileSettingsSchema,
   type ReportProblemInput,
+  type RetireInput,
   profileVersionStatusLabels,
   type SendBackInput,
   type SignOffInput,
+  type UpdateProfileVersionInput,
   verifyProfileFile,
   writeProfileFile,
 } from '@keyloom/shared';
-import { randomUUID } from 'node:crypto';
+import { createHash, randomUUID } from 'node:crypto';
 import { DataSource, type EntityManager, In } from 'typeorm';
 import { AuditService } from '../audit/audit.service';
 import type { Actor } from '../auth/session-user';
@@ -67,6 +69,11 @@ export const NO_MODEL_MESSAGE = 'This version has no trained model yet; train it
 export const CARER_EXPORT_MESSAGE = 'Carers cannot export profiles. Ask the client’s clinician.';
 export const TRIAL_FIRST_MESSAGE =
   'Try this version on the test keyboard at least once before signing it off.';
+export const ONLY_DRAFT_MESSAGE = (status: string) =>
+  `Only a draft can be edited or deleted; this version is ${status}. Create a new version instead.`;
+export const NOT_ACTIVE_MESSAGE = (status: string) =>
+  `Only the active version can be retired; this one is ${status}.`;
+export const ONLY_SUPERVISOR_RETIRES_MESSAGE = 'Only a supervisor retires the active version.';
 export const ONLY_CARER_REPORTS_MESSAGE =
   'Only a carer assigned to this client reports a problem with a version.';
 
@@ -176,6 +183,32 @@ export async function frozenSamples(
   }));
 }
 
+/**
+ * Characters of writing the training will see in `samples` (the engine's prepared text, so the
+ * figure is the one training checks against MIN_PROFILE_CHARS).
+ */
+export function preparedCharacters(samples: readonly FrozenSample[], caseFold: boolean): number {
+  return samples.reduce((n, s) => n + prepareText(s.text, { caseFold }).length, 0);
+}
+
+/** The refusal for too little writing, with both figures (at creation, on edit and before training). */
+export function tooLittleTextMessage(chars: number): string {
+  return (
+    `A profile needs at least ${MIN_PROFILE_CHARS} characters of writing; ` +
+    `the chosen samples have ${chars}. Add more samples.`
+  );
+}
+
+// 400 when the samples hold less writing than a profile needs (MIN_PROFILE_CHARS, the engine's floor;
+// the figure itself is the engine's own choice: common practice, no source).
+function requireEnoughText(samples: readonly FrozenSample[], settings: ProfileSettings): void {
+  const chars = preparedCharacters(samples, engineSettings(settings).caseFold);
+  if (chars < MIN_PROFILE_CHARS) {
+    const message = tooLittleTextMessage(chars);
+    throw new BadRequestException({ message, issues: [{ path: 'sampleIds', message }] });
+  }
+}
+
 /** Additions and blocks as counts (what the audit log keeps of a vocabulary). */
 export function vocabularyCounts(vocabulary: ClientVocabulary): { additions: number; blocks: number } {
   return { additions: vocabulary.additions.length, blocks: vocabulary.blocks.length };
@@ -195,6 +228,25 @@ async function updateCount(manager: EntityManager, sql: string, params: unknown[
   const raw: unknown = await manager.query(sql, params);
   if (Array.isArray(raw) && raw.length === 2 && typeof raw[1] === 'number') return raw[1];
   return Array.isArray(raw) ? raw.length : 0;
+}
+
+/**
+ * The settings a draft freezes: `access` defaults to the client record's timings and, without
+ * `vocabulary` in the body, the client's current vocabulary list is frozen.
+ */
+async function resolvedSettings(
+  manager: EntityManager,
+  client: Client,
+  input: CreateProfileVersionInput['settings'],
+): Promise<ProfileSettings> {
+  const vocabulary =
+    input.vocabulary ??
+    (await manager.getRepository(ClientVocabularyRow).findOneBy({ clientId: client.id }))?.vocabulary;
+  return profileSettingsSchema.parse({
+    ...input,
+    access: input.access ?? accessFromClient(client),
+    vocabulary,
+  });
 }
 
 /** The access timings of the client record, as the settings' `access` (also the demo seed's). */
@@ -252,7 +304,7 @@ export class ProfileVersionsService implements OnModuleInit {
     await this.access.requireReadable(actor, clientId, 'clinical');
     const rows = await this.dataSource.getRepository(ProfileVersion).find({
       where: { clientId },
-      relations: { createdBy: true, signedOffBy: true, approvedBy: true },
+      relations: { createdBy: true, signedOffBy: true, approvedBy: true, retiredBy: true },
       order: { number: 'DESC' },
     });
     return rows.map((row) => toProfileVersionDto(row, this.config.trainingStaleMs));
@@ -269,16 +321,9 @@ export class ProfileVersionsService implements OnModuleInit {
     return this.dataSource.transaction(async (manager) => {
       const client = await this.access.requireOwned(actor, clientId, manager);
       await this.access.requireTrainingConsent(clientId, manager);
-      // Without `settings.vocabulary` in the body the version freezes the client's current list.
-      const vocabulary =
-        input.settings.vocabulary ??
-        (await manager.getRepository(ClientVocabularyRow).findOneBy({ clientId }))?.vocabulary;
-      const settings = profileSettingsSchema.parse({
-        ...input.settings,
-        access: input.settings.access ?? accessFromClient(client),
-        vocabulary,
-      });
+      const settings = await resolvedSettings(manager, client, input.settings);
       const samples = await frozenSamples(manager, clientId, input.sampleIds);
+      requireEnoughText(samples, settings);
       // Numbers per client: one creation at a time per client.
       await manager.query('SELECT 1 FROM clients WHERE id = $1 FOR UPDATE', [clientId]);
       const rows: { next: number }[] = await manager.query(
@@ -315,6 +360,124 @@ export class ProfileVersionsService implements OnModuleInit {
         manager,
       );
       return this.dto(manager, version.id);
+    });
+  }
+
+  /**
+   * Changes a draft (owning clinician, active training consent): each field sent replaces the draft's,
+   * settings and samples frozen again as at creation. Anything past draft: 409.
+   */
+  async update(actor: Actor, id: string, input: UpdateProfileVersionInput): Promise<ProfileVersionDto> {
+    const { clientId } = await this.owned(actor, id);
+    return this.dataSource.transaction(async (manager) => {
+      const client = await this.access.requireOwned(actor, clientId, manager);
+      await this.access.requireTrainingConsent(clientId, manager);
+      const version = await this.locked(manager, id);
+      if (version.status !== 'draft') throw new ConflictException(ONLY_DRAFT_MESSAGE(label(version.status)));
+      const changed: string[] = [];
+      if (input.settings) {
+        version.settings = await resolvedSettings(manager, client, input.settings);
+        changed.push('settings');
+      }
+      if (input.sampleIds) {
+        version.samples = await frozenSamples(manager, clientId, input.sampleIds);
+        changed.push('samples');
+      }
+      if (input.note !== undefined) {
+        version.note = input.note || null;
+        changed.push('note');
+      }
+      requireEnoughText(version.samples, version.settings);
+      version.history = [
+        ...version.history,
+        { status: 'draft', at: new Date().toISOString(), by: actor.name, comment: 'Draft edited.' },
+      ];
+      await manager.getRepository(ProfileVersion).save(version);
+      await this.audit.record(
+        actor,
+        'profile.update',
+        { type: 'profile-version', id, clientId },
+        {
+          number: version.number,
+          changed,
+          settings: { ...version.settings, vocabulary: vocabularyCounts(version.settings.vocabulary) },
+          samples: version.samples.map(({ id: sampleId, sha256 }) => ({ id: sampleId, sha256 })),
+        },
+        manager,
+      );
+      return this.dto(manager, id);
+    });
+  }
+
+  /** Deletes a draft (owning clinician); anything past draft: 409 (trained versions are kept). */
+  async remove(actor: Actor, id: string): Promise<void> {
+    const { clientId } = await this.owned(actor, id);
+    await this.dataSource.transaction(async (manager) => {
+      const version = await this.locked(manager, id);
+      if (version.status !== 'draft') throw new ConflictException(ONLY_DRAFT_MESSAGE(label(version.status)));
+      await manager.getRepository(ProfileVersion).delete({ id });
+      await this.audit.record(
+        actor,
+        'profile.delete-draft',
+        { type: 'profile-version', id, clientId },
+        { number: version.number, samples: version.samples.length },
+        manager,
+      );
+    });
+  }
+
+  /**
+   * The active version → retired, by hand (a supervisor: approving makes a version active, so only
+   * the role that approves decides which version is in use). The most recent version approved before
+   * it that was not itself retired by hand becomes active again, or none does. The reason stays on
+   * the version; the log keeps its SHA-256 and length.
+   */
+  async retire(actor: Actor, id: string, input: RetireInput): Promise<ProfileVersionDto> {
+    const { clientId } = await this.readable(actor, id);
+    if (actor.role !== 'supervisor') throw new ForbiddenException(ONLY_SUPERVISOR_RETIRES_MESSAGE);
+    return this.dataSource.transaction(async (manager) => {
+      await manager.query('SELECT 1 FROM clients WHERE id = $1 FOR UPDATE', [clientId]);
+      const version = await this.locked(manager, id);
+      if (version.status !== 'active') throw new ConflictException(NOT_ACTIVE_MESSAGE(label(version.status)));
+      const previous = await previousApproved(manager, version);
+      await updateCount(
+        manager,
+        `UPDATE profile_versions SET status = 'retired', retired_at = now(), retired_by_id = $2,
+           retire_reason = $3, updated_at = now(), history = history || $4::jsonb WHERE id = $1`,
+        [id, actor.id, input.reason, historyEvent('retired', actor, input.reason)],
+      );
+      if (previous) {
+        await updateCount(
+          manager,
+          `UPDATE profile_versions SET status = 'active', updated_at = now(), history = history || $2::jsonb WHERE id = $1`,
+          [
+            previous.id,
+            historyEvent('active', actor, `Active again: version ${version.number} was retired.`),
+          ],
+        );
+        await this.audit.record(
+          actor,
+          'profile.reactivate',
+          { type: 'profile-version', id: previous.id, clientId },
+          { number: previous.number, replacing: id },
+          manager,
+        );
+      }
+      await this.audit.record(
+        actor,
+        'profile.retire',
+        { type: 'profile-version', id, clientId },
+        {
+          number: version.number,
+          reactivated: previous?.id ?? null,
+          // Free text about the client stays on the version (OWASP Logging Cheat Sheet, "Data to
+          // exclude", as in audit-details.ts); the hash lets the log show it was not changed since.
+          reasonSha256: createHash('sha256').update(input.reason).digest('hex'),
+          reasonLength: input.reason.length,
+        },
+        manager,
+      );
+      return this.dto(manager, id);
     });
   }
 
@@ -389,17 +552,8 @@ export class ProfileVersionsService implements OnModuleInit {
       if (error instanceof ProfileInputError) throw new BadRequestException(error.message);
       throw error;
     }
-    const chars = version.samples.reduce(
-      (n, s) => n + prepareText(s.text, { caseFold: settings.caseFold }).length,
-      0,
-    );
-    if (chars < MIN_PROFILE_CHARS) {
-      // The engine's own wording (trainAndEvaluateProfile), so the form and a failed job read the same.
-      throw new BadRequestException(
-        `A profile needs at least ${MIN_PROFILE_CHARS} characters of sample text; ` +
-          `the selected samples have ${chars}. Add more samples.`,
-      );
-    }
+    // Drafts made before creation checked the text, so training checks it too.
+    requireEnoughText(version.samples, version.settings);
   }
 
   private async jobIsAlive(version: ProfileVersion): Promise<boolean> {
@@ -711,11 +865,29 @@ export class ProfileVersionsService implements OnModuleInit {
   private async dto(manager: EntityManager, id: string): Promise<ProfileVersionDto> {
     const version = await manager.getRepository(ProfileVersion).findOne({
       where: { id },
-      relations: { createdBy: true, signedOffBy: true, approvedBy: true },
+      relations: { createdBy: true, signedOffBy: true, approvedBy: true, retiredBy: true },
     });
     if (!version) throw new NotFoundException(VERSION_NOT_FOUND_MESSAGE);
     return toProfileVersionDto(version, this.config.trainingStaleMs);
   }
+}
+
+/**
+ * The version that becomes active when `version` is retired: the client's most recently approved
+ * version before it that was retired by an approval (never one retired by hand), or null.
+ */
+async function previousApproved(
+  manager: EntityManager,
+  version: ProfileVersion,
+): Promise<{ id: string; number: number } | null> {
+  const rows: { id: string; number: number }[] = await manager.query(
+    `SELECT id, number FROM profile_versions
+      WHERE client_id = $1 AND id <> $2 AND status = 'retired' AND retired_at IS NULL
+        AND approved_at IS NOT NULL AND approved_at <= $3
+      ORDER BY approved_at DESC, number DESC LIMIT 1`,
+    [version.clientId, version.id, version.approvedAt ?? new Date()],
+  );
+  return rows[0] ?? null;
 }
 
 // Whether the version was tried at least once on the test keyboard (the trials table is the test keyboard's).

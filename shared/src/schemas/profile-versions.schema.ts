@@ -16,6 +16,11 @@ export const createProfileVersionSchema = z.object({
 });
 export type CreateProfileVersionInput = z.infer<typeof createProfileVersionSchema>;
 
+// PATCH /api/profile-versions/:id (drafts only): the fields the create takes, each optional; a field
+// that is sent replaces what the draft holds (settings and samples are frozen again, as at creation).
+export const updateProfileVersionSchema = createProfileVersionSchema.partial({ settings: true });
+export type UpdateProfileVersionInput = z.infer<typeof updateProfileVersionSchema>;
+
 export const profileVersionStatuses = [
   'draft',
   'training',
@@ -59,6 +64,9 @@ export const sendBackSchema = z.object({ reason: requiredText('Say what needs to
 export type SignOffInput = z.infer<typeof signOffSchema>;
 export type ApproveInput = z.infer<typeof approveSchema>;
 export type SendBackInput = z.infer<typeof sendBackSchema>;
+// POST /api/profile-versions/:id/retire: why the active version is taken out of use.
+export const retireSchema = z.object({ reason: requiredText('Say why this version is retired.') });
+export type RetireInput = z.infer<typeof retireSchema>;
 
 // A step of the version's history: who moved it, when, and what they said.
 export const profileVersionEventSchema = z.object({
@@ -104,5 +112,9 @@ export const profileVersionSchema = z.object({
   approvedAt: z.string().nullable(),
   approvalComment: z.string().nullable(),
   sentBackReason: z.string().nullable(),
+  // Who retired the active version by hand, when and why (null when it was replaced by an approval).
+  retiredBy: z.string().nullable(),
+  retiredAt: z.string().nullable(),
+  retireReason: z.string().nullable(),
 });
 export type ProfileVersion = z.infer<typeof profileVersionSchema>;

@@ -1,4 +1,5 @@
 import type { Role } from '@keyloom/shared';
+import { useQuery } from '@tanstack/react-query';
 import { useState } from 'react';
 import { Link, useLocation, useParams } from 'react-router-dom';
 import { z } from 'zod';
@@ -13,6 +14,8 @@ import { useTrials } from '@/features/keyboard/api/get-trials';
 import { hasModel, takesTrials } from '@/features/keyboard/logic/keyboard-versions';
 import { TrialHistory } from '@/features/keyboard/components/trial-history';
 import { useProfileVersion } from '@/features/profiles/api/get-profile-version';
+import { NewVersionForm } from '@/features/profiles/components/new-version-form';
+import { samplesQueryOptions } from '@/features/samples/api/get-samples';
 import { count, readReport } from '@/features/profiles/lib/profile-report';
 import { ProfileStatusBadge } from '@/features/profiles/components/profile-status-badge';
 import { TrainingProgress } from '@/features/profiles/components/training-progress';
@@ -39,6 +42,9 @@ export const ProfileVersionRoute = () => {
   const trials = useTrials(version.data && hasModel(version.data) ? versionId : null);
   const [handedOver] = useState(() => handedOverSchema.safeParse(location.state).data?.announcement ?? null);
   const [announcement, setAnnouncement] = useState<Announcement>(null);
+  // Editing a draft: the new-version form, filled from the draft, in place of the actions.
+  const [editing, setEditing] = useState(false);
+  const samples = useQuery({ ...samplesQueryOptions(clientId), enabled: editing });
   const announce = (tone: 'success' | 'error', text: string) => setAnnouncement({ tone, text });
   const role: Role = me.data?.role ?? 'carer';
   const back = (
@@ -78,13 +84,51 @@ export const ProfileVersionRoute = () => {
         message={announcement ?? (data.status === 'training' || data.status === 'draft' ? handedOver : null)}
       />
       <div className="flex flex-col gap-10">
-        <VersionActions
-          role={role}
-          version={data}
-          announce={announce}
-          trialCount={trials.data?.length ?? null}
-          keyboardHref={keyboardPath(clientId, data.id)}
-        />
+        {!editing && (
+          <VersionActions
+            role={role}
+            version={data}
+            announce={announce}
+            trialCount={trials.data?.length ?? null}
+            keyboardHref={keyboardPath(clientId, data.id)}
+            onEdit={() => {
+              setEditing(true);
+              setTimeout(() => document.getElementById('edit-draft-heading')?.focus(), 0);
+            }}
+          />
+        )}
+        {editing && data.status === 'draft' && (
+          <section aria-labelledby="edit-draft-heading" className="flex flex-col gap-4">
+            <h2 id="edit-draft-heading" tabIndex={-1} className="text-2xl font-bold">
+              Edit draft version {data.number}
+            </h2>
+            {client.data && samples.data ? (
+              <NewVersionForm
+                clientId={clientId}
+                draft={data}
+                samples={samples.data.filter((sample) => sample.status === 'ready')}
+                access={{
+                  method: client.data.accessMethod,
+                  scanIntervalMs: client.data.scanIntervalMs,
+                  dwellMs: client.data.dwellMs,
+                  keyTimeMs: client.data.keyTimeMs,
+                }}
+                onCancel={() => {
+                  setEditing(false);
+                  setTimeout(() => document.getElementById('edit-draft-button')?.focus(), 0);
+                }}
+                onSaved={(saved) => {
+                  setEditing(false);
+                  announce('success', `Draft version ${saved.number} was saved.`);
+                  // Focus goes to what changed: the settings and samples.
+                  setTimeout(() => document.getElementById('settings-heading')?.focus(), 0);
+                }}
+              />
+            ) : (
+              <PageLoading />
+            )}
+          </section>
+        )}
 
         {data.status === 'training' && (
           <section aria-labelledby="progress-heading" className="flex flex-col gap-3">
@@ -167,7 +211,7 @@ export const ProfileVersionRoute = () => {
         )}
 
         <section aria-labelledby="settings-heading" className="flex flex-col gap-3">
-          <h2 id="settings-heading" className="text-2xl font-bold">
+          <h2 id="settings-heading" tabIndex={-1} className="text-2xl font-bold">
             Settings and samples
           </h2>
           <dl className="grid max-w-2xl grid-cols-[auto_1fr] gap-x-6 gap-y-1">

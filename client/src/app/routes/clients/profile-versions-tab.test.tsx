@@ -108,6 +108,27 @@ describe('Profile versions tab', () => {
     expect(form.getByText(/once the first version exists/)).toBeInTheDocument();
   });
 
+  it('says how much writing is needed and how much the ticked samples hold, as samples are ticked', async () => {
+    const short = [
+      sampleSummary({ status: 'ready', characters: 29 }),
+      sampleSummary({ id: DIARY_ID, title: 'Diary, August', status: 'ready', characters: 480 }),
+    ];
+    const { user } = await openTab({ [`GET ${base}/samples`]: { body: short } });
+    await user.click(await screen.findByRole('button', { name: 'New version' }));
+    const form = within(screen.getByRole('form', { name: 'New profile version' }));
+    const group = form.getByRole('group', { name: 'Writing samples to learn from' });
+    // Both ticked: 29 + 480 = 509 of the 500 needed.
+    expect(group).toHaveAccessibleDescription(
+      expect.stringContaining('Needed: at least 500 characters of writing. Chosen: 509 characters.'),
+    );
+    await user.click(form.getByRole('checkbox', { name: 'Diary, August' }));
+    expect(group).toHaveAccessibleDescription(
+      expect.stringContaining('Chosen: 29 characters (471 more needed).'),
+    );
+    await user.click(form.getByRole('checkbox', { name: 'Diary, August' }));
+    expect(group).toHaveAccessibleDescription(expect.stringContaining('Chosen: 509 characters.'));
+  });
+
   it('validates with the shared schema: order, slots, the weight and at least one sample', async () => {
     const { user, api } = await openTab();
     await user.click(await screen.findByRole('button', { name: 'New version' }));

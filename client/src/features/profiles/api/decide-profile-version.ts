@@ -2,6 +2,7 @@ import type {
   ApproveInput,
   ProfileVersion,
   ReportProblemInput,
+  RetireInput,
   SendBackInput,
   SignOffInput,
 } from '@keyloom/shared';
@@ -13,13 +14,15 @@ import { profileVersionKeys } from './keys';
 /**
  * The decisions on a trained version, each a POST to /api/profile-versions/:id/<decision>:
  * the assigned carer signs off or reports a problem after a trial (trained → signed_off / sent_back),
- * a supervisor approves or sends back (signed_off → active / sent_back).
+ * a supervisor approves or sends back (signed_off → active / sent_back), and retires the active
+ * version (active → retired; the previous approved one becomes active again).
  */
 export type DecisionInputs = {
   'sign-off': SignOffInput;
   'report-problem': ReportProblemInput;
   approve: ApproveInput;
   'send-back': SendBackInput;
+  retire: RetireInput;
 };
 export type Decision = keyof DecisionInputs;
 

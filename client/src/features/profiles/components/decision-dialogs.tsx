@@ -2,6 +2,7 @@ import {
   approveSchema,
   type ProfileVersion,
   reportProblemSchema,
+  retireSchema,
   sendBackSchema,
   signOffSchema,
 } from '@keyloom/shared';
@@ -11,12 +12,18 @@ import { Form, FormServerError } from '@/components/ui/form';
 import { FormActions } from '@/components/ui/form-actions';
 import { TextAreaField } from '@/components/ui/text-area-field';
 import { type Decision, type DecisionInputs, useDecideProfileVersion } from '../api/decide-profile-version';
+import { retireDescription } from '../lib/profile-words';
 
 type DialogProps = {
   open: boolean;
   version: Pick<ProfileVersion, 'id' | 'number'>;
   onClose: () => void;
   onDone: (version: ProfileVersion) => void;
+};
+
+type RetireDialogProps = DialogProps & {
+  /** The version that becomes active instead, or null when none does. */
+  next: Pick<ProfileVersion, 'number'> | null;
 };
 
 // What each decision asks for: one required text (its schema from @keyloom/shared) and the words
@@ -71,6 +78,18 @@ const decisions = {
     busyLabel: 'Sending back…',
     danger: true,
   },
+  retire: {
+    formName: 'Retire',
+    field: 'reason',
+    text: retireSchema.shape.reason,
+    title: (n: number) => `Retire version ${n}?`,
+    description: '',
+    label: 'Why is this version retired?',
+    rows: 3,
+    submitLabel: 'Retire this version',
+    busyLabel: 'Retiring…',
+    danger: true,
+  },
 } as const satisfies Record<Decision, { field: string; text: z.ZodType<string>; [key: string]: unknown }>;
 
 /** One decision on a version: a required comment or reason, then the POST; server errors shown in the form. */
@@ -80,12 +99,18 @@ const DecisionDialog = <D extends Decision>({
   version,
   onClose,
   onDone,
-}: DialogProps & { decision: D }) => {
+  description,
+}: DialogProps & { decision: D; description?: string }) => {
   const decide = useDecideProfileVersion(decision);
   const words = decisions[decision];
   const schema = z.object({ text: words.text });
   return (
-    <Modal open={open} onClose={onClose} title={words.title(version.number)} description={words.description}>
+    <Modal
+      open={open}
+      onClose={onClose}
+      title={words.title(version.number)}
+      description={description ?? words.description}
+    >
       <Form
         schema={schema}
         defaultValues={{ text: '' }}
@@ -131,3 +156,8 @@ export const ApproveDialog = (props: DialogProps) => <DecisionDialog decision="a
 
 /** The supervisor sends a signed-off version back, saying what needs to change. */
 export const SendBackDialog = (props: DialogProps) => <DecisionDialog decision="send-back" {...props} />;
+
+/** The supervisor takes the active version out of use, with a reason; the previous one returns. */
+export const RetireDialog = ({ next, ...props }: RetireDialogProps) => (
+  <DecisionDialog decision="retire" description={retireDescription(props.version, next)} {...props} />
+);

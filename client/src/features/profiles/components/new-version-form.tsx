@@ -7,6 +7,7 @@ import {
   defaultAccessTiming,
   defaultProfileSettings,
   escapeMethods,
+  MIN_PROFILE_CHARS,
   type ProfileVersion,
 } from '@keyloom/shared';
 import { useId, useState } from 'react';
@@ -19,6 +20,7 @@ import { SelectField } from '@/components/ui/select-field';
 import { TextField } from '@/components/ui/text-field';
 import { useCreateProfileVersion } from '../api/create-profile-version';
 import { useTrainProfileVersion } from '../api/train-profile-version';
+import { useUpdateProfileVersion } from '../api/update-profile-version';
 import { NextVersionNote } from '@/features/vocabulary/components/next-version-note';
 import { escapeExplanations } from '../lib/profile-words';
 
@@ -75,6 +77,22 @@ const SampleCheckbox = ({
   );
 };
 
+/**
+ * How much writing a profile needs and how much the ticked samples hold, updated as samples are
+ * ticked (the API refuses a version under MIN_PROFILE_CHARS with the same two figures).
+ */
+const ChosenAmount = ({ samples, chosen }: { samples: readonly TrainableSample[]; chosen: string[] }) => {
+  const total = samples.filter((s) => chosen.includes(s.id)).reduce((n, s) => n + s.characters, 0);
+  const short = total < MIN_PROFILE_CHARS;
+  return (
+    <p id="samples-amount" aria-live="polite" className={short ? 'font-bold text-danger' : 'text-ink-soft'}>
+      Needed: at least {MIN_PROFILE_CHARS.toLocaleString('en-GB')} characters of writing. Chosen:{' '}
+      {total.toLocaleString('en-GB')} characters
+      {short ? ` (${(MIN_PROFILE_CHARS - total).toLocaleString('en-GB')} more needed).` : '.'}
+    </p>
+  );
+};
+
 type NewVersionFormProps = {
   clientId: string;
   samples: readonly TrainableSample[];
@@ -83,7 +101,14 @@ type NewVersionFormProps = {
   latestVersionId?: string | null;
   onCancel: () => void;
   /** Called with the version once it is created and its training has been asked for. */
-  onStarted: (version: ProfileVersion, trainError: string | null) => void;
+  onStarted?: (version: ProfileVersion, trainError: string | null) => void;
+  /**
+   * A draft to edit instead: the form starts from its settings, samples and note, and saving sends
+   * them to the draft (PATCH) without training it.
+   */
+  draft?: ProfileVersion;
+  /** Called with the draft once the changes are saved. */
+  onSaved?: (version: ProfileVersion) => void;
 };
 
 /** The settings of a new profile version, validated by the shared schema; submitting creates and trains it. */
@@ -94,25 +119,35 @@ export const NewVersionForm = ({
   latestVersionId = null,
   onCancel,
   onStarted,
+  draft,
+  onSaved,
 }: NewVersionFormProps) => {
   const create = useCreateProfileVersion();
   const train = useTrainProfileVersion();
-  const [weightMode, setWeightMode] = useState<'auto' | 'fixed'>('auto');
+  const update = useUpdateProfileVersion();
+  const [weightMode, setWeightMode] = useState<'auto' | 'fixed'>(
+    draft && draft.settings.baseWeight !== 'auto' ? 'fixed' : 'auto',
+  );
+  // A draft's access keeps its own timings; the boxes it did not set show the client's or the default.
+  const startAccess = draft?.settings.access ?? access;
 
   return (
     <Form
       schema={createProfileVersionSchema}
-      aria-label="New profile version"
+      aria-label={draft ? `Edit draft version ${draft.number}` : 'New profile version'}
       defaultValues={{
-        sampleIds: samples.map((sample) => sample.id),
-        note: '',
+        sampleIds: draft
+          ? draft.samples.map((sample) => sample.id).filter((id) => samples.some((s) => s.id === id))
+          : samples.map((sample) => sample.id),
+        note: draft?.note ?? '',
         settings: {
-          ...defaultProfileSettings,
+          ...(draft?.settings ?? defaultProfileSettings),
           access: {
-            method: access.method,
-            scanIntervalMs: access.scanIntervalMs ?? defaultAccessTiming.scanIntervalMs,
-            dwellMs: access.dwellMs ?? defaultAccessTiming.dwellMs,
-            keyTimeMs: access.keyTimeMs ?? defaultAccessTiming.keyTimeMs,
+            method: startAccess.method,
+            scanIntervalMs:
+              startAccess.scanIntervalMs ?? access.scanIntervalMs ?? defaultAccessTiming.scanIntervalMs,
+            dwellMs: startAccess.dwellMs ?? access.dwellMs ?? defaultAccessTiming.dwellMs,
+            keyTimeMs: startAccess.keyTimeMs ?? access.keyTimeMs ?? defaultAccessTiming.keyTimeMs,
           },
         },
       }}
@@ -127,15 +162,28 @@ export const NewVersionForm = ({
         // (the schema's default, an empty list, would otherwise replace it).
         // eslint-disable-next-line @typescript-eslint/no-unused-vars -- left out on purpose
         const { vocabulary, ...settings } = input.settings;
+        if (draft) {
+          // An edited draft keeps the word list frozen in it.
+          const saved = await update.mutateAsync({
+            versionId: draft.id,
+            input: {
+              ...input,
+              settings: { ...settings, access, vocabulary: draft.settings.vocabulary },
+              note: input.note ?? '',
+            },
+          });
+          onSaved?.(saved);
+          return;
+        }
         const version = await create.mutateAsync({
           clientId,
           input: { ...input, settings: { ...settings, access }, note: input.note || undefined },
         });
         try {
-          onStarted(await train.mutateAsync(version.id), null);
+          onStarted?.(await train.mutateAsync(version.id), null);
         } catch (error) {
           // The draft is saved; its page offers Train again and says what went wrong.
-          onStarted(version, error instanceof Error ? error.message : 'Training could not start.');
+          onStarted?.(version, error instanceof Error ? error.message : 'Training could not start.');
         }
       }}
     >
@@ -146,7 +194,7 @@ export const NewVersionForm = ({
           <div className="flex flex-col gap-8">
             <FormServerError message={errors.root?.server?.message} />
 
-            <fieldset className="flex flex-col gap-3" aria-describedby="samples-hint">
+            <fieldset className="flex flex-col gap-3" aria-describedby="samples-hint samples-amount">
               <legend className="mb-1 text-xl font-bold">Writing samples to learn from</legend>
               <p id="samples-hint" className="text-ink-soft">
                 Every ready sample is included; untick any to leave out of this version. The chosen set is
@@ -155,6 +203,7 @@ export const NewVersionForm = ({
               {errors.sampleIds?.message && (
                 <FieldError id="samples-error">{errors.sampleIds.message}</FieldError>
               )}
+              <ChosenAmount samples={samples} chosen={(watch('sampleIds') ?? []) as string[]} />
               {samples.map((sample) => {
                 // Kept as an array by hand: a lone registered checkbox would give a string, not a list.
                 const chosen = (watch('sampleIds') ?? []) as string[];
@@ -269,7 +318,7 @@ export const NewVersionForm = ({
               ))}
             </fieldset>
 
-            <NextVersionNote clientId={clientId} latestVersionId={latestVersionId} />
+            {!draft && <NextVersionNote clientId={clientId} latestVersionId={latestVersionId} />}
 
             <TextField
               label="Note (optional)"
@@ -280,7 +329,13 @@ export const NewVersionForm = ({
 
             <div className="flex flex-wrap gap-3">
               <Button type="submit" variant="primary" disabled={formState.isSubmitting}>
-                {formState.isSubmitting ? 'Starting…' : 'Train this version'}
+                {draft
+                  ? formState.isSubmitting
+                    ? 'Saving…'
+                    : 'Save draft'
+                  : formState.isSubmitting
+                    ? 'Starting…'
+                    : 'Train this version'}
               </Button>
               <Button onClick={onCancel}>Cancel</Button>
             </div>

@@ -1,10 +1,12 @@
 import type { ProfileVersion, Role } from '@keyloom/shared';
-import { useState } from 'react';
-import { Link, useNavigate } from 'react-router-dom';
+import { useEffect, useRef, useState } from 'react';
+import { Link, useLocation, useNavigate } from 'react-router-dom';
+import { z } from 'zod';
 import { PageLoading } from '@/components/layout/page-loading';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { EmptyState } from '@/components/ui/empty-state';
+import { LiveRegion } from '@/components/ui/live-region';
 import {
   ColumnHeader,
   RowHeader,
@@ -74,6 +76,8 @@ const VersionRow = ({
   );
 };
 
+const deletedStateSchema = z.object({ versionDeleted: z.number().int() });
+
 /** The "Profile versions" tab: the versions with their headline figures, compare, and a new version. */
 export const ProfilesPanel = ({
   clientId,
@@ -85,6 +89,14 @@ export const ProfilesPanel = ({
 }: ProfilesPanelProps) => {
   const versions = useProfileVersions(clientId);
   const navigate = useNavigate();
+  const location = useLocation();
+  // A draft deleted on its page: say so, and put focus on the list it was removed from.
+  const [deleted] = useState(() => deletedStateSchema.safeParse(location.state).data?.versionDeleted ?? null);
+  const listStart = useRef<HTMLElement | null>(null);
+  const loaded = versions.isSuccess;
+  useEffect(() => {
+    if (deleted !== null && loaded) listStart.current?.focus();
+  }, [deleted, loaded]);
   const [creating, setCreating] = useState(false);
   const [chosen, setChosen] = useState<string[]>([]);
   const owner = role === 'clinician';
@@ -93,6 +105,9 @@ export const ProfilesPanel = ({
 
   return (
     <div className="flex flex-col gap-8">
+      <LiveRegion
+        message={deleted === null ? null : { tone: 'success', text: `Draft version ${deleted} was deleted.` }}
+      />
       <Alert tone="info" title="Suggestions are offered, never inserted.">
         <p>
           A profile only changes which words {pseudonym} is offered; every word is still chosen by {pseudonym}
@@ -103,6 +118,7 @@ export const ProfilesPanel = ({
       {owner && !creating && (
         <div className="flex flex-col gap-2">
           <Button
+            ref={versions.data?.length === 0 ? (node) => void (listStart.current = node) : undefined}
             variant="primary"
             className="self-start"
             disabled={!trainingConsent || samples.length === 0}
@@ -168,7 +184,12 @@ export const ProfilesPanel = ({
       {versions.isSuccess && versions.data.length > 0 && (
         <section aria-labelledby="versions-heading" className="flex flex-col gap-4">
           <div className="flex flex-wrap items-center justify-between gap-3">
-            <h3 id="versions-heading" className="text-2xl font-bold">
+            <h3
+              id="versions-heading"
+              ref={(node) => void (listStart.current = node)}
+              tabIndex={-1}
+              className="text-2xl font-bold"
+            >
               Versions
             </h3>
             <Button

@@ -1,17 +1,26 @@
 import type { ProfileVersion, Role } from '@keyloom/shared';
-import { useState } from 'react';
+import { useQuery } from '@tanstack/react-query';
+import { useId, useState } from 'react';
 import { Link } from 'react-router-dom';
 import { Button } from '@/components/ui/button';
 import { buttonClasses } from '@/components/ui/button-classes';
 import { useCancelProfileVersion } from '../api/cancel-profile-version';
 import { useTrainProfileVersion } from '../api/train-profile-version';
 import { profileExportUrl } from '../api/verify-profile-export';
-import { ApproveDialog, ReportProblemDialog, SendBackDialog, SignOffDialog } from './decision-dialogs';
-import { visibleActions } from '../lib/profile-words';
+import { profileVersionsQueryOptions } from '../api/get-profile-versions';
+import {
+  ApproveDialog,
+  ReportProblemDialog,
+  RetireDialog,
+  SendBackDialog,
+  SignOffDialog,
+} from './decision-dialogs';
+import { DeleteDraftDialog } from './delete-draft-dialog';
+import { activeAfterRetire, visibleActions } from '../lib/profile-words';
 
 export type Announce = (tone: 'success' | 'error', text: string) => void;
 
-type Dialog = 'sign-off' | 'report-problem' | 'approve' | 'send-back' | null;
+type Dialog = 'sign-off' | 'report-problem' | 'approve' | 'send-back' | 'retire' | 'delete' | null;
 
 type VersionActionsProps = {
   role: Role;
@@ -24,6 +33,8 @@ type VersionActionsProps = {
   trialCount?: number | null;
   /** The test keyboard for this version, offered beside a sign-off that waits for a trial. */
   keyboardHref?: string;
+  /** Opens the draft's settings for editing (the page shows the form); no button without it. */
+  onEdit?: () => void;
 };
 
 /** The buttons of a version's page, and the dialogs they open. */
@@ -33,23 +44,37 @@ export const VersionActions = ({
   announce,
   trialCount = null,
   keyboardHref,
+  onEdit,
 }: VersionActionsProps) => {
   const [dialog, setDialog] = useState<Dialog>(null);
+  // After a decision the button that opened the dialog may be gone (the version moved on): focus
+  // goes to this group, beside the message, instead of the page's start.
+  const groupId = useId();
   const train = useTrainProfileVersion();
   const cancel = useCancelProfileVersion();
   const show = visibleActions(role, version.status);
+  // The client's versions tell which one becomes active when this one is retired.
+  const versions = useQuery({ ...profileVersionsQueryOptions(version.clientId), enabled: show.retire });
+  const next = show.retire ? activeAfterRetire(versions.data ?? [], version) : null;
   const fail = (error: unknown) =>
     announce('error', error instanceof Error ? error.message : 'That did not work.');
   const done = (text: string) => () => {
     setDialog(null);
     announce('success', text);
+    setTimeout(() => document.getElementById(groupId)?.focus(), 0);
   };
 
   const needsTrial = show.signOff && (trialCount ?? 0) === 0;
 
   if (!Object.values(show).some(Boolean)) return null;
   return (
-    <div role="group" aria-label="Actions on this version" className="flex flex-wrap items-center gap-3">
+    <div
+      id={groupId}
+      tabIndex={-1}
+      role="group"
+      aria-label="Actions on this version"
+      className="flex flex-wrap items-center gap-3"
+    >
       {(show.train || show.retry) && (
         <Button
           variant="primary"
@@ -124,6 +149,21 @@ export const VersionActions = ({
           <Button onClick={() => setDialog('send-back')}>Send back</Button>
         </>
       )}
+      {show.retire && (
+        <Button variant="danger" disabled={versions.isPending} onClick={() => setDialog('retire')}>
+          Retire this version
+        </Button>
+      )}
+      {show.deleteDraft && onEdit && (
+        <Button id="edit-draft-button" onClick={onEdit}>
+          Edit draft
+        </Button>
+      )}
+      {show.deleteDraft && (
+        <Button variant="danger" onClick={() => setDialog('delete')}>
+          Delete draft
+        </Button>
+      )}
       {show.signOff && (
         <SignOffDialog
           open={dialog === 'sign-off'}
@@ -157,6 +197,22 @@ export const VersionActions = ({
             onDone={done(`Version ${version.number} was sent back to the clinician.`)}
           />
         </>
+      )}
+      {show.retire && (
+        <RetireDialog
+          open={dialog === 'retire'}
+          version={version}
+          next={next}
+          onClose={() => setDialog(null)}
+          onDone={done(
+            next
+              ? `Version ${version.number} is retired; version ${next.number} is the active profile again.`
+              : `Version ${version.number} is retired; no version is active.`,
+          )}
+        />
+      )}
+      {show.deleteDraft && (
+        <DeleteDraftDialog open={dialog === 'delete'} version={version} onClose={() => setDialog(null)} />
       )}
     </div>
   );

@@ -33,4 +33,47 @@ export const visibleActions = (role: Role, status: ProfileVersion['status']) => 
   exportFile: (role === 'clinician' || role === 'supervisor') && withModel.has(status),
   signOff: role === 'carer' && status === 'trained',
   decide: role === 'supervisor' && status === 'signed_off',
+  // The supervisor, who approves, also takes the active version out of use.
+  retire: role === 'supervisor' && status === 'active',
+  // A draft (never trained) can be deleted by its clinician.
+  deleteDraft: role === 'clinician' && status === 'draft',
 });
+
+/**
+ * The version that becomes active when `active` is retired, by the API's rule: the most recently
+ * approved version before it that was retired by a later approval (not by hand); null for none.
+ */
+export const activeAfterRetire = (
+  versions: readonly ProfileVersion[],
+  active: Pick<ProfileVersion, 'id' | 'approvedAt'>,
+): ProfileVersion | null => {
+  const until = active.approvedAt ?? '9999';
+  const candidates = versions.filter(
+    (v) =>
+      v.id !== active.id &&
+      v.status === 'retired' &&
+      v.retiredAt === null &&
+      v.approvedAt !== null &&
+      v.approvedAt <= until,
+  );
+  candidates.sort((a, b) => (b.approvedAt ?? '').localeCompare(a.approvedAt ?? '') || b.number - a.number);
+  return candidates[0] ?? null;
+};
+
+/** What retiring does, naming the version that becomes active (or saying none will be). */
+export const retireDescription = (
+  version: Pick<ProfileVersion, 'number'>,
+  next: Pick<ProfileVersion, 'number'> | null,
+) =>
+  next
+    ? `Version ${version.number} stops being the active profile and version ${next.number} becomes active again.`
+    : `Version ${version.number} stops being the active profile; no version will be active until a new one is approved.`;
+
+/** What deleting a draft removes, and what it leaves alone. */
+export const deleteDraftDescription = (version: Pick<ProfileVersion, 'number' | 'samples'>) => {
+  const n = version.samples.length;
+  return (
+    `Draft version ${version.number} is deleted: its settings, its note and its choice of ` +
+    `${n} ${n === 1 ? 'sample' : 'samples'}. The samples themselves are kept.`
+  );
+};

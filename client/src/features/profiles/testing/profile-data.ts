@@ -119,5 +119,8 @@ export const profileVersion = (overrides: Partial<ProfileVersion> = {}): Profile
   approvedAt: null,
   approvalComment: null,
   sentBackReason: null,
+  retiredBy: null,
+  retiredAt: null,
+  retireReason: null,
   ...overrides,
 });
