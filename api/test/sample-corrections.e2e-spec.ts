@@ -65,7 +65,8 @@ describe('sample corrections (HTTP)', () => {
 
   describe('delete', () => {
     it('deletes a sample no version trained on (204, then 404), audited with a hash of the reason', async () => {
-      const sample = await paste('Wrong client entirely.');
+      // Long enough for a draft (at least 500 characters of writing).
+      const sample = await paste(`Wrong client entirely. ${'We watched the boats come in. '.repeat(18)}`);
       // A draft that never trained freezes it too: the draft loses its copy.
       const draft = await post(cast.owner, `/api/clients/${clientId}/profile-versions`, {
         settings: {},
