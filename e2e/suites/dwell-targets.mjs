@@ -5,36 +5,11 @@
 // axe finds nothing serious with large spacing, dwell sound and scan announcements on. Screenshots go
 // to e2e/out/ and /tmp/dwell-targets-*.png.
 import assert from 'node:assert/strict';
-import { signIn, signOut } from './accounts.mjs';
-import { capitalsOff } from './keyboard-page.mjs';
+import { signOut } from './accounts.mjs';
+import { openDemoKeyboard } from './keyboard-page.mjs';
 import { assertNoSidewaysScroll } from './page-checks.mjs';
 
-const DEMO_CLIENT = 'R. Ashby';
 const LEAST = 64;
-
-/** Signs in as the carer and opens the test keyboard of the demo client's version 1. */
-async function openKeyboard(t, viewport) {
-  await t.context.clearCookies();
-  const page = await t.newPage();
-  await page.setViewportSize(viewport);
-  await signIn(page, t.appUrl, 'carer@willowmere.example');
-  await page.waitForURL((url) => url.pathname === '/my-clients');
-  await page.getByRole('link', { name: DEMO_CLIENT, exact: true }).first().click();
-  await page.waitForURL(/\/clients\/[0-9a-f-]{36}\//);
-  const clientId = new URL(page.url()).pathname.split('/')[2];
-  const versions = await (
-    await page.request.get(`${t.appUrl}/api/clients/${clientId}/profile-versions`)
-  ).json();
-  const first = versions.find((v) => v.number === 1);
-  assert.ok(first, 'the seed trained version 1 of the demo client');
-  await page.goto(`${t.appUrl}/clients/${clientId}/keyboard?version=${first.id}`, {
-    waitUntil: 'networkidle',
-  });
-  await page.getByRole('heading', { level: 1, name: 'Test keyboard' }).waitFor();
-  await page.locator('[data-engine-status="ready"]').waitFor({ timeout: 60_000 });
-  await capitalsOff(page);
-  return page;
-}
 
 /** The width and height of every key and suggestion slot, with its name. */
 const targetBoxes = (page) =>
@@ -93,7 +68,7 @@ export const dwellTargetsSuite = {
     [
       'large targets at 390 × 844: every key and slot at least 64 × 64, rows wrap, no sideways scroll; axe clean',
       async (t) => {
-        const page = await openKeyboard(t, { width: 390, height: 844 });
+        const { page } = await openDemoKeyboard(t, { width: 390, height: 844 });
         await page.getByLabel('Large targets').check();
         await assertLargeTargets(page, '390 × 844');
         // The first key row (ten letters) no longer fits on one line of 390 px: it wraps.
@@ -110,7 +85,7 @@ export const dwellTargetsSuite = {
     [
       'large targets at 1280 × 800: every key and slot at least 64 × 64, one line per row',
       async (t) => {
-        const page = await openKeyboard(t, { width: 1280, height: 800 });
+        const { page } = await openDemoKeyboard(t, { width: 1280, height: 800 });
         await page.getByLabel('Large targets').check();
         await assertLargeTargets(page, '1280 × 800');
         const lines = await linesPerRow(page);
@@ -126,7 +101,7 @@ export const dwellTargetsSuite = {
     [
       'dwell: the fill covers the key from the bottom up, the chosen key flashes; axe with sound, spacing and announcements on',
       async (t) => {
-        const page = await openKeyboard(t, { width: 1280, height: 860 });
+        const { page } = await openDemoKeyboard(t, { width: 1280, height: 860 });
         await page.getByLabel('Selection mode').selectOption('dwell');
         await page.getByLabel('Large targets').check();
         await page.getByLabel('Key spacing').selectOption('medium');

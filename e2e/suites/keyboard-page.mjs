@@ -1,5 +1,7 @@
 // The test keyboard page as the browser suites drive it: its keys, its suggestion row and the
 // wait until the row answers the text on screen.
+import assert from 'node:assert/strict';
+import { signIn } from './accounts.mjs';
 
 /** Accessible names of the keys that are not letters. */
 export const keyNames = {
@@ -77,4 +79,31 @@ export async function printLatency(page, label, engineTimes) {
       `(target p95 ≤ 50 ms, not asserted)`,
   );
   return sorted;
+}
+
+/**
+ * Signs in as the carer and opens the test keyboard on the demo client's version 1 at `viewport`,
+ * with the automatic capital off; returns the page and the version's id.
+ */
+export async function openDemoKeyboard(t, viewport) {
+  await t.context.clearCookies();
+  const page = await t.newPage();
+  await page.setViewportSize(viewport);
+  await signIn(page, t.appUrl, 'carer@willowmere.example');
+  await page.waitForURL((url) => url.pathname === '/my-clients');
+  await page.getByRole('link', { name: 'R. Ashby', exact: true }).first().click();
+  await page.waitForURL(/\/clients\/[0-9a-f-]{36}\//);
+  const clientId = new URL(page.url()).pathname.split('/')[2];
+  const versions = await (
+    await page.request.get(`${t.appUrl}/api/clients/${clientId}/profile-versions`)
+  ).json();
+  const version = versions.find((v) => v.number === 1);
+  assert.ok(version, 'the seed trained version 1 of the demo client');
+  await page.goto(`${t.appUrl}/clients/${clientId}/keyboard?version=${version.id}`, {
+    waitUntil: 'networkidle',
+  });
+  await page.getByRole('heading', { level: 1, name: 'Test keyboard' }).waitFor();
+  await page.locator('[data-engine-status="ready"]').waitFor({ timeout: 60_000 });
+  await capitalsOff(page);
+  return { page, versionId: version.id };
 }

@@ -6,36 +6,12 @@
 // view or the pause dialog; the trial the API stored (replayed on the server) has the text typed.
 // The latency figures are printed beside their targets. Screenshots: /tmp/trial-view-*.png.
 import assert from 'node:assert/strict';
-import { signIn, signOut } from './accounts.mjs';
-import { capitalsOff, pauseDialog, printLatency, suggestionRow, trialView } from './keyboard-page.mjs';
+import { signOut } from './accounts.mjs';
+import { openDemoKeyboard, pauseDialog, printLatency, suggestionRow, trialView } from './keyboard-page.mjs';
 
-const DEMO_CLIENT = 'R. Ashby';
 const VIEWPORT = { width: 1280, height: 800 };
 
 const outputText = (page) => page.locator('[data-output]').getAttribute('data-text');
-
-/** Signs in as the carer and opens the test keyboard on the demo client's version 1, at 1280×800. */
-async function openKeyboard(t) {
-  await t.context.clearCookies();
-  const page = await t.newPage();
-  await page.setViewportSize(VIEWPORT);
-  await signIn(page, t.appUrl, 'carer@willowmere.example');
-  await page.waitForURL((url) => url.pathname === '/my-clients');
-  await page.getByRole('link', { name: DEMO_CLIENT, exact: true }).first().click();
-  await page.waitForURL(/\/clients\/[0-9a-f-]{36}\//);
-  const clientId = new URL(page.url()).pathname.split('/')[2];
-  const versions = await (
-    await page.request.get(`${t.appUrl}/api/clients/${clientId}/profile-versions`)
-  ).json();
-  const version = versions.find((v) => v.number === 1);
-  assert.ok(version, 'the seed trained version 1 of the demo client');
-  await page.goto(`${t.appUrl}/clients/${clientId}/keyboard?version=${version.id}`, {
-    waitUntil: 'networkidle',
-  });
-  await page.locator('[data-engine-status="ready"]').waitFor({ timeout: 60_000 });
-  await capitalsOff(page);
-  return { page, versionId: version.id };
-}
 
 async function trialsOf(page, appUrl, versionId) {
   const res = await page.request.get(`${appUrl}/api/profile-versions/${versionId}/trials`);
@@ -115,7 +91,7 @@ export const trialViewSuite = {
     [
       'dwell: a trial typed by resting the mouse on the keys, paused with the Pause key, resumed and finished',
       async (t) => {
-        const { page, versionId } = await openKeyboard(t);
+        const { page, versionId } = await openDemoKeyboard(t, VIEWPORT);
         await page.getByLabel('Selection mode').selectOption('dwell');
         const dwell = page.getByLabel('Dwell time (ms)');
         await dwell.fill('250');
@@ -193,7 +169,7 @@ export const trialViewSuite = {
     [
       'two-switch step scanning: a trial typed with key presses only, paused by a long press, Escape and the Pause key',
       async (t) => {
-        const { page, versionId } = await openKeyboard(t);
+        const { page, versionId } = await openDemoKeyboard(t, VIEWPORT);
         await page.getByLabel('Selection mode').selectOption('scanning');
         await page.getByLabel('Scanning pattern').selectOption('step-two-switch');
         const countBefore = (await trialsOf(page, t.appUrl, versionId)).length;
