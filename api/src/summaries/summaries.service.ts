@@ -190,6 +190,7 @@ export class SummariesService implements OnModuleInit {
           status: v.status,
           date: (v.approvedAt ?? v.trainedAt)?.toISOString().slice(0, 10) ?? null,
           slots: v.settings.slots,
+          baseOnly: v.baseOnly,
         },
         v.metrics,
       ),

@@ -165,4 +165,24 @@ describe('trialsSentence', () => {
         'Hannah Ashby tried it and wrote: “He liked the sailing words.”',
     );
   });
+
+  it('says a base-only version is general English only, with figures from its trials', () => {
+    const base: VersionFigures = {
+      number: 2,
+      status: 'active',
+      date: '2026-11-20',
+      slots: 5,
+      keystrokeSavings: null,
+      wpmWith: null,
+      wpmWithout: null,
+    };
+    expect(versionLine(base)).toBe('Version 2 (active 2026-11-20): no figures yet.');
+    expect(
+      versionLine({ ...base, baseOnly: true, trials: { count: 1, keystrokeSavings: 0.2, wpm: null } }),
+    ).toBe(
+      'Version 2 (active 2026-11-20): suggestions from general English only, while there is too little of ' +
+        'their own writing; its figures come from the tries on the test keyboard. ' +
+        'In 1 try on the test keyboard, about 2 in 10 key presses were saved.',
+    );
+  });
 });

@@ -11,6 +11,8 @@ export type VersionFigures = {
   status: string;
   /** Suggestion slots the version was set up with (1..10). */
   slots: number;
+  /** General English only (a base-only version: too little of the client's writing yet, no figures). */
+  baseOnly?: boolean;
   /** Keystroke savings at `slots` suggestions, 0..1; null when the metrics lack it. */
   keystrokeSavings: number | null;
   /** Estimated words a minute without and with suggestions (≥ 0); null when unknown. */
@@ -38,7 +40,7 @@ export type TrialFigures = {
  * @param slots suggestion slots of the version's settings, 1..10
  */
 export function figuresFromMetrics(
-  version: { number: number; status: string; date: string | null; slots: number },
+  version: { number: number; status: string; date: string | null; slots: number; baseOnly?: boolean },
   metrics: Record<string, unknown> | null,
 ): VersionFigures {
   return { ...version, ...reportFigures(metrics, version.slots) };
@@ -97,7 +99,10 @@ export function versionLine(v: VersionFigures): string {
   if (v.keystrokeSavings !== null) parts.push(savingsPhrase(v.keystrokeSavings));
   if (v.wpmWith !== null) parts.push(`${ratePhrase(v.wpmWith)} with suggestions`);
   if (v.wpmWithout !== null) parts.push(`${ratePhrase(v.wpmWithout)} without`);
-  const line = `Version ${v.number}${when}: ${parts.length > 0 ? parts.join(', ') : 'no figures yet'}.`;
+  const none = v.baseOnly
+    ? 'suggestions from general English only, while there is too little of their own writing; its figures come from the tries on the test keyboard'
+    : 'no figures yet';
+  const line = `Version ${v.number}${when}: ${parts.length > 0 ? parts.join(', ') : none}.`;
   const tried = trialsSentence(v.trials);
   const said = v.carerComment
     ? `${v.carerComment.by} tried it and wrote: “${v.carerComment.text.trim()}”`

@@ -14,7 +14,7 @@ import { useTrials } from '@/features/keyboard/api/get-trials';
 import { hasModel, takesTrials } from '@/features/keyboard/logic/keyboard-versions';
 import { TrialHistory } from '@/features/keyboard/components/trial-history';
 import { useProfileVersion } from '@/features/profiles/api/get-profile-version';
-import { NewVersionForm } from '@/features/profiles/components/new-version-form';
+import { BaseOnlyNote, NewVersionForm } from '@/features/profiles/components/new-version-form';
 import { samplesQueryOptions } from '@/features/samples/api/get-samples';
 import { count, readReport } from '@/features/profiles/lib/profile-report';
 import { ProfileStatusBadge } from '@/features/profiles/components/profile-status-badge';
@@ -165,6 +165,7 @@ export const ProfileVersionRoute = () => {
           </div>
         )}
 
+        {data.baseOnly && <BaseOnlyNote />}
         {report && (
           <section aria-labelledby="results-heading" className="flex flex-col gap-6">
             <h2 id="results-heading" className="text-3xl font-bold">
@@ -228,13 +229,17 @@ export const ProfileVersionRoute = () => {
             <dt className="font-bold">Capitals</dt>
             <dd>{data.settings.caseFold ? 'Ignored' : 'Kept'}</dd>
           </dl>
-          <ul aria-label="Samples in this version" className="list-disc pl-6">
-            {data.samples.map((sample) => (
-              <li key={sample.id}>
-                {sample.title} ({sample.characters.toLocaleString('en-GB')} characters)
-              </li>
-            ))}
-          </ul>
+          {data.baseOnly ? (
+            <p>No samples: general English only.</p>
+          ) : (
+            <ul aria-label="Samples in this version" className="list-disc pl-6">
+              {data.samples.map((sample) => (
+                <li key={sample.id}>
+                  {sample.title} ({sample.characters.toLocaleString('en-GB')} characters)
+                </li>
+              ))}
+            </ul>
+          )}
         </section>
 
         <section aria-labelledby="history-heading" className="flex flex-col gap-3">
