@@ -41,11 +41,13 @@ describe('Profile version page', () => {
       profileVersion({ baseOnly: true, samples: [], metrics: null, baseWeight: 1 }),
     );
     expect(screen.getByText('General English only')).toBeInTheDocument();
-    expect(screen.getByText(/this version learns nothing from the client’s writing/)).toHaveTextContent(
+    expect(screen.getByText(/This version learns nothing from the client’s writing/)).toHaveTextContent(
       /the trial on the test keyboard measures it/,
     );
     expect(screen.queryByRole('heading', { name: 'Results' })).not.toBeInTheDocument();
     expect(screen.getByText('No samples: general English only.')).toBeInTheDocument();
+    expect(screen.getByText('1 (general English alone)')).toBeInTheDocument();
+    expect(screen.queryByText('Context order')).not.toBeInTheDocument();
     expect(screen.queryByRole('list', { name: 'Samples in this version' })).not.toBeInTheDocument();
     expect(screen.getByRole('link', { name: 'Try version 1 on the test keyboard' })).toBeInTheDocument();
   });

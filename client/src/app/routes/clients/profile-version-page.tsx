@@ -216,14 +216,25 @@ export const ProfileVersionRoute = () => {
             Settings and samples
           </h2>
           <dl className="grid max-w-2xl grid-cols-[auto_1fr] gap-x-6 gap-y-1">
-            <dt className="font-bold">Context order</dt>
-            <dd>{data.settings.order}</dd>
-            <dt className="font-bold">Escape method</dt>
-            <dd>{data.settings.escape}</dd>
-            <dt className="font-bold">Exclusion</dt>
-            <dd>{data.settings.exclusion ? 'On' : 'Off'}</dd>
+            {/* A base-only version has no personal model: only general English and the list settings. */}
+            {!data.baseOnly && (
+              <>
+                <dt className="font-bold">Context order</dt>
+                <dd>{data.settings.order}</dd>
+                <dt className="font-bold">Escape method</dt>
+                <dd>{data.settings.escape}</dd>
+                <dt className="font-bold">Exclusion</dt>
+                <dd>{data.settings.exclusion ? 'On' : 'Off'}</dd>
+              </>
+            )}
             <dt className="font-bold">Weight of general English</dt>
-            <dd>{data.settings.baseWeight === 'auto' ? 'Automatic' : data.settings.baseWeight}</dd>
+            <dd>
+              {data.baseOnly
+                ? '1 (general English alone)'
+                : data.settings.baseWeight === 'auto'
+                  ? 'Automatic'
+                  : data.settings.baseWeight}
+            </dd>
             <dt className="font-bold">Suggestion slots</dt>
             <dd>{data.settings.slots}</dd>
             <dt className="font-bold">Capitals</dt>

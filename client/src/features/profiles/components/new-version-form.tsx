@@ -99,10 +99,10 @@ const ChosenAmount = ({ samples, chosen }: { samples: readonly TrainableSample[]
 /** What a base-only version is, in the clinic's words (the form and the version's page). */
 export const BaseOnlyNote = () => (
   <p className="max-w-3xl text-lg">
-    <BaseOnlyBadge /> General English only: this version learns nothing from the client’s writing. Its
-    suggestions come from the general English model and the words added to the client’s list; on the device it
-    picks up the client’s words as they are typed. It has no measured results (there is no writing of the
-    client’s to test it on): the trial on the test keyboard measures it.
+    <BaseOnlyBadge /> This version learns nothing from the client’s writing. Its suggestions come from the
+    general English model and the words added to the client’s list; on the device it picks up the client’s
+    words as they are typed. It has no measured results (there is no writing of the client’s to test it on):
+    the trial on the test keyboard measures it.
   </p>
 );
 
