@@ -408,6 +408,9 @@ describe('summary e-mail delivery (mail job)', () => {
         }).expect(200)
       ).body as SummaryDto;
       expect([patched.status, patched.text, patched.textEdited]).toEqual(['draft', edited, true]);
+      // Fields left out keep what the draft holds: the approved version stays in it.
+      expect(draft.versionIds).toEqual([versionId]);
+      expect(patched.versionIds).toEqual([versionId]);
       // Only the owning clinician edits; a carer, a supervisor and nobody are refused.
       await send(t.http, cast.supervisor, 'patch', `/api/summaries/${draft.id}`, { text: 'x' }).expect(403);
       await send(t.http, cast.assignedCarer, 'patch', `/api/summaries/${draft.id}`, { text: 'x' }).expect(
@@ -506,6 +509,53 @@ describe('summary e-mail delivery (mail job)', () => {
         await send(t.http, cast.owner, 'get', `/api/clients/${httpClientId}/summaries`).expect(200)
       ).body as SummaryDto[];
       expect(list.map((s) => s.id)).toEqual([created.id]);
+    });
+
+    it('leaves a sent-back version out by default; chosen, it is labelled as not approved; comments only when ticked', async () => {
+      // A version the supervisor sent back, inside the period, with the supervisor's reason and a
+      // carer's sign-off comment (invented values).
+      const sentBack = await t.dataSource.getRepository(ProfileVersion).save({
+        clientId: httpClientId,
+        number: 2,
+        status: 'sent_back',
+        settings: {
+          order: 5,
+          escape: 'C',
+          exclusion: true,
+          baseWeight: 'auto',
+          slots: 5,
+          caseFold: false,
+          access: { method: 'switch' },
+        },
+        samples: [],
+        metrics: { keystrokeSavings: { '5': 0.3 }, rates: { wpmWithout: 1.9, wpmWith: 65 } },
+        trainedAt: new Date('2026-11-10T10:00:00Z'),
+        signedOffById: cast.assignedCarer.id,
+        signOffComment: 'odd half-words like harb and pian',
+        sentBackReason: 'Too many half-words.',
+        history: [],
+      });
+      const period = { from: '2026-10-01', to: '2026-11-30', note: '' };
+      const byDefault = (
+        await send(
+          t.http,
+          cast.owner,
+          'post',
+          `/api/clients/${httpClientId}/summaries/preview`,
+          period,
+        ).expect(200)
+      ).body as SummaryPreview;
+      expect(byDefault.versionIds).toEqual([versionId]);
+      expect(byDefault.text).not.toContain('Version 2');
+      const chosen = (
+        await send(t.http, cast.owner, 'post', `/api/clients/${httpClientId}/summaries/preview`, {
+          ...period,
+          versionIds: [versionId, sentBack.id],
+        }).expect(200)
+      ).body as SummaryPreview;
+      expect(chosen.text).toContain('Version 2 (not approved: sent back for changes, 10 November 2026)');
+      expect(chosen.text).not.toContain('half-words');
+      await t.dataSource.getRepository(ProfileVersion).delete({ id: sentBack.id });
     });
 
     it('refuses to send without a client consent that covers summaries (409)', async () => {

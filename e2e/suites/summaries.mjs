@@ -130,6 +130,8 @@ export const summariesSuite = {
         const subject = await editor.getByLabel('Subject').inputValue();
 
         const sendButton = editor.getByRole('button', { name: `Send to ${CONSENTING.name}` });
+        // Send is on once the saved draft is what the form holds.
+        for (let i = 0; i < 50 && !(await sendButton.isEnabled()); i++) await sleep(100);
         await sendButton.focus();
         await sendButton.press('Enter');
         await page

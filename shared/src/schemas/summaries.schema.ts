@@ -51,7 +51,8 @@ export const updateSummarySchema = z.object({
     .min(1, { error: 'The e-mail needs some text.' })
     .max(20000, { error: 'Keep the text under 20,000 characters.' })
     .optional(),
-  versionIds: summaryFields.versionIds.optional(),
+  // No defaults here: a field left out keeps what the draft holds.
+  versionIds: z.array(z.uuid()).max(50).optional(),
   contactIds: summaryFields.contactIds.optional(),
   note: safeText({ multiline: true })
     .trim()

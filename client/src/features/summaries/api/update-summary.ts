@@ -17,6 +17,12 @@ export const useUpdateSummary = () => {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: updateSummary,
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: summaryKeys.all }),
+    onSuccess: (saved) => {
+      // The saved draft at once (the editor starts again from it, so Send is on without waiting).
+      queryClient.setQueryData<Summary[]>(summaryKeys.list(saved.clientId), (list) =>
+        list?.map((summary) => (summary.id === saved.id ? saved : summary)),
+      );
+      return queryClient.invalidateQueries({ queryKey: summaryKeys.all });
+    },
   });
 };
