@@ -165,6 +165,8 @@ export class SummariesService implements OnModuleInit {
           name: c.name,
           alt: c.alt,
           pngBase64: c.png.toString('base64'),
+          width: c.width,
+          height: c.height,
         })),
       };
     });
