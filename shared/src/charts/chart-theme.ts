@@ -65,8 +65,8 @@ export const chartTextPairs: readonly { name: string; text: HexColour; backgroun
 export const chartSizes = {
   maxWidth: 600,
   pixelRatio: 2,
-  titleFont: 22,
-  labelFont: 17,
+  titleFont: 24,
+  labelFont: 19,
   smallestLabelFont: 10,
   markerRadius: 5,
   lineWidth: 3,

@@ -87,14 +87,14 @@ const preview = (overrides: Partial<SummaryPreview> = {}): SummaryPreview => ({
       alt: 'Key presses saved by suggestions, by version: version 1: 42%.',
       pngBase64: PNG,
       width: 600,
-      height: 340,
+      height: 349,
     },
     {
       name: 'typing-speed.png',
       alt: 'Estimated words a minute, by version: version 1: 2.7 with suggestions, 1.9 without suggestions.',
       pngBase64: PNG,
       width: 600,
-      height: 368,
+      height: 380,
     },
   ],
   ...overrides,
@@ -203,7 +203,7 @@ describe('Family updates tab', () => {
     expect(images[0]).toHaveAttribute('src', `data:image/png;base64,${PNG}`);
     // Shown at the CSS size the API gives (the PNG has twice the pixels).
     expect(images[1]).toHaveAttribute('width', '600');
-    expect(images[1]).toHaveAttribute('height', '368');
+    expect(images[1]).toHaveAttribute('height', '380');
 
     await user.click(within(previewRegion).getByRole('button', { name: 'Send to 1 recipient' }));
     await waitFor(() => expect(api.requestsTo(`POST ${base}/summaries`)).toHaveLength(1));
