@@ -92,13 +92,27 @@ export const summariesSuite = {
           const alt = (await image.getAttribute('alt')) ?? '';
           assert.match(alt, /version 1: /, `alt text states the figures: ${alt}`);
           const width = await image.evaluate((img) => /** @type {HTMLImageElement} */ (img).naturalWidth);
-          assert.ok(width > 0, 'the PNG decodes in the browser');
+          assert.equal(width, 1200, 'the PNG decodes in the browser, at twice its CSS width');
+          const shown = await image.evaluate((img) => img.getBoundingClientRect().width);
+          assert.ok(shown > 0 && shown <= 600, `shown at most 600 CSS px wide (${shown})`);
         }
         assert.deepEqual(await t.seriousViolations(page, 'summary preview'), []);
         await t.screenshot(page, 'summary-preview');
         // 640 px wide (1280 px at 200 % zoom): the composer and preview reflow without sideways scrolling.
         await page.setViewportSize({ width: 640, height: 800 });
         await assertNoSidewaysScroll(page, 'summary preview at 200%');
+        for (const image of await images.all()) {
+          const box = await image.evaluate((img) => {
+            const r = img.getBoundingClientRect();
+            return { width: r.width, height: r.height };
+          });
+          // Narrower than 600 here, the chart keeps its shape (height follows width).
+          assert.ok(box.width < 600, `the chart shrinks with the window (${box.width})`);
+          assert.ok(
+            box.height / box.width > 0.5 && box.height / box.width < 0.7,
+            'the chart keeps its shape',
+          );
+        }
         await t.screenshot(page, 'summary-preview-640');
         await page.setViewportSize({ width: 1280, height: 860 });
 

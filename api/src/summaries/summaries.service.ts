@@ -34,7 +34,7 @@ import { ProfileVersion } from '../profile-versions/profile-version.entity';
 import { User } from '../users/user.entity';
 import { AppConfig } from '../config/app-config';
 import { SUMMARY_MAIL_QUEUE, stopUrl } from './summary-delivery';
-import { buildSummaryMessage, summaryCharts } from './summary-message';
+import { buildSummaryMessage, type SummaryChart, summaryCharts } from './summary-message';
 import { summaryEmailsWithdrawalHook } from './summary-withdrawal';
 import { SummaryRecipient } from './summary-recipient.entity';
 import {
@@ -77,6 +77,15 @@ export const MIN_TRIAL_CHARS = 20;
 export const PLAUSIBLE_RATE_FACTOR = 2;
 
 const iso = (date: Date | null): string | null => (date ? date.toISOString() : null);
+
+/** A chart as the previews carry it: PNG in base64, its CSS size and alt text. */
+const previewChart = (c: SummaryChart): SummaryPreview['charts'][number] => ({
+  name: c.name,
+  alt: c.alt,
+  pngBase64: c.png.toString('base64'),
+  width: c.width,
+  height: c.height,
+});
 
 /** A version's trials with what did not count: short trials (left out of the means in SQL). */
 type CountedTrials = TrialFigures & { short?: number };
@@ -363,7 +372,7 @@ export class SummariesService implements OnModuleInit {
         ...(built.headers as Record<string, string>),
         'List-Unsubscribe': `<${stopUrl(this.config.appUrl, 'example-stop-link')}>`,
       },
-      charts: charts.map((c) => ({ name: c.name, alt: c.alt, pngBase64: c.png.toString('base64') })),
+      charts: charts.map(previewChart),
     };
   }
 
@@ -376,11 +385,7 @@ export class SummariesService implements OnModuleInit {
         subject: content.subject,
         text: content.text,
         versionIds: content.versionIds,
-        charts: summaryCharts(content.figures).map((c) => ({
-          name: c.name,
-          alt: c.alt,
-          pngBase64: c.png.toString('base64'),
-        })),
+        charts: summaryCharts(content.figures).map(previewChart),
       };
     });
   }

@@ -1,6 +1,6 @@
 import { createTransport } from 'nodemailer';
 import { crc32 } from 'node:zlib';
-import { buildSummaryMessage, chartAltTexts, SAVINGS_CHART_CID, senderDomain } from './summary-message';
+import { buildSummaryMessage, SAVINGS_CHART_CID, senderDomain, summaryCharts } from './summary-message';
 import type { VersionFigures } from './summary-text';
 
 const figures: VersionFigures[] = [
@@ -58,8 +58,14 @@ describe('buildSummaryMessage', () => {
         /<p style="[^"]*">[^<]*\d[^<]*%[^<]*<\/p>|<p style="[^"]*">Estimated words[^<]*<\/p>/g,
       ),
     ).toHaveLength(2);
+    // Each image is shown at its CSS width and shrinks on a narrow screen.
+    expect(message.html).toMatch(
+      /<img src="cid:savings-chart@keyloom" width="600" height="\d+" alt="[^"]*" style="display:block;width:100%;max-width:600px;height:auto;border:0">/,
+    );
     for (const a of attachments) {
       const png = a.content as Buffer;
+      // 1200 px wide: the PNG's IHDR width (PNG specification, section 11.2.2).
+      expect(png.readUInt32BE(16)).toBe(1200);
       expect(png.subarray(1, 4).toString('ascii')).toBe('PNG');
       // The IHDR CRC checked with node:zlib (PNG specification, section 5.3).
       expect(png.readUInt32BE(29)).toBe(crc32(png.subarray(12, 29)) >>> 0);
@@ -89,11 +95,14 @@ describe('buildSummaryMessage', () => {
 });
 
 describe('helpers', () => {
-  it('finds the sender domain and writes every figure into the alt texts', () => {
+  it('finds the sender domain; the charts carry every figure in their alt texts', () => {
     expect(senderDomain(input.from)).toBe('willowmere.example');
     expect(senderDomain('nobody')).toBe('keyloom.invalid');
-    const alt = chartAltTexts(figures);
-    expect(alt.savings).toBe('Key presses saved by suggestions, by version: version 1: 31%; version 2: 42%.');
-    expect(alt.speed).toContain('version 2: 2.7 with, 1.9 without');
+    const [savings, speed] = summaryCharts(figures);
+    expect(savings?.alt).toBe(
+      'Key presses saved by suggestions, by version: version 1: 31%; version 2: 42%.',
+    );
+    expect(speed?.alt).toContain('version 2: 2.7 with suggestions, 1.9 without suggestions');
+    expect([speed?.width, speed?.height]).toEqual([600, expect.any(Number)]);
   });
 });

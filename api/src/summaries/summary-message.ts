@@ -1,5 +1,5 @@
 import type { SendMailOptions } from 'nodemailer';
-import { encodePng, savingsBarChart, speedLineChart } from './summary-chart';
+import { savingsChart, speedChart, type RenderedChart } from './summary-chart';
 import type { VersionFigures } from './summary-text';
 
 // The e-mail of one summary to one recipient: plain text, an HTML version with the charts as inline
@@ -31,57 +31,42 @@ export function senderDomain(from: string): string {
   return match?.[1] ?? 'keyloom.invalid';
 }
 
-/** Alt text of a chart, with every figure in words, so the chart is never the only place a figure is. */
-export function chartAltTexts(figures: VersionFigures[]): { savings: string; speed: string } {
-  const savings = figures
-    .filter((f) => f.keystrokeSavings !== null)
-    .map((f) => `version ${f.number}: ${Math.round((f.keystrokeSavings ?? 0) * 100)}%`);
-  const speed = figures
-    .filter((f) => f.wpmWith !== null && f.wpmWithout !== null)
-    .map((f) => `version ${f.number}: ${f.wpmWith?.toFixed(1)} with, ${f.wpmWithout?.toFixed(1)} without`);
-  return {
-    savings: `Key presses saved by suggestions, by version: ${savings.join('; ')}.`,
-    speed: `Estimated words a minute, by version: ${speed.join('; ')}.`,
-  };
-}
+/** One chart as the e-mail carries it: the PNG, its size in CSS px and its alt text. */
+export type SummaryChart = {
+  name: string;
+  cid: string;
+  alt: string;
+  png: Buffer;
+  width: number;
+  height: number;
+};
 
-/**
- * nodemailer options for one recipient. Charts are attached only when there are figures to draw
- * (1 to 20 versions); the text already carries every figure.
- */
-/** One chart as the e-mail carries it; `width` in CSS pixels (the PNG may hold more for sharp screens). */
-export type SummaryChart = { name: string; cid: string; alt: string; png: Buffer; width: number };
+const mailed = ({ alt, png, width, height }: RenderedChart) => ({ alt, png, width, height });
 
 /**
  * The charts of a summary: keystroke savings (versions with savings) and speed (versions with both
- * rates), the last 20 versions at most; none when no version has the figures.
+ * rates), the last 20 versions at most; none when no version has the figures. Each chart's alt text
+ * is written from the same values, in the same words, as the numbers on the picture.
  */
 export function summaryCharts(figures: VersionFigures[]): SummaryChart[] {
   const withSavings = figures.filter((f) => f.keystrokeSavings !== null).slice(-20);
   const withRates = figures.filter((f) => f.wpmWith !== null && f.wpmWithout !== null).slice(-20);
-  const alt = chartAltTexts(figures);
   const charts: SummaryChart[] = [];
   if (withSavings.length > 0) {
-    charts.push({
-      name: 'keystroke-savings.png',
-      cid: SAVINGS_CHART_CID,
-      alt: alt.savings,
-      png: encodePng(savingsBarChart(withSavings.map((f) => f.keystrokeSavings ?? 0))),
-      width: 480,
-    });
+    const chart = savingsChart(
+      withSavings.map((f) => ({ number: f.number, savings: f.keystrokeSavings ?? 0 })),
+    );
+    charts.push({ name: 'keystroke-savings.png', cid: SAVINGS_CHART_CID, ...mailed(chart) });
   }
   if (withRates.length > 0) {
-    charts.push({
-      name: 'typing-speed.png',
-      cid: SPEED_CHART_CID,
-      alt: alt.speed,
-      png: encodePng(
-        speedLineChart(
-          withRates.map((f) => ({ withSuggestions: f.wpmWith ?? 0, without: f.wpmWithout ?? 0 })),
-        ),
-      ),
-      width: 480,
-    });
+    const chart = speedChart(
+      withRates.map((f) => ({
+        number: f.number,
+        withSuggestions: f.wpmWith ?? 0,
+        without: f.wpmWithout ?? 0,
+      })),
+    );
+    charts.push({ name: 'typing-speed.png', cid: SPEED_CHART_CID, ...mailed(chart) });
   }
   return charts;
 }
@@ -110,7 +95,7 @@ export function summaryHtml(input: {
   // The chart's figures under it in words too: some mail programs do not show images until asked.
   const images = input.charts.map(
     (chart) =>
-      `<div style="margin:0 0 20px 0"><img src="cid:${chart.cid}" width="${chart.width}" alt="${escapeHtml(chart.alt)}" ` +
+      `<div style="margin:0 0 20px 0"><img src="cid:${chart.cid}" width="${chart.width}" height="${chart.height}" alt="${escapeHtml(chart.alt)}" ` +
       `style="display:block;width:100%;max-width:${chart.width}px;height:auto;border:0">` +
       `<p style="margin:6px 0 0 0;font-size:15px;color:${INK_SOFT}">${escapeHtml(chart.alt)}</p></div>`,
   );
@@ -129,6 +114,10 @@ export function summaryHtml(input: {
   );
 }
 
+/**
+ * nodemailer options for one recipient. Charts are attached only when there are figures to draw
+ * (1 to 20 versions); the text already carries every figure.
+ */
 export function buildSummaryMessage(input: SummaryMessageInput): SendMailOptions {
   const charts = summaryCharts(input.figures);
   const attachments: NonNullable<SendMailOptions['attachments']> = charts.map((chart) => ({

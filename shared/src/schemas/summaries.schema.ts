@@ -79,8 +79,17 @@ export const summaryPreviewSchema = z.object({
   subject: z.string(),
   text: z.string(),
   versionIds: z.array(z.uuid()),
-  // The charts as the e-mail carries them (PNG, base64), with the alt text that states every figure.
-  charts: z.array(z.object({ name: z.string(), alt: z.string(), pngBase64: z.string() })),
+  // The charts as the e-mail carries them (PNG, base64), with the alt text that states every figure
+  // and the size to show them at in CSS px (the PNG has twice as many pixels each way).
+  charts: z.array(
+    z.object({
+      name: z.string(),
+      alt: z.string(),
+      pngBase64: z.string(),
+      width: z.number().int().positive(),
+      height: z.number().int().positive(),
+    }),
+  ),
 });
 export type SummaryPreview = z.infer<typeof summaryPreviewSchema>;
 

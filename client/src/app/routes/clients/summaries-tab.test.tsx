@@ -93,11 +93,15 @@ const preview = (overrides: Partial<SummaryPreview> = {}): SummaryPreview => ({
       name: 'keystroke-savings.png',
       alt: 'Key presses saved by suggestions, by version: version 1: 42%.',
       pngBase64: PNG,
+      width: 600,
+      height: 349,
     },
     {
       name: 'typing-speed.png',
-      alt: 'Estimated words a minute, by version: version 1: 2.7 with, 1.9 without.',
+      alt: 'Estimated words a minute, by version: version 1: 2.7 with suggestions, 1.9 without suggestions.',
       pngBase64: PNG,
+      width: 600,
+      height: 380,
     },
   ],
   ...overrides,
@@ -206,7 +210,7 @@ describe('Family updates tab', () => {
           text: `${edited}\n\nTo stop receiving these summaries, open this link: …`,
           html: `<!doctype html><html lang="en"><head><title>${draft.subject}</title></head><body><p>Dear Hannah,</p><img src="cid:savings-chart@keyloom" alt="x"></body></html>`,
           headers: { 'List-Unsubscribe-Post': 'List-Unsubscribe=One-Click' },
-          charts: [{ name: 'keystroke-savings.png', alt: 'x', pngBase64: PNG }],
+          charts: [{ name: 'keystroke-savings.png', alt: 'x', pngBase64: PNG, width: 600, height: 349 }],
         },
       },
       [`POST /api/summaries/${SUMMARY_ID}/send`]: () => {
@@ -230,6 +234,20 @@ describe('Family updates tab', () => {
     await user.clear(within(form).getByLabelText('To'));
     await user.type(within(form).getByLabelText('To'), '2026-11-30');
     await user.click(within(form).getByRole('checkbox', { name: 'Hannah Ashby (Sister)' }));
+    await user.click(within(form).getByRole('button', { name: 'Preview the figures' }));
+    const previewRegion = await within(form).findByRole('region', { name: 'Preview' });
+    await waitFor(() =>
+      expect(within(previewRegion).getByRole('heading', { name: 'Preview' })).toHaveFocus(),
+    );
+    const images = within(previewRegion).getAllByRole('img');
+    expect(images.map((img) => img.getAttribute('alt'))).toEqual([
+      'Key presses saved by suggestions, by version: version 1: 42%.',
+      'Estimated words a minute, by version: version 1: 2.7 with suggestions, 1.9 without suggestions.',
+    ]);
+    expect(images[0]).toHaveAttribute('src', `data:image/png;base64,${PNG}`);
+    // Shown at the CSS size the API gives (the PNG has twice the pixels).
+    expect(images[1]).toHaveAttribute('width', '600');
+    expect(images[1]).toHaveAttribute('height', '380');
     await user.click(within(form).getByRole('button', { name: 'Write the draft' }));
     await waitFor(() => expect(api.requestsTo(`POST ${base}/summaries`)).toHaveLength(1));
     expect(api.requestsTo(`POST ${base}/summaries`)[0]?.body).toEqual({
