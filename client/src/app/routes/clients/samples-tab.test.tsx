@@ -129,7 +129,18 @@ describe('Writing samples tab', () => {
   it('refuses an empty file before sending it, and asks for a file when none is chosen', async () => {
     const { user, api } = await openSamplesTab({ [`POST ${base}/samples`]: storedAnswer });
     await user.click(screen.getByRole('button', { name: 'Upload files' }));
-    expect(await screen.findByText('Choose at least one file to upload.')).toBeInTheDocument();
+    // No file chosen is refused like any field: listed at the top of the form, focused, linked to the picker.
+    const summary = await screen.findByRole('group', { name: 'One field needs attention' });
+    await waitFor(() => expect(summary).toHaveFocus());
+    const picker = screen.getByLabelText('Choose files, or drop them here');
+    expect(picker).toHaveAttribute('aria-invalid', 'true');
+    expect(picker).toHaveAccessibleDescription(/Choose at least one file to upload\./);
+    await user.click(
+      within(summary).getByRole('link', {
+        name: 'Choose files, or drop them here: Choose at least one file to upload.',
+      }),
+    );
+    expect(picker).toHaveFocus();
 
     await user.upload(screen.getByLabelText(/Choose files/), [textFile('empty.txt', '')]);
     expect(screen.getByText(/The file is empty/)).toBeInTheDocument();

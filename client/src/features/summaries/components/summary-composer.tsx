@@ -35,6 +35,8 @@ type SummaryComposerProps = {
 };
 
 type CheckboxRowProps = {
+  /** The field the box belongs to (ties a refused group to its boxes in the list of what needs attention). */
+  name: string;
   label: string;
   detail: string;
   checked: boolean;
@@ -43,12 +45,13 @@ type CheckboxRowProps = {
 };
 
 /** A checkbox of a group whose value is kept as a list by hand (a lone registered box would give a string). */
-const CheckboxRow = ({ label, detail, checked, disabled, onChange }: CheckboxRowProps) => {
+const CheckboxRow = ({ name, label, detail, checked, disabled, onChange }: CheckboxRowProps) => {
   const id = useId();
   return (
     <div className="flex items-start gap-3">
       <input
         id={id}
+        name={name}
         type="checkbox"
         className="mt-1 size-6 shrink-0 accent-ink"
         checked={checked}
@@ -101,6 +104,7 @@ export const SummaryComposer = ({
       schema={createSummarySchema}
       aria-labelledby={`${ids}-title`}
       defaultValues={{ ...defaultPeriod(), versionIds: [], contactIds: [], note: '' }}
+      errorSummary
       onSubmit={async (input) => {
         // The same key when the same summary is sent again after an error: it goes out once.
         const idempotencyKey = sendKey.keyFor({ clientId, input });
@@ -109,7 +113,7 @@ export const SummaryComposer = ({
         onSent(summary);
       }}
     >
-      {({ register, formState, setValue, watch, trigger, getValues }) => {
+      {({ register, formState, setValue, watch, getValues }, { checkFields }) => {
         const errors = formState.errors;
         const versionIds = (watch('versionIds') ?? []) as string[];
         const contactIds = (watch('contactIds') ?? []) as string[];
@@ -125,7 +129,7 @@ export const SummaryComposer = ({
 
         const showPreview = async () => {
           setPreviewError(null);
-          if (!(await trigger(['from', 'to', 'versionIds', 'note']))) return;
+          if (!(await checkFields(['from', 'to', 'versionIds', 'note']))) return;
           const values = getValues();
           const parsed = summaryPreviewRequestSchema.safeParse(values);
           if (!parsed.success) return;
@@ -171,6 +175,7 @@ export const SummaryComposer = ({
               {reportable.map((version) => (
                 <CheckboxRow
                   key={version.id}
+                  name="versionIds"
                   label={`Version ${version.number}`}
                   detail={`${profileVersionStatusLabels[version.status]}${
                     version.trainedAt ? `, trained ${version.trainedAt.slice(0, 10)}` : ''
@@ -211,6 +216,7 @@ export const SummaryComposer = ({
                 return (
                   <CheckboxRow
                     key={contact.id}
+                    name="contactIds"
                     label={`${contact.name} (${contact.relationship})`}
                     detail={blocked ?? contact.email}
                     disabled={blocked !== null}
