@@ -1,5 +1,6 @@
-import { Link } from 'react-router-dom';
-import { useState } from 'react';
+import { useEffect, useState } from 'react';
+import { Link, useLocation } from 'react-router-dom';
+import { z } from 'zod';
 import { PageLoading } from '@/components/layout/page-loading';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
@@ -25,6 +26,9 @@ type SamplesPanelProps = {
   announce: (tone: 'success' | 'error', text: string) => void;
 };
 
+const deletedStateSchema = z.object({ sampleDeleted: z.string() });
+const deletedMessage = (title: string) => `“${title}” was deleted.`;
+
 /** The "Writing samples" tab: the caution, upload and paste (with consent), and the list. */
 export const SamplesPanel = ({
   clientId,
@@ -37,6 +41,17 @@ export const SamplesPanel = ({
   const [mode, setMode] = useState<'files' | 'paste'>('files');
   const [deleting, setDeleting] = useState<SampleSummary | null>(null);
   const include = useIncludeSample();
+  // A sample deleted on its own page: say so, and put focus on the list it was removed from.
+  const location = useLocation();
+  const [deletedTitle] = useState(() => deletedStateSchema.safeParse(location.state).data?.sampleDeleted);
+  const loaded = samples.isSuccess;
+  useEffect(() => {
+    if (deletedTitle === undefined || !loaded) return;
+    announce('success', deletedMessage(deletedTitle));
+    focusSoon('samples-heading');
+    // Once, when the list has come: `announce` is a new function on every render of the page.
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [deletedTitle, loaded]);
 
   const includeAgain = async (sample: SampleSummary) => {
     try {
@@ -146,7 +161,7 @@ export const SamplesPanel = ({
           onClose={() => setDeleting(null)}
           onDeleted={(deleted) => {
             setDeleting(null);
-            announce('success', `“${deleted.title}” was deleted.`);
+            announce('success', deletedMessage(deleted.title));
             // The row is gone: focus goes to the list's heading, under the message.
             focusSoon('samples-heading');
           }}
