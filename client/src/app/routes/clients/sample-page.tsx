@@ -1,4 +1,4 @@
-import { sourceKindLabels, trainedOnMessage } from '@keyloom/shared';
+import { sourceKindLabels } from '@keyloom/shared';
 import { useQuery } from '@tanstack/react-query';
 import { useState } from 'react';
 import { Link, useNavigate, useParams } from 'react-router-dom';
@@ -13,7 +13,7 @@ import { profileVersionsQueryOptions } from '@/features/profiles/api/get-profile
 import { useSample } from '@/features/samples/api/get-sample';
 import { useIncludeSample } from '@/features/samples/api/include-sample';
 import { focusSoon } from '@/features/samples/lib/focus-targets';
-import { versionsTrainedOn } from '@/features/samples/lib/trained-versions';
+import { deleteBlockedReason } from '@/features/samples/lib/trained-versions';
 import { DeleteSampleDialog } from '@/features/samples/components/delete-sample-dialog';
 import { ExcludeSampleDialog } from '@/features/samples/components/exclude-sample-dialog';
 import { FlagReview } from '@/features/samples/components/flag-review';
@@ -59,7 +59,8 @@ export const SampleRoute = () => {
   }
 
   const data = sample.data;
-  const trainedOn = versions.data ? versionsTrainedOn(data.id, versions.data) : [];
+  // Unknown versions (still loading, or not loaded) leave the decision to the API, which refuses too.
+  const deleteBlocked = versions.data ? deleteBlockedReason(data.id, versions.data) : null;
   const includeAgain = async () => {
     try {
       await include.mutateAsync(data.id);
@@ -104,16 +105,16 @@ export const SampleRoute = () => {
                 <Button
                   variant="danger"
                   // Offered once the versions are known, and only while none was trained on the sample.
-                  disabled={!versions.isSuccess || trainedOn.length > 0}
-                  aria-describedby={trainedOn.length > 0 ? 'delete-sample-blocked' : undefined}
+                  disabled={versions.isPending || deleteBlocked !== null}
+                  aria-describedby={deleteBlocked ? 'delete-sample-blocked' : undefined}
                   onClick={() => setDeleting(true)}
                 >
                   Delete sample…
                 </Button>
               </div>
-              {trainedOn.length > 0 && (
+              {deleteBlocked && (
                 <p id="delete-sample-blocked" className="max-w-sm text-ink-soft">
-                  Cannot be deleted. {trainedOnMessage(trainedOn)}
+                  {deleteBlocked}
                 </p>
               )}
             </div>

@@ -11,6 +11,7 @@ import type { SampleSummary } from '@keyloom/shared';
 import { useSamples } from '../api/get-samples';
 import { useIncludeSample } from '../api/include-sample';
 import { focusSoon, sampleLinkId } from '../lib/focus-targets';
+import { deleteBlockedReason, type VersionUse } from '../lib/trained-versions';
 import { DeleteSampleDialog } from './delete-sample-dialog';
 import { PasteSampleForm } from './paste-sample-form';
 import { SamplesTable } from './samples-table';
@@ -24,6 +25,8 @@ type SamplesPanelProps = {
   /** Owning clinician; supervisors read only. */
   canEdit: boolean;
   announce: (tone: 'success' | 'error', text: string) => void;
+  /** The client's versions, to tell which samples were trained on (undefined while unknown). */
+  versions?: readonly VersionUse[];
 };
 
 const deletedStateSchema = z.object({ sampleDeleted: z.string() });
@@ -36,6 +39,7 @@ export const SamplesPanel = ({
   trainingConsent,
   canEdit,
   announce,
+  versions,
 }: SamplesPanelProps) => {
   const samples = useSamples(clientId);
   const [mode, setMode] = useState<'files' | 'paste'>('files');
@@ -149,7 +153,12 @@ export const SamplesPanel = ({
             samples={samples.data}
             actions={
               canEdit
-                ? { onDelete: setDeleting, onInclude: (s) => void includeAgain(s), busy: include.isPending }
+                ? {
+                    onDelete: setDeleting,
+                    onInclude: (s) => void includeAgain(s),
+                    busy: include.isPending,
+                    deleteBlocked: (s) => (versions ? deleteBlockedReason(s.id, versions) : null),
+                  }
                 : undefined
             }
           />

@@ -1,6 +1,6 @@
-import type { ProfileVersion } from '@keyloom/shared';
+import { type ProfileVersion, trainedOnMessage } from '@keyloom/shared';
 
-type VersionUse = Pick<ProfileVersion, 'number' | 'status' | 'samples' | 'history'>;
+export type VersionUse = Pick<ProfileVersion, 'number' | 'status' | 'samples' | 'history'>;
 
 /**
  * The numbers of the versions trained on a sample, lowest first: the API's rule for refusing to
@@ -15,3 +15,9 @@ export const versionsTrainedOn = (sampleId: string, versions: readonly VersionUs
     )
     .map((version) => version.number)
     .sort((a, b) => a - b);
+
+/** Why the sample cannot be deleted (versions were trained on it), or null while it can be. */
+export const deleteBlockedReason = (sampleId: string, versions: readonly VersionUse[]): string | null => {
+  const trained = versionsTrainedOn(sampleId, versions);
+  return trained.length > 0 ? `Cannot be deleted. ${trainedOnMessage(trained)}` : null;
+};
