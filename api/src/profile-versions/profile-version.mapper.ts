@@ -36,6 +36,7 @@ export function toProfileVersionDto(v: ProfileVersion, staleMs: number): Profile
     error: v.error,
     settings: v.settings,
     samples: v.samples.map(({ id, title, sha256, characters }) => ({ id, title, sha256, characters })),
+    baseOnly: v.baseOnly,
     metrics: v.metrics,
     modelBytes: v.modelSize,
     createdBy: v.createdBy?.name ?? REMOVED,

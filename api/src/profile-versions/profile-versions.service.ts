@@ -11,6 +11,7 @@ import {
 import { InjectDataSource } from '@nestjs/typeorm';
 import {
   type ApproveInput,
+  BASE_ONLY_WEIGHT,
   type ClientVocabulary,
   checkProfileSettings,
   headlineReportKeys,
@@ -74,6 +75,8 @@ export const ONLY_DRAFT_MESSAGE = (status: string) =>
 export const NOT_ACTIVE_MESSAGE = (status: string) =>
   `Only the active version can be retired; this one is ${status}.`;
 export const ONLY_SUPERVISOR_RETIRES_MESSAGE = 'Only a supervisor retires the active version.';
+export const BASE_ONLY_SAMPLES_MESSAGE =
+  'A base-only version uses general English alone: choose no samples, or make a version from the client’s writing.';
 export const ONLY_CARER_REPORTS_MESSAGE =
   'Only a carer assigned to this client reports a problem with a version.';
 
@@ -238,14 +241,25 @@ async function resolvedSettings(
   manager: EntityManager,
   client: Client,
   input: CreateProfileVersionInput['settings'],
+  baseOnly = false,
 ): Promise<ProfileSettings> {
   const vocabulary =
     input.vocabulary ??
     (await manager.getRepository(ClientVocabularyRow).findOneBy({ clientId: client.id }))?.vocabulary;
   return profileSettingsSchema.parse({
     ...input,
+    // A base-only version is general English alone, whatever weight was sent.
+    ...(baseOnly ? { baseWeight: BASE_ONLY_WEIGHT } : {}),
     access: input.access ?? accessFromClient(client),
     vocabulary,
+  });
+}
+
+/** 400 for samples chosen for a base-only version. */
+function baseOnlySamplesRefusal(): BadRequestException {
+  return new BadRequestException({
+    message: BASE_ONLY_SAMPLES_MESSAGE,
+    issues: [{ path: 'sampleIds', message: BASE_ONLY_SAMPLES_MESSAGE }],
   });
 }
 
@@ -321,9 +335,11 @@ export class ProfileVersionsService implements OnModuleInit {
     return this.dataSource.transaction(async (manager) => {
       const client = await this.access.requireOwned(actor, clientId, manager);
       await this.access.requireTrainingConsent(clientId, manager);
-      const settings = await resolvedSettings(manager, client, input.settings);
-      const samples = await frozenSamples(manager, clientId, input.sampleIds);
-      requireEnoughText(samples, settings);
+      const baseOnly = input.baseOnly === true;
+      const settings = await resolvedSettings(manager, client, input.settings, baseOnly);
+      if (baseOnly && input.sampleIds?.length) throw baseOnlySamplesRefusal();
+      const samples = baseOnly ? [] : await frozenSamples(manager, clientId, input.sampleIds);
+      if (!baseOnly) requireEnoughText(samples, settings);
       // Numbers per client: one creation at a time per client.
       await manager.query('SELECT 1 FROM clients WHERE id = $1 FOR UPDATE', [clientId]);
       const rows: { next: number }[] = await manager.query(
@@ -339,6 +355,7 @@ export class ProfileVersionsService implements OnModuleInit {
           status: 'draft',
           settings,
           samples,
+          baseOnly,
           progress: 0,
           stage: null,
           history: [
@@ -353,6 +370,7 @@ export class ProfileVersionsService implements OnModuleInit {
         { type: 'profile-version', id: version.id, clientId },
         {
           number: version.number,
+          ...(baseOnly ? { baseOnly: true } : {}),
           // The words stay with the version; the log holds their counts.
           settings: { ...settings, vocabulary: vocabularyCounts(settings.vocabulary) },
           samples: samples.map(({ id, sha256 }) => ({ id, sha256 })),
@@ -376,10 +394,11 @@ export class ProfileVersionsService implements OnModuleInit {
       if (version.status !== 'draft') throw new ConflictException(ONLY_DRAFT_MESSAGE(label(version.status)));
       const changed: string[] = [];
       if (input.settings) {
-        version.settings = await resolvedSettings(manager, client, input.settings);
+        version.settings = await resolvedSettings(manager, client, input.settings, version.baseOnly);
         changed.push('settings');
       }
-      if (input.sampleIds) {
+      if (version.baseOnly && input.sampleIds?.length) throw baseOnlySamplesRefusal();
+      if (input.sampleIds && !version.baseOnly) {
         version.samples = await frozenSamples(manager, clientId, input.sampleIds);
         changed.push('samples');
       }
@@ -387,7 +406,7 @@ export class ProfileVersionsService implements OnModuleInit {
         version.note = input.note || null;
         changed.push('note');
       }
-      requireEnoughText(version.samples, version.settings);
+      if (!version.baseOnly) requireEnoughText(version.samples, version.settings);
       version.history = [
         ...version.history,
         { status: 'draft', at: new Date().toISOString(), by: actor.name, comment: 'Draft edited.' },
@@ -553,7 +572,7 @@ export class ProfileVersionsService implements OnModuleInit {
       throw error;
     }
     // Drafts made before creation checked the text, so training checks it too.
-    requireEnoughText(version.samples, version.settings);
+    if (!version.baseOnly) requireEnoughText(version.samples, version.settings);
   }
 
   private async jobIsAlive(version: ProfileVersion): Promise<boolean> {

@@ -38,7 +38,11 @@ describe('buildSummaryMessage', () => {
     const message = buildSummaryMessage(input);
     expect(message.messageId).toBe('<3b0f0d7e-2a41-4f8e-9a3c-5d6e7f809a1b@willowmere.example>');
     expect(message.text).toContain(input.stopUrl);
-    expect(message.html).toContain(`<a href="${input.stopUrl}">`);
+    expect(message.html).toContain(`<a href="${input.stopUrl}"`);
+    expect(message.html).toContain(`<title>${input.subject}</title>`);
+    // One column at most 600 px wide, narrowing with the screen (the phone check is the browser test's).
+    expect(message.html).toContain('<meta name="viewport" content="width=device-width, initial-scale=1">');
+    expect(message.html).toContain('max-width:600px');
     expect(message.html).toContain('Second &lt;paragraph&gt; &amp; more.');
     expect(message.html).not.toMatch(/<script/i);
   });
@@ -49,7 +53,11 @@ describe('buildSummaryMessage', () => {
     expect(attachments.map((a) => a.filename)).toEqual(['keystroke-savings.png', 'typing-speed.png']);
     expect(message.html).toContain(`src="cid:${SAVINGS_CHART_CID}"`);
     // Each chart's figures are also written under it, for readers whose mail program hides images.
-    expect((message.html as string).match(/<small>[^<]*\d[^<]*<\/small>/g)).toHaveLength(2);
+    expect(
+      (message.html as string).match(
+        /<p style="[^"]*">[^<]*\d[^<]*%[^<]*<\/p>|<p style="[^"]*">Estimated words[^<]*<\/p>/g,
+      ),
+    ).toHaveLength(2);
     for (const a of attachments) {
       const png = a.content as Buffer;
       expect(png.subarray(1, 4).toString('ascii')).toBe('PNG');

@@ -49,8 +49,8 @@ export function chartAltTexts(figures: VersionFigures[]): { savings: string; spe
  * nodemailer options for one recipient. Charts are attached only when there are figures to draw
  * (1 to 20 versions); the text already carries every figure.
  */
-/** One chart as the e-mail carries it. */
-export type SummaryChart = { name: string; cid: string; alt: string; png: Buffer };
+/** One chart as the e-mail carries it; `width` in CSS pixels (the PNG may hold more for sharp screens). */
+export type SummaryChart = { name: string; cid: string; alt: string; png: Buffer; width: number };
 
 /**
  * The charts of a summary: keystroke savings (versions with savings) and speed (versions with both
@@ -67,6 +67,7 @@ export function summaryCharts(figures: VersionFigures[]): SummaryChart[] {
       cid: SAVINGS_CHART_CID,
       alt: alt.savings,
       png: encodePng(savingsBarChart(withSavings.map((f) => f.keystrokeSavings ?? 0))),
+      width: 480,
     });
   }
   if (withRates.length > 0) {
@@ -79,9 +80,53 @@ export function summaryCharts(figures: VersionFigures[]): SummaryChart[] {
           withRates.map((f) => ({ withSuggestions: f.wpmWith ?? 0, without: f.wpmWithout ?? 0 })),
         ),
       ),
+      width: 480,
     });
   }
   return charts;
+}
+
+/** The app's colours (client/src/index.css) as the e-mail's inline styles: mail programs drop most CSS. */
+const INK = '#1d2b4f';
+const INK_SOFT = '#44506f';
+const PAPER = '#fbf8f1';
+const FONT = "'Atkinson Hyperlegible', Verdana, Arial, sans-serif";
+
+/**
+ * The HTML part: one column at most 600 px wide that narrows with the screen (a phone at 390 px has
+ * no sideways scroll), a <title>, the text's paragraphs, each chart with its figures in words under
+ * it, and the stop link. Styles are inline, as mail programs keep them; no scripts, no remote images.
+ */
+export function summaryHtml(input: {
+  subject: string;
+  text: string;
+  charts: readonly SummaryChart[];
+  stopUrl: string;
+}): string {
+  const paragraphs = input.text
+    .split('\n\n')
+    .map((p) => `<p style="margin:0 0 16px 0">${escapeHtml(p).replace(/\n/g, '<br>')}</p>`)
+    .join('\n');
+  // The chart's figures under it in words too: some mail programs do not show images until asked.
+  const images = input.charts.map(
+    (chart) =>
+      `<div style="margin:0 0 20px 0"><img src="cid:${chart.cid}" width="${chart.width}" alt="${escapeHtml(chart.alt)}" ` +
+      `style="display:block;width:100%;max-width:${chart.width}px;height:auto;border:0">` +
+      `<p style="margin:6px 0 0 0;font-size:15px;color:${INK_SOFT}">${escapeHtml(chart.alt)}</p></div>`,
+  );
+  return (
+    '<!doctype html>\n<html lang="en"><head><meta charset="utf-8">' +
+    '<meta name="viewport" content="width=device-width, initial-scale=1">' +
+    `<title>${escapeHtml(input.subject)}</title></head>\n` +
+    `<body style="margin:0;padding:0;background:${PAPER}">\n` +
+    `<div style="max-width:600px;margin:0 auto;padding:16px;box-sizing:border-box;font-family:${FONT};` +
+    `font-size:18px;line-height:1.5;color:${INK};background:#ffffff;overflow-wrap:break-word">\n` +
+    `<h1 style="margin:0 0 16px 0;font-size:24px;line-height:1.25">${escapeHtml(input.subject)}</h1>\n` +
+    `${paragraphs}\n${images.join('\n')}\n` +
+    `<p style="margin:24px 0 0 0;padding-top:12px;border-top:1px solid ${INK_SOFT};font-size:16px">` +
+    `<a href="${escapeHtml(input.stopUrl)}" style="color:${INK}">Stop receiving these summaries</a></p>\n` +
+    '</div>\n</body></html>'
+  );
 }
 
 export function buildSummaryMessage(input: SummaryMessageInput): SendMailOptions {
@@ -92,17 +137,6 @@ export function buildSummaryMessage(input: SummaryMessageInput): SendMailOptions
     cid: chart.cid,
     content: chart.png,
   }));
-  // The chart's figures under it in words too: the picture carries no lettering, and some mail
-  // programs do not show images until asked.
-  const images = charts.map(
-    (chart) =>
-      `<p><img src="cid:${chart.cid}" width="480" height="240" alt="${escapeHtml(chart.alt)}"><br>` +
-      `<small>${escapeHtml(chart.alt)}</small></p>`,
-  );
-  const paragraphs = input.text
-    .split('\n\n')
-    .map((p) => `<p>${escapeHtml(p).replace(/\n/g, '<br>')}</p>`)
-    .join('\n');
   const stop = `To stop receiving these summaries, open this link: ${input.stopUrl}`;
   return {
     from: input.from,
@@ -117,9 +151,7 @@ export function buildSummaryMessage(input: SummaryMessageInput): SendMailOptions
     // The opt-out header (RFC 2369) beside the link in the body.
     list: { unsubscribe: { url: input.stopUrl, comment: 'Stop progress summaries' } },
     text: `${input.text}\n\n${stop}\n`,
-    html:
-      `<!doctype html><html lang="en"><body>\n${paragraphs}\n${images.join('\n')}\n` +
-      `<p><a href="${escapeHtml(input.stopUrl)}">Stop receiving these summaries</a></p>\n</body></html>`,
+    html: summaryHtml({ subject: input.subject, text: input.text, charts, stopUrl: input.stopUrl }),
     attachments,
   };
 }

@@ -5,7 +5,9 @@ import { clientVocabularySchema } from './vocabulary.schema';
 
 // POST /api/clients/:id/profile-versions: settings (access defaults to the client record's; the added
 // and blocked words to the client's current list) and the samples to train on (default: every sample
-// that is ready). The exact sample set and word list are frozen with the version.
+// that is ready). The exact sample set and word list are frozen with the version. `baseOnly: true`
+// makes a base-only version instead: general English alone, no samples (for a client with too
+// little writing); it is trained, tried, signed off and approved like any other.
 export const createProfileVersionSchema = z.object({
   settings: profileSettingsSchema
     .omit({ vocabulary: true })
@@ -13,12 +15,16 @@ export const createProfileVersionSchema = z.object({
     .extend({ vocabulary: clientVocabularySchema.optional() }),
   sampleIds: z.array(z.uuid()).min(1, { error: 'Choose at least one sample.' }).optional(),
   note: safeText({ multiline: true }).trim().max(1000).optional(),
+  baseOnly: z.boolean().optional(),
 });
 export type CreateProfileVersionInput = z.infer<typeof createProfileVersionSchema>;
 
 // PATCH /api/profile-versions/:id (drafts only): the fields the create takes, each optional; a field
 // that is sent replaces what the draft holds (settings and samples are frozen again, as at creation).
-export const updateProfileVersionSchema = createProfileVersionSchema.partial({ settings: true });
+// Whether a version is base-only is fixed when it is created.
+export const updateProfileVersionSchema = createProfileVersionSchema
+  .omit({ baseOnly: true })
+  .partial({ settings: true });
 export type UpdateProfileVersionInput = z.infer<typeof updateProfileVersionSchema>;
 
 export const profileVersionStatuses = [
@@ -91,6 +97,9 @@ export const profileVersionSchema = z.object({
   samples: z.array(
     z.object({ id: z.uuid(), title: z.string(), sha256: z.string(), characters: z.number().int() }),
   ),
+  // General English alone, no personal writing (no samples; metrics stay null: nothing of the
+  // client's is held out to measure it on, so the trial on the test keyboard measures it).
+  baseOnly: z.boolean(),
   // The engine's report (profileReportSchema, same names as `model evaluate --json`), null until
   // trained. Kept open here so one report that does not parse does not hide the version: the
   // client reads it with profileReportSchema and shows "no results" when it does not parse.

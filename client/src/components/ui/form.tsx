@@ -66,10 +66,16 @@ export type FormSummary<TValues extends FieldValues> = {
 /** Field name → message of each refused field (top level; a group such as a list of boxes counts once). */
 const flatErrors = (
   errors: FieldErrors | Record<string, { message?: string }>,
+  prefix = '',
 ): Array<{ name: string; message: string }> =>
-  Object.entries(errors as Record<string, { message?: unknown } | undefined>)
-    .filter(([name, error]) => name !== 'root' && typeof error?.message === 'string')
-    .map(([name, error]) => ({ name, message: String(error?.message) }));
+  Object.entries(errors as Record<string, unknown>).flatMap(([key, error]) => {
+    if (!error || typeof error !== 'object' || (prefix === '' && key === 'root') || key === 'ref') return [];
+    const name = prefix ? `${prefix}.${key}` : key;
+    const message = (error as { message?: unknown }).message;
+    // A field's error carries its message; a nested object (e.g. `settings.order`) holds more fields.
+    if (typeof message === 'string') return [{ name, message }];
+    return flatErrors(error as Record<string, { message?: string }>, name);
+  });
 
 /**
  * One form pattern for all of Keyloom: react-hook-form + the zod schema; server errors are

@@ -19,6 +19,8 @@ export type {
   Spread,
   PerSlot,
 } from './profile-pipeline';
+export { buildBaseOnlyProfile, BASE_ONLY_WEIGHT } from './base-only-profile';
+export type { BaseOnlyProfile } from './base-only-profile';
 export { defaultProfileSettings, checkProfileSettings } from './profile-settings';
 export type { ProfileSettings, AccessSettings, AccessMethodKind } from './profile-settings';
 export { ProfileInputError, CancelledError } from './profile-errors';

@@ -36,6 +36,23 @@ const cellText = (cell: HTMLElement) =>
     .join('');
 
 describe('Profile version page', () => {
+  it('a base-only version says it is general English only, has no samples and is measured by trial', async () => {
+    await openVersion(
+      'clinician',
+      profileVersion({ baseOnly: true, samples: [], metrics: null, baseWeight: 1 }),
+    );
+    expect(screen.getByText('General English only')).toBeInTheDocument();
+    expect(screen.getByText(/This version learns nothing from the client’s writing/)).toHaveTextContent(
+      /the trial on the test keyboard measures it/,
+    );
+    expect(screen.queryByRole('heading', { name: 'Results' })).not.toBeInTheDocument();
+    expect(screen.getByText('No samples: general English only.')).toBeInTheDocument();
+    expect(screen.getByText('1 (general English alone)')).toBeInTheDocument();
+    expect(screen.queryByText('Context order')).not.toBeInTheDocument();
+    expect(screen.queryByRole('list', { name: 'Samples in this version' })).not.toBeInTheDocument();
+    expect(screen.getByRole('link', { name: 'Try version 1 on the test keyboard' })).toBeInTheDocument();
+  });
+
   it('says a training whose worker stopped is being retried, then moves on when the retry runs', async () => {
     const answers = [
       profileVersion({ status: 'training', progress: 0, stage: 'interrupted', metrics: null }),

@@ -14,7 +14,7 @@ import { useTrials } from '@/features/keyboard/api/get-trials';
 import { hasModel, takesTrials } from '@/features/keyboard/logic/keyboard-versions';
 import { TrialHistory } from '@/features/keyboard/components/trial-history';
 import { useProfileVersion } from '@/features/profiles/api/get-profile-version';
-import { NewVersionForm } from '@/features/profiles/components/new-version-form';
+import { BaseOnlyNote, NewVersionForm } from '@/features/profiles/components/new-version-form';
 import { samplesQueryOptions } from '@/features/samples/api/get-samples';
 import { count, readReport } from '@/features/profiles/lib/profile-report';
 import { ProfileStatusBadge } from '@/features/profiles/components/profile-status-badge';
@@ -165,6 +165,7 @@ export const ProfileVersionRoute = () => {
           </div>
         )}
 
+        {data.baseOnly && <BaseOnlyNote />}
         {report && (
           <section aria-labelledby="results-heading" className="flex flex-col gap-6">
             <h2 id="results-heading" className="text-3xl font-bold">
@@ -215,26 +216,41 @@ export const ProfileVersionRoute = () => {
             Settings and samples
           </h2>
           <dl className="grid max-w-2xl grid-cols-[auto_1fr] gap-x-6 gap-y-1">
-            <dt className="font-bold">Context order</dt>
-            <dd>{data.settings.order}</dd>
-            <dt className="font-bold">Escape method</dt>
-            <dd>{data.settings.escape}</dd>
-            <dt className="font-bold">Exclusion</dt>
-            <dd>{data.settings.exclusion ? 'On' : 'Off'}</dd>
+            {/* A base-only version has no personal model: only general English and the list settings. */}
+            {!data.baseOnly && (
+              <>
+                <dt className="font-bold">Context order</dt>
+                <dd>{data.settings.order}</dd>
+                <dt className="font-bold">Escape method</dt>
+                <dd>{data.settings.escape}</dd>
+                <dt className="font-bold">Exclusion</dt>
+                <dd>{data.settings.exclusion ? 'On' : 'Off'}</dd>
+              </>
+            )}
             <dt className="font-bold">Weight of general English</dt>
-            <dd>{data.settings.baseWeight === 'auto' ? 'Automatic' : data.settings.baseWeight}</dd>
+            <dd>
+              {data.baseOnly
+                ? '1 (general English alone)'
+                : data.settings.baseWeight === 'auto'
+                  ? 'Automatic'
+                  : data.settings.baseWeight}
+            </dd>
             <dt className="font-bold">Suggestion slots</dt>
             <dd>{data.settings.slots}</dd>
             <dt className="font-bold">Capitals</dt>
             <dd>{data.settings.caseFold ? 'Ignored' : 'Kept'}</dd>
           </dl>
-          <ul aria-label="Samples in this version" className="list-disc pl-6">
-            {data.samples.map((sample) => (
-              <li key={sample.id}>
-                {sample.title} ({sample.characters.toLocaleString('en-GB')} characters)
-              </li>
-            ))}
-          </ul>
+          {data.baseOnly ? (
+            <p>No samples: general English only.</p>
+          ) : (
+            <ul aria-label="Samples in this version" className="list-disc pl-6">
+              {data.samples.map((sample) => (
+                <li key={sample.id}>
+                  {sample.title} ({sample.characters.toLocaleString('en-GB')} characters)
+                </li>
+              ))}
+            </ul>
+          )}
         </section>
 
         <section aria-labelledby="history-heading" className="flex flex-col gap-3">

@@ -149,6 +149,19 @@ describe('Profile versions tab', () => {
     expect(form.getByText('Enter a base-model weight from 0 to 1, or choose automatic.')).toBeInTheDocument();
     expect(form.getByText('Choose at least one sample.')).toBeInTheDocument();
     expect(form.getByLabelText('Context order')).toHaveAttribute('aria-invalid', 'true');
+    // The refused fields are listed at the top, and focus moves to that list.
+    const summary = await form.findByRole('group', { name: /fields need attention/ });
+    await waitFor(() => expect(summary).toHaveFocus());
+    const listed = within(summary)
+      .getAllByRole('link')
+      .map((link) => link.textContent);
+    expect(listed).toEqual(
+      expect.arrayContaining([
+        'Context order: Choose a context order from 1 to 12.',
+        'Suggestion slots: Choose 1 to 10 suggestion slots.',
+        'Writing samples to learn from: Choose at least one sample.',
+      ]),
+    );
     expect(api.requestsTo(`POST ${base}/profile-versions`)).toHaveLength(0);
   });
 
@@ -209,7 +222,7 @@ describe('Profile versions tab', () => {
       metrics: null,
     });
     const { user, api } = await openTab({
-      [`GET ${base}/samples`]: { body: [sampleSummary({ status: 'ready' })] },
+      [`GET ${base}/samples`]: { body: [sampleSummary({ status: 'ready', characters: 14_000 })] },
       [`POST ${base}/profile-versions`]: { status: 201, body: created },
       [`POST /api/profile-versions/${VERSION_2_ID}/train`]: { body: { ...created, status: 'training' } },
       [`GET /api/profile-versions/${VERSION_2_ID}`]: { body: { ...created, status: 'training' } },
@@ -220,6 +233,69 @@ describe('Profile versions tab', () => {
     expect(api.requestsTo(`POST ${base}/profile-versions`)[0]?.body).toMatchObject({
       sampleIds: [samples[0]?.id],
     });
+  });
+
+  it('with too little writing, the form starts base-only: samples and weight hidden, none sent', async () => {
+    const created = profileVersion({
+      id: VERSION_2_ID,
+      number: 2,
+      status: 'draft',
+      progress: 0,
+      metrics: null,
+      samples: [],
+      baseOnly: true,
+    });
+    const { user, api } = await openTab({
+      [`GET ${base}/samples`]: { body: [sampleSummary({ status: 'ready', characters: 29 })] },
+      [`POST ${base}/profile-versions`]: { status: 201, body: created },
+      [`POST /api/profile-versions/${VERSION_2_ID}/train`]: { body: { ...created, status: 'training' } },
+      [`GET /api/profile-versions/${VERSION_2_ID}`]: { body: { ...created, status: 'training' } },
+    });
+    await user.click(await screen.findByRole('button', { name: 'New version' }));
+    const form = within(screen.getByRole('form', { name: 'New profile version' }));
+    const personal = form.getByRole('radio', { name: 'The client’s own writing' });
+    expect(personal).toBeDisabled();
+    expect(personal).toHaveAccessibleDescription(
+      'Needs at least 500 characters of ready writing; there are 29.',
+    );
+    expect(form.getByRole('radio', { name: 'General English only (base-only)' })).toBeChecked();
+    expect(form.queryByRole('group', { name: 'Writing samples to learn from' })).not.toBeInTheDocument();
+    expect(
+      form.queryByRole('group', { name: 'Weight of the general English model' }),
+    ).not.toBeInTheDocument();
+    expect(form.queryByLabelText('Context order')).not.toBeInTheDocument();
+    await user.click(form.getByRole('button', { name: 'Train this version' }));
+    await waitFor(() => expect(api.requestsTo(`POST ${base}/profile-versions`)).toHaveLength(1));
+    const body = api.requestsTo(`POST ${base}/profile-versions`)[0]?.body as Record<string, unknown>;
+    expect(body).toMatchObject({ baseOnly: true, settings: { baseWeight: 1 } });
+    expect(body).not.toHaveProperty('sampleIds');
+  });
+
+  it('with enough writing a clinician can still choose base-only; switching back shows the samples', async () => {
+    const { user } = await openTab();
+    await user.click(await screen.findByRole('button', { name: 'New version' }));
+    const form = within(screen.getByRole('form', { name: 'New profile version' }));
+    expect(form.getByRole('radio', { name: 'The client’s own writing' })).toBeChecked();
+    await user.click(form.getByRole('radio', { name: 'General English only (base-only)' }));
+    expect(form.queryByRole('group', { name: 'Writing samples to learn from' })).not.toBeInTheDocument();
+    await user.click(form.getByRole('radio', { name: 'The client’s own writing' }));
+    expect(form.getByRole('checkbox', { name: 'Diary, August' })).toBeChecked();
+  });
+
+  it('with no ready sample, New version is still offered (base-only), and base-only rows say so', async () => {
+    await openTab({
+      [`GET ${base}/samples`]: { body: [] },
+      [`GET ${base}/profile-versions`]: {
+        body: [profileVersion({ baseOnly: true, samples: [], metrics: null, baseWeight: 1 })],
+      },
+    });
+    const button = await screen.findByRole('button', { name: 'New version' });
+    expect(button).toBeEnabled();
+    expect(button).toHaveAccessibleDescription(/can only use general English \(base-only\)/);
+    const table = within(await screen.findByRole('table', { name: 'Profile versions of R. Ashby' }));
+    const row = table.getAllByRole('row')[1];
+    expect(row).toHaveTextContent('General English only');
+    expect(row).toHaveTextContent('Not measured (trial only)');
   });
 
   it('compares two ticked versions in a table with the base model alone and one chart series per version', async () => {

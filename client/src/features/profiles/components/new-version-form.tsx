@@ -23,6 +23,7 @@ import { useTrainProfileVersion } from '../api/train-profile-version';
 import { useUpdateProfileVersion } from '../api/update-profile-version';
 import { NextVersionNote } from '@/features/vocabulary/components/next-version-note';
 import { escapeExplanations } from '../lib/profile-words';
+import { BaseOnlyBadge } from './base-only-badge';
 
 /** A sample that can go into a version (the ready ones; the page passes them). */
 export type TrainableSample = { id: string; title: string; characters: number };
@@ -60,6 +61,8 @@ const SampleCheckbox = ({
       <input
         id={id}
         type="checkbox"
+        // The field's name, so a refused submit's summary links to the first box.
+        name="sampleIds"
         aria-describedby={`${id}-size`}
         className="mt-1 size-6 shrink-0 accent-ink"
         checked={checked}
@@ -90,6 +93,71 @@ const ChosenAmount = ({ samples, chosen }: { samples: readonly TrainableSample[]
       {total.toLocaleString('en-GB')} characters
       {short ? ` (${(MIN_PROFILE_CHARS - total).toLocaleString('en-GB')} more needed).` : '.'}
     </p>
+  );
+};
+
+/** What a base-only version is, in the clinic's words (the form and the version's page). */
+export const BaseOnlyNote = () => (
+  <p className="max-w-3xl text-lg">
+    <BaseOnlyBadge /> This version learns nothing from the client’s writing. Its suggestions come from the
+    general English model and the words added to the client’s list; on the device it picks up the client’s
+    words as they are typed. It has no measured results (there is no writing of the client’s to test it on):
+    the trial on the test keyboard measures it.
+  </p>
+);
+
+/** Where the suggestions come from: the client's writing, or general English only (base-only). */
+const SourceChoice = ({
+  baseOnly,
+  readyChars,
+  onChange,
+}: {
+  baseOnly: boolean;
+  readyChars: number;
+  onChange: (baseOnly: boolean) => void;
+}) => {
+  const id = useId();
+  const enough = readyChars >= MIN_PROFILE_CHARS;
+  const options = [
+    {
+      value: false,
+      label: 'The client’s own writing',
+      hint: enough
+        ? `A personal model from the ready samples (${readyChars.toLocaleString('en-GB')} characters), blended with general English.`
+        : `Needs at least ${MIN_PROFILE_CHARS.toLocaleString('en-GB')} characters of ready writing; there ${readyChars === 1 ? 'is' : 'are'} ${readyChars.toLocaleString('en-GB')}.`,
+    },
+    {
+      value: true,
+      label: 'General English only (base-only)',
+      hint: 'For a client with too little writing so far: no personal text. Tried, signed off and approved like any version.',
+    },
+  ];
+  return (
+    <fieldset className="flex flex-col gap-3">
+      <legend className="mb-1 text-xl font-bold">What the suggestions learn from</legend>
+      {options.map((option) => (
+        <div key={String(option.value)} className="flex items-start gap-3">
+          <input
+            id={`${id}-${String(option.value)}`}
+            type="radio"
+            name={`${id}-source`}
+            className="mt-1 size-6 shrink-0 accent-ink"
+            checked={baseOnly === option.value}
+            disabled={!option.value && !enough}
+            aria-describedby={`${id}-${String(option.value)}-hint`}
+            onChange={() => onChange(option.value)}
+          />
+          <div>
+            <label htmlFor={`${id}-${String(option.value)}`} className="font-bold">
+              {option.label}
+            </label>
+            <p id={`${id}-${String(option.value)}-hint`} className="text-ink-soft">
+              {option.hint}
+            </p>
+          </div>
+        </div>
+      ))}
+    </fieldset>
   );
 };
 
@@ -126,8 +194,11 @@ export const NewVersionForm = ({
   const train = useTrainProfileVersion();
   const update = useUpdateProfileVersion();
   const [weightMode, setWeightMode] = useState<'auto' | 'fixed'>(
-    draft && draft.settings.baseWeight !== 'auto' ? 'fixed' : 'auto',
+    draft && !draft.baseOnly && draft.settings.baseWeight !== 'auto' ? 'fixed' : 'auto',
   );
+  const readyChars = samples.reduce((n, s) => n + s.characters, 0);
+  // A new version starts base-only when the ready writing is too little for a personal one.
+  const startBaseOnly = draft ? draft.baseOnly : readyChars < MIN_PROFILE_CHARS;
   // A draft's access keeps its own timings; the boxes it did not set show the client's or the default.
   const startAccess = draft?.settings.access ?? access;
 
@@ -135,7 +206,15 @@ export const NewVersionForm = ({
     <Form
       schema={createProfileVersionSchema}
       aria-label={draft ? `Edit draft version ${draft.number}` : 'New profile version'}
+      errorSummary
+      // Base-only: the sample boxes and the weight are hidden, so they cannot block the submit.
+      prepare={(values) =>
+        values.baseOnly
+          ? { ...values, sampleIds: undefined, settings: { ...values.settings, baseWeight: 1 } }
+          : values
+      }
       defaultValues={{
+        baseOnly: startBaseOnly,
         sampleIds: draft
           ? draft.samples.map((sample) => sample.id).filter((id) => samples.some((s) => s.id === id))
           : samples.map((sample) => sample.id),
@@ -163,11 +242,13 @@ export const NewVersionForm = ({
         // eslint-disable-next-line @typescript-eslint/no-unused-vars -- left out on purpose
         const { vocabulary, ...settings } = input.settings;
         if (draft) {
-          // An edited draft keeps the word list frozen in it.
+          // An edited draft keeps the word list frozen in it, and stays base-only or personal.
+          // eslint-disable-next-line @typescript-eslint/no-unused-vars -- fixed at creation
+          const { baseOnly, ...changes } = input;
           const saved = await update.mutateAsync({
             versionId: draft.id,
             input: {
-              ...input,
+              ...changes,
               settings: { ...settings, access, vocabulary: draft.settings.vocabulary },
               note: input.note ?? '',
             },
@@ -177,7 +258,12 @@ export const NewVersionForm = ({
         }
         const version = await create.mutateAsync({
           clientId,
-          input: { ...input, settings: { ...settings, access }, note: input.note || undefined },
+          input: {
+            ...input,
+            baseOnly: input.baseOnly || undefined,
+            settings: { ...settings, access },
+            note: input.note || undefined,
+          },
         });
         try {
           onStarted?.(await train.mutateAsync(version.id), null);
@@ -190,103 +276,122 @@ export const NewVersionForm = ({
       {({ register, formState, setValue, watch }) => {
         const errors = formState.errors;
         const method = watch('settings.access.method') as AccessMethod;
+        const baseOnly = watch('baseOnly') === true;
         return (
           <div className="flex flex-col gap-8">
             <FormServerError message={errors.root?.server?.message} />
 
-            <fieldset className="flex flex-col gap-3" aria-describedby="samples-hint samples-amount">
-              <legend className="mb-1 text-xl font-bold">Writing samples to learn from</legend>
-              <p id="samples-hint" className="text-ink-soft">
-                Every ready sample is included; untick any to leave out of this version. The chosen set is
-                frozen with the version.
-              </p>
-              {errors.sampleIds?.message && (
-                <FieldError id="samples-error">{errors.sampleIds.message}</FieldError>
-              )}
-              <ChosenAmount samples={samples} chosen={(watch('sampleIds') ?? []) as string[]} />
-              {samples.map((sample) => {
-                // Kept as an array by hand: a lone registered checkbox would give a string, not a list.
-                const chosen = (watch('sampleIds') ?? []) as string[];
-                return (
-                  <SampleCheckbox
-                    key={sample.id}
-                    sample={sample}
-                    checked={chosen.includes(sample.id)}
-                    onChange={(checked) =>
-                      setValue(
-                        'sampleIds',
-                        checked ? [...chosen, sample.id] : chosen.filter((id) => id !== sample.id),
-                        { shouldValidate: formState.isSubmitted },
-                      )
-                    }
-                  />
-                );
-              })}
-            </fieldset>
+            {draft ? (
+              draft.baseOnly && <BaseOnlyNote />
+            ) : (
+              <SourceChoice
+                baseOnly={baseOnly}
+                readyChars={readyChars}
+                onChange={(next) => setValue('baseOnly', next)}
+              />
+            )}
+
+            {!baseOnly && (
+              <fieldset className="flex flex-col gap-3" aria-describedby="samples-hint samples-amount">
+                <legend className="mb-1 text-xl font-bold">Writing samples to learn from</legend>
+                <p id="samples-hint" className="text-ink-soft">
+                  Every ready sample is included; untick any to leave out of this version. The chosen set is
+                  frozen with the version.
+                </p>
+                {errors.sampleIds?.message && (
+                  <FieldError id="samples-error">{errors.sampleIds.message}</FieldError>
+                )}
+                <ChosenAmount samples={samples} chosen={(watch('sampleIds') ?? []) as string[]} />
+                {samples.map((sample) => {
+                  // Kept as an array by hand: a lone registered checkbox would give a string, not a list.
+                  const chosen = (watch('sampleIds') ?? []) as string[];
+                  return (
+                    <SampleCheckbox
+                      key={sample.id}
+                      sample={sample}
+                      checked={chosen.includes(sample.id)}
+                      onChange={(checked) =>
+                        setValue(
+                          'sampleIds',
+                          checked ? [...chosen, sample.id] : chosen.filter((id) => id !== sample.id),
+                          { shouldValidate: formState.isSubmitted },
+                        )
+                      }
+                    />
+                  );
+                })}
+              </fieldset>
+            )}
 
             <fieldset className="grid gap-5 md:grid-cols-2">
               <legend className="mb-3 text-xl font-bold">Model</legend>
-              <TextField
-                label="Context order"
-                type="number"
-                inputMode="numeric"
-                hint="How many letters back the model looks, 1 to 12 (5 suits most writing)."
-                registration={register('settings.order', { setValueAs: optionalNumber })}
-                error={messageOf(errors.settings?.order)}
-              />
-              <SelectField
-                label="Escape method"
-                options={escapeMethods.map((letter) => ({ value: letter, label: `Method ${letter}` }))}
-                hint={
-                  escapeExplanations[(watch('settings.escape') ?? 'C') as keyof typeof escapeExplanations]
-                }
-                registration={register('settings.escape')}
-                error={errors.settings?.escape}
-              />
-              <CheckboxField
-                label="Exclusion"
-                hint="When falling back to a shorter context, skip letters the longer one already offered."
-                registration={register('settings.exclusion')}
-              />
+              {!baseOnly && (
+                <>
+                  <TextField
+                    label="Context order"
+                    type="number"
+                    inputMode="numeric"
+                    hint="How many letters back the model looks, 1 to 12 (5 suits most writing)."
+                    registration={register('settings.order', { setValueAs: optionalNumber })}
+                    error={messageOf(errors.settings?.order)}
+                  />
+                  <SelectField
+                    label="Escape method"
+                    options={escapeMethods.map((letter) => ({ value: letter, label: `Method ${letter}` }))}
+                    hint={
+                      escapeExplanations[(watch('settings.escape') ?? 'C') as keyof typeof escapeExplanations]
+                    }
+                    registration={register('settings.escape')}
+                    error={errors.settings?.escape}
+                  />
+                  <CheckboxField
+                    label="Exclusion"
+                    hint="When falling back to a shorter context, skip letters the longer one already offered."
+                    registration={register('settings.exclusion')}
+                  />
+                </>
+              )}
               <CheckboxField
                 label="Ignore capitals"
                 hint="Learn and suggest in lower case only; the client types capitals themselves."
                 registration={register('settings.caseFold')}
               />
-              <fieldset className="flex flex-col gap-2 md:col-span-2">
-                <legend className="font-bold">Weight of the general English model</legend>
-                <p className="text-ink-soft">
-                  How much the suggestions lean on ordinary English rather than the client’s own writing.
-                </p>
-                <div className="flex flex-wrap gap-6">
-                  {(['auto', 'fixed'] as const).map((mode) => (
-                    <label key={mode} className="flex min-h-11 items-center gap-2">
-                      <input
-                        type="radio"
-                        name="base-weight-mode"
-                        className="size-5 accent-ink"
-                        checked={weightMode === mode}
-                        onChange={() => {
-                          setWeightMode(mode);
-                          setValue('settings.baseWeight', mode === 'auto' ? 'auto' : 0.5);
-                        }}
-                      />
-                      {mode === 'auto' ? 'Automatic (tuned on held-out text)' : 'A fixed value'}
-                    </label>
-                  ))}
-                </div>
-                {weightMode === 'fixed' && (
-                  <TextField
-                    label="Weight, 0 to 1"
-                    type="number"
-                    step="0.05"
-                    hint="0 uses the client’s writing alone; 1 uses general English alone."
-                    registration={register('settings.baseWeight', { setValueAs: requiredNumber })}
-                    error={messageOf(errors.settings?.baseWeight)}
-                    className="max-w-xs"
-                  />
-                )}
-              </fieldset>
+              {!baseOnly && (
+                <fieldset className="flex flex-col gap-2 md:col-span-2">
+                  <legend className="font-bold">Weight of the general English model</legend>
+                  <p className="text-ink-soft">
+                    How much the suggestions lean on ordinary English rather than the client’s own writing.
+                  </p>
+                  <div className="flex flex-wrap gap-6">
+                    {(['auto', 'fixed'] as const).map((mode) => (
+                      <label key={mode} className="flex min-h-11 items-center gap-2">
+                        <input
+                          type="radio"
+                          name="base-weight-mode"
+                          className="size-5 accent-ink"
+                          checked={weightMode === mode}
+                          onChange={() => {
+                            setWeightMode(mode);
+                            setValue('settings.baseWeight', mode === 'auto' ? 'auto' : 0.5);
+                          }}
+                        />
+                        {mode === 'auto' ? 'Automatic (tuned on held-out text)' : 'A fixed value'}
+                      </label>
+                    ))}
+                  </div>
+                  {weightMode === 'fixed' && (
+                    <TextField
+                      label="Weight, 0 to 1"
+                      type="number"
+                      step="0.05"
+                      hint="0 uses the client’s writing alone; 1 uses general English alone."
+                      registration={register('settings.baseWeight', { setValueAs: requiredNumber })}
+                      error={messageOf(errors.settings?.baseWeight)}
+                      className="max-w-xs"
+                    />
+                  )}
+                </fieldset>
+              )}
             </fieldset>
 
             <fieldset className="grid gap-5 md:grid-cols-2">

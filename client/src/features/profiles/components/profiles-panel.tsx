@@ -19,7 +19,11 @@ import {
 import { profileComparePath, profileVersionPath } from '@/config/paths';
 import { formatDateTime } from '@/lib/format';
 import { useProfileVersions } from '../api/get-profile-versions';
+import { BaseOnlyBadge } from './base-only-badge';
 import { type AccessDefaults, NewVersionForm, type TrainableSample } from './new-version-form';
+
+// A base-only version has no writing of the client's held out to measure it on.
+const NOT_MEASURED = 'Not measured (trial only)';
 import { ProfileStatusBadge } from './profile-status-badge';
 import { atSlots, fixed, percent, readReport } from '../lib/profile-report';
 
@@ -62,15 +66,26 @@ const VersionRow = ({
         <Link to={profileVersionPath(clientId, version.id)} className="font-bold underline">
           Version {version.number}
         </Link>
+        {version.baseOnly && (
+          <span className="mt-1 block">
+            <BaseOnlyBadge />
+          </span>
+        )}
         {version.note && <span className="block font-normal text-ink-soft">{version.note}</span>}
       </RowHeader>
       <TableCell label="Status">
         <ProfileStatusBadge status={version.status} />
       </TableCell>
       <TableCell label="Created">{formatDateTime(version.createdAt)}</TableCell>
-      <TableCell label="Bits per character">{report ? fixed(report.bpcIdeal, 3) : '—'}</TableCell>
+      <TableCell label="Bits per character">
+        {report ? fixed(report.bpcIdeal, 3) : version.baseOnly ? NOT_MEASURED : '—'}
+      </TableCell>
       <TableCell label="Keystroke savings">
-        {report ? `${percent(atSlots(report.keystrokeSavings, slots))} at ${slots} slots` : '—'}
+        {report
+          ? `${percent(atSlots(report.keystrokeSavings, slots))} at ${slots} slots`
+          : version.baseOnly
+            ? NOT_MEASURED
+            : '—'}
       </TableCell>
     </TableRow>
   );
@@ -121,8 +136,14 @@ export const ProfilesPanel = ({
             ref={versions.data?.length === 0 ? (node) => void (listStart.current = node) : undefined}
             variant="primary"
             className="self-start"
-            disabled={!trainingConsent || samples.length === 0}
-            aria-describedby={!trainingConsent || samples.length === 0 ? 'new-version-blocked' : undefined}
+            disabled={!trainingConsent}
+            aria-describedby={
+              !trainingConsent
+                ? 'new-version-blocked'
+                : samples.length === 0
+                  ? 'new-version-base-only'
+                  : undefined
+            }
             onClick={() => setCreating(true)}
           >
             New version
@@ -131,7 +152,10 @@ export const ProfilesPanel = ({
             <p id="new-version-blocked">{pseudonym} has no active consent for model training.</p>
           )}
           {trainingConsent && samples.length === 0 && (
-            <p id="new-version-blocked">No sample is ready yet: review the writing samples first.</p>
+            <p id="new-version-base-only">
+              No sample is ready yet, so a new version can only use general English (base-only). Review the
+              writing samples for a personal version.
+            </p>
           )}
         </div>
       )}

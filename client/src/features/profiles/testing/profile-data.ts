@@ -100,6 +100,7 @@ export const profileVersion = (overrides: Partial<ProfileVersion> = {}): Profile
   samples: [
     { id: SAMPLE_ID, title: 'Messages to the sailing club', sha256: 'a'.repeat(64), characters: 24_180 },
   ],
+  baseOnly: false,
   metrics: reportFixture(),
   modelBytes: 81_920,
   createdBy: 'Dr. Tomasz Reyes',
