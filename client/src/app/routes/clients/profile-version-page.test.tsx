@@ -296,7 +296,7 @@ describe('Profile version page', () => {
         screen.getByRole('heading', { level: 1, name: 'Version 1 of R. Ashby’s profile' }),
       ).toHaveFocus(),
     );
-  });
+  }, 15_000); // typing in a dialog: slow on a shared test machine
 
   it('offers a carer nothing on a version that is already signed off', async () => {
     await openVersion('carer', profileVersion({ status: 'signed_off' }));
