@@ -157,9 +157,7 @@ describe('users (HTTP, admin only)', () => {
         .send({ email: user.email, password: FACTORY_PASSWORD })
         .expect(401);
       await signIn(t.http, { ...user, password: newPassword });
-      const events = await t.dataSource
-        .getRepository(AuditEvent)
-        .findBy({ subjectId: user.id, action: 'user.update' });
+      const events = await t.dataSource.getRepository(AuditEvent).findBy({ subjectId: user.id, action: 'user.update' });
       expect(JSON.stringify(events)).not.toContain(newPassword);
       expect(events.some((event) => JSON.stringify(event.details).includes('password'))).toBe(true);
     });
