@@ -110,6 +110,7 @@ describe('clinic settings (HTTP)', () => {
       website: 'https://larchfield.example/speech',
     });
 
+    expect(again.updatedAt).not.toBe(saved.updatedAt);
     const events = await auditEvents();
     expect(events).toHaveLength(2);
     expect(events[0].actorId).toBe(admin.id);

@@ -53,7 +53,14 @@ export class ClinicSettingsService {
         if (from !== input[field]) changes[field] = { from, to: input[field] };
       }
       if (before && Object.keys(changes).length === 0) return this.get(manager);
-      await repo.upsert({ id: 1, ...pick(input), updatedById: actor.id }, ['id']);
+      await manager.query(
+        `INSERT INTO clinic_settings (id, name, phone, address, email, website, updated_by_id)
+         VALUES (1, $1, $2, $3, $4, $5, $6)
+         ON CONFLICT (id) DO UPDATE SET name = EXCLUDED.name, phone = EXCLUDED.phone,
+           address = EXCLUDED.address, email = EXCLUDED.email, website = EXCLUDED.website,
+           updated_by_id = EXCLUDED.updated_by_id, updated_at = now()`,
+        [...FIELDS.map((field) => input[field]), actor.id],
+      );
       await this.audit.record(
         actor,
         'clinic-settings.update',
@@ -65,11 +72,3 @@ export class ClinicSettingsService {
     });
   }
 }
-
-const pick = (input: ClinicSettingsChanges): Pick<ClinicSettingsRow, Field> => ({
-  name: input.name,
-  phone: input.phone,
-  address: input.address,
-  email: input.email,
-  website: input.website,
-});

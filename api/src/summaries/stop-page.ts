@@ -42,6 +42,7 @@ const styles = (fonts: WebAppFonts) =>
   `h1{font-size:1.75rem;line-height:1.25;margin:0.5rem 0 1rem}` +
   `h2{font-size:1.2rem;margin:1.5rem 0 0.5rem}` +
   `.card{background:#fff;border:1px solid #d9d0bd;border-radius:0.75rem;padding:1.25rem}` +
+  `.card>:first-child{margin-top:0}.card>:last-child{margin-bottom:0}` +
   `button{font:inherit;font-weight:700;font-size:1.1rem;color:#1d2b4f;background:#f5b335;` +
   `border:2px solid #1d2b4f;border-radius:0.5rem;min-height:3.25rem;width:100%;padding:0.75rem 1.25rem;` +
   `cursor:pointer;margin-top:0.5rem}` +

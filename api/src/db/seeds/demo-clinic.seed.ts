@@ -3,7 +3,7 @@ import { ClinicSettingsRow } from '../../clinic/clinic-settings.entity';
 import type { SeedStep } from './seed-step';
 
 // The demo clinic's details, invented. 01632 960xxx is in the UK range Ofcom keeps for drama
-// (numbers that reach nobody); the street, town and postcode are made up.
+// (numbers that reach nobody; docs/references.md §6); the street, town and postcode are made up.
 export const DEMO_CLINIC = {
   name: 'Willowmere Community Communication Clinic',
   phone: '01632 960 418',
