@@ -12,10 +12,11 @@ export const CLINIC_WEBSITE_MAX = 200;
 
 /**
  * A phone number as people write it: digits with spaces, brackets, hyphens or dots between them, an
- * optional leading "+", 7–15 digits (ITU-T E.164 allows at most 15 digits, docs/references.md §6;
- * fewer than 7 is no number a family could call: common practice, no source, like the separators).
+ * optional leading "+" or bracket, 7–15 digits (ITU-T E.164 allows at most 15 digits,
+ * docs/references.md §6; fewer than 7 is no number a family could call: common practice, no source,
+ * like the separators).
  */
-export const PHONE_PATTERN = /^\+?[0-9](?:[0-9 ().-]*[0-9])?$/;
+export const PHONE_PATTERN = /^\+?\(?[0-9](?:[0-9 ().-]*[0-9])?$/;
 export const PHONE_MESSAGE = 'Enter a phone number of digits, spaces and brackets, e.g. 01632 960 418.';
 const digitCount = (text: string) => text.replace(/\D/g, '').length;
 
