@@ -139,6 +139,7 @@ describe('summary e-mail delivery (mail job)', () => {
       subject: summarySubject(period),
       text: summaryText({ ...period, clinicName: 'Willowmere', versions: FIGURES, note: '' }),
       figures: FIGURES,
+      state: 'sent',
       createdById: null,
     });
     return t.dataSource.getRepository(SummaryRecipient).save({
@@ -167,7 +168,7 @@ describe('summary e-mail delivery (mail job)', () => {
     const mails = await inboxFor(row.email);
     expect(mails).toHaveLength(1);
     const mail = mails[0];
-    expect(mail.subject).toBe('Progress summary for R. Ashby, 2026-10-01 to 2026-11-30');
+    expect(mail.subject).toBe('Progress summary for R. Ashby, 1 October to 30 November 2026');
     // The figures in the text are the stored ones, in words.
     expect(mail.text).toContain('about 3 in 10 key presses saved');
     expect(mail.text).toContain('about 4 in 10 key presses saved, roughly 3 words a minute with suggestions');
@@ -346,6 +347,18 @@ describe('summary e-mail delivery (mail job)', () => {
       note: 'Well done.',
     });
 
+    /** A draft to the contacts, then sent as it stands: the summary as sent. */
+    async function draftAndSend(contactIds: string[], extra: object = {}): Promise<SummaryDto> {
+      const draft = (
+        await send(t.http, cast.owner, 'post', `/api/clients/${httpClientId}/summaries`, {
+          ...body(contactIds),
+          ...extra,
+        }).expect(201)
+      ).body as SummaryDto;
+      return (await send(t.http, cast.owner, 'post', `/api/summaries/${draft.id}/send`).expect(200))
+        .body as SummaryDto;
+    }
+
     it('refuses a contact without consent to summaries (400) and a carer (403)', async () => {
       const res = await send(
         t.http,
@@ -364,8 +377,8 @@ describe('summary e-mail delivery (mail job)', () => {
       ).expect(403);
     });
 
-    it('stores and queues a summary, delivers it, then honours the stop link', async () => {
-      const created = (
+    it('drafts a summary, edits it, sends the edited text verbatim, delivers it, then honours the stop link', async () => {
+      const draft = (
         await send(
           t.http,
           cast.owner,
@@ -374,10 +387,58 @@ describe('summary e-mail delivery (mail job)', () => {
           body([consenting]),
         ).expect(201)
       ).body as SummaryDto;
+      // A draft: nothing queued, the generated text to edit.
+      expect([draft.status, draft.recipients, draft.contactIds, draft.textEdited]).toEqual([
+        'draft',
+        [],
+        [consenting],
+        false,
+      ]);
+      expect(draft.subject).toBe('Progress summary for R. Ashby, 1 October to 30 November 2026');
+      expect(draft.text).toContain(
+        'Version 1 (approved, in use, 3 November 2026): about 4 in 10 key presses saved',
+      );
+      expect(draft.text).toContain('Well done.');
+      expect(await t.dataSource.getRepository(SummaryRecipient).countBy({ summaryId: draft.id })).toBe(0);
+      // The clinician's own words replace the text; the subject too.
+      const edited = `Dear Hannah,\n\nRory used the new suggestions all month.\n\n${draft.text}`;
+      const patched = (
+        await send(t.http, cast.owner, 'patch', `/api/summaries/${draft.id}`, {
+          text: edited,
+          subject: 'Rory’s typing in October and November',
+        }).expect(200)
+      ).body as SummaryDto;
+      expect([patched.status, patched.text, patched.textEdited]).toEqual(['draft', edited, true]);
+      // Fields left out keep what the draft holds: the approved version stays in it.
+      expect(draft.versionIds).toEqual([versionId]);
+      expect(patched.versionIds).toEqual([versionId]);
+      // Only the owning clinician edits; a carer, a supervisor and nobody are refused.
+      await send(t.http, cast.supervisor, 'patch', `/api/summaries/${draft.id}`, { text: 'x' }).expect(403);
+      await send(t.http, cast.assignedCarer, 'patch', `/api/summaries/${draft.id}`, { text: 'x' }).expect(
+        403,
+      );
+      await send(t.http, cast.otherClinician, 'patch', `/api/summaries/${draft.id}`, { text: 'x' }).expect(
+        404,
+      );
+      await send(t.http, cast.anonymous, 'patch', `/api/summaries/${draft.id}`, { text: 'x' }).expect(401);
+      await send(t.http, cast.owner, 'patch', `/api/summaries/${draft.id}`, { text: '' }).expect(400);
+      // The e-mail as the family will get it, HTML and plain text.
+      const message = (
+        await send(t.http, cast.owner, 'get', `/api/summaries/${draft.id}/message`).expect(200)
+      ).body as { html: string; text: string; subject: string; headers: Record<string, string> };
+      expect(message.text).toContain('Rory used the new suggestions all month.');
+      expect(message.html).toContain('<title>Rory’s typing in October and November</title>');
+      expect(message.headers['List-Unsubscribe-Post']).toBe('List-Unsubscribe=One-Click');
+
+      const created = (await send(t.http, cast.owner, 'post', `/api/summaries/${draft.id}/send`).expect(200))
+        .body as SummaryDto;
       expect(created.status).toBe('sending');
-      expect(created.text).toContain('Version 1 (active 2026-11-03): about 4 in 10 key presses saved');
-      expect(created.text).toContain('Well done.');
+      expect(created.text).toBe(edited);
       expect(created.recipients.map((r) => [r.status, r.round])).toEqual([['queued', 1]]);
+      // Sent: it never changes, and is not sent twice by this route.
+      await send(t.http, cast.owner, 'post', `/api/summaries/${draft.id}/send`).expect(409);
+      await send(t.http, cast.owner, 'patch', `/api/summaries/${draft.id}`, { text: 'x' }).expect(409);
+      await send(t.http, cast.owner, 'delete', `/api/summaries/${draft.id}`).expect(409);
       const [row] = await t.dataSource.getRepository(SummaryRecipient).findBy({ summaryId: created.id });
       // The job is on the pg-boss queue under the id stored with the row.
       expect((await boss.getJobById(SUMMARY_MAIL_QUEUE, row.jobId ?? ''))?.data).toEqual({
@@ -395,7 +456,16 @@ describe('summary e-mail delivery (mail job)', () => {
         false,
       ]);
       const [mail] = await inboxFor(row.email);
-      expect(mail.text).toContain('about 4 in 10 key presses saved');
+      // The edited text, verbatim, in the message the fake server received.
+      expect(mail.text).toContain(edited);
+      expect(mail.subject).toBe('Rory’s typing in October and November');
+      expect(mail.html).toContain('Rory used the new suggestions all month.');
+      // RFC 8058 / RFC 2369: the one-click stop headers beside the link, in the message as received.
+      const source = await (await fetch(`${mailApi()}/${mail.id}/source`)).text();
+      expect(source).toMatch(/^List-Unsubscribe-Post: List-Unsubscribe=One-Click\r?$/m);
+      expect(source).toMatch(
+        new RegExp(`^List-Unsubscribe:\\s*<[^>]*/api/summaries/stop/${row.stopToken}>`, 'm'),
+      );
 
       // The stop link, without a session. Opening it (as a mail scanner would) changes nothing.
       const stopPath = `/api/summaries/stop/${row.stopToken}`;
@@ -503,6 +573,53 @@ describe('summary e-mail delivery (mail job)', () => {
       expect(unknown).toContain('contact the clinic on <a href="tel:01632960731">01632 960 731</a>.');
     });
 
+    it('leaves a sent-back version out by default; chosen, it is labelled as not approved; comments only when ticked', async () => {
+      // A version the supervisor sent back, inside the period, with the supervisor's reason and a
+      // carer's sign-off comment (invented values).
+      const sentBack = await t.dataSource.getRepository(ProfileVersion).save({
+        clientId: httpClientId,
+        number: 2,
+        status: 'sent_back',
+        settings: {
+          order: 5,
+          escape: 'C',
+          exclusion: true,
+          baseWeight: 'auto',
+          slots: 5,
+          caseFold: false,
+          access: { method: 'switch' },
+        },
+        samples: [],
+        metrics: { keystrokeSavings: { '5': 0.3 }, rates: { wpmWithout: 1.9, wpmWith: 65 } },
+        trainedAt: new Date('2026-11-10T10:00:00Z'),
+        signedOffById: cast.assignedCarer.id,
+        signOffComment: 'odd half-words like harb and pian',
+        sentBackReason: 'Too many half-words.',
+        history: [],
+      });
+      const period = { from: '2026-10-01', to: '2026-11-30', note: '' };
+      const byDefault = (
+        await send(
+          t.http,
+          cast.owner,
+          'post',
+          `/api/clients/${httpClientId}/summaries/preview`,
+          period,
+        ).expect(200)
+      ).body as SummaryPreview;
+      expect(byDefault.versionIds).toEqual([versionId]);
+      expect(byDefault.text).not.toContain('Version 2');
+      const chosen = (
+        await send(t.http, cast.owner, 'post', `/api/clients/${httpClientId}/summaries/preview`, {
+          ...period,
+          versionIds: [versionId, sentBack.id],
+        }).expect(200)
+      ).body as SummaryPreview;
+      expect(chosen.text).toContain('Version 2 (not approved: sent back for changes, 10 November 2026)');
+      expect(chosen.text).not.toContain('half-words');
+      await t.dataSource.getRepository(ProfileVersion).delete({ id: sentBack.id });
+    });
+
     it('refuses to send without a client consent that covers summaries (409)', async () => {
       const other = (await newClient(t.http, cast.owner, undefined, 'T. Fairweather')).id;
       const res = await send(t.http, cast.owner, 'post', `/api/clients/${other}/contacts`, {
@@ -527,15 +644,7 @@ describe('summary e-mail delivery (mail job)', () => {
         email: `pat-${randomBytes(4).toString('hex')}@family.example`,
         consentToSummaries: true,
       }).expect(201);
-      const created = (
-        await send(
-          t.http,
-          cast.owner,
-          'post',
-          `/api/clients/${httpClientId}/summaries`,
-          body([(res.body as { id: string }).id]),
-        ).expect(201)
-      ).body as SummaryDto;
+      const created = await draftAndSend([(res.body as { id: string }).id]);
       const sender = createSmtpSender({
         host: '127.0.0.1',
         port: Number(process.env.SMTP_PORT ?? 1025),
@@ -585,7 +694,9 @@ describe('summary e-mail delivery (mail job)', () => {
           note: 'Draft note.',
         }).expect(200)
       ).body as SummaryPreview;
-      expect(preview.text).toContain('Version 1 (active 2026-11-03): about 4 in 10 key presses saved');
+      expect(preview.text).toContain(
+        'Version 1 (approved, in use, 3 November 2026): about 4 in 10 key presses saved',
+      );
       expect(preview.text).toContain('Draft note.');
       expect(preview.charts.map((c) => c.name)).toEqual(['keystroke-savings.png', 'typing-speed.png']);
       expect(preview.charts[0].alt).toContain('version 1: 42%');
@@ -617,10 +728,11 @@ describe('summary e-mail delivery (mail job)', () => {
                    '{}', '[]', $5, '{}')`,
           [randomUUID(), versionId, httpClientId, finishedAt, JSON.stringify(measures)],
         );
-      await trial('2026-11-10T10:00:00Z', { keystrokeSavings: 0.25, wpm: 1.8 });
-      await trial('2026-11-12T10:00:00Z', { keystrokeSavings: 0.35, wpm: 2.2 });
-      await trial('2026-11-13T10:00:00Z', { keystrokeSavings: null, wpm: null }); // too short to measure
-      await trial('2026-12-05T10:00:00Z', { keystrokeSavings: 0.9, wpm: 9 }); // after the period
+      await trial('2026-11-10T10:00:00Z', { characters: 120, keystrokeSavings: 0.25, wpm: 1.8 });
+      await trial('2026-11-12T10:00:00Z', { characters: 90, keystrokeSavings: 0.35, wpm: 2.2 });
+      await trial('2026-11-13T10:00:00Z', { characters: 40, keystrokeSavings: null, wpm: null }); // no time
+      await trial('2026-11-14T10:00:00Z', { characters: 6, keystrokeSavings: 0.9, wpm: 30 }); // too short
+      await trial('2026-12-05T10:00:00Z', { characters: 200, keystrokeSavings: 0.9, wpm: 9 }); // after the period
       // The carer's sign-off comment is quoted after the trials (the user named by the cast's label).
       await t.dataSource.query(
         `UPDATE profile_versions SET signed_off_by_id = $2, sign_off_comment = $3 WHERE id = $1`,
@@ -636,11 +748,20 @@ describe('summary e-mail delivery (mail job)', () => {
           period,
         ).expect(200)
       ).body as SummaryPreview;
-      // Means over the measured trials in the period: (0.25 + 0.35) / 2 = 0.30, (1.8 + 2.2) / 2 = 2.0 (derived).
+      // Means over the measured trials in the period: (0.25 + 0.35) / 2 = 0.30, (1.8 + 2.2) / 2 = 2.0
+      // (derived); the 6-character trial is left out.
       expect(preview.text).toContain(
-        'In 3 tries on the test keyboard, about 3 in 10 key presses were saved, at roughly 2 words a minute. ' +
-          'assigned carer tried it and wrote: “He liked the sailing words.”',
+        'In 3 tries on the test keyboard, about 3 in 10 key presses were saved, at roughly 2 words a minute.',
       );
+      // A staff comment is never quoted unless ticked.
+      expect(preview.text).not.toContain('sailing words');
+      const ticked = (
+        await send(t.http, cast.owner, 'post', `/api/clients/${httpClientId}/summaries/preview`, {
+          ...period,
+          includeComments: [{ versionId, kind: 'sign-off' }],
+        }).expect(200)
+      ).body as SummaryPreview;
+      expect(ticked.text).toContain('assigned carer tried it and wrote: “He liked the sailing words.”');
       const contact = (
         await send(t.http, cast.owner, 'post', `/api/clients/${httpClientId}/contacts`, {
           name: 'Rosa',
@@ -656,6 +777,19 @@ describe('summary e-mail delivery (mail job)', () => {
         }).expect(201)
       ).body as SummaryDto;
       expect(created.text).toBe(preview.text);
+      expect(created.notes).toEqual([
+        'Version 1: 1 trial shorter than 20 characters was left out of the trial figures (too short to measure).',
+      ]);
+      expect(created.availableComments).toEqual([
+        expect.objectContaining({ versionId, kind: 'sign-off', text: 'He liked the sailing words.' }),
+      ]);
+      // Ticking the comment on the draft writes the generated text again (it was not edited).
+      const withComment = (
+        await send(t.http, cast.owner, 'patch', `/api/summaries/${created.id}`, {
+          includeComments: [{ versionId, kind: 'sign-off' }],
+        }).expect(200)
+      ).body as SummaryDto;
+      expect(withComment.text).toBe(ticked.text);
       const stored = await t.dataSource.getRepository(Summary).findOneByOrFail({ id: created.id });
       const tried = stored.figures[0]?.trials;
       expect(tried?.count).toBe(3);
@@ -686,12 +820,17 @@ describe('summary e-mail delivery (mail job)', () => {
         return rows.map((r) => r.round).sort((a, b) => a - b);
       }
 
-      /** POST a summary to one contact as the owner, with an Idempotency-Key when given. */
+      /** POST a draft summary to one contact as the owner, with an Idempotency-Key when given. */
       const sendSummary = (contactId: string, key?: string, extra: object = {}) => {
         const req = send(t.http, cast.owner, 'post', `/api/clients/${httpClientId}/summaries`, {
           ...body([contactId]),
           ...extra,
         });
+        return key === undefined ? req : req.set('Idempotency-Key', key);
+      };
+      /** POST …/send for a draft, with an Idempotency-Key when given. */
+      const sendDraft = (id: string, key?: string) => {
+        const req = send(t.http, cast.owner, 'post', `/api/summaries/${id}/send`);
         return key === undefined ? req : req.set('Idempotency-Key', key);
       };
 
@@ -718,8 +857,17 @@ describe('summary e-mail delivery (mail job)', () => {
           expect((r.body as { message: string }).message).toMatch(/still being processed/);
         }
         expect(await t.dataSource.getRepository(Summary).countBy({ id: summaryId })).toBe(1);
+        expect(await deliverQueued(contact.id)).toEqual([]);
+        // 20 sends of the draft at once with one key: one round, one e-mail; the rest 409 or the result.
+        const sendKey = `"${randomUUID()}"`;
+        const sends = await Promise.all(Array.from({ length: 20 }, () => sendDraft(summaryId, sendKey)));
+        const sendCounts = statusCounts(sends.map((r) => r.status));
+        expect(Object.keys(sendCounts).every((code) => code === '200' || code === '409')).toBe(true);
+        expect(sendCounts[200]).toBeGreaterThanOrEqual(1);
         expect(await deliverQueued(contact.id)).toEqual([1]);
         expect(await inboxFor(contact.email)).toHaveLength(1);
+        // Without a key, a second send of a sent summary: 409, nothing sent.
+        await sendDraft(summaryId).expect(409);
 
         // A retry after the first finished: the first result (201, same summary), nothing sent again.
         const again = await sendSummary(contact.id, key).expect(201);
@@ -746,7 +894,7 @@ describe('summary e-mail delivery (mail job)', () => {
 
       it('adds one round for 20 resends at once and answers the others 409, never 500', async () => {
         const contact = await newContact('Omar');
-        const created = (await sendSummary(contact.id).expect(201)).body as SummaryDto;
+        const created = await draftAndSend([contact.id]);
         expect(await deliverQueued(contact.id)).toEqual([1]);
         const resendPath = `/api/summaries/${created.id}/resend`;
         const responses = await Promise.all(

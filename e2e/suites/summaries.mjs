@@ -1,10 +1,13 @@
 // Family updates: the demo clinician composes a progress summary for the demo client with
-// the keyboard, previews it (text and the two chart images with their alt text), sends it; the
-// worker delivers it through SMTP to the fake mail server, whose API shows one message for the
-// consenting contact and none for the contact who never agreed. Then the family member's stop link:
-// opening it changes nothing, its button stops the summaries, and the clinician sees that. Before
-// all that, the admin sets the clinic's phone on the clinic details page, and the stop page (390 px
-// wide, the app's font, a large button) names the clinic, that number and the client's preferred name.
+// the keyboard, previews the figures (text and the two chart images with their alt text), writes
+// the draft, edits its text, previews the e-mail as the family gets it and sends it; the worker
+// delivers it through SMTP to the fake mail server, whose API shows one message for the consenting
+// contact and none for the contact who never agreed. The received HTML is opened at a phone's width
+// (390 px): no sideways scroll, axe clean. Then the family member's stop link: opening it changes
+// nothing, its button stops the summaries, and the clinician sees that.
+// Before all that, the admin sets the clinic's phone on the clinic details page, and the stop page
+// (390 px wide, the app's font, a large button) names the clinic, that number and the client's
+// preferred name.
 // Axe scan (no serious or critical violations) on the way; screenshots in e2e/out.
 import assert from 'node:assert/strict';
 import { openClientTabAsClinician, signIn, signOut } from './accounts.mjs';
@@ -16,6 +19,7 @@ const DEMO_CLIENT = 'R. Ashby';
 const CONSENTING = { name: 'Hannah Ashby', email: 'hannah.ashby@family.example' };
 const NOT_CONSENTING = { name: 'Marguerite Ashby', email: 'marguerite.ashby@family.example' };
 const NOTE = 'Pepper the dog now gets a mention in every message Robin writes.';
+const GREETING = 'Dear Hannah, here is how the typing went this month.';
 // The demo clinic and the client's preferred name (api/src/db/seeds/demo-clinic.seed.ts and
 // demo-client.seed.ts); the admin step sets another invented number (01632 960xxx: Ofcom's drama range).
 const CLINIC = 'Willowmere Community Communication Clinic';
@@ -28,7 +32,7 @@ async function inbox() {
   assert.ok(url, 'MAIL_API_URL names the fake mail server API (npm test sets it)');
   const res = await fetch(url);
   assert.equal(res.status, 200, 'the fake mail server answers');
-  return /** @type {{subject: string, text: string, to: {address: string}[], attachments?: {contentType: string}[]}[]} */ (
+  return /** @type {{id: string, subject: string, text: string, html: string, to: {address: string}[], attachments?: {contentType: string, contentId?: string, generatedFileName: string}[]}[]} */ (
     await res.json()
   );
 }
@@ -86,6 +90,7 @@ export const summariesSuite = {
         await form.getByLabel('From').waitFor();
         await form.getByText(/figures are estimates/).waitFor();
         await form.getByText(/link with which the family member can stop/).waitFor();
+        await form.getByText(/You get a draft to edit before anything is sent/).waitFor();
 
         const refused = form.getByRole('checkbox', { name: new RegExp(`^${NOT_CONSENTING.name}`) });
         assert.ok(await refused.isDisabled(), 'a contact without consent cannot be chosen');
@@ -98,7 +103,13 @@ export const summariesSuite = {
         await note.focus();
         await page.keyboard.type(NOTE);
 
-        const previewButton = form.getByRole('button', { name: 'Preview' });
+        // Version 1 is trained, not approved: by default a summary carries only approved versions,
+        // so it is ticked here, and the e-mail says what it is.
+        const version = form.getByRole('checkbox', { name: 'Version 1' });
+        await version.focus();
+        await version.press('Space');
+
+        const previewButton = form.getByRole('button', { name: 'Preview the figures' });
         await previewButton.focus();
         await previewButton.press('Enter');
         const preview = form.getByRole('region', { name: 'Preview' });
@@ -106,7 +117,7 @@ export const summariesSuite = {
         const text = await preview.getByTestId('summary-preview-text').textContent();
         assert.match(
           text ?? '',
-          /Version 1 \([a-z ]+ \d{4}-\d{2}-\d{2}\): about \d+ in 10 key presses saved/,
+          /Version 1 \(not yet approved: still being tried, \d{1,2} [A-Z][a-z]+ \d{4}\): about \d+ in 10 key presses saved/,
         );
         assert.ok(text?.includes(NOTE), 'the note is in the text');
         assert.ok(text?.includes('These figures are estimates'), 'the caution is in the text');
@@ -119,23 +130,65 @@ export const summariesSuite = {
           const alt = (await image.getAttribute('alt')) ?? '';
           assert.match(alt, /version 1: /, `alt text states the figures: ${alt}`);
           const width = await image.evaluate((img) => /** @type {HTMLImageElement} */ (img).naturalWidth);
-          assert.equal(width, 480, 'the PNG decodes in the browser');
+          assert.equal(width, 1200, 'the PNG decodes in the browser, at twice its CSS width');
+          const shown = await image.evaluate((img) => img.getBoundingClientRect().width);
+          assert.ok(shown > 0 && shown <= 600, `shown at most 600 CSS px wide (${shown})`);
         }
         assert.deepEqual(await t.seriousViolations(page, 'summary preview'), []);
         await t.screenshot(page, 'summary-preview');
         // 640 px wide (1280 px at 200 % zoom): the composer and preview reflow without sideways scrolling.
         await page.setViewportSize({ width: 640, height: 800 });
         await assertNoSidewaysScroll(page, 'summary preview at 200%');
+        for (const image of await images.all()) {
+          const box = await image.evaluate((img) => {
+            const r = img.getBoundingClientRect();
+            return { width: r.width, height: r.height };
+          });
+          // Narrower than 600 here, the chart keeps its shape (height follows width).
+          assert.ok(box.width < 600, `the chart shrinks with the window (${box.width})`);
+          assert.ok(
+            box.height / box.width > 0.5 && box.height / box.width < 0.7,
+            'the chart keeps its shape',
+          );
+        }
         await t.screenshot(page, 'summary-preview-640');
         await page.setViewportSize({ width: 1280, height: 860 });
-        const subject = await preview.locator('dd').first().textContent();
 
-        const sendButton = preview.getByRole('button', { name: 'Send to 1 recipient' });
+        // The draft: written, its heading focused, nothing sent yet.
+        const write = form.getByRole('button', { name: 'Write the draft' });
+        await write.focus();
+        await write.press('Enter');
+        const draftHeading = page.getByRole('heading', {
+          name: `Draft summary for ${DEMO_CLIENT}, not sent`,
+        });
+        await draftHeading.waitFor();
+        assert.equal(
+          await draftHeading.evaluate((el) => el === document.activeElement),
+          true,
+          'focus lands on the draft',
+        );
+        const editor = page.getByRole('form', { name: 'Edit the draft summary' });
+        const body = editor.getByLabel('Text of the e-mail');
+        await body.focus();
+        await page.keyboard.press('Control+Home');
+        await page.keyboard.type(`${GREETING}\n\n`);
+        const save = editor.getByRole('button', { name: 'Save and preview' });
+        await save.focus();
+        await save.press('Enter');
+        const frame = page.frameLocator('iframe[title*="as the family sees it"]');
+        await frame.getByText(GREETING).waitFor();
+        assert.deepEqual(await t.seriousViolations(page, 'draft summary with e-mail preview'), []);
+        await t.screenshot(page, 'summary-draft');
+        const subject = await editor.getByLabel('Subject').inputValue();
+
+        const sendButton = editor.getByRole('button', { name: `Send to ${CONSENTING.name}` });
+        // Send is on once the saved draft is what the form holds.
+        for (let i = 0; i < 50 && !(await sendButton.isEnabled()); i++) await sleep(100);
         await sendButton.focus();
         await sendButton.press('Enter');
         await page
           .getByRole('status')
-          .getByText(/The summary is saved and 1 e-mail queued/)
+          .getByText(/The summary was sent: 1 e-mail queued/)
           .waitFor();
 
         // The worker sends it; the list polls until the e-mail shows as sent.
@@ -154,11 +207,32 @@ export const summariesSuite = {
           [CONSENTING.email],
         );
         assert.ok(mail.text.includes(NOTE), 'the e-mail carries the note');
+        assert.ok(mail.text.includes(GREETING), 'the e-mail carries the edited text verbatim');
         assert.equal(
           (mail.attachments ?? []).filter((a) => a.contentType === 'image/png').length,
           2,
           'both charts are attached as images',
         );
+
+        // The received HTML on a phone: 390 px wide, the charts from the message's own attachments.
+        const phone = await t.newPage();
+        await phone.setViewportSize({ width: 390, height: 844 });
+        let html = mail.html;
+        for (const attachment of mail.attachments ?? []) {
+          const res = await fetch(
+            `${process.env.MAIL_API_URL}/${mail.id}/attachment/${attachment.generatedFileName}`,
+          );
+          if (!res.ok || !attachment.contentId) continue;
+          const data = Buffer.from(await res.arrayBuffer()).toString('base64');
+          html = html.replace(`cid:${attachment.contentId}`, `data:image/png;base64,${data}`);
+        }
+        await phone.setContent(html, { waitUntil: 'load' });
+        await assertNoSidewaysScroll(phone, 'the received e-mail at 390 px');
+        assert.equal(await phone.title(), subject, 'the e-mail has a <title>');
+        assert.deepEqual(await t.seriousViolations(phone, 'received e-mail at 390 px'), []);
+        await t.screenshot(phone, 'summary-email-390');
+        await phone.close();
+
         const all = await inbox();
         assert.equal(
           all.filter((m) => m.to.some((to) => to.address === NOT_CONSENTING.email)).length,

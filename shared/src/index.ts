@@ -27,3 +27,4 @@ export * from './keyboard/index';
 export * from './trials/index';
 export * from './workspace/workspace-root';
 export * from './schemas/vocabulary.schema';
+export * from './charts/index';

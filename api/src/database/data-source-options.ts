@@ -25,6 +25,7 @@ import { ContactAddresses1764980000002 } from '../migrations/1764980000002-conta
 import { SampleCorrections1764990000001 } from '../migrations/1764990000001-sample-corrections';
 import { VersionRetire1764991000001 } from '../migrations/1764991000001-version-retire';
 import { BaseOnlyVersions1765000000001 } from '../migrations/1765000000001-base-only-versions';
+import { SummaryDrafts1765000000002 } from '../migrations/1765000000002-summary-drafts';
 import { CreateClinicSettings1765010000001 } from '../migrations/1765010000001-create-clinic-settings';
 import { ClientPreferredName1765010000002 } from '../migrations/1765010000002-client-preferred-name';
 import { ClinicSettingsRow } from '../clinic/clinic-settings.entity';
@@ -85,6 +86,7 @@ export const migrations = [
   SampleCorrections1764990000001,
   VersionRetire1764991000001,
   BaseOnlyVersions1765000000001,
+  SummaryDrafts1765000000002,
   CreateClinicSettings1765010000001,
   ClientPreferredName1765010000002,
 ];

@@ -12,6 +12,7 @@ describe('createSummarySchema', () => {
       versionIds: [],
       contactIds: [contact],
       note: '',
+      includeComments: [],
     });
   });
 

@@ -1,8 +1,21 @@
-import { Body, Controller, Get, Header, HttpCode, Param, ParseUUIDPipe, Post, Res } from '@nestjs/common';
+import {
+  Body,
+  Controller,
+  Delete,
+  Get,
+  Header,
+  HttpCode,
+  Param,
+  ParseUUIDPipe,
+  Patch,
+  Post,
+  Res,
+} from '@nestjs/common';
 import {
   ApiBody,
   ApiCreatedResponse,
   ApiHeader,
+  ApiNoContentResponse,
   ApiOkResponse,
   ApiOperation,
   ApiTags,
@@ -11,11 +24,15 @@ import {
   type CreateSummaryInput,
   createSummarySchema,
   type Summary,
+  type SummaryMessagePreview,
+  summaryMessagePreviewSchema,
   type SummaryPreview,
   type SummaryPreviewRequest,
   summaryPreviewRequestSchema,
   summaryPreviewSchema,
   summarySchema,
+  type UpdateSummaryInput,
+  updateSummarySchema,
 } from '@keyloom/shared';
 import type { Response } from 'express';
 import { z } from 'zod';
@@ -58,12 +75,13 @@ export class SummariesController {
   @Post('clients/:id/summaries')
   @Roles('clinician')
   @ApiOperation({
-    summary: 'Compose, store and queue a progress summary',
+    summary: 'Compose a progress summary as a draft (status draft) with the generated text',
     description:
       'Owning clinician; a client consent covering summaries (409). Empty versionIds: every version ' +
-      'trained or approved in the period. A contact without consent, or who stopped summaries: 400. ' +
-      'Answers at once; the e-mails go out from the worker. With an Idempotency-Key, a repeat answers ' +
-      'the first result and sends nothing (same key, other body: 422; first still running: 409).',
+      'approved in the period (active or retired since); other versions only when chosen. Staff comments ' +
+      'are quoted only when listed in includeComments. A contact without consent, or who stopped ' +
+      'summaries: 400. Nothing is e-mailed until POST /api/summaries/:id/send. With an Idempotency-Key, ' +
+      'a repeat answers the first result (same key, other body: 422; first still running: 409).',
   })
   @ApiHeader(IDEMPOTENCY_HEADER_DOC)
   @ApiBody({ schema: zodSchemaObject(createSummarySchema) })
@@ -164,5 +182,68 @@ export class SummariesController {
     @IdempotencyKeyHeader() key: string | undefined,
   ): Promise<Summary> {
     return this.summaries.resend(actor, id, key);
+  }
+
+  @Patch('summaries/:id')
+  @Roles('clinician')
+  @ApiOperation({
+    summary: 'Edit a draft summary: subject, text, versions, ticked comments, recipients, note',
+    description:
+      'Owning clinician; drafts only (409 once sent). Changing versions, comments or note writes the ' +
+      'generated text again, replacing the draft text only while it was not edited (or with regenerate).',
+  })
+  @ApiBody({ schema: zodSchemaObject(updateSummarySchema) })
+  @ApiOkResponse({ schema: zodSchemaObject(summarySchema) })
+  update(
+    @CurrentActor() actor: Actor,
+    @Param('id', ParseUUIDPipe) id: string,
+    @Body(new ZodValidationPipe(updateSummarySchema)) body: UpdateSummaryInput,
+  ): Promise<Summary> {
+    return this.summaries.update(actor, id, body);
+  }
+
+  @Delete('summaries/:id')
+  @Roles('clinician')
+  @HttpCode(204)
+  @ApiOperation({
+    summary: 'Delete a draft summary (nothing was sent)',
+    description: 'Owning clinician; drafts only (409 once sent).',
+  })
+  @ApiNoContentResponse()
+  async remove(@CurrentActor() actor: Actor, @Param('id', ParseUUIDPipe) id: string): Promise<void> {
+    await this.summaries.remove(actor, id);
+  }
+
+  @Post('summaries/:id/send')
+  @Roles('clinician')
+  @HttpCode(200)
+  @ApiOperation({
+    summary: 'Send a draft summary: its subject and text exactly as they stand',
+    description:
+      'Owning clinician; 409 unless a draft; each recipient checked again (consent, stop: 400). The ' +
+      'e-mails go out from the worker. With an Idempotency-Key, a repeat answers the first result and ' +
+      'sends nothing.',
+  })
+  @ApiHeader(IDEMPOTENCY_HEADER_DOC)
+  @ApiOkResponse({ schema: zodSchemaObject(summarySchema) })
+  send(
+    @CurrentActor() actor: Actor,
+    @Param('id', ParseUUIDPipe) id: string,
+    @IdempotencyKeyHeader() key: string | undefined,
+  ): Promise<Summary> {
+    return this.summaries.send(actor, id, key);
+  }
+
+  @Get('summaries/:id/message')
+  @ApiOperation({
+    summary: 'The e-mail exactly as the family receives it: HTML and plain-text parts, headers, charts',
+    description: 'Owning clinician, supervisor. The stop link in it is an example.',
+  })
+  @ApiOkResponse({ schema: zodSchemaObject(summaryMessagePreviewSchema) })
+  message(
+    @CurrentActor() actor: Actor,
+    @Param('id', ParseUUIDPipe) id: string,
+  ): Promise<SummaryMessagePreview> {
+    return this.summaries.message(actor, id);
   }
 }

@@ -10,11 +10,14 @@ import { InjectDataSource } from '@nestjs/typeorm';
 import {
   type CreateSummaryInput,
   type Summary as SummaryDto,
+  type SummaryCommentRef,
+  type SummaryMessagePreview,
   type SummaryPreview,
   type SummaryPreviewRequest,
   summaryStatusOf,
+  type UpdateSummaryInput,
 } from '@keyloom/shared';
-import { randomBytes, randomUUID } from 'node:crypto';
+import { createHash, randomBytes, randomUUID } from 'node:crypto';
 import { DataSource, type EntityManager, In } from 'typeorm';
 import { AuditService } from '../audit/audit.service';
 import type { Actor } from '../auth/session-user';
@@ -28,8 +31,10 @@ import { isUniqueViolation } from '../database/database-errors';
 import { type FinishIdempotent, IdempotencyService } from '../idempotency/idempotency.service';
 import { JobQueueService } from '../jobs/job-queue.service';
 import { ProfileVersion } from '../profile-versions/profile-version.entity';
-import { SUMMARY_MAIL_QUEUE } from './summary-delivery';
-import { summaryCharts } from './summary-message';
+import { User } from '../users/user.entity';
+import { AppConfig } from '../config/app-config';
+import { SUMMARY_MAIL_QUEUE, stopUrl } from './summary-delivery';
+import { buildSummaryMessage, type SummaryChart, summaryCharts } from './summary-message';
 import { summaryEmailsWithdrawalHook } from './summary-withdrawal';
 import { SummaryRecipient } from './summary-recipient.entity';
 import {
@@ -49,11 +54,71 @@ export const NO_RECIPIENTS_LEFT_MESSAGE =
 export const ROUND_PENDING_MESSAGE =
   'The last sending of this summary is still going out. Wait until every e-mail is sent or failed, then send again.';
 export const CLINIC_NAME = 'Willowmere Community Communication Clinic';
+export const DRAFT_NOT_SENT_MESSAGE = 'This summary is a draft and was never sent: send it first.';
+export const ONLY_DRAFT_SUMMARY_MESSAGE =
+  'This summary was already sent, and what was sent never changes. Compose a new summary instead.';
 
-// Versions a summary may report: trained at least (draft, training and failed versions have no metrics).
+// Versions a summary may report when chosen: trained at least (draft, training and failed versions
+// have no model). Without a choice, only versions approved in the period (active, or retired since).
 const REPORTABLE = ['trained', 'signed_off', 'active', 'retired', 'sent_back'] as const;
+const APPROVED = ['active', 'retired'] as const;
+
+/**
+ * Trials shorter than this many characters are left out of a summary's trial figures: a rate over
+ * fewer characters than most of one practice phrase says little (test phrases average about 29
+ * characters: MacKenzie & Soukoreff 2003, docs/references.md); the threshold itself is common
+ * practice, no source.
+ */
+export const MIN_TRIAL_CHARS = 20;
+/**
+ * A version's measured trial speed more than this many times its estimate is left out as implausible
+ * (a slip in the trial log, e.g. text pasted or a timer that stopped); common practice, no source.
+ */
+export const PLAUSIBLE_RATE_FACTOR = 2;
 
 const iso = (date: Date | null): string | null => (date ? date.toISOString() : null);
+
+/** A chart as the previews carry it: PNG in base64, its CSS size and alt text. */
+const previewChart = (c: SummaryChart): SummaryPreview['charts'][number] => ({
+  name: c.name,
+  alt: c.alt,
+  pngBase64: c.png.toString('base64'),
+  width: c.width,
+  height: c.height,
+});
+
+/** A version's trials with what did not count: short trials (left out of the means in SQL). */
+type CountedTrials = TrialFigures & { short?: number };
+
+/**
+ * The trial figures a summary may show, with a note to the clinician for what is left out: trials
+ * shorter than MIN_TRIAL_CHARS, and a measured speed more than PLAUSIBLE_RATE_FACTOR times the
+ * version's estimate.
+ */
+export function plausibleTrials(
+  version: Pick<VersionFigures, 'number' | 'wpmWith'>,
+  trials: CountedTrials | null,
+  notes: string[],
+): TrialFigures | null {
+  if (!trials) return null;
+  const { short = 0, ...kept } = trials;
+  if (short > 0) {
+    notes.push(
+      `Version ${version.number}: ${short} ${short === 1 ? 'trial' : 'trials'} shorter than ${MIN_TRIAL_CHARS} ` +
+        `characters ${short === 1 ? 'was' : 'were'} left out of the trial figures (too short to measure).`,
+    );
+  }
+  if (kept.count < 1) return null;
+  if (kept.wpm !== null && version.wpmWith !== null && kept.wpm > PLAUSIBLE_RATE_FACTOR * version.wpmWith) {
+    notes.push(
+      `Version ${version.number}: the measured trial speed (${kept.wpm.toFixed(1)} words a minute) is more than ` +
+        `${PLAUSIBLE_RATE_FACTOR} times the estimate (${version.wpmWith.toFixed(1)}), so it was left out as ` +
+        'implausible. Check the trial log on the version’s page.',
+    );
+    return { ...kept, wpm: null };
+  }
+  return kept;
+}
 
 @Injectable()
 export class SummariesService implements OnModuleInit {
@@ -66,6 +131,7 @@ export class SummariesService implements OnModuleInit {
     private readonly jobs: JobQueueService,
     private readonly withdrawalHooks: WithdrawalHooks,
     private readonly idempotency: IdempotencyService,
+    private readonly config: AppConfig,
   ) {}
 
   onModuleInit(): void {
@@ -83,20 +149,13 @@ export class SummariesService implements OnModuleInit {
 
   /** One summary with the state of every e-mail (owning clinician, supervisor). */
   async get(actor: Actor, id: string): Promise<SummaryDto> {
-    const summary = await this.dataSource.getRepository(Summary).findOneBy({ id });
-    if (!summary) throw new NotFoundException(SUMMARY_NOT_FOUND_MESSAGE);
-    try {
-      await this.access.requireReadable(actor, summary.clientId, 'contacts');
-    } catch (error) {
-      if (error instanceof NotFoundException) throw new NotFoundException(SUMMARY_NOT_FOUND_MESSAGE);
-      throw error;
-    }
-    return this.toDto(summary);
+    return this.toDto(await this.readableSummary(actor, id));
   }
 
   /**
-   * Composes, stores and queues a summary (owning clinician). Refuses contacts who did not consent or
-   * stopped summaries (400), and sending without a summaries consent of the client (409).
+   * Composes and stores a draft (owning clinician): the generated text, the chosen recipients and
+   * versions, no e-mail yet. Refuses contacts who did not consent or stopped summaries (400), and a
+   * client without a summaries consent (409). With an Idempotency-Key a repeat answers the same draft.
    */
   async create(
     actor: Actor,
@@ -119,11 +178,11 @@ export class SummariesService implements OnModuleInit {
     input: CreateSummaryInput,
     finish: FinishIdempotent,
   ): Promise<SummaryDto> {
-    const { summary, recipients } = await this.dataSource.transaction(async (manager) => {
+    const summary = await this.dataSource.transaction(async (manager) => {
       const client = await this.access.requireOwned(actor, clientId, manager);
       await this.requireSummaryConsent(manager, clientId);
       const contacts = await this.allowedContacts(manager, clientId, input.contactIds);
-      const content = await this.compose(manager, client.pseudonym, clientId, input);
+      const content = await this.compose(manager, actor, client.pseudonym, clientId, input);
       const saved = await manager.getRepository(Summary).save(
         manager.getRepository(Summary).create({
           clientId,
@@ -133,58 +192,233 @@ export class SummariesService implements OnModuleInit {
           note: input.note,
           subject: content.subject,
           text: content.text,
+          generatedText: content.text,
           figures: content.figures,
+          notes: content.notes,
+          state: 'draft',
+          contactIds: contacts.map((c) => c.id),
+          includeComments: input.includeComments,
           createdById: actor.id,
         }),
       );
-      const rows = await this.queueRecipients(manager, saved.id, contacts, 1);
       await this.audit.record(
         actor,
         'summary.create',
         { type: 'summary', id: saved.id, clientId },
-        { versions: content.versionIds.length, recipients: rows.length },
+        { draft: true, versions: content.versionIds.length, recipients: contacts.length },
         manager,
       );
       await finish(manager, saved.id);
+      return saved;
+    });
+    return this.toDto(summary);
+  }
+
+  /**
+   * Changes a draft (owning clinician): each field sent replaces the draft's. New versions, ticked
+   * comments or note write the generated text again; it replaces the draft's text only while the
+   * clinician has not edited it (or with `regenerate`). A sent summary: 409.
+   */
+  async update(actor: Actor, id: string, input: UpdateSummaryInput): Promise<SummaryDto> {
+    const summary = await this.dataSource.transaction(async (manager) => {
+      const row = await this.lockedOwned(manager, actor, id);
+      if (row.state !== 'draft') throw new ConflictException(ONLY_DRAFT_SUMMARY_MESSAGE);
+      const changed: string[] = [];
+      if (input.contactIds) {
+        row.contactIds = (await this.allowedContacts(manager, row.clientId, input.contactIds)).map(
+          (c) => c.id,
+        );
+        changed.push('recipients');
+      }
+      const recompose =
+        input.versionIds !== undefined ||
+        input.includeComments !== undefined ||
+        input.note !== undefined ||
+        input.regenerate === true;
+      if (recompose) {
+        const edited = row.generatedText !== null && row.text !== row.generatedText;
+        if (input.note !== undefined) row.note = input.note;
+        if (input.includeComments) row.includeComments = input.includeComments;
+        const client = await this.access.requireOwned(actor, row.clientId, manager);
+        const content = await this.compose(manager, actor, client.pseudonym, row.clientId, {
+          from: row.periodFrom,
+          to: row.periodTo,
+          versionIds: input.versionIds ?? row.versionIds,
+          note: row.note,
+          includeComments: row.includeComments,
+        });
+        row.versionIds = content.versionIds;
+        row.figures = content.figures;
+        row.notes = content.notes;
+        row.generatedText = content.text;
+        if (!edited || input.regenerate) row.text = content.text;
+        for (const key of ['versionIds', 'includeComments', 'note', 'regenerate'] as const)
+          if (input[key] !== undefined) changed.push(key);
+      }
+      if (input.text !== undefined) {
+        row.text = input.text;
+        changed.push('text');
+      }
+      if (input.subject !== undefined) {
+        row.subject = input.subject;
+        changed.push('subject');
+      }
+      const saved = await manager.getRepository(Summary).save(row);
+      // What changed, not the words (free text about the client stays on the summary).
+      await this.audit.record(
+        actor,
+        'summary.update',
+        { type: 'summary', id, clientId: row.clientId },
+        { changed, textEdited: saved.generatedText !== null && saved.text !== saved.generatedText },
+        manager,
+      );
+      return saved;
+    });
+    return this.toDto(summary);
+  }
+
+  /** Deletes a draft (owning clinician); nothing was sent. A sent summary: 409. */
+  async remove(actor: Actor, id: string): Promise<void> {
+    await this.dataSource.transaction(async (manager) => {
+      const row = await this.lockedOwned(manager, actor, id);
+      if (row.state !== 'draft') throw new ConflictException(ONLY_DRAFT_SUMMARY_MESSAGE);
+      await manager.getRepository(Summary).delete({ id });
+      await this.audit.record(
+        actor,
+        'summary.delete-draft',
+        { type: 'summary', id, clientId: row.clientId },
+        { versions: row.versionIds.length },
+        manager,
+      );
+    });
+  }
+
+  /**
+   * Sends a draft (owning clinician): its subject and text exactly as they stand, to its recipients
+   * (each checked again: consent, stop). 409 unless a draft; with an Idempotency-Key a repeat answers
+   * the first result and sends nothing twice.
+   */
+  async send(actor: Actor, id: string, idempotencyKey?: string): Promise<SummaryDto> {
+    return this.idempotency.once(
+      actor.id,
+      idempotencyKey,
+      { route: `POST /summaries/${id}/send`, body: null },
+      (finish) => this.sendOnce(actor, id, finish),
+      (summaryId) => this.get(actor, summaryId),
+    );
+  }
+
+  private async sendOnce(actor: Actor, id: string, finish: FinishIdempotent): Promise<SummaryDto> {
+    const { summary, recipients } = await this.dataSource.transaction(async (manager) => {
+      const row = await this.lockedOwned(manager, actor, id);
+      if (row.state !== 'draft') throw new ConflictException(ONLY_DRAFT_SUMMARY_MESSAGE);
+      await this.requireSummaryConsent(manager, row.clientId);
+      const contacts = await this.allowedContacts(manager, row.clientId, row.contactIds);
+      row.state = 'sent';
+      row.sentAt = new Date();
+      row.sentById = actor.id;
+      const saved = await manager.getRepository(Summary).save(row);
+      const rows = await this.queueRecipients(manager, id, contacts, 1);
+      await this.audit.record(
+        actor,
+        'summary.send',
+        { type: 'summary', id, clientId: row.clientId },
+        {
+          versions: row.versionIds.length,
+          recipients: rows.length,
+          textEdited: row.generatedText !== null && row.text !== row.generatedText,
+          // The text as sent, by its hash (the words stay on the summary).
+          textSha256: createHash('sha256').update(row.text).digest('hex'),
+        },
+        manager,
+      );
+      await finish(manager, id);
       return { summary: saved, recipients: rows };
     });
     await this.sendJobs(recipients);
     return this.toDto(summary);
   }
 
+  /**
+   * The e-mail exactly as a family member receives it (owning clinician, supervisor): the message the
+   * worker would build for the draft's first recipient (or the first one it was sent to), with an
+   * example stop link.
+   */
+  async message(actor: Actor, id: string): Promise<SummaryMessagePreview> {
+    const row = await this.readableSummary(actor, id);
+    const contact = row.contactIds[0]
+      ? await this.dataSource.getRepository(FamilyContact).findOneBy({ id: row.contactIds[0] })
+      : null;
+    const to = contact
+      ? { name: contact.name, email: contact.email }
+      : { name: 'Family member', email: 'family@example.org' };
+    const built = buildSummaryMessage({
+      from: this.config.mailFrom,
+      to,
+      subject: row.subject,
+      text: row.text,
+      figures: row.figures,
+      idempotencyKey: row.id,
+      stopUrl: stopUrl(this.config.appUrl, 'example-stop-link'),
+    });
+    const charts = summaryCharts(row.figures);
+    return {
+      subject: row.subject,
+      to: `${to.name} <${to.email}>`,
+      from: this.config.mailFrom,
+      text: typeof built.text === 'string' ? built.text : '',
+      html: typeof built.html === 'string' ? built.html : '',
+      headers: {
+        ...(built.headers as Record<string, string>),
+        'List-Unsubscribe': `<${stopUrl(this.config.appUrl, 'example-stop-link')}>`,
+      },
+      charts: charts.map(previewChart),
+    };
+  }
+
   /** What the e-mail would say and show, without storing or sending anything (owning clinician). */
   async preview(actor: Actor, clientId: string, input: SummaryPreviewRequest): Promise<SummaryPreview> {
     return this.dataSource.transaction(async (manager) => {
       const client = await this.access.requireOwned(actor, clientId, manager);
-      const content = await this.compose(manager, client.pseudonym, clientId, input);
+      const content = await this.compose(manager, actor, client.pseudonym, clientId, input);
       return {
         subject: content.subject,
         text: content.text,
         versionIds: content.versionIds,
-        charts: summaryCharts(content.figures).map((c) => ({
-          name: c.name,
-          alt: c.alt,
-          pngBase64: c.png.toString('base64'),
-        })),
+        charts: summaryCharts(content.figures).map(previewChart),
       };
     });
   }
 
-  /** Subject, text and figures from the versions' stored metrics (the same for preview and send). */
+  /**
+   * Subject, text and figures from the versions' stored metrics (the same for preview, draft and
+   * send), and the notes for the clinician on what was left out. Staff comments go in only when
+   * ticked; trial figures only when plausible.
+   */
   private async compose(
     manager: EntityManager,
+    actor: Actor,
     clientName: string,
     clientId: string,
     input: SummaryPreviewRequest,
-  ): Promise<{ subject: string; text: string; figures: VersionFigures[]; versionIds: string[] }> {
+  ): Promise<{
+    subject: string;
+    text: string;
+    figures: VersionFigures[];
+    versionIds: string[];
+    notes: string[];
+  }> {
     const versions = await this.versionsFor(manager, clientId, input);
+    const notes: string[] = [];
     const trials = await this.trialFigures(
       manager,
       versions.map((v) => v.id),
       input,
     );
-    const figures = versions.map((v) => ({
-      ...figuresFromMetrics(
+    const ticked = (v: ProfileVersion, kind: SummaryCommentRef['kind']) =>
+      input.includeComments.some((c) => c.versionId === v.id && c.kind === kind);
+    const figures = versions.map((v) => {
+      const base = figuresFromMetrics(
         {
           number: v.number,
           status: v.status,
@@ -193,17 +427,34 @@ export class SummariesService implements OnModuleInit {
           baseOnly: v.baseOnly,
         },
         v.metrics,
-      ),
-      trials: trials.get(v.id) ?? null,
-      carerComment:
-        v.signOffComment && v.signedOffBy ? { by: v.signedOffBy.name, text: v.signOffComment } : null,
-    }));
+      );
+      const trial = plausibleTrials(base, trials.get(v.id) ?? null, notes);
+      return {
+        ...base,
+        trials: trial,
+        carerComment:
+          ticked(v, 'sign-off') && v.signOffComment && v.signedOffBy
+            ? { by: v.signedOffBy.name, text: v.signOffComment }
+            : null,
+        supervisorComment:
+          ticked(v, 'approval') && v.approvalComment && v.approvedBy
+            ? { by: v.approvedBy.name, text: v.approvalComment }
+            : null,
+      };
+    });
     const period = { clientName, from: input.from, to: input.to };
     return {
       subject: summarySubject(period),
-      text: summaryText({ ...period, clinicName: CLINIC_NAME, versions: figures, note: input.note }),
+      text: summaryText({
+        ...period,
+        clinicName: CLINIC_NAME,
+        clinician: { name: actor.name, role: 'clinician' },
+        versions: figures,
+        note: input.note,
+      }),
       figures,
       versionIds: versions.map((v) => v.id),
+      notes,
     };
   }
 
@@ -216,25 +467,35 @@ export class SummariesService implements OnModuleInit {
     manager: EntityManager,
     versionIds: string[],
     period: { from: string; to: string },
-  ): Promise<Map<string, TrialFigures>> {
-    const figures = new Map<string, TrialFigures>();
+  ): Promise<Map<string, CountedTrials>> {
+    const figures = new Map<string, CountedTrials>();
     if (versionIds.length === 0) return figures;
+    // Trials under MIN_TRIAL_CHARS characters are counted apart and left out of the means.
     const rows = await manager.query<
-      { version_id: string; count: number; keystroke_savings: number | null; wpm: number | null }[]
+      {
+        version_id: string;
+        count: number;
+        short: number;
+        keystroke_savings: number | null;
+        wpm: number | null;
+      }[]
     >(
-      `SELECT profile_version_id AS version_id, count(*)::int AS count,
-              avg((measures->>'keystrokeSavings')::float8) AS keystroke_savings,
-              avg((measures->>'wpm')::float8) AS wpm
+      `SELECT profile_version_id AS version_id,
+              count(*) FILTER (WHERE (measures->>'characters')::int >= $4)::int AS count,
+              count(*) FILTER (WHERE (measures->>'characters')::int < $4)::int AS short,
+              avg((measures->>'keystrokeSavings')::float8) FILTER (WHERE (measures->>'characters')::int >= $4) AS keystroke_savings,
+              avg((measures->>'wpm')::float8) FILTER (WHERE (measures->>'characters')::int >= $4) AS wpm
          FROM trials
         WHERE profile_version_id = ANY($1::uuid[]) AND finished_at::date BETWEEN $2::date AND $3::date
         GROUP BY profile_version_id`,
-      [versionIds, period.from, period.to],
+      [versionIds, period.from, period.to, MIN_TRIAL_CHARS],
     );
     for (const row of rows) {
       figures.set(row.version_id, {
         count: row.count,
         keystrokeSavings: row.keystroke_savings,
         wpm: row.wpm,
+        short: row.short,
       });
     }
     return figures;
@@ -271,6 +532,7 @@ export class SummariesService implements OnModuleInit {
           if (error instanceof NotFoundException) throw new NotFoundException(SUMMARY_NOT_FOUND_MESSAGE);
           throw error;
         }
+        if (summary.state === 'draft') throw new ConflictException(DRAFT_NOT_SENT_MESSAGE);
         await this.requireSummaryConsent(manager, summary.clientId);
         const previous = await manager.getRepository(SummaryRecipient).find({ where: { summaryId: id } });
         if (previous.some((r) => r.status === 'queued')) throw new ConflictException(ROUND_PENDING_MESSAGE);
@@ -350,6 +612,34 @@ export class SummariesService implements OnModuleInit {
     });
   }
 
+  /** The summary locked for a change by the owning clinician; 404 for an unknown or other clinician's one. */
+  private async lockedOwned(manager: EntityManager, actor: Actor, id: string): Promise<Summary> {
+    const row = await manager
+      .getRepository(Summary)
+      .findOne({ where: { id }, lock: { mode: 'pessimistic_write' } });
+    if (!row) throw new NotFoundException(SUMMARY_NOT_FOUND_MESSAGE);
+    try {
+      await this.access.requireOwned(actor, row.clientId, manager);
+    } catch (error) {
+      if (error instanceof NotFoundException) throw new NotFoundException(SUMMARY_NOT_FOUND_MESSAGE);
+      throw error;
+    }
+    return row;
+  }
+
+  /** The summary for reading (owning clinician, supervisor); 404 otherwise. */
+  private async readableSummary(actor: Actor, id: string): Promise<Summary> {
+    const row = await this.dataSource.getRepository(Summary).findOneBy({ id });
+    if (!row) throw new NotFoundException(SUMMARY_NOT_FOUND_MESSAGE);
+    try {
+      await this.access.requireReadable(actor, row.clientId, 'contacts');
+    } catch (error) {
+      if (error instanceof NotFoundException) throw new NotFoundException(SUMMARY_NOT_FOUND_MESSAGE);
+      throw error;
+    }
+    return row;
+  }
+
   private async requireSummaryConsent(manager: EntityManager, clientId: string): Promise<void> {
     const records = await manager.getRepository(Consent).findBy({ clientId });
     if (!coversScope(records, 'summaries', todayIso()))
@@ -376,7 +666,7 @@ export class SummariesService implements OnModuleInit {
     return contacts;
   }
 
-  /** The chosen versions, or (none chosen) every version trained or approved in the period, oldest first. */
+  /** The chosen versions, or (none chosen) every version approved in the period, oldest first. */
   private async versionsFor(
     manager: EntityManager,
     clientId: string,
@@ -386,7 +676,7 @@ export class SummariesService implements OnModuleInit {
     if (input.versionIds.length > 0) {
       const chosen = await repo.find({
         where: { id: In(input.versionIds), clientId, status: In([...REPORTABLE]) },
-        relations: { signedOffBy: true },
+        relations: { signedOffBy: true, approvedBy: true },
         order: { number: 'ASC' },
       });
       if (chosen.length !== new Set(input.versionIds).size) {
@@ -394,15 +684,14 @@ export class SummariesService implements OnModuleInit {
       }
       return chosen;
     }
+    // Without a choice: only what a supervisor approved in the period (in use, or replaced since).
     return repo
       .createQueryBuilder('v')
       .leftJoinAndSelect('v.signedOffBy', 'signer')
+      .leftJoinAndSelect('v.approvedBy', 'approver')
       .where('v.clientId = :clientId', { clientId })
-      .andWhere('v.status IN (:...statuses)', { statuses: [...REPORTABLE] })
-      .andWhere(
-        `((v.trained_at::date BETWEEN :from AND :to) OR (v.approved_at::date BETWEEN :from AND :to))`,
-        { from: input.from, to: input.to },
-      )
+      .andWhere('v.status IN (:...statuses)', { statuses: [...APPROVED] })
+      .andWhere('v.approved_at::date BETWEEN :from AND :to', { from: input.from, to: input.to })
       .orderBy('v.number', 'ASC')
       .getMany();
   }
@@ -456,6 +745,18 @@ export class SummariesService implements OnModuleInit {
       relations: { contact: true },
       order: { round: 'ASC', name: 'ASC' },
     });
+    const versions = summary.versionIds.length
+      ? await this.dataSource.getRepository(ProfileVersion).find({
+          where: { id: In(summary.versionIds) },
+          relations: { signedOffBy: true, approvedBy: true },
+          order: { number: 'ASC' },
+        })
+      : [];
+    const sentBy = summary.sentById
+      ? ((await this.dataSource.getRepository(User).findOneBy({ id: summary.sentById }))?.name ?? null)
+      : null;
+    const ticked = (versionId: string, kind: SummaryCommentRef['kind']) =>
+      summary.includeComments.some((c) => c.versionId === versionId && c.kind === kind);
     return {
       id: summary.id,
       clientId: summary.clientId,
@@ -465,7 +766,7 @@ export class SummariesService implements OnModuleInit {
       note: summary.note,
       subject: summary.subject,
       text: summary.text,
-      status: summaryStatusOf(recipients.map((r) => r.status)),
+      status: summary.state === 'draft' ? 'draft' : summaryStatusOf(recipients.map((r) => r.status)),
       createdBy: summary.createdById,
       createdAt: summary.createdAt.toISOString(),
       recipients: recipients.map((r) => ({
@@ -480,6 +781,36 @@ export class SummariesService implements OnModuleInit {
         sentAt: iso(r.sentAt),
         stopped: r.contact?.unsubscribedAt != null,
       })),
+      contactIds: summary.contactIds,
+      includeComments: summary.includeComments.filter((c) => ticked(c.versionId, c.kind)),
+      textEdited: summary.generatedText !== null && summary.text !== summary.generatedText,
+      availableComments: versions.flatMap((v) => [
+        ...(v.signOffComment && v.signedOffBy
+          ? [
+              {
+                versionId: v.id,
+                kind: 'sign-off' as const,
+                versionNumber: v.number,
+                by: v.signedOffBy.name,
+                text: v.signOffComment,
+              },
+            ]
+          : []),
+        ...(v.approvalComment && v.approvedBy
+          ? [
+              {
+                versionId: v.id,
+                kind: 'approval' as const,
+                versionNumber: v.number,
+                by: v.approvedBy.name,
+                text: v.approvalComment,
+              },
+            ]
+          : []),
+      ]),
+      notes: summary.notes,
+      sentAt: iso(summary.sentAt),
+      sentBy,
     };
   }
 }

@@ -1,133 +1,240 @@
-import { crc32, inflateSync } from 'node:zlib';
+import { readFileSync } from 'node:fs';
+import { chartColours, chartSeries, chartSizes, hexToRgb, type HexColour } from '@keyloom/shared';
+import { PNG } from 'pngjs';
+import { chartFont, textWidth } from './chart-text';
 import {
-  chartColours,
-  createCanvas,
-  drawLine,
-  encodePng,
-  getPixel,
-  PLOT,
-  savingsBarChart,
-  slotCentre,
-  speedLineChart,
-  valueToY,
+  fittingSize,
+  lineLabels,
+  niceScale,
+  PLOT_HEIGHT,
+  renderChart,
+  savingsChart,
+  speedChart,
+  type ChartSpec,
 } from './summary-chart';
 
-type Chunk = { type: string; data: Buffer; crc: number };
+// The PNGs are decoded with pngjs (a general-purpose PNG reader, npm pngjs 7.0.0), not with anything
+// of ours, and read back pixel by pixel.
 
-// A minimal PNG reader written from the PNG specification (W3C PNG 2nd ed., sections 5.2–5.4), so the
-// encoder is checked against the format, with node:zlib doing the CRC-32 and the inflate.
-function readChunks(png: Buffer): Chunk[] {
-  const chunks: Chunk[] = [];
-  let at = 8;
-  while (at < png.length) {
-    const length = png.readUInt32BE(at);
-    chunks.push({
-      type: png.toString('ascii', at + 4, at + 8),
-      data: png.subarray(at + 8, at + 8 + length),
-      crc: png.readUInt32BE(at + 8 + length),
-    });
-    at += 12 + length;
-  }
-  return chunks;
-}
+type Image = { width: number; height: number; rgb: (x: number, y: number) => [number, number, number] };
 
-function decode(png: Buffer): { width: number; height: number; pixel: (x: number, y: number) => number[] } {
-  const chunks = readChunks(png);
-  const ihdr = chunks[0].data;
-  const width = ihdr.readUInt32BE(0);
-  const height = ihdr.readUInt32BE(4);
-  const raw = inflateSync(Buffer.concat(chunks.filter((c) => c.type === 'IDAT').map((c) => c.data)));
-  expect(raw.length).toBe(height * (1 + width * 3));
+function decode(png: Buffer): Image {
+  const image = PNG.sync.read(png);
   return {
-    width,
-    height,
-    pixel: (x, y) => {
-      const row = y * (1 + width * 3);
-      expect(raw[row]).toBe(0); // filter type None
-      return [...raw.subarray(row + 1 + x * 3, row + 4 + x * 3)];
+    width: image.width,
+    height: image.height,
+    rgb: (x, y) => {
+      const i = (y * image.width + x) * 4;
+      return [image.data[i] ?? 0, image.data[i + 1] ?? 0, image.data[i + 2] ?? 0];
     },
   };
 }
 
-describe('CRC-32 from node:zlib', () => {
-  it('gives the published check value', () => {
-    // CRC-32 (ISO-HDLC) of "123456789" is 0xCBF43926 (Greg Cook's CRC catalogue; from memory).
-    expect(crc32('123456789') >>> 0).toBe(0xcbf43926);
-  });
-});
+/** Within a few levels of a colour on every channel (inside a shape; edges are smoothed). */
+function near(rgb: readonly number[], hex: HexColour, tolerance = 6): boolean {
+  return hexToRgb(hex).every((c, i) => Math.abs(c - (rgb[i] ?? -999)) <= tolerance);
+}
 
-describe('encodePng', () => {
-  const canvas = createCanvas(3, 2, [255, 255, 255]);
-  canvas.pixels.set([10, 20, 30], 0);
-  canvas.pixels.set([200, 100, 50], 5 * 3);
-  const png = encodePng(canvas);
-
-  it('starts with the PNG signature and an IHDR for 8-bit truecolour', () => {
-    // Signature 89 50 4E 47 0D 0A 1A 0A (PNG specification, section 5.2).
-    expect([...png.subarray(0, 8)]).toEqual([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]);
-    const chunks = readChunks(png);
-    expect(chunks.map((c) => c.type)).toEqual(['IHDR', 'IDAT', 'IEND']);
-    const ihdr = chunks[0].data;
-    expect(ihdr.length).toBe(13);
-    expect([ihdr.readUInt32BE(0), ihdr.readUInt32BE(4), ...ihdr.subarray(8)]).toEqual([3, 2, 8, 2, 0, 0, 0]);
-  });
-
-  it('writes a correct CRC over type and data on every chunk', () => {
-    for (const c of readChunks(png)) {
-      expect(c.crc).toBe(crc32(Buffer.concat([Buffer.from(c.type, 'ascii'), c.data])) >>> 0);
+/** Runs of a colour along row y: [start, end) pixel columns of each. */
+function runs(image: Image, y: number, hex: HexColour): [number, number][] {
+  const found: [number, number][] = [];
+  let start = -1;
+  for (let x = 0; x <= image.width; x++) {
+    const inside = x < image.width && near(image.rgb(x, y), hex);
+    if (inside && start < 0) start = x;
+    if (!inside && start >= 0) {
+      found.push([start, x]);
+      start = -1;
     }
-    // Every PNG ends with the same empty IEND chunk: 00 00 00 00 49 45 4E 44 AE 42 60 82 (from memory).
-    expect(png.subarray(-12).toString('hex')).toBe('0000000049454e44ae426082');
+  }
+  return found;
+}
+
+/** The lowest row with the most pixels of a colour (for a bar chart: the row just above the axis). */
+function fullestRow(image: Image, hex: HexColour): number {
+  let best = 0;
+  let bestCount = -1;
+  for (let y = 0; y < image.height; y++) {
+    const count = runs(image, y, hex).reduce((sum, [a, b]) => sum + b - a, 0);
+    if (count >= bestCount) [best, bestCount] = [y, count];
+  }
+  return best;
+}
+
+function countPixels(image: Image, hex: HexColour): number {
+  let count = 0;
+  for (let y = 0; y < image.height; y++) {
+    for (let x = 0; x < image.width; x++) if (near(image.rgb(x, y), hex)) count++;
+  }
+  return count;
+}
+
+const bar = chartSeries[0].colour;
+const second = chartSeries[1].colour;
+
+describe('savingsChart', () => {
+  // An invented data set: four versions of a client's suggestions.
+  const savings = [0.31, 0.42, 0.5, 0.18];
+  const chart = savingsChart(savings.map((s, i) => ({ number: i + 1, savings: s })));
+  const image = decode(chart.png);
+
+  it('is 600 CSS px wide, drawn at twice that in pixels', () => {
+    expect(chart.width).toBe(600);
+    expect(image.width).toBe(1200);
+    expect(image.height).toBe(chart.height * 2);
+    expect(chart.height).toBeGreaterThan(200);
   });
 
-  it('stores the pixels row by row, readable after inflate', () => {
-    const image = decode(png);
-    expect(image.pixel(0, 0)).toEqual([10, 20, 30]);
-    expect(image.pixel(2, 1)).toEqual([200, 100, 50]);
-    expect(image.pixel(1, 1)).toEqual([255, 255, 255]);
-  });
-
-  it('refuses a canvas of zero size', () => {
-    expect(() => createCanvas(0, 10, [0, 0, 0])).toThrow(RangeError);
-  });
-});
-
-describe('drawLine', () => {
-  it('draws a diagonal through its end points and nothing off it', () => {
-    const c = createCanvas(5, 5, [0, 0, 0]);
-    drawLine(c, { x: 0, y: 0 }, { x: 4, y: 4 }, [9, 9, 9]);
-    for (let i = 0; i < 5; i++) expect(getPixel(c, i, i)).toEqual([9, 9, 9]);
-    expect(getPixel(c, 4, 0)).toEqual([0, 0, 0]);
-  });
-});
-
-describe('savingsBarChart', () => {
-  it('draws bars whose heights follow the savings (read back from the PNG)', () => {
-    const savings = [0.31, 0.42, 0.5];
-    const image = decode(encodePng(savingsBarChart(savings)));
-    expect([image.width, image.height]).toEqual([480, 240]);
-    const bar = [...chartColours.bar];
-    savings.forEach((value, i) => {
-      const x = slotCentre(i, savings.length);
-      const top = valueToY(value, 1);
-      expect(image.pixel(x, top)).toEqual(bar);
-      expect(image.pixel(x, PLOT.bottom - 3)).toEqual(bar);
-      expect(image.pixel(x, top - 2)).not.toEqual(bar);
+  it('draws one bar per version, their heights in proportion to the savings', () => {
+    const row = fullestRow(image, bar);
+    const found = runs(image, row, bar);
+    expect(found).toHaveLength(savings.length);
+    // Each bar's height, read by walking up its middle column from that row.
+    const heights = found.map(([a, b]) => {
+      const x = Math.floor((a + b) / 2);
+      let y = row;
+      while (y > 0 && near(image.rgb(x, y - 1), bar)) y--;
+      return row - y + 1;
     });
-    // Half of the plot height for 0.5 (derived from the scale).
-    expect(valueToY(0.5, 1)).toBe(Math.round((PLOT.top + PLOT.bottom) / 2));
+    const tallest = Math.max(...heights);
+    // 50 % is half the plot's height on the 0–100 % scale (2 pixels per CSS px; derived).
+    expect(Math.abs(tallest - 0.5 * PLOT_HEIGHT * 2)).toBeLessThanOrEqual(3);
+    heights.forEach((h, i) => expect(h / tallest).toBeCloseTo(savings[i] / 0.5, 1));
+    // Bars are the same width and left to right in version order.
+    const widths = found.map(([a, b]) => b - a);
+    expect(Math.max(...widths) - Math.min(...widths)).toBeLessThanOrEqual(1);
+  });
+
+  it('writes its lettering in the theme text colour and keeps a clear margin (nothing cut off)', () => {
+    expect(countPixels(image, chartColours.text)).toBeGreaterThan(2000);
+    for (let x = 0; x < image.width; x++) {
+      for (const y of [0, 1, image.height - 2, image.height - 1]) {
+        expect(near(image.rgb(x, y), chartColours.background)).toBe(true);
+      }
+    }
+    for (let y = 0; y < image.height; y++) {
+      for (const x of [0, 1, image.width - 2, image.width - 1]) {
+        expect(near(image.rgb(x, y), chartColours.background)).toBe(true);
+      }
+    }
+  });
+
+  it('states the same values in its alt text as on the bars', () => {
+    const expected = savings.map((s, i) => `version ${i + 1}: ${Math.round(s * 100)}%`).join('; ');
+    expect(chart.alt).toBe(`Key presses saved by suggestions, by version: ${expected}.`);
+  });
+
+  it('has no legend for its one series', () => {
+    // The only pixels in the bar colour are the bars: nothing above the tallest bar's top.
+    const rows = [...Array(image.height).keys()].filter((y) => runs(image, y, bar).length > 0);
+    expect(runs(image, rows[0], bar)).toHaveLength(1);
   });
 });
 
-describe('speedLineChart', () => {
-  it('marks each point of both series at its value on a scale rounded up to 5 wpm', () => {
-    const points = [
-      { withSuggestions: 2.2, without: 1.9 },
-      { withSuggestions: 6.2, without: 1.9 },
-    ];
-    const image = decode(encodePng(speedLineChart(points)));
-    // Largest value 6.2 → scale 0..10.
-    expect(image.pixel(slotCentre(1, 2), valueToY(6.2, 10))).toEqual([...chartColours.lineWith]);
-    expect(image.pixel(slotCentre(0, 2), valueToY(1.9, 10))).toEqual([...chartColours.lineWithout]);
+describe('speedChart', () => {
+  const versions = [
+    { number: 3, withSuggestions: 2.2, without: 1.9 },
+    { number: 4, withSuggestions: 2.72, without: 1.9 },
+    { number: 5, withSuggestions: 6.26, without: 2.4 },
+  ];
+  const chart = speedChart(versions);
+  const image = decode(chart.png);
+
+  it('is 1200 px wide and draws both series in their own colours', () => {
+    expect(image.width).toBe(1200);
+    expect(countPixels(image, bar)).toBeGreaterThan(500);
+    expect(countPixels(image, second)).toBeGreaterThan(500);
+  });
+
+  it('marks each version once per series, plus one marker each in the legend', () => {
+    // Circles mark the first series and squares the second (the theme's markers).
+    expect(chart.svg.match(/<circle /g)).toHaveLength(versions.length + 1);
+    expect(chart.svg.match(/<rect x=/g)).toHaveLength(versions.length + 1);
+  });
+
+  it('states every value in its alt text with one decimal, as written on the points', () => {
+    expect(chart.alt).toBe(
+      'Estimated words a minute, by version: version 3: 2.2 with suggestions, 1.9 without suggestions; ' +
+        'version 4: 2.7 with suggestions, 1.9 without suggestions; ' +
+        'version 5: 6.3 with suggestions, 2.4 without suggestions.',
+    );
+  });
+});
+
+describe('chart parts', () => {
+  it('reads the app font from its WOFF file (the family the @fontsource stylesheet names)', () => {
+    const css = readFileSync(require.resolve('@fontsource/atkinson-hyperlegible'), 'utf8');
+    expect(css).toContain(`font-family: '${chartFont(400).names.fontFamily.en}'`);
+    expect(chartFont(700).names.fontFamily.en).toBe(chartFont(400).names.fontFamily.en);
+    // Advance widths add up: "11" is twice "1" (no kerning between equal figures; derived).
+    expect(textWidth('11', 20)).toBeCloseTo(2 * textWidth('1', 20), 5);
+  });
+
+  it('shrinks labels to fit their slot, never below the smallest size', () => {
+    expect(fittingSize(['7'], 500)).toBe(chartSizes.labelFont);
+    const size = fittingSize(['100%'], 40);
+    expect(size).toBeLessThan(chartSizes.labelFont);
+    expect(textWidth('100%', size)).toBeLessThanOrEqual(40);
+    expect(fittingSize(['a very long label'], 5)).toBe(chartSizes.smallestLabelFont);
+  });
+
+  it('picks a scale from 0 with at most 5 round steps that reaches the largest value', () => {
+    const tick = String;
+    expect(niceScale(2.7, tick)).toMatchObject({ max: 3, step: 1 });
+    expect(niceScale(13.4, tick)).toMatchObject({ max: 15, step: 5 });
+    expect(niceScale(5, tick)).toMatchObject({ max: 5, step: 1 });
+    expect(niceScale(0, tick)).toMatchObject({ max: 0.5, step: 0.5 });
+    for (const max of [0.3, 1.7, 9.9, 42, 180]) {
+      const scale = niceScale(max, tick);
+      expect(scale.max).toBeGreaterThanOrEqual(max);
+      expect(scale.max / scale.step).toBeLessThanOrEqual(5);
+    }
+  });
+
+  it('keeps value labels of one version apart, and above the axis', () => {
+    const labels = lineLabels(
+      [
+        { text: '2.0', x: 100, y: 150 },
+        { text: '1.9', x: 100, y: 152 },
+      ],
+      16,
+      300,
+    );
+    const [high, low] = labels;
+    expect(high.y).toBeLessThan(150); // above the higher point
+    expect(low.y - high.y).toBeGreaterThan(12); // a line apart
+    // Near the axis both go above their points instead.
+    const nearAxis = lineLabels(
+      [
+        { text: '3.0', x: 100, y: 200 },
+        { text: '0.0', x: 100, y: 300 },
+      ],
+      16,
+      300,
+    );
+    expect(Math.max(...nearAxis.map((l) => l.y))).toBeLessThan(300);
+  });
+
+  it('refuses what it cannot draw', () => {
+    const spec: ChartSpec = {
+      kind: 'bar',
+      title: 'T',
+      valueAxis: 'V',
+      categoryAxis: 'C',
+      categories: ['1'],
+      series: [{ name: 'S', values: [1] }],
+      scale: { max: 1, step: 0.5, tick: String },
+      format: String,
+      categoryName: String,
+    };
+    expect(() => renderChart({ ...spec, categories: [], series: [{ name: 'S', values: [] }] })).toThrow(
+      RangeError,
+    );
+    expect(() => renderChart({ ...spec, series: [{ name: 'S', values: [Number.NaN] }] })).toThrow(RangeError);
+    const many = Array.from({ length: 21 }, (_, i) => String(i));
+    expect(() =>
+      renderChart({ ...spec, categories: many, series: [{ name: 'S', values: many.map(Number) }] }),
+    ).toThrow(RangeError);
+    expect(renderChart(spec).png.length).toBeGreaterThan(1000);
   });
 });

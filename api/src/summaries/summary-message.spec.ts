@@ -1,6 +1,6 @@
 import { createTransport } from 'nodemailer';
 import { crc32 } from 'node:zlib';
-import { buildSummaryMessage, chartAltTexts, SAVINGS_CHART_CID, senderDomain } from './summary-message';
+import { buildSummaryMessage, SAVINGS_CHART_CID, senderDomain, summaryCharts } from './summary-message';
 import type { VersionFigures } from './summary-text';
 
 const figures: VersionFigures[] = [
@@ -38,7 +38,11 @@ describe('buildSummaryMessage', () => {
     const message = buildSummaryMessage(input);
     expect(message.messageId).toBe('<3b0f0d7e-2a41-4f8e-9a3c-5d6e7f809a1b@willowmere.example>');
     expect(message.text).toContain(input.stopUrl);
-    expect(message.html).toContain(`<a href="${input.stopUrl}">`);
+    expect(message.html).toContain(`<a href="${input.stopUrl}"`);
+    expect(message.html).toContain(`<title>${input.subject}</title>`);
+    // One column at most 600 px wide, narrowing with the screen (the phone check is the browser test's).
+    expect(message.html).toContain('<meta name="viewport" content="width=device-width, initial-scale=1">');
+    expect(message.html).toContain('max-width:600px');
     expect(message.html).toContain('Second &lt;paragraph&gt; &amp; more.');
     expect(message.html).not.toMatch(/<script/i);
   });
@@ -49,9 +53,19 @@ describe('buildSummaryMessage', () => {
     expect(attachments.map((a) => a.filename)).toEqual(['keystroke-savings.png', 'typing-speed.png']);
     expect(message.html).toContain(`src="cid:${SAVINGS_CHART_CID}"`);
     // Each chart's figures are also written under it, for readers whose mail program hides images.
-    expect((message.html as string).match(/<small>[^<]*\d[^<]*<\/small>/g)).toHaveLength(2);
+    expect(
+      (message.html as string).match(
+        /<p style="[^"]*">[^<]*\d[^<]*%[^<]*<\/p>|<p style="[^"]*">Estimated words[^<]*<\/p>/g,
+      ),
+    ).toHaveLength(2);
+    // Each image is shown at its CSS width and shrinks on a narrow screen.
+    expect(message.html).toMatch(
+      /<img src="cid:savings-chart@keyloom" width="600" height="\d+" alt="[^"]*" style="display:block;width:100%;max-width:600px;height:auto;border:0">/,
+    );
     for (const a of attachments) {
       const png = a.content as Buffer;
+      // 1200 px wide: the PNG's IHDR width (PNG specification, section 11.2.2).
+      expect(png.readUInt32BE(16)).toBe(1200);
       expect(png.subarray(1, 4).toString('ascii')).toBe('PNG');
       // The IHDR CRC checked with node:zlib (PNG specification, section 5.3).
       expect(png.readUInt32BE(29)).toBe(crc32(png.subarray(12, 29)) >>> 0);
@@ -81,11 +95,14 @@ describe('buildSummaryMessage', () => {
 });
 
 describe('helpers', () => {
-  it('finds the sender domain and writes every figure into the alt texts', () => {
+  it('finds the sender domain; the charts carry every figure in their alt texts', () => {
     expect(senderDomain(input.from)).toBe('willowmere.example');
     expect(senderDomain('nobody')).toBe('keyloom.invalid');
-    const alt = chartAltTexts(figures);
-    expect(alt.savings).toBe('Key presses saved by suggestions, by version: version 1: 31%; version 2: 42%.');
-    expect(alt.speed).toContain('version 2: 2.7 with, 1.9 without');
+    const [savings, speed] = summaryCharts(figures);
+    expect(savings?.alt).toBe(
+      'Key presses saved by suggestions, by version: version 1: 31%; version 2: 42%.',
+    );
+    expect(speed?.alt).toContain('version 2: 2.7 with suggestions, 1.9 without suggestions');
+    expect([speed?.width, speed?.height]).toEqual([600, expect.any(Number)]);
   });
 });

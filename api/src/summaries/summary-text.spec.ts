@@ -92,9 +92,9 @@ describe('summaryText', () => {
     });
     const paragraphs = text.split('\n\n');
     expect(paragraphs[1]).toBe(
-      'Version 1 (retired 2026-10-03): about 3 in 10 key presses saved, roughly 2 words a minute with suggestions, ' +
+      'Version 1 (approved, since replaced, 3 October 2026): about 3 in 10 key presses saved, roughly 2 words a minute with suggestions, ' +
         'roughly 2 words a minute without.\n' +
-        'Version 2 (active 2026-11-03): about 4 in 10 key presses saved, roughly 3 words a minute with suggestions, ' +
+        'Version 2 (approved, in use, 3 November 2026): about 4 in 10 key presses saved, roughly 3 words a minute with suggestions, ' +
         'roughly 2 words a minute without.',
     );
     expect(paragraphs[2]).toBe(
@@ -116,7 +116,7 @@ describe('summaryText', () => {
     expect(text).toContain('No new versions');
     expect(text).not.toContain('note from the clinician');
     expect(summarySubject({ clientName: 'R. Ashby', from: '2026-10-01', to: '2026-10-31' })).toBe(
-      'Progress summary for R. Ashby, 2026-10-01 to 2026-10-31',
+      'Progress summary for R. Ashby, 1 to 31 October 2026',
     );
   });
 });
@@ -149,9 +149,11 @@ describe('trialsSentence', () => {
       wpmWith: null,
       wpmWithout: null,
     };
-    expect(versionLine(base)).toBe('Version 1 (trained 2026-11-02): about 4 in 10 key presses saved.');
+    expect(versionLine(base)).toBe(
+      'Version 1 (not yet approved: still being tried, 2 November 2026): about 4 in 10 key presses saved.',
+    );
     expect(versionLine({ ...base, trials: { count: 2, keystrokeSavings: 0.31, wpm: null } })).toBe(
-      'Version 1 (trained 2026-11-02): about 4 in 10 key presses saved. ' +
+      'Version 1 (not yet approved: still being tried, 2 November 2026): about 4 in 10 key presses saved. ' +
         'In 2 tries on the test keyboard, about 3 in 10 key presses were saved.',
     );
     expect(
@@ -161,7 +163,7 @@ describe('trialsSentence', () => {
         carerComment: { by: 'Hannah Ashby', text: ' He liked the sailing words. ' },
       }),
     ).toBe(
-      'Version 1 (signed off 2026-11-02): about 4 in 10 key presses saved. ' +
+      'Version 1 (not yet approved: tried and waiting for approval, 2 November 2026): about 4 in 10 key presses saved. ' +
         'Hannah Ashby tried it and wrote: “He liked the sailing words.”',
     );
   });
@@ -176,11 +178,11 @@ describe('trialsSentence', () => {
       wpmWith: null,
       wpmWithout: null,
     };
-    expect(versionLine(base)).toBe('Version 2 (active 2026-11-20): no figures yet.');
+    expect(versionLine(base)).toBe('Version 2 (approved, in use, 20 November 2026): no figures yet.');
     expect(
       versionLine({ ...base, baseOnly: true, trials: { count: 1, keystrokeSavings: 0.2, wpm: null } }),
     ).toBe(
-      'Version 2 (active 2026-11-20): suggestions from general English only, while there is too little of ' +
+      'Version 2 (approved, in use, 20 November 2026): suggestions from general English only, while there is too little of ' +
         'their own writing; its figures come from the tries on the test keyboard. ' +
         'In 1 try on the test keyboard, about 2 in 10 key presses were saved.',
     );

@@ -20,8 +20,10 @@ export type VersionFigures = {
   wpmWith: number | null;
   /** The carer's tries on the test keyboard with this version in the period; absent or null: none. */
   trials?: TrialFigures | null;
-  /** The carer's comment when signing the version off after trying it; absent or null: none. */
+  /** The carer's comment when signing the version off, quoted only when the clinician ticked it. */
   carerComment?: { by: string; text: string } | null;
+  /** The supervisor's comment when approving the version, quoted only when the clinician ticked it. */
+  supervisorComment?: { by: string; text: string } | null;
 };
 
 /** Means of the measured figures over a version's trials (from `trials.measures`). */
@@ -44,6 +46,27 @@ export function figuresFromMetrics(
   metrics: Record<string, unknown> | null,
 ): VersionFigures {
   return { ...version, ...reportFigures(metrics, version.slots) };
+}
+
+const MONTHS = [
+  'January',
+  'February',
+  'March',
+  'April',
+  'May',
+  'June',
+  'July',
+  'August',
+  'September',
+  'October',
+  'November',
+  'December',
+];
+
+/** "1 November 2026" from an ISO date (or the date part of an ISO time): the form families read. */
+export function longDate(iso: string): string {
+  const [year, month, day] = iso.slice(0, 10).split('-').map(Number);
+  return `${day} ${MONTHS[month - 1] ?? '?'} ${year}`;
 }
 
 /**
@@ -92,9 +115,19 @@ export function trialsSentence(t: TrialFigures | null | undefined): string {
   return parts.length > 0 ? `In ${tries}, ${parts.join(', ')}.` : `There were ${tries}.`;
 }
 
-/** One line per version, e.g. "Version 2 (approved 2026-11-03): about 4 in 10 key presses saved, roughly 3 words a minute." */
+/** A version's status as the family reads it: approved versions are "approved", others say what they are. */
+const STATUS_WORDS: Record<string, string> = {
+  active: 'approved, in use',
+  retired: 'approved, since replaced',
+  trained: 'not yet approved: still being tried',
+  signed_off: 'not yet approved: tried and waiting for approval',
+  sent_back: 'not approved: sent back for changes',
+};
+
+/** One line per version, e.g. "Version 2 (approved, in use, 3 November 2026): about 4 in 10 key presses saved, roughly 3 words a minute." */
 export function versionLine(v: VersionFigures): string {
-  const when = v.date ? ` (${v.status.replace('_', ' ')} ${v.date})` : ` (${v.status.replace('_', ' ')})`;
+  const status = STATUS_WORDS[v.status] ?? v.status.replace('_', ' ');
+  const when = v.date ? ` (${status}, ${longDate(v.date)})` : ` (${status})`;
   const parts: string[] = [];
   if (v.keystrokeSavings !== null) parts.push(savingsPhrase(v.keystrokeSavings));
   if (v.wpmWith !== null) parts.push(`${ratePhrase(v.wpmWith)} with suggestions`);
@@ -107,7 +140,10 @@ export function versionLine(v: VersionFigures): string {
   const said = v.carerComment
     ? `${v.carerComment.by} tried it and wrote: “${v.carerComment.text.trim()}”`
     : '';
-  return [line, tried, said].filter((part) => part !== '').join(' ');
+  const approved = v.supervisorComment
+    ? `${v.supervisorComment.by}, who approved it, wrote: “${v.supervisorComment.text.trim()}”`
+    : '';
+  return [line, tried, said, approved].filter((part) => part !== '').join(' ');
 }
 
 export type SummaryTextInput = {
@@ -120,18 +156,42 @@ export type SummaryTextInput = {
   /** The clinician's own words; may be empty. */
   note: string;
   clinicName: string;
+  /** Who signs the e-mail: the clinician's name and role. */
+  clinician?: { name: string; role: string } | null;
+  /** The clinic's phone and address (lines), when the clinic has set them. */
+  clinicPhone?: string | null;
+  clinicAddress?: string | null;
 };
+
+/** "1 to 30 November 2026", "28 October to 3 November 2026" or "30 December 2026 to 5 January 2027". */
+export function periodPhrase(from: string, to: string): string {
+  const [a, b] = [longDate(from), longDate(to)];
+  if (from.slice(0, 4) !== to.slice(0, 4)) return `${a} to ${b}`;
+  if (from.slice(0, 7) !== to.slice(0, 7)) return `${a.replace(/ \d{4}$/, '')} to ${b}`;
+  return `${a.replace(/ \D+ \d{4}$/, '')} to ${b}`;
+}
 
 /** The subject line of the e-mail. */
 export function summarySubject(input: Pick<SummaryTextInput, 'clientName' | 'from' | 'to'>): string {
-  return `Progress summary for ${input.clientName}, ${input.from} to ${input.to}`;
+  return `Progress summary for ${input.clientName}, ${periodPhrase(input.from, input.to)}`;
+}
+
+/** The closing lines: who wrote it, the clinic and how to reach it (only what the clinic has set). */
+export function signatureLines(input: SummaryTextInput): string {
+  const lines = [
+    input.clinician ? `${input.clinician.name}, ${input.clinician.role}` : null,
+    input.clinicName,
+    ...(input.clinicAddress ? input.clinicAddress.split('\n').map((line) => line.trim()) : []),
+    input.clinicPhone ? `Phone: ${input.clinicPhone}` : null,
+  ];
+  return lines.filter((line): line is string => !!line).join('\n');
 }
 
 /** The plain-text body (the HTML version wraps the same paragraphs). Paragraphs are separated by a blank line. */
 export function summaryText(input: SummaryTextInput): string {
   const paragraphs: string[] = [
-    `This is a summary of ${input.clientName}'s typing with word suggestions from ${input.from} to ${input.to}, ` +
-      `sent by ${input.clinicName}.`,
+    `This is a summary of ${input.clientName}'s typing with word suggestions from ` +
+      `${periodPhrase(input.from, input.to)}, sent by ${input.clinicName}.`,
   ];
   const withSavings = input.versions.filter((v) => v.keystrokeSavings !== null);
   if (input.versions.length === 0) {
@@ -158,5 +218,11 @@ export function summaryText(input: SummaryTextInput): string {
     'These figures are estimates from practice texts, not measurements of everyday use. ' +
       'Fewer key presses do not always mean faster typing, because reading the suggestions takes time too.',
   );
+  paragraphs.push(
+    input.clinicPhone
+      ? `If you have questions, call the clinic on ${input.clinicPhone} or reply to this e-mail.`
+      : 'If you have questions, reply to this e-mail.',
+  );
+  paragraphs.push(signatureLines(input));
   return paragraphs.join('\n\n');
 }

@@ -4,4 +4,5 @@ import { queryRoots } from '@/lib/query-keys';
 export const summaryKeys = {
   all: queryRoots.summaries,
   list: (clientId: string) => [...summaryKeys.all, 'list', clientId] as const,
+  message: (summaryId: string) => [...summaryKeys.all, 'message', summaryId] as const,
 };

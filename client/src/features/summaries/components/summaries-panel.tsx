@@ -12,6 +12,7 @@ import { contactsQueryOptions } from '@/features/consent/api/get-contacts';
 import { profileVersionsQueryOptions } from '@/features/profiles/api/get-profile-versions';
 import { useSummaries } from '../api/get-summaries';
 import { SummaryComposer } from './summary-composer';
+import { SummaryDraftEditor } from './summary-draft-editor';
 import { SummaryList } from './summary-list';
 
 type SummariesPanelProps = {
@@ -44,12 +45,25 @@ export const SummariesPanel = ({
   const contacts = useQuery({ ...contactsQueryOptions(clientId), enabled: owner });
   const versions = useQuery(profileVersionsQueryOptions(clientId));
   const [composing, setComposing] = useState(false);
+  // The draft open for editing (its id), or none.
+  const [draftId, setDraftId] = useState<string | null>(null);
   const newButton = useRef<HTMLButtonElement>(null);
+  const listHeading = useRef<HTMLHeadingElement>(null);
 
   const closeComposer = () => {
     setComposing(false);
     // Back to the control that opened it, so keyboard users keep their place.
     requestAnimationFrame(() => newButton.current?.focus());
+  };
+  const openDraft = (id: string) => {
+    setComposing(false);
+    setDraftId(id);
+    // The editor's heading, once it is on screen.
+    requestAnimationFrame(() => document.getElementById(`draft-${id}`)?.querySelector('h3')?.focus());
+  };
+  const closeDraft = () => {
+    setDraftId(null);
+    requestAnimationFrame(() => (newButton.current ?? listHeading.current)?.focus());
   };
 
   if (summaries.isPending) return <LoadingState label="Loading the family updates…" />;
@@ -64,15 +78,18 @@ export const SummariesPanel = ({
   }
 
   const list = summaries.data;
+  const draft = draftId
+    ? (list.find((summary) => summary.id === draftId && summary.status === 'draft') ?? null)
+    : null;
   const reasonId = `${clientId}-summaries-consent`;
   return (
     <div className="flex flex-col gap-8">
       <section aria-labelledby="family-updates-heading" className="flex flex-col gap-3">
         <div className="flex flex-wrap items-center justify-between gap-3">
-          <h3 id="family-updates-heading" className="text-2xl font-bold">
+          <h3 id="family-updates-heading" ref={listHeading} tabIndex={-1} className="text-2xl font-bold">
             Progress summaries
           </h3>
-          {owner && !composing && (
+          {owner && !composing && !draft && (
             <Button
               ref={newButton}
               variant="primary"
@@ -118,15 +135,33 @@ export const SummariesPanel = ({
               contacts={contacts.data}
               versions={versions.data ?? []}
               onCancel={closeComposer}
-              onSent={(summary) => {
-                closeComposer();
-                announce(
-                  'success',
-                  `The summary is saved and ${queuedWords(summary, 1)} queued. They go out in the background; their state shows below.`,
-                );
-              }}
+              onDrafted={(summary) => openDraft(summary.id)}
             />
           )}
+        </section>
+      )}
+
+      {owner && draft && (
+        <section id={`draft-${draft.id}`} className="rounded-xl border-2 border-ink bg-paper p-5 sm:p-8">
+          <SummaryDraftEditor
+            summary={draft}
+            pseudonym={pseudonym}
+            recipientNames={draft.contactIds.map(
+              (id) => contacts.data?.find((contact) => contact.id === id)?.name ?? 'a removed contact',
+            )}
+            onClose={closeDraft}
+            onDeleted={() => {
+              closeDraft();
+              announce('success', 'The draft was deleted. Nothing was sent.');
+            }}
+            onSent={(summary) => {
+              closeDraft();
+              announce(
+                'success',
+                `The summary was sent: ${queuedWords(summary, 1)} queued. They go out in the background; their state shows below.`,
+              );
+            }}
+          />
         </section>
       )}
 
@@ -141,6 +176,7 @@ export const SummariesPanel = ({
           summaries={list}
           versions={versions.data ?? []}
           canSend={owner}
+          onOpenDraft={(summary) => openDraft(summary.id)}
           onResent={(summary) => {
             const round = Math.max(...summary.recipients.map((r) => r.round));
             announce('success', `Sending again: ${queuedWords(summary, round)} queued.`);

@@ -30,7 +30,8 @@ type SummaryComposerProps = {
   pseudonym: string;
   contacts: Contact[];
   versions: ProfileVersion[];
-  onSent: (summary: Summary) => void;
+  /** Called with the draft once it is stored (nothing is sent yet). */
+  onDrafted: (summary: Summary) => void;
   onCancel: () => void;
 };
 
@@ -73,15 +74,15 @@ const toggled = (list: string[], id: string, on: boolean): string[] =>
 
 /**
  * "New progress summary": period, versions, recipients and the clinician's note; "Preview" shows
- * the e-mail as the family will get it (text and charts from the API), and only a current preview
- * can be sent. Contacts who cannot receive summaries are listed, switched off, with the reason.
+ * the generated text and charts (from the API), "Write the draft" stores a draft to edit and send.
+ * Contacts who cannot receive summaries are listed, switched off, with the reason.
  */
 export const SummaryComposer = ({
   clientId,
   pseudonym,
   contacts,
   versions,
-  onSent,
+  onDrafted,
   onCancel,
 }: SummaryComposerProps) => {
   const ids = useId();
@@ -102,11 +103,11 @@ export const SummaryComposer = ({
       aria-labelledby={`${ids}-title`}
       defaultValues={{ ...defaultPeriod(), versionIds: [], contactIds: [], note: '' }}
       onSubmit={async (input) => {
-        // The same key when the same summary is sent again after an error: it goes out once.
+        // The same key when the same draft is asked for again after an error: it is made once.
         const idempotencyKey = sendKey.keyFor({ clientId, input });
         const summary = await createSummary.mutateAsync({ clientId, input, idempotencyKey });
         sendKey.done();
-        onSent(summary);
+        onDrafted(summary);
       }}
     >
       {({ register, formState, setValue, watch, trigger, getValues }) => {
@@ -118,6 +119,7 @@ export const SummaryComposer = ({
           to: watch('to'),
           versionIds,
           note: (watch('note') ?? '').trim(),
+          includeComments: [],
         };
         const key = JSON.stringify(request);
         const current = preview?.key === key ? preview.result : null;
@@ -147,8 +149,8 @@ export const SummaryComposer = ({
               </h3>
               <p className="mt-1 text-ink-soft">
                 The figures are estimates from practice texts, not measurements of everyday use; the e-mail
-                says so. Each e-mail carries a link with which the family member can stop receiving summaries
-                without an account.
+                says so. You get a draft to edit before anything is sent. Each e-mail carries a link with
+                which the family member can stop receiving summaries without an account.
               </p>
             </div>
             <FormServerError message={errors.root?.server?.message} />
@@ -162,7 +164,8 @@ export const SummaryComposer = ({
             <fieldset className="flex flex-col gap-3" aria-describedby={`${ids}-versions-hint`}>
               <legend className="mb-1 text-xl font-bold">Versions to include</legend>
               <p id={`${ids}-versions-hint`} className="text-ink-soft">
-                Tick none to include every version trained or approved in the period.
+                Tick none to include only the versions a supervisor approved in the period. A version you tick
+                that is not approved is labelled with its status in the e-mail.
               </p>
               {errors.versionIds?.message && (
                 <FieldError id={`${ids}-versions-error`}>{errors.versionIds.message}</FieldError>
@@ -234,12 +237,11 @@ export const SummaryComposer = ({
             />
 
             <div className="flex flex-wrap gap-3">
-              <Button
-                variant="primary"
-                onClick={() => void showPreview()}
-                disabled={previewSummary.isPending}
-              >
-                {previewSummary.isPending ? 'Making the preview…' : 'Preview'}
+              <Button type="submit" variant="primary" disabled={formState.isSubmitting}>
+                {formState.isSubmitting ? 'Writing the draft…' : 'Write the draft'}
+              </Button>
+              <Button onClick={() => void showPreview()} disabled={previewSummary.isPending}>
+                {previewSummary.isPending ? 'Making the preview…' : 'Preview the figures'}
               </Button>
               <Button onClick={onCancel}>Cancel</Button>
             </div>
@@ -255,7 +257,7 @@ export const SummaryComposer = ({
             <div role="status" aria-live="polite">
               {stale && (
                 <Alert tone="info" title="The preview is out of date.">
-                  You changed the period, the versions or the note. Preview again before sending.
+                  You changed the period, the versions or the note. Preview again to see the new figures.
                 </Alert>
               )}
             </div>
@@ -271,13 +273,6 @@ export const SummaryComposer = ({
                   Preview
                 </h3>
                 <SummaryPreviewView preview={current} />
-                <div className="flex flex-wrap items-center gap-3">
-                  <Button type="submit" variant="primary" disabled={formState.isSubmitting}>
-                    {formState.isSubmitting
-                      ? 'Sending…'
-                      : `Send to ${contactIds.length} ${contactIds.length === 1 ? 'recipient' : 'recipients'}`}
-                  </Button>
-                </div>
               </section>
             )}
           </div>

@@ -13,7 +13,7 @@ import {
   TableHead,
   TableRow,
 } from '@/components/ui/table';
-import { formatDateTime } from '@/lib/format';
+import { formatDate, formatDateTime } from '@/lib/format';
 import { useIdempotencyKey } from '../api/idempotency-key';
 import { useResendSummary } from '../api/resend-summary';
 import {
@@ -24,6 +24,7 @@ import {
 } from '../lib/summary-words';
 
 const summaryTones: Record<SummaryStatus, BadgeTone> = {
+  draft: 'warn',
   sending: 'neutral',
   sent: 'good',
   partly_failed: 'warn',
@@ -104,11 +105,42 @@ type SummaryCardProps = {
   versions: ProfileVersion[];
   canSend: boolean;
   onResend: (summary: Summary) => void;
+  onOpenDraft: (summary: Summary) => void;
 };
 
-const SummaryCard = ({ summary, versions, canSend, onResend }: SummaryCardProps) => {
+const SummaryCard = ({ summary, versions, canSend, onResend, onOpenDraft }: SummaryCardProps) => {
   const id = useId();
   const rounds = Math.max(1, ...summary.recipients.map((r) => r.round));
+  const period = `${formatDate(summary.from)} to ${formatDate(summary.to)}`;
+  if (summary.status === 'draft') {
+    return (
+      <article
+        aria-labelledby={`${id}-title`}
+        className="flex flex-col gap-3 rounded-xl border-2 border-dashed border-thread bg-surface p-5"
+      >
+        <div className="flex flex-wrap items-start justify-between gap-3">
+          <div className="flex flex-col gap-1">
+            <h3 id={`${id}-title`} className="text-xl font-bold">
+              {period}
+            </h3>
+            <p className="text-ink-soft">
+              {versionWords(summary.versionIds, versions)} · drafted {formatDateTime(summary.createdAt)}
+            </p>
+          </div>
+          <Badge tone={summaryTones[summary.status]}>{summaryStatusLabels[summary.status]}</Badge>
+        </div>
+        <p className="font-bold">{summary.subject}</p>
+        {canSend && (
+          <div>
+            <Button onClick={() => onOpenDraft(summary)}>
+              Open the draft
+              <span className="sr-only">: {period}</span>
+            </Button>
+          </div>
+        )}
+      </article>
+    );
+  }
   return (
     <article
       aria-labelledby={`${id}-title`}
@@ -117,10 +149,12 @@ const SummaryCard = ({ summary, versions, canSend, onResend }: SummaryCardProps)
       <div className="flex flex-wrap items-start justify-between gap-3">
         <div className="flex flex-col gap-1">
           <h3 id={`${id}-title`} className="text-xl font-bold">
-            {summary.from} to {summary.to}
+            {period}
           </h3>
           <p className="text-ink-soft">
-            {versionWords(summary.versionIds, versions)} · made {formatDateTime(summary.createdAt)}
+            {versionWords(summary.versionIds, versions)} · sent{' '}
+            {formatDateTime(summary.sentAt ?? summary.createdAt)}
+            {summary.sentBy ? ` by ${summary.sentBy}` : ''}
             {rounds > 1 ? ` · sent ${rounds} times` : ''}
           </p>
         </div>
@@ -171,9 +205,7 @@ const SummaryCard = ({ summary, versions, canSend, onResend }: SummaryCardProps)
         <div>
           <Button onClick={() => onResend(summary)}>
             Send again
-            <span className="sr-only">
-              : summary {summary.from} to {summary.to}
-            </span>
+            <span className="sr-only">: summary {period}</span>
           </Button>
         </div>
       )}
@@ -186,10 +218,11 @@ type SummaryListProps = {
   versions: ProfileVersion[];
   canSend: boolean;
   onResent: (summary: Summary) => void;
+  onOpenDraft: (summary: Summary) => void;
 };
 
-/** The client's stored summaries, newest first, with the state of every e-mail. */
-export const SummaryList = ({ summaries, versions, canSend, onResent }: SummaryListProps) => {
+/** The client's summaries, newest first: drafts to open, and sent ones with the state of every e-mail. */
+export const SummaryList = ({ summaries, versions, canSend, onResent, onOpenDraft }: SummaryListProps) => {
   const [resending, setResending] = useState<Summary | null>(null);
   return (
     <div className="flex flex-col gap-5">
@@ -200,6 +233,7 @@ export const SummaryList = ({ summaries, versions, canSend, onResent }: SummaryL
           versions={versions}
           canSend={canSend}
           onResend={setResending}
+          onOpenDraft={onOpenDraft}
         />
       ))}
       {canSend && (

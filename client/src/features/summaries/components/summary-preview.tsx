@@ -3,7 +3,8 @@ import { Alert } from '@/components/ui/alert';
 
 /**
  * The e-mail as the family will read it: subject, the plain text, and the charts as the same PNG
- * images the e-mail carries, each with the alt text that states every figure in it.
+ * images the e-mail carries, at the size the e-mail shows them, each with the alt text that states
+ * every figure in it.
  */
 export const SummaryPreviewView = ({ preview }: { preview: SummaryPreview }) => (
   <div className="flex flex-col gap-4">
@@ -24,18 +25,20 @@ export const SummaryPreviewView = ({ preview }: { preview: SummaryPreview }) => 
       </div>
     </div>
     {preview.charts.length > 0 && (
-      <div className="flex flex-wrap gap-4">
+      <div className="flex flex-col gap-4">
         {preview.charts.map((chart) => (
-          <figure key={chart.name} className="flex max-w-full flex-col gap-2">
+          // At its CSS size (the PNG has twice the pixels, sharp on dense screens), never wider than
+          // the preview: a narrow window shrinks it, keeping its shape, as a phone's mail program does.
+          <figure key={chart.name} className="flex max-w-full flex-col gap-2" style={{ width: chart.width }}>
             <img
               src={`data:image/png;base64,${chart.pngBase64}`}
               alt={chart.alt}
-              width={480}
-              height={240}
-              className="h-auto max-w-full rounded border-2 border-thread"
+              width={chart.width}
+              height={chart.height}
+              className="h-auto w-full max-w-full rounded border-2 border-thread"
             />
             {/* The same words as the alt text, for sighted readers; hidden from screen readers, who hear the alt. */}
-            <figcaption aria-hidden="true" className="max-w-[480px] text-ink-soft">
+            <figcaption aria-hidden="true" className="text-ink-soft">
               {chart.alt}
             </figcaption>
           </figure>
