@@ -22,6 +22,17 @@ export const toClinicSettings = (row: ClinicSettingsRow): ClinicSettings => ({
   updatedBy: row.updatedBy ? { id: row.updatedBy.id, name: row.updatedBy.name } : null,
 });
 
+/**
+ * The clinic's details as `manager` sees them, or DEFAULT_CLINIC_SETTINGS: for code outside Nest's
+ * injection (the mail worker's steps take a DataSource); everything else calls ClinicSettingsService.get.
+ */
+export async function loadClinicSettings(manager: EntityManager): Promise<ClinicSettings> {
+  const row = await manager
+    .getRepository(ClinicSettingsRow)
+    .findOne({ where: { id: 1 }, relations: { updatedBy: true } });
+  return row ? toClinicSettings(row) : { ...DEFAULT_CLINIC_SETTINGS };
+}
+
 @Injectable()
 export class ClinicSettingsService {
   constructor(
@@ -34,11 +45,8 @@ export class ClinicSettingsService {
    * (`configured: false`, name "the clinic", the rest empty) while an admin has not saved them.
    * @param manager read inside the caller's transaction (e.g. the mail worker's)
    */
-  async get(manager: EntityManager = this.dataSource.manager): Promise<ClinicSettings> {
-    const row = await manager
-      .getRepository(ClinicSettingsRow)
-      .findOne({ where: { id: 1 }, relations: { updatedBy: true } });
-    return row ? toClinicSettings(row) : { ...DEFAULT_CLINIC_SETTINGS };
+  get(manager: EntityManager = this.dataSource.manager): Promise<ClinicSettings> {
+    return loadClinicSettings(manager);
   }
 
   /** Sets every field (admin); audits each changed field as before → after. */
