@@ -55,10 +55,14 @@ const helpers = {
     return page;
   },
   /** axe-core scan; returns the serious and critical violations. */
-  async seriousViolations(page, label) {
-    const report = await new AxeBuilder({ page })
-      .withTags(['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa', 'wcag22aa'])
-      .analyze();
+  /**
+   * Axe's serious and critical violations on the page. `exclude`: a selector left out, e.g. a frame
+   * that runs no scripts (axe cannot run inside it; scan its document on a page of its own instead).
+   */
+  async seriousViolations(page, label, { exclude } = {}) {
+    let builder = new AxeBuilder({ page }).withTags(['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa', 'wcag22aa']);
+    if (exclude) builder = builder.exclude(exclude);
+    const report = await builder.analyze();
     const bad = report.violations.filter((v) => v.impact === 'serious' || v.impact === 'critical');
     for (const v of bad) {
       console.log(`    axe ${label}: ${v.impact} ${v.id}: ${v.help} (${v.nodes.length} nodes)`);
@@ -82,7 +86,12 @@ for (const suite of browserSuites) {
       console.log(`  ✓ ${title} (${Date.now() - started} ms)`);
     } catch (error) {
       results.push({ title, ok: false, ms: Date.now() - started });
-      console.log(`  ✗ ${title}\n    ${String(error?.stack ?? error).split('\n').slice(0, 6).join('\n    ')}`);
+      console.log(
+        `  ✗ ${title}\n    ${String(error?.stack ?? error)
+          .split('\n')
+          .slice(0, 6)
+          .join('\n    ')}`,
+      );
     }
     for (const page of context.pages().slice(1)) await page.close();
   }

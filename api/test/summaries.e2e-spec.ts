@@ -29,6 +29,7 @@ import { Summary } from '../src/summaries/summary.entity';
 import { type Cast, castOrder, newCast, newClient, newConsent, send } from './caseload-helpers';
 import { sentSummaryTo } from './summary-helpers';
 import { createTestApp, resetDatabase, type TestApp, testDatabaseUrl } from './test-app';
+import { PNG } from 'pngjs';
 
 type InboxMail = {
   id: string;
@@ -182,6 +183,16 @@ describe('summary e-mail delivery (mail job)', () => {
     // maildev's JSON shows the HTML with each cid: image resolved to a data: URI, so both images
     // were found by Content-ID; the raw message names them.
     expect(mail.html.match(/<img src="data:image\/png;base64,/g)).toHaveLength(2);
+    // Each chart decodes as a PNG (pngjs, a general PNG decoder) at twice the size the <img> states.
+    const images = [
+      ...mail.html.matchAll(/<img src="data:image\/png;base64,([^"]+)" width="(\d+)" height="(\d+)"/g),
+    ];
+    expect(images).toHaveLength(2);
+    for (const [, data, width, height] of images) {
+      const png = PNG.sync.read(Buffer.from(data, 'base64'));
+      expect([png.width, png.height]).toEqual([2 * Number(width), 2 * Number(height)]);
+      expect(Number(width)).toBeLessThanOrEqual(600);
+    }
     const raw = await (await fetch(`${mailApi()}/${mail.id}/download`)).text();
     expect(raw).toMatch(/^Content-ID: <savings-chart@keyloom>/m);
     expect(raw).toMatch(/^Content-ID: <speed-chart@keyloom>/m);

@@ -7,7 +7,7 @@ import { join } from 'node:path';
 // The demo samples' folder, as the API's seed finds it (api/src/config/data-paths.ts).
 import { demoSamplesDir as demoDir } from '../../api/dist/config/data-paths.js';
 import { signIn, signOut } from './accounts.mjs';
-import { assertNoSidewaysScroll } from './page-checks.mjs';
+import { assertNoSidewaysScroll, focused, press } from './page-checks.mjs';
 
 // A phone number as the issue's detector looks for (loose: UK-style and +country forms).
 const phonePattern = /(\+\d{1,3}[\s-]?)?\(?0?\d{2,5}\)?[\s-]?\d{3}[\s-]?\d{3,4}\b/;
@@ -27,29 +27,31 @@ function pickDemoFiles() {
 
 const pseudonym = `E. Tern ${Date.now() % 100000}`;
 const correctedPseudonym = `C. Orrect ${Date.now() % 100000}`;
+const redactedPseudonym = `U. Ndo ${Date.now() % 100000}`;
 
-/** The accessible name (or text) and role of the focused element, to say where focus landed. */
-const focused = (page) =>
-  page.evaluate(() => {
-    const element = document.activeElement;
-    const labelledBy = element?.getAttribute('aria-labelledby');
-    const name =
-      element?.getAttribute('aria-label') ??
-      (labelledBy ? document.getElementById(labelledBy)?.textContent : null) ??
-      element?.textContent ??
-      '';
-    return { tag: element?.tagName.toLowerCase() ?? '', name: name.trim() };
-  });
-
-/** Focuses `locator` (as Tab would reach it) and presses `key` on it. */
-const press = async (locator, key = 'Enter') => {
-  await locator.focus();
-  await locator.press(key);
-};
+// Invented writing for the redaction test: one UK-style phone number for the detector to flag.
+const PHONE = '07700 900123';
+const pastedText = `Ring me on ${PHONE} after the race. The club meets on Saturdays at the boathouse and we row if the river is calm.`;
 
 /** Also kept outside e2e/out, for a person to look at. */
 const screenshotTo = (page, name) =>
   page.screenshot({ path: `/tmp/corrections-${name}.png`, fullPage: true });
+
+/** Signed in as the clinician, a new client created by keyboard alone; its consent tab open. */
+const newClientByKeyboard = async (t, name) => {
+  await t.context.clearCookies();
+  const page = await t.newPage();
+  await signIn(page, t.appUrl, 'clinician@willowmere.example');
+  await page.waitForURL((url) => url.pathname === '/caseload');
+  await press(page.getByRole('button', { name: 'New client' }));
+  const newClient = page.getByRole('dialog', { name: 'New client' });
+  await newClient.getByLabel('Pseudonym').fill(name);
+  await press(newClient.getByRole('button', { name: 'Create client' }));
+  await page.getByRole('heading', { level: 1, name }).waitFor();
+  await press(page.getByRole('tab', { name: 'Consent & family' }));
+  await page.waitForURL(/\/consent$/);
+  return page;
+};
 
 export const caseloadSuite = {
   name: 'caseload',
@@ -270,17 +272,7 @@ export const caseloadSuite = {
     [
       'clinician records, voids and withdraws consent and deletes a contact by keyboard alone (focus, axe)',
       async (t) => {
-        await t.context.clearCookies();
-        const page = await t.newPage();
-        await signIn(page, t.appUrl, 'clinician@willowmere.example');
-        await page.waitForURL((url) => url.pathname === '/caseload');
-        await press(page.getByRole('button', { name: 'New client' }));
-        const newClient = page.getByRole('dialog', { name: 'New client' });
-        await newClient.getByLabel('Pseudonym').fill(correctedPseudonym);
-        await press(newClient.getByRole('button', { name: 'Create client' }));
-        await page.getByRole('heading', { level: 1, name: correctedPseudonym }).waitFor();
-        await press(page.getByRole('tab', { name: 'Consent & family' }));
-        await page.waitForURL(/\/consent$/);
+        const page = await newClientByKeyboard(t, correctedPseudonym);
 
         // An empty submit is refused: focus lands on the list of what is missing.
         const recordButton = page.getByRole('button', { name: 'Record consent' });
@@ -376,6 +368,102 @@ export const caseloadSuite = {
         assert.deepEqual(await focused(page), { tag: 'h3', name: 'Family contacts' });
         assert.deepEqual(await t.seriousViolations(page, 'consent tab after corrections'), []);
         await screenshotTo(page, 'after');
+        await signOut(page, 'Clinician');
+      },
+    ],
+    [
+      'clinician redacts a phone number, undoes it and deletes the sample by keyboard alone (focus, axe)',
+      async (t) => {
+        const page = await newClientByKeyboard(t, redactedPseudonym);
+        await press(page.getByRole('button', { name: 'Record consent' }));
+        const consent = page.getByRole('dialog', { name: /Record consent/ });
+        await press(consent.getByLabel(/^The client, /), 'Space');
+        await press(consent.getByLabel(/Training a personal model/), 'Space');
+        await consent.getByLabel('Date consent was given').fill('2026-09-14');
+        await press(consent.getByRole('button', { name: 'Record consent' }));
+        await consent.waitFor({ state: 'hidden' });
+
+        // Paste a sample; an empty paste is refused first, focus on the list of what is missing.
+        await press(page.getByRole('tab', { name: 'Writing samples' }));
+        await page.waitForURL(/\/samples$/);
+        await press(page.getByRole('button', { name: 'Paste text' }));
+        const paste = page.getByRole('form', { name: 'Paste text' });
+        await press(paste.getByRole('button', { name: 'Store pasted text' }));
+        await paste.getByRole('group', { name: '2 fields need attention' }).waitFor();
+        assert.deepEqual(await focused(page), { tag: 'div', name: '2 fields need attention' });
+        assert.deepEqual(await t.seriousViolations(page, 'paste refused'), []);
+        await screenshotTo(page, 'paste-refused');
+        await paste.getByLabel('Title').fill('Note to the rowing club');
+        await paste.getByRole('textbox', { name: 'Text', exact: true }).fill(pastedText);
+        await press(paste.getByRole('button', { name: 'Store pasted text' }));
+        await page
+          .getByRole('status')
+          .filter({ hasText: /Stored the pasted text/ })
+          .waitFor();
+        await press(page.getByRole('link', { name: 'Note to the rowing club' }));
+        await page.waitForURL(/\/samples\/[0-9a-f-]{36}$/);
+        await page.getByRole('heading', { name: 'Size and vocabulary' }).waitFor();
+        const text = page.getByRole('region', { name: 'Sample text' });
+        // The words of the text as shown (without the marks' words for screen readers).
+        const shownText = () =>
+          text.evaluate((region) => {
+            const copy = region.cloneNode(true);
+            for (const hidden of copy.querySelectorAll('.sr-only')) hidden.remove();
+            return copy.textContent;
+          });
+
+        // Redact, after the preview: focus on the flag, which now shows the placeholder.
+        await press(page.getByRole('button', { name: `Redact phone number ${PHONE}…` }));
+        const preview = page.getByRole('dialog', { name: 'Redact this?' });
+        await preview.getByText('After redaction').waitFor();
+        assert.deepEqual(await t.seriousViolations(page, 'redaction preview'), []);
+        await screenshotTo(page, 'redaction-preview');
+        await press(preview.getByRole('button', { name: 'Redact', exact: true }));
+        await preview.waitFor({ state: 'hidden' });
+        await page
+          .getByRole('status')
+          .filter({ hasText: /Redacted the phone number/ })
+          .waitFor();
+        await text.getByText('⟪phone⟫').waitFor();
+        assert.equal(await shownText(), pastedText.replace(PHONE, '⟪phone⟫'));
+        await page.waitForFunction(() => document.activeElement?.tagName === 'ARTICLE');
+        assert.deepEqual(await focused(page), { tag: 'article', name: 'Phone number: ⟪phone⟫' });
+        assert.deepEqual(await t.seriousViolations(page, 'sample after redaction'), []);
+        await screenshotTo(page, 'redacted');
+
+        // Undo: the number is back in the text and waits for a decision; focus stays on the flag.
+        await press(page.getByRole('button', { name: 'Undo redaction of phone number' }));
+        await page
+          .getByRole('status')
+          .filter({ hasText: /Undid the redaction: the phone number is back in the text/ })
+          .waitFor();
+        await text.getByText(PHONE).waitFor();
+        assert.equal(await shownText(), pastedText, 'the text is restored as pasted');
+        await page.waitForFunction(
+          (phone) => document.activeElement?.getAttribute('aria-label') === `Phone number: ${phone}`,
+          PHONE,
+        );
+        assert.deepEqual(await focused(page), { tag: 'article', name: `Phone number: ${PHONE}` });
+        assert.deepEqual(await t.seriousViolations(page, 'sample after undo'), []);
+        await screenshotTo(page, 'undone');
+
+        // Delete the sample from its page, with a reason: the samples list opens, focus on its heading.
+        await press(page.getByRole('button', { name: 'Delete sample…' }));
+        const remove = page.getByRole('dialog', { name: 'Delete “Note to the rowing club”?' });
+        await remove.getByLabel('Reason for deleting it').fill('Pasted for the wrong client.');
+        assert.deepEqual(await t.seriousViolations(page, 'delete sample dialog'), []);
+        await screenshotTo(page, 'delete-sample');
+        await press(remove.getByRole('button', { name: 'Delete sample' }));
+        await page.waitForURL(/\/samples$/);
+        await page
+          .getByRole('status')
+          .filter({ hasText: '“Note to the rowing club” was deleted.' })
+          .waitFor();
+        await page.getByText('No writing samples yet.').waitFor();
+        await page.waitForFunction(() => document.activeElement?.tagName === 'H3');
+        assert.deepEqual(await focused(page), { tag: 'h3', name: `Samples of ${redactedPseudonym}` });
+        assert.deepEqual(await t.seriousViolations(page, 'samples tab after deleting'), []);
+        await screenshotTo(page, 'sample-deleted');
         await signOut(page, 'Clinician');
       },
     ],

@@ -12,3 +12,22 @@ export async function assertNoSidewaysScroll(page, label) {
     `${label}: page is ${scrollWidth}px wide in a ${clientWidth}px window`,
   );
 }
+
+/** The accessible name (or text) and tag of the focused element, to say where focus landed. */
+export const focused = (page) =>
+  page.evaluate(() => {
+    const element = document.activeElement;
+    const labelledBy = element?.getAttribute('aria-labelledby');
+    const name =
+      element?.getAttribute('aria-label') ??
+      (labelledBy ? document.getElementById(labelledBy)?.textContent : null) ??
+      element?.textContent ??
+      '';
+    return { tag: element?.tagName.toLowerCase() ?? '', name: name.trim() };
+  });
+
+/** Focuses `locator` (as Tab would reach it) and presses `key` on it. */
+export const press = async (locator, key = 'Enter') => {
+  await locator.focus();
+  await locator.press(key);
+};

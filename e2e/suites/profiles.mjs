@@ -5,7 +5,7 @@
 import assert from 'node:assert/strict';
 import { openClientTabAsClinician, signIn, signOut } from './accounts.mjs';
 import { postTypedTrial } from './api-helpers.mjs';
-import { assertNoSidewaysScroll } from './page-checks.mjs';
+import { assertNoSidewaysScroll, focused, press } from './page-checks.mjs';
 
 // The seeded demo client (api/src/db/seeds/demo-client.seed.ts), with consent, ready samples
 // and the demo carer assigned.
@@ -14,6 +14,16 @@ const DEMO_CLIENT = 'R. Ashby';
 // Shared between the steps below: the version trained in the first one.
 let versionPath = null;
 let versionNumber = null;
+
+/** A fresh page signed in as `email`, on its home page, once the first step trained a version. */
+const signedInAfterTraining = async (t, email, home) => {
+  assert.ok(versionPath, 'the clinician step trained a version');
+  await t.context.clearCookies();
+  const page = await t.newPage();
+  await signIn(page, t.appUrl, email);
+  await page.waitForURL((url) => url.pathname === home);
+  return page;
+};
 
 export const profilesSuite = {
   name: 'profiles',
@@ -81,11 +91,7 @@ export const profilesSuite = {
     [
       'the assigned carer signs the version off with a comment',
       async (t) => {
-        assert.ok(versionPath, 'the clinician step trained a version');
-        await t.context.clearCookies();
-        const page = await t.newPage();
-        await signIn(page, t.appUrl, 'carer@willowmere.example');
-        await page.waitForURL((url) => url.pathname === '/my-clients');
+        const page = await signedInAfterTraining(t, 'carer@willowmere.example', '/my-clients');
         await page
           .getByRole('table', { name: 'Profile versions waiting for your sign-off, oldest first' })
           .getByRole('link', { name: `Version ${versionNumber} of ${DEMO_CLIENT}` })
@@ -107,7 +113,11 @@ export const profilesSuite = {
         await page.getByRole('button', { name: 'Sign off' }).click();
         const dialog = page.getByRole('dialog', { name: /^Sign off version/ });
         await dialog.getByRole('button', { name: 'Sign off' }).click();
-        await dialog.getByText('Add a comment about the trial.').waitFor();
+        // Refused without a comment: the list of what is missing names it (signOffSchema's message).
+        await dialog
+          .getByRole('group', { name: 'One field needs attention' })
+          .getByRole('link', { name: 'How did the try-outs go?: Add a comment about the trial.' })
+          .waitFor();
         await dialog
           .getByLabel('How did the try-outs go?')
           .fill('Tried it for a week of evenings; he liked it.');
@@ -124,11 +134,7 @@ export const profilesSuite = {
     [
       'the supervisor approves it from the reviews page and it becomes the active profile',
       async (t) => {
-        assert.ok(versionPath, 'the clinician step trained a version');
-        await t.context.clearCookies();
-        const page = await t.newPage();
-        await signIn(page, t.appUrl, 'supervisor@willowmere.example');
-        await page.waitForURL((url) => url.pathname === '/reviews');
+        const page = await signedInAfterTraining(t, 'supervisor@willowmere.example', '/reviews');
         const link = page
           .getByRole('table', { name: 'Profile versions waiting for your approval, oldest first' })
           .getByRole('link', { name: `Version ${versionNumber} of ${DEMO_CLIENT}` });
@@ -149,6 +155,54 @@ export const profilesSuite = {
         await page.getByText('Active profile').first().waitFor();
         await page.getByRole('list', { name: 'History' }).getByText('Active profile').waitFor();
         await t.screenshot(page, 'profile-active');
+        await signOut(page, 'Supervisor');
+      },
+    ],
+    [
+      'the supervisor retires the active version by keyboard alone, with a reason (focus, axe)',
+      async (t) => {
+        const page = await signedInAfterTraining(t, 'supervisor@willowmere.example', '/reviews');
+        await page.goto(`${t.appUrl}${versionPath}`, { waitUntil: 'networkidle' });
+        await page.getByRole('heading', { name: 'Results' }).waitFor();
+        const retire = page.getByRole('button', { name: 'Retire this version' });
+        // Enabled once the client's versions say which one becomes active instead.
+        await page.waitForFunction(() =>
+          [...document.querySelectorAll('button')].some(
+            (button) => button.textContent === 'Retire this version' && !button.disabled,
+          ),
+        );
+        await press(retire);
+        const dialog = page.getByRole('dialog', { name: `Retire version ${versionNumber}?` });
+        // The seed's version was never approved: none becomes active instead.
+        await dialog
+          .getByText(
+            `Version ${versionNumber} stops being the active profile; no version will be active until a new one is approved.`,
+          )
+          .waitFor();
+        // A retirement without a reason is refused: focus on the list of what is missing.
+        await press(dialog.getByRole('button', { name: 'Retire this version' }));
+        await dialog.getByRole('group', { name: 'One field needs attention' }).waitFor();
+        assert.deepEqual(await focused(page), { tag: 'div', name: 'One field needs attention' });
+        assert.deepEqual(await t.seriousViolations(page, 'retire dialog refused'), []);
+        await t.screenshot(page, 'profile-retire-refused');
+        const reason = 'Suggestions got slower to reach on the switch; back to the base model for now.';
+        await dialog.getByLabel('Why is this version retired?').fill(reason);
+        await press(dialog.getByRole('button', { name: 'Retire this version' }));
+        await dialog.waitFor({ state: 'hidden' });
+        await page
+          .getByRole('status')
+          .filter({ hasText: `Version ${versionNumber} is retired; no version is active.` })
+          .waitFor();
+        // Focus lands on the version's actions, right under the message (the Retire button is gone).
+        await page.waitForFunction(() => document.activeElement?.getAttribute('role') === 'group');
+        assert.deepEqual(await focused(page), { tag: 'div', name: 'Actions on this version' });
+        assert.equal(await retire.count(), 0, 'a retired version cannot be retired again');
+        // The history keeps the step with the reason.
+        const history = page.getByRole('list', { name: 'History' });
+        await history.getByText(`“${reason}”`).waitFor();
+        assert.match((await history.getByRole('listitem').last().textContent()) ?? '', /^Retired/);
+        assert.deepEqual(await t.seriousViolations(page, 'version after retiring'), []);
+        await t.screenshot(page, 'profile-retired');
         await signOut(page, 'Supervisor');
       },
     ],

@@ -177,7 +177,11 @@ export const summariesSuite = {
         await save.press('Enter');
         const frame = page.frameLocator('iframe[title*="as the family sees it"]');
         await frame.getByText(GREETING).waitFor();
-        assert.deepEqual(await t.seriousViolations(page, 'draft summary with e-mail preview'), []);
+        // The e-mail's own document is scanned below, opened as the family member opens it.
+        assert.deepEqual(
+          await t.seriousViolations(page, 'draft summary with e-mail preview', { exclude: 'iframe' }),
+          [],
+        );
         await t.screenshot(page, 'summary-draft');
         const subject = await editor.getByLabel('Subject').inputValue();
 

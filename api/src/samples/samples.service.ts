@@ -18,6 +18,7 @@ import {
   type UploadResult,
   type UploadSamplesFields,
   undoRedaction,
+  trainedOnMessage,
 } from '@keyloom/shared';
 import { createHash } from 'node:crypto';
 import type { DataSource, EntityManager } from 'typeorm';
@@ -53,14 +54,6 @@ export const ORIGINAL_GONE_MESSAGE =
   'A version was trained on this sample after the redaction, so the original text is gone; the redaction stays.';
 export const EXCLUDED_FLAGS_MESSAGE = 'This sample is left out; include it again before changing its flags.';
 
-/** "Version 3 was trained on it" / "Versions 2 and 3 were trained on it". */
-export function trainedOnMessage(numbers: number[]): string {
-  const list =
-    numbers.length === 1
-      ? `Version ${numbers[0]} was`
-      : `Versions ${numbers.slice(0, -1).join(', ')} and ${numbers[numbers.length - 1]} were`;
-  return `${list} trained on it: leave it out of future versions instead.`;
-}
 
 // Versions that froze the sample, by number: `trained` = every one except drafts that never started training.
 const VERSIONS_WITH_SAMPLE = `

@@ -72,6 +72,19 @@ export const pasteSampleSchema = z
   .refine(periodInOrder, periodIssue);
 export type PasteSampleInput = z.infer<typeof pasteSampleSchema>;
 
+/**
+ * Why a sample cannot be deleted once versions have trained on it: "Version 3 was trained on it" /
+ * "Versions 2 and 3 were trained on it", and what to do instead. The API's 409 and the sample page
+ * say the same.
+ */
+export function trainedOnMessage(numbers: readonly number[]): string {
+  const list =
+    numbers.length === 1
+      ? `Version ${numbers[0]} was`
+      : `Versions ${numbers.slice(0, -1).join(', ')} and ${numbers[numbers.length - 1]} were`;
+  return `${list} trained on it: leave it out of future versions instead.`;
+}
+
 // Likely personal data that should not reach a model.
 export const personalDataKinds = [
   'email',

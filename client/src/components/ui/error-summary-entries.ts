@@ -7,12 +7,27 @@ const controlsOf = (form: HTMLFormElement, name: string): HTMLElement[] =>
       element instanceof HTMLElement && element.getAttribute('name') === name,
   );
 
-/** The visible words that name a control: its fieldset's legend for a group of boxes, else its label. */
+/** The control a summary link moves to: the first of its name that can take focus (a box may be switched off). */
+const controlOf = (form: HTMLFormElement, name: string): HTMLElement | undefined => {
+  const controls = controlsOf(form, name);
+  return controls.find((control) => !control.matches(':disabled')) ?? controls[0];
+};
+
+/**
+ * The visible words that name a control: its fieldset's legend for a group of boxes, else the
+ * elements it is labelled by (a label that also holds a hint), else its label.
+ */
 const labelOf = (control: HTMLElement): string => {
   const grouped =
     control instanceof HTMLInputElement && (control.type === 'radio' || control.type === 'checkbox');
   const legend = grouped ? control.closest('fieldset')?.querySelector('legend') : null;
   if (legend?.textContent) return legend.textContent.trim();
+  const labelledBy = (control.getAttribute('aria-labelledby') ?? '')
+    .split(/\s+/)
+    .map((id) => control.ownerDocument.getElementById(id)?.textContent?.trim() ?? '')
+    .filter(Boolean)
+    .join(' ');
+  if (labelledBy) return labelledBy;
   const labels = 'labels' in control ? (control as HTMLInputElement).labels : null;
   return labels?.[0]?.textContent?.trim() ?? control.getAttribute('aria-label') ?? '';
 };
@@ -23,7 +38,7 @@ export const errorSummaryEntries = (
   errors: ReadonlyArray<{ name: string; message: string }>,
 ): ErrorSummaryEntry[] =>
   errors
-    .map((error) => ({ ...error, control: controlsOf(form, error.name)[0] }))
+    .map((error) => ({ ...error, control: controlOf(form, error.name) }))
     .filter((error): error is typeof error & { control: HTMLElement } => error.control !== undefined)
     .sort((a, b) =>
       a.control.compareDocumentPosition(b.control) & Node.DOCUMENT_POSITION_FOLLOWING ? -1 : 1,

@@ -4,6 +4,7 @@ import {
   type FormEvent,
   type ReactNode,
   useEffect,
+  useId,
   useRef,
   useState,
 } from 'react';
@@ -36,7 +37,10 @@ type FormProps<TSchema extends z.ZodType<FieldValues, FieldValues>> = Omit<
   onSubmit: (values: z.output<TSchema>) => Promise<unknown> | void;
   defaultValues?: DefaultValues<z.input<TSchema>>;
   options?: Omit<UseFormProps<z.input<TSchema>, unknown, z.output<TSchema>>, 'resolver' | 'defaultValues'>;
-  children: (methods: UseFormReturn<z.input<TSchema>, unknown, z.output<TSchema>>) => ReactNode;
+  children: (
+    methods: UseFormReturn<z.input<TSchema>, unknown, z.output<TSchema>>,
+    summary: FormSummary<z.input<TSchema>>,
+  ) => ReactNode;
   /**
    * The values as they will be sent, before they are checked: drop what the form does not show (a
    * hidden field must never block a submit). Default: the values unchanged.
@@ -48,6 +52,15 @@ type FormProps<TSchema extends z.ZodType<FieldValues, FieldValues>> = Omit<
    * refused field, as react-hook-form does.
    */
   errorSummary?: boolean;
+};
+
+/** What a form offers beside react-hook-form's methods. */
+export type FormSummary<TValues extends FieldValues> = {
+  /**
+   * Checks some fields without submitting (e.g. before a preview); refused ones are listed at the top
+   * and focused just like a refused submit. Resolves true when all of them pass.
+   */
+  checkFields: (names: Array<Path<TValues>>) => Promise<boolean>;
 };
 
 /** Field name → message of each refused field (top level; a group such as a list of boxes counts once). */
@@ -85,7 +98,10 @@ export const Form = <TSchema extends z.ZodType<FieldValues, FieldValues>>({
     defaultValues,
     resolver: prepare ? (values, context, opts) => checked(prepare(values), context, opts) : checked,
   });
-  const formRef = useRef<HTMLFormElement>(null);
+  // The form is found by its id, not a ref: checkFields is handed to the render function, and a
+  // function given to render must not read a ref.
+  const generatedId = useId();
+  const formId = formProps.id ?? `form-${generatedId}`;
   const summaryRef = useRef<HTMLDivElement>(null);
   const [summary, setSummary] = useState<{ entries: ErrorSummaryEntry[]; shown: number }>({
     entries: [],
@@ -96,9 +112,25 @@ export const Form = <TSchema extends z.ZodType<FieldValues, FieldValues>>({
     if (summary.shown > 0) summaryRef.current?.focus();
   }, [summary.shown]);
   const showSummary = (errors: FieldErrors | Record<string, { message?: string }>) => {
-    if (!errorSummary || !formRef.current) return;
-    const entries = errorSummaryEntries(formRef.current, flatErrors(errors));
+    const form = document.getElementById(formId);
+    if (!errorSummary || !(form instanceof HTMLFormElement)) return;
+    const entries = errorSummaryEntries(form, flatErrors(errors));
     setSummary((before) => ({ entries, shown: entries.length > 0 ? before.shown + 1 : before.shown }));
+  };
+
+  const checkFields = async (names: Array<Path<z.input<TSchema>>>) => {
+    if (await methods.trigger(names)) {
+      setSummary((before) => ({ ...before, entries: [] }));
+      return true;
+    }
+    const refused = Object.fromEntries(
+      names.flatMap((name) => {
+        const message = methods.getFieldState(name).error?.message;
+        return message ? [[name, { message }]] : [];
+      }),
+    );
+    showSummary(refused);
+    return false;
   };
 
   const send = async (values: z.output<TSchema>) => {
@@ -121,9 +153,9 @@ export const Form = <TSchema extends z.ZodType<FieldValues, FieldValues>>({
   const submit = (event: FormEvent<HTMLFormElement>) => methods.handleSubmit(send, showSummary)(event);
 
   return (
-    <form noValidate onSubmit={submit} ref={formRef} {...formProps}>
+    <form noValidate onSubmit={submit} {...formProps} id={formId}>
       {errorSummary && <ErrorSummary ref={summaryRef} entries={summary.entries} />}
-      {children(methods)}
+      {children(methods, { checkFields })}
     </form>
   );
 };

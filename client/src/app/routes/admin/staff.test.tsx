@@ -3,6 +3,7 @@ import { screen, waitFor, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
 import { sessionUser, staffUser } from '@/testing/data';
 import { CSRF_TOKEN, mockFetch, type RecordedRequest, sessionRoutes } from '@/testing/mock-fetch';
+import { expectErrorSummary } from '@/testing/error-summary';
 import { renderApp } from '@/testing/render-app';
 
 const admin = staffUser('admin', { lastSignInAt: '2026-02-03T14:05:00.000Z' });
@@ -80,6 +81,14 @@ describe('Staff page', () => {
     expect(form.getByText('Use at least 12 characters.')).toBeInTheDocument();
     expect(form.getByLabelText('Full name')).toHaveAttribute('aria-invalid', 'true');
     expect(form.getByLabelText('First password')).toHaveAccessibleDescription(/Use at least 12 characters\./);
+    // The refused fields are listed at the top of the dialog, in the order of the form; focus is there.
+    const summary = await expectErrorSummary(dialog, '3 fields need attention', [
+      'Full name: Enter a name.',
+      'E-mail address: Enter a valid e-mail address.',
+      'First password: Use at least 12 characters.',
+    ]);
+    await user.click(within(summary).getByRole('link', { name: /^E-mail address/ }));
+    expect(form.getByLabelText('E-mail address')).toHaveFocus();
     expect(api.requestsTo('POST /api/users')).toHaveLength(0);
   });
 

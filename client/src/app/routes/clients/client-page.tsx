@@ -1,5 +1,6 @@
 import type { Client, Role } from '@keyloom/shared';
 import { Tab, TabGroup, TabList, TabPanel, TabPanels } from '@headlessui/react';
+import { useQuery } from '@tanstack/react-query';
 import { type ReactNode, useState } from 'react';
 import { Link, Navigate, useNavigate, useParams } from 'react-router-dom';
 import { PageLoading } from '@/components/layout/page-loading';
@@ -9,6 +10,7 @@ import { type Announcement, LiveRegion } from '@/components/ui/live-region';
 import { PageHeader } from '@/components/ui/page-header';
 import { type ClientTab, clientPath, roleHome } from '@/config/paths';
 import { useMe } from '@/features/auth/api/get-me';
+import { profileVersionsQueryOptions } from '@/features/profiles/api/get-profile-versions';
 import { useClient } from '@/features/clients/api/get-client';
 import { CarerAssignments } from '@/features/clients/components/carer-assignments';
 import { ClientDetails } from '@/features/clients/components/client-details';
@@ -76,6 +78,11 @@ export const ClientRoute = () => {
   const announce: Announce = (tone, text) => setAnnouncement({ tone, text });
 
   const role = me.data?.role ?? 'carer';
+  // On the samples tab the owner's delete buttons need to know which samples a version was trained on.
+  const versions = useQuery({
+    ...profileVersionsQueryOptions(clientId),
+    enabled: tab === 'samples' && role === 'clinician',
+  });
   const tabs = tabsForRole(role);
   const index = tabs.indexOf(tab as ClientTab);
   if (index < 0) return <Navigate to={clientPath(clientId)} replace />;
@@ -115,6 +122,7 @@ export const ClientRoute = () => {
         trainingConsent={data.trainingConsent}
         canEdit={role === 'clinician'}
         announce={announce}
+        versions={versions.data}
       />
     ),
     profiles: <ProfileVersionsTab client={data} role={role} />,

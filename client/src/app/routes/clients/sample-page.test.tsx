@@ -1,9 +1,11 @@
 import { redactionToken, type SampleDetail } from '@keyloom/shared';
 import { screen, waitFor, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
-import { ASHBY_ID, SAMPLE_ID, sampleDetail, sampleSummary, sessionUser } from '@/testing/data';
+import { ASHBY_ID, clientRecord, SAMPLE_ID, sampleDetail, sampleSummary, sessionUser } from '@/testing/data';
 import { type MockRoutes, mockFetch, sessionRoutes } from '@/testing/mock-fetch';
-import { renderApp } from '@/testing/render-app';
+import { currentUrl, renderApp } from '@/testing/render-app';
+import { profileVersion, VERSION_2_ID } from '@/features/profiles/testing/profile-data';
+import { expectErrorSummary } from '@/testing/error-summary';
 
 const sample = sampleDetail();
 const [phone, email] = sample.flags;
@@ -13,6 +15,7 @@ const openSample = async (role: 'clinician' | 'supervisor' = 'clinician', routes
   const api = mockFetch({
     ...sessionRoutes(sessionUser(role)),
     [`GET /api/samples/${SAMPLE_ID}`]: { body: sample },
+    [`GET /api/clients/${ASHBY_ID}/profile-versions`]: { body: [] },
     ...routes,
   });
   const app = renderApp(`/clients/${ASHBY_ID}/samples/${SAMPLE_ID}`);
@@ -209,5 +212,67 @@ describe('Sample page', () => {
     expect(screen.queryByRole('button', { name: /^Redact/ })).not.toBeInTheDocument();
     expect(screen.queryByRole('button', { name: /^Keep/ })).not.toBeInTheDocument();
     expect(screen.queryByRole('button', { name: 'Leave out this sample' })).not.toBeInTheDocument();
+    expect(screen.queryByRole('button', { name: 'Delete sample…' })).not.toBeInTheDocument();
+  });
+
+  describe('deleting the sample', () => {
+    // A draft that never started training holds the sample: deleting is still allowed.
+    const untrainedDraft = profileVersion({
+      status: 'draft',
+      trainedAt: null,
+      history: [{ status: 'draft', at: '2026-09-21T09:00:00.000Z', by: 'Dr. Tomasz Reyes', comment: null }],
+    });
+
+    it('deletes with a reason, then opens the samples list with focus on its heading and says so', async () => {
+      let deleted = false;
+      const { user, api, router } = await openSample('clinician', {
+        [`GET /api/clients/${ASHBY_ID}/profile-versions`]: { body: [untrainedDraft] },
+        [`DELETE /api/samples/${SAMPLE_ID}`]: () => {
+          deleted = true;
+          return { status: 204 };
+        },
+        [`GET /api/clients/${ASHBY_ID}`]: { body: clientRecord() },
+        [`GET /api/clients/${ASHBY_ID}/samples`]: () => ({ body: deleted ? [] : [sampleSummary()] }),
+      });
+      const button = await screen.findByRole('button', { name: 'Delete sample…' });
+      await waitFor(() => expect(button).toBeEnabled());
+      await user.click(button);
+      const dialog = await screen.findByRole('dialog', { name: 'Delete “Messages to the sailing club”?' });
+      await user.click(within(dialog).getByRole('button', { name: 'Delete sample' }));
+      // Message from deleteSampleSchema (shared/src/schemas/samples.schema.ts).
+      await expectErrorSummary(dialog, 'One field needs attention', [
+        'Reason for deleting it: Say why the sample is deleted.',
+      ]);
+      expect(api.requestsTo(`DELETE /api/samples/${SAMPLE_ID}`)).toHaveLength(0);
+
+      await user.type(
+        within(dialog).getByLabelText('Reason for deleting it'),
+        'Uploaded to the wrong client.',
+      );
+      await user.click(within(dialog).getByRole('button', { name: 'Delete sample' }));
+      await waitFor(() => expect(currentUrl(router)).toBe(`/clients/${ASHBY_ID}/samples`));
+      expect(api.requestsTo(`DELETE /api/samples/${SAMPLE_ID}`)[0]?.body).toEqual({
+        reason: 'Uploaded to the wrong client.',
+      });
+      const heading = await screen.findByRole('heading', { name: 'Samples of R. Ashby' });
+      await waitFor(() => expect(heading).toHaveFocus());
+      expect(screen.getByRole('status')).toHaveTextContent('“Messages to the sailing club” was deleted.');
+    });
+
+    it('is switched off, saying why, once a version was trained on the sample', async () => {
+      const { api } = await openSample('clinician', {
+        [`GET /api/clients/${ASHBY_ID}/profile-versions`]: {
+          body: [untrainedDraft, profileVersion({ id: VERSION_2_ID, number: 2 })],
+        },
+      });
+      const button = screen.getByRole('button', { name: 'Delete sample…' });
+      await waitFor(() =>
+        expect(button).toHaveAccessibleDescription(
+          'Cannot be deleted. Version 2 was trained on it: leave it out of future versions instead.',
+        ),
+      );
+      expect(button).toBeDisabled();
+      expect(api.requestsTo(`DELETE /api/samples/${SAMPLE_ID}`)).toHaveLength(0);
+    });
   });
 });

@@ -1,6 +1,7 @@
 import { sourceKindLabels } from '@keyloom/shared';
+import { useQuery } from '@tanstack/react-query';
 import { useState } from 'react';
-import { Link, useParams } from 'react-router-dom';
+import { Link, useNavigate, useParams } from 'react-router-dom';
 import { PageLoading } from '@/components/layout/page-loading';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
@@ -8,9 +9,12 @@ import { type Announcement, LiveRegion } from '@/components/ui/live-region';
 import { PageHeader } from '@/components/ui/page-header';
 import { clientPath } from '@/config/paths';
 import { useMe } from '@/features/auth/api/get-me';
+import { profileVersionsQueryOptions } from '@/features/profiles/api/get-profile-versions';
 import { useSample } from '@/features/samples/api/get-sample';
 import { useIncludeSample } from '@/features/samples/api/include-sample';
 import { focusSoon } from '@/features/samples/lib/focus-targets';
+import { deleteBlockedReason } from '@/features/samples/lib/trained-versions';
+import { DeleteSampleDialog } from '@/features/samples/components/delete-sample-dialog';
 import { ExcludeSampleDialog } from '@/features/samples/components/exclude-sample-dialog';
 import { FlagReview } from '@/features/samples/components/flag-review';
 import { SampleStatistics } from '@/features/samples/components/sample-statistics';
@@ -22,10 +26,14 @@ export const SampleRoute = () => {
   const me = useMe();
   const sample = useSample(sampleId);
   const [excluding, setExcluding] = useState(false);
+  const [deleting, setDeleting] = useState(false);
   const include = useIncludeSample();
+  const navigate = useNavigate();
   const [announcement, setAnnouncement] = useState<Announcement>(null);
   const announce = (tone: 'success' | 'error', text: string) => setAnnouncement({ tone, text });
   const canEdit = me.data?.role === 'clinician';
+  // Whether a version was trained on the sample (then it cannot be deleted): only the owner asks.
+  const versions = useQuery({ ...profileVersionsQueryOptions(clientId), enabled: canEdit });
   const back = (
     <Link
       to={clientPath(clientId, 'samples')}
@@ -51,6 +59,8 @@ export const SampleRoute = () => {
   }
 
   const data = sample.data;
+  // Unknown versions (still loading, or not loaded) leave the decision to the API, which refuses too.
+  const deleteBlocked = versions.data ? deleteBlockedReason(data.id, versions.data) : null;
   const includeAgain = async () => {
     try {
       await include.mutateAsync(data.id);
@@ -80,14 +90,34 @@ export const SampleRoute = () => {
           </span>
         }
         actions={
-          !canEdit ? undefined : data.status === 'excluded' ? (
-            <Button disabled={include.isPending} onClick={() => void includeAgain()}>
-              Include again
-            </Button>
-          ) : (
-            <Button variant="danger" onClick={() => setExcluding(true)}>
-              Leave out this sample
-            </Button>
+          !canEdit ? undefined : (
+            <div className="flex flex-col items-start gap-2">
+              <div className="flex flex-wrap gap-3">
+                {data.status === 'excluded' ? (
+                  <Button disabled={include.isPending} onClick={() => void includeAgain()}>
+                    Include again
+                  </Button>
+                ) : (
+                  <Button variant="danger" onClick={() => setExcluding(true)}>
+                    Leave out this sample
+                  </Button>
+                )}
+                <Button
+                  variant="danger"
+                  // Offered once the versions are known, and only while none was trained on the sample.
+                  disabled={versions.isPending || deleteBlocked !== null}
+                  aria-describedby={deleteBlocked ? 'delete-sample-blocked' : undefined}
+                  onClick={() => setDeleting(true)}
+                >
+                  Delete sample…
+                </Button>
+              </div>
+              {deleteBlocked && (
+                <p id="delete-sample-blocked" className="max-w-sm text-ink-soft">
+                  {deleteBlocked}
+                </p>
+              )}
+            </div>
           )
         }
       />
@@ -124,6 +154,16 @@ export const SampleRoute = () => {
             announce('success', `“${excluded.title}” is left out.`);
             focusSoon('sample-status');
           }}
+        />
+      )}
+      {canEdit && (
+        <DeleteSampleDialog
+          sample={deleting ? data : null}
+          onClose={() => setDeleting(false)}
+          // The page is gone with the sample: the client's samples list says so, focus on its heading.
+          onDeleted={(deleted) =>
+            void navigate(clientPath(clientId, 'samples'), { state: { sampleDeleted: deleted.title } })
+          }
         />
       )}
     </>

@@ -3,6 +3,7 @@ import { describe, expect, it } from 'vitest';
 import { ASHBY_ID, clientRecord, sampleSummary, sessionUser } from '@/testing/data';
 import { type MockRoutes, mockFetch, type RecordedRequest, sessionRoutes } from '@/testing/mock-fetch';
 import { renderApp } from '@/testing/render-app';
+import { profileVersion, VERSION_2_ID } from '@/features/profiles/testing/profile-data';
 
 const base = `/api/clients/${ASHBY_ID}`;
 
@@ -129,7 +130,18 @@ describe('Writing samples tab', () => {
   it('refuses an empty file before sending it, and asks for a file when none is chosen', async () => {
     const { user, api } = await openSamplesTab({ [`POST ${base}/samples`]: storedAnswer });
     await user.click(screen.getByRole('button', { name: 'Upload files' }));
-    expect(await screen.findByText('Choose at least one file to upload.')).toBeInTheDocument();
+    // No file chosen is refused like any field: listed at the top of the form, focused, linked to the picker.
+    const summary = await screen.findByRole('group', { name: 'One field needs attention' });
+    await waitFor(() => expect(summary).toHaveFocus());
+    const picker = screen.getByLabelText('Choose files, or drop them here');
+    expect(picker).toHaveAttribute('aria-invalid', 'true');
+    expect(picker).toHaveAccessibleDescription(/Choose at least one file to upload\./);
+    await user.click(
+      within(summary).getByRole('link', {
+        name: 'Choose files, or drop them here: Choose at least one file to upload.',
+      }),
+    );
+    expect(picker).toHaveFocus();
 
     await user.upload(screen.getByLabelText(/Choose files/), [textFile('empty.txt', '')]);
     expect(screen.getByText(/The file is empty/)).toBeInTheDocument();
@@ -247,6 +259,32 @@ describe('Writing samples tab', () => {
       expect(await dialog.findByText(message)).toBeInTheDocument();
       // The dialog stays open (the page behind it is inert) and the row stays in the list.
       expect(screen.getByRole('link', { name: wrong.title, hidden: true })).toBeInTheDocument();
+    });
+
+    it('switches Delete off, saying why, on a sample a version was trained on', async () => {
+      // Version 3 trained on the wrong client's notes; a draft that never trained holds the other one.
+      const trained = profileVersion({
+        number: 3,
+        samples: [{ id: OTHER_ID, title: wrong.title, sha256: 'c'.repeat(64), characters: 7_000 }],
+      });
+      const draft = profileVersion({
+        id: VERSION_2_ID,
+        number: 4,
+        status: 'draft',
+        trainedAt: null,
+        samples: [{ id: leftOut.id, title: leftOut.title, sha256: 'd'.repeat(64), characters: 9_000 }],
+        history: [{ status: 'draft', at: '2026-10-01T09:00:00.000Z', by: 'Dr. Tomasz Reyes', comment: null }],
+      });
+      await openWithSamples({
+        [`GET ${base}/samples`]: { body: [wrong, leftOut] },
+        [`GET ${base}/profile-versions`]: { body: [draft, trained] },
+      });
+      const blocked = screen.getByRole('button', { name: `Delete sample ${wrong.title}` });
+      await waitFor(() => expect(blocked).toBeDisabled());
+      expect(blocked).toHaveAccessibleDescription(
+        'Cannot be deleted. Version 3 was trained on it: leave it out of future versions instead.',
+      );
+      expect(screen.getByRole('button', { name: `Delete sample ${leftOut.title}` })).toBeEnabled();
     });
   });
 });

@@ -342,6 +342,10 @@ describe('Family updates tab', () => {
     const to = within(form).getByLabelText('To');
     await waitFor(() => expect(to).toHaveAttribute('aria-invalid', 'true'));
     expect(to).toHaveAccessibleDescription('The period must end on or after its start.');
+    // A refused preview is listed at the top of the form like a refused submit, and focused.
+    const refusedPreview = within(form).getByRole('group', { name: 'One field needs attention' });
+    await waitFor(() => expect(refusedPreview).toHaveFocus());
+    expect(refusedPreview).toHaveTextContent('To: The period must end on or after its start.');
     expect(api.requestsTo(`POST ${base}/summaries/preview`)).toHaveLength(0);
 
     await user.clear(to);
@@ -359,6 +363,13 @@ describe('Family updates tab', () => {
     await user.click(within(form).getByRole('button', { name: 'Write the draft' }));
     const group = within(form).getByRole('group', { name: 'Recipients' });
     await waitFor(() => expect(group).toHaveAccessibleDescription(/Choose at least one family contact\./));
+    const refusedSend = within(form).getByRole('group', { name: 'One field needs attention' });
+    await waitFor(() => expect(refusedSend).toHaveFocus());
+    // The link goes to the first box that can be ticked (contacts who cannot receive summaries are off).
+    await user.click(
+      within(refusedSend).getByRole('link', { name: 'Recipients: Choose at least one family contact.' }),
+    );
+    expect(within(group).getByRole('checkbox', { name: /Hannah/ })).toHaveFocus();
     expect(api.requestsTo(`POST ${base}/summaries`)).toHaveLength(0);
 
     // A change after the preview says the preview is out of date.

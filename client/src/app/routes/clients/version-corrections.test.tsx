@@ -70,7 +70,7 @@ describe('Retire the active version', () => {
       reason: 'Suggestions got worse.',
     });
     await waitFor(() => expect(screen.getByRole('group', { name: 'Actions on this version' })).toHaveFocus());
-  });
+  }, 15_000); // typing in a dialog: slow on a shared test machine
 
   it('says no version will be active when there is no earlier approved one', async () => {
     const active = approved(VERSION_1_ID, 1, '2026-09-20T10:00:00.000Z', { status: 'active' });

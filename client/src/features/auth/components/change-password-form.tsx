@@ -50,6 +50,7 @@ export const ChangePasswordForm = ({
         onChanged();
       }}
       aria-label="Change password"
+      errorSummary
     >
       {({ register, formState }) => (
         <>

@@ -1,6 +1,7 @@
-import { screen, waitFor } from '@testing-library/react';
+import { screen, waitFor, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
 import { sessionUser } from '@/testing/data';
+import { expectErrorSummary } from '@/testing/error-summary';
 import { CSRF_TOKEN, mockFetch, sessionRoutes } from '@/testing/mock-fetch';
 import { currentUrl, renderApp } from '@/testing/render-app';
 
@@ -30,6 +31,13 @@ describe('SignInForm', () => {
     expect(password).toHaveAttribute('aria-invalid', 'true');
     expect(email).toHaveAccessibleDescription(EMAIL_MESSAGE);
     expect(password).toHaveAccessibleDescription(PASSWORD_MESSAGE);
+    // The refused submit is listed at the top of the form, focused, each entry a link to its field.
+    const summary = await expectErrorSummary(document.body, '2 fields need attention', [
+      `E-mail address: ${EMAIL_MESSAGE}`,
+      `Password: ${PASSWORD_MESSAGE}`,
+    ]);
+    await user.click(within(summary).getByRole('link', { name: /^Password/ }));
+    expect(password).toHaveFocus();
     // Invalid input never reaches the API.
     expect(api.requestsTo('POST /api/auth/login')).toHaveLength(0);
   });

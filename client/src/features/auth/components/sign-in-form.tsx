@@ -22,6 +22,7 @@ export const SignInForm = () => {
         await login.mutateAsync(values);
       }}
       aria-label="Sign in"
+      errorSummary
     >
       {({ register, formState }) => (
         <>

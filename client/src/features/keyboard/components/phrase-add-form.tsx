@@ -22,6 +22,7 @@ export const PhraseAddForm = ({ clientId, pseudonym, onAdded }: PhraseAddFormPro
       schema={createPracticePhraseSchema}
       defaultValues={{ text: '' }}
       aria-label="Add a practice phrase"
+      errorSummary
       onSubmit={async (input) => {
         const phrase = await add.mutateAsync({ clientId, input });
         setRound((n) => n + 1);

@@ -115,6 +115,7 @@ const DecisionDialog = <D extends Decision>({
         schema={schema}
         defaultValues={{ text: '' }}
         aria-label={words.formName}
+        errorSummary
         onSubmit={async ({ text }) => {
           const input = { [words.field]: text } as DecisionInputs[D];
           onDone(await decide.mutateAsync({ versionId: version.id, input }));

@@ -61,7 +61,9 @@ export const VersionActions = ({
   const done = (text: string) => () => {
     setDialog(null);
     announce('success', text);
-    setTimeout(() => document.getElementById(groupId)?.focus(), 0);
+    // With no action left for this role (a carer after signing off), the group is gone: the page's
+    // heading takes focus instead, above the message.
+    setTimeout(() => (document.getElementById(groupId) ?? document.querySelector('h1'))?.focus(), 0);
   };
 
   const needsTrial = show.signOff && (trialCount ?? 0) === 0;

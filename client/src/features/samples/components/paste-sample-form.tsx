@@ -32,6 +32,7 @@ export const PasteSampleForm = ({ clientId, onStored }: PasteSampleFormProps) =>
         else onStored(`Stored the pasted text as “${result.samples[0]?.title ?? input.title}”.`, 'success');
       }}
       aria-label="Paste text"
+      errorSummary
     >
       {({ register, formState, reset }) => (
         <>

@@ -1,5 +1,6 @@
-import { Link } from 'react-router-dom';
-import { useState } from 'react';
+import { useEffect, useState } from 'react';
+import { Link, useLocation } from 'react-router-dom';
+import { z } from 'zod';
 import { PageLoading } from '@/components/layout/page-loading';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
@@ -10,6 +11,7 @@ import type { SampleSummary } from '@keyloom/shared';
 import { useSamples } from '../api/get-samples';
 import { useIncludeSample } from '../api/include-sample';
 import { focusSoon, sampleLinkId } from '../lib/focus-targets';
+import { deleteBlockedReason, type VersionUse } from '../lib/trained-versions';
 import { DeleteSampleDialog } from './delete-sample-dialog';
 import { PasteSampleForm } from './paste-sample-form';
 import { SamplesTable } from './samples-table';
@@ -23,7 +25,12 @@ type SamplesPanelProps = {
   /** Owning clinician; supervisors read only. */
   canEdit: boolean;
   announce: (tone: 'success' | 'error', text: string) => void;
+  /** The client's versions, to tell which samples were trained on (undefined while unknown). */
+  versions?: readonly VersionUse[];
 };
+
+const deletedStateSchema = z.object({ sampleDeleted: z.string() });
+const deletedMessage = (title: string) => `“${title}” was deleted.`;
 
 /** The "Writing samples" tab: the caution, upload and paste (with consent), and the list. */
 export const SamplesPanel = ({
@@ -32,11 +39,23 @@ export const SamplesPanel = ({
   trainingConsent,
   canEdit,
   announce,
+  versions,
 }: SamplesPanelProps) => {
   const samples = useSamples(clientId);
   const [mode, setMode] = useState<'files' | 'paste'>('files');
   const [deleting, setDeleting] = useState<SampleSummary | null>(null);
   const include = useIncludeSample();
+  // A sample deleted on its own page: say so, and put focus on the list it was removed from.
+  const location = useLocation();
+  const [deletedTitle] = useState(() => deletedStateSchema.safeParse(location.state).data?.sampleDeleted);
+  const loaded = samples.isSuccess;
+  useEffect(() => {
+    if (deletedTitle === undefined || !loaded) return;
+    announce('success', deletedMessage(deletedTitle));
+    focusSoon('samples-heading');
+    // Once, when the list has come: `announce` is a new function on every render of the page.
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [deletedTitle, loaded]);
 
   const includeAgain = async (sample: SampleSummary) => {
     try {
@@ -134,7 +153,12 @@ export const SamplesPanel = ({
             samples={samples.data}
             actions={
               canEdit
-                ? { onDelete: setDeleting, onInclude: (s) => void includeAgain(s), busy: include.isPending }
+                ? {
+                    onDelete: setDeleting,
+                    onInclude: (s) => void includeAgain(s),
+                    busy: include.isPending,
+                    deleteBlocked: (s) => (versions ? deleteBlockedReason(s.id, versions) : null),
+                  }
                 : undefined
             }
           />
@@ -146,7 +170,7 @@ export const SamplesPanel = ({
           onClose={() => setDeleting(null)}
           onDeleted={(deleted) => {
             setDeleting(null);
-            announce('success', `“${deleted.title}” was deleted.`);
+            announce('success', deletedMessage(deleted.title));
             // The row is gone: focus goes to the list's heading, under the message.
             focusSoon('samples-heading');
           }}

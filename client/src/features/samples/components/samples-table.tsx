@@ -25,7 +25,39 @@ type SamplesTableProps = {
     onDelete: (sample: SampleSummary) => void;
     onInclude: (sample: SampleSummary) => void;
     busy: boolean;
+    /** Why a sample cannot be deleted (a version was trained on it); null while it can, or while unknown. */
+    deleteBlocked?: (sample: SampleSummary) => string | null;
   };
+};
+
+/** A row's "Delete sample…": switched off, saying why, once a version was trained on the sample. */
+const DeleteButton = ({
+  sample,
+  actions,
+}: {
+  sample: SampleSummary;
+  actions: NonNullable<SamplesTableProps['actions']>;
+}) => {
+  const blocked = actions.deleteBlocked?.(sample) ?? null;
+  const reasonId = `delete-blocked-${sample.id}`;
+  return (
+    <>
+      <Button
+        variant="danger"
+        disabled={blocked !== null}
+        aria-describedby={blocked ? reasonId : undefined}
+        onClick={() => actions.onDelete(sample)}
+        aria-label={`Delete sample ${sample.title}`}
+      >
+        Delete sample…
+      </Button>
+      {blocked && (
+        <p id={reasonId} className="text-ink-soft">
+          {blocked}
+        </p>
+      )}
+    </>
+  );
 };
 
 /** A client's samples, newest first, each linking to its review page. */
@@ -80,13 +112,7 @@ export const SamplesTable = ({ samples, actions }: SamplesTableProps) => (
                       Include again
                     </Button>
                   )}
-                  <Button
-                    variant="danger"
-                    onClick={() => actions.onDelete(sample)}
-                    aria-label={`Delete sample ${sample.title}`}
-                  >
-                    Delete sample…
-                  </Button>
+                  <DeleteButton sample={sample} actions={actions} />
                 </div>
               </TableCell>
             )}

@@ -33,6 +33,7 @@ export const CreateStaffDialog = ({ open, onClose, onCreated }: CreateStaffDialo
           onCreated(user);
         }}
         aria-label="New staff member"
+        errorSummary
       >
         {({ register, formState }) => (
           <>

@@ -32,6 +32,7 @@ export const SetPasswordDialog = ({ user, onClose, onDone }: SetPasswordDialogPr
           onDone(updated);
         }}
         aria-label={`New password for ${name}`}
+        errorSummary
       >
         {({ register, formState }) => (
           <>

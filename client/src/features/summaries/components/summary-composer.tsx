@@ -36,6 +36,8 @@ type SummaryComposerProps = {
 };
 
 type CheckboxRowProps = {
+  /** The field the box belongs to (ties a refused group to its boxes in the list of what needs attention). */
+  name: string;
   label: string;
   detail: string;
   checked: boolean;
@@ -44,12 +46,13 @@ type CheckboxRowProps = {
 };
 
 /** A checkbox of a group whose value is kept as a list by hand (a lone registered box would give a string). */
-const CheckboxRow = ({ label, detail, checked, disabled, onChange }: CheckboxRowProps) => {
+const CheckboxRow = ({ name, label, detail, checked, disabled, onChange }: CheckboxRowProps) => {
   const id = useId();
   return (
     <div className="flex items-start gap-3">
       <input
         id={id}
+        name={name}
         type="checkbox"
         className="mt-1 size-6 shrink-0 accent-ink"
         checked={checked}
@@ -102,6 +105,7 @@ export const SummaryComposer = ({
       schema={createSummarySchema}
       aria-labelledby={`${ids}-title`}
       defaultValues={{ ...defaultPeriod(), versionIds: [], contactIds: [], note: '' }}
+      errorSummary
       onSubmit={async (input) => {
         // The same key when the same draft is asked for again after an error: it is made once.
         const idempotencyKey = sendKey.keyFor({ clientId, input });
@@ -110,7 +114,7 @@ export const SummaryComposer = ({
         onDrafted(summary);
       }}
     >
-      {({ register, formState, setValue, watch, trigger, getValues }) => {
+      {({ register, formState, setValue, watch, getValues }, { checkFields }) => {
         const errors = formState.errors;
         const versionIds = (watch('versionIds') ?? []) as string[];
         const contactIds = (watch('contactIds') ?? []) as string[];
@@ -127,7 +131,7 @@ export const SummaryComposer = ({
 
         const showPreview = async () => {
           setPreviewError(null);
-          if (!(await trigger(['from', 'to', 'versionIds', 'note']))) return;
+          if (!(await checkFields(['from', 'to', 'versionIds', 'note']))) return;
           const values = getValues();
           const parsed = summaryPreviewRequestSchema.safeParse(values);
           if (!parsed.success) return;
@@ -174,6 +178,7 @@ export const SummaryComposer = ({
               {reportable.map((version) => (
                 <CheckboxRow
                   key={version.id}
+                  name="versionIds"
                   label={`Version ${version.number}`}
                   detail={`${profileVersionStatusLabels[version.status]}${
                     version.trainedAt ? `, trained ${version.trainedAt.slice(0, 10)}` : ''
@@ -214,6 +219,7 @@ export const SummaryComposer = ({
                 return (
                   <CheckboxRow
                     key={contact.id}
+                    name="contactIds"
                     label={`${contact.name} (${contact.relationship})`}
                     detail={blocked ?? contact.email}
                     disabled={blocked !== null}

@@ -197,15 +197,14 @@ export const SummaryDraftEditor = ({
                   onClick={() => {
                     setActionError(null);
                     const idempotencyKey = sendKey.keyFor(summary.id);
-                    send.mutate(
-                      { summaryId: summary.id, idempotencyKey },
-                      {
-                        onSuccess: (sent) => {
-                          sendKey.done();
-                          onSent(sent);
-                        },
-                        onError: (failure) => setActionError(failure.message),
+                    // mutateAsync, not mutate's callbacks: once sent, the draft leaves the list and this
+                    // editor unmounts, but the panel still has to hear that it was sent.
+                    send.mutateAsync({ summaryId: summary.id, idempotencyKey }).then(
+                      (sent) => {
+                        sendKey.done();
+                        onSent(sent);
                       },
+                      (failure: Error) => setActionError(failure.message),
                     );
                   }}
                 >
@@ -271,18 +270,19 @@ export const SummaryDraftEditor = ({
           <Button
             variant="danger"
             disabled={remove.isPending}
-            onClick={() =>
-              remove.mutate(summary.id, {
-                onSuccess: () => {
+            onClick={() => {
+              // As with Send: the editor unmounts once the draft is gone; the panel still hears it.
+              remove.mutateAsync(summary.id).then(
+                () => {
                   setConfirm(null);
                   onDeleted();
                 },
-                onError: (failure) => {
+                (failure: Error) => {
                   setConfirm(null);
                   setActionError(failure.message);
                 },
-              })
-            }
+              );
+            }}
           >
             {remove.isPending ? 'Deleting…' : 'Delete the draft'}
           </Button>

@@ -5,7 +5,7 @@ import {
   vocabularyBlockSchema,
   type VocabularyBlock,
 } from '@keyloom/shared';
-import { type ComponentProps, useEffect } from 'react';
+import { type ComponentProps, type ReactNode, useEffect } from 'react';
 import type { FieldError as FormFieldError, Path, UseFormReturn } from 'react-hook-form';
 import { Button } from '@/components/ui/button';
 import { Modal } from '@/components/ui/dialog';
@@ -63,49 +63,67 @@ const SubmitButton = ({
   </Button>
 );
 
+/** The bordered box of a form on the page: its heading first, then the form (a refused submit's list below the heading). */
+const FormBox = ({
+  headingId,
+  heading,
+  children,
+}: {
+  headingId: string;
+  heading: string;
+  children: ReactNode;
+}) => (
+  <div className="flex flex-col gap-4 rounded-xl border-2 border-thread p-4">
+    <h4 id={headingId} className="text-xl font-bold">
+      {heading}
+    </h4>
+    {children}
+  </div>
+);
+
 const ADD_HINT = `Names of people and places, medical words: learned as if written ${DEFAULT_ADDITION_WEIGHT} times unless you give a weight.`;
 
 /** "Add a word or phrase": text and an optional weight; saved into the client's list at once. */
 export const AddWordForm = ({ editor }: { editor: VocabularyEditor }) => (
-  <Form
-    schema={vocabularyAdditionSchema}
-    aria-labelledby="add-word-heading"
-    defaultValues={{ text: '', weight: undefined }}
-    onSubmit={(addition) =>
-      editor.save((state) => withAddition(state, addition), {
-        text: `Added “${addition.text}”.`,
-        origin: 'list',
-        field: 'text',
-      })
-    }
-    className="flex flex-col gap-4 rounded-xl border-2 border-thread p-4"
-  >
-    {(methods) => (
-      <>
-        <ClearAfterSave methods={methods} fields={ADD_FIELDS} />
-        <h4 id="add-word-heading" className="text-xl font-bold">
-          Add a word or phrase
-        </h4>
-        <FormServerError message={methods.formState.errors.root?.server?.message} />
-        <WordField
-          label="Word or phrase"
-          hint={ADD_HINT}
-          registration={methods.register('text')}
-          error={methods.formState.errors.text}
-        />
-        <TextField
-          label="Weight (optional)"
-          type="number"
-          inputMode="numeric"
-          className="max-w-xs"
-          hint={`1 to ${MAX_ADDITION_WEIGHT}: how many times it counts as written.`}
-          registration={methods.register('weight', { setValueAs: optionalNumber })}
-          error={messageOf(methods.formState.errors.weight)}
-        />
-        <SubmitButton submitting={methods.formState.isSubmitting} label="Add" busyLabel="Adding…" />
-      </>
-    )}
-  </Form>
+  <FormBox headingId="add-word-heading" heading="Add a word or phrase">
+    <Form
+      schema={vocabularyAdditionSchema}
+      aria-labelledby="add-word-heading"
+      errorSummary
+      defaultValues={{ text: '', weight: undefined }}
+      onSubmit={(addition) =>
+        editor.save((state) => withAddition(state, addition), {
+          text: `Added “${addition.text}”.`,
+          origin: 'list',
+          field: 'text',
+        })
+      }
+      className="flex flex-col gap-4"
+    >
+      {(methods) => (
+        <>
+          <ClearAfterSave methods={methods} fields={ADD_FIELDS} />
+          <FormServerError message={methods.formState.errors.root?.server?.message} />
+          <WordField
+            label="Word or phrase"
+            hint={ADD_HINT}
+            registration={methods.register('text')}
+            error={methods.formState.errors.text}
+          />
+          <TextField
+            label="Weight (optional)"
+            type="number"
+            inputMode="numeric"
+            className="max-w-xs"
+            hint={`1 to ${MAX_ADDITION_WEIGHT}: how many times it counts as written.`}
+            registration={methods.register('weight', { setValueAs: optionalNumber })}
+            error={messageOf(methods.formState.errors.weight)}
+          />
+          <SubmitButton submitting={methods.formState.isSubmitting} label="Add" busyLabel="Adding…" />
+        </>
+      )}
+    </Form>
+  </FormBox>
 );
 
 const BLOCK_HINT =
@@ -142,24 +160,24 @@ const saveBlock = (editor: VocabularyEditor, block: VocabularyBlock, origin: Cha
 
 /** "Block a word": the word and an optional replacement. */
 export const BlockWordForm = ({ editor }: { editor: VocabularyEditor }) => (
-  <Form
-    schema={vocabularyBlockSchema}
-    aria-labelledby="block-word-heading"
-    defaultValues={{ word: '', replacement: '' }}
-    onSubmit={(block) => saveBlock(editor, block, 'list')}
-    className="flex flex-col gap-4 rounded-xl border-2 border-thread p-4"
-  >
-    {(methods) => (
-      <>
-        <ClearAfterSave methods={methods} fields={BLOCK_FIELDS} />
-        <h4 id="block-word-heading" className="text-xl font-bold">
-          Block a word
-        </h4>
-        <BlockFields methods={methods} />
-        <SubmitButton submitting={methods.formState.isSubmitting} label="Block" busyLabel="Blocking…" />
-      </>
-    )}
-  </Form>
+  <FormBox headingId="block-word-heading" heading="Block a word">
+    <Form
+      schema={vocabularyBlockSchema}
+      aria-labelledby="block-word-heading"
+      errorSummary
+      defaultValues={{ word: '', replacement: '' }}
+      onSubmit={(block) => saveBlock(editor, block, 'list')}
+      className="flex flex-col gap-4"
+    >
+      {(methods) => (
+        <>
+          <ClearAfterSave methods={methods} fields={BLOCK_FIELDS} />
+          <BlockFields methods={methods} />
+          <SubmitButton submitting={methods.formState.isSubmitting} label="Block" busyLabel="Blocking…" />
+        </>
+      )}
+    </Form>
+  </FormBox>
 );
 
 type BlockDialogProps = {
@@ -181,6 +199,7 @@ export const BlockDialog = ({ editor, word, onClose }: BlockDialogProps) => (
       key={word ?? ''}
       schema={vocabularyBlockSchema}
       aria-label={`Block “${word ?? ''}”`}
+      errorSummary
       defaultValues={{ word: word ?? '', replacement: '' }}
       onSubmit={async (block) => {
         await saveBlock(editor, block, 'listing');
