@@ -4,6 +4,7 @@ import { ThrottlerGuard, ThrottlerModule } from '@nestjs/throttler';
 import { AuditModule } from './audit/audit.module';
 import { AuthModule } from './auth/auth.module';
 import { ClientsModule } from './clients/clients.module';
+import { ClinicModule } from './clinic/clinic.module';
 import { ConsentsModule } from './consents/consents.module';
 import { ContactsModule } from './contacts/contacts.module';
 import { SamplesModule } from './samples/samples.module';
@@ -38,6 +39,7 @@ const API_REQUESTS_PER_MINUTE = 1_000;
     UsersModule,
     AuthModule,
     HealthModule,
+    ClinicModule,
     ClientsModule,
     ConsentsModule,
     ContactsModule,

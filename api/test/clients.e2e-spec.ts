@@ -216,6 +216,56 @@ describe('clients and assignments (HTTP)', () => {
       expect((res.body.issues as { path: string }[]).map((i) => i.path)).toContain(field);
     });
 
+    it('keeps a preferred name beside the pseudonym: set, trimmed, cleared, audited by field name only, never shown to carers or in lists', async () => {
+      const created = (
+        await send(t.http, cast.owner, 'post', '/api/clients', {
+          pseudonym: 'P. Quennell',
+          preferredName: '  Pip  ',
+          accessMethod: 'direct',
+        }).expect(201)
+      ).body as Client;
+      expect(created).toMatchObject({ pseudonym: 'P. Quennell', preferredName: 'Pip' });
+      await send(t.http, cast.owner, 'post', `/api/clients/${created.id}/assignments`, {
+        userId: cast.assignedCarer.id,
+      }).expect(201);
+
+      const renamed = await send(t.http, cast.owner, 'patch', `/api/clients/${created.id}`, {
+        preferredName: 'Pippa',
+      }).expect(200);
+      expect(renamed.body).toMatchObject({ pseudonym: 'P. Quennell', preferredName: 'Pippa' });
+      const events = await t.dataSource
+        .getRepository(AuditEvent)
+        .findBy({ action: 'client.update', clientId: created.id });
+      expect(events.map((event) => event.details)).toEqual([{ fields: ['preferredName'] }]);
+      expect(JSON.stringify(events)).not.toContain('Pippa');
+
+      const seenBy = async (who: keyof Cast) =>
+        ((await send(t.http, cast[who], 'get', `/api/clients/${created.id}`).expect(200)).body as Client)
+          .preferredName;
+      expect(await seenBy('owner')).toBe('Pippa');
+      expect(await seenBy('supervisor')).toBe('Pippa');
+      // Carers see what they need to work with the client, not the family's name for them.
+      expect(await seenBy('assignedCarer')).toBeNull();
+      for (const who of ['owner', 'assignedCarer', 'admin'] as const) {
+        const rows = (await send(t.http, cast[who], 'get', '/api/clients').expect(200))
+          .body as ClientSummary[];
+        expect(JSON.stringify(rows)).not.toContain('Pippa');
+      }
+
+      // An empty field clears it; too long or a control character is refused with the field named.
+      const cleared = await send(t.http, cast.owner, 'patch', `/api/clients/${created.id}`, {
+        preferredName: '',
+      }).expect(200);
+      expect(cleared.body.preferredName).toBeNull();
+      for (const preferredName of ['x'.repeat(81), 'Pip\u0000', 'Pip\npa']) {
+        const res = await send(t.http, cast.owner, 'patch', `/api/clients/${created.id}`, {
+          preferredName,
+        }).expect(400);
+        expect((res.body.issues as { path: string }[]).map((i) => i.path)).toEqual(['preferredName']);
+      }
+      expect(await seenBy('owner')).toBeNull();
+    });
+
     it('answers 400 to an empty PATCH', async () => {
       const res = await send(t.http, cast.owner, 'patch', `/api/clients/${client.id}`, {}).expect(400);
       expect(res.body.issues[0].message).toBe('Nothing to change.');
@@ -366,7 +416,7 @@ describe('clients and assignments (HTTP)', () => {
       expect(await count()).toBe(before);
 
       const demo = await findDemoClient(t.dataSource.manager);
-      expect(demo).toMatchObject({ accessMethod: 'head_pointer', keyTimeMs: 1800 });
+      expect(demo).toMatchObject({ accessMethod: 'head_pointer', keyTimeMs: 1800, preferredName: 'Robbie' });
       const carer = await signIn(t.http, {
         email: 'carer@willowmere.example',
         password: validateEnv(process.env).DEMO_PASSWORD,

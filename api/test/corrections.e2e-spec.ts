@@ -1,12 +1,12 @@
 import type { Client, Consent, Contact, WithdrawalPreview } from '@keyloom/shared';
-import { createHash, randomBytes, randomUUID } from 'node:crypto';
+import { createHash, randomUUID } from 'node:crypto';
 import { AuditEvent } from '../src/audit/audit-event.entity';
 import { todayIso } from '../src/consents/consent-status';
 import { FamilyContact } from '../src/contacts/family-contact.entity';
 import { ContactAddresses1764980000002 } from '../src/migrations/1764980000002-contact-addresses';
-import { Summary } from '../src/summaries/summary.entity';
 import { SummaryRecipient } from '../src/summaries/summary-recipient.entity';
 import { type Cast, castOrder, newCast, newClient, send } from './caseload-helpers';
+import { sentSummaryTo } from './summary-helpers';
 import { createTestApp, resetDatabase, type TestApp } from './test-app';
 
 // Correcting what was recorded wrongly: consent records voided as made in error, and family contacts
@@ -213,29 +213,7 @@ describe('corrections: voiding consent, family contact addresses (HTTP)', () => 
     });
 
     /** A summary sent to `contact` (its recipient row, with a stop token). */
-    const sentTo = async (contact: Contact) => {
-      const summary = await t.dataSource.getRepository(Summary).save({
-        clientId: client.id,
-        periodFrom: '2026-10-01',
-        periodTo: '2026-11-30',
-        versionIds: [],
-        note: '',
-        subject: 'Progress summary',
-        text: 'Progress summary text.',
-        figures: [],
-        createdById: null,
-      });
-      return t.dataSource.getRepository(SummaryRecipient).save({
-        summaryId: summary.id,
-        contactId: contact.id,
-        name: contact.name,
-        email: contact.email,
-        idempotencyKey: randomUUID(),
-        stopToken: randomBytes(32).toString('base64url'),
-        status: 'sent',
-        sentAt: new Date(),
-      });
-    };
+    const sentTo = (contact: Contact) => sentSummaryTo(t.dataSource, client.id, contact);
     /** The stop link of a summary sent to `contact`, used (as the family member would). */
     const useStopLink = async (contact: Contact) => {
       const recipient = await sentTo(contact);

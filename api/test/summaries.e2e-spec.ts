@@ -27,6 +27,7 @@ import { SummaryRecipient } from '../src/summaries/summary-recipient.entity';
 import { summarySubject, summaryText, type VersionFigures } from '../src/summaries/summary-text';
 import { Summary } from '../src/summaries/summary.entity';
 import { type Cast, castOrder, newCast, newClient, newConsent, send } from './caseload-helpers';
+import { sentSummaryTo } from './summary-helpers';
 import { createTestApp, resetDatabase, type TestApp, testDatabaseUrl } from './test-app';
 import { PNG } from 'pngjs';
 
@@ -491,10 +492,10 @@ describe('summary e-mail delivery (mail job)', () => {
         .type('form')
         .send('List-Unsubscribe=One-Click')
         .expect(200);
-      expect(stopped.text).toContain('You will not receive further progress summaries');
+      expect(stopped.text).toContain('You will get no more progress e-mails about this client from');
       await send(t.http, cast.anonymous, 'post', stopPath).expect(200);
       expect((await send(t.http, cast.anonymous, 'get', stopPath).expect(200)).text).toContain(
-        'Summaries stopped',
+        'Progress e-mails stopped',
       );
       await send(t.http, cast.anonymous, 'get', `/api/summaries/stop/${'x'.repeat(43)}`).expect(404);
       await send(t.http, cast.anonymous, 'post', `/api/summaries/stop/${'x'.repeat(43)}`).expect(404);
@@ -520,6 +521,67 @@ describe('summary e-mail delivery (mail job)', () => {
         await send(t.http, cast.owner, 'get', `/api/clients/${httpClientId}/summaries`).expect(200)
       ).body as SummaryDto[];
       expect(list.map((s) => s.id)).toEqual([created.id]);
+    });
+
+    it('names the clinic and the preferred name on the stop page, and stops every contact of the client at that address', async () => {
+      // The clinic's details as an admin saved them (invented; 01632 960xxx is Ofcom's drama range).
+      await send(t.http, cast.admin, 'put', '/api/clinic-settings', {
+        name: 'Larchfield <Speech> & Access',
+        phone: '01632 960 731',
+        address: '12 Quarry Row\nLarchfield',
+      }).expect(200);
+      const client = await newClient(t.http, cast.owner, undefined, 'S. Marlowe');
+      await send(t.http, cast.owner, 'patch', `/api/clients/${client.id}`, { preferredName: 'Sam' }).expect(
+        200,
+      );
+      const other = await newClient(t.http, cast.owner, undefined, 'T. Marlowe');
+      const address = `ann-${randomBytes(4).toString('hex')}@family.example`;
+      const contacts = t.dataSource.getRepository(FamilyContact);
+      const contact = (clientId: string, email: string, legacyDuplicateEmail = false) =>
+        contacts.save({
+          clientId,
+          name: 'Ann Marlowe',
+          relationship: 'aunt',
+          email,
+          consentToSummaries: true,
+          unsubscribedAt: null,
+          legacyDuplicateEmail,
+        });
+      const written = await contact(client.id, address);
+      // The same address in other case on an older duplicate record of the same client (the unique
+      // index leaves those alone), another address of the same client, the same address at another client.
+      const duplicate = await contact(client.id, address.toUpperCase(), true);
+      const elsewhere = await contact(client.id, `other-${address}`);
+      const otherClients = await contact(other.id, address);
+      const recipient = await sentSummaryTo(t.dataSource, client.id, written);
+      const stopPath = `/api/summaries/stop/${recipient.stopToken}`;
+
+      const page = (await send(t.http, cast.anonymous, 'get', stopPath).expect(200)).text;
+      // The clinic's name is text, escaped like every other value on the page.
+      expect(page).toContain('<header>Larchfield &lt;Speech&gt; &amp; Access</header>');
+      expect(page).toContain(
+        'You will get no more progress e-mails about Sam from Larchfield &lt;Speech&gt; &amp; Access. ' +
+          'To start them again, contact the clinic on <a href="tel:01632960731">01632 960 731</a>.',
+      );
+      expect(page).not.toContain('<Speech>');
+
+      const done = (await send(t.http, cast.anonymous, 'post', stopPath).expect(200)).text;
+      expect(done).toContain('<h1>Progress e-mails stopped</h1>');
+      expect(done).toContain('You will get no more progress e-mails about Sam from');
+      const stoppedOf = async (id: string) =>
+        (await contacts.findOneByOrFail({ id })).unsubscribedAt !== null;
+      expect({
+        written: await stoppedOf(written.id),
+        duplicate: await stoppedOf(duplicate.id),
+        elsewhere: await stoppedOf(elsewhere.id),
+        otherClients: await stoppedOf(otherClients.id),
+      }).toEqual({ written: true, duplicate: true, elsewhere: false, otherClients: false });
+
+      // An unknown link still names the clinic and how to reach it.
+      const unknown = (
+        await send(t.http, cast.anonymous, 'get', `/api/summaries/stop/${'y'.repeat(43)}`).expect(404)
+      ).text;
+      expect(unknown).toContain('contact the clinic on <a href="tel:01632960731">01632 960 731</a>.');
     });
 
     it('leaves a sent-back version out by default; chosen, it is labelled as not approved; comments only when ticked', async () => {

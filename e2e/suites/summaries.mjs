@@ -5,9 +5,12 @@
 // contact and none for the contact who never agreed. The received HTML is opened at a phone's width
 // (390 px): no sideways scroll, axe clean. Then the family member's stop link: opening it changes
 // nothing, its button stops the summaries, and the clinician sees that.
+// Before all that, the admin sets the clinic's phone on the clinic details page, and the stop page
+// (390 px wide, the app's font, a large button) names the clinic, that number and the client's
+// preferred name.
 // Axe scan (no serious or critical violations) on the way; screenshots in e2e/out.
 import assert from 'node:assert/strict';
-import { openClientTabAsClinician, signIn } from './accounts.mjs';
+import { openClientTabAsClinician, signIn, signOut } from './accounts.mjs';
 import { assertNoSidewaysScroll } from './page-checks.mjs';
 
 // The seeded demo client and its family contacts (api/src/db/seeds/demo-client.seed.ts): Hannah
@@ -17,6 +20,11 @@ const CONSENTING = { name: 'Hannah Ashby', email: 'hannah.ashby@family.example' 
 const NOT_CONSENTING = { name: 'Marguerite Ashby', email: 'marguerite.ashby@family.example' };
 const NOTE = 'Pepper the dog now gets a mention in every message Robin writes.';
 const GREETING = 'Dear Hannah, here is how the typing went this month.';
+// The demo clinic and the client's preferred name (api/src/db/seeds/demo-clinic.seed.ts and
+// demo-client.seed.ts); the admin step sets another invented number (01632 960xxx: Ofcom's drama range).
+const CLINIC = 'Willowmere Community Communication Clinic';
+const CLINIC_PHONE = '01632 960 419';
+const PREFERRED_NAME = 'Robbie';
 
 /** The fake mail server's messages (maildev JSON API, MAIL_API_URL from scripts/test.mjs). */
 async function inbox() {
@@ -36,6 +44,36 @@ let stopPath = null;
 export const summariesSuite = {
   name: 'summaries',
   tests: [
+    [
+      'admin changes the clinic’s phone on the clinic details page by keyboard; focus lands on the saved message',
+      async (t) => {
+        const page = await t.newPage();
+        await signIn(page, t.appUrl, 'admin@willowmere.example');
+        await page.waitForURL((url) => url.pathname === '/admin/staff');
+        const link = page
+          .getByRole('navigation', { name: 'Main' })
+          .getByRole('link', { name: 'Clinic details' });
+        await link.focus();
+        await link.press('Enter');
+        await page.getByRole('heading', { level: 1, name: 'Clinic details' }).waitFor();
+        const form = page.getByRole('form', { name: 'Clinic details' });
+        assert.equal(await form.getByLabel('Clinic name').inputValue(), CLINIC, 'the seeded name');
+        const phone = form.getByLabel('Phone');
+        await phone.focus();
+        await phone.fill('');
+        await page.keyboard.type(CLINIC_PHONE);
+        await page.keyboard.press('Enter');
+        const status = page.getByRole('status').filter({ hasText: 'Clinic details saved' });
+        await status.waitFor();
+        assert.ok(
+          await status.evaluate((element) => element === document.activeElement),
+          'focus moves to the saved message',
+        );
+        assert.deepEqual(await t.seriousViolations(page, 'clinic details page'), []);
+        await t.screenshot(page, 'clinic-details');
+        await signOut(page, 'Administrator');
+      },
+    ],
     [
       'clinician composes, previews and sends a family update; the consenting contact alone receives it',
       async (t) => {
@@ -219,13 +257,35 @@ export const summariesSuite = {
         await t.context.clearCookies();
         const page = await t.newPage();
         // As the family member, without an account (the app's own address; nothing leaves the machine).
+        // A phone's width: 390 CSS px.
+        await page.setViewportSize({ width: 390, height: 844 });
         await page.goto(`${t.appUrl}${stopPath}`);
-        await page.getByRole('heading', { name: 'Stop progress summaries?' }).waitFor();
-        assert.deepEqual(await t.seriousViolations(page, 'stop link page'), []);
+        await page.getByRole('heading', { name: 'Stop progress e-mails?' }).waitFor();
+        const next =
+          `You will get no more progress e-mails about ${PREFERRED_NAME} from ${CLINIC}. ` +
+          `To start them again, contact the clinic on ${CLINIC_PHONE}.`;
+        await page.getByText(next).waitFor();
+        await page.getByRole('banner').getByText(CLINIC).waitFor();
+        await assertNoSidewaysScroll(page, 'stop page at 390 px');
+        // The app's own font file, loaded from the app (the route guard aborts anything off-site).
+        const fontLoaded = await page.evaluate(async () => {
+          await document.fonts.ready;
+          return (
+            document.fonts.check("700 16px 'Atkinson Hyperlegible'") &&
+            [...document.fonts].some((face) => face.family.includes('Atkinson') && face.status === 'loaded')
+          );
+        });
+        assert.ok(fontLoaded, 'Atkinson Hyperlegible is loaded from the web app’s files');
         const stop = page.getByRole('button', { name: 'Stop these e-mails' });
+        const box = await stop.boundingBox();
+        assert.ok(box && box.height >= 48, `the button is at least 48 px tall (${box?.height})`);
+        assert.deepEqual(await t.seriousViolations(page, 'stop link page'), []);
+        await t.screenshot(page, 'summary-stop-390');
         await stop.focus();
         await stop.press('Enter');
-        await page.getByRole('heading', { name: 'Summaries stopped' }).waitFor();
+        await page.getByRole('heading', { name: 'Progress e-mails stopped' }).waitFor();
+        await page.getByText(next).waitFor();
+        assert.deepEqual(await t.seriousViolations(page, 'stopped page'), []);
         await t.screenshot(page, 'summary-stopped');
 
         const app = await t.newPage();

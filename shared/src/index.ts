@@ -6,6 +6,7 @@ export * from './schemas/users.schema';
 export * from './schemas/email';
 export * from './schemas/common';
 export * from './schemas/clients.schema';
+export * from './schemas/clinic-settings.schema';
 export * from './schemas/consents.schema';
 export * from './schemas/samples.schema';
 export * from './schemas/audit.schema';

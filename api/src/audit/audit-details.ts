@@ -26,6 +26,7 @@ export const CLIENT_TEXT_KEYS: ReadonlySet<string> = new Set([
   'documentName',
   'title',
   'name',
+  'preferredName',
   'email',
   'relationship',
   'representativeName',

@@ -28,6 +28,10 @@ export class Client {
   @Column({ type: 'text' })
   pseudonym: string;
 
+  // What the family calls the client, for progress e-mails to them; the app keeps using the pseudonym.
+  @Column({ name: 'preferred_name', type: 'text', nullable: true })
+  preferredName: string | null;
+
   @Column({ name: 'access_method', type: 'text' })
   accessMethod: AccessMethod;
 

@@ -26,6 +26,7 @@ export const NOT_ASSIGNED_MESSAGE = 'That carer is not assigned to this client.'
 
 const EDITABLE_FIELDS = [
   'pseudonym',
+  'preferredName',
   'accessMethod',
   'scanIntervalMs',
   'dwellMs',
@@ -72,6 +73,7 @@ export class ClientsService {
       const repo = manager.getRepository(Client);
       const inserted = await repo.insert({
         pseudonym: input.pseudonym,
+        preferredName: input.preferredName ?? null,
         accessMethod: input.accessMethod,
         scanIntervalMs: input.scanIntervalMs ?? null,
         dwellMs: input.dwellMs ?? null,

@@ -26,6 +26,9 @@ import { SampleCorrections1764990000001 } from '../migrations/1764990000001-samp
 import { VersionRetire1764991000001 } from '../migrations/1764991000001-version-retire';
 import { BaseOnlyVersions1765000000001 } from '../migrations/1765000000001-base-only-versions';
 import { SummaryDrafts1765000000002 } from '../migrations/1765000000002-summary-drafts';
+import { CreateClinicSettings1765010000001 } from '../migrations/1765010000001-create-clinic-settings';
+import { ClientPreferredName1765010000002 } from '../migrations/1765010000002-client-preferred-name';
+import { ClinicSettingsRow } from '../clinic/clinic-settings.entity';
 import { SummaryStop } from '../contacts/summary-stop.entity';
 import { SignInLimit } from '../auth/sign-in-limits/sign-in-limit.entity';
 import { ProfileVersion } from '../profile-versions/profile-version.entity';
@@ -60,6 +63,7 @@ export const entities = [
   SignInLimit,
   ClientVocabularyRow,
   SummaryStop,
+  ClinicSettingsRow,
 ];
 export const migrations = [
   CreateUsersAndSessions1764633600000,
@@ -83,6 +87,8 @@ export const migrations = [
   VersionRetire1764991000001,
   BaseOnlyVersions1765000000001,
   SummaryDrafts1765000000002,
+  CreateClinicSettings1765010000001,
+  ClientPreferredName1765010000002,
 ];
 
 /** TypeORM options for the app, the CLI, migrate.js, seed.js and the HTTP tests. Never synchronize. */

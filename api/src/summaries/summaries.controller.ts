@@ -45,6 +45,7 @@ import { zodSchemaObject } from '../common/openapi/zod-schema-object';
 import { ZodValidationPipe } from '../common/pipes/zod-validation.pipe';
 import { IDEMPOTENCY_KEY_HEADER, IdempotencyKeyHeader } from '../idempotency/idempotency-key';
 import { isStopToken, stopFormPage, stoppedPage, unknownStopPage } from './stop-page';
+import { StopPageContextService } from './stop-page-context';
 import { SummariesService } from './summaries.service';
 
 const IDEMPOTENCY_HEADER_DOC = {
@@ -56,7 +57,10 @@ const IDEMPOTENCY_HEADER_DOC = {
 @ApiTags('summaries')
 @Controller()
 export class SummariesController {
-  constructor(private readonly summaries: SummariesService) {}
+  constructor(
+    private readonly summaries: SummariesService,
+    private readonly stopPages: StopPageContextService,
+  ) {}
 
   @Get('clients/:id/summaries')
   @ApiOperation({
@@ -124,9 +128,10 @@ export class SummariesController {
     const state = isStopToken(token) ? await this.summaries.stopState(token) : 'unknown';
     if (state === 'unknown') {
       res.status(404);
-      return unknownStopPage();
+      return unknownStopPage(await this.stopPages.clinic());
     }
-    return state === 'stopped' ? stoppedPage() : stopFormPage(token);
+    const context = await this.stopPages.forToken(token);
+    return state === 'stopped' ? stoppedPage(context) : stopFormPage(token, context);
   }
 
   @Post('summaries/stop/:token')
@@ -145,9 +150,9 @@ export class SummariesController {
     const done = isStopToken(token) && (await this.summaries.stop(token));
     if (!done) {
       res.status(404);
-      return unknownStopPage();
+      return unknownStopPage(await this.stopPages.clinic());
     }
-    return stoppedPage();
+    return stoppedPage(await this.stopPages.forToken(token));
   }
 
   @Get('summaries/:id')

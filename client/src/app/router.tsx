@@ -55,6 +55,10 @@ export const routes: RouteObject[] = [
                   Component: (await import('./routes/admin/assignments')).AssignmentsRoute,
                 }),
               },
+              {
+                path: 'admin/clinic',
+                lazy: async () => ({ Component: (await import('./routes/admin/clinic')).ClinicRoute }),
+              },
             ],
           },
           {

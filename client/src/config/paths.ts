@@ -13,6 +13,7 @@ export const paths = {
   clients: '/clients',
   audit: '/audit',
   assignments: '/admin/assignments',
+  clinic: '/admin/clinic',
 } as const;
 
 // The client page's tabs, in order; each is part of the URL (/clients/:id/:tab).
@@ -67,6 +68,7 @@ export const roleNavigation: Record<Role, readonly NavItem[]> = {
   admin: [
     { label: 'Staff', to: paths.staff },
     { label: 'Assignments', to: paths.assignments },
+    { label: 'Clinic details', to: paths.clinic },
     { label: 'Audit log', to: paths.audit },
   ],
   clinician: [{ label: 'Caseload', to: paths.caseload, alsoFor: [`${paths.clients}/`] }],

@@ -7,6 +7,7 @@ export const queryRoots = {
   auth: ['auth'],
   audit: ['audit'],
   clients: ['clients'],
+  clinic: ['clinic'],
   profileVersions: ['profile-versions'],
   samples: ['samples'],
   summaries: ['summaries'],

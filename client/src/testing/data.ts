@@ -55,6 +55,7 @@ export const clientSummary = (overrides: Partial<ClientSummary> = {}): ClientSum
 
 export const clientRecord = (overrides: Partial<Client> = {}): Client => ({
   ...clientSummary(),
+  preferredName: 'Robbie',
   scanIntervalMs: null,
   dwellMs: null,
   keyTimeMs: 1800,

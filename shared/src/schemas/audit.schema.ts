@@ -11,6 +11,7 @@ export const auditActionLabels = {
   'auth.password-change': 'Changed their own password',
   'user.create': 'Added a staff account',
   'user.update': 'Changed a staff account',
+  'clinic-settings.update': 'Changed the clinic details',
   'client.create': 'Opened a client record',
   'client.update': 'Changed a client record',
   'assignment.create': 'Assigned a carer',

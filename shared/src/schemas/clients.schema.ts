@@ -58,6 +58,8 @@ const clientFields = {
     .trim()
     .min(1, { error: 'Enter a pseudonym.' })
     .max(80, { error: 'Keep the pseudonym under 80 characters.' }),
+  // What the family calls the client, for progress e-mails to them; the app keeps using the pseudonym.
+  preferredName: optionalText(80, 'Keep the preferred name under 80 characters.', { multiline: false }),
   accessMethod: accessMethodSchema,
   // Time between scan steps (switch scanning).
   scanIntervalMs: msField(100, 10_000, 'scan interval'),
@@ -105,8 +107,10 @@ export const clientSummarySchema = z.object({
 });
 export type ClientSummary = z.infer<typeof clientSummarySchema>;
 
-// GET /api/clients/:id — the client page.
+// GET /api/clients/:id — the client page. preferredName is null for carers (like contacts, a name
+// the family uses is not theirs to see).
 export const clientSchema = clientSummarySchema.extend({
+  preferredName: z.string().nullable(),
   scanIntervalMs: z.number().int().nullable(),
   dwellMs: z.number().int().nullable(),
   keyTimeMs: z.number().int().nullable(),

@@ -43,14 +43,18 @@ export function toClientSummary(client: Client, context: SummaryContext): Client
   };
 }
 
-/** Entity + context → the client page (clientSchema). Carers get the goals but never the notes. */
-export function toClientDto(client: Client, context: SummaryContext, withNotes: boolean): ClientDto {
+/**
+ * Entity + context → the client page (clientSchema). Carers get the goals but never the notes, nor
+ * the preferred name (a name the family uses, as private as the family contacts carers do not see).
+ */
+export function toClientDto(client: Client, context: SummaryContext, clinicalTeam: boolean): ClientDto {
   return {
     ...toClientSummary(client, context),
+    preferredName: clinicalTeam ? client.preferredName : null,
     scanIntervalMs: client.scanIntervalMs,
     dwellMs: client.dwellMs,
     keyTimeMs: client.keyTimeMs,
     goals: client.goals,
-    notes: withNotes ? client.notes : null,
+    notes: clinicalTeam ? client.notes : null,
   };
 }

@@ -91,6 +91,7 @@ export const demoClientStep: SeedStep = {
     if (!client) {
       const inserted = await manager.getRepository(Client).insert({
         pseudonym: DEMO_CLIENT_PSEUDONYM,
+        preferredName: 'Robbie',
         accessMethod: 'head_pointer',
         keyTimeMs: 1800,
         scanIntervalMs: null,

@@ -120,6 +120,10 @@ describe('Caseload', () => {
     await user.click(screen.getByRole('button', { name: 'New client' }));
     const form = within(await screen.findByRole('dialog', { name: 'New client' }));
     await user.type(form.getByLabelText('Pseudonym'), 'T. Marsh');
+    expect(form.getByLabelText('Preferred name (optional)')).toHaveAccessibleDescription(
+      'What the family calls them in e-mails; the app keeps using the pseudonym.',
+    );
+    await user.type(form.getByLabelText('Preferred name (optional)'), '  Tam ');
     await user.selectOptions(form.getByLabelText('Access method'), 'Eye gaze with dwell');
     await user.clear(form.getByLabelText('Dwell time (ms)'));
     await user.type(form.getByLabelText('Dwell time (ms)'), '700');
@@ -129,6 +133,7 @@ describe('Caseload', () => {
     expect(currentUrl(router)).toBe(`/clients/${created.id}/overview`);
     expect(api.requestsTo('POST /api/clients')[0]?.body).toEqual({
       pseudonym: 'T. Marsh',
+      preferredName: 'Tam',
       accessMethod: 'eye_gaze',
       scanIntervalMs: null,
       dwellMs: 700,

@@ -31,13 +31,14 @@ describe('Assignments (admin)', () => {
     expect(await within(table).findByText('No carer is assigned yet.')).toBeInTheDocument();
   });
 
-  it('offers admins the Assignments and Audit log links, and no client page', async () => {
+  it('offers admins the Assignments, Clinic details and Audit log links, and no client page', async () => {
     mockFetch({ ...sessionRoutes(sessionUser('admin')), 'GET /api/users': { body: [] } });
     const { user } = renderApp('/admin/staff');
     const nav = within(await screen.findByRole('navigation', { name: 'Main' }));
     expect(nav.getAllByRole('link').map((link) => link.textContent)).toEqual([
       'Staff',
       'Assignments',
+      'Clinic details',
       'Audit log',
     ]);
     await user.click(nav.getByRole('link', { name: 'Assignments' }));

@@ -18,7 +18,9 @@ const base = `/api/clients/${ASHBY_ID}`;
 const openClient = async (role: Role, tab: string, routes: MockRoutes = {}) => {
   const api = mockFetch({
     ...sessionRoutes(sessionUser(role)),
-    [`GET ${base}`]: { body: role === 'carer' ? clientRecord({ notes: null }) : clientRecord() },
+    [`GET ${base}`]: {
+      body: role === 'carer' ? clientRecord({ notes: null, preferredName: null }) : clientRecord(),
+    },
     [`GET ${base}/carers-available`]: { body: [] },
     [`GET ${base}/consents`]: { body: [consentRecord()] },
     [`GET ${base}/contacts`]: { body: [contactRecord()] },
@@ -50,6 +52,8 @@ describe('Client page', () => {
     expect(nav.getByRole('link', { name: 'Caseload' })).toHaveAttribute('aria-current', 'page');
     expect(screen.getByRole('button', { name: 'Edit details' })).toBeInTheDocument();
     expect(screen.getByText('Tires after about twenty minutes of typing.')).toBeInTheDocument();
+    // The family's name for the client, beside the pseudonym (carers never get it).
+    expect(screen.getByText('Preferred name').nextElementSibling).toHaveTextContent('Robbie');
 
     await user.click(screen.getByRole('tab', { name: 'Consent & family' }));
     await waitFor(() => expect(currentUrl(router)).toBe(`/clients/${ASHBY_ID}/consent`));
@@ -64,6 +68,7 @@ describe('Client page', () => {
     expect(tabNames()).toEqual(['Overview', 'Profile versions', 'Try-outs']);
     expect(screen.queryByRole('button', { name: 'Edit details' })).not.toBeInTheDocument();
     expect(screen.queryByText('Notes')).not.toBeInTheDocument();
+    expect(screen.queryByText('Preferred name')).not.toBeInTheDocument();
     expect(screen.queryByRole('button', { name: 'Assign carer' })).not.toBeInTheDocument();
     expect(api.requestsTo(`GET ${base}/consents`)).toHaveLength(0);
     expect(api.requestsTo(`GET ${base}/samples`)).toHaveLength(0);

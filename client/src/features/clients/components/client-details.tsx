@@ -11,13 +11,21 @@ const Detail = ({ term, children }: { term: string; children: ReactNode }) => (
   </div>
 );
 
-/** The client's record as a list of terms; notes only when the reader may see them. */
+/**
+ * The client's record as a list of terms; the preferred name and the notes only when the reader may
+ * see them (the clinical team, not carers).
+ */
 export const ClientDetails = ({ client, showNotes }: { client: Client; showNotes: boolean }) => {
   const timing = timingFor[client.accessMethod];
   const timingValue = client[timing.field];
   return (
     <dl>
       <Detail term="Pseudonym">{client.pseudonym}</Detail>
+      {showNotes && (
+        <Detail term="Preferred name">
+          {client.preferredName ?? 'None given: e-mails to the family say “this client”.'}
+        </Detail>
+      )}
       <Detail term="Consent">
         <ConsentStatusBadge status={client.consentStatus} />
       </Detail>

@@ -42,6 +42,7 @@ export const ClientFormDialog = ({ open, client, onClose, onSaved }: ClientFormD
         schema={createClientSchema}
         defaultValues={{
           pseudonym: client?.pseudonym ?? '',
+          preferredName: client?.preferredName ?? '',
           accessMethod: client?.accessMethod ?? 'direct',
           scanIntervalMs: client?.scanIntervalMs ?? defaultAccessTiming.scanIntervalMs,
           dwellMs: client?.dwellMs ?? defaultAccessTiming.dwellMs,
@@ -74,6 +75,13 @@ export const ClientFormDialog = ({ open, client, onClose, onSaved }: ClientFormD
                   hint="A short name the team will recognise, e.g. initials and a surname."
                   registration={register('pseudonym')}
                   error={formState.errors.pseudonym}
+                />
+                <TextField
+                  label="Preferred name (optional)"
+                  autoComplete="off"
+                  hint="What the family calls them in e-mails; the app keeps using the pseudonym."
+                  registration={register('preferredName')}
+                  error={formState.errors.preferredName}
                 />
                 <SelectField
                   label="Access method"
