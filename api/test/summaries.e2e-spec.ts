@@ -389,6 +389,14 @@ describe('summary e-mail delivery (mail job)', () => {
     });
 
     it('drafts a summary, edits it, sends the edited text verbatim, delivers it, then honours the stop link', async () => {
+      // The clinic's details (invented; 01632 96xxxx is a range kept for fiction) and the name the
+      // family uses for the client.
+      await t.dataSource.query(
+        `INSERT INTO clinic_settings (id, name, phone, address) VALUES (1, $1, $2, $3)
+         ON CONFLICT (id) DO UPDATE SET name = $1, phone = $2, address = $3`,
+        ['Willowmere Community Communication Clinic', '01632 960 418', '4 Harbour Row\nWillowmere WM1 2AB'],
+      );
+      await t.dataSource.query(`UPDATE clients SET preferred_name = 'Rory' WHERE id = $1`, [httpClientId]);
       const draft = (
         await send(
           t.http,
@@ -405,7 +413,13 @@ describe('summary e-mail delivery (mail job)', () => {
         [consenting],
         false,
       ]);
-      expect(draft.subject).toBe('Progress summary for R. Ashby, 1 October to 30 November 2026');
+      expect(draft.subject).toBe('Progress summary for Rory, 1 October to 30 November 2026');
+      // Signed by the clinician with their role, the clinic's name, address and phone from its settings.
+      expect(draft.text).toContain('call the clinic on 01632 960 418');
+      expect(draft.text.split('\n\n').at(-1)).toBe(
+        'clinician owner, clinician\nWillowmere Community Communication Clinic\n4 Harbour Row\nWillowmere WM1 2AB\nPhone: 01632 960 418',
+      );
+      expect(draft.notes).toEqual([]);
       expect(draft.text).toContain(
         'Version 1 (approved, in use, 3 November 2026): about 4 in 10 key presses saved',
       );
@@ -492,7 +506,9 @@ describe('summary e-mail delivery (mail job)', () => {
         .type('form')
         .send('List-Unsubscribe=One-Click')
         .expect(200);
-      expect(stopped.text).toContain('You will get no more progress e-mails about this client from');
+      expect(stopped.text).toContain(
+        'You will get no more progress e-mails about Rory from Willowmere Community Communication Clinic.',
+      );
       await send(t.http, cast.anonymous, 'post', stopPath).expect(200);
       expect((await send(t.http, cast.anonymous, 'get', stopPath).expect(200)).text).toContain(
         'Progress e-mails stopped',
@@ -788,9 +804,11 @@ describe('summary e-mail delivery (mail job)', () => {
         }).expect(201)
       ).body as SummaryDto;
       expect(created.text).toBe(preview.text);
-      expect(created.notes).toEqual([
-        'Version 1: 1 trial shorter than 20 characters was left out of the trial figures (too short to measure).',
-      ]);
+      expect(created.notes).toEqual(
+        expect.arrayContaining([
+          'Version 1: 1 trial shorter than 20 characters was left out of the trial figures (too short to measure).',
+        ]),
+      );
       expect(created.availableComments).toEqual([
         expect.objectContaining({ versionId, kind: 'sign-off', text: 'He liked the sailing words.' }),
       ]);

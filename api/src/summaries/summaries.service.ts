@@ -14,6 +14,7 @@ import {
   type SummaryMessagePreview,
   type SummaryPreview,
   type SummaryPreviewRequest,
+  roleLabels,
   summaryStatusOf,
   type UpdateSummaryInput,
 } from '@keyloom/shared';
@@ -22,6 +23,8 @@ import { DataSource, type EntityManager, In } from 'typeorm';
 import { AuditService } from '../audit/audit.service';
 import type { Actor } from '../auth/session-user';
 import { ClientAccessService } from '../clients/client-access.service';
+import type { Client } from '../clients/client.entity';
+import { loadClinicSettings } from '../clinic/clinic-settings.service';
 import { coversScope, todayIso } from '../consents/consent-status';
 import { Consent } from '../consents/consent.entity';
 import { WithdrawalHooks } from '../consents/withdrawal-hooks';
@@ -53,7 +56,6 @@ export const NO_RECIPIENTS_LEFT_MESSAGE =
   'None of the recipients may receive summaries any more (consent changed or they stopped them).';
 export const ROUND_PENDING_MESSAGE =
   'The last sending of this summary is still going out. Wait until every e-mail is sent or failed, then send again.';
-export const CLINIC_NAME = 'Willowmere Community Communication Clinic';
 export const DRAFT_NOT_SENT_MESSAGE = 'This summary is a draft and was never sent: send it first.';
 export const ONLY_DRAFT_SUMMARY_MESSAGE =
   'This summary was already sent, and what was sent never changes. Compose a new summary instead.';
@@ -182,7 +184,7 @@ export class SummariesService implements OnModuleInit {
       const client = await this.access.requireOwned(actor, clientId, manager);
       await this.requireSummaryConsent(manager, clientId);
       const contacts = await this.allowedContacts(manager, clientId, input.contactIds);
-      const content = await this.compose(manager, actor, client.pseudonym, clientId, input);
+      const content = await this.compose(manager, actor, client, clientId, input);
       const saved = await manager.getRepository(Summary).save(
         manager.getRepository(Summary).create({
           clientId,
@@ -240,7 +242,7 @@ export class SummariesService implements OnModuleInit {
         if (input.note !== undefined) row.note = input.note;
         if (input.includeComments) row.includeComments = input.includeComments;
         const client = await this.access.requireOwned(actor, row.clientId, manager);
-        const content = await this.compose(manager, actor, client.pseudonym, row.clientId, {
+        const content = await this.compose(manager, actor, client, row.clientId, {
           from: row.periodFrom,
           to: row.periodTo,
           versionIds: input.versionIds ?? row.versionIds,
@@ -380,7 +382,7 @@ export class SummariesService implements OnModuleInit {
   async preview(actor: Actor, clientId: string, input: SummaryPreviewRequest): Promise<SummaryPreview> {
     return this.dataSource.transaction(async (manager) => {
       const client = await this.access.requireOwned(actor, clientId, manager);
-      const content = await this.compose(manager, actor, client.pseudonym, clientId, input);
+      const content = await this.compose(manager, actor, client, clientId, input);
       return {
         subject: content.subject,
         text: content.text,
@@ -398,7 +400,7 @@ export class SummariesService implements OnModuleInit {
   private async compose(
     manager: EntityManager,
     actor: Actor,
-    clientName: string,
+    client: Client,
     clientId: string,
     input: SummaryPreviewRequest,
   ): Promise<{
@@ -442,13 +444,29 @@ export class SummariesService implements OnModuleInit {
             : null,
       };
     });
+    // The name the family uses (the client record's preferred name); the pseudonym only without one.
+    const clientName = client.preferredName?.trim() || client.pseudonym;
+    if (!client.preferredName?.trim()) {
+      notes.push(
+        `${client.pseudonym} has no preferred name on the client record, so the e-mail calls them ` +
+          `“${client.pseudonym}”. Add the name the family uses on the client record and write the text again.`,
+      );
+    }
+    const clinic = await loadClinicSettings(manager);
+    if (!clinic.configured) {
+      notes.push(
+        'The clinic’s name, phone and address are not set, so the e-mail names no phone number. An administrator sets them under Clinic details.',
+      );
+    }
     const period = { clientName, from: input.from, to: input.to };
     return {
       subject: summarySubject(period),
       text: summaryText({
         ...period,
-        clinicName: CLINIC_NAME,
-        clinician: { name: actor.name, role: 'clinician' },
+        clinicName: clinic.name,
+        clinicPhone: clinic.phone,
+        clinicAddress: clinic.address,
+        clinician: { name: actor.name, role: roleLabels[actor.role].toLowerCase() },
         versions: figures,
         note: input.note,
       }),
