@@ -826,6 +826,48 @@ describe('summary e-mail delivery (mail job)', () => {
       expect(tried?.wpm).toBeCloseTo(2.0, 10);
     });
 
+    it('leaves out a trial speed more than twice the estimate, and tells the clinician why', async () => {
+      // One more trial in the period, 100 characters at 30 words a minute (invented): the mean of the
+      // three measured speeds is (1.8 + 2.2 + 30) / 3 ≈ 11.3, over twice the estimate of 2.72 (derived).
+      await t.dataSource.query(
+        `INSERT INTO trials (local_trial_id, profile_version_id, client_id, user_name, user_role,
+                             started_at, finished_at, text, settings, events, measures, simulated)
+         VALUES ($1, $2, $3, 'Hannah', 'carer', '2026-11-20T09:58:00Z', '2026-11-20T10:00:00Z', 'hi pepper',
+                 '{}', '[]', $4, '{}')`,
+        [
+          randomUUID(),
+          versionId,
+          httpClientId,
+          JSON.stringify({ characters: 100, keystrokeSavings: 0.3, wpm: 30 }),
+        ],
+      );
+      const contact = (
+        await send(t.http, cast.owner, 'post', `/api/clients/${httpClientId}/contacts`, {
+          name: 'Tess',
+          relationship: 'cousin',
+          email: `tess-${randomBytes(4).toString('hex')}@family.example`,
+          consentToSummaries: true,
+        }).expect(201)
+      ).body as { id: string };
+      const draft = (
+        await send(t.http, cast.owner, 'post', `/api/clients/${httpClientId}/summaries`, {
+          from: '2026-10-01',
+          to: '2026-11-30',
+          contactIds: [contact.id],
+        }).expect(201)
+      ).body as SummaryDto;
+      expect(draft.text).toContain('In 4 tries on the test keyboard, about 3 in 10 key presses were saved.');
+      expect(draft.text).not.toMatch(/tries on the test keyboard[^.]*words a minute/);
+      expect(draft.notes).toEqual(
+        expect.arrayContaining([
+          expect.stringMatching(
+            /^Version 1: the measured trial speed \(11\.3 words a minute\) is more than 2 times the estimate \(2\.7\)/,
+          ),
+        ]),
+      );
+      await send(t.http, cast.owner, 'delete', `/api/summaries/${draft.id}`).expect(204);
+    });
+
     describe('exactly once: Idempotency-Key and one round at a time', () => {
       const up = () => smtpTransport(Number(process.env.SMTP_PORT ?? 1025));
 
