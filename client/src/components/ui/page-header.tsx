@@ -10,11 +10,14 @@ type PageHeaderProps = {
 
 /**
  * The page's only h1. It names the document ("Staff — Keyloom") and, after an in-app
- * navigation, takes focus so screen readers announce the new page.
+ * navigation, takes focus so screen readers announce the new page — except when the navigation
+ * says `keepFocus` in its state (e.g. a tab of the same page: focus stays on the tab, as the
+ * WAI-ARIA tabs pattern expects).
  */
 export const PageHeader = ({ title, description, actions }: PageHeaderProps) => {
   const headingRef = useRef<HTMLHeadingElement>(null);
-  const { key } = useLocation();
+  const { key, state } = useLocation();
+  const keepFocus = (state as { keepFocus?: unknown } | null)?.keepFocus === true;
 
   useEffect(() => {
     document.title = `${title} — Keyloom`;
@@ -22,8 +25,8 @@ export const PageHeader = ({ title, description, actions }: PageHeaderProps) => 
 
   useEffect(() => {
     // "default" is the entry the app was opened on: leave focus at the top of the document there.
-    if (key !== 'default') headingRef.current?.focus();
-  }, [key]);
+    if (key !== 'default' && !keepFocus) headingRef.current?.focus();
+  }, [key, keepFocus]);
 
   return (
     <div className="mb-8 flex flex-wrap items-end justify-between gap-4 border-b-2 border-thread pb-6">

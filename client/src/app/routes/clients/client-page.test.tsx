@@ -61,6 +61,17 @@ describe('Client page', () => {
 
     await user.click(screen.getByRole('tab', { name: 'Profile versions' }));
     expect(await screen.findByRole('heading', { name: 'No profile versions yet.' })).toBeInTheDocument();
+
+    // WAI-ARIA tabs pattern: the arrow keys move between tabs and the address follows, while focus
+    // stays on the tab (not the page heading).
+    await user.keyboard('{ArrowRight}');
+    await waitFor(() => expect(currentUrl(router)).toBe(`/clients/${ASHBY_ID}/trials`));
+    await new Promise((resolve) => setTimeout(resolve, 50));
+    expect(screen.getByRole('tab', { name: 'Try-outs' })).toHaveFocus();
+    await user.keyboard('{ArrowLeft}');
+    await waitFor(() => expect(currentUrl(router)).toBe(`/clients/${ASHBY_ID}/profiles`));
+    await new Promise((resolve) => setTimeout(resolve, 50));
+    expect(screen.getByRole('tab', { name: 'Profile versions' })).toHaveFocus();
   });
 
   it('shows carers the overview, profile versions and try-outs only, without notes or edit controls, and never asks for consent or samples', async () => {

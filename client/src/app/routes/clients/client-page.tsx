@@ -146,7 +146,8 @@ export const ClientRoute = () => {
         selectedIndex={index}
         onChange={(next) => {
           setAnnouncement(null);
-          void navigate(clientPath(data.id, tabs[next] ?? 'overview'));
+          // A tab of the same page: the address changes, focus stays on the tab (WAI-ARIA tabs pattern).
+          void navigate(clientPath(data.id, tabs[next] ?? 'overview'), { state: { keepFocus: true } });
         }}
       >
         <TabList
