@@ -241,7 +241,7 @@ export const caseloadSuite = {
         await page.waitForURL(/\/clients\/[0-9a-f-]{36}\/overview$/);
         await page.getByRole('tab', { name: 'Consent & family' }).click();
         await page.waitForURL(/\/consent$/);
-        const open = page.getByRole('button', { name: /^Withdraw the consent given on/ });
+        const open = page.getByRole('button', { name: /^Withdraw consent given on/ });
         await open.focus();
         await open.press('Enter');
         const dialog = page.getByRole('dialog', { name: `Withdraw consent for ${pseudonym}?` });
@@ -324,7 +324,7 @@ export const caseloadSuite = {
         await screenshotTo(page, 'voided');
 
         // Withdraw the first: it is the only consent in force now.
-        await press(page.getByRole('button', { name: 'Withdraw the consent given on 2026-09-01' }));
+        await press(page.getByRole('button', { name: 'Withdraw consent given on 2026-09-01' }));
         const withdrawDialog = page.getByRole('dialog', {
           name: `Withdraw consent for ${correctedPseudonym}?`,
         });

@@ -72,7 +72,7 @@ describe('Client page', () => {
     await waitFor(() => expect(currentUrl(router)).toBe(`/clients/${ASHBY_ID}/profiles`));
     await new Promise((resolve) => setTimeout(resolve, 50));
     expect(screen.getByRole('tab', { name: 'Profile versions' })).toHaveFocus();
-  });
+  }, 15_000);
 
   it('shows carers the overview, profile versions and try-outs only, without notes or edit controls, and never asks for consent or samples', async () => {
     const { api } = await openClient('carer', 'overview');
@@ -228,7 +228,7 @@ describe('Client page', () => {
       },
       [`POST ${base}/consents/${withdrawn.id}/withdraw`]: { body: withdrawn },
     });
-    await user.click(await screen.findByRole('button', { name: 'Withdraw the consent given on 2026-09-14' }));
+    await user.click(await screen.findByRole('button', { name: 'Withdraw consent given on 2026-09-14' }));
     const dialog = await screen.findByRole('dialog', { name: 'Withdraw consent for R. Ashby?' });
     await waitFor(() =>
       expect(dialog).toHaveAccessibleDescription(
@@ -284,7 +284,7 @@ describe('Client page', () => {
         },
       },
     });
-    await user.click(await screen.findByRole('button', { name: 'Withdraw the consent given on 2026-10-01' }));
+    await user.click(await screen.findByRole('button', { name: 'Withdraw consent given on 2026-10-01' }));
     const dialog = await screen.findByRole('dialog', { name: 'Withdraw consent for R. Ashby?' });
     await waitFor(() =>
       expect(dialog).toHaveAccessibleDescription(

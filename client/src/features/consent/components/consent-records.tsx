@@ -170,7 +170,7 @@ export const ConsentRecords = ({
                     <Button
                       variant="danger"
                       onClick={() => onWithdraw(consent)}
-                      aria-label={`Withdraw the consent given on ${consent.givenOn}`}
+                      aria-label={`Withdraw consent given on ${consent.givenOn}`}
                     >
                       Withdraw consent
                     </Button>
