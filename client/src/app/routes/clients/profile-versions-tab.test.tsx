@@ -274,12 +274,17 @@ describe('Profile versions tab', () => {
   it('with enough writing a clinician can still choose base-only; switching back shows the samples', async () => {
     const { user } = await openTab();
     await user.click(await screen.findByRole('button', { name: 'New version' }));
+    // Focus lands on the form it opened.
+    await waitFor(() => expect(screen.getByRole('heading', { name: 'New profile version' })).toHaveFocus());
     const form = within(screen.getByRole('form', { name: 'New profile version' }));
     expect(form.getByRole('radio', { name: 'The client’s own writing' })).toBeChecked();
     await user.click(form.getByRole('radio', { name: 'General English only (base-only)' }));
     expect(form.queryByRole('group', { name: 'Writing samples to learn from' })).not.toBeInTheDocument();
     await user.click(form.getByRole('radio', { name: 'The client’s own writing' }));
     expect(form.getByRole('checkbox', { name: 'Diary, August' })).toBeChecked();
+    // Cancel: back to the button that opened it.
+    await user.click(form.getByRole('button', { name: 'Cancel' }));
+    await waitFor(() => expect(screen.getByRole('button', { name: 'New version' })).toHaveFocus());
   });
 
   it('with no ready sample, New version is still offered (base-only), and base-only rows say so', async () => {

@@ -113,6 +113,7 @@ export const ProfilesPanel = ({
     if (deleted !== null && loaded) listStart.current?.focus();
   }, [deleted, loaded]);
   const [creating, setCreating] = useState(false);
+  const newVersionButton = useRef<HTMLButtonElement | null>(null);
   const [chosen, setChosen] = useState<string[]>([]);
   const owner = role === 'clinician';
   const toggle = (id: string) =>
@@ -133,7 +134,10 @@ export const ProfilesPanel = ({
       {owner && !creating && (
         <div className="flex flex-col gap-2">
           <Button
-            ref={versions.data?.length === 0 ? (node) => void (listStart.current = node) : undefined}
+            ref={(node) => {
+              newVersionButton.current = node;
+              if (versions.data?.length === 0) listStart.current = node;
+            }}
             variant="primary"
             className="self-start"
             disabled={!trainingConsent}
@@ -144,7 +148,11 @@ export const ProfilesPanel = ({
                   ? 'new-version-base-only'
                   : undefined
             }
-            onClick={() => setCreating(true)}
+            onClick={() => {
+              setCreating(true);
+              // Focus goes to the form it opened, so keyboard and screen-reader users start there.
+              requestAnimationFrame(() => document.getElementById('new-version-heading')?.focus());
+            }}
           >
             New version
           </Button>
@@ -161,7 +169,7 @@ export const ProfilesPanel = ({
       )}
       {owner && creating && (
         <section aria-labelledby="new-version-heading" className="flex flex-col gap-4">
-          <h3 id="new-version-heading" className="text-2xl font-bold">
+          <h3 id="new-version-heading" tabIndex={-1} className="text-2xl font-bold">
             New profile version
           </h3>
           <NewVersionForm
@@ -174,7 +182,10 @@ export const ProfilesPanel = ({
                 null,
               )?.id ?? null
             }
-            onCancel={() => setCreating(false)}
+            onCancel={() => {
+              setCreating(false);
+              requestAnimationFrame(() => newVersionButton.current?.focus());
+            }}
             onStarted={(version, trainError) => {
               setCreating(false);
               // The version's page shows this message (this tab's live region goes away).
