@@ -365,6 +365,20 @@ describe('Profile version page', () => {
     expect(screen.getByRole('button', { name: 'Train' })).toBeInTheDocument();
   });
 
+  it('a refused training says why and keeps focus beside the message, not on the page body', async () => {
+    const { user } = await openVersion('clinician', profileVersion({ status: 'draft', metrics: null }), {
+      [`POST ${versionUrl}/train`]: {
+        status: 400,
+        body: { statusCode: 400, message: 'A profile needs at least 500 characters of writing.' },
+      },
+    });
+    await user.click(screen.getByRole('button', { name: 'Train' }));
+    expect(
+      await screen.findByText('A profile needs at least 500 characters of writing.'),
+    ).toBeInTheDocument();
+    await waitFor(() => expect(screen.getByRole('group', { name: 'Actions on this version' })).toHaveFocus());
+  });
+
   it('shows the supervisor’s reason on a version sent back', async () => {
     const base = profileVersion();
     await openVersion(

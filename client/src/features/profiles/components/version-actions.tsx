@@ -66,6 +66,13 @@ export const VersionActions = ({
     setTimeout(() => (document.getElementById(groupId) ?? document.querySelector('h1'))?.focus(), 0);
   };
 
+  // Train and Cancel are switched off while their request runs, which drops focus to the page: after
+  // the answer (started, refused, stopped) it goes to this group, just below the message.
+  const settled = (then: () => void) => () => {
+    then();
+    setTimeout(() => document.getElementById(groupId)?.focus(), 0);
+  };
+
   const needsTrial = show.signOff && (trialCount ?? 0) === 0;
 
   if (!Object.values(show).some(Boolean)) return null;
@@ -83,8 +90,10 @@ export const VersionActions = ({
           disabled={train.isPending}
           onClick={() =>
             train.mutate(version.id, {
-              onSuccess: () => announce('success', `Training of version ${version.number} has started.`),
-              onError: fail,
+              onSuccess: settled(() =>
+                announce('success', `Training of version ${version.number} has started.`),
+              ),
+              onError: (error) => settled(() => fail(error))(),
             })
           }
         >
@@ -97,8 +106,10 @@ export const VersionActions = ({
           disabled={cancel.isPending}
           onClick={() =>
             cancel.mutate(version.id, {
-              onSuccess: () => announce('success', `Asked training of version ${version.number} to stop.`),
-              onError: fail,
+              onSuccess: settled(() =>
+                announce('success', `Asked training of version ${version.number} to stop.`),
+              ),
+              onError: (error) => settled(() => fail(error))(),
             })
           }
         >
