@@ -198,6 +198,10 @@ describe('Staff page', () => {
     await waitFor(() =>
       expect(screen.getByRole('status')).toHaveTextContent('Priya Okonkwo is now Clinician.'),
     );
+    // The Save button turns off once saved: focus goes back to the row's role, not the page body.
+    await waitFor(() =>
+      expect(rowOf('Priya Okonkwo').getByRole('combobox', { name: 'Role for Priya Okonkwo' })).toHaveFocus(),
+    );
     const patches = api.requests.filter((request) => request.method === 'PATCH');
     expect(patches.map((request) => request.headers.get('X-CSRF-Token'))).toEqual([
       'fresh-token-number-1',

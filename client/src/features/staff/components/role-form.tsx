@@ -1,5 +1,5 @@
 import { type Role, roleLabels, roles, type User } from '@keyloom/shared';
-import { type FormEvent, useId, useState } from 'react';
+import { type FormEvent, useState } from 'react';
 import { Button } from '@/components/ui/button';
 import { fieldClasses } from '@/components/ui/field-classes';
 import { useUpdateUser } from '../api/update-user';
@@ -14,7 +14,9 @@ type RoleFormProps = {
 
 /** A labelled role select with its own Save button, one per staff row. */
 export const RoleForm = ({ user, lockedReasonId, onSaved, onFailed }: RoleFormProps) => {
-  const selectId = useId();
+  // Stable across the row's re-render with the new role (the form is keyed by role), so focus can
+  // come back to it after a save: the Save button turns off then, which would drop focus to the page.
+  const selectId = `role-${user.id}`;
   const [role, setRole] = useState<Role>(user.role);
   const updateUser = useUpdateUser();
   const locked = lockedReasonId !== null;
@@ -29,6 +31,7 @@ export const RoleForm = ({ user, lockedReasonId, onSaved, onFailed }: RoleFormPr
       setRole(user.role);
       onFailed(error instanceof Error ? error.message : 'The role was not changed. Try again.');
     }
+    setTimeout(() => document.getElementById(selectId)?.focus(), 0);
   };
 
   return (
