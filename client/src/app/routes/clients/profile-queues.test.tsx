@@ -66,5 +66,12 @@ describe('Version queues', () => {
       'href',
       `/clients/${ASHBY_ID}/profiles/${VERSION_1_ID}`,
     );
+    // A carer sees what to try, not the engine's figures.
+    expect(table.queryByRole('columnheader', { name: 'Bits per character' })).not.toBeInTheDocument();
+    expect(table.getByRole('columnheader', { name: 'What to try' })).toBeInTheDocument();
+    expect(table.getByRole('link', { name: 'Try version 1 on the test keyboard' })).toHaveAttribute(
+      'href',
+      expect.stringContaining(VERSION_1_ID),
+    );
   });
 });

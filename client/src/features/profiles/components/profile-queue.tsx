@@ -13,7 +13,7 @@ import {
   TableHead,
   TableRow,
 } from '@/components/ui/table';
-import { profileVersionPath } from '@/config/paths';
+import { keyboardPath, profileVersionPath } from '@/config/paths';
 import { formatDateTime } from '@/lib/format';
 import { useProfileQueue } from '../api/get-review-queue';
 import { atSlots, fixed, percent, readReport } from '../lib/profile-report';
@@ -26,6 +26,12 @@ type ProfileQueueProps = {
   emptyTitle: string;
   emptyText: string;
 };
+
+/**
+ * What a carer's list shows instead of the engine's figures: what to try. Bits per character and the
+ * simulated savings are for the clinician and supervisor; a carer's trial measures the version.
+ */
+const forCarer = (status: ProfileVersionStatus) => status === 'trained';
 
 /** The versions waiting for the reader's step, oldest first, each linking to its page. */
 export const ProfileQueue = ({ clients, status, caption, emptyTitle, emptyText }: ProfileQueueProps) => {
@@ -44,14 +50,24 @@ export const ProfileQueue = ({ clients, status, caption, emptyTitle, emptyText }
     );
   }
   if (queue.items.length === 0) return <EmptyState title={emptyTitle}>{emptyText}</EmptyState>;
+  const carer = forCarer(status);
   return (
     <Table caption={caption}>
       <TableHead>
         <ColumnHeader>Client</ColumnHeader>
         <ColumnHeader>Version</ColumnHeader>
         <ColumnHeader>Waiting since</ColumnHeader>
-        <ColumnHeader>Bits per character</ColumnHeader>
-        <ColumnHeader>Keystroke savings</ColumnHeader>
+        {carer ? (
+          <>
+            <ColumnHeader>Suggestions offered</ColumnHeader>
+            <ColumnHeader>What to try</ColumnHeader>
+          </>
+        ) : (
+          <>
+            <ColumnHeader>Bits per character</ColumnHeader>
+            <ColumnHeader>Keystroke savings</ColumnHeader>
+          </>
+        )}
       </TableHead>
       <TableBody>
         {queue.items.map(({ client, version }) => {
@@ -70,12 +86,28 @@ export const ProfileQueue = ({ clients, status, caption, emptyTitle, emptyText }
                 </Link>
               </TableCell>
               <TableCell label="Waiting since">{formatDateTime(since)}</TableCell>
-              <TableCell label="Bits per character">{report ? fixed(report.bpcIdeal, 3) : '—'}</TableCell>
-              <TableCell label="Keystroke savings">
-                {report
-                  ? `${percent(atSlots(report.keystrokeSavings, version.settings.slots))} at ${version.settings.slots} slots`
-                  : '—'}
-              </TableCell>
+              {carer ? (
+                <>
+                  <TableCell label="Suggestions offered">
+                    {version.settings.slots} words at a time
+                    {version.baseOnly ? ', general English only' : ''}
+                  </TableCell>
+                  <TableCell label="What to try">
+                    <Link to={keyboardPath(client.id, version.id)} className="font-bold underline">
+                      Try version {version.number} on the test keyboard
+                    </Link>
+                  </TableCell>
+                </>
+              ) : (
+                <>
+                  <TableCell label="Bits per character">{report ? fixed(report.bpcIdeal, 3) : '—'}</TableCell>
+                  <TableCell label="Keystroke savings">
+                    {report
+                      ? `${percent(atSlots(report.keystrokeSavings, version.settings.slots))} at ${version.settings.slots} slots`
+                      : '—'}
+                  </TableCell>
+                </>
+              )}
             </TableRow>
           );
         })}
