@@ -57,9 +57,8 @@ export const SummariesPanel = ({
   };
   const openDraft = (id: string) => {
     setComposing(false);
+    // The editor focuses its own heading when it appears (once the list holds the draft).
     setDraftId(id);
-    // The editor's heading, once it is on screen.
-    requestAnimationFrame(() => document.getElementById(`draft-${id}`)?.querySelector('h3')?.focus());
   };
   const closeDraft = () => {
     setDraftId(null);

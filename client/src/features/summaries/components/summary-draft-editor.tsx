@@ -1,5 +1,5 @@
 import { type Summary, type SummaryCommentRef, updateSummarySchema } from '@keyloom/shared';
-import { useId, useRef, useState } from 'react';
+import { useEffect, useId, useRef, useState } from 'react';
 import { Alert } from '@/components/ui/alert';
 import { Button } from '@/components/ui/button';
 import { Modal } from '@/components/ui/dialog';
@@ -53,6 +53,9 @@ export const SummaryDraftEditor = ({
   const [confirm, setConfirm] = useState<'delete' | 'regenerate' | null>(null);
   const [actionError, setActionError] = useState<string | null>(null);
   const statusRef = useRef<HTMLParagraphElement>(null);
+  const titleRef = useRef<HTMLHeadingElement>(null);
+  // Opened (just written, or from the list): focus starts on the draft's heading.
+  useEffect(() => titleRef.current?.focus(), []);
   const previewHeading = useRef<HTMLHeadingElement>(null);
   const say = (words: string) => {
     setStatus(words);
@@ -63,7 +66,7 @@ export const SummaryDraftEditor = ({
   return (
     <section aria-labelledby={`${ids}-title`} className="flex flex-col gap-6">
       <div>
-        <h3 id={`${ids}-title`} tabIndex={-1} className="text-2xl font-bold">
+        <h3 id={`${ids}-title`} ref={titleRef} tabIndex={-1} className="text-2xl font-bold">
           Draft summary for {pseudonym}, not sent
         </h3>
         <p className="mt-1 max-w-3xl text-ink-soft">
