@@ -1,8 +1,10 @@
-import type { AuditPage, Client } from '@keyloom/shared';
+import { AUDIT_DATE_RANGE_MESSAGE, auditActionLabels, type AuditPage, type Client } from '@keyloom/shared';
 import { randomUUID } from 'node:crypto';
+import { parse } from 'csv-parse/sync';
 import request from 'supertest';
 import { ScrubClientTextFromAudit1764910000001 } from '../src/migrations/1764910000001-scrub-client-text-from-audit';
 import { type Cast, newCast, newClient, newConsent, send } from './caseload-helpers';
+import { newUser } from './factories';
 import { createTestApp, resetDatabase, type TestApp } from './test-app';
 
 describe('audit log browsing (HTTP)', () => {
@@ -158,6 +160,74 @@ describe('audit log browsing (HTTP)', () => {
     await expect(
       t.dataSource.query(`UPDATE audit_events SET details = '{}' WHERE id = $1`, [signIn]),
     ).rejects.toThrow(/append-only/);
+  });
+
+  it('answers 400 for a reversed date range, with the shared message on the "to" field', async () => {
+    for (const path of ['/api/audit', '/api/audit.csv']) {
+      const res = await send(t.http, cast.supervisor, 'get', `${path}?from=2026-09-15&to=2026-09-14`).expect(
+        400,
+      );
+      expect(res.body.issues).toEqual([{ path: 'to', message: AUDIT_DATE_RANGE_MESSAGE }]);
+    }
+    // One day, both ends the same, is a valid range.
+    await send(t.http, cast.supervisor, 'get', '/api/audit?from=2026-09-15&to=2026-09-15').expect(200);
+  });
+
+  it('says a role change in plain words, with names instead of ids', async () => {
+    const sam = await newUser(t.dataSource, { name: 'Sam Okafor', role: 'carer' });
+    await send(t.http, cast.admin, 'patch', `/api/users/${sam.id}`, { role: 'clinician' }).expect(200);
+    const [event] = (await page('?action=user.update')).items;
+    expect(event).toMatchObject({ subjectId: sam.id, actorName: 'admin' });
+    expect(event.sentence).toBe('admin changed Sam Okafor’s role from carer to clinician');
+    const assigned = (await page(`?action=assignment.create&clientId=${first.id}`)).items[0];
+    expect(assigned.sentence).toBe('clinician owner assigned assigned carer as carer of A. Auditfirst');
+  });
+
+  // CSV read back with csv-parse (an npm package independent of papaparse, which writes it).
+  const csvRows = async (query: string, who: keyof Cast = 'supervisor') => {
+    const res = await send(t.http, cast[who], 'get', `/api/audit.csv${query}`).expect(200);
+    expect(res.headers['content-type']).toMatch(/^text\/csv/);
+    expect(res.headers['content-disposition']).toBe('attachment; filename="audit-log.csv"');
+    return parse<Record<string, string>>(res.text, { bom: true, columns: true });
+  };
+
+  it('exports exactly the filtered events as CSV, every page, in the same words', async () => {
+    const filtered = await page(`?clientId=${first.id}&pageSize=200`);
+    const rows = await csvRows(`?clientId=${first.id}`);
+    expect(Object.keys(rows[0])).toEqual(['time', 'person', 'role', 'action', 'sentence', 'client']);
+    expect(rows.map((r) => r.time)).toEqual(filtered.items.map((i) => i.at));
+    expect(rows.map((r) => r.sentence)).toEqual(filtered.items.map((i) => i.sentence));
+    expect(new Set(rows.map((r) => r.client))).toEqual(new Set(['A. Auditfirst']));
+    // Not only the first page: the export of everything has as many rows as the log has events.
+    const all = await page('?pageSize=1');
+    expect(await csvRows('')).toHaveLength(all.total);
+    const roleChange = (await csvRows('?action=user.update', 'admin'))[0];
+    expect(roleChange).toMatchObject({
+      person: 'admin',
+      role: 'admin',
+      action: auditActionLabels['user.update'],
+      sentence: 'admin changed Sam Okafor’s role from carer to clinician',
+    });
+  });
+
+  it('keeps a cell that a spreadsheet would run as a formula as text (OWASP, CSV Injection)', async () => {
+    // A name a spreadsheet would run; an event of that person inserted as the log stores it.
+    const plotter = await newUser(t.dataSource, { name: '=HYPERLINK("http://x.example")', role: 'carer' });
+    await t.dataSource.query(`INSERT INTO audit_events (actor_id, actor_email, action) VALUES ($1, $2, $3)`, [
+      plotter.id,
+      plotter.email,
+      'auth.sign-in',
+    ]);
+    const [row] = await csvRows(`?userId=${plotter.id}`);
+    expect(row.person).toBe(`'=HYPERLINK("http://x.example")`);
+    expect(row.sentence).toBe(`'=HYPERLINK("http://x.example"): ${auditActionLabels['auth.sign-in']}`);
+  });
+
+  it('gives the CSV to supervisors and admins only', async () => {
+    for (const who of ['owner', 'assignedCarer'] as const) {
+      await send(t.http, cast[who], 'get', '/api/audit.csv').expect(403);
+    }
+    await request(t.http).get('/api/audit.csv').expect(401);
   });
 
   it('offers no route that changes or deletes an event', async () => {

@@ -197,6 +197,33 @@ export const caseloadSuite = {
         await page.getByRole('button', { name: 'Show events' }).click();
         await page.waitForURL(/action=sample\.flag-redact/);
         await page.getByRole('cell', { name: pseudonym }).first().waitFor();
+        // Each event in words, and the CSV of exactly these filters (page left out).
+        await page
+          .getByRole('cell', {
+            name: new RegExp(`^[^@]+: Redacted personal data \\(${pseudonym.replace('.', '\\.')}\\)`),
+          })
+          .first()
+          .waitFor();
+        const csvHref = await page
+          .getByRole('link', { name: 'Download CSV of these events' })
+          .getAttribute('href');
+        assert.equal(csvHref, '/api/audit.csv?action=sample.flag-redact');
+        const csv = await page.evaluate(async (href) => (await fetch(href)).text(), csvHref);
+        // fetch's text() drops the byte order mark.
+        assert.match(csv, /^time,person,role,action,sentence,client\r\n/);
+        // A reversed date range: the error summary takes focus and names the "To" field.
+        await page.getByLabel('From').fill('2026-09-15');
+        await page.getByLabel('To').fill('2026-09-14');
+        await page.getByRole('button', { name: 'Show events' }).click();
+        const summary = page.getByRole('group', { name: 'One field needs attention' });
+        await summary.waitFor();
+        assert.equal((await focused(page)).name, 'One field needs attention');
+        assert.deepEqual(await t.seriousViolations(page, 'audit date range refused'), []);
+        await t.screenshot(page, 'audit-date-range');
+        await page.getByRole('button', { name: 'Clear filters' }).click();
+        await page.getByLabel('Action').selectOption('sample.flag-redact');
+        await page.getByRole('button', { name: 'Show events' }).click();
+        await page.getByRole('cell', { name: pseudonym }).first().waitFor();
         await page.setViewportSize({ width: 640, height: 430 });
         await assertNoSidewaysScroll(page, 'audit at 200%');
         await t.screenshot(page, 'audit-200pct');

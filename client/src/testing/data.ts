@@ -172,6 +172,7 @@ export const auditEvent = (overrides: Partial<AuditEventView> = {}): AuditEventV
   at: '2026-09-15T08:00:00.000Z',
   actorId: demoStaff.clinician.id,
   actorEmail: 'clinician@willowmere.example',
+  actorName: 'Dr. Tomasz Reyes',
   action: 'sample.upload',
   subjectType: 'sample',
   subjectId: SAMPLE_ID,
@@ -179,5 +180,6 @@ export const auditEvent = (overrides: Partial<AuditEventView> = {}): AuditEventV
   clientPseudonym: 'R. Ashby',
   details: { fileName: 'sailing-club.txt', bytes: 96 },
   ip: '127.0.0.1',
+  sentence: 'Dr. Tomasz Reyes: Uploaded a language sample (R. Ashby)',
   ...overrides,
 });

@@ -67,15 +67,31 @@ export const auditActionLabels = {
 } as const;
 export type AuditAction = keyof typeof auditActionLabels;
 
-// GET /api/audit (supervisor, admin): filters and one page of events, newest first.
-export const auditQuerySchema = pageQuerySchema.extend({
+export const AUDIT_DATE_RANGE_MESSAGE = 'The “To” day must be the same as or after the “From” day.';
+
+// The filters of GET /api/audit and GET /api/audit.csv (supervisor, admin).
+const auditFilterFields = {
   clientId: z.uuid().optional(),
   userId: z.uuid().optional(),
   // An exact action ("sample.upload") or a prefix ending in "." ("sample.").
   action: safeText().trim().max(80).optional(),
   from: isoDateField.optional(),
   to: isoDateField.optional(),
-});
+};
+
+// ISO days compare as strings; a reversed range is refused rather than answered with no events.
+const dateRangeInOrder = (query: { from?: string; to?: string }) =>
+  !query.from || !query.to || query.from <= query.to;
+const dateRangeCheck = { message: AUDIT_DATE_RANGE_MESSAGE, path: ['to'] };
+
+// GET /api/audit.csv: every matching event, no paging.
+export const auditFilterSchema = z.object(auditFilterFields).refine(dateRangeInOrder, dateRangeCheck);
+export type AuditFilter = z.infer<typeof auditFilterSchema>;
+
+// GET /api/audit: the filters and one page of events, newest first.
+export const auditQuerySchema = pageQuerySchema
+  .extend(auditFilterFields)
+  .refine(dateRangeInOrder, dateRangeCheck);
 export type AuditQuery = z.infer<typeof auditQuerySchema>;
 
 export const auditEventSchema = z.object({
@@ -83,6 +99,8 @@ export const auditEventSchema = z.object({
   at: z.string(),
   actorId: z.uuid().nullable(),
   actorEmail: z.string().nullable(),
+  // The actor's name now (null for Keyloom itself or a refused sign-in).
+  actorName: z.string().nullable(),
   action: z.string(),
   subjectType: z.string().nullable(),
   subjectId: z.string().nullable(),
@@ -90,6 +108,8 @@ export const auditEventSchema = z.object({
   clientPseudonym: z.string().nullable(),
   details: z.record(z.string(), z.unknown()),
   ip: z.string().nullable(),
+  // The event in plain words, names instead of ids (the same words as the CSV export).
+  sentence: z.string(),
 });
 export type AuditEventView = z.infer<typeof auditEventSchema>;
 

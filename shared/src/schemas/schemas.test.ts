@@ -2,6 +2,8 @@ import { describe, expect, it } from 'vitest';
 import { z } from 'zod';
 import * as shared from '../index';
 import {
+  AUDIT_DATE_RANGE_MESSAGE,
+  auditFilterSchema,
   auditQuerySchema,
   createClientSchema,
   createConsentSchema,
@@ -174,6 +176,13 @@ describe('isoDateField', () => {
     ).toBe(false);
     expect(summaryPreviewRequestSchema.safeParse({ from: zeroYear, to: '2026-01-01' }).success).toBe(false);
     expect(auditQuerySchema.safeParse({ from: '0000-01-01' }).success).toBe(false);
+    // A reversed range of the audit filters is refused on "to"; the same day at both ends is a range.
+    const reversed = auditFilterSchema.safeParse({ from: '2026-09-15', to: '2026-09-14' });
+    expect(reversed.error?.issues.map((issue) => [issue.path, issue.message])).toEqual([
+      [['to'], AUDIT_DATE_RANGE_MESSAGE],
+    ]);
+    expect(auditQuerySchema.safeParse({ from: '2026-09-15', to: '2026-09-14' }).success).toBe(false);
+    expect(auditFilterSchema.safeParse({ from: '2026-09-15', to: '2026-09-15' }).success).toBe(true);
     expect(isoDateTimeField.safeParse('0000-01-01T10:00:00Z').success).toBe(false);
     expect(isoDateTimeField.safeParse('2026-05-01T10:00:00+01:00').success).toBe(true);
   });

@@ -1,4 +1,5 @@
 import { screen, waitFor, within } from '@testing-library/react';
+import { AUDIT_DATE_RANGE_MESSAGE } from '@keyloom/shared';
 import { describe, expect, it } from 'vitest';
 import { ASHBY_ID, auditEvent, clientSummary, sessionUser, staffUser } from '@/testing/data';
 import { mockFetch, sessionRoutes } from '@/testing/mock-fetch';
@@ -82,5 +83,32 @@ describe('Audit log', () => {
     mockFetch(sessionRoutes(sessionUser('clinician')));
     renderApp('/audit');
     expect(await screen.findByRole('heading', { level: 1, name: 'Not allowed' })).toBeInTheDocument();
+  });
+
+  it('shows each event in the API’s words and links the CSV of the filtered events', async () => {
+    await openAudit('admin', `/audit?clientId=${ASHBY_ID}&action=consent.&page=2`);
+    const table = within(screen.getByRole('table'));
+    expect(table.getAllByText('Dr. Tomasz Reyes: Uploaded a language sample (R. Ashby)')).toHaveLength(2);
+    // The CSV holds every page, so the page number is left out.
+    expect(screen.getByRole('link', { name: 'Download CSV of these events' })).toHaveAttribute(
+      'href',
+      `/api/audit.csv?clientId=${ASHBY_ID}&action=consent.`,
+    );
+  });
+
+  it('refuses a "To" day before the "From" day with the shared message, focusing the summary', async () => {
+    const { user, api } = await openAudit('supervisor');
+    const before = api.requestsTo('GET /api/audit').length;
+    await user.type(screen.getByLabelText('From'), '2026-09-15');
+    await user.type(screen.getByLabelText('To'), '2026-09-14');
+    await user.click(screen.getByRole('button', { name: 'Show events' }));
+
+    const summary = await screen.findByRole('group', { name: 'One field needs attention' });
+    await waitFor(() => expect(summary).toHaveFocus());
+    // The message of shared/src/schemas/audit.schema.ts, the one the API answers with.
+    expect(
+      within(summary).getByRole('link', { name: `To: ${AUDIT_DATE_RANGE_MESSAGE}` }),
+    ).toBeInTheDocument();
+    expect(api.requestsTo('GET /api/audit')).toHaveLength(before);
   });
 });

@@ -1,11 +1,12 @@
 import { useSearchParams } from 'react-router-dom';
 import { PageLoading } from '@/components/layout/page-loading';
 import { Button } from '@/components/ui/button';
+import { buttonClasses } from '@/components/ui/button-classes';
 import { EmptyState } from '@/components/ui/empty-state';
 import { LoadError } from '@/components/ui/load-error';
 import { PageHeader } from '@/components/ui/page-header';
 import type { SelectOption } from '@/components/ui/select-field';
-import { type AuditFilters, auditQueryString, useAudit } from '@/features/audit/api/get-audit';
+import { auditCsvUrl, type AuditFilters, auditQueryString, useAudit } from '@/features/audit/api/get-audit';
 import { AuditFilterForm } from '@/features/audit/components/audit-filter-form';
 import { AuditTable } from '@/features/audit/components/audit-table';
 import { useMe } from '@/features/auth/api/get-me';
@@ -84,6 +85,12 @@ export const AuditRoute = () => {
         )}
         {audit.isSuccess && audit.data.items.length > 0 && (
           <>
+            <p>
+              <a href={auditCsvUrl(filters)} download className={buttonClasses('secondary')}>
+                Download CSV of these events
+              </a>{' '}
+              (all {total} {total === 1 ? 'event' : 'events'}, not only this page)
+            </p>
             <AuditTable
               events={audit.data.items}
               caption={`Events ${(audit.data.page - 1) * pageSize + 1}–${(audit.data.page - 1) * pageSize + audit.data.items.length} of ${total}, newest first`}

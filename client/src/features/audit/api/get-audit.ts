@@ -1,5 +1,6 @@
 import { type AuditPage, auditPageSchema } from '@keyloom/shared';
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
+import { env } from '@/config/env';
 import { apiRequest, toQueryString } from '@/lib/api-client';
 import { auditKeys } from './keys';
 
@@ -23,6 +24,10 @@ export const auditQueryString = (filters: AuditFilters): string =>
     to: filters.to,
     page: filters.page > 1 ? filters.page : undefined,
   });
+
+/** GET /api/audit.csv: every event matching the filters (the page does not matter). */
+export const auditCsvUrl = (filters: AuditFilters): string =>
+  `${env.API_URL}/audit.csv${auditQueryString({ ...filters, page: 1 })}`;
 
 /** One page of audit events, newest first (supervisor, admin). */
 export const getAudit = (filters: AuditFilters, signal?: AbortSignal): Promise<AuditPage> =>

@@ -1,7 +1,8 @@
-import { type FormEvent, useId, useState } from 'react';
+import { type AuditFilter, auditFilterSchema } from '@keyloom/shared';
 import { Button } from '@/components/ui/button';
-import { fieldClasses } from '@/components/ui/field-classes';
-import type { SelectOption } from '@/components/ui/select-field';
+import { Form } from '@/components/ui/form';
+import { type SelectOption, SelectField } from '@/components/ui/select-field';
+import { TextField } from '@/components/ui/text-field';
 import type { AuditFilters } from '../api/get-audit';
 import { auditActionOptions } from '../lib/audit-actions';
 
@@ -15,115 +16,73 @@ type AuditFilterFormProps = {
 
 type Draft = Omit<AuditFilters, 'page'>;
 
-const Select = ({
-  label,
-  value,
-  options,
-  onChange,
-}: {
-  label: string;
-  value: string;
-  options: readonly SelectOption[];
-  onChange: (value: string) => void;
-}) => {
-  const id = useId();
-  return (
-    <div className="flex min-w-0 flex-col gap-1">
-      <label htmlFor={id} className="font-bold">
-        {label}
-      </label>
-      <select
-        id={id}
-        value={value}
-        onChange={(event) => onChange(event.target.value)}
-        className={fieldClasses(false)}
-      >
-        {options.map((option) => (
-          <option key={option.value} value={option.value}>
-            {option.label}
-          </option>
-        ))}
-      </select>
-    </div>
-  );
-};
+const EMPTY: Draft = { clientId: '', userId: '', action: '', from: '', to: '' };
 
-const DateInput = ({
-  label,
-  value,
-  onChange,
-}: {
-  label: string;
-  value: string;
-  onChange: (value: string) => void;
-}) => {
-  const id = useId();
-  return (
-    <div className="flex min-w-0 flex-col gap-1">
-      <label htmlFor={id} className="font-bold">
-        {label}
-      </label>
-      <input
-        id={id}
-        type="date"
-        value={value}
-        onChange={(event) => onChange(event.target.value)}
-        className={fieldClasses(false)}
-      />
-    </div>
-  );
-};
+// An empty field means "any": it is left out before the shared schema checks the rest.
+const withoutEmpty = (values: AuditFilter): AuditFilter =>
+  Object.fromEntries(Object.entries(values).filter(([, value]) => value !== '' && value !== undefined));
 
-/** Client, person, action and date range; applying starts again at page 1. */
+/**
+ * Client, person, action and date range, checked by the API's own schema (a "To" day before the
+ * "From" day is listed in the error summary, which takes focus); applying starts again at page 1.
+ */
 export const AuditFilterForm = ({ filters, clientOptions, userOptions, onApply }: AuditFilterFormProps) => {
-  const [draft, setDraft] = useState<Draft>({
+  const defaultValues: Draft = {
     clientId: filters.clientId,
     userId: filters.userId,
     action: filters.action,
     from: filters.from,
     to: filters.to,
-  });
-  const set = (key: keyof Draft) => (value: string) => setDraft((current) => ({ ...current, [key]: value }));
-  const submit = (event: FormEvent) => {
-    event.preventDefault();
-    onApply({ ...draft, page: 1 });
   };
-  const clear = () => {
-    const empty = { clientId: '', userId: '', action: '', from: '', to: '' };
-    setDraft(empty);
-    onApply({ ...empty, page: 1 });
-  };
-
   return (
-    <form
+    <Form
+      schema={auditFilterSchema}
+      errorSummary
       aria-label="Filter the audit log"
-      onSubmit={submit}
-      noValidate
+      defaultValues={defaultValues}
+      prepare={withoutEmpty}
+      onSubmit={(values) => onApply({ ...EMPTY, ...values, page: 1 })}
       className="flex flex-col gap-4 rounded-xl border-2 border-thread bg-surface p-4"
     >
-      <div className="grid gap-4 sm:grid-cols-2 lg:grid-cols-3">
-        <Select
-          label="Client"
-          value={draft.clientId}
-          options={[{ value: '', label: 'Any client' }, ...clientOptions]}
-          onChange={set('clientId')}
-        />
-        <Select
-          label="Who"
-          value={draft.userId}
-          options={[{ value: '', label: 'Anyone' }, ...userOptions]}
-          onChange={set('userId')}
-        />
-        <Select label="Action" value={draft.action} options={auditActionOptions} onChange={set('action')} />
-        <DateInput label="From" value={draft.from} onChange={set('from')} />
-        <DateInput label="To" value={draft.to} onChange={set('to')} />
-      </div>
-      <div className="flex flex-wrap gap-3">
-        <Button type="submit" variant="primary">
-          Show events
-        </Button>
-        <Button onClick={clear}>Clear filters</Button>
-      </div>
-    </form>
+      {({ register, reset, formState: { errors } }) => (
+        <>
+          <div className="grid gap-4 sm:grid-cols-2 lg:grid-cols-3">
+            <SelectField
+              label="Client"
+              options={[{ value: '', label: 'Any client' }, ...clientOptions]}
+              registration={register('clientId')}
+              error={errors.clientId}
+            />
+            <SelectField
+              label="Who"
+              options={[{ value: '', label: 'Anyone' }, ...userOptions]}
+              registration={register('userId')}
+              error={errors.userId}
+            />
+            <SelectField
+              label="Action"
+              options={auditActionOptions}
+              registration={register('action')}
+              error={errors.action}
+            />
+            <TextField label="From" type="date" registration={register('from')} error={errors.from} />
+            <TextField label="To" type="date" registration={register('to')} error={errors.to} />
+          </div>
+          <div className="flex flex-wrap gap-3">
+            <Button type="submit" variant="primary">
+              Show events
+            </Button>
+            <Button
+              onClick={() => {
+                reset(EMPTY);
+                onApply({ ...EMPTY, page: 1 });
+              }}
+            >
+              Clear filters
+            </Button>
+          </div>
+        </>
+      )}
+    </Form>
   );
 };

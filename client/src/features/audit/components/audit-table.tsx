@@ -23,7 +23,7 @@ const EmailAddress = ({ email }: { email: string }) => {
   );
 };
 
-/** One page of audit events, newest first. */
+/** One page of audit events, newest first, each in plain words (the API's sentence). */
 export const AuditTable = ({ events, caption }: { events: readonly AuditEventView[]; caption: string }) => (
   <Table caption={caption}>
     <TableHead>
@@ -31,7 +31,7 @@ export const AuditTable = ({ events, caption }: { events: readonly AuditEventVie
       <ColumnHeader>Who</ColumnHeader>
       <ColumnHeader>Action</ColumnHeader>
       <ColumnHeader>Client</ColumnHeader>
-      <ColumnHeader>Details</ColumnHeader>
+      <ColumnHeader>What happened</ColumnHeader>
     </TableHead>
     <TableBody>
       {events.map((event) => (
@@ -42,14 +42,18 @@ export const AuditTable = ({ events, caption }: { events: readonly AuditEventVie
             </time>
           </RowHeader>
           <TableCell label="Who" className="md:min-w-48">
-            {event.actorEmail ? <EmailAddress email={event.actorEmail} /> : 'Keyloom'}
+            {event.actorName ?? (event.actorEmail ? <EmailAddress email={event.actorEmail} /> : 'Keyloom')}
           </TableCell>
           <TableCell label="Action" className="md:min-w-40">
             <span title={event.action}>{describeAction(event.action)}</span>
           </TableCell>
           <TableCell label="Client">{event.clientPseudonym ?? '—'}</TableCell>
-          <TableCell label="Details" className="break-words">
-            {summariseDetails(event.details) || '—'}
+          <TableCell label="What happened" className="break-words">
+            <p>{event.sentence}</p>
+            {/* The stored details stay in view for checking, below the words. */}
+            {Object.keys(event.details).length > 0 && (
+              <p className="text-sm text-ink-soft">{summariseDetails(event.details)}</p>
+            )}
           </TableCell>
         </TableRow>
       ))}
