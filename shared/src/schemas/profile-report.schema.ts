@@ -105,9 +105,23 @@ export const profileFoldReportSchema = z.object({
   scanStepsByLayout: scanStepsByLayoutSchema.optional(),
 });
 
+/** A learning-curve point's lowest and highest figures over the folds it was measured on. */
+export const learningCurveSpreadSchema = z.object({
+  folds: z.number().int(),
+  bpcMin: z.number(),
+  bpcMax: z.number(),
+  keystrokeSavingsMin: z.number(),
+  keystrokeSavingsMax: z.number(),
+});
+
 export const learningCurveReportSchema = z.object({
-  /** Index into perFold of the fold the curve was measured on. */
+  /** Index into perFold of the first fold the curve was measured on. */
   fold: z.number(),
+  /**
+   * How many folds (from `fold` on) each point was measured on; points are then means over them.
+   * Absent in reports measured on one fold.
+   */
+  folds: z.number().int().optional(),
   /** Held-out characters (bpc) and characters typed (KS) at every point. */
   heldOutChars: z.number(),
   ksChars: z.number(),
@@ -119,6 +133,8 @@ export const learningCurveReportSchema = z.object({
       baseWeight: z.number(),
       bpcIdeal: z.number(),
       keystrokeSavings: z.number(),
+      /** Lowest and highest over the folds (absent in reports measured on one fold). */
+      spread: learningCurveSpreadSchema.optional(),
     }),
   ),
 });

@@ -10,6 +10,19 @@ export const EARLY_LETTERS = 1;
 export type { EarlyWord } from '../../schemas/profile-report.schema';
 import type { EarlyWord } from '../../schemas/profile-report.schema';
 
+/** Shortest word, in letters, worth listing as offered early. */
+export const EARLY_MIN_LETTERS = 3;
+
+/**
+ * Whether a word belongs in the list of words offered early: no digits (numbers and
+ * codes say nothing about the client's vocabulary) and at least EARLY_MIN_LETTERS letters
+ * (the shortest words are offered early by almost any model).
+ */
+export function isListableEarlyWord(word: string): boolean {
+  if (/\p{Nd}/u.test(word)) return false;
+  return (word.match(/\p{L}/gu)?.length ?? 0) >= EARLY_MIN_LETTERS;
+}
+
 /** Collects, for one text, which word occurrences a model offered early at `slots`. */
 export class EarlyWordRecorder {
   /** Start positions of words offered early. */
@@ -28,7 +41,7 @@ export class EarlyWordRecorder {
 
 /**
  * Adds to `counts` the words the profile offered early and the base did not
- * (same text, same word positions).
+ * (same text, same word positions), leaving out numbers and short words (isListableEarlyWord).
  */
 export function countEarlyWords(
   text: ArrayLike<number>,
@@ -39,6 +52,7 @@ export function countEarlyWords(
   for (const start of profile.early) {
     if (base.early.has(start)) continue;
     const word = stringFromCodePoints(text, start, profile.spans.get(start) ?? start);
+    if (!isListableEarlyWord(word)) continue;
     counts.set(word, (counts.get(word) ?? 0) + 1);
   }
 }

@@ -143,6 +143,33 @@ const COST = {
   words: 4,
 };
 
+/** Folds the learning curve is measured on (each point then has a spread). */
+export const CURVE_FOLDS = 3;
+
+/** One learning-curve point measured on one fold. */
+type CurveMeasure = { trainChars: number; baseWeight: number; bpc: number; ks: number };
+
+/** A learning-curve point over the folds measured: means, with the lowest and highest of each figure. */
+function curvePoint(fraction: number, rows: readonly CurveMeasure[]): LearningCurveReport['points'][number] {
+  const mean = (pick: (r: CurveMeasure) => number) => rows.reduce((n, r) => n + pick(r), 0) / rows.length;
+  const bpcs = rows.map((r) => r.bpc);
+  const savings = rows.map((r) => r.ks);
+  return {
+    fraction,
+    trainChars: Math.round(mean((r) => r.trainChars)),
+    baseWeight: round(mean((r) => r.baseWeight)),
+    bpcIdeal: round(mean((r) => r.bpc)),
+    keystrokeSavings: round(mean((r) => r.ks)),
+    spread: {
+      folds: rows.length,
+      bpcMin: round(Math.min(...bpcs)),
+      bpcMax: round(Math.max(...bpcs)),
+      keystrokeSavingsMin: round(Math.min(...savings)),
+      keystrokeSavingsMax: round(Math.max(...savings)),
+    },
+  };
+}
+
 function round(x: number): number {
   return Math.round(x * 1e6) / 1e6;
 }
@@ -245,7 +272,8 @@ export async function trainAndEvaluateProfile(
   }));
 
   // The plan's cost, so the bar moves with time.
-  const curveFold = folds[0];
+  // The learning curve is measured on the first CURVE_FOLDS folds, so each point shows its spread.
+  const curveFolds = folds.slice(0, CURVE_FOLDS);
   const curveFractions = LEARNING_CURVE_FRACTIONS.filter((f) => f < 1);
   const slotShare = slots / MAX_SLOTS;
   const wordCost = useWords ? COST.words : 0;
@@ -255,11 +283,11 @@ export async function trainAndEvaluateProfile(
     total += f.test.length * (COST.bits + COST.coding + COST.scan + (base ? COST.bits : 0));
     total += f.ksText.length * (COST.ks + (base ? COST.ksBase : 0));
   }
-  const curveCost = (fraction: number): number =>
+  const curveCost = (curveFold: (typeof folds)[number], fraction: number): number =>
     curveFold.trainChars * fraction * (COST.train + (tuned ? COST.tune : 0) + wordCost) +
     curveFold.test.length * COST.bits +
     curveFold.ksText.length * COST.ks * slotShare;
-  for (const fraction of curveFractions) total += curveCost(fraction);
+  for (const f of curveFolds) for (const fraction of curveFractions) total += curveCost(f, fraction);
   const progress = new ProgressTracker(total, onProgress, shouldCancel);
   await progress.step('preparing', chars * COST.prepare, () => undefined);
 
@@ -406,60 +434,61 @@ export async function trainAndEvaluateProfile(
     );
   }
 
-  // Learning curve on the first fold; its 100% point is that fold's result.
-  const curveTexts = curveFold.train.map((t) => stringFromCodePoints(t));
-  const curvePoints: LearningCurveReport['points'] = [];
-  for (const fraction of LEARNING_CURVE_FRACTIONS) {
-    if (fraction === 1) {
-      curvePoints.push({
-        fraction,
-        trainChars: curveFold.trainChars,
-        baseWeight: round(curveFold.baseWeight),
-        bpcIdeal: round(curveFold.bits / curveFold.test.length),
-        keystrokeSavings: round(need(curveFold.ks).savings[slots]),
+  // Learning curve on each of the first CURVE_FOLDS folds; a fold's 100% point is its result.
+  const curveRows: CurveMeasure[][] = LEARNING_CURVE_FRACTIONS.map(() => []);
+  for (const curveFold of curveFolds) {
+    const curveTexts = curveFold.train.map((t) => stringFromCodePoints(t));
+    for (const [i, fraction] of LEARNING_CURVE_FRACTIONS.entries()) {
+      if (fraction === 1) {
+        curveRows[i].push({
+          trainChars: curveFold.trainChars,
+          baseWeight: curveFold.baseWeight,
+          bpc: curveFold.bits / curveFold.test.length,
+          ks: need(curveFold.ks).savings[slots],
+        });
+        continue;
+      }
+      const point = await progress.step('simulating', curveCost(curveFold, fraction), (inside) => {
+        const [row] = learningCurve(
+          curveTexts,
+          (part) => {
+            const texts = part.map((t) => prepareText(t, { caseFold: settings.caseFold }));
+            const personal = trainPersonalModel(ppm, texts);
+            const baseWeight = baseWeightFor(texts);
+            const bits = codeLengthBits(freshModel(personal, base, baseWeight, true), curveFold.test, {
+              adaptive: true,
+            });
+            const list = useWords
+              ? new WordPredictor({
+                  personal: wordModelOf(texts),
+                  base: baseWords,
+                  char: freshModel(personal, base, baseWeight, true),
+                  weights: tuneWordWeightsOnTail(texts, baseWords, true),
+                  capitalize,
+                  adaptive: true,
+                  ...blocks,
+                })
+              : freshModel(personal, base, baseWeight, true);
+            const ks = simulateKeystrokes(list, curveFold.ksText, {
+              maxSlots: slots,
+              adaptive: true,
+              onWord: (visit) => inside(visit.end / curveFold.ksText.length),
+            });
+            return { baseWeight, bpc: bits / curveFold.test.length, ks: ks.savings[slots] };
+          },
+          [fraction],
+        );
+        return row;
       });
-      continue;
+      curveRows[i].push({
+        trainChars: point.trainChars,
+        baseWeight: point.metrics.baseWeight,
+        bpc: point.metrics.bpc,
+        ks: point.metrics.ks,
+      });
     }
-    const point = await progress.step('simulating', curveCost(fraction), (inside) => {
-      const [row] = learningCurve(
-        curveTexts,
-        (part) => {
-          const texts = part.map((t) => prepareText(t, { caseFold: settings.caseFold }));
-          const personal = trainPersonalModel(ppm, texts);
-          const baseWeight = baseWeightFor(texts);
-          const bits = codeLengthBits(freshModel(personal, base, baseWeight, true), curveFold.test, {
-            adaptive: true,
-          });
-          const list = useWords
-            ? new WordPredictor({
-                personal: wordModelOf(texts),
-                base: baseWords,
-                char: freshModel(personal, base, baseWeight, true),
-                weights: tuneWordWeightsOnTail(texts, baseWords, true),
-                capitalize,
-                adaptive: true,
-                ...blocks,
-              })
-            : freshModel(personal, base, baseWeight, true);
-          const ks = simulateKeystrokes(list, curveFold.ksText, {
-            maxSlots: slots,
-            adaptive: true,
-            onWord: (visit) => inside(visit.end / curveFold.ksText.length),
-          });
-          return { baseWeight, bpc: bits / curveFold.test.length, ks: ks.savings[slots] };
-        },
-        [fraction],
-      );
-      return row;
-    });
-    curvePoints.push({
-      fraction,
-      trainChars: point.trainChars,
-      baseWeight: round(point.metrics.baseWeight),
-      bpcIdeal: round(point.metrics.bpc),
-      keystrokeSavings: round(point.metrics.ks),
-    });
   }
+  const curvePoints = LEARNING_CURVE_FRACTIONS.map((fraction, i) => curvePoint(fraction, curveRows[i]));
 
   // Saving: the final personal model, serialised.
   const modelBytes = await progress.step('saving', chars * COST.save, () => serializeModel(final.model));
@@ -573,8 +602,9 @@ export async function trainAndEvaluateProfile(
     ),
     learningCurve: {
       fold: 0,
-      heldOutChars: curveFold.test.length,
-      ksChars: curveFold.ksText.length,
+      folds: curveFolds.length,
+      heldOutChars: curveFolds[0].test.length,
+      ksChars: curveFolds[0].ksText.length,
       slots,
       points: curvePoints,
     },

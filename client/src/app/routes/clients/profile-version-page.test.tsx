@@ -220,6 +220,10 @@ describe('Profile version page', () => {
         /^More text still helps: going from 50% to 100% of the text lowered bits per character by 0\.15/,
       ),
     ).toBeInTheDocument();
+    // The stored curve was measured on one fold (a report from before the spread): said so.
+    expect(
+      screen.getByText(/^Measured on one fold only, so the spread between folds is not known/),
+    ).toBeInTheDocument();
     const early = within(screen.getByRole('list', { name: 'Words offered early' }));
     expect(early.getAllByRole('listitem').map((item) => item.textContent)).toEqual([
       'Pepper × 14',

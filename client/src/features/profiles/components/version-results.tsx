@@ -13,6 +13,7 @@ import {
   atSlots,
   count,
   fixed,
+  learningCurveSpreadNote,
   learningCurveVerdict,
   listDescription,
   percent,
@@ -22,6 +23,7 @@ import {
   scanStepsByLayout,
   slotSeries,
 } from '../lib/profile-report';
+import { LearningCurveChart } from './learning-curve-chart';
 import { SlotsChart } from './slots-chart';
 
 const BASE = 'General English model alone';
@@ -40,6 +42,11 @@ export const VersionResults = ({ report }: { report: ProfileReportView }) => {
   const slots = report.rates.assumptions.slots;
   const series = slotSeries(report);
   const curve = report.learningCurve?.points ?? [];
+  const curveFolds = report.learningCurve?.folds ?? 1;
+  const curveCaption =
+    curveFolds > 1
+      ? `Measured with part of the training text on ${curveFolds} folds (means, and lowest to highest fold)`
+      : 'Measured with part of the training text (first fold)';
   const scanRows = scanStepsByLayout(report);
   return (
     <div className="flex flex-col gap-10">
@@ -167,12 +174,16 @@ export const VersionResults = ({ report }: { report: ProfileReportView }) => {
       {curve.length > 0 && (
         <Section id="curve-heading" title="Learning curve: does more text still help?">
           <p className="max-w-3xl text-lg">{learningCurveVerdict(curve)}</p>
-          <Table caption="Measured with part of the training text (first fold)">
+          <p className="max-w-3xl text-lg">{learningCurveSpreadNote(curve)}</p>
+          <LearningCurveChart points={curve} />
+          <Table caption={curveCaption}>
             <TableHead>
               <ColumnHeader>Share of the text</ColumnHeader>
               <ColumnHeader>Training characters</ColumnHeader>
               <ColumnHeader>Bits per character</ColumnHeader>
+              <ColumnHeader>Bits per character, lowest to highest fold</ColumnHeader>
               <ColumnHeader>Keystroke savings at {report.learningCurve?.slots ?? slots} slots</ColumnHeader>
+              <ColumnHeader>Keystroke savings, lowest to highest fold</ColumnHeader>
             </TableHead>
             <TableBody>
               {curve.map((point) => (
@@ -180,7 +191,17 @@ export const VersionResults = ({ report }: { report: ProfileReportView }) => {
                   <RowHeader label="Share of the text">{Math.round(point.fraction * 100)}%</RowHeader>
                   <TableCell label="Training characters">{count(point.trainChars)}</TableCell>
                   <TableCell label="Bits per character">{fixed(point.bpcIdeal, 3)}</TableCell>
+                  <TableCell label="Bits per character, lowest to highest fold">
+                    {point.spread
+                      ? `${fixed(point.spread.bpcMin, 3)} to ${fixed(point.spread.bpcMax, 3)}`
+                      : 'one fold'}
+                  </TableCell>
                   <TableCell label="Keystroke savings">{percent(point.keystrokeSavings)}</TableCell>
+                  <TableCell label="Keystroke savings, lowest to highest fold">
+                    {point.spread
+                      ? `${percent(point.spread.keystrokeSavingsMin)} to ${percent(point.spread.keystrokeSavingsMax)}`
+                      : 'one fold'}
+                  </TableCell>
                 </TableRow>
               ))}
             </TableBody>
@@ -193,7 +214,8 @@ export const VersionResults = ({ report }: { report: ProfileReportView }) => {
           <>
             <p className="max-w-3xl">
               Words this version offered before their second letter where the general English model alone did
-              not, most frequent first (times offered early in the test text).
+              not, most frequent first (times offered early in the test text). Numbers and words shorter than
+              three letters are left out.
             </p>
             <ul aria-label="Words offered early" className="flex flex-wrap gap-2">
               {report.earlyWords.map((item) => (

@@ -1,7 +1,14 @@
 import { defaultProfileSettings, trainAndEvaluateProfile } from '@keyloom/shared';
 import { describe, expect, it } from 'vitest';
 import { reportFixture } from '../testing/profile-data';
-import { atSlots, learningCurveVerdict, listDescription, percent, readReport } from './profile-report';
+import {
+  atSlots,
+  learningCurveSpreadNote,
+  learningCurveVerdict,
+  listDescription,
+  percent,
+  readReport,
+} from './profile-report';
 
 // Invented writing in the demo client's voice (the Willowmere demo scenario).
 const entries = [
@@ -88,5 +95,42 @@ describe('learningCurveVerdict', () => {
       ]),
     ).toMatch(/raised bits per character by 0\.05/);
     expect(learningCurveVerdict([{ fraction: 1, bpcIdeal: 2 }])).toMatch(/Not enough points/);
+  });
+});
+
+describe('learningCurveSpreadNote', () => {
+  // Ranges overlap when neither lies wholly above the other: common practice, no source.
+  const point = (fraction: number, bpcMin: number, bpcIdeal: number, bpcMax: number) => ({
+    fraction,
+    bpcIdeal,
+    spread: { folds: 3, bpcMin, bpcMax },
+  });
+
+  it("names the earliest share whose spread overlaps the full text's", () => {
+    const points = [
+      point(0.1, 2.9, 3.1, 3.3),
+      point(0.25, 2.2, 2.5, 2.8),
+      point(0.5, 2.1, 2.3, 2.6),
+      point(1, 2.0, 2.2, 2.3),
+    ];
+    expect(learningCurveSpreadNote(points)).toBe(
+      'The change from 25% to 100% is within the spread between folds: more writing may not help yet.',
+    );
+  });
+
+  it("says the shape is not chance when every point lies outside the full text's spread", () => {
+    const points = [point(0.1, 3.0, 3.1, 3.2), point(0.5, 2.6, 2.65, 2.7), point(1, 2.2, 2.25, 2.3)];
+    const note = learningCurveSpreadNote(points);
+    expect(note).toMatch(/by more than the spread between the 3 folds measured/);
+    expect(note).not.toMatch(/within the spread/);
+  });
+
+  it('says the spread is unknown for a report measured on one fold', () => {
+    expect(
+      learningCurveSpreadNote([
+        { fraction: 0.5, bpcIdeal: 2.3 },
+        { fraction: 1, bpcIdeal: 2.2 },
+      ]),
+    ).toMatch(/^Measured on one fold only/);
   });
 });

@@ -55,6 +55,38 @@ export const learningCurveVerdict = (points: readonly { fraction: number; bpcIde
   return `More text has stopped helping much: going ${span} ${change}. More writing of the same kind will add little.`;
 };
 
+/** A learning-curve point as the spread sentence reads it (spread absent in reports measured on one fold). */
+export type CurvePointSpread = {
+  fraction: number;
+  bpcIdeal: number;
+  spread?: { folds: number; bpcMin: number; bpcMax: number } | undefined;
+};
+
+const sharePercent = (fraction: number): string => `${Math.round(fraction * 100)}%`;
+
+/**
+ * Whether the curve's changes are larger than the spread between folds: the earliest point whose
+ * range of bits per character (lowest to highest over the folds) overlaps the last point's range
+ * is named, since the change from there on could be chance. Overlapping ranges as the test is
+ * common practice, no source.
+ */
+export const learningCurveSpreadNote = (points: readonly CurvePointSpread[]): string => {
+  const last = points.at(-1);
+  if (!last || points.length < 2) return 'Not enough points to compare with the spread between folds.';
+  const folds = Math.min(...points.map((point) => point.spread?.folds ?? 1));
+  if (folds < 2 || !last.spread) {
+    return 'Measured on one fold only, so the spread between folds is not known: small changes between points may be chance.';
+  }
+  const end = last.spread;
+  const within = points
+    .slice(0, -1)
+    .find((point) => point.spread && point.spread.bpcMin <= end.bpcMax && end.bpcMin <= point.spread.bpcMax);
+  if (within) {
+    return `The change from ${sharePercent(within.fraction)} to ${sharePercent(last.fraction)} is within the spread between folds: more writing may not help yet.`;
+  }
+  return `Each share of the text differs from ${sharePercent(last.fraction)} by more than the spread between the ${folds} folds measured, so the curve's shape is not chance.`;
+};
+
 /** One line of a chart by list size: a version, or the base model alone. */
 export type SlotSeries = { name: string; values: Record<string, number> };
 
