@@ -28,3 +28,4 @@ export * from './trials/index';
 export * from './workspace/workspace-root';
 export * from './schemas/vocabulary.schema';
 export * from './charts/index';
+export * from './reports/index';

@@ -143,6 +143,8 @@ export const baseOnlyReportSchema = z.object({
   bpcIdeal: z.number(),
   keystrokeSavings: perSlotSchema,
   kspc: perSlotSchema,
+  /** Absent in reports made before the hit rate was measured. */
+  hitRate: perSlotSchema.optional(),
 });
 
 export const earlyWordSchema = z.object({ word: z.string(), count: z.number() });
@@ -189,6 +191,14 @@ export const profileReportSchema = z.object({
   kspc: perSlotSchema,
   /** Upper bound: every word selected before its first letter. */
   oracleSavings: z.number(),
+  /**
+   * Words in the text the keystroke simulation typed, and per list size the share of them the list
+   * offered before their last letter (hit rate) and the selections (keys and list choices, spaces and
+   * punctuation included) per word. Absent in reports made before they were measured.
+   */
+  ksWords: z.number().int().optional(),
+  hitRate: perSlotSchema.optional(),
+  selectionsPerWord: perSlotSchema.optional(),
   /** Cap per fold on the characters typed by the keystroke simulation (null: whole held-out text). */
   ksSampleChars: z.number().nullable(),
   /** Characters the keystroke simulation typed over all folds. */

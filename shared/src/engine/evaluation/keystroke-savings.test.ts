@@ -6,9 +6,15 @@ import { toCodePoints } from '../search/word-chars';
 import { simulateKeystrokes, wordEnd } from './keystroke-savings';
 
 /** Naive ideal user for ONE list size: asks suggest() for the list before every letter. */
-function naiveKeystrokes(model: NextSymbolModel, text: Int32Array, slots: number, adaptive: boolean): number {
+function naiveKeystrokes(
+  model: NextSymbolModel,
+  text: Int32Array,
+  slots: number,
+  adaptive: boolean,
+): { keys: number; hits: number } {
   const limits = { nodeBudget: 300, maxCompletionLength: 24 };
   let keys = 0;
+  let hits = 0;
   let i = 0;
   const learn = (at: number): void => {
     if (adaptive) model.learn(text, at);
@@ -23,17 +29,21 @@ function naiveKeystrokes(model: NextSymbolModel, text: Int32Array, slots: number
     const word = String.fromCodePoint(...text.subarray(i, j));
     const spaceAfter = text[j] === 0x20 ? 1 : 0;
     let cost = j - i + spaceAfter;
+    let hit = false;
     for (let m = 0; m <= j - i; m++) {
-      if (m + 1 < cost && suggest(model, text, i + m, slots, limits).some((s) => s.word === word))
-        cost = m + 1;
+      const listed = suggest(model, text, i + m, slots, limits).some((s) => s.word === word);
+      if (listed && m + 1 < cost) cost = m + 1;
+      // A hit: the list showed the word while at least one of its letters was still to type.
+      if (listed && m < j - i) hit = true;
     }
+    if (hit) hits++;
     // Convention 8: a word's letters are learned once the word is finished.
     for (let m = 0; m < j - i; m++) learn(i + m);
     keys += cost;
     if (spaceAfter) learn(j);
     i = j + spaceAfter;
   }
-  return keys;
+  return { keys, hits };
 }
 
 function randomText(seed: number, length: number): string {
@@ -68,6 +78,11 @@ describe('simulateKeystrokes', () => {
     expect(r.keystrokes[2]).toBe(4);
     expect(r.savings[2]).toBeCloseTo(5 / 9, 15);
     expect(r.kspc[2]).toBeCloseTo(4 / 9, 15);
+    // Hits, worked by hand the same way: at W = 1 neither word is listed before its last letter;
+    // at W = 2 "then" is listed after "t" and "car" after "c" (2 words, hit rate 100%).
+    expect(r.words).toBe(2);
+    expect(r.hits[1]).toBe(0);
+    expect(r.hits[2]).toBe(2);
   });
 
   it('agrees with a naive per-W simulator built on suggest()', () => {
@@ -82,7 +97,9 @@ describe('simulateKeystrokes', () => {
       };
       const fast = simulateKeystrokes(fresh(), text, { maxSlots: 10, adaptive });
       for (const w of [1, 2, 3, 5, 10]) {
-        expect(fast.keystrokes[w]).toBe(naiveKeystrokes(fresh(), text, w, adaptive));
+        const naive = naiveKeystrokes(fresh(), text, w, adaptive);
+        expect(fast.keystrokes[w]).toBe(naive.keys);
+        expect(fast.hits[w]).toBe(naive.hits);
       }
     }
   });

@@ -51,6 +51,11 @@ export type KeystrokeResult = {
   oracleSavings: number;
   /** Words in the text. */
   words: number;
+  /**
+   * Words the list offered before their last letter was typed (so selecting saved at least one
+   * key), per list size W (index 0 unused): the hit rate is hits(W) / words.
+   */
+  hits: number[];
 };
 
 /**
@@ -102,6 +107,7 @@ export function simulateKeystrokes(
   const adaptive = options.adaptive ?? false;
   const n = text.length;
   const keys = new Array<number>(maxSlots + 1).fill(0);
+  const hits = new Array<number>(maxSlots + 1).fill(0);
   let oracleKeys = 0;
   let words = 0;
   // First prefix length at which the word's rank is ≤ W, per W (reused).
@@ -141,6 +147,7 @@ export function simulateKeystrokes(
       const typed = len + spaceAfter;
       const cost = firstAt[w] >= 0 ? Math.min(typed, firstAt[w] + 1) : typed;
       keys[w] += cost;
+      if (firstAt[w] >= 0 && firstAt[w] < len) hits[w]++;
     }
     oracleKeys += 1;
     if (options.onWord) options.onWord({ start: i, end: j, firstShownAt: firstAt });
@@ -160,6 +167,7 @@ export function simulateKeystrokes(
     kspc,
     oracleSavings: n === 0 ? 0 : 1 - oracleKeys / n,
     words,
+    hits,
   };
 }
 

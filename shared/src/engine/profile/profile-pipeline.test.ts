@@ -60,3 +60,33 @@ describe('learning curve spread', () => {
     expect(curve.parse(older)).toEqual(older);
   });
 });
+
+// Hit rate and selections per word follow from the simulation's counts (derived: docs/references.md §2).
+describe('hit rate and selections per word', () => {
+  it('grow and fall with the list size as the keystrokes do', async () => {
+    const { report } = await trainAndEvaluateProfile({
+      documents: entries.map((text, index) => ({ id: `s${index}`, text })),
+      settings: { ...defaultProfileSettings, access: { method: 'direct' } },
+      base: null,
+      folds: 4,
+      ksSampleChars: 200,
+    });
+    expect(profileReportSchema.safeParse(report).success).toBe(true);
+    expect(report.ksWords).toBeGreaterThan(0);
+    let previous = 0;
+    for (let w = 1; w <= 10; w++) {
+      const hit = report.hitRate[String(w)];
+      expect(hit).toBeGreaterThanOrEqual(previous);
+      expect(hit).toBeLessThanOrEqual(1);
+      previous = hit;
+      // keystrokes = kspc × characters = selections per word × words
+      expect(report.selectionsPerWord[String(w)] * report.ksWords).toBeCloseTo(
+        report.kspc[String(w)] * report.ksChars,
+        0,
+      );
+    }
+    expect(report.hitRate['5']).toBeGreaterThan(0);
+    // Without suggestions every character is a key: more selections per word than with 10 slots.
+    expect(report.ksChars / report.ksWords).toBeGreaterThan(report.selectionsPerWord['10']);
+  });
+});

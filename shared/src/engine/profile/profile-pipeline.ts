@@ -113,7 +113,12 @@ export type BaseOnlyReport = z.infer<typeof baseOnlyReportSchema>;
 export type { ProfileReport };
 /** A report as this engine writes it: the fields that reports stored before the word list lack are always there. */
 export type CurrentProfileReport = ProfileReport &
-  Required<Pick<ProfileReport, 'predictor' | 'nonWordSlots' | 'scanStepsByLayout'>>;
+  Required<
+    Pick<
+      ProfileReport,
+      'predictor' | 'nonWordSlots' | 'scanStepsByLayout' | 'ksWords' | 'hitRate' | 'selectionsPerWord'
+    >
+  >;
 
 /** Words offered per list position checked for the non-word share, per fold (three lists per word). */
 const NON_WORD_CHECK_WORDS = 150;
@@ -516,6 +521,13 @@ export async function trainAndEvaluateProfile(
     return keys;
   };
   const keys = keysPerSlot((f) => need(f.ks));
+  const ksWords = folds.reduce((n, f) => n + need(f.ks).words, 0);
+  /** Hits per list size over all folds, as a share of the words typed. */
+  const hitRateOf = (pick: (f: FoldWork) => KeystrokeResult): number[] => {
+    const hits = new Array<number>(MAX_SLOTS + 1).fill(0);
+    for (const f of folds) pick(f).hits.forEach((x, w) => (hits[w] += x));
+    return hits.map((x) => (ksWords === 0 ? 0 : x / ksWords));
+  };
   const savings = keys.map((x) => 1 - x / ksChars);
   const kspc = keys.map((x) => x / ksChars);
   const oracleKeys = folds.reduce((n, f) => n + (1 - need(f.ks).oracleSavings) * f.ksText.length, 0);
@@ -546,6 +558,7 @@ export async function trainAndEvaluateProfile(
       bpcIdeal: round(folds.reduce((s, f) => s + f.baseBits / f.test.length, 0) / folds.length),
       keystrokeSavings: perSlot(baseKeys.map((x) => 1 - x / ksChars)),
       kspc: perSlot(baseKeys.map((x) => x / ksChars)),
+      hitRate: perSlot(hitRateOf((f) => need(f.baseKs))),
     };
   }
 
@@ -585,6 +598,9 @@ export async function trainAndEvaluateProfile(
     keystrokeSavings: perSlot(savings),
     kspc: perSlot(kspc),
     oracleSavings: round(1 - oracleKeys / ksChars),
+    ksWords,
+    hitRate: perSlot(hitRateOf((f) => need(f.ks))),
+    selectionsPerWord: perSlot(keys.map((x) => (ksWords === 0 ? 0 : x / ksWords))),
     ksSampleChars: cap,
     ksChars,
     ksNote:

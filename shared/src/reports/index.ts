@@ -1,0 +1,2 @@
+export { versionFigures, versionFigureKeys, rateChangeSentence } from './version-figures';
+export type { VersionFigure, VersionFigureKey } from './version-figures';
