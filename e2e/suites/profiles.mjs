@@ -38,6 +38,14 @@ export const profilesSuite = {
 
         await page.getByRole('button', { name: 'New version' }).click();
         const form = page.getByRole('form', { name: 'New profile version' });
+        // The engine's own settings wait, closed, under Engine details.
+        await form.getByLabel('Suggestion slots').waitFor();
+        assert.equal(
+          await form.getByLabel('Context order').isVisible(),
+          false,
+          'engine settings start closed',
+        );
+        await form.locator('summary', { hasText: 'Engine details' }).click();
         await form.getByLabel('Context order').waitFor();
         assert.equal(await form.getByLabel('Context order').inputValue(), '5');
         assert.equal(await form.getByLabel('Suggestion slots').inputValue(), '5');
@@ -79,8 +87,32 @@ export const profilesSuite = {
           .getByText('Keystroke savings are not time savings: reading the list costs time.')
           .waitFor();
         await page.getByRole('heading', { name: 'Learning curve: does more text still help?' }).waitFor();
+        // The clinic's words first: the figures at the version's slots, hit rate among them; bits per
+        // character only once Engine details are opened (by keyboard).
+        const glance = page.getByRole('table', { name: /^The version’s figures at \d+ suggestion slots$/ });
+        for (const figure of [
+          'Keystroke savings',
+          'Selections per word',
+          'Hit rate',
+          'What the suggestions change',
+        ])
+          await glance.getByRole('rowheader', { name: figure, exact: true }).waitFor();
+        const bpcTable = page.getByRole('table', { name: /^Bits per character, mean over folds/ });
+        assert.equal(
+          await bpcTable.isVisible(),
+          false,
+          'bits per character start under closed Engine details',
+        );
         assert.deepEqual(await t.seriousViolations(page, 'version results'), []);
         await t.screenshot(page, 'profile-results');
+        const engineSummary = page
+          .getByRole('region', { name: 'Results' })
+          .locator('summary', { hasText: 'Engine details' });
+        await engineSummary.focus();
+        await page.keyboard.press('Enter');
+        await bpcTable.waitFor();
+        assert.deepEqual(await t.seriousViolations(page, 'version results, engine details open'), []);
+        await t.screenshot(page, 'profile-results-engine-details');
         await page.setViewportSize({ width: 640, height: 430 });
         await assertNoSidewaysScroll(page, 'version results at 200%');
         await page.setViewportSize({ width: 1280, height: 860 });
@@ -98,7 +130,15 @@ export const profilesSuite = {
           .waitFor();
         assert.deepEqual(await t.seriousViolations(page, 'my clients'), []);
         await page.goto(`${t.appUrl}${versionPath}`, { waitUntil: 'networkidle' });
-        await page.getByRole('heading', { name: 'Results' }).waitFor();
+        // A carer reads what to try, not the measures.
+        await page.getByRole('heading', { name: `What to try with version ${versionNumber}` }).waitFor();
+        assert.equal(
+          await page.getByRole('heading', { name: 'Results' }).count(),
+          0,
+          'no results for carers',
+        );
+        assert.equal(await page.getByText('Engine details').count(), 0, 'no engine details for carers');
+        await t.screenshot(page, 'profile-what-to-try');
         assert.equal(
           await page.getByRole('link', { name: /^Export version/ }).count(),
           0,
@@ -109,7 +149,7 @@ export const profilesSuite = {
         // through the screens; here it is logged through the API).
         await postTypedTrial(page, t.appUrl, versionPath.split('/').pop());
         await page.reload({ waitUntil: 'networkidle' });
-        await page.getByRole('heading', { name: 'Results' }).waitFor();
+        await page.getByRole('heading', { name: `What to try with version ${versionNumber}` }).waitFor();
         await page.getByRole('button', { name: 'Sign off' }).click();
         const dialog = page.getByRole('dialog', { name: /^Sign off version/ });
         await dialog.getByRole('button', { name: 'Sign off' }).click();

@@ -377,7 +377,7 @@ describe('trainAndEvaluateProfile edge cases', () => {
     ];
     const { report: r } = await trainAndEvaluateProfile({ documents: two, settings, base: null, folds: 5 });
     expect(r.foldUnit).toBe('segment');
-    expect(r.foldNote).toMatch(/contiguous segments/);
+    expect(r.foldNote).toMatch(/consecutive parts/);
     expect(r.perFold).toHaveLength(5);
     // Segments cover the joined text exactly once.
     expect(r.heldOutChars).toBe(r.chars + 1);

@@ -73,7 +73,9 @@ export function planFolds(documents: readonly PreparedDocument[], k: number): Fo
     return {
       unit: 'document',
       folds,
-      note: `${k}-fold cross-validation by sample: sample d is held out in fold d mod ${k}.`,
+      note:
+        `Whole samples are held out: samples 1, ${k + 1}, ${2 * k + 1} … are tested in fold 1, ` +
+        `samples 2, ${k + 2}, ${2 * k + 2} … in fold 2, and so on.`,
     };
   }
   const parts = contiguousParts(joinTexts(documents.map((d) => d.text)), k);
@@ -82,7 +84,7 @@ export function planFolds(documents: readonly PreparedDocument[], k: number): Fo
     folds: parts.map((test, f) => ({ train: parts.filter((_, g) => g !== f), test, testIds: [] })),
     note:
       `Only ${documents.length} sample(s) for ${k} folds: the text of all samples was cut into ${k} ` +
-      'contiguous segments and each segment held out once, so held-out text may share a sample with training text.',
+      'consecutive parts and each part tested once, so a tested part may come from the same sample as training text.',
   };
 }
 

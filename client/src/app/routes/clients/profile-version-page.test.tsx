@@ -232,6 +232,48 @@ describe('Profile version page', () => {
     expect(screen.getByRole('list', { name: 'History' })).toHaveTextContent('Ready for trial');
   });
 
+  it("opens with the figures in the clinic's words; the engine's terms wait under Engine details", async () => {
+    await openVersion('clinician', profileVersion());
+    const glance = within(screen.getByRole('table', { name: 'The version’s figures at 5 suggestion slots' }));
+    const rows = glance
+      .getAllByRole('row')
+      .slice(1)
+      .map((row) => [
+        cellValue(within(row).getByRole('rowheader')),
+        cellText(within(row).getAllByRole('cell')[0]),
+      ]);
+    // Values from the fixture: KSPC 0.657 at 5 slots, 24,180 characters in 4,836 words, hit rate 0.65,
+    // 6.1 → 7.4 words a minute (1.3 more, 21% faster: worked by hand).
+    expect(rows).toEqual([
+      ['Suggestion slots', '5'],
+      ['Keystroke savings', '36.7%'],
+      ['Keystrokes per character (KSPC)', '0.66 (1.00 without suggestions)'],
+      ['Selections per word', '3.3 (5.0 without suggestions)'],
+      ['Hit rate', '65% of words'],
+      ['Estimated words per minute', '6.1 without suggestions, 7.4 with 5'],
+      ['What the suggestions change', 'About 1.3 more words a minute than without suggestions (21% faster).'],
+      ['Scan steps per character', '7.42 (typewriter key order)'],
+    ]);
+    const bpcTable = screen.getByRole('table', { name: /Bits per character, mean over folds/ });
+    const details = bpcTable.closest('details');
+    expect(details).not.toBeNull();
+    expect(details).not.toHaveAttribute('open');
+    expect(within(details as HTMLElement).getByText('Engine details')).toBeInTheDocument();
+    // The engine settings of the version page sit under their own Engine details.
+    expect(screen.getByText('Context order').closest('details')).not.toHaveAttribute('open');
+  });
+
+  it('shows a carer what to try, not the measures', async () => {
+    await openVersion('carer', profileVersion());
+    expect(screen.getByRole('heading', { name: 'What to try with version 1' })).toBeInTheDocument();
+    const words = within(screen.getByRole('list', { name: 'Words to try' }));
+    expect(words.getAllByRole('listitem').map((item) => item.textContent)).toEqual(['Pepper', 'harbour']);
+    expect(screen.queryByRole('heading', { name: 'Results' })).not.toBeInTheDocument();
+    expect(screen.queryByText(/Bits per character|Keystroke savings/)).not.toBeInTheDocument();
+    expect(screen.queryByText('Engine details')).not.toBeInTheDocument();
+    expect(screen.queryByText('Context order')).not.toBeInTheDocument();
+  });
+
   it('shows "cannot be shown" instead of results when the stored report does not parse', async () => {
     // A report missing most of its figures (and with bits per character as text).
     await openVersion('clinician', profileVersion({ metrics: { bpcIdeal: '2.4', order: 5 } }));

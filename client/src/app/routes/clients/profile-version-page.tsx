@@ -24,6 +24,8 @@ import { VersionActions } from '@/features/profiles/components/version-actions';
 import { VersionHistory } from '@/features/profiles/components/version-history';
 import { VersionNotFound } from '@/features/profiles/components/version-not-found';
 import { VersionResults } from '@/features/profiles/components/version-results';
+import { WhatToTry } from '@/features/profiles/components/what-to-try';
+import { EngineDetails } from '@/components/ui/engine-details';
 import { formatDateTime } from '@/lib/format';
 
 // A message handed over by the page that navigated here (e.g. "Version 3 is training.").
@@ -166,7 +168,8 @@ export const ProfileVersionRoute = () => {
         )}
 
         {data.baseOnly && <BaseOnlyNote />}
-        {report && (
+        {report && role === 'carer' && <WhatToTry report={report} versionNumber={data.number} />}
+        {report && role !== 'carer' && (
           <section aria-labelledby="results-heading" className="flex flex-col gap-6">
             <h2 id="results-heading" className="text-3xl font-bold">
               Results
@@ -216,17 +219,8 @@ export const ProfileVersionRoute = () => {
             Settings and samples
           </h2>
           <dl className="grid max-w-2xl grid-cols-[auto_1fr] gap-x-6 gap-y-1">
-            {/* A base-only version has no personal model: only general English and the list settings. */}
-            {!data.baseOnly && (
-              <>
-                <dt className="font-bold">Context order</dt>
-                <dd>{data.settings.order}</dd>
-                <dt className="font-bold">Escape method</dt>
-                <dd>{data.settings.escape}</dd>
-                <dt className="font-bold">Exclusion</dt>
-                <dd>{data.settings.exclusion ? 'On' : 'Off'}</dd>
-              </>
-            )}
+            <dt className="font-bold">Suggestion slots</dt>
+            <dd>{data.settings.slots}</dd>
             <dt className="font-bold">Weight of general English</dt>
             <dd>
               {data.baseOnly
@@ -235,8 +229,6 @@ export const ProfileVersionRoute = () => {
                   ? 'Automatic'
                   : data.settings.baseWeight}
             </dd>
-            <dt className="font-bold">Suggestion slots</dt>
-            <dd>{data.settings.slots}</dd>
             <dt className="font-bold">Capitals</dt>
             <dd>{data.settings.caseFold ? 'Ignored' : 'Kept'}</dd>
           </dl>
@@ -250,6 +242,19 @@ export const ProfileVersionRoute = () => {
                 </li>
               ))}
             </ul>
+          )}
+          {/* A base-only version has no personal model; carers see no engine settings. */}
+          {!data.baseOnly && role !== 'carer' && (
+            <EngineDetails description="How the model of the client’s writing is built.">
+              <dl className="grid max-w-2xl grid-cols-[auto_1fr] gap-x-6 gap-y-1">
+                <dt className="font-bold">Context order</dt>
+                <dd>{data.settings.order} (letters the model looks back)</dd>
+                <dt className="font-bold">Escape method</dt>
+                <dd>{data.settings.escape} (how it falls back to shorter contexts)</dd>
+                <dt className="font-bold">Exclusion</dt>
+                <dd>{data.settings.exclusion ? 'On' : 'Off'}</dd>
+              </dl>
+            </EngineDetails>
           )}
         </section>
 

@@ -133,6 +133,7 @@ describe('Profile versions tab', () => {
     const { user, api } = await openTab();
     await user.click(await screen.findByRole('button', { name: 'New version' }));
     const form = within(screen.getByRole('form', { name: 'New profile version' }));
+    expect(form.getByLabelText('Context order').closest('details')).not.toHaveAttribute('open');
     await user.clear(form.getByLabelText('Context order'));
     await user.type(form.getByLabelText('Context order'), '13');
     await user.clear(form.getByLabelText('Suggestion slots'));
@@ -149,6 +150,8 @@ describe('Profile versions tab', () => {
     expect(form.getByText('Enter a base-model weight from 0 to 1, or choose automatic.')).toBeInTheDocument();
     expect(form.getByText('Choose at least one sample.')).toBeInTheDocument();
     expect(form.getByLabelText('Context order')).toHaveAttribute('aria-invalid', 'true');
+    // The context order sits under Engine details, closed at first: a refused value opens them.
+    expect(form.getByLabelText('Context order').closest('details')).toHaveAttribute('open');
     // The refused fields are listed at the top, and focus moves to that list.
     const summary = await form.findByRole('group', { name: /fields need attention/ });
     await waitFor(() => expect(summary).toHaveFocus());
@@ -330,9 +333,16 @@ describe('Profile versions tab', () => {
     const table = within(await screen.findByRole('table', { name: 'Versions compared' }));
     const headers = table.getAllByRole('columnheader').map((cell) => cell.textContent);
     expect(headers).toEqual(['Measure', 'Version 2', 'Version 1', 'General English alone']);
-    const bpc = table.getByRole('row', { name: /Bits per character \(ideal\)/ });
+    // The clinic's words first; the engine's terms only under "Engine details".
+    expect(table.queryByRole('row', { name: /Bits per character/ })).not.toBeInTheDocument();
+    const hits = table.getByRole('row', { name: /Hit rate at 5 slots/ });
+    expect(within(hits).getAllByRole('cell').map(cellValue)).toEqual(['65%', '65%', '53%']);
+    const engineTable = screen.getByRole('table', { name: 'Engine settings and bits per character' });
+    expect(engineTable.closest('details')).not.toHaveAttribute('open');
+    const engine = within(engineTable);
+    const bpc = engine.getByRole('row', { name: /Bits per character \(ideal\)/ });
     expect(within(bpc).getAllByRole('cell').map(cellValue)).toEqual(['2.301', '2.412', '2.980']);
-    const order = table.getByRole('row', { name: /Context order/ });
+    const order = engine.getByRole('row', { name: /Context order/ });
     expect(within(order).getAllByRole('cell').map(cellValue)).toEqual(['6', '5', '—']);
     // Scan steps: one row per key order of the test keyboard, named as its setting names them.
     const scanRows = table

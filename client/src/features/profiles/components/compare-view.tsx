@@ -19,6 +19,7 @@ import {
   SCAN_STEPS_NOTE,
   type SlotSeries,
 } from '../lib/profile-report';
+import { EngineDetails } from '@/components/ui/engine-details';
 import { VocabularyDifferences } from '@/features/vocabulary/components/vocabulary-differences';
 import { SlotsChart } from './slots-chart';
 
@@ -26,17 +27,10 @@ type Column = { name: string; report: ProfileReportView | null; base: boolean };
 
 type MetricRow = { label: string; value: (report: ProfileReportView, base: boolean) => string };
 
-// The base model alone has bits and keystroke figures only; the rest shows "—" in its column.
+// The base model alone has bits, keystroke and hit figures only; the rest shows "—" in its column.
+/** The figures in the clinic's words, shown first. */
 const rows = (slots: number): MetricRow[] => [
   { label: 'Characters of text', value: (r, base) => (base ? '—' : count(r.chars)) },
-  { label: 'Context order', value: (r, base) => (base ? '—' : String(r.order)) },
-  { label: 'Escape method', value: (r, base) => (base ? '—' : r.escape) },
-  { label: 'Weight of general English', value: (r, base) => (base ? '1.00' : fixed(r.baseWeight, 2)) },
-  {
-    label: 'Bits per character (ideal)',
-    value: (r, base) => (base ? fixed(r.baseOnly?.bpcIdeal ?? null, 3) : fixed(r.bpcIdeal, 3)),
-  },
-  { label: 'Bits per character (coded)', value: (r, base) => (base ? '—' : fixed(r.bpcCoded, 3)) },
   {
     label: `Keystroke savings at ${slots} slots`,
     value: (r, base) =>
@@ -45,6 +39,18 @@ const rows = (slots: number): MetricRow[] => [
   {
     label: `Keystrokes per character at ${slots} slots`,
     value: (r, base) => fixed(atSlots(base ? (r.baseOnly?.kspc ?? {}) : r.kspc, slots), 3),
+  },
+  {
+    label: `Selections per word at ${slots} slots`,
+    value: (r, base) =>
+      base ? '—' : r.selectionsPerWord ? fixed(atSlots(r.selectionsPerWord, slots), 1) : 'Not measured',
+  },
+  {
+    label: `Hit rate at ${slots} slots`,
+    value: (r, base) => {
+      const rates = base ? r.baseOnly?.hitRate : r.hitRate;
+      return rates ? percent(atSlots(rates, slots), 0) : 'Not measured';
+    },
   },
   // One row per keyboard layout, named as the keyboard's layout setting names it.
   ...keyboardLayouts.map((layout): MetricRow => ({
@@ -61,6 +67,50 @@ const rows = (slots: number): MetricRow[] => [
     value: (r, base) => (base ? '—' : fixed(r.rates.wpmWith, 1)),
   },
 ];
+
+/** The engine's own settings and figures, under "Engine details". */
+const engineRows: MetricRow[] = [
+  { label: 'Context order', value: (r, base) => (base ? '—' : String(r.order)) },
+  { label: 'Escape method', value: (r, base) => (base ? '—' : r.escape) },
+  { label: 'Weight of general English', value: (r, base) => (base ? '1.00' : fixed(r.baseWeight, 2)) },
+  {
+    label: 'Bits per character (ideal)',
+    value: (r, base) => (base ? fixed(r.baseOnly?.bpcIdeal ?? null, 3) : fixed(r.bpcIdeal, 3)),
+  },
+  { label: 'Bits per character (coded)', value: (r, base) => (base ? '—' : fixed(r.bpcCoded, 3)) },
+];
+
+/** One table of versions side by side, a row per measure. */
+const MeasuresTable = ({
+  caption,
+  rows,
+  columns,
+}: {
+  caption: string;
+  rows: MetricRow[];
+  columns: Column[];
+}) => (
+  <Table caption={caption}>
+    <TableHead>
+      <ColumnHeader>Measure</ColumnHeader>
+      {columns.map((column) => (
+        <ColumnHeader key={column.name}>{column.name}</ColumnHeader>
+      ))}
+    </TableHead>
+    <TableBody>
+      {rows.map((row) => (
+        <TableRow key={row.label}>
+          <RowHeader label="Measure">{row.label}</RowHeader>
+          {columns.map((column) => (
+            <TableCell key={column.name} label={column.name}>
+              {column.report ? row.value(column.report, column.base) : 'Not trained'}
+            </TableCell>
+          ))}
+        </TableRow>
+      ))}
+    </TableBody>
+  </Table>
+);
 
 /**
  * Two or more versions side by side, with the general English model alone (measured on the first
@@ -83,26 +133,7 @@ export const CompareView = ({ versions }: { versions: readonly ProfileVersion[] 
 
   return (
     <div className="flex flex-col gap-10">
-      <Table caption="Versions compared">
-        <TableHead>
-          <ColumnHeader>Measure</ColumnHeader>
-          {columns.map((column) => (
-            <ColumnHeader key={column.name}>{column.name}</ColumnHeader>
-          ))}
-        </TableHead>
-        <TableBody>
-          {rows(slots).map((row) => (
-            <TableRow key={row.label}>
-              <RowHeader label="Measure">{row.label}</RowHeader>
-              {columns.map((column) => (
-                <TableCell key={column.name} label={column.name}>
-                  {column.report ? row.value(column.report, column.base) : 'Not trained'}
-                </TableCell>
-              ))}
-            </TableRow>
-          ))}
-        </TableBody>
-      </Table>
+      <MeasuresTable caption="Versions compared" rows={rows(slots)} columns={columns} />
       <p className="max-w-3xl text-ink-soft">
         {SCAN_STEPS_NOTE}
         {columns.some((column) => column.report && !column.base && !column.report.scanStepsByLayout) &&
@@ -123,6 +154,9 @@ export const CompareView = ({ versions }: { versions: readonly ProfileVersion[] 
         />
       )}
       <VocabularyDifferences versions={versions} />
+      <EngineDetails description="The model settings and bits per character of each version.">
+        <MeasuresTable caption="Engine settings and bits per character" rows={engineRows} columns={columns} />
+      </EngineDetails>
     </div>
   );
 };

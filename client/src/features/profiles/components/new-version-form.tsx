@@ -12,6 +12,7 @@ import {
 } from '@keyloom/shared';
 import { useId, useState } from 'react';
 import type { FieldError as FormFieldError } from 'react-hook-form';
+import { EngineDetails } from '@/components/ui/engine-details';
 import { Button } from '@/components/ui/button';
 import { CheckboxField } from '@/components/ui/checkbox-field';
 import { FieldError } from '@/components/ui/field-message';
@@ -324,33 +325,36 @@ export const NewVersionForm = ({
             )}
 
             <fieldset className="grid gap-5 md:grid-cols-2">
-              <legend className="mb-3 text-xl font-bold">Model</legend>
-              {!baseOnly && (
-                <>
-                  <TextField
-                    label="Context order"
-                    type="number"
-                    inputMode="numeric"
-                    hint="How many letters back the model looks, 1 to 12 (5 suits most writing)."
-                    registration={register('settings.order', { setValueAs: optionalNumber })}
-                    error={messageOf(errors.settings?.order)}
-                  />
-                  <SelectField
-                    label="Escape method"
-                    options={escapeMethods.map((letter) => ({ value: letter, label: `Method ${letter}` }))}
-                    hint={
-                      escapeExplanations[(watch('settings.escape') ?? 'C') as keyof typeof escapeExplanations]
-                    }
-                    registration={register('settings.escape')}
-                    error={errors.settings?.escape}
-                  />
-                  <CheckboxField
-                    label="Exclusion"
-                    hint="When falling back to a shorter context, skip letters the longer one already offered."
-                    registration={register('settings.exclusion')}
-                  />
-                </>
-              )}
+              <legend className="mb-3 text-xl font-bold">Suggestions and access</legend>
+              <TextField
+                label="Suggestion slots"
+                type="number"
+                inputMode="numeric"
+                hint="How many words the list offers at once, 1 to 10. Results are measured for 1 to 10 either way."
+                registration={register('settings.slots', { setValueAs: optionalNumber })}
+                error={messageOf(errors.settings?.slots)}
+              />
+              <SelectField
+                label="Access method for the speed estimate"
+                options={Object.entries(accessMethodLabels).map(([value, label]) => ({ value, label }))}
+                hint="From the client record; change it here only to compare."
+                registration={register('settings.access.method')}
+                error={errors.settings?.access?.method}
+              />
+              {accessTimingFields[method].map((field) => (
+                <TextField
+                  key={field}
+                  label={accessTimingLabels[field]}
+                  type="number"
+                  inputMode="numeric"
+                  registration={register(`settings.access.${field}`, { setValueAs: optionalNumber })}
+                  error={messageOf(errors.settings?.access?.[field])}
+                />
+              ))}
+            </fieldset>
+
+            <fieldset className="grid gap-5 md:grid-cols-2">
+              <legend className="mb-3 text-xl font-bold">What the suggestions lean on</legend>
               <CheckboxField
                 label="Ignore capitals"
                 hint="Learn and suggest in lower case only; the client types capitals themselves."
@@ -394,34 +398,37 @@ export const NewVersionForm = ({
               )}
             </fieldset>
 
-            <fieldset className="grid gap-5 md:grid-cols-2">
-              <legend className="mb-3 text-xl font-bold">Suggestions and access</legend>
-              <TextField
-                label="Suggestion slots"
-                type="number"
-                inputMode="numeric"
-                hint="How many words the list offers at once, 1 to 10. Results are measured for 1 to 10 either way."
-                registration={register('settings.slots', { setValueAs: optionalNumber })}
-                error={messageOf(errors.settings?.slots)}
-              />
-              <SelectField
-                label="Access method for the speed estimate"
-                options={Object.entries(accessMethodLabels).map(([value, label]) => ({ value, label }))}
-                hint="From the client record; change it here only to compare."
-                registration={register('settings.access.method')}
-                error={errors.settings?.access?.method}
-              />
-              {accessTimingFields[method].map((field) => (
-                <TextField
-                  key={field}
-                  label={accessTimingLabels[field]}
-                  type="number"
-                  inputMode="numeric"
-                  registration={register(`settings.access.${field}`, { setValueAs: optionalNumber })}
-                  error={messageOf(errors.settings?.access?.[field])}
-                />
-              ))}
-            </fieldset>
+            {!baseOnly && (
+              <EngineDetails
+                description="How the model of the client’s writing is built. The defaults suit most writing."
+                forceOpen={Boolean(errors.settings?.order || errors.settings?.escape)}
+              >
+                <div className="grid gap-5 md:grid-cols-2">
+                  <TextField
+                    label="Context order"
+                    type="number"
+                    inputMode="numeric"
+                    hint="How many letters back the model looks, 1 to 12 (5 suits most writing)."
+                    registration={register('settings.order', { setValueAs: optionalNumber })}
+                    error={messageOf(errors.settings?.order)}
+                  />
+                  <SelectField
+                    label="Escape method"
+                    options={escapeMethods.map((letter) => ({ value: letter, label: `Method ${letter}` }))}
+                    hint={
+                      escapeExplanations[(watch('settings.escape') ?? 'C') as keyof typeof escapeExplanations]
+                    }
+                    registration={register('settings.escape')}
+                    error={errors.settings?.escape}
+                  />
+                  <CheckboxField
+                    label="Exclusion"
+                    hint="When falling back to a shorter context, skip letters the longer one already offered."
+                    registration={register('settings.exclusion')}
+                  />
+                </div>
+              </EngineDetails>
+            )}
 
             {!draft && <NextVersionNote clientId={clientId} latestVersionId={latestVersionId} />}
 

@@ -8,7 +8,9 @@ import {
   TableHead,
   TableRow,
 } from '@/components/ui/table';
+import { versionFigures, rateChangeSentence } from '@keyloom/shared';
 import { Alert } from '@/components/ui/alert';
+import { EngineDetails } from '@/components/ui/engine-details';
 import {
   atSlots,
   count,
@@ -24,9 +26,8 @@ import {
   slotSeries,
 } from '../lib/profile-report';
 import { LearningCurveChart } from './learning-curve-chart';
+import { EngineFigures } from './engine-figures';
 import { SlotsChart } from './slots-chart';
-
-const BASE = 'General English model alone';
 
 const Section = ({ id, title, children }: { id: string; title: string; children: ReactNode }) => (
   <section aria-labelledby={id} className="flex flex-col gap-4">
@@ -51,53 +52,34 @@ export const VersionResults = ({ report }: { report: ProfileReportView }) => {
   return (
     <div className="flex flex-col gap-10">
       <p className="max-w-3xl text-lg">
-        Measured on {count(report.chars)} characters from {report.documents ?? 'the'} samples with{' '}
-        {report.folds}-fold cross-validation: each part of the text is predicted by a model that never saw it.
-        {report.foldNote ? ` ${report.foldNote}` : ''}
+        Measured on {count(report.chars)} characters of the client’s own writing: each part of the text is
+        predicted by a version that never saw it, so the figures show how the list does on new writing.
       </p>
+      {report.roundTrip === false && (
+        <Alert tone="error" title="A check failed: a coded text did not decode back exactly.">
+          <p>Train the version again; if it happens again, report it with the version number.</p>
+        </Alert>
+      )}
 
-      <Section id="bpc-heading" title="Bits per character">
-        <p className="max-w-3xl text-ink-soft">
-          How surprised the model is by each letter of the client’s own writing: lower is better.
-        </p>
-        <Table caption="Bits per character, mean over folds with the spread">
+      <Section id="glance-heading" title="At a glance">
+        <Table caption={`The version’s figures at ${slots} suggestion slots`}>
           <TableHead>
-            <ColumnHeader>Measure</ColumnHeader>
-            <ColumnHeader>Mean</ColumnHeader>
-            <ColumnHeader>Lowest fold</ColumnHeader>
-            <ColumnHeader>Highest fold</ColumnHeader>
-            <ColumnHeader>Standard deviation</ColumnHeader>
+            <ColumnHeader>Figure</ColumnHeader>
+            <ColumnHeader>Result</ColumnHeader>
+            <ColumnHeader>What it means</ColumnHeader>
           </TableHead>
           <TableBody>
-            {(
-              [
-                ['Ideal (information content)', report.bpcIdeal, report.bpcIdealSpread],
-                ['Coded (real arithmetic coding)', report.bpcCoded, report.bpcCodedSpread],
-              ] as const
-            ).map(([label, mean, spread]) => (
-              <TableRow key={label}>
-                <RowHeader label="Measure">{label}</RowHeader>
-                <TableCell label="Mean">{fixed(mean, 3)}</TableCell>
-                <TableCell label="Lowest fold">{fixed(spread.min, 3)}</TableCell>
-                <TableCell label="Highest fold">{fixed(spread.max, 3)}</TableCell>
-                <TableCell label="Standard deviation">{fixed(spread.std, 3)}</TableCell>
+            {versionFigures(report).map((figure) => (
+              <TableRow key={figure.key}>
+                <RowHeader label="Figure">{figure.label}</RowHeader>
+                <TableCell label="Result" className="font-bold">
+                  {figure.value}
+                </TableCell>
+                <TableCell label="What it means">{figure.explanation}</TableCell>
               </TableRow>
             ))}
-            {report.baseOnly && (
-              <TableRow>
-                <RowHeader label="Measure">{BASE} (ideal)</RowHeader>
-                <TableCell label="Mean">{fixed(report.baseOnly.bpcIdeal, 3)}</TableCell>
-                <TableCell label="Lowest fold">—</TableCell>
-                <TableCell label="Highest fold">—</TableCell>
-                <TableCell label="Standard deviation">—</TableCell>
-              </TableRow>
-            )}
           </TableBody>
         </Table>
-        <p>
-          Weight of the general English model: {fixed(report.baseWeight, 2)}
-          {report.roundTrip === false ? '. Warning: a coded stream did not decode back exactly.' : '.'}
-        </p>
       </Section>
 
       <Section id="ks-heading" title="Keystroke savings by list size">
@@ -106,8 +88,7 @@ export const VersionResults = ({ report }: { report: ProfileReportView }) => {
           <strong>{percent(atSlots(report.keystrokeSavings, slots))}</strong> of keystrokes
           {report.baseOnly
             ? `; the general English model alone saves ${percent(atSlots(report.baseOnly.keystrokeSavings, slots))}.`
-            : '.'}{' '}
-          {report.ksNote}
+            : '.'}
         </p>
         {listDescription(report).map((line) => (
           <p key={line} className="max-w-3xl">
@@ -157,6 +138,8 @@ export const VersionResults = ({ report }: { report: ProfileReportView }) => {
             <dd className="font-bold">{fixed(report.rates.wpmWithout, 1)} words per minute</dd>
             <dt>With {slots} suggestions</dt>
             <dd className="font-bold">{fixed(report.rates.wpmWith, 1)} words per minute</dd>
+            <dt>Change</dt>
+            <dd className="font-bold">{rateChangeSentence(report.rates)}</dd>
           </dl>
           <Alert tone="info" title="Keystroke savings are not time savings: reading the list costs time.">
             <p>
@@ -232,6 +215,10 @@ export const VersionResults = ({ report }: { report: ProfileReportView }) => {
           </p>
         )}
       </Section>
+
+      <EngineDetails description="Bits per character, how the text was split for testing, and how the list weighs its sources: for whoever tunes the engine.">
+        <EngineFigures report={report} />
+      </EngineDetails>
     </div>
   );
 };

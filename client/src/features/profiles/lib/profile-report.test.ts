@@ -96,6 +96,22 @@ describe('learningCurveVerdict', () => {
     ).toMatch(/raised bits per character by 0\.05/);
     expect(learningCurveVerdict([{ fraction: 1, bpcIdeal: 2 }])).toMatch(/Not enough points/);
   });
+
+  it('does not claim a gain smaller than the spread between folds (the spread sentence would call it chance)', () => {
+    // 2.30 → 2.20 is a gain of 0.10, but the folds ranged 2.10–2.60 and 2.00–2.30: the ranges overlap.
+    const points = [
+      { fraction: 0.5, bpcIdeal: 2.3, spread: { folds: 3, bpcMin: 2.1, bpcMax: 2.6 } },
+      { fraction: 1, bpcIdeal: 2.2, spread: { folds: 3, bpcMin: 2.0, bpcMax: 2.3 } },
+    ];
+    expect(learningCurveVerdict(points)).toMatch(
+      /^More text may still help: .* by 0\.10, but by less than the spread/,
+    );
+    expect(learningCurveSpreadNote(points)).toMatch(/within the spread between folds, so it may be chance/);
+    // Apart, the same gain is a gain.
+    points[0].spread = { folds: 3, bpcMin: 2.28, bpcMax: 2.33 };
+    points[1].spread = { folds: 3, bpcMin: 2.18, bpcMax: 2.22 };
+    expect(learningCurveVerdict(points)).toMatch(/^More text still helps/);
+  });
 });
 
 describe('learningCurveSpreadNote', () => {
@@ -114,7 +130,7 @@ describe('learningCurveSpreadNote', () => {
       point(1, 2.0, 2.2, 2.3),
     ];
     expect(learningCurveSpreadNote(points)).toBe(
-      'The change from 25% to 100% is within the spread between folds: more writing may not help yet.',
+      'The change from 25% to 100% is within the spread between folds, so it may be chance.',
     );
   });
 

@@ -35,26 +35,6 @@ export const fixed = (value: number | null, digits = 2): string =>
 /** "12,345" for counts. */
 export const count = (value: number): string => value.toLocaleString('en-GB');
 
-/**
- * The learning curve in one sentence: whether the last step (from half the text to all of it)
- * still lowered bits per character by at least 0.02 (a judgement threshold: common practice, no source).
- */
-export const learningCurveVerdict = (points: readonly { fraction: number; bpcIdeal: number }[]): string => {
-  const last = points.at(-1);
-  const before = points.at(-2);
-  if (!last || !before) return 'Not enough points to tell whether more text would help.';
-  const gain = before.bpcIdeal - last.bpcIdeal;
-  const span = `from ${Math.round(before.fraction * 100)}% to ${Math.round(last.fraction * 100)}% of the text`;
-  if (gain >= 0.02) {
-    return `More text still helps: going ${span} lowered bits per character by ${gain.toFixed(2)}. Collecting more writing is likely to improve the profile.`;
-  }
-  const change =
-    gain >= 0
-      ? `lowered bits per character by only ${gain.toFixed(2)}`
-      : `raised bits per character by ${(-gain).toFixed(2)}`;
-  return `More text has stopped helping much: going ${span} ${change}. More writing of the same kind will add little.`;
-};
-
 /** A learning-curve point as the spread sentence reads it (spread absent in reports measured on one fold). */
 export type CurvePointSpread = {
   fraction: number;
@@ -77,14 +57,40 @@ export const learningCurveSpreadNote = (points: readonly CurvePointSpread[]): st
   if (folds < 2 || !last.spread) {
     return 'Measured on one fold only, so the spread between folds is not known: small changes between points may be chance.';
   }
-  const end = last.spread;
-  const within = points
-    .slice(0, -1)
-    .find((point) => point.spread && point.spread.bpcMin <= end.bpcMax && end.bpcMin <= point.spread.bpcMax);
+  const within = points.slice(0, -1).find((point) => overlaps(point, last));
   if (within) {
-    return `The change from ${sharePercent(within.fraction)} to ${sharePercent(last.fraction)} is within the spread between folds: more writing may not help yet.`;
+    return `The change from ${sharePercent(within.fraction)} to ${sharePercent(last.fraction)} is within the spread between folds, so it may be chance.`;
   }
   return `Each share of the text differs from ${sharePercent(last.fraction)} by more than the spread between the ${folds} folds measured, so the curve's shape is not chance.`;
+};
+
+/** Whether two points' ranges of bits per character over the folds overlap (both need a spread). */
+const overlaps = (a: CurvePointSpread, b: CurvePointSpread): boolean =>
+  Boolean(a.spread && b.spread && a.spread.bpcMin <= b.spread.bpcMax && b.spread.bpcMin <= a.spread.bpcMax);
+
+/**
+ * The learning curve in one sentence: whether the last step (from half the text to all of it)
+ * still lowered bits per character by at least 0.02 (a judgement threshold: common practice, no
+ * source) — and, where the folds' spread is known, whether that step is larger than the spread, so
+ * it never claims a gain the spread sentence calls chance.
+ */
+export const learningCurveVerdict = (points: readonly CurvePointSpread[]): string => {
+  const last = points.at(-1);
+  const before = points.at(-2);
+  if (!last || !before) return 'Not enough points to tell whether more text would help.';
+  const gain = before.bpcIdeal - last.bpcIdeal;
+  const span = `from ${sharePercent(before.fraction)} to ${sharePercent(last.fraction)} of the text`;
+  if (gain >= 0.02 && overlaps(before, last)) {
+    return `More text may still help: going ${span} lowered bits per character by ${gain.toFixed(2)}, but by less than the spread between folds, so this could be chance. Collect more writing and train again to be sure.`;
+  }
+  if (gain >= 0.02) {
+    return `More text still helps: going ${span} lowered bits per character by ${gain.toFixed(2)}. Collecting more writing is likely to improve the profile.`;
+  }
+  const change =
+    gain >= 0
+      ? `lowered bits per character by only ${gain.toFixed(2)}`
+      : `raised bits per character by ${(-gain).toFixed(2)}`;
+  return `More text has stopped helping much: going ${span} ${change}. More writing of the same kind will add little.`;
 };
 
 /** One line of a chart by list size: a version, or the base model alone. */
@@ -105,7 +111,8 @@ export const slotSeries = (report: ProfileReportView, name = 'This version') => 
 
 /**
  * What the suggestion list offers, in plain words: whether it offers only whole words (and how that
- * was checked), and how it ranks them. Reports made before the word list say so.
+ * was checked). Reports made before the word list say so. How it weighs its sources is an engine
+ * detail (`mixtureDescription`).
  */
 export const listDescription = (report: ProfileReportView): string[] => {
   const lines: string[] = [];
@@ -117,17 +124,6 @@ export const listDescription = (report: ProfileReportView): string[] => {
     lines.push(
       "The list offers whole words only: the client's own words, a general English vocabulary, and words the client finishes while typing.",
     );
-    const w = report.wordWeights;
-    if (w) {
-      const parts = [
-        `the client's own writing ${percent(w.personal, 0)}`,
-        `general English ${percent(w.base + w.lexicon, 0)}`,
-        `words used in the last few hundred ${percent(w.cache, 0)}`,
-      ];
-      lines.push(
-        `It ranks words by the two words before them and by spelling, weighing ${parts.join(', ')}.`,
-      );
-    }
   }
   const n = report.nonWordSlots;
   if (n && n.slots > 0) {
@@ -141,6 +137,18 @@ export const listDescription = (report: ProfileReportView): string[] => {
     );
   }
   return lines;
+};
+
+/** How the word list weighs its sources, in one line; null for the character-only list. */
+export const mixtureDescription = (report: ProfileReportView): string | null => {
+  const w = report.wordWeights;
+  if (report.predictor !== 'word' || !w) return null;
+  const parts = [
+    `the client's own writing ${percent(w.personal, 0)}`,
+    `general English ${percent(w.base + w.lexicon, 0)}`,
+    `words used in the last few hundred ${percent(w.cache, 0)}`,
+  ];
+  return `It ranks words by the two words before them and by spelling, weighing ${parts.join(', ')}.`;
 };
 
 /** Shown instead of the scan figures for a version trained before they were measured per layout. */

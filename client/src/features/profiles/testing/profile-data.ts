@@ -40,6 +40,10 @@ export const reportFixture = (overrides: Record<string, unknown> = {}): Record<s
   keystrokeSavings: perSlot([0.214, 0.281, 0.322, 0.349, 0.367, 0.381, 0.392, 0.4, 0.407, 0.413]),
   kspc: perSlot([0.812, 0.744, 0.702, 0.675, 0.657, 0.643, 0.632, 0.624, 0.617, 0.611]),
   oracleSavings: 0.78,
+  ksWords: 4836,
+  hitRate: perSlot([0.41, 0.52, 0.58, 0.62, 0.65, 0.67, 0.69, 0.7, 0.71, 0.72]),
+  // KSPC × characters ÷ words: the same keystrokes counted per word.
+  selectionsPerWord: perSlot([4.06, 3.72, 3.51, 3.375, 3.285, 3.215, 3.16, 3.12, 3.085, 3.055]),
   ksSampleChars: 10_000,
   ksChars: 24_180,
   ksNote: 'Typed every held-out character.',
@@ -77,6 +81,7 @@ export const reportFixture = (overrides: Record<string, unknown> = {}): Record<s
     bpcIdeal: 2.98,
     keystrokeSavings: perSlot([0.15, 0.2, 0.234, 0.256, 0.271, 0.283, 0.292, 0.299, 0.305, 0.31]),
     kspc: perSlot([0.871, 0.821, 0.788, 0.766, 0.751, 0.739, 0.73, 0.723, 0.717, 0.712]),
+    hitRate: perSlot([0.3, 0.4, 0.46, 0.5, 0.53, 0.55, 0.57, 0.58, 0.59, 0.6]),
   },
   earlyWords: [
     { word: 'Pepper', count: 14 },
