@@ -53,6 +53,14 @@ describe('Version queues', () => {
       `/clients/${ASHBY_ID}/profiles/${VERSION_2_ID}`,
     );
     expect(table.queryByRole('link', { name: 'Version 1 of R. Ashby' })).not.toBeInTheDocument();
+    // The clinic's figures: keystroke savings and hit rate, not bits per character.
+    expect(table.getAllByRole('columnheader').map((header) => header.textContent)).toEqual([
+      'Client',
+      'Version',
+      'Waiting since',
+      'Keystroke savings',
+      'Hit rate',
+    ]);
   });
 
   it('lists the versions waiting for the carer’s sign-off under their clients', async () => {

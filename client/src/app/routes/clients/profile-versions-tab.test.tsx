@@ -54,9 +54,10 @@ describe('Profile versions tab', () => {
     expect(rows[0]).toHaveTextContent('Version 2');
     expect(rows[0]).toHaveTextContent('Training');
     expect(rows[1]).toHaveTextContent('Ready for trial');
-    // bpcIdeal 2.412 and KS 0.367 at 5 slots in the fixture.
-    expect(rows[1]).toHaveTextContent('2.412');
+    // KS 0.367 and hit rate 0.65 at 5 slots in the fixture; bits per character are not listed.
     expect(rows[1]).toHaveTextContent('36.7% at 5 slots');
+    expect(rows[1]).toHaveTextContent('65%');
+    expect(rows[1]).not.toHaveTextContent('2.412');
     expect(table.getByRole('link', { name: 'Version 1' })).toHaveAttribute(
       'href',
       `/clients/${ASHBY_ID}/profiles/${VERSION_1_ID}`,

@@ -16,7 +16,7 @@ import {
 import { keyboardPath, profileVersionPath } from '@/config/paths';
 import { formatDateTime } from '@/lib/format';
 import { useProfileQueue } from '../api/get-review-queue';
-import { atSlots, fixed, percent, readReport } from '../lib/profile-report';
+import { atSlots, hitRateText, percent, readReport } from '../lib/profile-report';
 
 type ProfileQueueProps = {
   clients: readonly Pick<ClientSummary, 'id' | 'pseudonym'>[];
@@ -64,8 +64,8 @@ export const ProfileQueue = ({ clients, status, caption, emptyTitle, emptyText }
           </>
         ) : (
           <>
-            <ColumnHeader>Bits per character</ColumnHeader>
             <ColumnHeader>Keystroke savings</ColumnHeader>
+            <ColumnHeader>Hit rate</ColumnHeader>
           </>
         )}
       </TableHead>
@@ -100,11 +100,13 @@ export const ProfileQueue = ({ clients, status, caption, emptyTitle, emptyText }
                 </>
               ) : (
                 <>
-                  <TableCell label="Bits per character">{report ? fixed(report.bpcIdeal, 3) : '—'}</TableCell>
                   <TableCell label="Keystroke savings">
                     {report
                       ? `${percent(atSlots(report.keystrokeSavings, version.settings.slots))} at ${version.settings.slots} slots`
                       : '—'}
+                  </TableCell>
+                  <TableCell label="Hit rate">
+                    {report ? hitRateText(report, version.settings.slots) : '—'}
                   </TableCell>
                 </>
               )}

@@ -25,7 +25,7 @@ import { type AccessDefaults, NewVersionForm, type TrainableSample } from './new
 // A base-only version has no writing of the client's held out to measure it on.
 const NOT_MEASURED = 'Not measured (trial only)';
 import { ProfileStatusBadge } from './profile-status-badge';
-import { atSlots, fixed, percent, readReport } from '../lib/profile-report';
+import { atSlots, hitRateText, percent, readReport } from '../lib/profile-report';
 
 type ProfilesPanelProps = {
   clientId: string;
@@ -77,15 +77,15 @@ const VersionRow = ({
         <ProfileStatusBadge status={version.status} />
       </TableCell>
       <TableCell label="Created">{formatDateTime(version.createdAt)}</TableCell>
-      <TableCell label="Bits per character">
-        {report ? fixed(report.bpcIdeal, 3) : version.baseOnly ? NOT_MEASURED : '—'}
-      </TableCell>
       <TableCell label="Keystroke savings">
         {report
           ? `${percent(atSlots(report.keystrokeSavings, slots))} at ${slots} slots`
           : version.baseOnly
             ? NOT_MEASURED
             : '—'}
+      </TableCell>
+      <TableCell label="Hit rate">
+        {report ? hitRateText(report, slots) : version.baseOnly ? NOT_MEASURED : '—'}
       </TableCell>
     </TableRow>
   );
@@ -244,8 +244,8 @@ export const ProfilesPanel = ({
               <ColumnHeader>Version</ColumnHeader>
               <ColumnHeader>Status</ColumnHeader>
               <ColumnHeader>Created</ColumnHeader>
-              <ColumnHeader>Bits per character</ColumnHeader>
               <ColumnHeader>Keystroke savings</ColumnHeader>
+              <ColumnHeader>Hit rate</ColumnHeader>
             </TableHead>
             <TableBody>
               {versions.data.map((version) => (

@@ -32,6 +32,10 @@ export const percent = (fraction: number | null, digits = 1): string =>
 export const fixed = (value: number | null, digits = 2): string =>
   value === null ? '—' : value.toFixed(digits);
 
+/** The hit rate at `slots` as "65%", or "Not measured" for a report made before it was measured. */
+export const hitRateText = (report: ProfileReportView, slots: number): string =>
+  report.hitRate ? percent(atSlots(report.hitRate, slots), 0) : 'Not measured';
+
 /** "12,345" for counts. */
 export const count = (value: number): string => value.toLocaleString('en-GB');
 
