@@ -505,6 +505,13 @@ describe('profile versions (HTTP)', () => {
       });
       expect(await auditCount('profile.retire', first.id)).toBe(1);
       expect(await auditCount('profile.approve', second.id)).toBe(1);
+      // The log names both versions.
+      const approval = (
+        await get(cast.supervisor, `/api/audit?action=profile.approve&clientId=${clientId}`).expect(200)
+      ).body.items[0] as { sentence: string };
+      expect(approval.sentence).toMatch(
+        new RegExp(`approved version ${second.number} of .*’s profile, retiring version ${active.number}$`),
+      );
       const list = (await get(cast.owner, `/api/clients/${clientId}/profile-versions`).expect(200))
         .body as Version[];
       expect(list.filter((x) => x.status === 'active').map((x) => x.id)).toEqual([second.id]);

@@ -84,6 +84,23 @@ describe(auditSentence.name, () => {
     expect(approve(SAM)).toBe('Imogen Hale approved a profile version of R. Ashby, retiring the one before');
   });
 
+  it('names the versions approved, retired, signed off and sent back where the event stored their numbers', () => {
+    const say = (action: string, details: Record<string, unknown>) =>
+      auditSentence(event({ action, clientPseudonym: 'R. Ashby', details }));
+    expect(say('profile.approve', { status: 'active', number: 3, retired: SAM, retiredNumber: 2 })).toBe(
+      'Imogen Hale approved version 3 of R. Ashby’s profile, retiring version 2',
+    );
+    expect(say('profile.approve', { status: 'active', number: 1, retired: null, retiredNumber: null })).toBe(
+      'Imogen Hale approved version 1 of R. Ashby’s profile',
+    );
+    expect(say('profile.sign-off', { status: 'signed_off', number: 3 })).toBe(
+      'Imogen Hale signed off version 3 of R. Ashby’s profile after a trial',
+    );
+    expect(say('profile.send-back', { status: 'sent_back', number: 3 })).toBe(
+      'Imogen Hale sent version 3 of R. Ashby’s profile back for changes',
+    );
+  });
+
   it('gives the number of a retired version', () => {
     const sentence = auditSentence(
       event({ action: 'profile.retire', clientPseudonym: 'R. Ashby', details: { number: 3 } }),

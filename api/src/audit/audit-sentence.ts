@@ -84,8 +84,24 @@ export function auditSentence(event: SentenceInput): string {
       return `${who} voided a consent record of ${client ?? 'a client'} made in error`;
     case 'consent.withdraw':
       return `${who} recorded that ${client ?? 'a client'} withdrew consent`;
-    case 'profile.approve':
-      return `${who} approved a profile version of ${client ?? 'a client'}${d.retired ? ', retiring the one before' : ''}`;
+    case 'profile.approve': {
+      // Events logged before the numbers were stored name no version.
+      const retiring =
+        typeof d.retiredNumber === 'number'
+          ? `, retiring version ${d.retiredNumber}`
+          : d.retired
+            ? ', retiring the one before'
+            : '';
+      if (typeof d.number !== 'number')
+        return `${who} approved a profile version of ${client ?? 'a client'}${retiring}`;
+      return `${who} approved ${version} of ${possessive(client ?? 'a client')} profile${retiring}`;
+    }
+    case 'profile.sign-off':
+      return `${who} signed off ${version} of ${possessive(client ?? 'a client')} profile after a trial`;
+    case 'profile.send-back':
+      return `${who} sent ${version} of ${possessive(client ?? 'a client')} profile back for changes`;
+    case 'profile.report-problem':
+      return `${who} reported a problem with ${version} of ${possessive(client ?? 'a client')} profile after a trial`;
     case 'profile.retire':
       return `${who} retired ${version} of ${possessive(client ?? 'a client')} profile`;
     case 'summary.send':

@@ -636,7 +636,7 @@ export class ProfileVersionsService implements OnModuleInit {
         'profile.sign-off',
         { type: 'profile-version', id, clientId },
         // The comment stays with the version (its history), not in the log.
-        { status: 'signed_off' },
+        { status: 'signed_off', number: version.number },
         manager,
       );
       return this.dto(manager, id);
@@ -663,7 +663,7 @@ export class ProfileVersionsService implements OnModuleInit {
       await this.markSentBack(
         manager,
         actor,
-        { id, clientId },
+        { id, clientId, number: version.number },
         input.reason,
         comment,
         'profile.report-problem',
@@ -676,7 +676,7 @@ export class ProfileVersionsService implements OnModuleInit {
   private async markSentBack(
     manager: EntityManager,
     actor: Actor,
-    version: { id: string; clientId: string },
+    version: { id: string; clientId: string; number: number },
     reason: string,
     comment: string,
     action: 'profile.send-back' | 'profile.report-problem',
@@ -692,7 +692,7 @@ export class ProfileVersionsService implements OnModuleInit {
       action,
       { type: 'profile-version', id: version.id, clientId: version.clientId },
       // The reason and comment stay with the version (its history), not in the log.
-      { status: 'sent_back' },
+      { status: 'sent_back', number: version.number },
       manager,
     );
   }
@@ -744,7 +744,12 @@ export class ProfileVersionsService implements OnModuleInit {
         actor,
         'profile.approve',
         { type: 'profile-version', id, clientId },
-        { status: 'active', retired: previous?.id ?? null },
+        {
+          status: 'active',
+          number: version.number,
+          retired: previous?.id ?? null,
+          retiredNumber: previous?.number ?? null,
+        },
         manager,
       );
       return this.dto(manager, id);
@@ -766,7 +771,7 @@ export class ProfileVersionsService implements OnModuleInit {
       await this.markSentBack(
         manager,
         actor,
-        { id, clientId },
+        { id, clientId, number: version.number },
         input.reason,
         input.reason,
         'profile.send-back',

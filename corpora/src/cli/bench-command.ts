@@ -367,6 +367,9 @@ async function measureProfile(
   peakRssMbSoFar: number;
   bpcIdeal: number;
   keystrokeSavings5: number;
+  /** Share of words offered before their last letter, and selections per word, at 5 slots. */
+  hitRate5: number;
+  selectionsPerWord5: number;
   nonWordShare: number;
   scanStepsByLayout: ScanStepsByLayout;
   charList: { keystrokeSavings5: number; nonWordShare: number; seconds: number };
@@ -421,6 +424,8 @@ async function measureProfile(
     peakRssMbSoFar: mb(process.resourceUsage().maxRSS * 1024),
     bpcIdeal: report.bpcIdeal,
     keystrokeSavings5: report.keystrokeSavings['5'],
+    hitRate5: report.hitRate['5'],
+    selectionsPerWord5: report.selectionsPerWord['5'],
     nonWordShare: report.nonWordSlots.share,
     scanStepsByLayout: report.scanStepsByLayout,
     charList: {
