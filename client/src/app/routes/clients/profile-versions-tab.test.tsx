@@ -40,6 +40,34 @@ const openTab = async (routes: MockRoutes = {}, role: 'clinician' | 'supervisor'
 };
 
 describe('Profile versions tab', () => {
+  it('shows a carer each version with what to try, no measures and no comparing', async () => {
+    await openTab(
+      {
+        [`GET ${base}/profile-versions`]: {
+          body: [
+            profileVersion({ id: VERSION_2_ID, number: 2, status: 'training', progress: 0.4, metrics: null }),
+            profileVersion(),
+          ],
+        },
+      },
+      'carer',
+    );
+    const table = within(await screen.findByRole('table', { name: 'Profile versions of R. Ashby' }));
+    expect(table.getAllByRole('columnheader').map((header) => header.textContent)).toEqual([
+      'Version',
+      'Status',
+      'Created',
+      'What to try',
+    ]);
+    expect(table.getByRole('link', { name: 'Try version 1 on the test keyboard' })).toHaveAttribute(
+      'href',
+      expect.stringContaining(VERSION_1_ID),
+    );
+    expect(table.getAllByRole('row')[1]).toHaveTextContent('Nothing to try now');
+    expect(screen.queryByRole('button', { name: /^Compare/ })).not.toBeInTheDocument();
+    expect(screen.queryByText(/36\.7%|Keystroke savings/)).not.toBeInTheDocument();
+  });
+
   it('lists versions with status and headline figures at their slots', async () => {
     await openTab({
       [`GET ${base}/profile-versions`]: {

@@ -16,7 +16,8 @@ import {
   TableHead,
   TableRow,
 } from '@/components/ui/table';
-import { profileComparePath, profileVersionPath } from '@/config/paths';
+import { keyboardPath, profileComparePath, profileVersionPath } from '@/config/paths';
+import { takesTrials } from '@/features/keyboard/logic/keyboard-versions';
 import { formatDateTime } from '@/lib/format';
 import { useProfileVersions } from '../api/get-profile-versions';
 import { BaseOnlyBadge } from './base-only-badge';
@@ -42,26 +43,31 @@ const VersionRow = ({
   version,
   selected,
   onToggle,
+  carer,
 }: {
   clientId: string;
   version: ProfileVersion;
   selected: boolean;
   onToggle: () => void;
+  /** A carer's row: what to try instead of the measures, and no comparing. */
+  carer: boolean;
 }) => {
   const report = readReport(version.metrics);
   const slots = version.settings.slots;
   return (
     <TableRow>
-      <TableCell label="Compare">
-        <input
-          type="checkbox"
-          className="size-6 accent-ink"
-          checked={selected}
-          disabled={!report}
-          onChange={onToggle}
-          aria-label={`Compare version ${version.number}`}
-        />
-      </TableCell>
+      {!carer && (
+        <TableCell label="Compare">
+          <input
+            type="checkbox"
+            className="size-6 accent-ink"
+            checked={selected}
+            disabled={!report}
+            onChange={onToggle}
+            aria-label={`Compare version ${version.number}`}
+          />
+        </TableCell>
+      )}
       <RowHeader label="Version">
         <Link to={profileVersionPath(clientId, version.id)} className="font-bold underline">
           Version {version.number}
@@ -77,16 +83,30 @@ const VersionRow = ({
         <ProfileStatusBadge status={version.status} />
       </TableCell>
       <TableCell label="Created">{formatDateTime(version.createdAt)}</TableCell>
-      <TableCell label="Keystroke savings">
-        {report
-          ? `${percent(atSlots(report.keystrokeSavings, slots))} at ${slots} slots`
-          : version.baseOnly
-            ? NOT_MEASURED
-            : '—'}
-      </TableCell>
-      <TableCell label="Hit rate">
-        {report ? hitRateText(report, slots) : version.baseOnly ? NOT_MEASURED : '—'}
-      </TableCell>
+      {carer ? (
+        <TableCell label="What to try">
+          {takesTrials(version) ? (
+            <Link to={keyboardPath(clientId, version.id)} className="font-bold underline">
+              Try version {version.number} on the test keyboard
+            </Link>
+          ) : (
+            'Nothing to try now'
+          )}
+        </TableCell>
+      ) : (
+        <>
+          <TableCell label="Keystroke savings">
+            {report
+              ? `${percent(atSlots(report.keystrokeSavings, slots))} at ${slots} slots`
+              : version.baseOnly
+                ? NOT_MEASURED
+                : '—'}
+          </TableCell>
+          <TableCell label="Hit rate">
+            {report ? hitRateText(report, slots) : version.baseOnly ? NOT_MEASURED : '—'}
+          </TableCell>
+        </>
+      )}
     </TableRow>
   );
 };
@@ -227,25 +247,35 @@ export const ProfilesPanel = ({
             >
               Versions
             </h3>
-            <Button
-              disabled={chosen.length < 2}
-              aria-describedby="compare-hint"
-              onClick={() => void navigate(profileComparePath(clientId, chosen))}
-            >
-              Compare {chosen.length >= 2 ? `${chosen.length} versions` : 'selected'}
-            </Button>
+            {role !== 'carer' && (
+              <Button
+                disabled={chosen.length < 2}
+                aria-describedby="compare-hint"
+                onClick={() => void navigate(profileComparePath(clientId, chosen))}
+              >
+                Compare {chosen.length >= 2 ? `${chosen.length} versions` : 'selected'}
+              </Button>
+            )}
           </div>
-          <p id="compare-hint" className="text-ink-soft">
-            Tick two or more trained versions to compare them side by side.
-          </p>
+          {role !== 'carer' && (
+            <p id="compare-hint" className="text-ink-soft">
+              Tick two or more trained versions to compare them side by side.
+            </p>
+          )}
           <Table caption={`Profile versions of ${pseudonym}`}>
             <TableHead>
-              <ColumnHeader>Compare</ColumnHeader>
+              {role !== 'carer' && <ColumnHeader>Compare</ColumnHeader>}
               <ColumnHeader>Version</ColumnHeader>
               <ColumnHeader>Status</ColumnHeader>
               <ColumnHeader>Created</ColumnHeader>
-              <ColumnHeader>Keystroke savings</ColumnHeader>
-              <ColumnHeader>Hit rate</ColumnHeader>
+              {role === 'carer' ? (
+                <ColumnHeader>What to try</ColumnHeader>
+              ) : (
+                <>
+                  <ColumnHeader>Keystroke savings</ColumnHeader>
+                  <ColumnHeader>Hit rate</ColumnHeader>
+                </>
+              )}
             </TableHead>
             <TableBody>
               {versions.data.map((version) => (
@@ -255,6 +285,7 @@ export const ProfilesPanel = ({
                   version={version}
                   selected={chosen.includes(version.id)}
                   onToggle={() => toggle(version.id)}
+                  carer={role === 'carer'}
                 />
               ))}
             </TableBody>
