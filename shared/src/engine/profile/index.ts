@@ -36,7 +36,7 @@ export {
 export type { RateReport } from './profile-rates';
 export { planFolds, contiguousParts, keystrokeSample, joinTexts } from './profile-folds';
 export type { FoldPlan, ProfileFold, PreparedDocument } from './profile-folds';
-export { EARLY_LETTERS } from './early-words';
+export { EARLY_LETTERS, EARLY_MIN_LETTERS, isListableEarlyWord } from './early-words';
 export type { EarlyWord } from './early-words';
 export {
   writeProfileFile,

@@ -8,7 +8,7 @@ import {
   TableHead,
   TableRow,
 } from '@/components/ui/table';
-import { versionFigures, rateChangeSentence } from '@keyloom/shared';
+import { isListableEarlyWord, rateChangeSentence, versionFigures } from '@keyloom/shared';
 import { Alert } from '@/components/ui/alert';
 import { EngineDetails } from '@/components/ui/engine-details';
 import {
@@ -49,6 +49,8 @@ export const VersionResults = ({ report }: { report: ProfileReportView }) => {
       ? `Measured with part of the training text on ${curveFolds} folds (means, and lowest to highest fold)`
       : 'Measured with part of the training text (first fold)';
   const scanRows = scanStepsByLayout(report);
+  // Reports made before numbers and short words were left out still hold them: filtered here too.
+  const earlyWords = report.earlyWords?.filter((item) => isListableEarlyWord(item.word)) ?? null;
   return (
     <div className="flex flex-col gap-10">
       <p className="max-w-3xl text-lg">
@@ -193,7 +195,7 @@ export const VersionResults = ({ report }: { report: ProfileReportView }) => {
       )}
 
       <Section id="early-heading" title="Words it now offers early">
-        {report.earlyWords && report.earlyWords.length > 0 ? (
+        {earlyWords && earlyWords.length > 0 ? (
           <>
             <p className="max-w-3xl">
               Words this version offered before their second letter where the general English model alone did
@@ -201,7 +203,7 @@ export const VersionResults = ({ report }: { report: ProfileReportView }) => {
               three letters are left out.
             </p>
             <ul aria-label="Words offered early" className="flex flex-wrap gap-2">
-              {report.earlyWords.map((item) => (
+              {earlyWords.map((item) => (
                 <li key={item.word} className="rounded-full border-2 border-thread bg-surface px-3 py-1">
                   {item.word} <span className="text-ink-soft">× {item.count}</span>
                 </li>

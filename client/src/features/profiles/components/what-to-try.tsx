@@ -1,3 +1,4 @@
+import { isListableEarlyWord } from '@keyloom/shared';
 import type { ProfileReportView } from '../lib/profile-report';
 
 /** Early words a carer is pointed at: enough to build a few sentences, not a list to study. */
@@ -16,7 +17,11 @@ export const WhatToTry = ({
   versionNumber: number;
 }) => {
   const slots = report.rates.assumptions.slots;
-  const words = (report.earlyWords ?? []).slice(0, WORDS_TO_TRY).map((item) => item.word);
+  // Reports made before numbers and short words were left out still hold them: filtered here too.
+  const words = (report.earlyWords ?? [])
+    .map((item) => item.word)
+    .filter(isListableEarlyWord)
+    .slice(0, WORDS_TO_TRY);
   return (
     <section aria-labelledby="what-to-try-heading" className="flex max-w-3xl flex-col gap-4 text-lg">
       <h2 id="what-to-try-heading" className="text-3xl font-bold">

@@ -86,6 +86,9 @@ export const reportFixture = (overrides: Record<string, unknown> = {}): Record<s
   earlyWords: [
     { word: 'Pepper', count: 14 },
     { word: 'harbour', count: 9 },
+    // Stored by engines before numbers and short words were left out: the pages leave them out.
+    { word: '14', count: 5 },
+    { word: 'I', count: 4 },
   ],
   perFold: [],
   timings: { preparing: 3, training: 40, 'cross-validating': 900, simulating: 1800, saving: 2, total: 2745 },
