@@ -19,5 +19,9 @@ export const formatDate = (iso: string | null): string => {
   return Number.isNaN(date.getTime()) ? iso : day.format(date);
 };
 
+/** "1 Nov 2026 to 30 Nov 2026" from two calendar days; "…" stands for an open end, "—" when both are open. */
+export const formatDateRange = (from: string | null, to: string | null): string =>
+  from || to ? `${from ? formatDate(from) : '…'} to ${to ? formatDate(to) : '…'}` : '—';
+
 /** "6,467": a count with thousands separators. */
 export const formatCount = (value: number): string => value.toLocaleString('en-GB');

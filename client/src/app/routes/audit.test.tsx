@@ -40,6 +40,9 @@ describe('Audit log', () => {
     expect(table.getByText('Uploaded a language sample')).toBeInTheDocument();
     expect(table.getByText('Recorded a consent withdrawal')).toBeInTheDocument();
     expect(table.getByText('samplesDeleted: 3')).toBeInTheDocument();
+    // When: CLDR's en-GB medium date and short time, "d MMM y, HH:mm" (Unicode CLDR); tests run in UTC.
+    const when = table.getAllByRole('rowheader').map((cell) => cell.querySelector('time')?.textContent);
+    expect(when).toEqual(['15 Sept 2026, 08:00', '15 Sept 2026, 08:00']);
     expect(screen.getByText('Page 1 of 3')).toBeInTheDocument();
   });
 

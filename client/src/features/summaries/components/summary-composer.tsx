@@ -10,6 +10,7 @@ import {
 } from '@keyloom/shared';
 import { useId, useRef, useState } from 'react';
 import { Alert } from '@/components/ui/alert';
+import { formatDate } from '@/lib/format';
 import { Button } from '@/components/ui/button';
 import { FieldError } from '@/components/ui/field-message';
 import { Form, FormServerError } from '@/components/ui/form';
@@ -181,7 +182,7 @@ export const SummaryComposer = ({
                   name="versionIds"
                   label={`Version ${version.number}`}
                   detail={`${profileVersionStatusLabels[version.status]}${
-                    version.trainedAt ? `, trained ${version.trainedAt.slice(0, 10)}` : ''
+                    version.trainedAt ? `, trained ${formatDate(version.trainedAt)}` : ''
                   }`}
                   checked={versionIds.includes(version.id)}
                   onChange={(on) =>

@@ -13,7 +13,7 @@ import {
   TableHead,
   TableRow,
 } from '@/components/ui/table';
-import { formatDate, formatDateTime } from '@/lib/format';
+import { formatDateRange, formatDateTime } from '@/lib/format';
 import { useIdempotencyKey } from '../api/idempotency-key';
 import { useResendSummary } from '../api/resend-summary';
 import {
@@ -111,7 +111,7 @@ type SummaryCardProps = {
 const SummaryCard = ({ summary, versions, canSend, onResend, onOpenDraft }: SummaryCardProps) => {
   const id = useId();
   const rounds = Math.max(1, ...summary.recipients.map((r) => r.round));
-  const period = `${formatDate(summary.from)} to ${formatDate(summary.to)}`;
+  const period = formatDateRange(summary.from, summary.to);
   if (summary.status === 'draft') {
     return (
       <article
