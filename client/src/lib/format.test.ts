@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { formatDate, formatDateRange, formatDateTime } from './format';
+import { dateInputHint, formatDate, formatDateRange, formatDateTime } from './format';
 
 // Expected strings follow Unicode CLDR's en-GB medium patterns: date "d MMM y" (September is "Sept"),
 // date and time "d MMM y, HH:mm". Timestamps are read in the test machine's zone, UTC here.
@@ -22,5 +22,14 @@ describe('date formats', () => {
     expect(formatDateRange('2026-11-01', null)).toBe('1 Nov 2026 to …');
     expect(formatDateRange(null, '2026-11-30')).toBe('… to 30 Nov 2026');
     expect(formatDateRange(null, null)).toBe('—');
+  });
+});
+
+describe('date box hint', () => {
+  // CLDR short dates: en-GB "dd/MM/y", en-US "M/d/y" (Unicode CLDR); a date box shows its parts in
+  // that order (Chromium: dd/mm/yyyy in en-GB, mm/dd/yyyy in en-US).
+  it('names the parts in the order the reader’s date box shows them, with an example', () => {
+    expect(dateInputHint('en-GB')).toBe('Day, month, year, e.g. 14/09/2026');
+    expect(dateInputHint('en-US')).toBe('Month, day, year, e.g. 09/14/2026');
   });
 });

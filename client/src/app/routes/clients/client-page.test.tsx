@@ -176,7 +176,7 @@ describe('Client page', () => {
     const summary = await expectErrorSummary(screen.getByRole('dialog'), '3 fields need attention', [
       'Who gave consent: Say who gave consent.',
       'What the consent covers: Choose at least one thing the consent covers.',
-      'Date consent was given: Enter a date as YYYY-MM-DD.',
+      'Date consent was given: Enter a date with its day, month and year (YYYY-MM-DD).',
     ]);
     expect(form.getByText('Choose at least one thing the consent covers.')).toBeInTheDocument();
     await user.click(within(summary).getByRole('link', { name: /^Date consent was given/ }));

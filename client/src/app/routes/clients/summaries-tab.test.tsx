@@ -341,7 +341,10 @@ describe('Family updates tab', () => {
     await user.click(within(form).getByRole('button', { name: 'Preview the figures' }));
     const to = within(form).getByLabelText('To');
     await waitFor(() => expect(to).toHaveAttribute('aria-invalid', 'true'));
-    expect(to).toHaveAccessibleDescription('The period must end on or after its start.');
+    // The box's hint (the order of its parts; jsdom's language is en-US), then the error.
+    expect(to).toHaveAccessibleDescription(
+      'Month, day, year, e.g. 09/14/2026. The period must end on or after its start.',
+    );
     // A refused preview is listed at the top of the form like a refused submit, and focused.
     const refusedPreview = within(form).getByRole('group', { name: 'One field needs attention' });
     await waitFor(() => expect(refusedPreview).toHaveFocus());
