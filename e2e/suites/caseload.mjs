@@ -6,7 +6,7 @@ import { readdirSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 // The demo samples' folder, as the API's seed finds it (api/src/config/data-paths.ts).
 import { demoSamplesDir as demoDir } from '../../api/dist/config/data-paths.js';
-import { signIn, signOut } from './accounts.mjs';
+import { signedInAs, signIn, signOut } from './accounts.mjs';
 import { assertNoSidewaysScroll, focused, press } from './page-checks.mjs';
 
 // A phone number as the issue's detector looks for (loose: UK-style and +country forms).
@@ -39,10 +39,7 @@ const screenshotTo = (page, name) =>
 
 /** Signed in as the clinician, a new client created by keyboard alone; its consent tab open. */
 const newClientByKeyboard = async (t, name) => {
-  await t.context.clearCookies();
-  const page = await t.newPage();
-  await signIn(page, t.appUrl, 'clinician@willowmere.example');
-  await page.waitForURL((url) => url.pathname === '/caseload');
+  const page = await signedInAs(t, 'clinician@willowmere.example', '/caseload');
   await press(page.getByRole('button', { name: 'New client' }));
   const newClient = page.getByRole('dialog', { name: 'New client' });
   await newClient.getByLabel('Pseudonym').fill(name);

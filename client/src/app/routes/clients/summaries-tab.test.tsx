@@ -301,6 +301,10 @@ describe('Family updates tab', () => {
     });
     expect(status.textContent).toContain('The summary was sent: 1 e-mail queued.');
     expect(screen.queryByRole('form', { name: 'Edit the draft summary' })).not.toBeInTheDocument();
+    // Focus lands on the summary just sent, where its state is read.
+    await waitFor(() =>
+      expect(screen.getByRole('article', { name: '1 Oct 2026 to 30 Nov 2026' })).toHaveFocus(),
+    );
   });
 
   it('deletes a draft only after saying what goes, and nothing was sent', async () => {

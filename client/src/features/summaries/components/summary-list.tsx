@@ -22,6 +22,7 @@ import {
   recipientStateLabels,
   recipientStateTones,
 } from '../lib/summary-words';
+import { summaryCardId } from '../lib/focus-targets';
 
 const summaryTones: Record<SummaryStatus, BadgeTone> = {
   draft: 'warn',
@@ -115,6 +116,8 @@ const SummaryCard = ({ summary, versions, canSend, onResend, onOpenDraft }: Summ
   if (summary.status === 'draft') {
     return (
       <article
+        id={summaryCardId(summary.id)}
+        tabIndex={-1}
         aria-labelledby={`${id}-title`}
         className="flex flex-col gap-3 rounded-xl border-2 border-dashed border-thread bg-surface p-5"
       >
@@ -143,6 +146,8 @@ const SummaryCard = ({ summary, versions, canSend, onResend, onOpenDraft }: Summ
   }
   return (
     <article
+      id={summaryCardId(summary.id)}
+      tabIndex={-1}
       aria-labelledby={`${id}-title`}
       className="flex flex-col gap-4 rounded-xl border-2 border-thread bg-surface p-5"
     >
