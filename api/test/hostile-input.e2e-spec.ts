@@ -28,7 +28,7 @@ const MB = 1024 * 1024;
 const MEMORY_BOUND = 50 * MB;
 const NUL_MESSAGE = 'Contains a character that cannot be stored (NUL).';
 const SURROGATE_MESSAGE = 'Contains a broken character (unpaired surrogate).';
-const DATE_RANGE_MESSAGE = 'Enter a date between 1900-01-01 and 2100-12-31.';
+const DATE_RANGE_MESSAGE = 'Enter a date between 1 Jan 1900 and 31 Dec 2100.';
 
 // Invented for these tests.
 const TEXT =

@@ -25,6 +25,15 @@ export async function signOut(page, roleLabel) {
   await page.waitForURL(/\/sign-in/);
 }
 
+/** A fresh page and session signed in as `email`, on its home page `home`. */
+export async function signedInAs(t, email, home) {
+  await t.context.clearCookies();
+  const page = await t.newPage();
+  await signIn(page, t.appUrl, email);
+  await page.waitForURL((url) => url.pathname === home);
+  return page;
+}
+
 /**
  * A fresh page signed in as the demo clinician, on one tab of a client's page reached from the
  * caseload (as a clinician would go).
@@ -33,10 +42,7 @@ export async function signOut(page, roleLabel) {
  * @param tab the tab's name, e.g. "Profile versions"
  */
 export async function openClientTabAsClinician(t, clientName, tab) {
-  await t.context.clearCookies();
-  const page = await t.newPage();
-  await signIn(page, t.appUrl, 'clinician@willowmere.example');
-  await page.waitForURL((url) => url.pathname === '/caseload');
+  const page = await signedInAs(t, 'clinician@willowmere.example', '/caseload');
   await page.getByRole('link', { name: clientName, exact: true }).first().click();
   await page.getByRole('heading', { level: 1, name: clientName }).waitFor();
   await page.getByRole('tab', { name: tab }).click();

@@ -6,7 +6,7 @@ import { readdirSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 // The demo samples' folder, as the API's seed finds it (api/src/config/data-paths.ts).
 import { demoSamplesDir as demoDir } from '../../api/dist/config/data-paths.js';
-import { signIn, signOut } from './accounts.mjs';
+import { signedInAs, signIn, signOut } from './accounts.mjs';
 import { assertNoSidewaysScroll, focused, press } from './page-checks.mjs';
 
 // A phone number as the issue's detector looks for (loose: UK-style and +country forms).
@@ -39,10 +39,7 @@ const screenshotTo = (page, name) =>
 
 /** Signed in as the clinician, a new client created by keyboard alone; its consent tab open. */
 const newClientByKeyboard = async (t, name) => {
-  await t.context.clearCookies();
-  const page = await t.newPage();
-  await signIn(page, t.appUrl, 'clinician@willowmere.example');
-  await page.waitForURL((url) => url.pathname === '/caseload');
+  const page = await signedInAs(t, 'clinician@willowmere.example', '/caseload');
   await press(page.getByRole('button', { name: 'New client' }));
   const newClient = page.getByRole('dialog', { name: 'New client' });
   await newClient.getByLabel('Pseudonym').fill(name);
@@ -303,7 +300,7 @@ export const caseloadSuite = {
 
         // An empty submit is refused: focus lands on the list of what is missing.
         const recordButton = page.getByRole('button', { name: 'Record consent' });
-        const recordConsent = async (scopes, givenOn) => {
+        const recordConsent = async (scopes, givenOn, shownAs) => {
           await press(recordButton);
           const dialog = page.getByRole('dialog', { name: /Record consent/ });
           await press(dialog.getByLabel(/^The client, /), 'Space');
@@ -312,7 +309,7 @@ export const caseloadSuite = {
           await press(dialog.getByRole('button', { name: 'Record consent' }));
           await dialog.waitFor({ state: 'hidden' });
           // Focus goes to the heading of the list that now shows the record.
-          await page.getByRole('heading', { name: `Consent given on ${givenOn}` }).waitFor();
+          await page.getByRole('heading', { name: `Consent given on ${shownAs}` }).waitFor();
           assert.deepEqual(await focused(page), { tag: 'h3', name: 'Consent records' });
         };
         await press(recordButton);
@@ -326,12 +323,16 @@ export const caseloadSuite = {
         await page.keyboard.press('Escape');
         await empty.waitFor({ state: 'hidden' });
 
-        await recordConsent([/Training a personal model/, /Sending progress summaries/], '2026-09-01');
-        await recordConsent([/Training a personal model/], '2026-09-14');
+        await recordConsent(
+          [/Training a personal model/, /Sending progress summaries/],
+          '2026-09-01',
+          '1 Sept 2026',
+        );
+        await recordConsent([/Training a personal model/], '2026-09-14', '14 Sept 2026');
 
         // Void the second record: the first still covers training, so nothing is deleted.
         await press(
-          page.getByRole('button', { name: 'Void (recorded in error): consent given on 2026-09-14' }),
+          page.getByRole('button', { name: 'Void (recorded in error): consent given on 14 Sept 2026' }),
         );
         const voidDialog = page.getByRole('dialog', {
           name: `Void this consent record for ${correctedPseudonym}?`,
@@ -339,7 +340,7 @@ export const caseloadSuite = {
         await voidDialog.getByLabel('Why this record is wrong').waitFor();
         const voidWords = await voidDialog.textContent();
         assert.match(voidWords ?? '', /Nothing will be deleted/);
-        assert.match(voidWords ?? '', /the consent given on 2026-09-01 still covers training/i);
+        assert.match(voidWords ?? '', /the consent given on 1 Sept 2026 still covers training/i);
         assert.deepEqual(await t.seriousViolations(page, 'void dialog'), []);
         await screenshotTo(page, 'void-dialog');
         await voidDialog.getByLabel('Why this record is wrong').fill('Entered twice from the same form.');
@@ -351,7 +352,7 @@ export const caseloadSuite = {
         await screenshotTo(page, 'voided');
 
         // Withdraw the first: it is the only consent in force now.
-        await press(page.getByRole('button', { name: 'Withdraw consent given on 2026-09-01' }));
+        await press(page.getByRole('button', { name: 'Withdraw consent given on 1 Sept 2026' }));
         const withdrawDialog = page.getByRole('dialog', {
           name: `Withdraw consent for ${correctedPseudonym}?`,
         });

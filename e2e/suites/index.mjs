@@ -1,6 +1,7 @@
 // Every browser suite, in the order they run. Later issues add their suite here.
 import { caseloadSuite } from './caseload.mjs';
 import { dwellTargetsSuite } from './dwell-targets.mjs';
+import { focusWalkSuite } from './focus-walk.mjs';
 import { foundationSuite } from './foundation.mjs';
 import { keyboardSuite } from './keyboard.mjs';
 import { profilesSuite } from './profiles.mjs';
@@ -17,4 +18,5 @@ export const browserSuites = [
   trialViewSuite,
   summariesSuite,
   vocabularyKeyboardSuite,
+  focusWalkSuite,
 ];

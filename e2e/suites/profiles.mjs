@@ -3,7 +3,7 @@
 // supervisor approves it and it becomes the active profile. Axe scan (no serious or critical
 // violations) of each page on the way; screenshots in e2e/out.
 import assert from 'node:assert/strict';
-import { openClientTabAsClinician, signIn, signOut } from './accounts.mjs';
+import { openClientTabAsClinician, signedInAs, signOut } from './accounts.mjs';
 import { postTypedTrial } from './api-helpers.mjs';
 import { assertNoSidewaysScroll, focused, press } from './page-checks.mjs';
 
@@ -18,11 +18,7 @@ let versionNumber = null;
 /** A fresh page signed in as `email`, on its home page, once the first step trained a version. */
 const signedInAfterTraining = async (t, email, home) => {
   assert.ok(versionPath, 'the clinician step trained a version');
-  await t.context.clearCookies();
-  const page = await t.newPage();
-  await signIn(page, t.appUrl, email);
-  await page.waitForURL((url) => url.pathname === home);
-  return page;
+  return signedInAs(t, email, home);
 };
 
 export const profilesSuite = {

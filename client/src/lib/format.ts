@@ -19,5 +19,32 @@ export const formatDate = (iso: string | null): string => {
   return Number.isNaN(date.getTime()) ? iso : day.format(date);
 };
 
+/** "1 Nov 2026 to 30 Nov 2026" from two calendar days; "…" stands for an open end, "—" when both are open. */
+export const formatDateRange = (from: string | null, to: string | null): string =>
+  from || to ? `${from ? formatDate(from) : '…'} to ${to ? formatDate(to) : '…'}` : '—';
+
+const partWords: Partial<Record<Intl.DateTimeFormatPartTypes, string>> = {
+  day: 'day',
+  month: 'month',
+  year: 'year',
+};
+
+/**
+ * What a browser's date box asks for, in the order it shows the parts for the reader's language (a
+ * date box follows the browser's language, not the page's): "Day, month, year, e.g. 14/09/2026" in
+ * en-GB, "Month, day, year, e.g. 09/14/2026" in en-US.
+ */
+export const dateInputHint = (locale: string = globalThis.navigator?.language ?? 'en-GB'): string => {
+  const parts = new Intl.DateTimeFormat(locale, {
+    day: '2-digit',
+    month: '2-digit',
+    year: 'numeric',
+    timeZone: 'UTC',
+  }).formatToParts(new Date('2026-09-14'));
+  const named = parts.filter((part) => partWords[part.type]).map((part) => partWords[part.type]);
+  const words = named.join(', ');
+  return `${words.charAt(0).toUpperCase()}${words.slice(1)}, e.g. ${parts.map((part) => part.value).join('')}`;
+};
+
 /** "6,467": a count with thousands separators. */
 export const formatCount = (value: number): string => value.toLocaleString('en-GB');

@@ -90,8 +90,10 @@ export const optionalText = (max: number, tooLong: string, { multiline = true } 
 export const EARLIEST_DATE = '1900-01-01';
 export const LATEST_DATE = '2100-12-31';
 const DATE_SHAPE = /^(\d{4})-(\d{2})-(\d{2})$/;
-export const DATE_FORMAT_MESSAGE = 'Enter a date as YYYY-MM-DD.';
-export const DATE_RANGE_MESSAGE = `Enter a date between ${EARLIEST_DATE} and ${LATEST_DATE}.`;
+// The messages name the parts a person fills in (a date box asks for day, month and year) and the
+// text form a request carries; the range is written as the web app writes every day ("1 Jan 1900").
+export const DATE_FORMAT_MESSAGE = 'Enter a date with its day, month and year (YYYY-MM-DD).';
+export const DATE_RANGE_MESSAGE = 'Enter a date between 1 Jan 1900 and 31 Dec 2100.';
 
 /** True when "YYYY-MM-DD" names a day of the (proleptic Gregorian) calendar. */
 function isCalendarDay(year: number, month: number, day: number): boolean {
@@ -106,7 +108,8 @@ export function dateProblem(value: string): string | null {
   const match = DATE_SHAPE.exec(value);
   if (!match) return DATE_FORMAT_MESSAGE;
   const [year, month, day] = match.slice(1).map(Number);
-  if (!isCalendarDay(year, month, day)) return `${value} is not a day of the calendar.`;
+  if (!isCalendarDay(year, month, day))
+    return `${value} is not a day of the calendar: enter a day, month and year that exist (YYYY-MM-DD).`;
   // ISO dates compare correctly as strings.
   if (value < EARLIEST_DATE || value > LATEST_DATE) return DATE_RANGE_MESSAGE;
   return null;

@@ -8,8 +8,10 @@ import {
   createClientSchema,
   createConsentSchema,
   createUserSchema,
+  EARLIEST_DATE,
   isoDateField,
   isoDateTimeField,
+  LATEST_DATE,
   loginSchema,
   pageQuerySchema,
   PASTE_MAX_BYTES,
@@ -146,14 +148,18 @@ describe('isoDateField', () => {
 
   it('refuses year 0000, other shapes, days the calendar lacks and dates out of range', () => {
     const message = (value: unknown) => isoDateField.safeParse(value).error?.issues[0].message;
-    expect(message('0000-06-01')).toBe('Enter a date between 1900-01-01 and 2100-12-31.');
-    expect(message('1899-12-31')).toBe('Enter a date between 1900-01-01 and 2100-12-31.');
-    expect(message('2101-01-01')).toBe('Enter a date between 1900-01-01 and 2100-12-31.');
+    // The range's ends as the web app writes days: the en-GB medium date of the reference library Intl.
+    const day = new Intl.DateTimeFormat('en-GB', { dateStyle: 'medium', timeZone: 'UTC' });
+    const range = `Enter a date between ${day.format(new Date(EARLIEST_DATE))} and ${day.format(new Date(LATEST_DATE))}.`;
+    const noSuchDay = 'is not a day of the calendar: enter a day, month and year that exist (YYYY-MM-DD).';
+    expect(message('0000-06-01')).toBe(range);
+    expect(message('1899-12-31')).toBe(range);
+    expect(message('2101-01-01')).toBe(range);
     // 1900 and 2023 are not leap years (Gregorian rule: century years only when divisible by 400).
-    expect(message('1900-02-29')).toBe('1900-02-29 is not a day of the calendar.');
-    expect(message('2023-02-29')).toBe('2023-02-29 is not a day of the calendar.');
-    expect(message('2024-04-31')).toBe('2024-04-31 is not a day of the calendar.');
-    expect(message('2024-13-01')).toBe('2024-13-01 is not a day of the calendar.');
+    expect(message('1900-02-29')).toBe(`1900-02-29 ${noSuchDay}`);
+    expect(message('2023-02-29')).toBe(`2023-02-29 ${noSuchDay}`);
+    expect(message('2024-04-31')).toBe(`2024-04-31 ${noSuchDay}`);
+    expect(message('2024-13-01')).toBe(`2024-13-01 ${noSuchDay}`);
     for (const bad of [
       '2024-1-01',
       '20240101',
@@ -162,7 +168,7 @@ describe('isoDateField', () => {
       ['2024-01-01'],
       20240101,
     ])
-      expect(message(bad)).toBe('Enter a date as YYYY-MM-DD.');
+      expect(message(bad)).toBe('Enter a date with its day, month and year (YYYY-MM-DD).');
   });
 
   it('is the rule of every date field: consents, samples, summaries, audit filters, trial times', () => {

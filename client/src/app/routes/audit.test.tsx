@@ -40,6 +40,9 @@ describe('Audit log', () => {
     expect(table.getByText('Uploaded a language sample')).toBeInTheDocument();
     expect(table.getByText('Recorded a consent withdrawal')).toBeInTheDocument();
     expect(table.getByText('samplesDeleted: 3')).toBeInTheDocument();
+    // When: CLDR's en-GB medium date and short time, "d MMM y, HH:mm" (Unicode CLDR); tests run in UTC.
+    const when = table.getAllByRole('rowheader').map((cell) => cell.querySelector('time')?.textContent);
+    expect(when).toEqual(['15 Sept 2026, 08:00', '15 Sept 2026, 08:00']);
     expect(screen.getByText('Page 1 of 3')).toBeInTheDocument();
   });
 
@@ -54,6 +57,9 @@ describe('Audit log', () => {
     await user.selectOptions(form.getByLabelText('Client'), 'R. Ashby');
     await user.selectOptions(form.getByLabelText('Who'), 'Dr. Tomasz Reyes (clinician@willowmere.example)');
     await user.selectOptions(form.getByLabelText('Action'), 'All consent events');
+    // The date boxes say the order of their parts (jsdom's browser language is en-US: month first).
+    expect(form.getByLabelText('From')).toHaveAccessibleDescription('Month, day, year, e.g. 09/14/2026.');
+    expect(form.getByLabelText('To')).toHaveAccessibleDescription('Month, day, year, e.g. 09/14/2026.');
     await user.type(form.getByLabelText('From'), '2026-09-01');
     await user.type(form.getByLabelText('To'), '2026-09-30');
     await user.click(form.getByRole('button', { name: 'Show events' }));

@@ -266,7 +266,7 @@ describe('Staff page', () => {
     });
 
     await user.click(
-      rowOf('Priya Okonkwo').getByRole('button', { name: 'Set a new password for Priya Okonkwo' }),
+      rowOf('Priya Okonkwo').getByRole('button', { name: 'Set password for Priya Okonkwo' }),
     );
     const dialog = within(
       await screen.findByRole('dialog', { name: 'Set a new password for Priya Okonkwo' }),

@@ -57,7 +57,8 @@ describe('Client page', () => {
 
     await user.click(screen.getByRole('tab', { name: 'Consent & family' }));
     await waitFor(() => expect(currentUrl(router)).toBe(`/clients/${ASHBY_ID}/consent`));
-    expect(await screen.findByRole('heading', { name: 'Consent given on 2026-09-14' })).toBeInTheDocument();
+    // Days read as CLDR's en-GB medium date, pattern "d MMM y" with September as "Sept" (Unicode CLDR).
+    expect(await screen.findByRole('heading', { name: 'Consent given on 14 Sept 2026' })).toBeInTheDocument();
 
     await user.click(screen.getByRole('tab', { name: 'Profile versions' }));
     expect(await screen.findByRole('heading', { name: 'No profile versions yet.' })).toBeInTheDocument();
@@ -92,7 +93,7 @@ describe('Client page', () => {
 
   it('lets a supervisor read consent and samples with no buttons that would be refused', async () => {
     const { user } = await openClient('supervisor', 'consent');
-    expect(await screen.findByRole('heading', { name: 'Consent given on 2026-09-14' })).toBeInTheDocument();
+    expect(await screen.findByRole('heading', { name: 'Consent given on 14 Sept 2026' })).toBeInTheDocument();
     expect(screen.getByRole('rowheader', { name: /Hannah Ashby/ })).toBeInTheDocument();
     for (const name of [
       'Record consent',
@@ -157,7 +158,7 @@ describe('Client page', () => {
       expiresOn: null,
       notes: null,
     });
-    expect(screen.getByRole('status')).toHaveTextContent('Consent given on 2026-10-01 is recorded.');
+    expect(screen.getByRole('status')).toHaveTextContent('Consent given on 1 Oct 2026 is recorded.');
   });
 
   it('opens the consent dialog empty and refuses an empty submit, focus on the list of what is missing', async () => {
@@ -175,7 +176,7 @@ describe('Client page', () => {
     const summary = await expectErrorSummary(screen.getByRole('dialog'), '3 fields need attention', [
       'Who gave consent: Say who gave consent.',
       'What the consent covers: Choose at least one thing the consent covers.',
-      'Date consent was given: Enter a date as YYYY-MM-DD.',
+      'Date consent was given: Enter a date with its day, month and year (YYYY-MM-DD).',
     ]);
     expect(form.getByText('Choose at least one thing the consent covers.')).toBeInTheDocument();
     await user.click(within(summary).getByRole('link', { name: /^Date consent was given/ }));
@@ -228,7 +229,7 @@ describe('Client page', () => {
       },
       [`POST ${base}/consents/${withdrawn.id}/withdraw`]: { body: withdrawn },
     });
-    await user.click(await screen.findByRole('button', { name: 'Withdraw consent given on 2026-09-14' }));
+    await user.click(await screen.findByRole('button', { name: 'Withdraw consent given on 14 Sept 2026' }));
     const dialog = await screen.findByRole('dialog', { name: 'Withdraw consent for R. Ashby?' });
     await waitFor(() =>
       expect(dialog).toHaveAccessibleDescription(
@@ -284,11 +285,11 @@ describe('Client page', () => {
         },
       },
     });
-    await user.click(await screen.findByRole('button', { name: 'Withdraw consent given on 2026-10-01' }));
+    await user.click(await screen.findByRole('button', { name: 'Withdraw consent given on 1 Oct 2026' }));
     const dialog = await screen.findByRole('dialog', { name: 'Withdraw consent for R. Ashby?' });
     await waitFor(() =>
       expect(dialog).toHaveAccessibleDescription(
-        /Nothing will be deleted for R\. Ashby\. The consent given on 2026-09-14 still covers training a personal model on the client’s writing, so nothing it allows is deleted\./,
+        /Nothing will be deleted for R\. Ashby\. The consent given on 14 Sept 2026 still covers training a personal model on the client’s writing, so nothing it allows is deleted\./,
       ),
     );
     const form = within(dialog);
@@ -372,12 +373,12 @@ describe('Client page', () => {
       },
     });
     await user.click(
-      await screen.findByRole('button', { name: 'Void (recorded in error): consent given on 2026-09-14' }),
+      await screen.findByRole('button', { name: 'Void (recorded in error): consent given on 14 Sept 2026' }),
     );
     const dialog = await screen.findByRole('dialog', { name: 'Void this consent record for R. Ashby?' });
     await waitFor(() =>
       expect(dialog).toHaveAccessibleDescription(
-        /Nothing will be deleted for R\. Ashby\. The consent given on 2026-09-01 still covers training/,
+        /Nothing will be deleted for R\. Ashby\. The consent given on 1 Sept 2026 still covers training/,
       ),
     );
     const form = within(dialog);
@@ -396,8 +397,8 @@ describe('Client page', () => {
     // Focus goes to the records' heading (the button that opened the dialog is gone).
     await waitFor(() => expect(screen.getByRole('heading', { name: 'Consent records' })).toHaveFocus());
     expect(screen.getByRole('status')).toHaveTextContent('Consent record voided. Nothing was deleted.');
-    const record = screen.getByRole('article', { name: 'Consent given on 2026-09-14' });
-    expect(within(record).getByRole('heading', { name: 'Consent given on 2026-09-14' })).toHaveClass(
+    const record = screen.getByRole('article', { name: 'Consent given on 14 Sept 2026' });
+    expect(within(record).getByRole('heading', { name: 'Consent given on 14 Sept 2026' })).toHaveClass(
       'line-through',
     );
     expect(record).toHaveTextContent(/Voided on .* — Typed for the wrong client\./);

@@ -301,6 +301,10 @@ describe('Family updates tab', () => {
     });
     expect(status.textContent).toContain('The summary was sent: 1 e-mail queued.');
     expect(screen.queryByRole('form', { name: 'Edit the draft summary' })).not.toBeInTheDocument();
+    // Focus lands on the summary just sent, where its state is read.
+    await waitFor(() =>
+      expect(screen.getByRole('article', { name: '1 Oct 2026 to 30 Nov 2026' })).toHaveFocus(),
+    );
   });
 
   it('deletes a draft only after saying what goes, and nothing was sent', async () => {
@@ -341,7 +345,10 @@ describe('Family updates tab', () => {
     await user.click(within(form).getByRole('button', { name: 'Preview the figures' }));
     const to = within(form).getByLabelText('To');
     await waitFor(() => expect(to).toHaveAttribute('aria-invalid', 'true'));
-    expect(to).toHaveAccessibleDescription('The period must end on or after its start.');
+    // The box's hint (the order of its parts; jsdom's language is en-US), then the error.
+    expect(to).toHaveAccessibleDescription(
+      'Month, day, year, e.g. 09/14/2026. The period must end on or after its start.',
+    );
     // A refused preview is listed at the top of the form like a refused submit, and focused.
     const refusedPreview = within(form).getByRole('group', { name: 'One field needs attention' });
     await waitFor(() => expect(refusedPreview).toHaveFocus());

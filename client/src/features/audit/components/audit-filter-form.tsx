@@ -2,7 +2,7 @@ import { type AuditFilter, auditFilterSchema } from '@keyloom/shared';
 import { Button } from '@/components/ui/button';
 import { Form } from '@/components/ui/form';
 import { type SelectOption, SelectField } from '@/components/ui/select-field';
-import { TextField } from '@/components/ui/text-field';
+import { DateField } from '@/components/ui/date-field';
 import type { AuditFilters } from '../api/get-audit';
 import { auditActionOptions } from '../lib/audit-actions';
 
@@ -65,8 +65,8 @@ export const AuditFilterForm = ({ filters, clientOptions, userOptions, onApply }
               registration={register('action')}
               error={errors.action}
             />
-            <TextField label="From" type="date" registration={register('from')} error={errors.from} />
-            <TextField label="To" type="date" registration={register('to')} error={errors.to} />
+            <DateField label="From" registration={register('from')} error={errors.from} />
+            <DateField label="To" registration={register('to')} error={errors.to} />
           </div>
           <div className="flex flex-wrap gap-3">
             <Button type="submit" variant="primary">

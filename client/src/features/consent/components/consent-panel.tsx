@@ -1,6 +1,7 @@
 import type { Consent, Contact } from '@keyloom/shared';
 import { useEffect, useRef, useState } from 'react';
 import { PageLoading } from '@/components/layout/page-loading';
+import { formatDate } from '@/lib/format';
 import { Button } from '@/components/ui/button';
 import { EmptyState } from '@/components/ui/empty-state';
 import { LoadError } from '@/components/ui/load-error';
@@ -137,7 +138,7 @@ export const ConsentPanel = ({ clientId, pseudonym, canEdit, announce }: Consent
             onRecorded={(consent) => {
               setRecording(false);
               setFocusAfter('records');
-              announce('success', `Consent given on ${consent.givenOn} is recorded.`);
+              announce('success', `Consent given on ${formatDate(consent.givenOn)} is recorded.`);
             }}
           />
           <WithdrawConsentDialog
@@ -173,7 +174,7 @@ export const ConsentPanel = ({ clientId, pseudonym, canEdit, announce }: Consent
               setFocusAfter('contacts');
               announce(
                 'success',
-                `Summaries to ${contact.name} are on again (consent given on ${contact.summariesConsentGivenOn ?? ''}).`,
+                `Summaries to ${contact.name} are on again (consent given on ${formatDate(contact.summariesConsentGivenOn)}).`,
               );
             }}
           />

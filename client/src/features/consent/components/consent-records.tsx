@@ -5,7 +5,7 @@ import { Badge, type BadgeTone } from '@/components/ui/badge';
 import { Button } from '@/components/ui/button';
 import { env } from '@/config/env';
 import { cn } from '@/lib/cn';
-import { formatDateTime } from '@/lib/format';
+import { formatDate, formatDateTime } from '@/lib/format';
 import { consentDocumentPath, useUploadConsentDocument } from '../api/upload-consent-document';
 import { reportSentence } from '../lib/withdrawal-words';
 
@@ -100,11 +100,12 @@ export const ConsentRecords = ({
         const voided = consent.status === 'voided';
         // A voided record is struck through (and says so in words, for screen readers).
         const struck = voided ? 'line-through decoration-2' : undefined;
+        const givenOn = formatDate(consent.givenOn);
         return (
           <li key={consent.id} className="rounded-xl border-2 border-thread bg-surface p-4 sm:p-5">
-            <article aria-label={`Consent given on ${consent.givenOn}`} className="flex flex-col gap-3">
+            <article aria-label={`Consent given on ${givenOn}`} className="flex flex-col gap-3">
               <div className="flex flex-wrap items-center gap-3">
-                <h4 className={cn('text-lg font-bold', struck)}>Consent given on {consent.givenOn}</h4>
+                <h4 className={cn('text-lg font-bold', struck)}>Consent given on {givenOn}</h4>
                 <Badge tone={status.tone}>{status.label}</Badge>
               </div>
               {voided && (
@@ -124,7 +125,7 @@ export const ConsentRecords = ({
                   {consent.givenBy === 'client'
                     ? 'the client'
                     : `${consent.representativeName ?? 'a representative'} (${consent.representativeRelationship ?? 'representative'})`}
-                  ; {consent.expiresOn ? `expires on ${consent.expiresOn}` : 'no expiry date'}.
+                  ; {consent.expiresOn ? `expires on ${formatDate(consent.expiresOn)}` : 'no expiry date'}.
                 </p>
                 <div>
                   <p className="font-bold">Covers</p>
@@ -170,13 +171,13 @@ export const ConsentRecords = ({
                     <Button
                       variant="danger"
                       onClick={() => onWithdraw(consent)}
-                      aria-label={`Withdraw consent given on ${consent.givenOn}`}
+                      aria-label={`Withdraw consent given on ${givenOn}`}
                     >
                       Withdraw consent
                     </Button>
                     <Button
                       onClick={() => onVoid(consent)}
-                      aria-label={`Void (recorded in error): consent given on ${consent.givenOn}`}
+                      aria-label={`Void (recorded in error): consent given on ${givenOn}`}
                     >
                       Void (recorded in error)
                     </Button>

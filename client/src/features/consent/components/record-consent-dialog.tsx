@@ -4,6 +4,7 @@ import { Form, FormServerError } from '@/components/ui/form';
 import { FormActions } from '@/components/ui/form-actions';
 import { FieldError } from '@/components/ui/field-message';
 import { TextAreaField } from '@/components/ui/text-area-field';
+import { DateField } from '@/components/ui/date-field';
 import { TextField } from '@/components/ui/text-field';
 import { useCreateConsent } from '../api/create-consent';
 
@@ -124,16 +125,14 @@ export const RecordConsentDialog = ({
                     </label>
                   ))}
                 </fieldset>
-                <TextField
+                <DateField
                   label="Date consent was given"
-                  type="date"
                   hint="As written on the signed form; not after today."
                   registration={register('givenOn')}
                   error={errors.givenOn}
                 />
-                <TextField
+                <DateField
                   label="Expires on (optional)"
-                  type="date"
                   hint="Leave empty when the consent has no end date."
                   registration={register('expiresOn', { setValueAs: emptyToNull })}
                   error={errors.expiresOn}

@@ -2,6 +2,7 @@ import { type Contact, renewSummariesConsentSchema } from '@keyloom/shared';
 import { Modal } from '@/components/ui/dialog';
 import { Form, FormServerError } from '@/components/ui/form';
 import { FormActions } from '@/components/ui/form-actions';
+import { DateField } from '@/components/ui/date-field';
 import { TextField } from '@/components/ui/text-field';
 import { formatDateTime } from '@/lib/format';
 import { useRenewSummariesConsent } from '../api/renew-summaries-consent';
@@ -48,9 +49,8 @@ export const RenewSummariesDialog = ({
             <>
               <FormServerError message={formState.errors.root?.server?.message} />
               <div className="flex flex-col gap-5">
-                <TextField
+                <DateField
                   label="Date the family gave consent"
-                  type="date"
                   hint="Not after today."
                   registration={register('givenOn')}
                   error={formState.errors.givenOn}

@@ -7,6 +7,7 @@ import {
 } from '@keyloom/shared';
 import { Modal } from '@/components/ui/dialog';
 import { LoadError } from '@/components/ui/load-error';
+import { formatDate } from '@/lib/format';
 import { ReasonForm } from '@/components/ui/reason-form';
 import { useWithdrawalPreview } from '../api/get-withdrawal-preview';
 import { useVoidConsent } from '../api/void-consent';
@@ -56,10 +57,10 @@ const endingWords = {
 
 const lowerFirst = (text: string) => text.charAt(0).toLowerCase() + text.slice(1);
 
-/** "the consent given on 2026-09-14 (until 2027-09-13)", or "the consents given on … and …". */
+/** "the consent given on 14 Sept 2026 (until 13 Sept 2027)", or "the consents given on … and …". */
 const coveringConsents = (coveredBy: WithdrawalPreview['scopes'][number]['coveredBy']): string => {
   const one = (c: (typeof coveredBy)[number]) =>
-    `${c.givenOn}${c.expiresOn ? ` (until ${c.expiresOn})` : ''}`;
+    `${formatDate(c.givenOn)}${c.expiresOn ? ` (until ${formatDate(c.expiresOn)})` : ''}`;
   return coveredBy.length === 1
     ? `the consent given on ${one(coveredBy[0])}`
     : `the consents given on ${coveredBy.map(one).join(' and ')}`;

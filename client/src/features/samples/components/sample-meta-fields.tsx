@@ -1,7 +1,7 @@
 import type { FieldError, UseFormRegisterReturn } from 'react-hook-form';
 import { SelectField } from '@/components/ui/select-field';
 import { TextAreaField } from '@/components/ui/text-area-field';
-import { TextField } from '@/components/ui/text-field';
+import { DateField } from '@/components/ui/date-field';
 import { sourceKindOptions } from '../lib/source-kind-options';
 
 type MetaField = 'sourceKind' | 'periodStart' | 'periodEnd' | 'note';
@@ -37,15 +37,13 @@ export const SampleMetaFields = ({ register, errors }: SampleMetaFieldsProps) =>
         error={errors.sourceKind}
       />
       <div className="grid gap-5 sm:grid-cols-2">
-        <TextField
+        <DateField
           label="Written from (optional)"
-          type="date"
           registration={registrations.periodStart}
           error={errors.periodStart}
         />
-        <TextField
+        <DateField
           label="Written until (optional)"
-          type="date"
           registration={registrations.periodEnd}
           error={errors.periodEnd}
         />

@@ -11,12 +11,11 @@ import {
   TableRow,
 } from '@/components/ui/table';
 import { samplePath } from '@/config/paths';
-import { formatDateTime } from '@/lib/format';
+import { formatDateRange, formatDateTime } from '@/lib/format';
 import { sampleLinkId } from '../lib/focus-targets';
 import { SampleStatusBadge } from './sample-status-badge';
 
-const period = (sample: SampleSummary) =>
-  sample.periodStart || sample.periodEnd ? `${sample.periodStart ?? '…'} to ${sample.periodEnd ?? '…'}` : '—';
+const period = (sample: SampleSummary) => formatDateRange(sample.periodStart, sample.periodEnd);
 
 type SamplesTableProps = {
   samples: readonly SampleSummary[];

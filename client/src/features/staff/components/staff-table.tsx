@@ -107,7 +107,7 @@ const StaffRow = ({
         </Button>
         <Button
           onClick={() => onSetPassword(user)}
-          aria-label={`Set a new password for ${user.name}`}
+          aria-label={`Set password for ${user.name}`}
           className="mt-2 self-start"
         >
           Set password

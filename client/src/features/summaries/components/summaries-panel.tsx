@@ -14,6 +14,7 @@ import { useSummaries } from '../api/get-summaries';
 import { SummaryComposer } from './summary-composer';
 import { SummaryDraftEditor } from './summary-draft-editor';
 import { SummaryList } from './summary-list';
+import { summaryCardId } from '../lib/focus-targets';
 
 type SummariesPanelProps = {
   clientId: string;
@@ -154,7 +155,9 @@ export const SummariesPanel = ({
               announce('success', 'The draft was deleted. Nothing was sent.');
             }}
             onSent={(summary) => {
-              closeDraft();
+              // Focus on the summary just sent, at the head of the list: its state is read there.
+              setDraftId(null);
+              requestAnimationFrame(() => document.getElementById(summaryCardId(summary.id))?.focus());
               announce(
                 'success',
                 `The summary was sent: ${queuedWords(summary, 1)} queued. They go out in the background; their state shows below.`,

@@ -10,11 +10,12 @@ import {
 } from '@keyloom/shared';
 import { useId, useRef, useState } from 'react';
 import { Alert } from '@/components/ui/alert';
+import { formatDate } from '@/lib/format';
 import { Button } from '@/components/ui/button';
 import { FieldError } from '@/components/ui/field-message';
 import { Form, FormServerError } from '@/components/ui/form';
 import { TextAreaField } from '@/components/ui/text-area-field';
-import { TextField } from '@/components/ui/text-field';
+import { DateField } from '@/components/ui/date-field';
 import { useCreateSummary } from '../api/create-summary';
 import { useIdempotencyKey } from '../api/idempotency-key';
 import { usePreviewSummary } from '../api/preview-summary';
@@ -161,8 +162,8 @@ export const SummaryComposer = ({
 
             <fieldset className="grid gap-5 sm:grid-cols-2">
               <legend className="mb-3 text-xl font-bold">Period</legend>
-              <TextField label="From" type="date" registration={register('from')} error={errors.from} />
-              <TextField label="To" type="date" registration={register('to')} error={errors.to} />
+              <DateField label="From" registration={register('from')} error={errors.from} />
+              <DateField label="To" registration={register('to')} error={errors.to} />
             </fieldset>
 
             <fieldset className="flex flex-col gap-3" aria-describedby={`${ids}-versions-hint`}>
@@ -181,7 +182,7 @@ export const SummaryComposer = ({
                   name="versionIds"
                   label={`Version ${version.number}`}
                   detail={`${profileVersionStatusLabels[version.status]}${
-                    version.trainedAt ? `, trained ${version.trainedAt.slice(0, 10)}` : ''
+                    version.trainedAt ? `, trained ${formatDate(version.trainedAt)}` : ''
                   }`}
                   checked={versionIds.includes(version.id)}
                   onChange={(on) =>

@@ -13,7 +13,7 @@ import {
   TableHead,
   TableRow,
 } from '@/components/ui/table';
-import { formatDate, formatDateTime } from '@/lib/format';
+import { formatDateRange, formatDateTime } from '@/lib/format';
 import { useIdempotencyKey } from '../api/idempotency-key';
 import { useResendSummary } from '../api/resend-summary';
 import {
@@ -22,6 +22,7 @@ import {
   recipientStateLabels,
   recipientStateTones,
 } from '../lib/summary-words';
+import { summaryCardId } from '../lib/focus-targets';
 
 const summaryTones: Record<SummaryStatus, BadgeTone> = {
   draft: 'warn',
@@ -111,10 +112,12 @@ type SummaryCardProps = {
 const SummaryCard = ({ summary, versions, canSend, onResend, onOpenDraft }: SummaryCardProps) => {
   const id = useId();
   const rounds = Math.max(1, ...summary.recipients.map((r) => r.round));
-  const period = `${formatDate(summary.from)} to ${formatDate(summary.to)}`;
+  const period = formatDateRange(summary.from, summary.to);
   if (summary.status === 'draft') {
     return (
       <article
+        id={summaryCardId(summary.id)}
+        tabIndex={-1}
         aria-labelledby={`${id}-title`}
         className="flex flex-col gap-3 rounded-xl border-2 border-dashed border-thread bg-surface p-5"
       >
@@ -143,6 +146,8 @@ const SummaryCard = ({ summary, versions, canSend, onResend, onOpenDraft }: Summ
   }
   return (
     <article
+      id={summaryCardId(summary.id)}
+      tabIndex={-1}
       aria-labelledby={`${id}-title`}
       className="flex flex-col gap-4 rounded-xl border-2 border-thread bg-surface p-5"
     >
