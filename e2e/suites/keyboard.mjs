@@ -203,7 +203,7 @@ export const keyboardSuite = {
             await selectAndSettle(
               page,
               suggestionRow(page).getByRole('button', {
-                name: `Suggestion ${slot + 1}: ${word}`,
+                name: `${word} (suggestion ${slot + 1})`,
                 exact: true,
               }),
             );
@@ -228,7 +228,7 @@ export const keyboardSuite = {
             }
             shown++;
             assert.notEqual(slot.word, '', `no empty suggestion after "${text}"`);
-            assert.equal(slot.label, `Suggestion ${i + 1}: ${slot.word}`);
+            assert.equal(slot.label, `${slot.word} (suggestion ${i + 1})`);
             assert.ok(
               inVocabulary(slot.word) || typedWords.has(wordKey(slot.word)),
               `"${slot.word}" offered after "${text}" is a word of the vocabulary`,

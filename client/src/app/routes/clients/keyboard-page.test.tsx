@@ -149,14 +149,14 @@ describe('Test keyboard page', () => {
     await user.click(key('g'));
     expect(output()).toHaveTextContent(/^g$/);
     const row = within(screen.getByRole('group', { name: 'Suggestions' }));
-    await waitFor(() => expect(row.getByRole('button', { name: 'Suggestion 1: garden' })).toBeEnabled());
-    expect(row.getByRole('button', { name: 'Suggestion 3: good' })).toBeEnabled();
+    await waitFor(() => expect(row.getByRole('button', { name: 'garden (suggestion 1)' })).toBeEnabled());
+    expect(row.getByRole('button', { name: 'good (suggestion 3)' })).toBeEnabled();
     // Five slots stay on screen: the last two are empty and cannot be picked.
     expect(row.getByRole('button', { name: 'Suggestion 4: empty' })).toBeDisabled();
     expect(row.getByRole('button', { name: 'Suggestion 5: empty' })).toBeDisabled();
     expect(output()).toHaveTextContent(/^g$/);
 
-    await user.click(row.getByRole('button', { name: 'Suggestion 1: garden' }));
+    await user.click(row.getByRole('button', { name: 'garden (suggestion 1)' }));
     expect(output().textContent).toBe('garden ');
     await user.click(key('delete last letter'));
     expect(output().textContent).toBe('garden');
@@ -208,7 +208,7 @@ describe('Test keyboard page', () => {
     expect(output()).toHaveFocus();
     await user.click(key('t'));
     await user.click(key('e'));
-    await user.click(await screen.findByRole('button', { name: 'Suggestion 1: tea' }));
+    await user.click(await screen.findByRole('button', { name: 'tea (suggestion 1)' }));
     expect(output().textContent).toBe('tea ');
     await finishFromPause(user);
 
@@ -243,7 +243,7 @@ describe('Test keyboard page', () => {
     await user.click(key('g'));
     const undo = key('undo pick');
     expect(undo).toHaveAttribute('aria-disabled', 'true');
-    await user.click(await screen.findByRole('button', { name: 'Suggestion 1: garden' }));
+    await user.click(await screen.findByRole('button', { name: 'garden (suggestion 1)' }));
     expect(output().textContent).toBe('I garden ');
     expect(undo).not.toHaveAttribute('aria-disabled');
     await user.click(undo);
@@ -325,7 +325,7 @@ describe('Test keyboard page', () => {
     expect(output()).toHaveFocus();
     await user.keyboard('Hi, g');
     expect(output().textContent).toBe('Hi, g');
-    await screen.findByRole('button', { name: 'Suggestion 2: go' });
+    await screen.findByRole('button', { name: 'go (suggestion 2)' });
     await user.keyboard('2');
     expect(output().textContent).toBe('Hi, go ');
     await user.keyboard('{Backspace}{Enter}!');
@@ -619,7 +619,7 @@ describe('Trial view', () => {
     // The keyboard behind the dialog is inert; even an event reaching a key types nothing.
     expect(screen.getByRole('group', { name: 'Keys', hidden: true }).closest('[inert]')).not.toBeNull();
     fireEvent.click(screen.getByRole('button', { name: 'e', hidden: true }));
-    fireEvent.click(screen.getByRole('button', { name: 'Suggestion 1: the', hidden: true }));
+    fireEvent.click(screen.getByRole('button', { name: 'the (suggestion 1)', hidden: true }));
     fireEvent.keyDown(document.body, { key: 'x' });
     expect(screen.getByRole('textbox', { name: 'Text typed so far', hidden: true }).textContent).toBe('t');
     await user.click(within(pauseDialog()).getByRole('button', { name: 'Finish trial' }));

@@ -128,9 +128,9 @@ describe('SuggestionRow targets, spacing and dwell', () => {
       expect(px(slot.style.minWidth)).toBeGreaterThanOrEqual(64);
       expect(px(slot.style.minHeight)).toBeGreaterThanOrEqual(64);
     }
-    const time = screen.getByRole('button', { name: 'Suggestion 2: time' });
+    const time = screen.getByRole('button', { name: 'time (suggestion 2)' });
     expect(time.querySelector<HTMLElement>('[data-dwell-fill]')!.style.height).toBe('75%');
-    expect(screen.getByRole('button', { name: 'Suggestion 1: tea' })).toHaveAttribute('data-chosen', 'on');
+    expect(screen.getByRole('button', { name: 'tea (suggestion 1)' })).toHaveAttribute('data-chosen', 'on');
   });
 
   it('keeps the old gap and columns without the new settings', () => {

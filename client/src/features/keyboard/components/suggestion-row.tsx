@@ -103,7 +103,8 @@ export const SuggestionRow = ({
               key={slot}
               type="button"
               disabled={!word}
-              aria-label={word ? `Suggestion ${slot + 1}: ${word}` : `Suggestion ${slot + 1}: empty`}
+              // The name starts with the visible word (WCAG 2.5.3); an empty slot shows no word.
+              aria-label={word ? `${word} (suggestion ${slot + 1})` : `Suggestion ${slot + 1}: empty`}
               data-scanned={scanned ? 'on' : undefined}
               data-chosen={chosen ? 'on' : undefined}
               className={cn(
