@@ -306,7 +306,7 @@ export const focusWalkSuite = {
         await page.reload({ waitUntil: 'networkidle' });
         await activate(page, page.getByRole('link', { name: `Version ${versionNumber} of ${DEMO_CLIENT}` }));
         await page.waitForURL((url) => url.pathname === versionPath);
-        await page.getByRole('heading', { name: 'Results' }).waitFor();
+        await page.getByRole('heading', { name: `What to try with version ${versionNumber}` }).waitFor();
         await activate(page, page.getByRole('button', { name: 'Sign off' }));
         const dialog = page.getByRole('dialog', { name: /^Sign off version/ });
         await tabTo(page, dialog.getByLabel('How did the try-outs go?'));
