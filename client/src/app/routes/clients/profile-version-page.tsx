@@ -24,6 +24,7 @@ import { VersionActions } from '@/features/profiles/components/version-actions';
 import { VersionHistory } from '@/features/profiles/components/version-history';
 import { VersionNotFound } from '@/features/profiles/components/version-not-found';
 import { VersionResults } from '@/features/profiles/components/version-results';
+import { VersionReportLink } from '@/features/reports/components/report-links';
 import { formatDateTime } from '@/lib/format';
 
 // A message handed over by the page that navigated here (e.g. "Version 3 is training.").
@@ -76,6 +77,7 @@ export const ProfileVersionRoute = () => {
             </span>
             {data.note && <span>{data.note}</span>}
             {back}
+            <VersionReportLink clientId={clientId} version={data} role={role} />
           </span>
         }
       />
