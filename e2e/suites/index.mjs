@@ -4,6 +4,7 @@ import { dwellTargetsSuite } from './dwell-targets.mjs';
 import { foundationSuite } from './foundation.mjs';
 import { keyboardSuite } from './keyboard.mjs';
 import { profilesSuite } from './profiles.mjs';
+import { reportSuite } from './report.mjs';
 import { summariesSuite } from './summaries.mjs';
 import { trialViewSuite } from './trial-view.mjs';
 import { vocabularyKeyboardSuite } from './vocabulary-keyboard.mjs';
@@ -17,4 +18,5 @@ export const browserSuites = [
   trialViewSuite,
   summariesSuite,
   vocabularyKeyboardSuite,
+  reportSuite,
 ];

@@ -5,7 +5,7 @@ import { cn } from '@/lib/cn';
 
 // The parts both printed reports share: the toolbar (Print, Download PDF), the clinic's letterhead,
 // a section, a chart and the cautions. The API writes every word; these only lay it out. The classes
-// `report-section`, `report-keep` and `report-new-page` carry the print rules (index.css).
+// `report-keep` (kept whole on one sheet) and `report-new-page` carry the print rules (index.css).
 
 /** "Print" and "Download PDF": on screen only. */
 export const ReportToolbar = ({ pdfUrl, back }: { pdfUrl: string; back: ReactNode }) => (
@@ -29,21 +29,23 @@ export const ReportLetterhead = ({ clinic }: { clinic: VersionReport['clinic'] }
   </div>
 );
 
-/** A section with its h2; `newPage` starts it on a new sheet when printed. */
+/** A section with its h2; `newPage` starts it on a new sheet when printed, `keep` keeps it whole. */
 export const ReportSection = ({
   id,
   title,
   children,
   newPage = false,
+  keep = false,
 }: {
   id: string;
   title: string;
   children: ReactNode;
   newPage?: boolean;
+  keep?: boolean;
 }) => (
   <section
     aria-labelledby={id}
-    className={cn('report-section flex flex-col gap-3', newPage && 'report-new-page')}
+    className={cn('flex flex-col gap-3', newPage && 'report-new-page', keep && 'report-keep')}
   >
     <h2 id={id} className="border-b-2 border-thread pb-1 text-2xl font-bold">
       {title}
@@ -70,16 +72,13 @@ export const ReportChartFigure = ({ chart }: { chart: ReportChart }) => (
 
 /** "Please keep in mind" and the cautions, in the shared wording. */
 export const ReportCautions = ({ cautions }: { cautions: readonly string[] }) => (
-  <section aria-labelledby="report-cautions" className="report-section report-keep flex flex-col gap-3">
-    <h2 id="report-cautions" className="border-b-2 border-thread pb-1 text-2xl font-bold">
-      {REPORT_CAUTIONS_TITLE}
-    </h2>
+  <ReportSection id="report-cautions" title={REPORT_CAUTIONS_TITLE} keep>
     <ul className="flex list-disc flex-col gap-2 pl-6">
       {cautions.map((caution) => (
         <li key={caution}>{caution}</li>
       ))}
     </ul>
-  </section>
+  </ReportSection>
 );
 
 /**

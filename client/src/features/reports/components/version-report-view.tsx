@@ -21,7 +21,7 @@ export const VersionReportView = ({ report }: { report: VersionReport }) => {
         <dd>{doneOn(version.trainedOn, version.trainedBy)}</dd>
       </dl>
 
-      <ReportSection id="report-trail" title="Approval trail">
+      <ReportSection id="report-trail" title="Approval trail" keep>
         <dl className="grid grid-cols-[max-content_1fr] gap-x-4 gap-y-1">
           {report.trail.map((step) => (
             <div key={step.step} className="contents">
@@ -49,7 +49,7 @@ export const VersionReportView = ({ report }: { report: VersionReport }) => {
         {report.chart && <ReportChartFigure chart={report.chart} />}
       </ReportSection>
 
-      <ReportSection id="report-trials" title="Trials on the test keyboard">
+      <ReportSection id="report-trials" title="Trials on the test keyboard" keep>
         <p>{trialsSentence(report.trials)}.</p>
       </ReportSection>
 
