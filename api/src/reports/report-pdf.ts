@@ -9,7 +9,7 @@ import {
   type VersionReport,
 } from '@keyloom/shared';
 import { atkinsonFontFiles } from '../summaries/chart-text';
-import { rasterise } from '../summaries/summary-chart';
+import { opaqueChartPng } from './opaque-png';
 
 // The printed reports as PDFs, laid out with pdfkit: the app's own font (Atkinson Hyperlegible, the
 // WOFF files of @fontsource/atkinson-hyperlegible, which pdfkit's fontkit reads and embeds as a
@@ -117,7 +117,7 @@ function chart(doc: Doc, picture: ReportChart): void {
   const width = contentWidth(doc);
   const height = (picture.height / picture.width) * width;
   keepRoom(doc, height + 10);
-  doc.image(rasterise(picture.svg, PRINT_ZOOM), doc.page.margins.left, doc.y, { width, height });
+  doc.image(opaqueChartPng(picture.svg, PRINT_ZOOM), doc.page.margins.left, doc.y, { width, height });
   doc.y += height + 4;
   paragraph(doc, picture.alt, { soft: true, size: 9 });
   doc.moveDown(0.5);

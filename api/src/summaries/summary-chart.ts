@@ -1,4 +1,4 @@
-import { Resvg } from '@resvg/resvg-js';
+import { type RenderedImage, Resvg } from '@resvg/resvg-js';
 import { chartColours, chartSeriesLook, chartSizes, type ChartMarker } from '@keyloom/shared';
 import { textAscent, textPath, textWidth } from './chart-text';
 
@@ -302,17 +302,20 @@ export function renderChart(spec: ChartSpec): RenderedChart {
 }
 
 /**
- * A chart's SVG as a PNG, `zoom` device pixels per CSS px: the e-mail's twice, the PDF's more, for
- * print. The lettering is already outlines, so no font is looked up.
+ * A chart's SVG rasterised, `zoom` device pixels per CSS px, on the charts' background: the e-mail's
+ * twice, the PDF's more, for print. The lettering is already outlines, so no font is looked up.
  */
-export function rasterise(svg: string, zoom: number = chartSizes.pixelRatio): Buffer {
+export function rasterImage(svg: string, zoom: number = chartSizes.pixelRatio): RenderedImage {
   return new Resvg(svg, {
     fitTo: { mode: 'zoom', value: zoom },
     font: { loadSystemFonts: false },
     background: chartColours.background,
-  })
-    .render()
-    .asPng();
+  }).render();
+}
+
+/** A chart's SVG as a PNG (RGBA), `zoom` device pixels per CSS px. */
+export function rasterise(svg: string, zoom: number = chartSizes.pixelRatio): Buffer {
+  return rasterImage(svg, zoom).asPng();
 }
 
 const percent = (fraction: number): string => `${Math.round(fraction * 100)}%`;
