@@ -146,6 +146,24 @@ describe('printed reports (HTTP)', () => {
     });
   });
 
+  it('the OpenAPI document lists the four routes, the PDFs as application/pdf', async () => {
+    const json = await get(cast.supervisor, '/api/docs-json').expect(200);
+    const paths = (
+      json.body as { paths: Record<string, { get?: { responses?: Record<string, { content?: object }> } }> }
+    ).paths;
+    for (const path of [
+      '/api/profile-versions/{id}/report',
+      '/api/profile-versions/{id}/report.pdf',
+      '/api/clients/{id}/report',
+      '/api/clients/{id}/report.pdf',
+    ]) {
+      expect(paths[path]?.get).toBeDefined();
+    }
+    expect(
+      Object.keys(paths['/api/clients/{id}/report.pdf']?.get?.responses?.['200']?.content ?? {}),
+    ).toEqual(['application/pdf']);
+  });
+
   describe('GET /api/profile-versions/:id/report', () => {
     it('the print view’s data: the same figures, trail without comments, samples and cautions', async () => {
       expect(await statusesOf(cast, (who) => get(who, `/api/profile-versions/${trained.id}/report`))).toEqual(

@@ -45,13 +45,9 @@ describe('versionFigures', () => {
   });
 
   it('leaves out what an older report did not measure', async () => {
-    const {
-      hitRate: _hit,
-      selectionsPerWord: _perWord,
-      ksWords: _words,
-      scanStepsByLayout: _scan,
-      ...older
-    } = await train();
+    const older = { ...(await train()) };
+    for (const key of ['hitRate', 'selectionsPerWord', 'ksWords', 'scanStepsByLayout'] as const)
+      delete older[key];
     const keys = versionFigures(older).map((f) => f.key);
     expect(keys).toEqual(['slots', 'keystrokeSavings', 'kspc', 'wpm', 'rateChange']);
   });
