@@ -120,6 +120,12 @@ export const reportSuite = {
         assert.match(href ?? '', /from=2020-01-01&to=2020-03-31$/);
         await page.goBack();
         await table.getByRole('rowheader', { name: /Version 1/ }).waitFor();
+        // Back shows the last 90 days again, and the fields follow.
+        await page.waitForFunction(
+          () => document.querySelector('input[name="from"]')?.value !== '2020-01-01',
+        );
+        assert.match(await form.getByLabel('To').inputValue(), /^\d{4}-\d{2}-\d{2}$/);
+        assert.notEqual(await form.getByLabel('To').inputValue(), '2020-03-31');
         const { bytes } = await downloadPdf(page);
         writeFileSync(join(t.outDir, 'report-client.pdf'), bytes);
         await t.screenshot(page, 'report-client');

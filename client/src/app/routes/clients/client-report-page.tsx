@@ -24,7 +24,7 @@ export const ClientReportRoute = () => {
       pdfUrl={(data) => clientReportPdfUrl(clientId, data.period)}
     >
       {(data) => (
-        <div className="flex flex-col gap-8">
+        <>
           {/* After another period is chosen (focus stays in the form), say which one is shown. */}
           <LiveRegion
             message={
@@ -33,12 +33,14 @@ export const ClientReportRoute = () => {
                 : null
             }
           />
-          <ReportPeriodForm
-            period={data.period}
-            onApply={(next) => setSearch(next, { state: { keepFocus: true } })}
-          />
-          <ClientReportView report={data} />
-        </div>
+          <div className="flex flex-col gap-8">
+            <ReportPeriodForm
+              period={data.period}
+              onApply={(next) => setSearch(next, { state: { keepFocus: true } })}
+            />
+            <ClientReportView report={data} />
+          </div>
+        </>
       )}
     </ReportPageFrame>
   );

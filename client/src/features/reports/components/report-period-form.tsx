@@ -1,4 +1,5 @@
 import { clientReportQuerySchema } from '@keyloom/shared';
+import { useEffect } from 'react';
 import { Button } from '@/components/ui/button';
 import { Form } from '@/components/ui/form';
 import { TextField } from '@/components/ui/text-field';
@@ -7,6 +8,21 @@ type ReportPeriodFormProps = {
   period: { from: string; to: string };
   /** Receives the checked period (the API's own schema: "To" before "From" is refused). */
   onApply: (period: { from: string; to: string }) => void;
+};
+
+/**
+ * Keeps the fields on the period shown when it changes from outside the form (Back, a link): reset in
+ * place, so the fields keep focus.
+ */
+const FollowPeriod = ({
+  period,
+  reset,
+}: {
+  period: { from: string; to: string };
+  reset: (values: { from: string; to: string }) => void;
+}) => {
+  useEffect(() => reset({ from: period.from, to: period.to }), [period.from, period.to, reset]);
+  return null;
 };
 
 /** The client report's period: two days, checked by the API's schema; on screen only. */
@@ -24,8 +40,9 @@ export const ReportPeriodForm = ({ period, onApply }: ReportPeriodFormProps) => 
     onSubmit={({ from, to }) => onApply({ from, to })}
     className="flex flex-col gap-4 rounded-xl border-2 border-thread bg-surface p-4 print:hidden"
   >
-    {({ register, formState: { errors } }) => (
+    {({ register, reset, formState: { errors } }) => (
       <div className="flex flex-wrap items-end gap-4">
+        <FollowPeriod period={period} reset={reset} />
         <TextField label="From" type="date" registration={register('from')} error={errors.from} />
         <TextField label="To" type="date" registration={register('to')} error={errors.to} />
         <Button type="submit" variant="secondary">
