@@ -2,7 +2,7 @@ import { reportCautions, type VersionReport } from '@keyloom/shared';
 import { readPdf, pdfText } from '../../test/pdf-helpers';
 import { savingsBySlotsChart } from '../summaries/summary-chart';
 import { PRINT_ZOOM, renderClientReportPdf, renderVersionReportPdf } from './report-pdf';
-import { fileSlug } from './reports.service';
+import { slug } from '../profile-versions/profile-versions.service';
 
 // The PDFs are read back with pdfjs-dist (Mozilla's PDF reader, npm pdfjs-dist 4.10.38), an
 // independent reader, not with pdfkit; page sizes against ISO 216 (A4 = 210 × 297 mm = 595 × 842 pt)
@@ -129,8 +129,8 @@ describe('report PDFs', () => {
   });
 
   it('file names keep letters and digits only', () => {
-    expect(fileSlug('R. Ashby')).toBe('r-ashby');
-    expect(fileSlug('"../x"\r\n')).toBe('x');
-    expect(fileSlug('***')).toBe('client');
+    expect(slug('R. Ashby')).toBe('r-ashby');
+    expect(slug('"../x"\r\n')).toBe('x');
+    expect(slug('***')).toBe('client');
   });
 });

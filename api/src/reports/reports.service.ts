@@ -18,7 +18,7 @@ import { ClientAccessService } from '../clients/client-access.service';
 import type { Client } from '../clients/client.entity';
 import { loadClinicSettings } from '../clinic/clinic-settings.service';
 import { ProfileVersion } from '../profile-versions/profile-version.entity';
-import { ProfileVersionsService, WITH_MODEL } from '../profile-versions/profile-versions.service';
+import { ProfileVersionsService, slug, WITH_MODEL } from '../profile-versions/profile-versions.service';
 import { savingsBySlotsChart } from '../summaries/summary-chart';
 import { summaryCharts } from '../summaries/summary-message';
 import { figuresFromMetrics } from '../summaries/summary-text';
@@ -29,15 +29,6 @@ export const NOT_TRAINED_REPORT_MESSAGE =
 
 /** A PDF ready to send: its bytes and a file name safe in a Content-Disposition header. */
 export type ReportFile = { fileName: string; bytes: Buffer };
-
-/** "R. Ashby" → "r-ashby": letters and digits of a file name, the rest as single hyphens. */
-export const fileSlug = (text: string): string =>
-  text
-    .normalize('NFKD')
-    .replace(/[^A-Za-z0-9]+/g, '-')
-    .replace(/^-+|-+$/g, '')
-    .toLowerCase()
-    .slice(0, 60) || 'client';
 
 /** The figures of a stored report; none for a version without one (a base-only version) or an unreadable one. */
 function figuresOf(metrics: Record<string, unknown> | null): VersionFigure[] {
@@ -216,7 +207,7 @@ export class ReportsService {
       { number: report.version.number, paper: options.paper, bytes: bytes.length },
     );
     return {
-      fileName: `keyloom-${fileSlug(report.client.pseudonym)}-version-${report.version.number}.pdf`,
+      fileName: `keyloom-${slug(report.client.pseudonym)}-version-${report.version.number}.pdf`,
       bytes,
     };
   }
@@ -232,7 +223,7 @@ export class ReportsService {
       { from: query.from, to: query.to, paper: query.paper, bytes: bytes.length },
     );
     return {
-      fileName: `keyloom-${fileSlug(report.client.pseudonym)}-${query.from}-to-${query.to}.pdf`,
+      fileName: `keyloom-${slug(report.client.pseudonym)}-${query.from}-to-${query.to}.pdf`,
       bytes,
     };
   }
