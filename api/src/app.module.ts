@@ -9,6 +9,7 @@ import { ConsentsModule } from './consents/consents.module';
 import { ContactsModule } from './contacts/contacts.module';
 import { SamplesModule } from './samples/samples.module';
 import { ProfileVersionsModule } from './profile-versions/profile-versions.module';
+import { ReportsModule } from './reports/reports.module';
 import { SummariesModule } from './summaries/summaries.module';
 import { TrialsModule } from './trials/trials.module';
 import { VocabularyModule } from './vocabulary/vocabulary.module';
@@ -45,6 +46,7 @@ const API_REQUESTS_PER_MINUTE = 1_000;
     ContactsModule,
     SamplesModule,
     ProfileVersionsModule,
+    ReportsModule,
     SummariesModule,
     TrialsModule,
     VocabularyModule,

@@ -5,6 +5,7 @@ import { focusWalkSuite } from './focus-walk.mjs';
 import { foundationSuite } from './foundation.mjs';
 import { keyboardSuite } from './keyboard.mjs';
 import { profilesSuite } from './profiles.mjs';
+import { reportSuite } from './report.mjs';
 import { summariesSuite } from './summaries.mjs';
 import { trialViewSuite } from './trial-view.mjs';
 import { vocabularyKeyboardSuite } from './vocabulary-keyboard.mjs';
@@ -19,4 +20,5 @@ export const browserSuites = [
   summariesSuite,
   vocabularyKeyboardSuite,
   focusWalkSuite,
+  reportSuite,
 ];

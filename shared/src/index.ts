@@ -29,3 +29,4 @@ export * from './workspace/workspace-root';
 export * from './schemas/vocabulary.schema';
 export * from './charts/index';
 export * from './reports/index';
+export * from './schemas/reports.schema';

@@ -273,7 +273,8 @@ export function accessFromClient(client: Client): ProfileSettings['access'] {
   };
 }
 
-function slug(text: string): string {
+/** A pseudonym as part of a download's file name: ASCII letters, digits and hyphens ("R. Ashby" → "r-ashby"). */
+export function slug(text: string): string {
   return (
     text
       .normalize('NFKD')

@@ -8,7 +8,8 @@ import { parse, type Font } from 'opentype.js';
 
 export type FontWeight = 400 | 700;
 
-const fontFile: Record<FontWeight, string> = {
+/** The font files (WOFF) of each weight, as require.resolve finds them: the charts' and the PDFs' lettering. */
+export const atkinsonFontFiles: Record<FontWeight, string> = {
   400: '@fontsource/atkinson-hyperlegible/files/atkinson-hyperlegible-latin-400-normal.woff',
   700: '@fontsource/atkinson-hyperlegible/files/atkinson-hyperlegible-latin-700-normal.woff',
 };
@@ -19,7 +20,7 @@ const fonts = new Map<FontWeight, Font>();
 export function chartFont(weight: FontWeight): Font {
   let font = fonts.get(weight);
   if (!font) {
-    const bytes = readFileSync(require.resolve(fontFile[weight]));
+    const bytes = readFileSync(require.resolve(atkinsonFontFiles[weight]));
     font = parse(bytes.buffer.slice(bytes.byteOffset, bytes.byteOffset + bytes.byteLength));
     fonts.set(weight, font);
   }

@@ -1,4 +1,4 @@
-import { Resvg } from '@resvg/resvg-js';
+import { type RenderedImage, Resvg } from '@resvg/resvg-js';
 import { chartColours, chartSeriesLook, chartSizes, type ChartMarker } from '@keyloom/shared';
 import { textAscent, textPath, textWidth } from './chart-text';
 
@@ -298,14 +298,24 @@ export function renderChart(spec: ChartSpec): RenderedChart {
   const svg =
     `<svg xmlns="http://www.w3.org/2000/svg" width="${width}" height="${height}" viewBox="0 0 ${width} ${height}">` +
     `<rect width="${width}" height="${height}" fill="${chartColours.background}"/>${parts.join('')}</svg>`;
-  const png = new Resvg(svg, {
-    fitTo: { mode: 'zoom', value: chartSizes.pixelRatio },
+  return { svg, png: rasterise(svg), width, height, alt: chartAlt(spec) };
+}
+
+/**
+ * A chart's SVG rasterised, `zoom` device pixels per CSS px, on the charts' background: the e-mail's
+ * twice, the PDF's more, for print. The lettering is already outlines, so no font is looked up.
+ */
+export function rasterImage(svg: string, zoom: number = chartSizes.pixelRatio): RenderedImage {
+  return new Resvg(svg, {
+    fitTo: { mode: 'zoom', value: zoom },
     font: { loadSystemFonts: false },
     background: chartColours.background,
-  })
-    .render()
-    .asPng();
-  return { svg, png, width, height, alt: chartAlt(spec) };
+  }).render();
+}
+
+/** A chart's SVG as a PNG (RGBA), `zoom` device pixels per CSS px. */
+export function rasterise(svg: string, zoom: number = chartSizes.pixelRatio): Buffer {
+  return rasterImage(svg, zoom).asPng();
 }
 
 const percent = (fraction: number): string => `${Math.round(fraction * 100)}%`;
@@ -353,5 +363,29 @@ export function speedChart(
     ],
     scale: niceScale(max, (v) => (Number.isInteger(v) ? String(v) : v.toFixed(1))),
     format: oneDecimal,
+  });
+}
+
+/**
+ * "Key presses saved by the number of suggestions": one bar per list size (1..10 slots) of a
+ * version's report, on a 0–100 % scale.
+ * @param perSlot fractions 0..1 keyed "1".."10" (the report's `keystrokeSavings`); at least one
+ */
+export function savingsBySlotsChart(perSlot: Readonly<Record<string, number>>): RenderedChart {
+  const slots = Object.keys(perSlot)
+    .map(Number)
+    .filter((n) => Number.isInteger(n) && n >= 1)
+    .sort((a, b) => a - b)
+    .slice(0, MAX_CATEGORIES);
+  return renderChart({
+    kind: 'bar',
+    title: 'Key presses saved, by number of suggestions',
+    valueAxis: 'Key presses saved (%)',
+    categoryAxis: 'Suggestion slots',
+    categories: slots.map(String),
+    categoryName: (category) => `${category} ${category === '1' ? 'slot' : 'slots'}`,
+    series: [{ name: 'Key presses saved', values: slots.map((n) => perSlot[String(n)] ?? 0) }],
+    scale: { max: 1, step: 0.25, tick: percent },
+    format: percent,
   });
 }

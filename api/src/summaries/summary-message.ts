@@ -36,12 +36,14 @@ export type SummaryChart = {
   name: string;
   cid: string;
   alt: string;
+  /** The picture as drawn (the printed reports scale it; the e-mail attaches the PNG). */
+  svg: string;
   png: Buffer;
   width: number;
   height: number;
 };
 
-const mailed = ({ alt, png, width, height }: RenderedChart) => ({ alt, png, width, height });
+const mailed = ({ alt, svg, png, width, height }: RenderedChart) => ({ alt, svg, png, width, height });
 
 /**
  * The charts of a summary: keystroke savings (versions with savings) and speed (versions with both

@@ -103,6 +103,18 @@ export const routes: RouteObject[] = [
                 }),
               },
               {
+                path: 'clients/:clientId/profiles/:versionId/report',
+                lazy: async () => ({
+                  Component: (await import('./routes/clients/version-report-page')).VersionReportRoute,
+                }),
+              },
+              {
+                path: 'clients/:clientId/report',
+                lazy: async () => ({
+                  Component: (await import('./routes/clients/client-report-page')).ClientReportRoute,
+                }),
+              },
+              {
                 path: 'clients/:clientId/samples/:sampleId',
                 lazy: async () => ({ Component: (await import('./routes/clients/sample-page')).SampleRoute }),
               },

@@ -40,6 +40,16 @@ export const profileVersionPath = (clientId: string, versionId: string): string 
 export const vocabularyPath = (clientId: string, versionId: string): string =>
   `${profileVersionPath(clientId, versionId)}/vocabulary`;
 
+/** One trained version's report, laid out for printing. */
+export const versionReportPath = (clientId: string, versionId: string): string =>
+  `${profileVersionPath(clientId, versionId)}/report`;
+
+/** A client's report over a period, laid out for printing; the last 90 days without one. */
+export const clientReportPath = (clientId: string, period?: { from: string; to: string }): string =>
+  `${paths.clients}/${encodeURIComponent(clientId)}/report${
+    period ? `?from=${encodeURIComponent(period.from)}&to=${encodeURIComponent(period.to)}` : ''
+  }`;
+
 /** Two or more versions of a client side by side. */
 export const profileComparePath = (clientId: string, versionIds: readonly string[]): string =>
   `${paths.clients}/${encodeURIComponent(clientId)}/profiles/compare?ids=${versionIds.map(encodeURIComponent).join(',')}`;

@@ -9,6 +9,7 @@ export const queryRoots = {
   clients: ['clients'],
   clinic: ['clinic'],
   profileVersions: ['profile-versions'],
+  reports: ['reports'],
   samples: ['samples'],
   summaries: ['summaries'],
   users: ['users'],

@@ -50,6 +50,8 @@ export const auditActionLabels = {
   'profile.export': 'Exported a profile file',
   'profile.model-download': 'Opened a version on the test keyboard',
   'profile.delete': 'Deleted a version (consent withdrawn)',
+  'report.version-pdf': 'Downloaded a version report (PDF)',
+  'report.client-pdf': 'Downloaded a client report (PDF)',
   'vocabulary.update': 'Changed a client’s vocabulary list',
   'vocabulary.export': 'Exported a version’s vocabulary',
   'trial.create': 'Logged a trial on the test keyboard',

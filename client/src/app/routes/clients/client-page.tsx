@@ -17,6 +17,7 @@ import { ClientDetails } from '@/features/clients/components/client-details';
 import { ClientFormDialog } from '@/features/clients/components/client-form-dialog';
 import { ConsentStatusBadge } from '@/features/clients/components/consent-status-badge';
 import { ConsentPanel } from '@/features/consent/components/consent-panel';
+import { ClientReportLink } from '@/features/reports/components/report-links';
 import { SamplesPanel } from '@/features/samples/components/samples-panel';
 import { cn } from '@/lib/cn';
 import { tabLabels, tabsForRole } from './client-tabs';
@@ -138,6 +139,7 @@ export const ClientRoute = () => {
           <span className="flex flex-wrap items-center gap-3">
             <span>Client of {data.clinician.name}</span>
             <ConsentStatusBadge status={data.consentStatus} />
+            <ClientReportLink clientId={data.id} role={role} />
           </span>
         }
       />

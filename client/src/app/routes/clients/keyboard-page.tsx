@@ -125,7 +125,7 @@ export const KeyboardRoute = () => {
       />
       <LiveRegion message={announcement} />
       <div className="flex flex-col gap-8">
-        <KeyboardCautions pseudonym={pseudonym} />
+        <KeyboardCautions />
         {asked && version && version.id !== asked && (
           <Alert tone="info" title="The version asked for has no model to try.">
             <p>Version {version.number} is open instead.</p>

@@ -26,6 +26,7 @@ import { VersionNotFound } from '@/features/profiles/components/version-not-foun
 import { VersionResults } from '@/features/profiles/components/version-results';
 import { WhatToTry } from '@/features/profiles/components/what-to-try';
 import { EngineDetails } from '@/components/ui/engine-details';
+import { VersionReportLink } from '@/features/reports/components/report-links';
 import { formatDateTime } from '@/lib/format';
 
 // A message handed over by the page that navigated here (e.g. "Version 3 is training.").
@@ -78,6 +79,7 @@ export const ProfileVersionRoute = () => {
             </span>
             {data.note && <span>{data.note}</span>}
             {back}
+            <VersionReportLink clientId={clientId} version={data} role={role} />
           </span>
         }
       />

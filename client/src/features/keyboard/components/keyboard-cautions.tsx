@@ -1,15 +1,18 @@
+import { reportCautions } from '@keyloom/shared';
 import { Alert } from '@/components/ui/alert';
 
+// The cautions that concern the test keyboard, in the wording the printed reports use
+// (shared/src/reports/cautions.ts): suggestions are offered, the keyboard is for trials, keystroke
+// savings are not time savings.
+const keyboardCautions = [reportCautions[0], reportCautions[1], reportCautions[3]];
+
 /** The cautions of the test keyboard, near the top of its page, in Keyloom's words. */
-export const KeyboardCautions = ({ pseudonym }: { pseudonym: string }) => (
+export const KeyboardCautions = () => (
   <Alert tone="info" title="Before you start">
     <ul className="list-disc pl-5">
-      <li>Suggestions are offered, never inserted on their own: a word goes in only when it is picked.</li>
-      <li>
-        This keyboard is for trying a profile. It is not a communication aid for emergencies: keep {pseudonym}
-        ’s usual way of communicating at hand.
-      </li>
-      <li>Keystroke savings are not time savings: reading the suggestions takes time too.</li>
+      {keyboardCautions.map((caution) => (
+        <li key={caution}>{caution}</li>
+      ))}
     </ul>
   </Alert>
 );
