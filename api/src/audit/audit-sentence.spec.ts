@@ -108,6 +108,17 @@ describe(auditSentence.name, () => {
     expect(sentence).toBe('Imogen Hale retired version 3 of R. Ashby’s profile');
   });
 
+  it('says which report was downloaded', () => {
+    const say = (action: string, details: Record<string, unknown>) =>
+      auditSentence(event({ action, clientPseudonym: 'R. Ashby', details }));
+    expect(say('report.version-pdf', { number: 2, paper: 'a4', bytes: 1000 })).toBe(
+      'Imogen Hale downloaded the PDF report of version 2 of R. Ashby’s profile',
+    );
+    expect(say('report.client-pdf', { from: '2026-09-01', to: '2026-11-30', paper: 'a4' })).toBe(
+      'Imogen Hale downloaded the PDF report of R. Ashby for 1 Sept 2026 to 30 Nov 2026',
+    );
+  });
+
   it('counts the family contacts a summary went to', () => {
     const send = (recipients: number) =>
       auditSentence(event({ action: 'summary.send', clientPseudonym: 'R. Ashby', details: { recipients } }));

@@ -1,4 +1,4 @@
-import { auditActionLabels } from '@keyloom/shared';
+import { auditActionLabels, reportDate } from '@keyloom/shared';
 import type { AuditDetails } from './audit-event.entity';
 
 /** What an event's sentence needs: the stored event, with user ids already resolved to names. */
@@ -104,6 +104,14 @@ export function auditSentence(event: SentenceInput): string {
       return `${who} reported a problem with ${version} of ${possessive(client ?? 'a client')} profile after a trial`;
     case 'profile.retire':
       return `${who} retired ${version} of ${possessive(client ?? 'a client')} profile`;
+    case 'report.version-pdf':
+      return `${who} downloaded the PDF report of ${version} of ${possessive(client ?? 'a client')} profile`;
+    case 'report.client-pdf': {
+      const from = typeof d.from === 'string' ? reportDate(d.from) : null;
+      const to = typeof d.to === 'string' ? reportDate(d.to) : null;
+      const period = from && to ? ` for ${from} to ${to}` : '';
+      return `${who} downloaded the PDF report of ${client ?? 'a client'}${period}`;
+    }
     case 'summary.send':
     case 'summary.resend': {
       const to = count(d.recipients, 'family contact', 'family contacts');

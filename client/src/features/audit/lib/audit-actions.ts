@@ -17,6 +17,7 @@ export const auditActionOptions = [
   { value: 'trial.', label: 'All test keyboard trials' },
   { value: 'practice-phrase.', label: 'All practice phrase changes' },
   { value: 'summary.', label: 'All progress summary events' },
+  { value: 'report.', label: 'All report downloads' },
   ...Object.entries(auditActionLabels).map(([value, label]) => ({ value, label })),
 ];
 
