@@ -1,5 +1,5 @@
 export { versionFigures, versionFigureKeys, rateChangeSentence } from './version-figures';
 export type { VersionFigure, VersionFigureKey } from './version-figures';
-export { reportCautions, REPORT_CAUTIONS_TITLE } from './cautions';
+export { cautions, reportCautions, REPORT_CAUTIONS_TITLE } from './cautions';
 export { reportDate } from './report-dates';
 export { doneOn, trialsSentence } from './report-words';

@@ -1,3 +1,4 @@
+import { cautions } from '@keyloom/shared';
 import type { MouseEvent, ReactNode } from 'react';
 import { Link } from 'react-router-dom';
 import { env } from '@/config/env';
@@ -21,6 +22,11 @@ const skipToMain = (event: MouseEvent<HTMLAnchorElement>) => {
 };
 
 /** Keyloom's frame: skip link, header with wordmark, navigation and user menu, main, footer. */
+// The data caution in the words every report uses, its lead in bold: "Language samples are personal
+// health information: collect them only with consent, …".
+const [lead, ...rest] = cautions.personalData.split(': ');
+const dataCaution = { lead, rest: rest.join(': ') };
+
 export const AppShell = ({ navigation, userMenu, children }: AppShellProps) => (
   <div className="flex min-h-screen flex-col">
     <a
@@ -49,9 +55,7 @@ export const AppShell = ({ navigation, userMenu, children }: AppShellProps) => (
     <footer className="border-t-2 border-thread bg-paper-deep">
       <div className="mx-auto flex max-w-6xl flex-col gap-3 px-4 py-6 text-ink-soft sm:px-6">
         <p className="max-w-4xl">
-          <strong className="text-ink">Language samples are personal health information.</strong> Gather them
-          only with consent, keep them inside the clinic&rsquo;s own systems, and follow local law and clinic
-          policy. Clinical decisions stay with the licensed clinician.
+          <strong className="text-ink">{dataCaution.lead}:</strong> {dataCaution.rest}
         </p>
         <p>
           For staff:{' '}

@@ -1,10 +1,10 @@
-import { reportCautions } from '@keyloom/shared';
+import { cautions } from '@keyloom/shared';
 import { Alert } from '@/components/ui/alert';
 
 // The cautions that concern the test keyboard, in the wording the printed reports use
 // (shared/src/reports/cautions.ts): suggestions are offered, the keyboard is for trials, keystroke
 // savings are not time savings.
-const keyboardCautions = [reportCautions[0], reportCautions[1], reportCautions[3]];
+const keyboardCautions = [cautions.offeredNotInserted, cautions.notForEmergencies, cautions.notTimeSavings];
 
 /** The cautions of the test keyboard, near the top of its page, in Keyloom's words. */
 export const KeyboardCautions = () => (
