@@ -20,7 +20,7 @@ import { type Caller, type Cast, newCast, newClient, newConsent, send, statusesO
 import { binaryBody, newUser, signIn } from './factories';
 import { readPdf, pdfText } from './pdf-helpers';
 import { createTestApp, resetDatabase, type TestApp } from './test-app';
-import { postTrial, trainInProcess } from './trial-helpers';
+import { postTrial, trainInProcess, typedEvents } from './trial-helpers';
 
 // Invented for these tests (the demo scenario's voice: a sailing club, a dog, jazz piano).
 const TEXTS = [
@@ -80,7 +80,14 @@ describe('printed reports (HTTP)', () => {
     expect(await trainInProcess(t, t.app.get(AuditService), cast.owner, first.id, runtime)).toBe('trained');
     trained = (await get(cast.owner, `/api/profile-versions/${first.id}`).expect(200))
       .body as ProfileVersionDto;
-    await postTrial(t.http, cast.assignedCarer, trained.id).expect(201);
+    // A trial long enough to count (20 characters or more) at a plausible pace: 49 characters in
+    // about three minutes, near the version's estimate for a direct-selection client.
+    const phrase = 'hi pepper, the sea was calm at the harbour today';
+    await postTrial(t.http, cast.assignedCarer, trained.id, {
+      text: phrase,
+      events: typedEvents(phrase, 170_000),
+      finishedAt: '2026-12-02T10:03:00.000Z',
+    }).expect(201);
     draft = (await create()).body as ProfileVersionDto;
   }, 120_000);
   afterAll(async () => {
@@ -235,6 +242,36 @@ describe('printed reports (HTTP)', () => {
           .getRepository(AuditEvent)
           .countBy({ action: 'report.client-pdf', subjectId: clientId }),
       ).toBe(1);
+    });
+  });
+
+  describe('trials the reports leave out', () => {
+    it('leaves a too-short trial out of the count, with the family summaries’ note, in the JSON and the PDF', async () => {
+      // A row as the test keyboard's POST stores it (only the columns the report reads matter).
+      await t.dataSource.query(
+        `INSERT INTO trials (local_trial_id, profile_version_id, client_id, user_name, user_role,
+                             started_at, finished_at, text, settings, events, measures, simulated)
+         VALUES ($1, $2, $3, 'Hannah', 'carer', now() - interval '2 minutes', now(), 'hi', '{}', '[]', $4, '{}')`,
+        [
+          randomUUID(),
+          trained.id,
+          clientId,
+          JSON.stringify({ characters: 6, keystrokeSavings: 0.9, wpm: 30 }),
+        ],
+      );
+      const note = `Version ${trained.number}: 1 trial shorter than 20 characters was left out of the trial figures (too short to measure).`;
+      const report = (await get(cast.owner, `/api/profile-versions/${trained.id}/report`).expect(200))
+        .body as VersionReport;
+      expect(report.trials.count).toBe(1);
+      expect(report.trials.notes).toEqual([note]);
+      const text = pdfText(
+        readPdf(
+          (await pdf(cast.owner, `/api/profile-versions/${trained.id}/report.pdf`).expect(200))
+            .body as Buffer,
+        ),
+      );
+      expect(text).toContain('1 trial; mean measured words per minute');
+      expect(text).toContain('too short to measure');
     });
   });
 });

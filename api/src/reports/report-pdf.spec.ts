@@ -36,7 +36,7 @@ const report: VersionReport = {
     { key: 'hitRate', label: 'Hit rate', value: '61% of words', explanation: 'How often.' },
   ],
   chart: { svg: chart.svg, width: chart.width, height: chart.height, alt: chart.alt },
-  trials: { count: 2, meanWpm: '4.2' },
+  trials: { count: 2, meanWpm: '4.2', notes: [] },
   samples: [
     { title: 'Sailing diary', characters: 12345 },
     { title: 'Messages to Hannah', characters: 812 },
@@ -111,7 +111,7 @@ describe('report PDFs', () => {
             },
           ],
           charts: [report.chart!],
-          trials: [{ versionNumber: 3, count: 1, meanWpm: null }],
+          trials: [{ versionNumber: 3, count: 1, meanWpm: null, notes: [] }],
         },
         { paper: 'a4' },
       ),

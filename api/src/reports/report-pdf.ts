@@ -191,6 +191,7 @@ export function renderVersionReportPdf(report: VersionReport, options: ReportPdf
 
   heading(doc, 'Trials on the test keyboard');
   paragraph(doc, `${trialsSentence(report.trials)}.`);
+  for (const note of report.trials.notes) paragraph(doc, note, { soft: true, size: 10 });
 
   heading(doc, 'Samples it was trained on');
   if (report.samples.length === 0) paragraph(doc, 'None: general English alone.');
@@ -271,6 +272,7 @@ export function renderClientReportPdf(report: ClientReport, options: ReportPdfOp
   if (report.trials.length === 0) paragraph(doc, 'No trials in this period.');
   for (const t of report.trials) {
     fact(doc, `Version ${t.versionNumber}`, trialsSentence(t));
+    for (const note of t.notes) paragraph(doc, note, { soft: true, size: 10 });
   }
 
   cautions(doc, report.cautions);

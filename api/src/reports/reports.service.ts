@@ -7,6 +7,7 @@ import {
   profileVersionStatusLabels,
   reportCautions,
   reportDate,
+  reportFigures,
   type VersionFigure,
   versionFigures,
   type VersionReport,
@@ -22,6 +23,7 @@ import { ProfileVersionsService, slug, WITH_MODEL } from '../profile-versions/pr
 import { savingsBySlotsChart } from '../summaries/summary-chart';
 import { summaryCharts } from '../summaries/summary-message';
 import { figuresFromMetrics } from '../summaries/summary-text';
+import { countTrials, plausibleTrials } from '../summaries/trial-figures';
 import { renderClientReportPdf, renderVersionReportPdf, type ReportPdfOptions } from './report-pdf';
 
 export const NOT_TRAINED_REPORT_MESSAGE =
@@ -41,30 +43,37 @@ const figureValue = (figures: VersionFigure[], key: VersionFigure['key']): strin
 
 const dayOf = (date: Date | null | undefined): string | null => reportDate(date ?? null);
 
-type TrialRow = { version_id: string; count: number; wpm: number | null };
+type ReportTrials = { count: number; meanWpm: string | null; notes: string[] };
 
-/** Per version, the trials on the test keyboard (finished within the period, when one is given). */
-async function trialCounts(
+/**
+ * Per version, the trials on the test keyboard (finished within the period, when one is given) that
+ * the family summaries would count too: short trials and implausible speeds are left out, with a
+ * note saying why (the same rules and words: summaries/trial-figures.ts).
+ */
+async function reportTrials(
   manager: EntityManager,
-  versionIds: string[],
-  period?: { from: string; to: string },
-): Promise<Map<string, { count: number; meanWpm: string | null }>> {
-  const counts = new Map<string, { count: number; meanWpm: string | null }>();
-  if (versionIds.length === 0) return counts;
-  // Read with SQL: the trials table belongs to the test keyboard's module.
-  const rows = await manager.query<TrialRow[]>(
-    `SELECT profile_version_id AS version_id, count(*)::int AS count,
-            avg((measures->>'wpm')::float8) AS wpm
-       FROM trials
-      WHERE profile_version_id = ANY($1::uuid[])
-        AND ($2::date IS NULL OR finished_at::date BETWEEN $2::date AND $3::date)
-      GROUP BY profile_version_id`,
-    [versionIds, period?.from ?? null, period?.to ?? null],
+  versions: readonly Pick<ProfileVersion, 'id' | 'number' | 'metrics' | 'settings'>[],
+  period: { from: string; to: string } | null,
+): Promise<Map<string, ReportTrials>> {
+  const counted = await countTrials(
+    manager,
+    versions.map((v) => v.id),
+    period,
   );
-  for (const row of rows) {
-    counts.set(row.version_id, { count: row.count, meanWpm: row.wpm === null ? null : row.wpm.toFixed(1) });
+  const out = new Map<string, ReportTrials>();
+  for (const v of versions) {
+    const trials = counted.get(v.id);
+    if (!trials) continue;
+    const notes: string[] = [];
+    const wpmWith = reportFigures(v.metrics, v.settings.slots).wpmWith;
+    const kept = plausibleTrials({ number: v.number, wpmWith }, trials, notes);
+    out.set(v.id, {
+      count: kept?.count ?? 0,
+      meanWpm: kept?.wpm == null ? null : kept.wpm.toFixed(1),
+      notes,
+    });
   }
-  return counts;
+  return out;
 }
 
 /**
@@ -92,7 +101,11 @@ export class ReportsService {
     });
     if (!WITH_MODEL.includes(version.status)) throw new ConflictException(NOT_TRAINED_REPORT_MESSAGE);
     const trainedEvent = [...version.history].reverse().find((e) => e.status === 'training');
-    const trials = (await trialCounts(manager, [id])).get(id) ?? { count: 0, meanWpm: null };
+    const trials = (await reportTrials(manager, [version], null)).get(id) ?? {
+      count: 0,
+      meanWpm: null,
+      notes: [],
+    };
     const savings = version.metrics?.keystrokeSavings;
     const savingsPerSlot =
       savings && typeof savings === 'object' && Object.keys(savings).length > 0
@@ -146,11 +159,7 @@ export class ReportsService {
       )
       .orderBy('v.number', 'ASC')
       .getMany();
-    const trials = await trialCounts(
-      manager,
-      versions.map((v) => v.id),
-      query,
-    );
+    const trials = await reportTrials(manager, versions, query);
     const rows = versions.map((v) => {
       const figures = figuresOf(v.metrics);
       return {

@@ -1,4 +1,4 @@
-import { MIN_TRIAL_CHARS, PLAUSIBLE_RATE_FACTOR, plausibleTrials } from './summaries.service';
+import { MIN_TRIAL_CHARS, PLAUSIBLE_RATE_FACTOR, plausibleTrials } from './trial-figures';
 
 // The rules themselves are common practice, no source (docs/references.md §2); these checks hold the
 // service to the rule as stated: more than PLAUSIBLE_RATE_FACTOR times the estimate is left out.

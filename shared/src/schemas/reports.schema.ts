@@ -79,8 +79,10 @@ export const reportFigureSchema = z.object({
 /** Trials of a version on the test keyboard: how many, and the mean measured words per minute. */
 export const reportTrialsSchema = z.object({
   count: z.number().int(),
-  /** "4.2" words a minute, null when no trial measured a rate. */
+  /** "4.2" words a minute, null when no trial measured a rate (or its rate was left out). */
   meanWpm: z.string().nullable(),
+  /** What was left out and why (trials too short to measure, a speed far above the estimate). */
+  notes: z.array(z.string()),
 });
 
 // GET /api/profile-versions/:id/report: a trained version's report.

@@ -66,6 +66,11 @@ export const ClientReportView = ({ report }: { report: ClientReport }) => (
           {report.trials.map((t) => (
             <li key={t.versionNumber}>
               <span className="font-bold">Version {t.versionNumber}</span>: {trialsSentence(t)}
+              {t.notes.map((note) => (
+                <span key={note} className="block text-ink-soft">
+                  {note}
+                </span>
+              ))}
             </li>
           ))}
         </ul>

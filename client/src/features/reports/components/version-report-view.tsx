@@ -51,6 +51,11 @@ export const VersionReportView = ({ report }: { report: VersionReport }) => {
 
       <ReportSection id="report-trials" title="Trials on the test keyboard" keep>
         <p>{trialsSentence(report.trials)}.</p>
+        {report.trials.notes.map((note) => (
+          <p key={note} className="text-ink-soft">
+            {note}
+          </p>
+        ))}
       </ReportSection>
 
       <ReportSection id="report-samples" title="Samples it was trained on" newPage>

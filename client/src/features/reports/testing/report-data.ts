@@ -48,7 +48,7 @@ export const versionReportData = (overrides: Partial<VersionReport> = {}): Versi
     }) as unknown as ProfileReport,
   ),
   chart,
-  trials: { count: 2, meanWpm: '3.4' },
+  trials: { count: 2, meanWpm: '3.4', notes: [] },
   samples: [
     { title: 'Sailing club diary', characters: 12_040 },
     { title: 'Messages to Hannah', characters: 1_210 },
@@ -73,6 +73,6 @@ export const clientReportData = (overrides: Partial<ClientReport> = {}): ClientR
     },
   ],
   charts: [chart],
-  trials: [{ versionNumber: 1, count: 3, meanWpm: '3.9' }],
+  trials: [{ versionNumber: 1, count: 3, meanWpm: '3.9', notes: [] }],
   ...overrides,
 });
