@@ -235,11 +235,19 @@ export const focusWalkSuite = {
         );
 
         // A progress summary: written as a draft (focus on its heading), then sent (focus on the sent one).
-        const summariesTab = tabs.getByRole('tab', { name: 'Family updates' });
         await tabTo(page, tabs.getByRole('tab', { selected: true }), { back: true });
-        for (let i = 0; i < 6 && (await summariesTab.getAttribute('aria-selected')) !== 'true'; i++)
+        // One arrow press at a time, each waited for (the tab selected, the address, focus on it).
+        for (const [name, path] of [
+          ['Profile versions', /\/profiles$/],
+          ['Try-outs', /\/trials$/],
+          ['Family updates', /\/summaries$/],
+        ]) {
           await page.keyboard.press('ArrowRight');
-        await page.waitForURL(/\/summaries$/);
+          const tab = tabs.getByRole('tab', { name, selected: true });
+          await tab.waitFor();
+          await page.waitForURL(path);
+          await expectFocusOn(t, page, tab, `${name} tab by arrow key`);
+        }
         await activate(page, page.getByRole('button', { name: 'New progress summary' }));
         const composer = page.getByRole('form', { name: `New progress summary for ${DEMO_CLIENT}` });
         await composer.getByLabel('From').waitFor();
