@@ -7,7 +7,7 @@ import { join } from 'node:path';
 // The demo samples' folder, as the API's seed finds it (api/src/config/data-paths.ts).
 import { demoSamplesDir as demoDir } from '../../api/dist/config/data-paths.js';
 import { signedInAs, signIn, signOut } from './accounts.mjs';
-import { assertNoSidewaysScroll, focused, press } from './page-checks.mjs';
+import { assertNoSidewaysScroll, focused, focusSettled, press } from './page-checks.mjs';
 
 // A phone number as the issue's detector looks for (loose: UK-style and +country forms).
 const phonePattern = /(\+\d{1,3}[\s-]?)?\(?0?\d{2,5}\)?[\s-]?\d{3}[\s-]?\d{3,4}\b/;
@@ -310,7 +310,10 @@ export const caseloadSuite = {
           await dialog.waitFor({ state: 'hidden' });
           // Focus goes to the heading of the list that now shows the record.
           await page.getByRole('heading', { name: `Consent given on ${shownAs}` }).waitFor();
-          assert.deepEqual(await focused(page), { tag: 'h3', name: 'Consent records' });
+          assert.deepEqual(await focusSettled(page, { tag: 'h3', name: 'Consent records' }), {
+            tag: 'h3',
+            name: 'Consent records',
+          });
         };
         await press(recordButton);
         const empty = page.getByRole('dialog', { name: /Record consent/ });
@@ -347,7 +350,10 @@ export const caseloadSuite = {
         await press(voidDialog.getByRole('button', { name: 'Void the record' }));
         await voidDialog.waitFor({ state: 'hidden' });
         await page.getByText(/Voided on .* — Entered twice from the same form\./).waitFor();
-        assert.deepEqual(await focused(page), { tag: 'h3', name: 'Consent records' });
+        assert.deepEqual(await focusSettled(page, { tag: 'h3', name: 'Consent records' }), {
+          tag: 'h3',
+          name: 'Consent records',
+        });
         assert.deepEqual(await t.seriousViolations(page, 'consent tab after void'), []);
         await screenshotTo(page, 'voided');
 
@@ -364,7 +370,10 @@ export const caseloadSuite = {
           .getByRole('status')
           .filter({ hasText: /Consent withdrawn\./ })
           .waitFor();
-        assert.deepEqual(await focused(page), { tag: 'h3', name: 'Consent records' });
+        assert.deepEqual(await focusSettled(page, { tag: 'h3', name: 'Consent records' }), {
+          tag: 'h3',
+          name: 'Consent records',
+        });
 
         // A family contact: added, then deleted, by keyboard.
         await press(page.getByRole('button', { name: 'Add family contact' }));
@@ -393,7 +402,10 @@ export const caseloadSuite = {
         await page.keyboard.press('Enter');
         await deleteDialog.waitFor({ state: 'hidden' });
         await page.getByText('No family contacts yet.').waitFor();
-        assert.deepEqual(await focused(page), { tag: 'h3', name: 'Family contacts' });
+        assert.deepEqual(await focusSettled(page, { tag: 'h3', name: 'Family contacts' }), {
+          tag: 'h3',
+          name: 'Family contacts',
+        });
         assert.deepEqual(await t.seriousViolations(page, 'consent tab after corrections'), []);
         await screenshotTo(page, 'after');
         await signOut(page, 'Clinician');

@@ -26,6 +26,20 @@ export const focused = (page) =>
     return { tag: element?.tagName.toLowerCase() ?? '', name: name.trim() };
   });
 
+/**
+ * Where focus lands after an action that refetches the page's data: `focused` once it equals
+ * `expected`, or after `timeoutMs` whatever it is then (for the caller's assertion to report).
+ */
+export async function focusSettled(page, expected, timeoutMs = 2000) {
+  const until = Date.now() + timeoutMs;
+  let now = await focused(page);
+  while (Date.now() < until && (now.tag !== expected.tag || now.name !== expected.name)) {
+    await page.waitForTimeout(50);
+    now = await focused(page);
+  }
+  return now;
+}
+
 /** Focuses `locator` (as Tab would reach it) and presses `key` on it. */
 export const press = async (locator, key = 'Enter') => {
   await locator.focus();

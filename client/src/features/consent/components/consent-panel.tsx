@@ -25,6 +25,9 @@ type ConsentPanelProps = {
 };
 
 /** The "Consent & family" tab: consent records, withdrawal, scanned forms and family contacts. */
+/** How long after a dialog's action focus that falls to the page is put back on the heading, ms. */
+const RESCUE_MS = 3000;
+
 export const ConsentPanel = ({ clientId, pseudonym, canEdit, announce }: ConsentPanelProps) => {
   const consents = useConsents(clientId);
   const contacts = useContacts(clientId);
@@ -40,11 +43,27 @@ export const ConsentPanel = ({ clientId, pseudonym, canEdit, announce }: Consent
   const recordsHeading = useRef<HTMLHeadingElement>(null);
   const contactsHeading = useRef<HTMLHeadingElement>(null);
   const [focusAfter, setFocusAfter] = useState<'records' | 'contacts' | null>(null);
+  // The refetched list may drop the button the dialog gave focus back to (focus falls to the page or
+  // the tab panel): for RESCUE_MS after, focus that falls there goes to the heading again. Focus the user
+  // has moved to a control is never taken.
+  const rescueFrame = useRef(0);
+  useEffect(() => () => cancelAnimationFrame(rescueFrame.current), []);
   useEffect(() => {
     if (!focusAfter) return;
+    const target = (focusAfter === 'records' ? recordsHeading : contactsHeading).current;
     const timer = window.setTimeout(() => {
-      (focusAfter === 'records' ? recordsHeading : contactsHeading).current?.focus();
+      target?.focus();
       setFocusAfter(null);
+      cancelAnimationFrame(rescueFrame.current);
+      const until = performance.now() + RESCUE_MS;
+      const rescue = () => {
+        // Lost: on the page itself, or on a container holding the heading (e.g. the tab panel).
+        const active = document.activeElement;
+        const lost = !active || active === document.body || (active !== target && active.contains(target));
+        if (lost && target?.isConnected && document.querySelector('[role="dialog"]') === null) target.focus();
+        if (performance.now() < until) rescueFrame.current = requestAnimationFrame(rescue);
+      };
+      rescueFrame.current = requestAnimationFrame(rescue);
     }, 0);
     return () => window.clearTimeout(timer);
   }, [focusAfter]);
